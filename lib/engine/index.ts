@@ -1,0 +1,30 @@
+// Public API of the feasibility engine: pure TypeScript, SI units inside, no I/O.
+export { EngineInputError } from './errors';
+export { ENGINE_VERSION } from './version';
+export { SOURCES, sourcesFor, type Source, type SourceId, type Confidence } from './sources';
+export {
+  volumetricFlowLps, vNotchFlowLps, rectangularWeirFlowLps, floatFlowLps, V_NOTCH_MIN_HEAD_M,
+  type VolumetricTrial, type RectangularWeirReading, type FloatReading,
+} from './flow';
+export {
+  levelRun, clinometerFallM, hoseLevelFallM, allowedMisclosureMm, altitudeFallM, barometricFallM,
+  MISCLOSURE_MM_PER_ROOT_KM,
+  type LevelRow, type LevelRunResult, type ClinometerLeg, type HoseLevelStep, type LevellingOrder,
+} from './fall';
+export {
+  hazenWilliamsLossM, darcyWeisbachLossM, waveSpeedMps, joukowskySurgeM, pipeVelocityMps, frictionFactor,
+  type HazenWilliamsInput, type DarcyWeisbachInput, type WaveSpeedInput, type JoukowskyInput,
+} from './pipes';
+export { velocityHeadM, pressureHeadM, headToKPa } from './heads';
+export { waterDensityKgM3, waterViscosityPaS, G } from './physics';
+export {
+  ramEfficiency, ramDeliveryLpm, daubuissonEfficiency, rankineEfficiency, EFFICIENCY_CURVES,
+  type EfficiencyCurveId, type EfficiencyCurve, type RamEfficiencyResult, type RamDeliveryInput, type RamTestReading,
+} from './ram';
+export { DEMAND_CATALOGUE, dailyDemandL, demandBreakdown, type DemandKind, type DemandLine, type DemandEntry } from './demand';
+export { TANK_RULES, TANK_SIZES_L, tankSizeL, type TankRuleId } from './tank';
+export {
+  DRIVE_LENGTH_RULES, DRIVE_LD_BAND, RAM_SIZE_TABLE, driveLengthBandM, ramSizeForFlow, minimumDriveVelocityMps,
+  type DriveLengthRuleId,
+} from './drive-pipe';
+export { PIPE_MATERIALS, NOMINAL_SIZES, boreMm, wallMm, type PipeMaterialId, type PipeMaterial, type PressureClass } from './materials';

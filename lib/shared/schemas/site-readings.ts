@@ -1,0 +1,212 @@
+// Raw readings of one site visit: the one shape the phone form, the sync route, the engine and the tests validate.
+import { z } from 'zod';
+import { DEMAND_CATALOGUE, type DemandKind } from '@/lib/engine/demand';
+import { DRIVE_LENGTH_RULES, type DriveLengthRuleId } from '@/lib/engine/drive-pipe';
+import { PIPE_MATERIALS, type PipeMaterialId } from '@/lib/engine/materials';
+import { EFFICIENCY_CURVES, type EfficiencyCurveId } from '@/lib/engine/ram';
+import { TANK_RULES, type TankRuleId } from '@/lib/engine/tank';
+
+function keysOf<K extends string>(record: Readonly<Record<K, unknown>>): [K, ...K[]] {
+  return Object.keys(record) as [K, ...K[]];
+}
+
+const num = (label: string) =>
+  z.number({ error: (issue) => (issue.input === undefined ? `${label} is needed` : `${label} must be a number`) });
+const positive = (label: string) => num(label).positive(`${label} must be more than 0`);
+const nonNegative = (label: string) => num(label).nonnegative(`${label} must not be negative`);
+const between = (label: string, min: number, max: number) =>
+  num(label).min(min, `${label} must be at least ${min}`).max(max, `${label} must be at most ${max}`);
+const oneOf = <K extends string>(label: string, values: [K, ...K[]]) =>
+  z.enum(values, { error: `${label} must be one of: ${values.join(', ')}` });
+
+// ---- Flow --------------------------------------------------------------------------------------
+const flowCommon = {
+  id: z.string().optional(),
+  season: oneOf('Season', ['dry', 'wet', 'unknown']),
+  takenAt: z.string().optional(),
+};
+
+const volumetricMeasurement = z.object({
+  ...flowCommon,
+  method: z.literal('volumetric'),
+  trials: z.array(z.object({ volumeL: positive('Volume'), seconds: positive('Seconds') })).min(1, 'Add at least one trial'),
+});
+
+const vNotchMeasurement = z.object({
+  ...flowCommon,
+  method: z.literal('v-notch'),
+  notchAngleDeg: between('Notch angle', 20, 100).default(90),
+  trials: z.array(z.object({ headM: positive('Head on the notch') })).min(1, 'Add at least one trial'),
+});
+
+const weirTrial = z
+  .object({ crestWidthM: positive('Crest width'), headM: positive('Head on the weir') })
+  .refine((t) => t.crestWidthM > 0.2 * t.headM, { message: 'Crest width must be more than a fifth of the head', path: ['crestWidthM'] });
+
+const weirMeasurement = z.object({
+  ...flowCommon,
+  method: z.literal('rectangular-weir'),
+  trials: z.array(weirTrial).min(1, 'Add at least one trial'),
+});
+
+const floatMeasurement = z.object({
+  ...flowCommon,
+  method: z.literal('float'),
+  areaM2: positive('Cross-section area'),
+  coefficient: between('Float coefficient', 0.5, 1).default(0.85),
+  trials: z.array(z.object({ distanceM: positive('Float distance'), seconds: positive('Seconds') })).min(1, 'Add at least one trial'),
+});
+
+export const flowMeasurementSchema = z.discriminatedUnion(
+  'method',
+  [volumetricMeasurement, vNotchMeasurement, weirMeasurement, floatMeasurement],
+  { error: 'Flow method must be volumetric, v-notch, rectangular-weir or float' },
+);
+
+// ---- Fall and lift runs ------------------------------------------------------------------------
+const levelRow = z.object({ backsightM: nonNegative('Backsight').optional(), foresightM: nonNegative('Foresight').optional() });
+
+function checkBooking(rows: readonly z.infer<typeof levelRow>[], key: string, ctx: z.RefinementCtx): void {
+  const last = rows.length - 1;
+  rows.forEach((row, i) => {
+    const needsBs = i < last;
+    const needsFs = i > 0;
+    if (needsBs !== (row.backsightM !== undefined)) {
+      ctx.addIssue({ code: 'custom', path: [key, i, 'backsightM'], message: needsBs ? 'This station needs a backsight' : 'The last station takes no backsight' });
+    }
+    if (needsFs !== (row.foresightM !== undefined)) {
+      ctx.addIssue({ code: 'custom', path: [key, i, 'foresightM'], message: needsFs ? 'This station needs a foresight' : 'The first station takes no foresight' });
+    }
+  });
+}
+
+const levelRun = z
+  .object({
+    method: z.literal('level'),
+    rows: z.array(levelRow).min(2, 'A level run needs at least two stations'),
+    /** Optional return run from the last station back to the first, for the misclosure check. */
+    returnRows: z.array(levelRow).min(2, 'A return run needs at least two stations').optional(),
+    routeLengthM: positive('Route length').optional(),
+  })
+  .superRefine((run, ctx) => {
+    checkBooking(run.rows, 'rows', ctx);
+    if (run.returnRows) checkBooking(run.returnRows, 'returnRows', ctx);
+  });
+
+const hoseRun = z.object({
+  method: z.literal('hose'),
+  steps: z.array(z.object({ upperReadingM: nonNegative('Upper reading'), lowerReadingM: nonNegative('Lower reading') })).min(1, 'Add at least one hose step'),
+});
+
+const clinometerRun = z.object({
+  method: z.literal('clinometer'),
+  legs: z
+    .array(z.object({ slopeDistanceM: positive('Slope distance'), angleBelowHorizontalDeg: between('Angle', -89, 89) }))
+    .min(1, 'Add at least one leg'),
+});
+
+const gpsRun = z.object({
+  method: z.literal('gps'),
+  startAltitudeM: num('Start altitude'),
+  endAltitudeM: num('End altitude'),
+  horizontalAccuracyM: positive('Horizontal accuracy'),
+  verticalAccuracyM: positive('Vertical accuracy').optional(),
+});
+
+const barometricRun = z.object({
+  method: z.literal('barometric'),
+  startPressureHPa: between('Start pressure', 300, 1100),
+  endPressureHPa: between('End pressure', 300, 1100),
+  airTemperatureC: between('Air temperature', -40, 60).default(15),
+  baseStationCorrected: z.boolean().default(false),
+});
+
+export const fallRunSchema = z.discriminatedUnion('method', [levelRun, hoseRun, clinometerRun, gpsRun, barometricRun], {
+  error: 'Fall method must be level, hose, clinometer, gps or barometric',
+});
+
+export const LIFT_DIRECT_METHODS = ['level', 'hose', 'clinometer', 'gps', 'barometric', 'map'] as const;
+
+export const liftSchema = z.discriminatedUnion(
+  'kind',
+  [
+    z.object({
+      kind: z.literal('runs'),
+      /** Where the runs start: at the pump (booked uphill) or at the tank (booked downhill). */
+      bookedFrom: oneOf('Booked from', ['pump', 'tank']),
+      runs: z.array(fallRunSchema).min(1, 'Add at least one lift run'),
+    }),
+    z.object({
+      kind: z.literal('direct'),
+      staticLiftM: positive('Static lift'),
+      method: oneOf('Lift method', [...LIFT_DIRECT_METHODS]),
+      uncertaintyM: positive('Lift uncertainty').optional(),
+    }),
+  ],
+  { error: 'Lift must be given as runs or as a direct value' },
+);
+
+// ---- Pipes, demand, settings -------------------------------------------------------------------
+const materialIds = keysOf<PipeMaterialId>(PIPE_MATERIALS);
+
+const drivePipe = z.object({
+  lengthM: positive('Drive pipe length').optional(),
+  diameterMm: positive('Drive pipe diameter').optional(),
+  material: oneOf('Drive pipe material', materialIds).default('galvanized-steel'),
+  pressureClass: z.string().optional(),
+});
+
+const deliveryPipe = z.object({
+  lengthM: positive('Delivery pipe length'),
+  diameterMm: positive('Delivery pipe diameter').optional(),
+  material: oneOf('Delivery pipe material', materialIds).default('hdpe'),
+  pressureClass: z.string().optional(),
+});
+
+const demandKinds = keysOf<DemandKind>(DEMAND_CATALOGUE);
+
+const demandLine = z.object({
+  kind: oneOf('Demand kind', demandKinds),
+  count: nonNegative('Count'),
+  litresPerHeadPerDay: nonNegative('Litres per head per day').optional(),
+});
+
+export const settingsSchema = z.object({
+  /** Share of the lowest measured flow the ram may take (0.5, low end of 0.5–0.8: common practice). */
+  designFractionOfLowest: between('Design fraction of the lowest flow', 0.05, 1).default(0.5),
+  /** Largest share the organisation would ever take; sets what counts as "within reach". */
+  maxDesignFractionOfLowest: between('Largest design fraction', 0.05, 1).default(0.8),
+  efficiencyCurve: oneOf('Efficiency curve', keysOf<EfficiencyCurveId>(EFFICIENCY_CURVES)).default('building-trades-table'),
+  demandMarginFraction: between('Demand margin', 0, 2).default(0.2),
+  tankRule: oneOf('Tank rule', keysOf<TankRuleId>(TANK_RULES)).default('one-day'),
+  driveLengthRule: oneOf('Drive length rule', keysOf<DriveLengthRuleId>(DRIVE_LENGTH_RULES)).default('perkin-3-7'),
+  fittingsAllowanceFraction: between('Fittings allowance', 0, 1).default(0.25),
+  /** Share of the daily demand drunk in the busiest hour (for the peak tank rule). */
+  peakHourFraction: between('Peak hour share', 0.02, 1).default(0.1),
+  demandOverrides: z.partialRecord(oneOf('Demand kind', demandKinds), nonNegative('Litres per head per day')).default({}),
+});
+
+export const monteCarloSchema = z.object({
+  samples: num('Samples').int('Samples must be a whole number').min(100, 'Samples must be at least 100').max(200000, 'Samples must be at most 200000').default(10000),
+  seed: num('Seed').int('Seed must be a whole number').default(1),
+});
+
+export const siteReadingsSchema = z.object({
+  flowMeasurements: z.array(flowMeasurementSchema).min(1, 'Add at least one flow measurement'),
+  fallRuns: z.array(fallRunSchema).min(1, 'Add at least one fall run'),
+  lift: liftSchema,
+  drivePipe: drivePipe.prefault({}),
+  deliveryPipe,
+  demand: z.array(demandLine).min(1, 'Add at least one demand line'),
+  settings: settingsSchema.prefault({}),
+  monteCarlo: monteCarloSchema.prefault({}),
+});
+
+/** Parsed readings (defaults filled in). */
+export type SiteReadings = z.infer<typeof siteReadingsSchema>;
+/** Readings as the phone sends them (defaults may be left out). */
+export type SiteReadingsInput = z.input<typeof siteReadingsSchema>;
+export type FlowMeasurement = z.infer<typeof flowMeasurementSchema>;
+export type FallRun = z.infer<typeof fallRunSchema>;
+export type LiftReadings = z.infer<typeof liftSchema>;
+export type ScreenSettings = z.infer<typeof settingsSchema>;
