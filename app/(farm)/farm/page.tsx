@@ -1,0 +1,40 @@
+import type { Metadata } from 'next';
+import { VisitTable } from '@/components/visit-table';
+import { requirePageUser } from '@/lib/server/auth/page-guard';
+import { listFarms } from '@/lib/server/data/farms';
+import { listVisits } from '@/lib/server/data/visits';
+import { formatLitresPerDay } from '@/lib/shared/format';
+
+export const metadata: Metadata = { title: 'My farm' };
+
+export default async function FarmHome() {
+  const user = await requirePageUser(['farmer'], '/farm');
+  const [farms, visits] = await Promise.all([
+    listFarms(user, { page: 1, pageSize: 20 }),
+    listVisits(user, { page: 1, pageSize: 20 }),
+  ]);
+  return (
+    <div className="space-y-8">
+      <h1 className="text-3xl font-bold text-slate">My farm</h1>
+      <section aria-labelledby="farms" className="space-y-3">
+        <h2 id="farms" className="text-xl font-bold">Farms and water needs</h2>
+        {farms.items.length === 0 && <p className="text-lg text-stone">No farm is registered to you yet.</p>}
+        <ul className="space-y-2">
+          {farms.items.map((farm) => (
+            <li key={farm.id} className="rounded-md border border-rule bg-white p-4">
+              <span className="block text-lg font-bold">{farm.name}</span>
+              <span className="block text-stone">{farm.area}</span>
+              <span className="mt-1 block">
+                Daily need you told us: <strong className="figure">{formatLitresPerDay(farm.demandLpd)}</strong>
+              </span>
+            </li>
+          ))}
+        </ul>
+      </section>
+      <section aria-labelledby="visits">
+        <h2 id="visits" className="mb-3 text-xl font-bold">Site visits</h2>
+        <VisitTable visits={visits.items} caption="Visits to your farms" />
+      </section>
+    </div>
+  );
+}

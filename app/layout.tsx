@@ -1,0 +1,47 @@
+import type { Metadata, Viewport } from 'next';
+import localFont from 'next/font/local';
+import { ServiceWorkerRegister } from '@/components/service-worker-register';
+import './globals.css';
+
+// Fonts ship in fonts/ (OFL); nothing is fetched from outside the machine.
+const sans = localFont({
+  src: [
+    { path: '../fonts/atkinson-hyperlegible-latin-400-normal.woff2', weight: '400', style: 'normal' },
+    { path: '../fonts/atkinson-hyperlegible-latin-400-italic.woff2', weight: '400', style: 'italic' },
+    { path: '../fonts/atkinson-hyperlegible-latin-700-normal.woff2', weight: '700', style: 'normal' },
+  ],
+  variable: '--font-sans',
+  display: 'swap',
+});
+
+const mono = localFont({
+  src: [
+    { path: '../fonts/ibm-plex-mono-latin-400-normal.woff2', weight: '400', style: 'normal' },
+    { path: '../fonts/ibm-plex-mono-latin-600-normal.woff2', weight: '600', style: 'normal' },
+  ],
+  variable: '--font-mono',
+  display: 'swap',
+});
+
+export const metadata: Metadata = {
+  title: { default: 'Fallbook', template: '%s · Fallbook' },
+  description: 'Screen small-farm sites for hydraulic ram pumps: field readings offline, a plain go / no-go sheet.',
+  applicationName: 'Fallbook',
+};
+
+export const viewport: Viewport = {
+  themeColor: '#1E3A4C',
+  width: 'device-width',
+  initialScale: 1,
+};
+
+export default function RootLayout({ children }: { children: React.ReactNode }) {
+  return (
+    <html lang="en" className={`${sans.variable} ${mono.variable}`}>
+      <body className="bg-paper text-ink antialiased">
+        {children}
+        <ServiceWorkerRegister />
+      </body>
+    </html>
+  );
+}

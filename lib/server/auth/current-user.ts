@@ -1,0 +1,46 @@
+import 'server-only';
+import { getServerSession } from 'next-auth';
+import { getToken, type JWT } from 'next-auth/jwt';
+import type { NextRequest } from 'next/server';
+import { User } from '@/models';
+import { getSequelize } from '../db/connection';
+import { unauthorized } from '../errors';
+import { authOptions } from './options';
+import type { SessionUser } from './permissions';
+
+/**
+ * The signed-in user, re-read from the database on every request: a deactivated account or a
+ * bumped session version ends the session at once, whatever the JWT says.
+ */
+async function loadUser(claims: Pick<JWT, 'uid' | 'sessionVersion'> | null | undefined): Promise<SessionUser | null> {
+  if (!claims?.uid) return null;
+  getSequelize();
+  const user = await User.findByPk(claims.uid);
+  if (!user || !user.active || user.sessionVersion !== claims.sessionVersion) return null;
+  return {
+    id: user.id,
+    organisationId: user.organisationId,
+    role: user.role,
+    name: user.name,
+    email: user.email,
+    units: user.units ?? 'metric',
+  };
+}
+
+/** For route handlers: the user behind the request's session cookie, or null. */
+export async function getRequestUser(req: NextRequest): Promise<SessionUser | null> {
+  return loadUser(await getToken({ req }));
+}
+
+/** For server components and actions: the user of the current request, or null. */
+export async function getCurrentUser(): Promise<SessionUser | null> {
+  const session = await getServerSession(authOptions);
+  if (!session?.user) return null;
+  return loadUser({ uid: session.user.id, sessionVersion: session.user.sessionVersion });
+}
+
+export async function requireRequestUser(req: NextRequest): Promise<SessionUser> {
+  const user = await getRequestUser(req);
+  if (!user) throw unauthorized();
+  return user;
+}

@@ -1,0 +1,77 @@
+import 'server-only';
+import type { NextAuthOptions } from 'next-auth';
+import CredentialsProvider from 'next-auth/providers/credentials';
+import { User } from '@/models';
+import { signInSchema } from '@/lib/shared/schemas/sign-in';
+import { getSequelize } from '../db/connection';
+import { AppError } from '../errors';
+import { verifyPassword } from './passwords';
+import { assertSignInAllowed, recordSignIn } from './rate-limit';
+
+function clientAddress(headers: Record<string, string | string[] | undefined> | undefined): string {
+  const forwarded = headers?.['x-forwarded-for'];
+  const first = Array.isArray(forwarded) ? forwarded[0] : forwarded?.split(',')[0];
+  return first?.trim() || 'local';
+}
+
+const WRONG = 'That e-mail and password do not match an active account.';
+
+export const authOptions: NextAuthOptions = {
+  session: { strategy: 'jwt', maxAge: 30 * 24 * 60 * 60 },
+  pages: { signIn: '/login', error: '/login' },
+  providers: [
+    CredentialsProvider({
+      name: 'E-mail and password',
+      credentials: { email: { type: 'email' }, password: { type: 'password' } },
+      // Messages thrown here reach the sign-in form as its error text.
+      async authorize(credentials, req) {
+        const parsed = signInSchema.safeParse(credentials ?? {});
+        if (!parsed.success) throw new Error(parsed.error.issues[0]?.message ?? WRONG);
+        const { email, password } = parsed.data;
+        const address = clientAddress(req?.headers);
+        try {
+          await assertSignInAllowed(email, address);
+        } catch (error) {
+          if (error instanceof AppError) throw new Error(error.message);
+          throw error;
+        }
+        getSequelize();
+        const user = await User.findOne({ where: { email } });
+        const ok = !!user?.passwordHash && user.active && (await verifyPassword(password, user.passwordHash));
+        await recordSignIn(email, address, ok);
+        if (!user || !ok) throw new Error(WRONG);
+        await user.update({ lastSignInAt: new Date() });
+        return {
+          id: user.id,
+          name: user.name,
+          email: user.email,
+          role: user.role,
+          organisationId: user.organisationId,
+          sessionVersion: user.sessionVersion,
+        };
+      },
+    }),
+  ],
+  callbacks: {
+    jwt({ token, user }) {
+      if (user) {
+        token.uid = user.id;
+        token.role = user.role;
+        token.organisationId = user.organisationId;
+        token.sessionVersion = user.sessionVersion;
+      }
+      return token;
+    },
+    session({ session, token }) {
+      session.user = {
+        id: token.uid,
+        role: token.role,
+        organisationId: token.organisationId,
+        name: token.name ?? '',
+        email: token.email ?? '',
+        sessionVersion: token.sessionVersion,
+      };
+      return session;
+    },
+  },
+};

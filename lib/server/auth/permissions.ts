@@ -1,0 +1,64 @@
+import 'server-only';
+import type { Role, SessionUser } from '@/lib/shared/domain';
+import { forbidden } from '../errors';
+
+/**
+ * How far a role's permission reaches:
+ * - organisation: anything in the caller's organisation;
+ * - assigned: records of visits assigned to the caller (advisors);
+ * - owner: records of farms the caller owns (farmers);
+ * - self: only the caller's own account.
+ */
+export type Scope = 'organisation' | 'assigned' | 'owner' | 'self';
+
+/** The permission table: every route and action names one of these; a role not listed is refused. */
+export const ROLE_PERMISSIONS = {
+  'profile:read': { coordinator: 'self', advisor: 'self', farmer: 'self' },
+  'visit:read': { coordinator: 'organisation', advisor: 'assigned', farmer: 'owner' },
+  'visit:capture': { coordinator: 'organisation', advisor: 'assigned' },
+  'visit:plan': { coordinator: 'organisation' },
+  'farm:read': { coordinator: 'organisation', advisor: 'assigned', farmer: 'owner' },
+  'farm:edit': { coordinator: 'organisation' },
+  'demand:edit': { coordinator: 'organisation', advisor: 'assigned', farmer: 'owner' },
+  'sheet:read': { coordinator: 'organisation', advisor: 'assigned', farmer: 'owner' },
+  'sheet:send': { coordinator: 'organisation', advisor: 'assigned' },
+  'sheet:acknowledge': { farmer: 'owner' },
+  'people:read': { coordinator: 'organisation' },
+  'people:manage': { coordinator: 'organisation' },
+  'organisation:settings': { coordinator: 'organisation' },
+  'sync:use': { coordinator: 'self', advisor: 'self' },
+} as const satisfies Record<string, Partial<Record<Role, Scope>>>;
+
+export type Permission = keyof typeof ROLE_PERMISSIONS;
+
+export type { SessionUser };
+
+/** What a record says about who may touch it; the data layer fills in what it knows. */
+export interface ResourceOwnership {
+  organisationId: string;
+  advisorIds?: readonly string[];
+  ownerId?: string | null;
+  userId?: string;
+}
+
+export function scopeOf(role: Role, permission: Permission): Scope | undefined {
+  const row: Partial<Record<Role, Scope>> = ROLE_PERMISSIONS[permission];
+  return row[role];
+}
+
+/** Whether the user may use the permission, on the resource if one is given. Never throws. */
+export function can(user: SessionUser, permission: Permission, resource?: ResourceOwnership): boolean {
+  const scope = scopeOf(user.role, permission);
+  if (!scope) return false;
+  if (!resource) return true;
+  if (scope === 'self') return resource.userId === undefined || resource.userId === user.id;
+  if (resource.organisationId !== user.organisationId) return false;
+  if (scope === 'organisation') return true;
+  if (scope === 'assigned') return resource.advisorIds?.includes(user.id) ?? false;
+  return resource.ownerId === user.id;
+}
+
+/** Throws a 403 AppError unless `can` allows it. */
+export function authorize(user: SessionUser, permission: Permission, resource?: ResourceOwnership): void {
+  if (!can(user, permission, resource)) throw forbidden();
+}

@@ -1,0 +1,55 @@
+// Words of the domain shared by the database, the API, the forms and the pages.
+
+export const ROLES = ['coordinator', 'advisor', 'farmer'] as const;
+export type Role = (typeof ROLES)[number];
+
+/** A visit's life, from the farmer's request to a running ram. Order matters (follow-up board). */
+export const VISIT_STATUSES = [
+  'requested',
+  'scheduled',
+  'surveyed',
+  'screened',
+  'sent',
+  'acknowledged',
+  'installed',
+  'commissioned',
+  'cancelled',
+] as const;
+export type VisitStatus = (typeof VISIT_STATUSES)[number];
+
+export const VISIT_STATUS_LABELS: Record<VisitStatus, string> = {
+  requested: 'Needs requested',
+  scheduled: 'Visit booked',
+  surveyed: 'Site walked',
+  screened: 'Screened',
+  sent: 'Sheet sent',
+  acknowledged: 'Farmer agreed',
+  installed: 'Ram installed',
+  commissioned: 'Running, checked',
+  cancelled: 'Cancelled',
+};
+
+export const POINT_ROLES = ['intake', 'pump', 'tank', 'station', 'source', 'other'] as const;
+export type PointRole = (typeof POINT_ROLES)[number];
+
+export const UNIT_SYSTEMS = ['metric', 'us'] as const;
+export type UnitSystem = (typeof UNIT_SYSTEMS)[number];
+
+export const VERDICTS = ['go', 'conditional', 'no-go'] as const;
+export type Verdict = (typeof VERDICTS)[number];
+
+export const HOME_BY_ROLE: Record<Role, string> = {
+  coordinator: '/office',
+  advisor: '/field',
+  farmer: '/farm',
+};
+
+/** The signed-in person as the server knows them (re-read from the database each request). */
+export interface SessionUser {
+  id: string;
+  organisationId: string;
+  role: Role;
+  name: string;
+  email: string;
+  units: UnitSystem;
+}

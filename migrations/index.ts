@@ -1,0 +1,16 @@
+import type { QueryInterface } from 'sequelize';
+import * as m0001 from './0001-people-and-farms';
+import * as m0002 from './0002-site-readings';
+import * as m0003 from './0003-screenings-audit-sync';
+
+export interface MigrationModule {
+  up(params: { context: QueryInterface }): Promise<void>;
+  down(params: { context: QueryInterface }): Promise<void>;
+}
+
+// Every migration, in order. Listed statically so tsx, vitest and Next load them the same way.
+export const MIGRATIONS: { name: string; module: MigrationModule }[] = [
+  { name: '0001-people-and-farms.ts', module: m0001 },
+  { name: '0002-site-readings.ts', module: m0002 },
+  { name: '0003-screenings-audit-sync.ts', module: m0003 },
+];

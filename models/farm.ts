@@ -1,0 +1,37 @@
+import {
+  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize,
+} from 'sequelize';
+import { syncedColumns, uuidKey } from './synced';
+
+export class Farm extends Model<InferAttributes<Farm>, InferCreationAttributes<Farm>> {
+  declare id: string;
+  declare organisationId: string;
+  declare ownerId: string | null;
+  declare name: string;
+  declare area: string;
+  declare lat: number | null;
+  declare lon: number | null;
+  declare notes: string;
+  declare rev: CreationOptional<number>;
+  declare createdById: CreationOptional<string | null>;
+  declare deletedAt: CreationOptional<Date | null>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    Farm.init(
+      {
+        id: uuidKey,
+        organisationId: { type: DataTypes.UUID, allowNull: false },
+        ownerId: { type: DataTypes.UUID, allowNull: true },
+        name: { type: DataTypes.STRING(160), allowNull: false },
+        area: { type: DataTypes.STRING(160), allowNull: false, defaultValue: '' },
+        lat: { type: DataTypes.DOUBLE, allowNull: true },
+        lon: { type: DataTypes.DOUBLE, allowNull: true },
+        notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+        ...syncedColumns,
+      },
+      { sequelize, tableName: 'farms', underscored: true },
+    );
+  }
+}

@@ -1,0 +1,35 @@
+import {
+  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize,
+} from 'sequelize';
+import type { UnitSystem } from '@/lib/shared/domain';
+
+/** Organisation-wide choices; the engine and the sheet read them. */
+export interface OrganisationSettings {
+  unitsDefault: UnitSystem;
+  designFractionOfLowest: number;
+  demandFigures: Record<string, number>;
+  pipePrices: { material: string; diameterMm: number; pricePerM: number; currency: string }[];
+}
+
+export class Organisation extends Model<InferAttributes<Organisation>, InferCreationAttributes<Organisation>> {
+  declare id: string;
+  declare name: string;
+  declare district: string;
+  declare settings: OrganisationSettings;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    Organisation.init(
+      {
+        id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+        name: { type: DataTypes.STRING(160), allowNull: false },
+        district: { type: DataTypes.STRING(160), allowNull: false, defaultValue: '' },
+        settings: { type: DataTypes.JSON, allowNull: false },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'organisations', underscored: true },
+    );
+  }
+}

@@ -1,0 +1,37 @@
+import {
+  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize,
+} from 'sequelize';
+import { syncedColumns, uuidKey } from './synced';
+
+/** The drive or delivery pipe as planned on site: length along the route, size, material. */
+export class PipeRun extends Model<InferAttributes<PipeRun>, InferCreationAttributes<PipeRun>> {
+  declare id: string;
+  declare visitId: string;
+  // 'drive' (intake → ram) or 'delivery' (ram → tank).
+  declare purpose: string;
+  declare lengthM: number | null;
+  declare diameterMm: number | null;
+  declare material: string;
+  declare pressureClass: string | null;
+  declare rev: CreationOptional<number>;
+  declare createdById: CreationOptional<string | null>;
+  declare deletedAt: CreationOptional<Date | null>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    PipeRun.init(
+      {
+        id: uuidKey,
+        visitId: { type: DataTypes.UUID, allowNull: false },
+        purpose: { type: DataTypes.STRING(10), allowNull: false },
+        lengthM: { type: DataTypes.DOUBLE, allowNull: true },
+        diameterMm: { type: DataTypes.DOUBLE, allowNull: true },
+        material: { type: DataTypes.STRING(24), allowNull: false },
+        pressureClass: { type: DataTypes.STRING(24), allowNull: true },
+        ...syncedColumns,
+      },
+      { sequelize, tableName: 'pipe_runs', underscored: true },
+    );
+  }
+}

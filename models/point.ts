@@ -1,0 +1,45 @@
+import {
+  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize,
+} from 'sequelize';
+import type { PointRole } from '@/lib/shared/domain';
+import { syncedColumns, uuidKey } from './synced';
+
+/** A located point of the site walk: intake, pump site, tank, profile station. */
+export class Point extends Model<InferAttributes<Point>, InferCreationAttributes<Point>> {
+  declare id: string;
+  declare visitId: string;
+  declare role: PointRole;
+  declare label: string;
+  declare lat: number | null;
+  declare lon: number | null;
+  declare accuracyM: number | null;
+  declare altitudeM: number | null;
+  declare altitudeAccuracyM: number | null;
+  declare chainageM: number | null;
+  declare capturedAt: Date | null;
+  declare rev: CreationOptional<number>;
+  declare createdById: CreationOptional<string | null>;
+  declare deletedAt: CreationOptional<Date | null>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    Point.init(
+      {
+        id: uuidKey,
+        visitId: { type: DataTypes.UUID, allowNull: false },
+        role: { type: DataTypes.STRING(12), allowNull: false },
+        label: { type: DataTypes.STRING(120), allowNull: false, defaultValue: '' },
+        lat: { type: DataTypes.DOUBLE, allowNull: true },
+        lon: { type: DataTypes.DOUBLE, allowNull: true },
+        accuracyM: { type: DataTypes.DOUBLE, allowNull: true },
+        altitudeM: { type: DataTypes.DOUBLE, allowNull: true },
+        altitudeAccuracyM: { type: DataTypes.DOUBLE, allowNull: true },
+        chainageM: { type: DataTypes.DOUBLE, allowNull: true },
+        capturedAt: { type: DataTypes.DATE, allowNull: true },
+        ...syncedColumns,
+      },
+      { sequelize, tableName: 'points', underscored: true },
+    );
+  }
+}

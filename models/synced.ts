@@ -1,0 +1,13 @@
+import { DataTypes } from 'sequelize';
+
+// Columns every record that syncs with the phone carries (DESIGN.md, data flow).
+export const syncedColumns = {
+  // Server revision from the `change_rev` sequence: the pull cursor and the conflict check.
+  rev: { type: DataTypes.BIGINT, allowNull: false, defaultValue: 0 },
+  createdById: { type: DataTypes.UUID, allowNull: true },
+  deletedAt: { type: DataTypes.DATE, allowNull: true },
+  createdAt: DataTypes.DATE,
+  updatedAt: DataTypes.DATE,
+};
+
+export const uuidKey = { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 };

@@ -1,0 +1,40 @@
+import {
+  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize,
+} from 'sequelize';
+import type { VisitStatus } from '@/lib/shared/domain';
+import { syncedColumns, uuidKey } from './synced';
+
+export class Visit extends Model<InferAttributes<Visit>, InferCreationAttributes<Visit>> {
+  declare id: string;
+  declare organisationId: string;
+  declare farmId: string;
+  declare advisorId: string | null;
+  declare plannedOn: string | null;
+  declare status: VisitStatus;
+  declare visitedAt: Date | null;
+  declare lastSyncedAt: Date | null;
+  declare notes: string;
+  declare rev: CreationOptional<number>;
+  declare createdById: CreationOptional<string | null>;
+  declare deletedAt: CreationOptional<Date | null>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    Visit.init(
+      {
+        id: uuidKey,
+        organisationId: { type: DataTypes.UUID, allowNull: false },
+        farmId: { type: DataTypes.UUID, allowNull: false },
+        advisorId: { type: DataTypes.UUID, allowNull: true },
+        plannedOn: { type: DataTypes.DATEONLY, allowNull: true },
+        status: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'requested' },
+        visitedAt: { type: DataTypes.DATE, allowNull: true },
+        lastSyncedAt: { type: DataTypes.DATE, allowNull: true },
+        notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+        ...syncedColumns,
+      },
+      { sequelize, tableName: 'visits', underscored: true },
+    );
+  }
+}

@@ -1,0 +1,32 @@
+import {
+  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize,
+} from 'sequelize';
+import { syncedColumns, uuidKey } from './synced';
+
+/** A spring or creek the advisor measured; flow measurements hang off it. */
+export class WaterSource extends Model<InferAttributes<WaterSource>, InferCreationAttributes<WaterSource>> {
+  declare id: string;
+  declare visitId: string;
+  declare name: string;
+  declare kind: string;
+  declare notes: string;
+  declare rev: CreationOptional<number>;
+  declare createdById: CreationOptional<string | null>;
+  declare deletedAt: CreationOptional<Date | null>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    WaterSource.init(
+      {
+        id: uuidKey,
+        visitId: { type: DataTypes.UUID, allowNull: false },
+        name: { type: DataTypes.STRING(160), allowNull: false },
+        kind: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'creek' },
+        notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+        ...syncedColumns,
+      },
+      { sequelize, tableName: 'water_sources', underscored: true },
+    );
+  }
+}

@@ -1,0 +1,76 @@
+// Environment for the bootstrap scripts: .env (made from .env.example) or the test profile.
+import { randomBytes } from 'node:crypto';
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
+import { createHash } from 'node:crypto';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+
+export const root = path.resolve(new URL('../..', import.meta.url).pathname);
+
+/** Values `npm test` uses, so tests never touch the demo database or ports. */
+export const testProfile = {
+  NODE_ENV: 'production',
+  PORT: '3100',
+  HOST: '127.0.0.1',
+  NEXTAUTH_URL: 'http://127.0.0.1:3100',
+  NEXTAUTH_SECRET: 'test-secret-not-for-production-0123456789',
+  DB_HOST: '127.0.0.1',
+  DB_PORT: '3308',
+  DB_NAME: 'fallbook_test',
+  DB_USER: 'fallbook_test',
+  DB_PASSWORD: 'fallbook-test',
+  DB_DATA_DIR: '.data/mariadb-test',
+  DB_SOCKET: '',
+  SMTP_HOST: '127.0.0.1',
+  SMTP_PORT: '1026',
+  SMTP_USER: '',
+  SMTP_PASSWORD: '',
+  MAIL_FROM: 'Fallbook <no-reply@fallbook.test>',
+  MAIL_DIR: '.data/mail-test',
+  MAIL_INBOX_PORT: '1081',
+  SEED_DEMO: '1',
+};
+
+/** Creates .env from .env.example with a fresh secret when it is missing. */
+export function ensureEnvFile() {
+  const envPath = path.join(root, '.env');
+  if (existsSync(envPath)) return false;
+  const example = readFileSync(path.join(root, '.env.example'), 'utf8');
+  const secret = randomBytes(32).toString('base64url');
+  writeFileSync(envPath, example.replace(/^NEXTAUTH_SECRET=.*$/m, `NEXTAUTH_SECRET=${secret}`));
+  return true;
+}
+
+/** Loads .env (or the test profile) into process.env; explicit environment wins. */
+export function loadEnv(profile = 'local') {
+  if (profile === 'test') {
+    for (const [key, value] of Object.entries(testProfile)) {
+      if (process.env[`FALLBOOK_KEEP_${key}`] === undefined) process.env[key] = value;
+    }
+  } else {
+    const envPath = path.join(root, '.env');
+    if (existsSync(envPath)) process.loadEnvFile(envPath);
+  }
+  process.env.NEXT_TELEMETRY_DISABLED = '1';
+  return dbSettings();
+}
+
+/** Database settings read from process.env, with the socket path derived when empty. */
+export function dbSettings() {
+  const env = process.env;
+  const port = Number(env.DB_PORT || 3307);
+  const dataDir = path.resolve(root, env.DB_DATA_DIR || '.data/mariadb');
+  // Unix socket paths are limited to ~100 characters: keep it short, unique per data folder.
+  const hash = createHash('sha1').update(dataDir).digest('hex').slice(0, 10);
+  const socket = env.DB_SOCKET || path.join(tmpdir(), `fallbook-${hash}-${port}.sock`);
+  if (!env.DB_SOCKET) env.DB_SOCKET = socket;
+  return {
+    host: env.DB_HOST || '127.0.0.1',
+    port,
+    name: env.DB_NAME || 'fallbook',
+    user: env.DB_USER || 'fallbook',
+    password: env.DB_PASSWORD || '',
+    dataDir,
+    socket,
+  };
+}

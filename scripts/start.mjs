@@ -1,0 +1,44 @@
+// npm start – set up everything on a fresh machine and serve Fallbook on http://localhost:3000.
+import { spawn } from 'node:child_process';
+import { ensureEnvFile, loadEnv } from './lib/env.mjs';
+import { log, ensureNodeModules } from './lib/proc.mjs';
+
+const started = Date.now();
+ensureNodeModules();
+if (ensureEnvFile()) log('created .env from .env.example (with a fresh NEXTAUTH_SECRET)');
+loadEnv('local');
+
+// Imported after the packages are installed: these need node_modules.
+const { bringUpServices } = await import('./lib/stack.mjs');
+const { ensureBuild } = await import('./lib/build.mjs');
+const { stopDatabase } = await import('./lib/mariadb.mjs');
+const { DEMO_ACCOUNTS_TEXT } = await import('./lib/demo-accounts.mjs');
+const { nodeBin } = await import('./lib/proc.mjs');
+
+const { db, mail } = await bringUpServices();
+ensureBuild();
+
+const port = process.env.PORT || '3000';
+const host = process.env.HOST || '127.0.0.1';
+const next = spawn(process.execPath, [nodeBin('next/dist/bin/next'), 'start', '-H', host, '-p', port], {
+  stdio: 'inherit',
+  env: { ...process.env, NODE_ENV: 'production' },
+});
+
+log(`ready in ${((Date.now() - started) / 1000).toFixed(1)} s: open ${process.env.NEXTAUTH_URL || `http://localhost:${port}`}`);
+process.stdout.write(DEMO_ACCOUNTS_TEXT);
+
+let stopping = false;
+async function stop(code = 0) {
+  if (stopping) return;
+  stopping = true;
+  log('stopping…');
+  next.kill('SIGTERM');
+  await mail.close().catch(() => {});
+  await stopDatabase(db);
+  log('stopped');
+  process.exit(code);
+}
+process.on('SIGINT', () => void stop(0));
+process.on('SIGTERM', () => void stop(0));
+next.on('exit', (code) => void stop(code ?? 0));

@@ -1,0 +1,2 @@
+// Vitest runs server modules outside Next; `server-only` would throw there.
+export {};

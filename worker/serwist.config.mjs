@@ -1,0 +1,9 @@
+// Serwist in configurator mode: runs after `next build`, precaches the build and prerendered pages.
+import { generateGlobPatterns, serwist } from '@serwist/next/config';
+
+export default serwist({
+  swSrc: 'worker/sw.ts',
+  swDest: 'public/sw.js',
+  // The default patterns leave out fonts; the field screens must render offline in our own type.
+  globPatterns: [...generateGlobPatterns('.next/'), '.next/static/media/*.woff2'],
+});
