@@ -28,3 +28,9 @@ export {
   type DriveLengthRuleId,
 } from './drive-pipe';
 export { PIPE_MATERIALS, NOMINAL_SIZES, boreMm, wallMm, type PipeMaterialId, type PipeMaterial, type PressureClass } from './materials';
+export { screenSite, parseReadingsOrThrow } from './screen';
+export { runMonteCarlo, type MonteCarloInput, type MonteCarloResult } from './monte-carlo';
+export { mulberry32, normalSampler, quantileSorted } from './random';
+export { judge, MIN_FALL_M, MAX_LIFT_RATIO, WARN_LIFT_RATIO, MIN_SUPPLY_MULTIPLE, MIN_DELIVERY_HEAD_M, MIN_PROBABILITY_MEETS } from './verdict';
+export type { Screening, Figure, FigureKey, Reason, Condition, Caution, Verdict, Severity, BillOfMaterialsLine } from './screening-types';
+export { siteReadingsSchema, type SiteReadings, type SiteReadingsInput } from '@/lib/shared/schemas/site-readings';

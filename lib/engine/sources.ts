@@ -58,6 +58,7 @@ const list = [
   { id: 'who-howard-bartram-2003', citation: 'Howard & Bartram (2003), Domestic Water Quantity, Service Level and Health, WHO/SDE/WSH/03.02, Table S1', confidence: 'from-memory', note: 'document found; 20 L basic access corroborated by WHO/UNICEF JMP' },
   { id: 'sphere-2018', citation: 'Sphere Handbook (2018): at least 15 L per person per day', confidence: 'found' },
   { id: 'fao-56', citation: 'FAO Irrigation & Drainage Paper 56 (Allen et al. 1998): garden ET about 3–7 mm/day', confidence: 'from-memory' },
+  { id: 'continuity', citation: 'Continuity: mean velocity v = Q/A', confidence: 'computed' },
   { id: 'monte-carlo', citation: 'Monte Carlo propagation of reading uncertainties, seeded generator (mulberry32, Box–Muller)', confidence: 'common-practice' },
   { id: 'reading-uncertainty', citation: 'Per-method reading uncertainties: level 3 mm per set-up, hose 5 mm per step, clinometer 0.3 % of distance per leg', confidence: 'from-memory' },
   { id: 'common-practice', citation: 'Engineering judgement of the trade', confidence: 'common-practice' },

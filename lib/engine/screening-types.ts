@@ -1,0 +1,63 @@
+import type { Source, SourceId } from './sources';
+
+export type Verdict = 'go' | 'conditional' | 'no-go';
+export type Severity = 'no-go' | 'conditional' | 'note';
+
+export interface Reason {
+  code: string;
+  severity: Severity;
+  text: string;
+}
+
+export interface Condition {
+  /** The reason this condition answers. */
+  code: string;
+  text: string;
+}
+
+export interface Caution {
+  code: string;
+  text: string;
+}
+
+export type FigureInputs = Record<string, number | string | boolean | null>;
+
+/** One traced number: its value, unit, the rule that made it, the source of that rule and its inputs. */
+export interface Figure {
+  value: number | null;
+  unit: string;
+  rule: string;
+  sourceId: SourceId;
+  inputs: FigureInputs;
+}
+
+export type FigureKey =
+  | 'fallM' | 'fallUncertaintyM' | 'supplyMeanLpm' | 'supplyLowestLpm' | 'supplySpreadLpm' | 'designFlowLpm'
+  | 'driveFlowLpm' | 'staticLiftM' | 'staticLiftUncertaintyM' | 'deliveryFrictionM' | 'totalLiftM' | 'liftRatio'
+  | 'efficiency' | 'deliveryLpm' | 'deliveryLpd' | 'wasteFlowLpm' | 'supplyToPumpedRatio' | 'demandLpd'
+  | 'demandMarginLpd' | 'tankL' | 'driveLengthMinM' | 'driveLengthMaxM' | 'driveLengthM' | 'driveLengthToDiameter'
+  | 'driveBoreMm' | 'driveVelocityMps' | 'driveClosureVelocityMps' | 'minimumClosureVelocityMps' | 'waveSpeedMps'
+  | 'surgeHeadM' | 'peakPressureHeadM' | 'drivePipeRatingM' | 'deliveryBoreMm' | 'deliveryPipeRatingM'
+  | 'probabilityMeetsDemand' | 'deliveryP10Lpd' | 'deliveryP50Lpd' | 'deliveryP90Lpd';
+
+export interface BillOfMaterialsLine {
+  item: string;
+  size: string;
+  quantity: number;
+  unit: string;
+  note: string;
+}
+
+/** The result of screening one site: plain JSON, stored with the visit and rendered on the farmer's sheet. */
+export interface Screening {
+  engineVersion: string;
+  verdict: Verdict;
+  reasons: Reason[];
+  conditions: Condition[];
+  cautions: Caution[];
+  figures: Partial<Record<FigureKey, Figure>>;
+  billOfMaterials: BillOfMaterialsLine[];
+  settings: Record<string, number | string>;
+  monteCarlo: { samples: number; seed: number; generator: string };
+  sources: Source[];
+}
