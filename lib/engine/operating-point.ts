@@ -31,7 +31,12 @@ export function efficiencyAt(curve: EfficiencyCurve, ratio: number): number {
  */
 export function deliveryLpm(ctx: OperatingContext, fallM: number, staticLiftM: number, driveLpm: number, out?: Float64Array): number {
   if (!(fallM > 0) || !(driveLpm > 0) || !(staticLiftM > 0)) {
-    if (out) out.fill(0);
+    if (out) {
+      out[0] = 0;
+      out[1] = staticLiftM;
+      out[2] = fallM > 0 ? staticLiftM / fallM : 0;
+      out[3] = fallM > 0 && staticLiftM > 0 ? efficiencyAt(ctx.curve, staticLiftM / fallM) : 0;
+    }
     return 0;
   }
   let q = 0;

@@ -146,7 +146,7 @@ export function judge(f: VerdictFacts): Judgement {
     if (d.peakPressureHeadM > d.ratingM) {
       const text = `Lift plus surge reaches ${fmt(d.peakPressureHeadM, 'm')} of head (surge ${fmt(d.surgeHeadM, 'm')}) against the drive pipe's rating of ${fmt(d.ratingM, 'm')} (${d.classLabel}).`;
       if (d.higherClassLabel) add('SURGE_ABOVE_RATING', 'conditional', text, `Use ${d.higherClassLabel} for the drive pipe and ram fittings.`);
-      else add('SURGE_ABOVE_RATING', 'no-go', `${text} No higher class of ${d.materialLabel} holds it.`);
+      else add('SURGE_ABOVE_RATING', 'no-go', `${text} No higher class of ${d.materialLabel} holds it; a larger drive pipe lowers the surge, so screen again with one.`);
     }
     if (d.closureVelocityMps < d.minimumClosureVelocityMps) {
       add('DRIVE_TOO_SOFT', 'conditional', `The drive flow (about ${fmt(d.closureVelocityMps, 'm/s')} at valve closure) is too slow to raise a surge of the ${fmt(f.totalLiftM, 'm')} lift in this pipe (needs ${fmt(d.minimumClosureVelocityMps, 'm/s')}).`, 'Use a rigid (galvanized steel) drive pipe.');
