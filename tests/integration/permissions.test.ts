@@ -7,7 +7,7 @@ import { GET as getVisits } from '@/app/api/visits/route';
 import { GET as getVisit } from '@/app/api/visits/[id]/route';
 import { ROLE_PERMISSIONS, scopeOf, type Permission } from '@/lib/server/auth/permissions';
 import { ROLES } from '@/lib/shared/domain';
-import { User } from '@/models';
+import { User } from '@/lib/server/db';
 import { makeOrganisation, params, request, type TestUser } from './support/fixtures';
 
 type Org = Awaited<ReturnType<typeof makeOrganisation>>;

@@ -2,8 +2,7 @@ import 'server-only';
 import { getServerSession } from 'next-auth';
 import { getToken, type JWT } from 'next-auth/jwt';
 import type { NextRequest } from 'next/server';
-import { User } from '@/models';
-import { getSequelize } from '../db/connection';
+import { User } from '@/lib/server/db';
 import { unauthorized } from '../errors';
 import { authOptions } from './options';
 import type { SessionUser } from './permissions';
@@ -14,7 +13,6 @@ import type { SessionUser } from './permissions';
  */
 async function loadUser(claims: Pick<JWT, 'uid' | 'sessionVersion'> | null | undefined): Promise<SessionUser | null> {
   if (!claims?.uid) return null;
-  getSequelize();
   const user = await User.findByPk(claims.uid);
   if (!user || !user.active || user.sessionVersion !== claims.sessionVersion) return null;
   return {

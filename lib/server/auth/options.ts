@@ -1,9 +1,8 @@
 import 'server-only';
 import type { NextAuthOptions } from 'next-auth';
 import CredentialsProvider from 'next-auth/providers/credentials';
-import { User } from '@/models';
+import { User } from '@/lib/server/db';
 import { signInSchema } from '@/lib/shared/schemas/sign-in';
-import { getSequelize } from '../db/connection';
 import { AppError } from '../errors';
 import { verifyPassword } from './passwords';
 import { assertSignInAllowed, recordSignIn } from './rate-limit';
@@ -35,7 +34,6 @@ export const authOptions: NextAuthOptions = {
           if (error instanceof AppError) throw new Error(error.message);
           throw error;
         }
-        getSequelize();
         const user = await User.findOne({ where: { email } });
         const ok = !!user?.passwordHash && user.active && (await verifyPassword(password, user.passwordHash));
         await recordSignIn(email, address, ok);

@@ -1,8 +1,7 @@
 import 'server-only';
 import { Op } from 'sequelize';
-import { SignInAttempt } from '@/models';
+import { SignInAttempt } from '@/lib/server/db';
 import { rateLimited } from '../errors';
-import { getSequelize } from '../db/connection';
 
 // Failed sign-ins allowed in the window, per account and per address. Kept in the database so
 // the limit holds across app servers and restarts.
@@ -16,7 +15,6 @@ async function failuresSince(where: { email: string } | { address: string }, sin
 
 /** Throws a 429 AppError when the account or the address has failed too often recently. */
 export async function assertSignInAllowed(email: string, address: string, now = new Date()) {
-  getSequelize();
   const since = new Date(now.getTime() - SIGN_IN_WINDOW_MS);
   if ((await failuresSince({ email }, since)) >= MAX_FAILURES_PER_ACCOUNT) {
     throw rateLimited('Too many failed sign-ins for this account. Wait 15 minutes, then try again.');

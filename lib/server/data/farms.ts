@@ -1,8 +1,7 @@
 import 'server-only';
 import { Op } from 'sequelize';
-import { DemandLine, Farm, User, Visit } from '@/models';
+import { DemandLine, Farm, User, Visit } from '@/lib/server/db';
 import type { SessionUser } from '../auth/permissions';
-import { getSequelize } from '../db/connection';
 
 export interface FarmSummary {
   id: string;
@@ -16,7 +15,6 @@ export interface FarmSummary {
 
 /** Farms the user may see: the organisation's, those with a visit assigned to them, or their own. */
 export async function listFarms(user: SessionUser, page: { page: number; pageSize: number }) {
-  getSequelize();
   const where: Record<string, unknown> = { organisationId: user.organisationId, deletedAt: null };
   if (user.role === 'farmer') where.ownerId = user.id;
   if (user.role === 'advisor') {

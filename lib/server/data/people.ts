@@ -1,12 +1,10 @@
 import 'server-only';
-import { User } from '@/models';
+import { User } from '@/lib/server/db';
 import { authorize, type SessionUser } from '../auth/permissions';
-import { getSequelize } from '../db/connection';
 
 /** The people of the coordinator's organisation, by role then name. */
 export async function listPeople(user: SessionUser, page: { page: number; pageSize: number }) {
   authorize(user, 'people:read');
-  getSequelize();
   const { rows, count } = await User.findAndCountAll({
     where: { organisationId: user.organisationId },
     attributes: ['id', 'name', 'email', 'role', 'active', 'lastSignInAt'],

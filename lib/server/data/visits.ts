@@ -1,10 +1,9 @@
 import 'server-only';
 import { Op, type WhereOptions } from 'sequelize';
-import { Farm, Screening, User, Visit } from '@/models';
+import { Farm, Screening, User, Visit, getSequelize } from '@/lib/server/db';
 import { VISIT_STATUS_LABELS, type Verdict, type VisitStatus } from '@/lib/shared/domain';
 import type { VisitListQuery } from '@/lib/shared/schemas/list-query';
 import { authorize, type Permission, type SessionUser } from '../auth/permissions';
-import { getSequelize } from '../db/connection';
 import { notFound } from '../errors';
 
 export interface VisitSummary {
@@ -53,7 +52,6 @@ async function latestVerdicts(visitIds: string[]): Promise<Map<string, Verdict>>
 
 /** One page of visits visible to the user, newest planned date first. */
 export async function listVisits(user: SessionUser, query: VisitListQuery) {
-  getSequelize();
   const { where, farmWhere } = visibleWhere(user);
   const { rows, count } = await Visit.findAndCountAll({
     where: query.status ? { ...where, status: query.status } : where,
@@ -76,7 +74,6 @@ export async function listVisits(user: SessionUser, query: VisitListQuery) {
 
 /** The visit, if it exists and the user holds the permission on it (404, then 403 otherwise). */
 export async function getVisitOrThrow(user: SessionUser, id: string, permission: Permission = 'visit:read') {
-  getSequelize();
   const row = (await Visit.findOne({
     where: { id, deletedAt: null },
     include: [
@@ -96,11 +93,11 @@ export async function getVisitOrThrow(user: SessionUser, id: string, permission:
 
 /** Visits per status in the user's view, plus how many are overdue. */
 export async function visitCounts(user: SessionUser, today = new Date().toISOString().slice(0, 10)) {
-  getSequelize();
+  const sequelize = getSequelize();
   const { where, farmWhere } = visibleWhere(user);
   const include = [{ model: Farm, attributes: [], where: farmWhere, required: true }];
   const rows = (await Visit.findAll({
-    attributes: ['status', [getSequelize().fn('COUNT', getSequelize().col('Visit.id')), 'n']],
+    attributes: ['status', [sequelize.fn('COUNT', sequelize.col('Visit.id')), 'n']],
     where,
     include,
     group: ['status'],

@@ -1,8 +1,7 @@
 import 'server-only';
-import { DemandLine, Farm, Organisation, User, Visit } from '@/models';
+import { DemandLine, Farm, Organisation, User, Visit, getSequelize } from '@/lib/server/db';
 import { DEMAND_CATALOGUE } from '@/lib/engine/demand';
 import { hashPassword } from '../auth/passwords';
-import { getSequelize } from '../db/connection';
 import { defaultOrganisationSettings } from '../organisation-settings';
 import { demoId } from './ids';
 import { DEMO_FARMS, DEMO_ORGANISATION, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_VISITS } from './scenario';

@@ -4,7 +4,7 @@ import { NextRequest } from 'next/server';
 import { getSequelize } from '@/lib/server/db/connection';
 import { defaultOrganisationSettings } from '@/lib/server/organisation-settings';
 import type { Role } from '@/lib/shared/domain';
-import { Farm, Organisation, User, Visit } from '@/models';
+import { Farm, Organisation, User, Visit } from '@/lib/server/db';
 
 export interface TestUser { id: string; organisationId: string; role: Role; sessionVersion: number; email: string; name: string }
 
@@ -17,7 +17,6 @@ async function makeUser(organisationId: string, role: Role, label: string): Prom
 
 /** One organisation with a coordinator, two advisors, two farmers, their farms and a visit each. */
 export async function makeOrganisation(label = 'org') {
-  getSequelize();
   const organisationId = randomUUID();
   await Organisation.create({ id: organisationId, name: `${label} trust`, district: label, settings: defaultOrganisationSettings() });
   const coordinator = await makeUser(organisationId, 'coordinator', `${label}-coordinator`);
