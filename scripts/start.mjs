@@ -4,6 +4,7 @@ import { ensureEnvFile, loadEnv } from './lib/env.mjs';
 import { log, ensureNodeModules } from './lib/proc.mjs';
 
 const started = Date.now();
+let stopping = false;
 ensureNodeModules();
 if (ensureEnvFile()) log('created .env from .env.example (with a fresh NEXTAUTH_SECRET)');
 loadEnv('local');
@@ -25,10 +26,24 @@ const next = spawn(process.execPath, [nodeBin('next/dist/bin/next'), 'start', '-
   env: { ...process.env, NODE_ENV: 'production' },
 });
 
-log(`ready in ${((Date.now() - started) / 1000).toFixed(1)} s: open ${process.env.NEXTAUTH_URL || `http://localhost:${port}`}`);
-process.stdout.write(DEMO_ACCOUNTS_TEXT);
+if (await waitForHealth(`http://127.0.0.1:${port}/api/health`)) {
+  log(`ready in ${((Date.now() - started) / 1000).toFixed(1)} s: open ${process.env.NEXTAUTH_URL || `http://localhost:${port}`}`);
+  process.stdout.write(DEMO_ACCOUNTS_TEXT);
+}
 
-let stopping = false;
+async function waitForHealth(url, timeoutMs = 60_000) {
+  const until = Date.now() + timeoutMs;
+  while (Date.now() < until && !stopping) {
+    try {
+      if ((await fetch(url)).ok) return true;
+    } catch {
+      // not listening yet
+    }
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  return false;
+}
+
 async function stop(code = 0) {
   if (stopping) return;
   stopping = true;

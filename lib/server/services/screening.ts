@@ -1,0 +1,64 @@
+import 'server-only';
+import { createHash } from 'node:crypto';
+import type { Transaction } from 'sequelize';
+import { ENGINE_VERSION, screenSite } from '@/lib/engine';
+import { siteReadingsSchema } from '@/lib/shared/schemas/site-readings';
+import { AuditEntry, Screening, Visit } from '@/lib/server/db';
+import { loadSiteReadings } from '../data/site-readings';
+
+/** JSON with keys in sorted order, so equal inputs always hash the same. */
+function canonicalJson(value: unknown): string {
+  if (Array.isArray(value)) return `[${value.map(canonicalJson).join(',')}]`;
+  if (value && typeof value === 'object') {
+    const entries = Object.entries(value as Record<string, unknown>)
+      .filter(([, v]) => v !== undefined)
+      .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
+    return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${canonicalJson(v)}`).join(',')}}`;
+  }
+  return JSON.stringify(value);
+}
+
+export type ScreenVisitOutcome =
+  | { status: 'screened'; screeningId: string; verdict: string }
+  | { status: 'unchanged'; screeningId: string; verdict: string }
+  | { status: 'incomplete'; missing: string[] };
+
+/**
+ * Runs the engine over the visit's stored readings and stores the screening, unless the same
+ * inputs were already screened by this engine version. Incomplete readings are reported, not stored.
+ */
+export async function screenVisit(visitId: string, actorId: string | null, transaction?: Transaction): Promise<ScreenVisitOutcome> {
+  const raw = await loadSiteReadings(visitId, transaction);
+  const parsed = siteReadingsSchema.safeParse(raw);
+  if (!parsed.success) {
+    return { status: 'incomplete', missing: parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`) };
+  }
+  const inputsHash = createHash('sha256').update(canonicalJson(parsed.data)).digest('hex');
+  const latest = await Screening.findOne({ where: { visitId }, order: [['createdAt', 'DESC']], transaction });
+  if (latest && latest.inputsHash === inputsHash && latest.engineVersion === ENGINE_VERSION) {
+    return { status: 'unchanged', screeningId: latest.id, verdict: latest.verdict };
+  }
+  const result = screenSite(parsed.data);
+  const visit = await Visit.findByPk(visitId, { transaction, rejectOnEmpty: true });
+  const row = await Screening.create(
+    {
+      id: crypto.randomUUID(),
+      visitId,
+      engineVersion: result.engineVersion,
+      inputsHash,
+      inputs: parsed.data,
+      result,
+      verdict: result.verdict,
+      probabilityMeetsDemand: result.figures.probabilityMeetsDemand?.value ?? null,
+      deliveryLpd: result.figures.deliveryLpd?.value ?? null,
+      demandLpd: result.figures.demandLpd?.value ?? null,
+    },
+    { transaction },
+  );
+  await AuditEntry.create(
+    { organisationId: visit.organisationId, actorId, entity: 'screening', entityId: row.id, visitId,
+      action: 'screened', changes: { verdict: result.verdict, engineVersion: result.engineVersion } },
+    { transaction },
+  );
+  return { status: 'screened', screeningId: row.id, verdict: result.verdict };
+}
