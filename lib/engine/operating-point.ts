@@ -15,8 +15,6 @@ export interface OperatingPoint {
   efficiency: number;
 }
 
-const ITERATIONS = 6;
-
 /** Efficiency at a lift ratio without extrapolating: edge value below the curve, 0 above it. */
 export function efficiencyAt(curve: EfficiencyCurve, ratio: number): number {
   if (ratio > curve.maxRatio) return 0;
@@ -25,9 +23,21 @@ export function efficiencyAt(curve: EfficiencyCurve, ratio: number): number {
   return e < 0 ? 0 : e > 1 ? 1 : e;
 }
 
+function liftAt(ctx: OperatingContext, staticLiftM: number, q: number): number {
+  return staticLiftM + ctx.deliveryFrictionK * (q / 60000) ** 1.852;
+}
+
+/** q the ram would deliver if the delivery pipe carried q0: η(h/H)·Q·H/h, never above Q; falls as q0 rises. */
+function deliveryIfFlowing(ctx: OperatingContext, fallM: number, staticLiftM: number, driveLpm: number, q0: number): number {
+  const lift = liftAt(ctx, staticLiftM, q0);
+  const q = (efficiencyAt(ctx.curve, lift / fallM) * driveLpm * fallM) / lift;
+  return q < driveLpm ? q : driveLpm;
+}
+
 /**
- * Delivery, L/min: q = η(h/H)·Q·H/h with h = static lift + friction(q) (D'Aubuisson; Hazen–Williams),
- * solved by fixed-point iteration from q at zero friction; q never exceeds Q (energy: q·h ≤ Q·H).
+ * Delivery, L/min: q = η(h/H)·Q·H/h with h = static lift + friction(q) (D'Aubuisson; Hazen–Williams).
+ * q − g(q) rises with q, so the root is bracketed in [0, g(0)] and found by the Illinois false-position method;
+ * plain fixed-point iteration oscillates when friction is large. Writes friction, lift, ratio, η to `out`.
  */
 export function deliveryLpm(ctx: OperatingContext, fallM: number, staticLiftM: number, driveLpm: number, out?: Float64Array): number {
   if (!(fallM > 0) || !(driveLpm > 0) || !(staticLiftM > 0)) {
@@ -39,23 +49,38 @@ export function deliveryLpm(ctx: OperatingContext, fallM: number, staticLiftM: n
     }
     return 0;
   }
-  let q = 0;
-  let friction = 0;
-  let lift = staticLiftM;
-  let eff = 0;
-  for (let i = 0; i < ITERATIONS; i++) {
-    lift = staticLiftM + friction;
-    eff = efficiencyAt(ctx.curve, lift / fallM);
-    q = Math.min(driveLpm, (eff * driveLpm * fallM) / lift);
-    friction = ctx.deliveryFrictionK * (q / 60000) ** 1.852;
+  let lo = 0;
+  let hi = deliveryIfFlowing(ctx, fallM, staticLiftM, driveLpm, 0);
+  let fLo = -hi;
+  let fHi = hi - deliveryIfFlowing(ctx, fallM, staticLiftM, driveLpm, hi);
+  let q = hi;
+  let side = 0;
+  for (let i = 0; i < 60 && fHi > 0 && hi - lo > 1e-10 * hi; i++) {
+    q = hi - (fHi * (hi - lo)) / (fHi - fLo);
+    const fq = q - deliveryIfFlowing(ctx, fallM, staticLiftM, driveLpm, q);
+    if (fq > 0) {
+      hi = q;
+      fHi = fq;
+      if (side === 1) fLo /= 2;
+      side = 1;
+    } else {
+      lo = q;
+      fLo = fq;
+      if (side === -1) fHi /= 2;
+      side = -1;
+      if (fq === 0) break;
+    }
   }
+  // Report g(q) at the solved q, so delivery × lift = η·Q·H exactly (energy never grows).
+  const lift = liftAt(ctx, staticLiftM, q);
+  const delivered = deliveryIfFlowing(ctx, fallM, staticLiftM, driveLpm, q);
   if (out) {
-    out[0] = friction;
+    out[0] = lift - staticLiftM;
     out[1] = lift;
     out[2] = lift / fallM;
-    out[3] = eff;
+    out[3] = efficiencyAt(ctx.curve, lift / fallM);
   }
-  return q;
+  return delivered;
 }
 
 /** The same operating point as a plain object, for the deterministic screen. */
