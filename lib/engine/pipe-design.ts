@@ -19,6 +19,7 @@ export interface DriveDesign {
   cls: PressureClass;
   size: NominalSize;
   boreMm: number;
+  wallMm: number;
   lengthM: number;
   lengthGiven: boolean;
   bandMinM: number;
@@ -81,7 +82,7 @@ export function designDrivePipe(input: DriveDesignInput): DriveDesign {
   }
 
   return {
-    material, cls, size, boreMm: bore, lengthM, lengthGiven: input.pipe.lengthM !== undefined,
+    material, cls, size, boreMm: bore, wallMm: wallMm(size, cls), lengthM, lengthGiven: input.pipe.lengthM !== undefined,
     bandMinM: band.minM, bandMaxM: band.maxM, bandRuleLabel: band.rule.label, bandSourceId: band.rule.sourceId,
     lengthToDiameter: lengthM / (bore / 1000),
     velocityMps: velocity, closureVelocityMps: closure,

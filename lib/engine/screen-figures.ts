@@ -114,7 +114,7 @@ export function buildFigures(c: FigureContext): Record<FigureKey, Figure> {
     driveVelocityMps: fig(drive.velocityMps, 'm/s', 'Mean drive velocity v = Q/A', 'continuity', { driveLpm: round(c.driveLpm), boreMm: round(drive.boreMm) }),
     driveClosureVelocityMps: fig(drive.closureVelocityMps, 'm/s', `Velocity at waste-valve closure ≈ ${CLOSURE_TO_MEAN_VELOCITY} × mean`, 'common-practice', { velocityMps: round(drive.velocityMps) }),
     minimumClosureVelocityMps: fig(drive.minimumClosureVelocityMps, 'm/s', 'Least closure velocity whose surge reaches the lift: g·h/a', 'thomas-1994', { totalLiftM: round(op.totalLiftM), waveSpeedMps: round(drive.waveSpeedMps) }),
-    waveSpeedMps: fig(drive.waveSpeedMps, 'm/s', 'Korteweg, water K = 2.2 GPa, support factor 1', 'korteweg', { boreMm: round(drive.boreMm), wallMm: round(drive.size.outsideMm / 2 - drive.boreMm / 2), modulusGPa: drive.material.modulusGPa, material: drive.material.id }),
+    waveSpeedMps: fig(drive.waveSpeedMps, 'm/s', 'Korteweg, water K = 2.2 GPa, support factor 1', 'korteweg', { boreMm: round(drive.boreMm), wallMm: round(drive.wallMm), modulusGPa: drive.material.modulusGPa, material: drive.material.id }),
     surgeHeadM: fig(drive.surgeHeadM, 'm', 'Joukowsky ΔH = a·Δv/g at valve closure', 'joukowsky', { waveSpeedMps: round(drive.waveSpeedMps), closureVelocityMps: round(drive.closureVelocityMps) }),
     peakPressureHeadM: fig(drive.peakPressureHeadM, 'm', 'Total lift + surge (rate the ram and drive pipe for it)', 'joukowsky', { ...driveIn, surgeHeadM: round(drive.surgeHeadM) }),
     drivePipeRatingM: fig(drive.ratingM, 'm', `Pressure rating of ${drive.material.label} ${drive.cls.label}`, drive.cls.sourceId, { ratingKPa: round(drive.cls.ratingKPa) }),

@@ -120,4 +120,30 @@ describe('whole-screen scenarios (invented demo readings)', () => {
     expect(s.verdict).toBe('conditional');
     expect(codes(s)).toContain('FLOW_NOT_DRY_SEASON');
   });
+  it('a level run out and back that closes badly is conditional (third-order 12 mm√K, or 1 % of the fall for a screen)', () => {
+    const s = screenSite({
+      ...demo.clearGo,
+      fallRuns: [{
+        method: 'level',
+        routeLengthM: 60,
+        rows: [{ backsightM: 2.1 }, { foresightM: 1.35, backsightM: 0.4 }, { foresightM: 2.15, backsightM: 0.55 }, { foresightM: 2.56 }],
+        // Back up the slope: rises 3.21 m instead of 3.01 m, a 200 mm misclosure.
+        returnRows: [{ backsightM: 2.9 }, { foresightM: 0.6, backsightM: 2.3 }, { foresightM: 1.39 }],
+      }],
+    });
+    expect(s.figures.fallM?.inputs.run1MisclosureMm).toBeCloseTo(-200, 6);
+    expect(s.reasons.find((r) => r.code === 'FALL_MISCLOSURE')?.severity).toBe('conditional');
+    expect(s.verdict).toBe('conditional');
+  });
+
+  it('a clinometer run that disagrees with the level run by far more than either uncertainty is flagged', () => {
+    const s = screenSite({
+      ...demo.clearGo,
+      fallRuns: [
+        { method: 'level', rows: [{ backsightM: 2.1 }, { foresightM: 1.35, backsightM: 0.4 }, { foresightM: 2.15, backsightM: 0.55 }, { foresightM: 2.56 }] },
+        { method: 'clinometer', legs: [{ slopeDistanceM: 20, angleBelowHorizontalDeg: 20 }] },
+      ],
+    });
+    expect(codes(s)).toContain('FALL_RUNS_DISAGREE');
+  });
 });
