@@ -20,14 +20,15 @@ export function volumetricFlowLps(trials: readonly VolumetricTrial[]): number {
 // Kindsvater–Shen effective coefficient Ce and head correction kh (m) by notch angle.
 // 90°: Ce 0.578, kh 0.85 mm (USBR WMM ch. 7, found); other angles read off the ISO 1438 figure (from memory).
 const KS_TABLE: readonly (readonly [angleDeg: number, ce: number, khM: number])[] = [
-  [20, 0.595, 0.0028],
+  [25, 0.59, 0.0024],
   [45, 0.581, 0.0016],
   [60, 0.577, 0.0012],
   [90, 0.578, 0.00085],
   [100, 0.58, 0.0008],
 ];
 
-export const V_NOTCH_ANGLE_RANGE_DEG = [20, 100] as const;
+// USBR WMM ch. 7: Kindsvater–Shen holds for fully contracted notches of 25–100° (Kulin & Compton 1975).
+export const V_NOTCH_ANGLE_RANGE_DEG = [25, 100] as const;
 
 function interpolateKs(angleDeg: number): { ce: number; khM: number } {
   for (let i = 1; i < KS_TABLE.length; i++) {

@@ -35,7 +35,7 @@ const volumetricMeasurement = z.object({
 const vNotchMeasurement = z.object({
   ...flowCommon,
   method: z.literal('v-notch'),
-  notchAngleDeg: between('Notch angle', 20, 100).default(90),
+  notchAngleDeg: between('Notch angle', 25, 100).default(90),
   trials: z.array(z.object({ headM: positive('Head on the notch') })).min(1, 'Add at least one trial'),
 });
 

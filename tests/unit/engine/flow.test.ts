@@ -27,8 +27,9 @@ describe('V-notch weir, Kindsvater–Shen (ISO 1438; USBR Water Measurement Manu
   it('a 60° notch passes about tan 30°/tan 45° of a 90° notch (ISO 1438 form; Ce for 60° from memory)', () => {
     expectRelative(vNotchFlowLps(0.2, 60) / vNotchFlowLps(0.2, 90), Math.tan(Math.PI / 6), 0.03);
   });
-  it('rejects angles outside the method range 20–100°', () => {
+  it('rejects angles outside the method range 25–100° (USBR WMM ch. 7, Kulin & Compton 1975)', () => {
     expect(() => vNotchFlowLps(0.1, 120)).toThrow(EngineInputError);
+    expect(() => vNotchFlowLps(0.1, 20)).toThrow(EngineInputError);
   });
 });
 
