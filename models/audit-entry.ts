@@ -28,7 +28,7 @@ export class AuditEntry extends Model<InferAttributes<AuditEntry>, InferCreation
         changes: { type: DataTypes.JSON, allowNull: true },
         createdAt: DataTypes.DATE,
       },
-      { sequelize, tableName: 'audit_log', underscored: true, updatedAt: false },
+      { sequelize, modelName: 'AuditEntry', tableName: 'audit_log', underscored: true, updatedAt: false },
     );
   }
 }

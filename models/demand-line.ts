@@ -31,7 +31,7 @@ export class DemandLine extends Model<InferAttributes<DemandLine>, InferCreation
         note: { type: DataTypes.STRING(300), allowNull: false, defaultValue: '' },
         ...syncedColumns,
       },
-      { sequelize, tableName: 'demand_lines', underscored: true },
+      { sequelize, modelName: 'DemandLine', tableName: 'demand_lines', underscored: true },
     );
   }
 }

@@ -34,7 +34,7 @@ export class FallReading extends Model<InferAttributes<FallReading>, InferCreati
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         ...syncedColumns,
       },
-      { sequelize, tableName: 'fall_readings', underscored: true },
+      { sequelize, modelName: 'FallReading', tableName: 'fall_readings', underscored: true },
     );
   }
 }

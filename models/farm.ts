@@ -31,7 +31,7 @@ export class Farm extends Model<InferAttributes<Farm>, InferCreationAttributes<F
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         ...syncedColumns,
       },
-      { sequelize, tableName: 'farms', underscored: true },
+      { sequelize, modelName: 'Farm', tableName: 'farms', underscored: true },
     );
   }
 }

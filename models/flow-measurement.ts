@@ -33,7 +33,7 @@ export class FlowMeasurement extends Model<InferAttributes<FlowMeasurement>, Inf
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         ...syncedColumns,
       },
-      { sequelize, tableName: 'flow_measurements', underscored: true },
+      { sequelize, modelName: 'FlowMeasurement', tableName: 'flow_measurements', underscored: true },
     );
   }
 }

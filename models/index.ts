@@ -43,6 +43,7 @@ function addRevisionHooks(sequelize: Sequelize, model: ModelStatic<Model>) {
   });
 }
 
+// Model names are set explicitly in each init: a minified production build renames the classes.
 let initialised: Sequelize | undefined;
 
 /** Initialises every model on one Sequelize instance and wires the associations (once). */

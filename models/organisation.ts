@@ -29,7 +29,7 @@ export class Organisation extends Model<InferAttributes<Organisation>, InferCrea
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
-      { sequelize, tableName: 'organisations', underscored: true },
+      { sequelize, modelName: 'Organisation', tableName: 'organisations', underscored: true },
     );
   }
 }

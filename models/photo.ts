@@ -44,7 +44,7 @@ export class Photo extends Model<InferAttributes<Photo>, InferCreationAttributes
         uploadedAt: { type: DataTypes.DATE, allowNull: true },
         ...syncedColumns,
       },
-      { sequelize, tableName: 'photos', underscored: true },
+      { sequelize, modelName: 'Photo', tableName: 'photos', underscored: true },
     );
   }
 }

@@ -31,7 +31,7 @@ export class PipeRun extends Model<InferAttributes<PipeRun>, InferCreationAttrib
         pressureClass: { type: DataTypes.STRING(24), allowNull: true },
         ...syncedColumns,
       },
-      { sequelize, tableName: 'pipe_runs', underscored: true },
+      { sequelize, modelName: 'PipeRun', tableName: 'pipe_runs', underscored: true },
     );
   }
 }

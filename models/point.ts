@@ -39,7 +39,7 @@ export class Point extends Model<InferAttributes<Point>, InferCreationAttributes
         capturedAt: { type: DataTypes.DATE, allowNull: true },
         ...syncedColumns,
       },
-      { sequelize, tableName: 'points', underscored: true },
+      { sequelize, modelName: 'Point', tableName: 'points', underscored: true },
     );
   }
 }

@@ -33,7 +33,7 @@ export class Screening extends Model<InferAttributes<Screening>, InferCreationAt
         demandLpd: { type: DataTypes.DOUBLE, allowNull: true },
         createdAt: DataTypes.DATE,
       },
-      { sequelize, tableName: 'screenings', underscored: true, updatedAt: false },
+      { sequelize, modelName: 'Screening', tableName: 'screenings', underscored: true, updatedAt: false },
     );
   }
 }

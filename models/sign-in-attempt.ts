@@ -19,7 +19,7 @@ export class SignInAttempt extends Model<InferAttributes<SignInAttempt>, InferCr
         succeeded: { type: DataTypes.BOOLEAN, allowNull: false },
         createdAt: DataTypes.DATE,
       },
-      { sequelize, tableName: 'sign_in_attempts', underscored: true, updatedAt: false },
+      { sequelize, modelName: 'SignInAttempt', tableName: 'sign_in_attempts', underscored: true, updatedAt: false },
     );
   }
 }

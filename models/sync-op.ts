@@ -21,7 +21,7 @@ export class SyncOp extends Model<InferAttributes<SyncOp>, InferCreationAttribut
         outcome: { type: DataTypes.JSON, allowNull: false },
         createdAt: DataTypes.DATE,
       },
-      { sequelize, tableName: 'sync_ops', underscored: true, updatedAt: false },
+      { sequelize, modelName: 'SyncOp', tableName: 'sync_ops', underscored: true, updatedAt: false },
     );
   }
 }

@@ -36,7 +36,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
-      { sequelize, tableName: 'users', underscored: true },
+      { sequelize, modelName: 'User', tableName: 'users', underscored: true },
     );
   }
 }

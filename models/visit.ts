@@ -34,7 +34,7 @@ export class Visit extends Model<InferAttributes<Visit>, InferCreationAttributes
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         ...syncedColumns,
       },
-      { sequelize, tableName: 'visits', underscored: true },
+      { sequelize, modelName: 'Visit', tableName: 'visits', underscored: true },
     );
   }
 }

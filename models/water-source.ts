@@ -26,7 +26,7 @@ export class WaterSource extends Model<InferAttributes<WaterSource>, InferCreati
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         ...syncedColumns,
       },
-      { sequelize, tableName: 'water_sources', underscored: true },
+      { sequelize, modelName: 'WaterSource', tableName: 'water_sources', underscored: true },
     );
   }
 }

@@ -29,7 +29,7 @@ for (const account of accounts) {
 
 test('a wrong password is refused with a message, and the user stays on the sign-in page', async ({ page }) => {
   await signIn(page, 'tobias@wenlow-water.test', 'not-the-password');
-  await expect(page.getByRole('alert')).toContainText('do not match an active account');
+  await expect(page.getByRole('form', { name: 'Sign in' }).getByRole('alert')).toContainText('do not match an active account');
   await expect(page).toHaveURL(/\/login/);
 });
 

@@ -25,11 +25,10 @@ export function createSequelize(overrides: Partial<ReturnType<typeof dbEnv>> = {
 }
 
 export function getSequelize(): Sequelize {
-  if (!globalForDb.fallbookSequelize) {
-    const sequelize = createSequelize();
-    initModels(sequelize);
-    globalForDb.fallbookSequelize = sequelize;
-  }
+  globalForDb.fallbookSequelize ??= createSequelize();
+  // Next bundles a copy of models/ per server layer (route handlers, pages) while the instance is
+  // shared: each copy initialises its own classes on it once (initModels is guarded per copy).
+  initModels(globalForDb.fallbookSequelize);
   return globalForDb.fallbookSequelize;
 }
 
