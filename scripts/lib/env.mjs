@@ -44,9 +44,13 @@ export function ensureEnvFile() {
 /** Loads .env (or the test profile) into process.env; explicit environment wins. */
 export function loadEnv(profile = 'local') {
   if (profile === 'test') {
-    for (const [key, value] of Object.entries(testProfile)) {
-      if (process.env[`FALLBOOK_KEEP_${key}`] === undefined) process.env[key] = value;
+    // FALLBOOK_PORT_OFFSET lets several checkouts (git worktrees) run their tests side by side.
+    const offset = Number(process.env.FALLBOOK_PORT_OFFSET || 0);
+    for (const [key, value] of Object.entries(testProfile)) process.env[key] = value;
+    for (const key of ['PORT', 'DB_PORT', 'SMTP_PORT', 'MAIL_INBOX_PORT']) {
+      process.env[key] = String(Number(testProfile[key]) + offset);
     }
+    process.env.NEXTAUTH_URL = `http://127.0.0.1:${process.env.PORT}`;
   } else {
     const envPath = path.join(root, '.env');
     if (existsSync(envPath)) process.loadEnvFile(envPath);
