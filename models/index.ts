@@ -24,13 +24,28 @@ export type { OrganisationSettings } from './organisation';
 /** Models whose rows sync with the phone: each save takes a fresh revision. */
 export const syncedModels = [Farm, Visit, WaterSource, FlowMeasurement, FallReading, Point, Photo, DemandLine, PipeRun];
 
-/** Next value of the database-wide revision sequence (the pull cursor). */
+/**
+ * Next server revision (the pull cursor). Takes the counter row's lock until the caller's
+ * transaction commits, so revisions become visible in order; hence a transaction is required.
+ */
 export async function nextRev(sequelize: Sequelize, transaction?: Transaction | null): Promise<number> {
-  const [row] = await sequelize.query<{ rev: number | bigint }>('SELECT NEXTVAL(change_rev) AS rev', {
+  if (!transaction) throw new Error('Synced records must be saved inside a transaction (see DEVELOPERS.md).');
+  // LAST_INSERT_ID is per connection: keep one transaction's two statements from interleaving.
+  const previous = revLocks.get(transaction) ?? Promise.resolve(0);
+  const next = previous.catch(() => 0).then(() => takeRev(sequelize, transaction));
+  revLocks.set(transaction, next);
+  return next;
+}
+
+const revLocks = new WeakMap<Transaction, Promise<number>>();
+
+async function takeRev(sequelize: Sequelize, transaction: Transaction): Promise<number> {
+  await sequelize.query('UPDATE rev_counter SET value = LAST_INSERT_ID(value + 1) WHERE id = 1', { transaction });
+  const [row] = await sequelize.query<{ rev: number | bigint }>('SELECT LAST_INSERT_ID() AS rev', {
     type: QueryTypes.SELECT,
-    transaction: transaction ?? undefined,
+    transaction,
   });
-  if (!row) throw new Error('change_rev sequence returned nothing');
+  if (!row) throw new Error('rev_counter returned nothing');
   return Number(row.rev);
 }
 
@@ -41,9 +56,11 @@ function addRevisionHooks(sequelize: Sequelize, model: ModelStatic<Model>) {
   model.addHook('beforeBulkCreate', async (instances: Model[], options: { transaction?: Transaction | null }) => {
     for (const instance of instances) instance.set('rev', await nextRev(sequelize, options.transaction));
   });
+  model.addHook('beforeBulkUpdate', () => {
+    throw new Error(`Update ${model.name} rows one by one (instance.update) so each takes a revision.`);
+  });
 }
 
-// Model names are set explicitly in each init: a minified production build renames the classes.
 let initialised: Sequelize | undefined;
 
 /** Initialises every model on one Sequelize instance and wires the associations (once). */

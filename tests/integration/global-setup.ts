@@ -1,6 +1,10 @@
-// Brings up the test database when the integration tests run on their own (npm test already did).
+// Brings up the test database and mail catcher when the integration tests run on their own
+// (npm test already did; then both calls find them running).
+import path from 'node:path';
 // @ts-expect-error – plain JS modules shared with the bootstrap scripts
-import { loadEnv } from '../../scripts/lib/env.mjs';
+import { loadEnv, root } from '../../scripts/lib/env.mjs';
+// @ts-expect-error – as above
+import { startMailServer } from '../../scripts/lib/mail-server.mjs';
 // @ts-expect-error – as above
 import { ensureDatabase, startDatabase } from '../../scripts/lib/mariadb.mjs';
 // @ts-expect-error – as above
@@ -13,4 +17,18 @@ export default async function setup() {
   // A second database for the migrations test, so reverting never touches the shared one.
   await ensureDatabase({ ...db, name: `${db.name}_migrations` }, { fresh: true });
   runTs('scripts/migrate.ts', ['up']);
+
+  let mail: { close(): Promise<void> } | undefined;
+  try {
+    mail = await startMailServer({
+      smtpPort: Number(process.env.SMTP_PORT),
+      inboxPort: Number(process.env.MAIL_INBOX_PORT),
+      dir: path.resolve(root, process.env.MAIL_DIR ?? '.data/mail-test'),
+    });
+  } catch {
+    // npm test's catcher is already listening on these ports.
+  }
+  return async () => {
+    await mail?.close();
+  };
 }

@@ -3,7 +3,8 @@ import { createHash } from 'node:crypto';
 import type { Transaction } from 'sequelize';
 import { ENGINE_VERSION, screenSite } from '@/lib/engine';
 import { siteReadingsSchema } from '@/lib/shared/schemas/site-readings';
-import { AuditEntry, Screening, Visit } from '@/lib/server/db';
+import { Screening, Visit } from '@/lib/server/db';
+import { recordAudit } from '../audit';
 import { loadSiteReadings } from '../data/site-readings';
 
 /** JSON with keys in sorted order, so equal inputs always hash the same. */
@@ -55,10 +56,10 @@ export async function screenVisit(visitId: string, actorId: string | null, trans
     },
     { transaction },
   );
-  await AuditEntry.create(
+  await recordAudit(
     { organisationId: visit.organisationId, actorId, entity: 'screening', entityId: row.id, visitId,
       action: 'screened', changes: { verdict: result.verdict, engineVersion: result.engineVersion } },
-    { transaction },
+    transaction,
   );
   return { status: 'screened', screeningId: row.id, verdict: result.verdict };
 }

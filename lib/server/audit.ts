@@ -1,0 +1,21 @@
+import 'server-only';
+import type { Transaction } from 'sequelize';
+import { AuditEntry } from '@/lib/server/db';
+
+export interface AuditInput {
+  organisationId: string;
+  actorId: string | null;
+  entity: string;
+  entityId: string;
+  visitId?: string | null;
+  action: string;
+  changes?: Record<string, unknown> | null;
+}
+
+/** Appends one line to the audit log (who changed what, and when); in the caller's transaction. */
+export async function recordAudit(entry: AuditInput, transaction?: Transaction): Promise<void> {
+  await AuditEntry.create(
+    { ...entry, visitId: entry.visitId ?? null, changes: entry.changes ?? null },
+    { transaction },
+  );
+}

@@ -1,0 +1,172 @@
+// The sync protocol between the phone's outbox and the server (push, pull, photo upload).
+// One shape for the client that builds ops, the route that applies them and the tests.
+import { z } from 'zod';
+import { DEMAND_CATALOGUE, type DemandKind } from '@/lib/engine/demand';
+import { PIPE_MATERIALS, type PipeMaterialId } from '@/lib/engine/materials';
+import { POINT_ROLES } from '../domain';
+import { fallRunSchema, flowMeasurementSchema, LIFT_DIRECT_METHODS } from './site-readings';
+
+const uuid = z.string().uuid('Must be a UUID.');
+const isoTime = z.string().datetime({ offset: true, message: 'Must be an ISO 8601 date-time.' });
+const text = (max: number) => z.string().max(max, `At most ${max} characters.`);
+const finite = z.number().finite('Must be a finite number.');
+const keys = <K extends string>(record: Readonly<Record<K, unknown>>) => Object.keys(record) as [K, ...K[]];
+
+export const MAX_OPS_PER_PUSH = 200;
+export const MAX_PHOTO_BYTES = 15 * 1024 * 1024;
+export const PHOTO_MIME_TYPES = ['image/jpeg', 'image/png', 'image/webp'] as const;
+
+/** A lift entered as one figure (e.g. read off a level run done another day). */
+const directLiftRun = z.object({
+  method: z.literal('direct'),
+  staticLiftM: finite.positive('Static lift must be more than 0.'),
+  liftMethod: z.enum(LIFT_DIRECT_METHODS),
+  uncertaintyM: finite.positive().optional(),
+});
+
+/** Writable fields of each synced entity, in SI. `put` sends a subset; a create sends them all. */
+export const entityFields = {
+  visit: z.object({
+    notes: text(5000),
+    status: z.enum(['scheduled', 'surveyed']),
+    visitedAt: isoTime.nullable(),
+  }),
+  waterSource: z.object({
+    visitId: uuid,
+    name: text(160).min(1, 'Give the source a name.'),
+    kind: z.enum(['spring', 'creek', 'stream', 'seep', 'pond', 'other']),
+    notes: text(5000),
+  }),
+  flowMeasurement: z.object({
+    visitId: uuid,
+    sourceId: uuid.nullable(),
+    takenAt: isoTime.nullable(),
+    notes: text(5000),
+    /** The method, season and raw trials, replaced as a whole. */
+    measurement: flowMeasurementSchema,
+  }),
+  fallReading: z.object({
+    visitId: uuid,
+    purpose: z.enum(['fall', 'lift']),
+    seq: z.number().int().min(0).max(10_000),
+    takenAt: isoTime.nullable(),
+    notes: text(5000),
+    /** For lift runs: booked uphill from the pump or downhill from the tank. */
+    bookedFrom: z.enum(['pump', 'tank']).nullable(),
+    run: z.discriminatedUnion('method', [...fallRunSchema.options, directLiftRun]),
+  }),
+  point: z.object({
+    visitId: uuid,
+    role: z.enum(POINT_ROLES),
+    label: text(120),
+    lat: finite.min(-90).max(90).nullable(),
+    lon: finite.min(-180).max(180).nullable(),
+    accuracyM: finite.min(0).max(100_000).nullable(),
+    altitudeM: finite.min(-500).max(9000).nullable(),
+    altitudeAccuracyM: finite.min(0).max(100_000).nullable(),
+    chainageM: finite.min(0).max(100_000).nullable(),
+    capturedAt: isoTime.nullable(),
+  }),
+  photo: z.object({
+    visitId: uuid,
+    pointId: uuid.nullable(),
+    caption: text(300),
+    mime: z.enum(PHOTO_MIME_TYPES, { message: 'Photos must be JPEG, PNG or WebP.' }),
+    bytes: z.number().int().min(1).max(MAX_PHOTO_BYTES, `Photos must be at most ${MAX_PHOTO_BYTES / 1024 / 1024} MB.`),
+    sha256: z.string().regex(/^[0-9a-f]{64}$/, 'Must be a lower-case hex sha-256.'),
+    width: z.number().int().positive().nullable(),
+    height: z.number().int().positive().nullable(),
+    lat: finite.min(-90).max(90).nullable(),
+    lon: finite.min(-180).max(180).nullable(),
+    takenAt: isoTime.nullable(),
+  }),
+  demandLine: z.object({
+    farmId: uuid,
+    kind: z.enum(keys<DemandKind>(DEMAND_CATALOGUE)),
+    count: z.number().int().min(0).max(1_000_000),
+    litresPerHeadPerDay: finite.min(0).max(10_000),
+    figureSource: text(160),
+    note: text(300),
+  }),
+  pipeRun: z.object({
+    visitId: uuid,
+    purpose: z.enum(['drive', 'delivery']),
+    lengthM: finite.positive().max(100_000).nullable(),
+    diameterMm: finite.positive().max(2_000).nullable(),
+    material: z.enum(keys<PipeMaterialId>(PIPE_MATERIALS)),
+    pressureClass: text(24).nullable(),
+  }),
+} as const;
+
+export type SyncEntity = keyof typeof entityFields;
+export const SYNC_ENTITIES = Object.keys(entityFields) as SyncEntity[];
+export type EntityFields<E extends SyncEntity> = z.infer<(typeof entityFields)[E]>;
+
+function opSchema<E extends SyncEntity, F extends z.ZodObject<z.ZodRawShape>>(entity: E, fields: F) {
+  return z.object({
+    opId: uuid,
+    entity: z.literal(entity),
+    entityId: uuid,
+    action: z.enum(['put', 'delete']),
+    /** The server revision the phone's copy was made against; null when the phone created it. */
+    baseRev: z.number().int().min(0).nullable(),
+    /** New values (put). A create carries every field. */
+    changes: fields.partial().strict().optional(),
+    /** The values the phone saw before its edit, for the per-field conflict check. */
+    base: fields.partial().optional(),
+    madeAt: isoTime,
+  });
+}
+
+export const syncOpSchema = z.discriminatedUnion('entity', [
+  opSchema('visit', entityFields.visit),
+  opSchema('waterSource', entityFields.waterSource),
+  opSchema('flowMeasurement', entityFields.flowMeasurement),
+  opSchema('fallReading', entityFields.fallReading),
+  opSchema('point', entityFields.point),
+  opSchema('photo', entityFields.photo),
+  opSchema('demandLine', entityFields.demandLine),
+  opSchema('pipeRun', entityFields.pipeRun),
+]);
+export type SyncOp = z.infer<typeof syncOpSchema>;
+export type SyncOpInput = z.input<typeof syncOpSchema>;
+
+export const pushRequestSchema = z.object({
+  ops: z.array(syncOpSchema).min(1, 'Send at least one op.').max(MAX_OPS_PER_PUSH, `At most ${MAX_OPS_PER_PUSH} ops per push.`),
+});
+
+/** Per-op outcome. `replayed`: the op id was applied before; its first outcome is returned. */
+export const opResultSchema = z.object({
+  opId: uuid,
+  status: z.enum(['applied', 'replayed', 'conflict', 'rejected']),
+  rev: z.number().int().nullable(),
+  /** conflict: the fields that changed on the server meanwhile, and the server's copy. */
+  conflict: z.object({ fields: z.array(z.string()), server: z.record(z.string(), z.unknown()).nullable() }).optional(),
+  /** rejected: why (HTTP-like code and a plain message); the phone parks the op for the person. */
+  error: z.object({ code: z.number().int(), message: z.string(), fieldErrors: z.record(z.string(), z.array(z.string())).optional() }).optional(),
+});
+export type OpResult = z.infer<typeof opResultSchema>;
+
+export const pushResponseSchema = z.object({ results: z.array(opResultSchema) });
+
+export const pullQuerySchema = z.object({
+  cursor: z.coerce.number().int().min(0).default(0),
+  limit: z.coerce.number().int().min(1).max(2000).default(500),
+});
+
+/** A pulled record: the entity's fields plus id, rev and soft-delete time. */
+export type PulledRecord<E extends SyncEntity> = EntityFields<E> & { id: string; rev: number; deletedAt: string | null; updatedAt: string };
+
+export interface PullResponse {
+  /** Pass back as ?cursor= next time. */
+  cursor: number;
+  /** More changes wait: pull again at once with the new cursor. */
+  hasMore: boolean;
+  /** Every visit currently assigned to (or visible by) the caller: the phone may drop others it holds. */
+  visibleVisitIds: string[];
+  farms: { id: string; rev: number; name: string; area: string; lat: number | null; lon: number | null; notes: string; ownerName: string | null }[];
+  visits: (PulledRecord<'visit'> & { farmId: string; plannedOn: string | null; advisorId: string | null })[];
+  records: { [E in Exclude<SyncEntity, 'visit'>]: PulledRecord<E>[] };
+  /** Organisation settings the phone's live preview needs. */
+  settings: { unitsDefault: 'metric' | 'us'; designFractionOfLowest: number; demandFigures: Record<string, number> };
+}
