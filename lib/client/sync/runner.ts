@@ -1,0 +1,48 @@
+// One sync run: push the outbox, upload photos, pull changes. The same module runs in the service
+// worker (Background Sync, messages) and in the page where no worker controls it; a Web Lock
+// makes sure only one runs at a time, whichever context it is in.
+import { getMeta, setMeta, type SyncRecord } from './meta';
+import { uploadPhotos, type UploadProgress } from './photos';
+import { pullAll } from './pull';
+import { pushAll } from './push';
+import { OfflineError, SyncHttpError } from './transport';
+
+export const SYNC_LOCK = 'fallbook-sync';
+
+export type SyncOutcome = SyncRecord | { skipped: 'busy' };
+
+async function runOnce(onProgress?: UploadProgress): Promise<SyncRecord> {
+  const record: SyncRecord = { at: new Date().toISOString(), ok: false, message: null, pushed: 0, pulled: 0, photos: 0 };
+  try {
+    record.pushed = await pushAll();
+    record.photos = await uploadPhotos(onProgress);
+    record.pulled = await pullAll();
+    // Photos whose metadata went up in this run.
+    record.photos += await uploadPhotos(onProgress);
+    record.ok = true;
+    await setMeta('authPaused', false);
+    await setMeta('lastSuccess', record.at);
+  } catch (error) {
+    if (error instanceof SyncHttpError && error.status === 401) {
+      // Never drop anything: pause until the person signs in again.
+      await setMeta('authPaused', true);
+      record.message = 'Sign in again to send what is waiting. Nothing is lost.';
+    } else if (error instanceof OfflineError) {
+      record.message = 'No signal: everything stays on this phone and goes up when there is coverage.';
+    } else {
+      record.message = error instanceof Error ? error.message : 'Sync failed; it will try again.';
+    }
+  }
+  await setMeta('lastRun', record);
+  return record;
+}
+
+/** Runs a sync unless one is already running (here or in another tab or the worker). */
+export async function runSync(onProgress?: UploadProgress): Promise<SyncOutcome> {
+  const locks = typeof navigator !== 'undefined' ? navigator.locks : undefined;
+  if (!locks) return runOnce(onProgress);
+  const outcome = await locks.request(SYNC_LOCK, { ifAvailable: true }, async (lock) => (lock ? runOnce(onProgress) : null));
+  return outcome ?? { skipped: 'busy' };
+}
+
+export { getMeta };

@@ -1,0 +1,131 @@
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import type { FieldDatabase } from '@/lib/client/db';
+import { savePhoto, saveRecord } from '@/lib/client/outbox';
+import { backoffMs, BASE_DELAY_MS, MAX_DELAY_MS } from '@/lib/client/sync/backoff';
+import { getMeta } from '@/lib/client/sync/meta';
+import { mergePull } from '@/lib/client/sync/pull';
+import { pushAll } from '@/lib/client/sync/push';
+import { runSync } from '@/lib/client/sync/runner';
+import { emptyPull, fakeServer, freshDb, VISIT } from './helpers';
+
+let db: FieldDatabase;
+beforeEach(() => { db = freshDb(); });
+afterEach(() => { vi.unstubAllGlobals(); });
+
+const note = (i: number) => saveRecord('waterSource', `44444444-4444-4444-8444-${String(i).padStart(12, '0')}`, {
+  visitId: VISIT, name: `source ${i}`, kind: 'creek', notes: '',
+});
+
+describe('backoff (exponential with jitter, capped)', () => {
+  it('doubles per attempt within [half, full] of the ceiling and never passes the cap', () => {
+    expect(backoffMs(1, 0)).toBe(BASE_DELAY_MS / 2);
+    expect(backoffMs(1, 0.999)).toBeLessThanOrEqual(BASE_DELAY_MS);
+    expect(backoffMs(3, 0)).toBe((BASE_DELAY_MS * 4) / 2);
+    expect(backoffMs(40, 0.999)).toBeLessThanOrEqual(MAX_DELAY_MS);
+  });
+});
+
+describe('push', () => {
+  it('sends ops in order in batches and empties the outbox once acknowledged', async () => {
+    const server = fakeServer();
+    for (let i = 0; i < 150; i++) await note(i);
+    expect(await pushAll()).toBe(150);
+    expect(server.pushed.map((b) => b.length)).toEqual([100, 50]);
+    const names = server.pushed.flat().map((op) => (op.changes as { name: string }).name);
+    expect(names).toEqual(Array.from({ length: 150 }, (_, i) => `source ${i}`));
+    expect(await db.outbox.count()).toBe(0);
+    expect((await db.waterSources.toArray()).every((s) => s.rev > 0)).toBe(true);
+  });
+
+  it('keeps everything and backs off when the network fails', async () => {
+    const server = fakeServer();
+    await note(1);
+    server.failNextWith(0);
+    await expect(pushAll()).rejects.toThrow(/No connection/);
+    const [entry] = await db.outbox.toArray();
+    expect(entry?.attempts).toBe(1);
+    expect(entry?.nextAttemptAt).toBeGreaterThan(Date.now());
+  });
+
+  it('a 401 pauses the queue and drops nothing', async () => {
+    const server = fakeServer();
+    await note(1);
+    server.failNextWith(401);
+    const outcome = await runSync();
+    expect(outcome).toMatchObject({ ok: false });
+    expect(await getMeta('authPaused')).toBe(true);
+    expect(await db.outbox.count()).toBe(1);
+  });
+
+  it('parks a conflict with the server copy instead of retrying or dropping it', async () => {
+    fakeServer(() => 'conflict');
+    await note(1);
+    await pushAll();
+    const [entry] = await db.outbox.toArray();
+    expect(entry?.status).toBe('conflict');
+    expect(entry?.result?.conflict?.server).toEqual({ note: 'theirs' });
+    // A parked op is not sent again by the next run.
+    expect(await pushAll()).toBe(0);
+  });
+
+  it('a replayed op (the server saw it before) is acknowledged like an applied one', async () => {
+    const server = fakeServer();
+    await note(1);
+    const [entry] = await db.outbox.toArray();
+    // The first answer was lost: the server already holds the op.
+    await server.fetchMock('/api/sync/push', { method: 'POST', body: JSON.stringify({ ops: [entry?.op] }) });
+    expect(await pushAll()).toBe(1);
+    expect(await db.outbox.count()).toBe(0);
+  });
+
+  it('a refused op stays visible as rejected', async () => {
+    fakeServer(() => 'rejected');
+    await note(1);
+    await pushAll();
+    expect((await db.outbox.toArray())[0]).toMatchObject({ status: 'rejected', result: { error: { code: 403 } } });
+  });
+});
+
+describe('photos', () => {
+  const PHOTO = '55555555-5555-4555-8555-555555555555';
+  const meta = { visitId: VISIT, pointId: null, caption: '', mime: 'image/jpeg' as const, bytes: 3, sha256: 'b'.repeat(64), width: null, height: null, lat: null, lon: null, takenAt: null };
+
+  it('upload only after the metadata op was acknowledged, and are kept until the server confirms', async () => {
+    const server = fakeServer();
+    await savePhoto(PHOTO, meta, new Uint8Array([1, 2, 3]).buffer);
+    const outcome = await runSync();
+    expect(outcome).toMatchObject({ ok: true, photos: 1 });
+    const calls = server.fetchMock.mock.calls.map((c) => String(c[0]));
+    expect(calls.indexOf(`/api/photos/${PHOTO}`)).toBeGreaterThan(calls.indexOf('/api/sync/push'));
+    expect((await db.photoBlobs.get(PHOTO))?.uploadedAt).not.toBeNull();
+  });
+});
+
+describe('pull', () => {
+  it('merges server records but leaves records with waiting changes as the person edited them', async () => {
+    await note(1);
+    const edited = (await db.waterSources.toArray())[0];
+    const page = emptyPull(500);
+    page.records.waterSource = [
+      { id: edited?.id ?? '', visitId: VISIT, name: 'server name', kind: 'creek', notes: '', rev: 9, deletedAt: null, updatedAt: '' },
+      { id: '66666666-6666-4666-8666-666666666666', visitId: VISIT, name: 'from office', kind: 'spring', notes: '', rev: 10, deletedAt: null, updatedAt: '' },
+    ];
+    await mergePull(page);
+    expect((await db.waterSources.get(edited?.id ?? ''))?.name).toBe('source 1');
+    expect((await db.waterSources.get('66666666-6666-4666-8666-666666666666'))?.name).toBe('from office');
+    expect(await getMeta('cursor')).toBe(500);
+  });
+
+  it('forgets visits reassigned away unless changes for them still wait', async () => {
+    await db.visits.bulkPut([
+      { id: VISIT, farmId: 'f', plannedOn: null, advisorId: null, notes: '', status: 'scheduled', visitedAt: null, rev: 1, deletedAt: null, updatedAt: '' },
+      { id: '77777777-7777-4777-8777-777777777777', farmId: 'f', plannedOn: null, advisorId: null, notes: '', status: 'scheduled', visitedAt: null, rev: 1, deletedAt: null, updatedAt: '' },
+    ]);
+    await note(1); // waits, on VISIT
+    const page = emptyPull(5);
+    page.visibleVisitIds = [];
+    await mergePull(page);
+    expect(await db.visits.get(VISIT)).toBeDefined();
+    expect(await db.visits.get('77777777-7777-4777-8777-777777777777')).toBeUndefined();
+  });
+});
