@@ -27,6 +27,8 @@ export const metadata: Metadata = {
   title: { default: 'Fallbook', template: '%s · Fallbook' },
   description: 'Screen small-farm sites for hydraulic ram pumps: field readings offline, a plain go / no-go sheet.',
   applicationName: 'Fallbook',
+  appleWebApp: { capable: true, title: 'Fallbook', statusBarStyle: 'default' },
+  icons: { apple: '/icons/apple-touch-icon.png' },
 };
 
 export const viewport: Viewport = {

@@ -1,12 +1,42 @@
 'use client';
 
-import { useEffect } from 'react';
+import { useEffect, useRef, useState } from 'react';
+import type { Workbox } from 'workbox-window';
+import { hasUnsavedInput } from '@/lib/client/dirty';
 
-/** Registers the service worker built into /sw.js (production builds only; dev has none). */
+/**
+ * Registers the service worker built into /sw.js (production builds only) and offers updates:
+ * a new version waits until the person agrees, and never while a form holds unsaved input.
+ */
 export function ServiceWorkerRegister() {
+  const workbox = useRef<Workbox | null>(null);
+  const [waiting, setWaiting] = useState(false);
+  const [blocked, setBlocked] = useState(false);
+
   useEffect(() => {
     if (process.env.NODE_ENV !== 'production' || !('serviceWorker' in navigator)) return;
-    void import('workbox-window').then(({ Workbox }) => new Workbox('/sw.js', { scope: '/' }).register());
+    void import('workbox-window').then(({ Workbox }) => {
+      const wb = new Workbox('/sw.js', { scope: '/' });
+      wb.addEventListener('waiting', () => setWaiting(true));
+      wb.addEventListener('controlling', () => window.location.reload());
+      workbox.current = wb;
+      void wb.register();
+    });
   }, []);
-  return null;
+
+  if (!waiting) return null;
+  return (
+    <div role="status" className="fixed inset-x-0 bottom-0 z-[1000] border-t-2 border-slate bg-white p-3">
+      <div className="mx-auto flex max-w-3xl flex-wrap items-center justify-between gap-2">
+        <p className="font-bold">{blocked ? 'Save or finish the reading you are typing first, then update.' : 'A new version of Fallbook is ready.'}</p>
+        <button type="button" className="min-h-12 rounded-md bg-slate px-4 font-bold text-white"
+          onClick={() => {
+            if (hasUnsavedInput()) return setBlocked(true);
+            workbox.current?.messageSkipWaiting();
+          }}>
+          Update now
+        </button>
+      </div>
+    </div>
+  );
 }

@@ -1,7 +1,10 @@
-import { PageShell } from '@/components/ui/page-shell';
-import { requirePageUser } from '@/lib/server/auth/page-guard';
+import type { Metadata } from 'next';
+import { FieldShell } from './_components/field-shell';
 
-export default async function FieldLayout({ children }: { children: React.ReactNode }) {
-  const user = await requirePageUser(['advisor'], '/field');
-  return <PageShell user={user}>{children}</PageShell>;
+export const metadata: Metadata = { title: 'Field book' };
+
+// Static on purpose: the advisor's pages read the phone's database and open with no signal.
+// The server checks the session and the assignment on every sync request instead.
+export default function FieldLayout({ children }: { children: React.ReactNode }) {
+  return <FieldShell>{children}</FieldShell>;
 }

@@ -1,18 +1,43 @@
-import type { Metadata } from 'next';
-import { VisitTable } from '@/components/visit-table';
-import { requirePageUser } from '@/lib/server/auth/page-guard';
-import { listVisits } from '@/lib/server/data/visits';
+'use client';
 
-export const metadata: Metadata = { title: 'My site visits' };
+import { useLiveQuery } from 'dexie-react-hooks';
+import Link from 'next/link';
+import { fieldDb } from '@/lib/client/db';
+import { VISIT_STATUS_LABELS, type VisitStatus } from '@/lib/shared/domain';
+import { formatDay } from '@/lib/shared/format';
 
-export default async function FieldHome() {
-  const user = await requirePageUser(['advisor'], '/field');
-  const visits = await listVisits(user, { page: 1, pageSize: 50 });
+export default function FieldHome() {
+  const visits = useLiveQuery(async () => {
+    const db = fieldDb();
+    const rows = await db.visits.orderBy('plannedOn').toArray();
+    const outbox = await db.outbox.toArray();
+    return Promise.all(rows.map(async (v) => ({
+      ...v,
+      farm: await db.farms.get(v.farmId),
+      waiting: outbox.filter((e) => e.visitId === v.id).length,
+    })));
+  });
   return (
-    <div className="space-y-6">
+    <div className="space-y-5">
       <h1 className="text-3xl font-bold text-slate">My site visits</h1>
-      <p className="text-lg">{visits.total === 1 ? '1 visit is' : `${visits.total} visits are`} assigned to you.</p>
-      <VisitTable visits={visits.items} showAdvisor={false} caption="Visits assigned to you" />
+      {visits === undefined && <p className="text-lg">Reading the phone…</p>}
+      {visits?.length === 0 && (
+        <p className="text-lg">No visits on this phone yet. They arrive at the next sync once your coordinator assigns them.</p>
+      )}
+      <ul className="space-y-3">
+        {visits?.map((v) => (
+          <li key={v.id}>
+            <Link href={`/field/visit?id=${v.id}`} className="block rounded-md border-2 border-rule bg-white p-4 text-ink no-underline">
+              <span className="block text-xl font-bold">{v.farm?.name ?? 'Farm'}</span>
+              <span className="block text-stone">{v.farm?.area}</span>
+              <span className="mt-1 block">
+                <span className="figure">{formatDay(v.plannedOn)}</span> · {VISIT_STATUS_LABELS[v.status as VisitStatus] ?? v.status}
+                {v.waiting > 0 && <strong> · {v.waiting} waiting to send</strong>}
+              </span>
+            </Link>
+          </li>
+        ))}
+      </ul>
     </div>
   );
 }

@@ -1,0 +1,47 @@
+'use client';
+
+import Link from 'next/link';
+
+/** A row of large toggle buttons for a small set of choices (methods, seasons, roles). */
+export function Choice<T extends string>({ label, options, value, onChange }: {
+  label: string;
+  options: readonly { value: T; label: string }[];
+  value: T;
+  onChange: (value: T) => void;
+}) {
+  return (
+    <fieldset>
+      <legend className="font-bold">{label}</legend>
+      <div className="mt-1 flex flex-wrap gap-2">
+        {options.map((o) => (
+          <button key={o.value} type="button" aria-pressed={o.value === value} onClick={() => onChange(o.value)}
+            className={`min-h-12 rounded-md border-2 px-4 font-bold ${o.value === value ? 'border-slate bg-slate text-white' : 'border-stone bg-white text-ink'}`}>
+            {o.label}
+          </button>
+        ))}
+      </div>
+    </fieldset>
+  );
+}
+
+/** The full-width primary action at thumb height. */
+export function PrimaryButton({ children, onClick, disabled, type = 'button' }: {
+  children: React.ReactNode; onClick?: () => void; disabled?: boolean; type?: 'button' | 'submit';
+}) {
+  return (
+    <button type={type} onClick={onClick} disabled={disabled}
+      className="min-h-14 w-full rounded-md bg-slate px-4 text-xl font-bold text-white disabled:opacity-50">
+      {children}
+    </button>
+  );
+}
+
+/** Page heading with the way back to the visit. */
+export function SectionHeader({ visitId, title }: { visitId: string; title: string }) {
+  return (
+    <div>
+      <Link href={`/field/visit?id=${visitId}`}>← Back to the visit</Link>
+      <h1 className="mt-2 text-3xl font-bold text-slate">{title}</h1>
+    </div>
+  );
+}

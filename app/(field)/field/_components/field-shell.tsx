@@ -1,0 +1,62 @@
+'use client';
+
+import Link from 'next/link';
+import { useRouter } from 'next/navigation';
+import { useEffect, useState } from 'react';
+import { loadLocalSession, type LocalSession } from '@/lib/client/session';
+import { startSyncTriggers } from '@/lib/client/sync/triggers';
+import { StorageNote } from './storage-note';
+import { SyncBar } from './sync-bar';
+
+/** Frame of the advisor's pages: who is signed in (remembered offline), the sync bar, the triggers. */
+export function FieldShell({ children }: { children: React.ReactNode }) {
+  const [session, setSession] = useState<LocalSession | null>(null);
+  const router = useRouter();
+
+  useEffect(() => {
+    let stop: (() => void) | undefined;
+    void loadLocalSession().then((s) => {
+      setSession(s);
+      if (s.state === 'signed-out') router.replace(`/login?callbackUrl=${encodeURIComponent(location.pathname + location.search)}`);
+      if (s.state === 'ready' && s.user.role !== 'farmer') {
+        stop = startSyncTriggers();
+        void navigator.storage?.persist?.();
+      }
+    });
+    return () => stop?.();
+  }, [router]);
+
+  if (!session || session.state === 'signed-out') return <p className="p-6 text-lg">Opening your field book…</p>;
+  if (session.state === 'other-user-waiting') {
+    return (
+      <main className="mx-auto max-w-xl p-6">
+        <h1 className="text-2xl font-bold text-clay">Changes of {session.waitingFor.name} still wait on this phone</h1>
+        <p className="mt-3 text-lg">They have not reached the server yet. Sign in as {session.waitingFor.name} once with a signal to send them; nothing has been deleted.</p>
+      </main>
+    );
+  }
+  if (session.user.role === 'farmer') {
+    return (
+      <main className="mx-auto max-w-xl p-6">
+        <h1 className="text-2xl font-bold text-slate">The field book is for advisors</h1>
+        <p className="mt-3 text-lg"><Link href="/farm">Go to your farm page</Link></p>
+      </main>
+    );
+  }
+  return (
+    <>
+      <header className="border-b border-rule">
+        <div className="mx-auto flex max-w-3xl items-center justify-between px-4 py-3">
+          <Link href="/field" className="text-2xl font-bold text-slate no-underline">Fallbook</Link>
+          <span className="text-right leading-tight">
+            <span className="block font-bold">{session.user.name}</span>
+            <span className="block text-stone">{session.online ? 'Field advisor' : 'Field advisor · offline'}</span>
+          </span>
+        </div>
+      </header>
+      <SyncBar />
+      <main className="mx-auto max-w-3xl px-4 py-5">{children}</main>
+      <StorageNote />
+    </>
+  );
+}

@@ -1,0 +1,68 @@
+'use client';
+
+import { useId, useState } from 'react';
+import type { UnitSystem } from '@/lib/shared/domain';
+import { QUANTITIES, type Quantity } from '@/lib/shared/quantities';
+import { parseFieldNumber } from '@/lib/shared/units';
+
+interface Props {
+  label: string;
+  quantity: Quantity;
+  units: UnitSystem;
+  /** SI value, undefined when empty. */
+  value: number | undefined;
+  onChange: (si: number | undefined) => void;
+  hint?: string;
+  /** A ± key: the phone's decimal pad has no minus. */
+  signed?: boolean;
+  name?: string;
+}
+
+/** A reading typed on a phone: decimal keypad, "." or ",", its unit beside it, stored in SI. */
+export function NumberField({ label, quantity, units, value, onChange, hint, signed, name }: Props) {
+  const id = useId();
+  const display = QUANTITIES[quantity][units];
+  const shown = (si: number | undefined) => (si === undefined ? '' : String(Number(display.fromSi(si).toFixed(6))));
+  const [text, setText] = useState(shown(value));
+  const [error, setError] = useState<string | null>(null);
+
+  // Follow outside changes (a reset, a unit switch) without fighting the person's typing:
+  // the "previous props in state" pattern, adjusted during render.
+  const [seen, setSeen] = useState({ value, units });
+  if (seen.value !== value || seen.units !== units) {
+    setSeen({ value, units });
+    const parsed = parseFieldNumber(text);
+    const typed = parsed.ok ? display.toSi(parsed.value) : undefined;
+    const agrees = value === undefined ? !parsed.ok : typed !== undefined && Math.abs(typed - value) <= 1e-9;
+    if (!agrees || seen.units !== units) setText(shown(value));
+  }
+
+  function update(next: string) {
+    setText(next);
+    const parsed = parseFieldNumber(next);
+    if (parsed.ok) {
+      setError(null);
+      onChange(display.toSi(parsed.value));
+    } else {
+      setError(parsed.error === 'empty' ? null : 'Type a number, like 1.25 or 1,25.');
+      onChange(undefined);
+    }
+  }
+
+  return (
+    <div>
+      <label htmlFor={id} className="block font-bold">{label}</label>
+      <div className="mt-1 flex items-stretch gap-2">
+        {signed && (
+          <button type="button" aria-label={`Change the sign of ${label}`} onClick={() => update(text.startsWith('-') ? text.slice(1) : `-${text}`)}
+            className="min-h-14 min-w-14 rounded-md border-2 border-stone bg-white text-2xl font-bold">±</button>
+        )}
+        <input id={id} name={name} type="text" inputMode="decimal" autoComplete="off" value={text}
+          onChange={(e) => update(e.target.value)} aria-invalid={!!error} aria-describedby={`${id}-note`}
+          className="figure min-h-14 w-full min-w-0 rounded-md border-2 border-stone bg-white px-3 text-2xl" />
+        {display.unit && <span className="figure flex min-w-14 items-center text-xl text-stone">{display.unit}</span>}
+      </div>
+      <p id={`${id}-note`} className={error ? 'mt-1 font-bold text-clay' : 'mt-1 text-stone'}>{error ?? hint ?? ''}</p>
+    </div>
+  );
+}

@@ -1,0 +1,41 @@
+'use client';
+
+import { useLiveQuery } from 'dexie-react-hooks';
+import { VerdictMark } from '@/components/verdict-mark';
+import { screenSite } from '@/lib/engine';
+import { fmt } from '@/lib/engine/format';
+import { localSiteReadings } from '@/lib/client/site-readings';
+import { siteReadingsSchema } from '@/lib/shared/schemas/site-readings';
+
+/** The feasibility screen computed on the phone from what is captured so far. */
+export function ScreenPreview({ visitId }: { visitId: string }) {
+  const preview = useLiveQuery(async () => {
+    const input = await localSiteReadings(visitId);
+    if (!input) return null;
+    const parsed = siteReadingsSchema.safeParse(input);
+    if (!parsed.success) return { kind: 'missing' as const, missing: [...new Set(parsed.error.issues.map((i) => i.message))].slice(0, 4) };
+    return { kind: 'screened' as const, screening: screenSite(parsed.data) };
+  }, [visitId]);
+  if (!preview) return null;
+  return (
+    <section aria-labelledby="preview" className="rounded-md border-2 border-slate bg-white p-4">
+      <h2 id="preview" className="text-xl font-bold">Screen preview (on this phone)</h2>
+      {preview.kind === 'missing' && (
+        <div className="mt-2">
+          <p>Still needed before the screen can run:</p>
+          <ul className="ml-5 list-disc">{preview.missing.map((m) => <li key={m}>{m}</li>)}</ul>
+        </div>
+      )}
+      {preview.kind === 'screened' && (
+        <div className="mt-2 space-y-2" data-testid="preview-verdict">
+          <VerdictMark verdict={preview.screening.verdict} />
+          <p className="figure">
+            Delivery {fmt(preview.screening.figures.deliveryLpd?.value ?? 0, 'L/day')} · demand {fmt(preview.screening.figures.demandLpd?.value ?? 0, 'L/day')}
+          </p>
+          <ul className="ml-5 list-disc">{preview.screening.reasons.slice(0, 3).map((r) => <li key={r.code}>{r.text}</li>)}</ul>
+          <p className="text-stone">A first check, not an engineering design. The server stores the official screening after sync.</p>
+        </div>
+      )}
+    </section>
+  );
+}

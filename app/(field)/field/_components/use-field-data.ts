@@ -1,0 +1,27 @@
+'use client';
+
+import { useLiveQuery } from 'dexie-react-hooks';
+import { useSearchParams } from 'next/navigation';
+import { fieldDb } from '@/lib/client/db';
+import { getMeta } from '@/lib/client/sync/meta';
+import type { SessionUser, UnitSystem } from '@/lib/shared/domain';
+
+/** The visit id from `?id=`: field routes carry ids in the query so they are static and open offline. */
+export function useVisitId(): string {
+  return useSearchParams().get('id') ?? '';
+}
+
+/** The visit and its farm from the phone's database (undefined while loading, null if absent). */
+export function useVisit(id: string) {
+  return useLiveQuery(async () => {
+    const visit = await fieldDb().visits.get(id);
+    if (!visit) return null;
+    const farm = await fieldDb().farms.get(visit.farmId);
+    return { visit, farm: farm ?? null };
+  }, [id]);
+}
+
+/** The reader's unit system (remembered user's preference). */
+export function useUnits(): UnitSystem {
+  return useLiveQuery(async () => (await getMeta<SessionUser>('user'))?.units ?? 'metric', [], 'metric');
+}

@@ -1,0 +1,66 @@
+'use client';
+
+import { useLiveQuery } from 'dexie-react-hooks';
+import Link from 'next/link';
+import { fieldDb, type OutboxEntry } from '@/lib/client/db';
+import { discardParked, resolveConflict, retryParked } from '@/lib/client/sync/resolve';
+
+const show = (v: unknown) => (v === null || v === undefined ? '—' : typeof v === 'object' ? JSON.stringify(v) : String(v));
+
+function Conflict({ entry }: { entry: OutboxEntry }) {
+  const fields = entry.result?.conflict?.fields ?? [];
+  const server = (entry.result?.conflict?.server ?? {}) as Record<string, unknown>;
+  const mine = (entry.op.changes ?? {}) as Record<string, unknown>;
+  return (
+    <li className="space-y-2 rounded-md border-2 border-ochre bg-white p-3">
+      <p className="font-bold">Changed on the server while you were out: {entry.entity}</p>
+      <table className="w-full text-left">
+        <thead><tr><th className="pr-2">Field</th><th className="pr-2">Yours</th><th>Server</th></tr></thead>
+        <tbody>
+          {fields.map((f) => (
+            <tr key={f} className="border-t border-rule align-top">
+              <td className="pr-2 font-bold">{f}</td>
+              <td className="figure pr-2 break-all">{show(mine[f])}</td>
+              <td className="figure break-all">{show(server[f])}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <div className="grid grid-cols-2 gap-2">
+        <button type="button" className="min-h-12 rounded-md bg-slate font-bold text-white" onClick={() => resolveConflict(entry.seq!, 'mine')}>Keep mine</button>
+        <button type="button" className="min-h-12 rounded-md border-2 border-slate font-bold text-slate" onClick={() => resolveConflict(entry.seq!, 'theirs')}>Take the server&apos;s</button>
+      </div>
+    </li>
+  );
+}
+
+function Refused({ entry }: { entry: OutboxEntry }) {
+  return (
+    <li className="space-y-2 rounded-md border-2 border-clay bg-white p-3">
+      <p className="font-bold">The server refused a change ({entry.entity})</p>
+      <p>{entry.result?.error?.message ?? 'No reason given.'}</p>
+      <div className="grid grid-cols-2 gap-2">
+        <button type="button" className="min-h-12 rounded-md bg-slate font-bold text-white" onClick={() => retryParked(entry.seq!)}>Send again</button>
+        <button type="button" className="min-h-12 rounded-md border-2 border-clay font-bold text-clay" onClick={() => discardParked(entry.seq!)}>Give it up</button>
+      </div>
+    </li>
+  );
+}
+
+export default function SyncPage() {
+  const entries = useLiveQuery(() => fieldDb().outbox.orderBy('seq').toArray());
+  const parked = entries?.filter((e) => e.status !== 'pending') ?? [];
+  const waiting = entries?.filter((e) => e.status === 'pending') ?? [];
+  return (
+    <div className="space-y-5">
+      <Link href="/field">← My visits</Link>
+      <h1 className="text-3xl font-bold text-slate">Waiting to send</h1>
+      <p className="text-lg">{waiting.length} change{waiting.length === 1 ? '' : 's'} queued. Nothing leaves this phone before the server has it.</p>
+      <h2 className="text-xl font-bold">Needs your decision</h2>
+      {parked.length === 0 && <p className="text-stone">Nothing to decide.</p>}
+      <ul className="space-y-3">
+        {parked.map((e) => (e.status === 'conflict' ? <Conflict key={e.seq} entry={e} /> : <Refused key={e.seq} entry={e} />))}
+      </ul>
+    </div>
+  );
+}

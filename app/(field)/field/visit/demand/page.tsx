@@ -1,0 +1,93 @@
+'use client';
+
+import { useLiveQuery } from 'dexie-react-hooks';
+import { Suspense, useState } from 'react';
+import { DEMAND_CATALOGUE, type DemandKind } from '@/lib/engine/demand';
+import { SOURCES } from '@/lib/engine/sources';
+import { fieldDb } from '@/lib/client/db';
+import { newId } from '@/lib/client/ids';
+import { deleteRecord, saveRecord } from '@/lib/client/outbox';
+import { getMeta } from '@/lib/client/sync/meta';
+import { announceSave } from '@/lib/client/sync/triggers';
+import { showQuantity } from '@/lib/shared/quantities';
+import type { PullResponse } from '@/lib/shared/schemas/sync';
+import { PrimaryButton, SectionHeader } from '../../_components/choice';
+import { NumberField } from '../../_components/number-field';
+import { useUnits, useVisit, useVisitId } from '../../_components/use-field-data';
+
+const KINDS = Object.values(DEMAND_CATALOGUE);
+
+/** The citation of a figure's source, shortened to its first clause. */
+function sourceName(id: string): string {
+  const source = (SOURCES as Record<string, { citation: string } | undefined>)[id];
+  return source ? source.citation.split(/[,(]/)[0]!.trim() : id;
+}
+
+function DemandPage() {
+  const visitId = useVisitId();
+  const units = useUnits();
+  const data = useVisit(visitId);
+  const farmId = data?.visit.farmId ?? '';
+  const lines = useLiveQuery(async () => (farmId ? (await fieldDb().demandLines.where('farmId').equals(farmId).toArray()).filter((l) => !l.deletedAt) : []), [farmId]);
+  const overrides = useLiveQuery(async () => (await getMeta<PullResponse['settings']>('settings'))?.demandFigures ?? {}, [], {} as Record<string, number>);
+  const [kind, setKind] = useState<DemandKind>('person-tap-on-plot');
+  const [count, setCount] = useState<number | undefined>();
+  const [perHead, setPerHead] = useState<number | undefined>();
+  const [message, setMessage] = useState<string | null>(null);
+  const entry = DEMAND_CATALOGUE[kind];
+  const defaultFigure = overrides[kind] ?? entry.litresPerHeadPerDay;
+  const total = (lines ?? []).reduce((sum, l) => sum + l.count * l.litresPerHeadPerDay, 0);
+
+  async function add() {
+    if (!farmId) return;
+    if (count === undefined || count < 0 || !Number.isInteger(count)) {
+      setMessage('Count must be a whole number, 0 or more.');
+      return;
+    }
+    const figure = perHead ?? defaultFigure;
+    await saveRecord('demandLine', newId(), {
+      farmId, kind, count, litresPerHeadPerDay: figure,
+      figureSource: perHead === undefined ? (overrides[kind] !== undefined ? 'organisation figure' : entry.sourceId) : 'advisor on site',
+      note: '',
+    });
+    setCount(undefined);
+    setPerHead(undefined);
+    setMessage('Line saved on this phone.');
+    announceSave();
+  }
+
+  return (
+    <div className="space-y-5">
+      <SectionHeader visitId={visitId} title="Water needed" />
+      <p className="text-lg">Daily need on this farm: <strong className="figure" data-testid="demand-total">{showQuantity(total, 'litresPerDay', units)}</strong></p>
+      <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
+        {lines?.map((l) => (
+          <li key={l.id} className="flex items-center justify-between px-3 py-2">
+            <span>
+              <span className="block font-bold">{l.count} × {DEMAND_CATALOGUE[l.kind]?.label ?? l.kind}</span>
+              <span className="figure block">{showQuantity(l.litresPerHeadPerDay, 'volume', units)} each a day · {sourceName(l.figureSource)}</span>
+            </span>
+            <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold"
+              onClick={async () => { await deleteRecord('demandLine', l.id); announceSave(); }}>Delete</button>
+          </li>
+        ))}
+      </ul>
+      <section aria-labelledby="add-line" className="space-y-3 rounded-md border-2 border-rule bg-white p-3">
+        <h2 id="add-line" className="text-xl font-bold">Add a line</h2>
+        <label htmlFor="kind" className="block font-bold">Who or what drinks</label>
+        <select id="kind" value={kind} onChange={(e) => { setKind(e.target.value as DemandKind); setPerHead(undefined); }} className="min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-lg">
+          {KINDS.map((k) => <option key={k.kind} value={k.kind}>{k.label}</option>)}
+        </select>
+        <NumberField label={`How many (${entry.unit})`} quantity="count" units={units} value={count} onChange={setCount} />
+        <NumberField label={`Litres per ${entry.unit} per day`} quantity="volume" units={units} value={perHead ?? defaultFigure} onChange={setPerHead}
+          hint={`Default ${showQuantity(defaultFigure, 'volume', units)} — ${overrides[kind] !== undefined ? "your organisation's figure" : `${entry.basis} (${sourceName(entry.sourceId)})`}`} />
+        {message && <p role="status" className="font-bold">{message}</p>}
+        <PrimaryButton onClick={add}>Add line</PrimaryButton>
+      </section>
+    </div>
+  );
+}
+
+export default function Page() {
+  return <Suspense><DemandPage /></Suspense>;
+}

@@ -1,0 +1,40 @@
+'use client';
+
+import type { UnitSystem } from '@/lib/shared/domain';
+import type { Quantity } from '@/lib/shared/quantities';
+import { NumberField } from '../../../_components/number-field';
+
+export type Row = Record<string, number | undefined>;
+
+export interface Column { key: string; label: string; quantity: Quantity; signed?: boolean }
+
+/** A list of readings rows (level set-ups, hose steps, clinometer legs) with add and remove. */
+export function RowEditor({ title, rows, columns, units, onChange, addLabel }: {
+  title: (index: number, count: number) => string;
+  rows: Row[];
+  columns: (index: number, count: number) => Column[];
+  units: UnitSystem;
+  onChange: (rows: Row[]) => void;
+  addLabel: string;
+}) {
+  return (
+    <div className="space-y-3">
+      {rows.map((row, i) => (
+        <fieldset key={i} className="rounded-md border border-rule bg-white p-3">
+          <legend className="px-1 font-bold">{title(i, rows.length)}</legend>
+          <div className="grid gap-3 sm:grid-cols-2">
+            {columns(i, rows.length).map((c) => (
+              <NumberField key={c.key} label={c.label} quantity={c.quantity} units={units} signed={c.signed} value={row[c.key]}
+                onChange={(v) => onChange(rows.map((r, j) => (j === i ? { ...r, [c.key]: v } : r)))} />
+            ))}
+          </div>
+          {rows.length > 1 && (
+            <button type="button" className="mt-2 min-h-12 rounded-md border-2 border-stone px-3 font-bold"
+              onClick={() => onChange(rows.filter((_, j) => j !== i))}>Remove</button>
+          )}
+        </fieldset>
+      ))}
+      <button type="button" onClick={() => onChange([...rows, {}])} className="min-h-12 w-full rounded-md border-2 border-slate font-bold text-slate">{addLabel}</button>
+    </div>
+  );
+}

@@ -1,0 +1,50 @@
+'use client';
+
+import { useLiveQuery } from 'dexie-react-hooks';
+import { Suspense, useState } from 'react';
+import { fieldDb } from '@/lib/client/db';
+import { deleteRecord } from '@/lib/client/outbox';
+import { announceSave } from '@/lib/client/sync/triggers';
+import { showQuantity } from '@/lib/shared/quantities';
+import { Choice, SectionHeader } from '../../_components/choice';
+import { useUnits, useVisitId } from '../../_components/use-field-data';
+import { FallForm } from './_components/fall-form';
+import { liveResult } from './_components/run-builders';
+
+function FallPage() {
+  const visitId = useVisitId();
+  const units = useUnits();
+  const [purpose, setPurpose] = useState<'fall' | 'lift'>('fall');
+  const saved = useLiveQuery(async () => (await fieldDb().fallReadings.where('visitId').equals(visitId).toArray()).filter((r) => !r.deletedAt).sort((a, b) => a.seq - b.seq), [visitId]);
+  return (
+    <div className="space-y-5">
+      <SectionHeader visitId={visitId} title="Fall and lift" />
+      <Choice label="What are you measuring?" value={purpose} onChange={setPurpose}
+        options={[{ value: 'fall', label: 'Fall: intake → pump' }, { value: 'lift', label: 'Lift: pump → tank' }] as const} />
+      <FallForm key={purpose} visitId={visitId} purpose={purpose} units={units} />
+      <section aria-labelledby="saved-runs" className="space-y-2">
+        <h2 id="saved-runs" className="text-xl font-bold">Saved runs</h2>
+        {saved?.length === 0 && <p className="text-stone">None yet.</p>}
+        <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
+          {saved?.map((r) => {
+            const drop = r.run.method === 'direct' ? r.run.staticLiftM : liveResult(r.run).dropM;
+            return (
+              <li key={r.id} className="flex items-center justify-between px-3 py-2">
+                <span>
+                  <span className="block font-bold">{r.purpose === 'fall' ? 'Fall' : `Lift (from the ${r.bookedFrom ?? 'pump'})`} · {r.run.method}</span>
+                  <span className="figure block">{showQuantity(drop === null ? null : Math.abs(drop), 'length', units)}</span>
+                </span>
+                <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold"
+                  onClick={async () => { await deleteRecord('fallReading', r.id); announceSave(); }}>Delete</button>
+              </li>
+            );
+          })}
+        </ul>
+      </section>
+    </div>
+  );
+}
+
+export default function Page() {
+  return <Suspense><FallPage /></Suspense>;
+}

@@ -1,0 +1,84 @@
+'use client';
+
+import { useLiveQuery } from 'dexie-react-hooks';
+import { Suspense, useState } from 'react';
+import { fieldDb } from '@/lib/client/db';
+import { newId } from '@/lib/client/ids';
+import { deleteRecord, saveRecord } from '@/lib/client/outbox';
+import { announceSave } from '@/lib/client/sync/triggers';
+import { floatFlowLps, summarise, vNotchFlowLps, volumetricFlowLps } from '@/lib/engine/flow';
+import type { UnitSystem } from '@/lib/shared/domain';
+import { showQuantity } from '@/lib/shared/quantities';
+import type { FlowMeasurement } from '@/lib/shared/schemas/site-readings';
+import { SectionHeader } from '../../_components/choice';
+import { useUnits, useVisitId } from '../../_components/use-field-data';
+import { FlowForm } from './_components/flow-form';
+
+function meanLps(m: FlowMeasurement): number | null {
+  try {
+    const flows = m.method === 'volumetric' ? m.trials.map((t) => volumetricFlowLps([t]))
+      : m.method === 'v-notch' ? m.trials.map((t) => vNotchFlowLps(t.headM, m.notchAngleDeg))
+        : m.method === 'float' ? m.trials.map((t) => floatFlowLps({ ...t, areaM2: m.areaM2, coefficient: m.coefficient }))
+          : [];
+    return flows.length ? summarise(flows, 'flow').mean : null;
+  } catch {
+    return null;
+  }
+}
+
+function SourceName({ visitId, units }: { visitId: string; units: UnitSystem }) {
+  const source = useLiveQuery(async () => (await fieldDb().waterSources.where('visitId').equals(visitId).toArray()).find((s) => !s.deletedAt) ?? null, [visitId]);
+  const [name, setName] = useState('');
+  if (source === undefined) return null;
+  if (source) {
+    return (
+      <>
+        <p className="text-lg">Source: <strong>{source.name}</strong> ({source.kind})</p>
+        <FlowForm visitId={visitId} sourceId={source.id} units={units} />
+      </>
+    );
+  }
+  return (
+    <form className="space-y-3" onSubmit={async (e) => {
+      e.preventDefault();
+      await saveRecord('waterSource', newId(), { visitId, name: name.trim() || 'Main source', kind: 'creek', notes: '' });
+      announceSave();
+    }}>
+      <label htmlFor="source-name" className="block font-bold">Name of the source (spring, creek…)</label>
+      <input id="source-name" value={name} onChange={(e) => setName(e.target.value)} className="min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-xl" />
+      <button type="submit" className="min-h-14 w-full rounded-md bg-slate text-xl font-bold text-white">Start measuring this source</button>
+    </form>
+  );
+}
+
+function FlowPage() {
+  const visitId = useVisitId();
+  const units = useUnits();
+  const saved = useLiveQuery(async () => (await fieldDb().flowMeasurements.where('visitId').equals(visitId).toArray()).filter((m) => !m.deletedAt), [visitId]);
+  return (
+    <div className="space-y-5">
+      <SectionHeader visitId={visitId} title="Source and flow" />
+      <SourceName visitId={visitId} units={units} />
+      <section aria-labelledby="saved-flows" className="space-y-2">
+        <h2 id="saved-flows" className="text-xl font-bold">Saved measurements</h2>
+        {saved?.length === 0 && <p className="text-stone">None yet.</p>}
+        <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
+          {saved?.map((m) => (
+            <li key={m.id} className="flex items-center justify-between px-3 py-2">
+              <span>
+                <span className="block font-bold">{m.measurement.method} · {m.measurement.season} season</span>
+                <span className="figure block">{showQuantity(meanLps(m.measurement), 'flowLps', units)} mean of {m.measurement.trials.length}</span>
+              </span>
+              <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold"
+                onClick={async () => { await deleteRecord('flowMeasurement', m.id); announceSave(); }}>Delete</button>
+            </li>
+          ))}
+        </ul>
+      </section>
+    </div>
+  );
+}
+
+export default function Page() {
+  return <Suspense><FlowPage /></Suspense>;
+}

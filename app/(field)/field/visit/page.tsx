@@ -1,0 +1,58 @@
+'use client';
+
+import { useLiveQuery } from 'dexie-react-hooks';
+import Link from 'next/link';
+import { Suspense } from 'react';
+import { fieldDb } from '@/lib/client/db';
+import { formatDay } from '@/lib/shared/format';
+import { ScreenPreview } from '../_components/screen-preview';
+import { useVisit, useVisitId } from '../_components/use-field-data';
+
+const SECTIONS = [
+  { href: 'flow', title: 'Source and flow', table: 'flowMeasurements' },
+  { href: 'fall', title: 'Fall and lift', table: 'fallReadings' },
+  { href: 'points', title: 'Points', table: 'points' },
+  { href: 'photos', title: 'Photos', table: 'photos' },
+  { href: 'pipes', title: 'Pipe runs', table: 'pipeRuns' },
+] as const;
+
+function VisitOverview() {
+  const id = useVisitId();
+  const data = useVisit(id);
+  const counts = useLiveQuery(async () => {
+    const db = fieldDb();
+    const entries = await Promise.all(SECTIONS.map(async (s) => {
+      const rows = (await db.table(s.table).where('visitId').equals(id).toArray()) as { deletedAt: string | null }[];
+      return [s.href, rows.filter((r) => !r.deletedAt).length] as const;
+    }));
+    const visit = await db.visits.get(id);
+    const demand = visit ? (await db.demandLines.where('farmId').equals(visit.farmId).toArray()).filter((r) => !r.deletedAt).length : 0;
+    return Object.fromEntries([...entries, ['demand', demand]]) as Record<string, number>;
+  }, [id]);
+  if (data === undefined) return <p className="text-lg">Reading the phone…</p>;
+  if (data === null) return <p className="text-lg">This visit is not on this phone. <Link href="/field">Back to my visits</Link></p>;
+  return (
+    <div className="space-y-5">
+      <div>
+        <Link href="/field">← My visits</Link>
+        <h1 className="mt-2 text-3xl font-bold text-slate">{data.farm?.name ?? 'Visit'}</h1>
+        <p className="text-stone">{data.farm?.area} · planned <span className="figure">{formatDay(data.visit.plannedOn)}</span></p>
+      </div>
+      <ul className="grid gap-3 sm:grid-cols-2">
+        {[...SECTIONS, { href: 'demand', title: 'Water needed' }].map((s) => (
+          <li key={s.href}>
+            <Link href={`/field/visit/${s.href}?id=${id}`} className="flex min-h-16 items-center justify-between rounded-md border-2 border-rule bg-white px-4 text-lg font-bold text-ink no-underline">
+              <span>{s.title}</span>
+              <span className="figure text-stone" data-testid={`count-${s.href}`}>{counts?.[s.href] ?? 0}</span>
+            </Link>
+          </li>
+        ))}
+      </ul>
+      <ScreenPreview visitId={id} />
+    </div>
+  );
+}
+
+export default function VisitPage() {
+  return <Suspense><VisitOverview /></Suspense>;
+}

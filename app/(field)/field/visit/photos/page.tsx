@@ -1,0 +1,78 @@
+'use client';
+
+import { useLiveQuery } from 'dexie-react-hooks';
+import { Suspense, useEffect, useMemo, useState } from 'react';
+import { fieldDb } from '@/lib/client/db';
+import { newId } from '@/lib/client/ids';
+import { deleteRecord, savePhoto } from '@/lib/client/outbox';
+import { readPhoto } from '@/lib/client/photo-intake';
+import { announceSave } from '@/lib/client/sync/triggers';
+import { SectionHeader } from '../../_components/choice';
+import { useVisitId } from '../../_components/use-field-data';
+
+/** A photo shown from the phone's own bytes, or the server's thumbnail when it came from elsewhere. */
+function Thumb({ id, alt }: { id: string; alt: string }) {
+  const blob = useLiveQuery(() => fieldDb().photoBlobs.get(id), [id]);
+  const url = useMemo(() => (blob ? URL.createObjectURL(new Blob([blob.data], { type: blob.mime })) : null), [blob]);
+  useEffect(() => () => {
+    if (url) URL.revokeObjectURL(url);
+  }, [url]);
+  const src = url ?? (blob === undefined ? null : `/api/photos/${id}/thumbnail`);
+  // eslint-disable-next-line @next/next/no-img-element -- object URLs of local bytes; next/image cannot optimise them
+  return src ? <img src={src} alt={alt} className="h-28 w-28 rounded-md border border-rule object-cover" /> : <span className="block h-28 w-28 rounded-md bg-rule" />;
+}
+
+function PhotosPage() {
+  const visitId = useVisitId();
+  const [busy, setBusy] = useState(false);
+  const [message, setMessage] = useState<string | null>(null);
+  const photos = useLiveQuery(async () => {
+    const db = fieldDb();
+    const rows = (await db.photos.where('visitId').equals(visitId).toArray()).filter((p) => !p.deletedAt);
+    return Promise.all(rows.map(async (p) => ({ ...p, uploaded: (await db.photoBlobs.get(p.id))?.uploadedAt ?? (p.rev > 0 ? 'server' : null) })));
+  }, [visitId]);
+
+  async function add(files: FileList | null) {
+    if (!files?.length) return;
+    setBusy(true);
+    const problems: string[] = [];
+    for (const file of Array.from(files)) {
+      try {
+        const { data, fields } = await readPhoto(file);
+        await savePhoto(newId(), { ...fields, visitId, pointId: null, caption: file.name.slice(0, 300) }, data);
+      } catch (error) {
+        problems.push(error instanceof Error ? error.message : `${file.name} could not be read.`);
+      }
+    }
+    setBusy(false);
+    setMessage(problems.length ? problems.join(' ') : `${files.length} photo${files.length === 1 ? '' : 's'} kept on this phone.`);
+    announceSave();
+  }
+
+  return (
+    <div className="space-y-5">
+      <SectionHeader visitId={visitId} title="Photos" />
+      <label className="flex min-h-16 w-full cursor-pointer items-center justify-center rounded-md bg-slate text-xl font-bold text-white">
+        {busy ? 'Reading…' : 'Take or choose photos'}
+        <input type="file" accept="image/jpeg,image/png,image/webp" capture="environment" multiple className="sr-only"
+          onChange={(e) => { void add(e.target.files); e.target.value = ''; }} data-testid="photo-input" />
+      </label>
+      {message && <p role="status" className="font-bold">{message}</p>}
+      <ul className="grid grid-cols-2 gap-3 sm:grid-cols-3">
+        {photos?.map((p) => (
+          <li key={p.id} className="rounded-md border border-rule bg-white p-2">
+            <Thumb id={p.id} alt={p.caption || 'Site photo'} />
+            <span className="mt-1 block text-sm">{p.lat !== null ? `${p.lat.toFixed(5)}, ${p.lon?.toFixed(5)}` : 'No position'}</span>
+            <span className="block text-sm font-bold">{p.uploaded ? 'On the server' : 'Waiting to upload'}</span>
+            <button type="button" className="mt-1 min-h-12 w-full rounded-md border-2 border-stone font-bold"
+              onClick={async () => { await deleteRecord('photo', p.id); announceSave(); }}>Delete</button>
+          </li>
+        ))}
+      </ul>
+    </div>
+  );
+}
+
+export default function Page() {
+  return <Suspense><PhotosPage /></Suspense>;
+}

@@ -1,0 +1,103 @@
+'use client';
+
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useLiveQuery } from 'dexie-react-hooks';
+import { Suspense, useEffect, useState } from 'react';
+import { Controller, useForm } from 'react-hook-form';
+import { z } from 'zod';
+import { PIPE_MATERIALS, type PipeMaterialId } from '@/lib/engine/materials';
+import { fieldDb, type LocalRecord } from '@/lib/client/db';
+import { setDirty } from '@/lib/client/dirty';
+import { newId } from '@/lib/client/ids';
+import { saveRecord } from '@/lib/client/outbox';
+import { announceSave } from '@/lib/client/sync/triggers';
+import type { UnitSystem } from '@/lib/shared/domain';
+import { entityFields } from '@/lib/shared/schemas/sync';
+import { PrimaryButton, SectionHeader } from '../../_components/choice';
+import { NumberField } from '../../_components/number-field';
+import { useUnits, useVisitId } from '../../_components/use-field-data';
+
+const MATERIALS = Object.values(PIPE_MATERIALS);
+const pipe = entityFields.pipeRun.pick({ material: true }).extend({
+  lengthM: z.number({ error: 'Measure the length along the route.' }).positive('Length must be more than 0.'),
+  diameterMm: z.number().positive('Diameter must be more than 0.').optional(),
+});
+const schema = z.object({ drive: pipe.partial({ lengthM: true }), delivery: pipe });
+type Values = z.infer<typeof schema>;
+
+function PipeFields({ name, title, control, units, hint }: { name: 'drive' | 'delivery'; title: string; control: ReturnType<typeof useForm<Values>>['control']; units: UnitSystem; hint: string }) {
+  return (
+    <fieldset className="space-y-3 rounded-md border-2 border-rule bg-white p-3">
+      <legend className="px-1 text-xl font-bold">{title}</legend>
+      <p className="text-stone">{hint}</p>
+      <Controller control={control} name={`${name}.lengthM`} render={({ field, fieldState }) => (
+        <>
+          <NumberField label="Length along the route" quantity="length" units={units} value={field.value} onChange={field.onChange} />
+          {fieldState.error && <p className="font-bold text-clay">{fieldState.error.message}</p>}
+        </>
+      )} />
+      <Controller control={control} name={`${name}.diameterMm`} render={({ field }) => (
+        <NumberField label="Inside diameter (leave empty: the screen proposes one)" quantity="diameter" units={units} value={field.value} onChange={field.onChange} />
+      )} />
+      <Controller control={control} name={`${name}.material`} render={({ field }) => (
+        <div>
+          <label htmlFor={`${name}-material`} className="block font-bold">Material</label>
+          <select id={`${name}-material`} value={field.value} onChange={(e) => field.onChange(e.target.value as PipeMaterialId)} className="mt-1 min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-lg">
+            {MATERIALS.map((m) => <option key={m.id} value={m.id}>{m.label}</option>)}
+          </select>
+        </div>
+      )} />
+    </fieldset>
+  );
+}
+
+function PipesForm({ visitId, existing, units }: { visitId: string; existing: LocalRecord<'pipeRun'>[]; units: UnitSystem }) {
+  const find = (purpose: 'drive' | 'delivery') => existing.find((p) => p.purpose === purpose);
+  const [message, setMessage] = useState<string | null>(null);
+  const { control, handleSubmit, formState } = useForm<Values>({
+    resolver: zodResolver(schema),
+    defaultValues: {
+      drive: { lengthM: find('drive')?.lengthM ?? undefined, diameterMm: find('drive')?.diameterMm ?? undefined, material: find('drive')?.material ?? 'galvanized-steel' },
+      delivery: { lengthM: find('delivery')?.lengthM ?? undefined, diameterMm: find('delivery')?.diameterMm ?? undefined, material: find('delivery')?.material ?? 'hdpe' },
+    },
+  });
+  useEffect(() => {
+    setDirty('pipes', formState.isDirty);
+    return () => setDirty('pipes', false);
+  }, [formState.isDirty]);
+
+  async function save(values: Values) {
+    for (const purpose of ['drive', 'delivery'] as const) {
+      const v = values[purpose];
+      await saveRecord('pipeRun', find(purpose)?.id ?? newId(), {
+        visitId, purpose, lengthM: v.lengthM ?? null, diameterMm: v.diameterMm ?? null, material: v.material, pressureClass: find(purpose)?.pressureClass ?? null,
+      });
+    }
+    setMessage('Pipe runs saved on this phone.');
+    announceSave();
+  }
+  return (
+    <form onSubmit={handleSubmit(save)} className="space-y-4" noValidate>
+      <PipeFields name="drive" title="Drive pipe (intake → ram)" control={control} units={units} hint="Rigid pipe; leave the length empty to let the screen propose one from the fall." />
+      <PipeFields name="delivery" title="Delivery pipe (ram → tank)" control={control} units={units} hint="Measure along the ground, including bends." />
+      {message && <p role="status" className="font-bold">{message}</p>}
+      <PrimaryButton type="submit">Save pipe runs</PrimaryButton>
+    </form>
+  );
+}
+
+function PipesPage() {
+  const visitId = useVisitId();
+  const units = useUnits();
+  const existing = useLiveQuery(async () => (await fieldDb().pipeRuns.where('visitId').equals(visitId).toArray()).filter((p) => !p.deletedAt), [visitId]);
+  return (
+    <div className="space-y-5">
+      <SectionHeader visitId={visitId} title="Pipe runs" />
+      {existing && <PipesForm visitId={visitId} existing={existing} units={units} />}
+    </div>
+  );
+}
+
+export default function Page() {
+  return <Suspense><PipesPage /></Suspense>;
+}

@@ -1,0 +1,94 @@
+'use client';
+
+import dynamic from 'next/dynamic';
+import { useEffect, useState } from 'react';
+import { setDirty } from '@/lib/client/dirty';
+import { GOOD_FIX_M, watchFix, type Fix } from '@/lib/client/geolocation';
+import { newId } from '@/lib/client/ids';
+import { saveRecord } from '@/lib/client/outbox';
+import { announceSave } from '@/lib/client/sync/triggers';
+import type { PointRole, UnitSystem } from '@/lib/shared/domain';
+import { showQuantity } from '@/lib/shared/quantities';
+import { Choice, PrimaryButton } from '../../../_components/choice';
+import { NumberField } from '../../../_components/number-field';
+import type { MapPoint } from './point-map';
+
+const PointMap = dynamic(() => import('./point-map'), { ssr: false, loading: () => <p className="text-stone">Loading the map…</p> });
+
+const ROLES = [
+  { value: 'intake', label: 'Intake' }, { value: 'pump', label: 'Pump site' }, { value: 'tank', label: 'Tank' }, { value: 'station', label: 'Station' },
+] as const;
+
+export function PointForm({ visitId, units, points }: { visitId: string; units: UnitSystem; points: MapPoint[] }) {
+  const [role, setRole] = useState<(typeof ROLES)[number]['value']>('intake');
+  const [label, setLabel] = useState('');
+  const [lat, setLat] = useState<number | undefined>();
+  const [lon, setLon] = useState<number | undefined>();
+  const [altitudeM, setAltitudeM] = useState<number | undefined>();
+  const [fix, setFix] = useState<Fix | null>(null);
+  const [watching, setWatching] = useState(false);
+  const [message, setMessage] = useState<string | null>(null);
+
+  useEffect(() => {
+    if (!watching) return;
+    return watchFix((f) => setFix(f), (m) => { setMessage(m); setWatching(false); });
+  }, [watching]);
+
+  const typed = lat !== undefined || lon !== undefined || label !== '';
+  useEffect(() => {
+    setDirty('point', typed);
+    return () => setDirty('point', false);
+  }, [typed]);
+
+  function takeFix(f: Fix) {
+    setLat(f.lat);
+    setLon(f.lon);
+    if (f.altitudeM !== null) setAltitudeM(f.altitudeM);
+    setWatching(false);
+  }
+
+  async function save() {
+    if (lat === undefined || lon === undefined || lat < -90 || lat > 90 || lon < -180 || lon > 180) {
+      setMessage('A point needs a latitude (−90 to 90) and a longitude (−180 to 180): use my location, drag the pin, or type them.');
+      return;
+    }
+    const fromFix = fix && fix.lat === lat && fix.lon === lon;
+    await saveRecord('point', newId(), {
+      visitId, role: role as PointRole, label: label.trim(), lat, lon,
+      accuracyM: fromFix ? fix.accuracyM : null, altitudeM: altitudeM ?? null,
+      altitudeAccuracyM: fromFix ? fix.altitudeAccuracyM : null, chainageM: null, capturedAt: new Date().toISOString(),
+    });
+    setLat(undefined); setLon(undefined); setAltitudeM(undefined); setLabel(''); setFix(null);
+    setMessage('Point saved on this phone.');
+    announceSave();
+  }
+
+  return (
+    <div className="space-y-4">
+      <Choice label="This point is the" options={ROLES} value={role} onChange={setRole} />
+      <div>
+        <label htmlFor="point-label" className="block font-bold">Name (optional)</label>
+        <input id="point-label" value={label} onChange={(e) => setLabel(e.target.value)} className="mt-1 min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-xl" />
+      </div>
+      <div className="rounded-md border-2 border-rule bg-white p-3" aria-live="polite">
+        {!watching && <button type="button" onClick={() => { setFix(null); setWatching(true); setMessage(null); }} className="min-h-14 w-full rounded-md border-2 border-slate text-xl font-bold text-slate">Use my location</button>}
+        {watching && (
+          <div className="space-y-2">
+            <p className="text-lg">{fix ? <>Accuracy <span className="figure font-bold">± {showQuantity(fix.accuracyM, 'length', units)}</span>{fix.accuracyM <= GOOD_FIX_M ? ' — good fix' : ' — waiting for a better fix…'}</> : 'Waiting for a fix…'}</p>
+            {fix && <PrimaryButton onClick={() => takeFix(fix)}>Use this fix</PrimaryButton>}
+            <button type="button" onClick={() => setWatching(false)} className="min-h-12 w-full rounded-md border-2 border-stone font-bold">Stop</button>
+          </div>
+        )}
+      </div>
+      <PointMap points={points} draft={lat !== undefined && lon !== undefined ? { lat, lon } : null}
+        onDraftMove={(a, b) => { setLat(Number(a.toFixed(6))); setLon(Number(b.toFixed(6))); }} />
+      <div className="grid gap-3 sm:grid-cols-2">
+        <NumberField label="Latitude" quantity="angle" units="metric" signed value={lat} onChange={setLat} />
+        <NumberField label="Longitude" quantity="angle" units="metric" signed value={lon} onChange={setLon} />
+        <NumberField label="Altitude (GPS, rough)" quantity="length" units={units} value={altitudeM} onChange={setAltitudeM} />
+      </div>
+      {message && <p role="status" className="font-bold">{message}</p>}
+      <PrimaryButton onClick={save}>Save point</PrimaryButton>
+    </div>
+  );
+}

@@ -1,0 +1,44 @@
+'use client';
+
+import { useLiveQuery } from 'dexie-react-hooks';
+import { Suspense } from 'react';
+import { fieldDb } from '@/lib/client/db';
+import { deleteRecord } from '@/lib/client/outbox';
+import { announceSave } from '@/lib/client/sync/triggers';
+import { showQuantity } from '@/lib/shared/quantities';
+import { SectionHeader } from '../../_components/choice';
+import { useUnits, useVisitId } from '../../_components/use-field-data';
+import { PointForm } from './_components/point-form';
+
+function PointsPage() {
+  const visitId = useVisitId();
+  const units = useUnits();
+  const points = useLiveQuery(async () => (await fieldDb().points.where('visitId').equals(visitId).toArray()).filter((p) => !p.deletedAt), [visitId]);
+  const mapPoints = (points ?? []).flatMap((p) => (p.lat !== null && p.lon !== null ? [{ id: p.id, lat: p.lat, lon: p.lon, label: p.label, role: p.role }] : []));
+  return (
+    <div className="space-y-5">
+      <SectionHeader visitId={visitId} title="Points" />
+      <PointForm visitId={visitId} units={units} points={mapPoints} />
+      <section aria-labelledby="saved-points" className="space-y-2">
+        <h2 id="saved-points" className="text-xl font-bold">Saved points</h2>
+        {points?.length === 0 && <p className="text-stone">None yet.</p>}
+        <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
+          {points?.map((p) => (
+            <li key={p.id} className="flex items-center justify-between px-3 py-2">
+              <span>
+                <span className="block font-bold">{p.role}{p.label ? ` · ${p.label}` : ''}</span>
+                <span className="figure block">{p.lat?.toFixed(5)}, {p.lon?.toFixed(5)}{p.accuracyM !== null ? ` ± ${showQuantity(p.accuracyM, 'length', units)}` : ''}</span>
+              </span>
+              <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold"
+                onClick={async () => { await deleteRecord('point', p.id); announceSave(); }}>Delete</button>
+            </li>
+          ))}
+        </ul>
+      </section>
+    </div>
+  );
+}
+
+export default function Page() {
+  return <Suspense><PointsPage /></Suspense>;
+}

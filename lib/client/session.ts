@@ -1,0 +1,37 @@
+// The advisor signed in on this phone, remembered so the field pages open offline.
+import type { SessionUser } from '@/lib/shared/domain';
+import { fieldDb } from './db';
+import { getMeta, setMeta } from './sync/meta';
+
+export type LocalSession =
+  | { state: 'ready'; user: SessionUser; online: boolean }
+  | { state: 'signed-out' }
+  | { state: 'other-user-waiting'; user: SessionUser; waitingFor: SessionUser };
+
+/** Checks /api/me when online; falls back to the remembered user offline. */
+export async function loadLocalSession(): Promise<LocalSession> {
+  const remembered = await getMeta<SessionUser>('user');
+  let res: Response | undefined;
+  try {
+    res = await fetch('/api/me', { credentials: 'same-origin', cache: 'no-store' });
+  } catch {
+    return remembered ? { state: 'ready', user: remembered, online: false } : { state: 'signed-out' };
+  }
+  if (res.status === 401) return { state: 'signed-out' };
+  if (!res.ok) return remembered ? { state: 'ready', user: remembered, online: false } : { state: 'signed-out' };
+  const { user } = (await res.json()) as { user: SessionUser };
+  if (remembered && remembered.id !== user.id) {
+    // Another person's changes still wait on this phone: keep them, never mix them up.
+    if ((await fieldDb().outbox.count()) > 0) return { state: 'other-user-waiting', user, waitingFor: remembered };
+    await clearPhone();
+  }
+  await setMeta('user', user);
+  return { state: 'ready', user, online: true };
+}
+
+async function clearPhone(): Promise<void> {
+  const db = fieldDb();
+  await db.transaction('rw', db.tables, async () => {
+    for (const table of db.tables) await table.clear();
+  });
+}
