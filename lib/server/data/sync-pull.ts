@@ -22,63 +22,67 @@ function visibleVisitsWhere(user: SessionUser): WhereOptions {
 }
 
 const byRev = (a: Change, b: Change) => a.rev - b.rev;
-const asChanges = (kind: Kind, rows: unknown[]): Change[] => (rows as SyncedRow[]).map((row) => ({ kind, rev: Number(row.rev), row }));
+/** Rows as changes at their effective revision: their own, or later if their visit appeared later. */
+const asChanges = (kind: Kind, rows: unknown[], exposedAt: (row: SyncedRow) => number = () => 0): Change[] =>
+  (rows as SyncedRow[]).map((row) => ({ kind, rev: Math.max(Number(row.rev), exposedAt(row)), row }));
 
-/** Rows of each table past the cursor (at most limit + 1 each: enough to fill one page in rev order). */
-async function changedSince(cursor: number, limit: number, visitIds: string[], farmIds: string[]): Promise<Change[]> {
-  if (visitIds.length === 0) return [];
+/**
+ * Candidate changes past the cursor. Records of visits (and farms) that a phone may already hold
+ * count at their own revision (at most limit + 1 per table: enough for one page in rev order).
+ * Records of visits that appeared after the cursor count at the revision the visit appeared at,
+ * all of them whatever their own revision, so the phone gets the visit whole, once.
+ */
+async function candidates(cursor: number, limit: number, visible: Visit[]): Promise<Change[]> {
+  const exposedVisit = new Map(visible.filter((v) => Number(v.exposedRev) > cursor).map((v) => [v.id, Number(v.exposedRev)]));
+  const farmExposure = new Map<string, number>();
+  for (const v of visible) farmExposure.set(v.farmId, Math.min(farmExposure.get(v.farmId) ?? Infinity, Number(v.exposedRev)));
+  const settledVisits = visible.filter((v) => !exposedVisit.has(v.id)).map((v) => v.id);
+  const exposedVisits = [...exposedVisit.keys()];
+  const settledFarms = [...farmExposure].filter(([, rev]) => rev <= cursor).map(([id]) => id);
+  const exposedFarms = [...farmExposure].filter(([, rev]) => rev > cursor).map(([id]) => id);
+
   const after = { rev: { [Op.gt]: cursor } };
   const page = { order: [['rev', 'ASC']] as [string, string][], limit: limit + 1 };
-  const [farms, demand, ...children] = await Promise.all([
-    Farm.findAll({ where: { id: { [Op.in]: farmIds }, ...after }, ...page }),
-    DemandLine.findAll({ where: { farmId: { [Op.in]: farmIds }, ...after }, ...page }),
-    ...VISIT_CHILDREN.map((entity) => ENTITY_SPECS[entity].model.findAll({ where: { visitId: { [Op.in]: visitIds }, ...after }, ...page })),
+  const none = Promise.resolve([]);
+  const visitExposure = (row: SyncedRow) => exposedVisit.get(String(row.get('visitId'))) ?? 0;
+  const farmExposed = (key: string) => (row: SyncedRow) => farmExposure.get(String(row.get(key))) ?? 0;
+  const [farmsNew, farmsAll, demandNew, demandAll, childrenNew, childrenAll] = await Promise.all([
+    settledFarms.length ? Farm.findAll({ where: { id: { [Op.in]: settledFarms }, ...after }, ...page }) : none,
+    exposedFarms.length ? Farm.findAll({ where: { id: { [Op.in]: exposedFarms } } }) : none,
+    settledFarms.length ? DemandLine.findAll({ where: { farmId: { [Op.in]: settledFarms }, ...after }, ...page }) : none,
+    exposedFarms.length ? DemandLine.findAll({ where: { farmId: { [Op.in]: exposedFarms } } }) : none,
+    Promise.all(VISIT_CHILDREN.map((entity) => (settledVisits.length
+      ? ENTITY_SPECS[entity].model.findAll({ where: { visitId: { [Op.in]: settledVisits }, ...after }, ...page }) : none))),
+    Promise.all(VISIT_CHILDREN.map((entity) => (exposedVisits.length
+      ? ENTITY_SPECS[entity].model.findAll({ where: { visitId: { [Op.in]: exposedVisits } } }) : none))),
   ]);
   return [
-    ...asChanges('farm', farms), ...asChanges('demandLine', demand),
-    ...children.flatMap((rows, i) => asChanges(VISIT_CHILDREN[i] as ChildEntity, rows)),
-  ];
+    ...asChanges('visit', visible.filter((v) => Number(v.rev) > cursor)),
+    ...asChanges('farm', farmsNew), ...asChanges('farm', farmsAll, farmExposed('id')),
+    ...asChanges('demandLine', demandNew), ...asChanges('demandLine', demandAll, farmExposed('farmId')),
+    ...childrenNew.flatMap((rows, i) => asChanges(VISIT_CHILDREN[i] as ChildEntity, rows)),
+    ...childrenAll.flatMap((rows, i) => asChanges(VISIT_CHILDREN[i] as ChildEntity, rows, visitExposure)),
+  ].sort(byRev);
 }
 
-/** Everything of newly visible visits that an older cursor would skip: children, farm, demand lines. */
-async function wholeVisits(cursor: number, visits: Visit[]): Promise<Change[]> {
-  if (visits.length === 0) return [];
-  const visitIds = visits.map((v) => v.id);
-  const farmIds = [...new Set(visits.map((v) => v.farmId))];
-  const upTo = { rev: { [Op.lte]: cursor } };
-  const [farms, demand, ...children] = await Promise.all([
-    Farm.findAll({ where: { id: { [Op.in]: farmIds }, ...upTo } }),
-    DemandLine.findAll({ where: { farmId: { [Op.in]: farmIds }, ...upTo } }),
-    ...VISIT_CHILDREN.map((entity) => ENTITY_SPECS[entity].model.findAll({ where: { visitId: { [Op.in]: visitIds }, ...upTo } })),
-  ]);
-  return [
-    ...asChanges('farm', farms), ...asChanges('demandLine', demand),
-    ...children.flatMap((rows, i) => asChanges(VISIT_CHILDREN[i] as ChildEntity, rows)),
-  ];
+/** The first `limit` changes, never splitting changes that share one revision (a visit appearing whole). */
+function cutPage(all: Change[], limit: number): Change[] {
+  let end = Math.min(limit, all.length);
+  while (end < all.length && all[end]?.rev === all[end - 1]?.rev) end++;
+  return all.slice(0, end);
 }
 
 /**
- * Changes visible to the caller since `cursor`, in revision order, at most `limit` changed rows a
- * page. A visit whose own revision is past the cursor (new, newly assigned, or changed) comes with
- * all its records, so a phone that just gained it holds it whole; those extras ride on top of limit.
+ * Changes visible to the caller since `cursor`, in revision order, about `limit` rows a page (a
+ * visit that appeared after the cursor comes whole in one page, even past the limit).
  */
 export async function pullChanges(user: SessionUser, { cursor, limit }: { cursor: number; limit: number }): Promise<PullResponse> {
   const visible = await Visit.findAll({ where: visibleVisitsWhere(user), order: [['rev', 'ASC']] });
   const visitIds = visible.map((v) => v.id);
-  const farmIds = [...new Set(visible.map((v) => v.farmId))];
-
-  const candidates = [
-    ...asChanges('visit', visible.filter((v) => Number(v.rev) > cursor)),
-    ...(await changedSince(cursor, limit, visitIds, farmIds)),
-  ].sort(byRev);
-  const page = candidates.slice(0, limit);
-  const hasMore = candidates.length > limit;
-  const nextCursor = page.length > 0 ? (page[page.length - 1] as Change).rev : cursor;
-
-  const pagedVisits = page.filter((c) => c.kind === 'visit').map((c) => c.row as unknown as Visit);
-  const all = [...page, ...(await wholeVisits(cursor, pagedVisits))];
-  const seen = new Set<string>();
-  const unique = all.filter((c) => (seen.has(`${c.kind}:${c.row.id}`) ? false : (seen.add(`${c.kind}:${c.row.id}`), true))).sort(byRev);
+  const all = await candidates(cursor, limit, visible);
+  const unique = cutPage(all, limit);
+  const hasMore = unique.length < all.length;
+  const nextCursor = unique.length > 0 ? (unique[unique.length - 1] as Change).rev : cursor;
 
   const owners = new Map<string, string>();
   const ownerIds = [...new Set(unique.filter((c) => c.kind === 'farm').map((c) => (c.row as unknown as Farm).ownerId).filter((id): id is string => !!id))];
