@@ -1,3 +1,4 @@
+import { FIELD_VISIT_STATUSES } from '@/lib/shared/domain';
 import { QueryTypes, type Model, type ModelStatic, type Sequelize, type Transaction } from 'sequelize';
 import { AuditEntry } from './audit-entry';
 import { DemandLine } from './demand-line';
@@ -86,4 +87,16 @@ export function initModels(sequelize: Sequelize) {
     child.belongsTo(Visit, { foreignKey: 'visitId' });
   }
   for (const model of syncedModels) addRevisionHooks(sequelize, model as ModelStatic<Model>);
+  addExposureHook();
+}
+
+// After the revision hook: a visit that a phone may newly hold records the revision it appeared at,
+// so a pull sends it whole (created, assigned to someone else, restored, or booked into the field).
+function addExposureHook() {
+  Visit.addHook('beforeSave', (visit: Visit) => {
+    const previous = visit.previous('status');
+    const intoField = visit.changed('status') && FIELD_VISIT_STATUSES.includes(visit.status)
+      && !(previous && FIELD_VISIT_STATUSES.includes(previous));
+    if (visit.isNewRecord || visit.changed('advisorId') || visit.changed('deletedAt') || intoField) visit.exposedRev = visit.rev;
+  });
 }

@@ -14,6 +14,8 @@ export class Visit extends Model<InferAttributes<Visit>, InferCreationAttributes
   declare visitedAt: Date | null;
   declare lastSyncedAt: Date | null;
   declare notes: string;
+  // Revision at which the visit last became visible to a phone (see migrations/0007).
+  declare exposedRev: CreationOptional<number>;
   declare rev: CreationOptional<number>;
   declare createdById: CreationOptional<string | null>;
   declare deletedAt: CreationOptional<Date | null>;
@@ -32,6 +34,7 @@ export class Visit extends Model<InferAttributes<Visit>, InferCreationAttributes
         visitedAt: { type: DataTypes.DATE, allowNull: true },
         lastSyncedAt: { type: DataTypes.DATE, allowNull: true },
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+        exposedRev: { type: DataTypes.BIGINT, allowNull: false, defaultValue: 0 },
         ...syncedColumns,
       },
       { sequelize, modelName: 'Visit', tableName: 'visits', underscored: true },

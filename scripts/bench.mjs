@@ -1,4 +1,4 @@
-// npm run bench – runs every tests/bench/*.bench.ts with tsx in turn, merges their "BENCH {json}" lines
+// npm run bench – runs every tests/bench/*.bench.ts with tsx (react-server conditions, so server code loads) in turn, merges their "BENCH {json}" lines
 // into bench/results.json and prints a table. A bench that fails or prints no BENCH line fails the run.
 import { spawnSync } from 'node:child_process';
 import { mkdirSync, readdirSync, writeFileSync } from 'node:fs';
@@ -15,7 +15,7 @@ const results = [];
 let failed = 0;
 for (const file of files) {
   process.stdout.write(`bench: ${file}\n`);
-  const run = spawnSync(process.execPath, [tsx, path.join('tests', 'bench', file)], { cwd: root, encoding: 'utf8' });
+  const run = spawnSync(process.execPath, [tsx, '--conditions=react-server', path.join('tests', 'bench', file)], { cwd: root, encoding: 'utf8' });
   process.stdout.write(run.stdout ?? '');
   process.stderr.write(run.stderr ?? '');
   const lines = (run.stdout ?? '').split('\n').filter((l) => l.startsWith('BENCH '));

@@ -21,6 +21,12 @@ const appSchema = z.object({
   MAIL_FROM: z.string().default('Fallbook <no-reply@fallbook.test>'),
 });
 
+const storageSchema = z.object({
+  /** Folder for photo originals and thumbnails (relative to the app's folder, or absolute). */
+  PHOTO_DIR: z.string().min(1).default('.data/photos'),
+});
+
+let storageEnvCache: z.infer<typeof storageSchema> | undefined;
 let dbEnvCache: z.infer<typeof dbSchema> | undefined;
 let appEnvCache: z.infer<typeof appSchema> | undefined;
 
@@ -32,4 +38,9 @@ export function dbEnv() {
 export function appEnv() {
   appEnvCache ??= appSchema.parse(process.env);
   return appEnvCache;
+}
+
+export function storageEnv() {
+  storageEnvCache ??= storageSchema.parse(process.env);
+  return storageEnvCache;
 }

@@ -21,6 +21,7 @@ export const conflict = (message: string) => new AppError(409, 'conflict', messa
 export const invalid = (message: string, fieldErrors?: Record<string, string[]>) =>
   new AppError(422, 'invalid', message, fieldErrors);
 export const tooLarge = (message: string) => new AppError(413, 'too_large', message);
+export const unsupportedType = (message: string) => new AppError(415, 'unsupported_type', message);
 export const rateLimited = (message: string) => new AppError(429, 'rate_limited', message);
 
 /** Field errors keyed by dotted path, from a zod error. */

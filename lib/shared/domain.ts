@@ -29,6 +29,9 @@ export const VISIT_STATUS_LABELS: Record<VisitStatus, string> = {
   cancelled: 'Cancelled',
 };
 
+/** Visits out in the field: what a coordinator's phone holds (an advisor's holds all theirs). */
+export const FIELD_VISIT_STATUSES: readonly VisitStatus[] = ['scheduled', 'surveyed'];
+
 export const POINT_ROLES = ['intake', 'pump', 'tank', 'station', 'source', 'other'] as const;
 export type PointRole = (typeof POINT_ROLES)[number];
 

@@ -28,6 +28,7 @@ export const testProfile = {
   MAIL_FROM: 'Fallbook <no-reply@fallbook.test>',
   MAIL_DIR: '.data/mail-test',
   MAIL_INBOX_PORT: '1081',
+  PHOTO_DIR: '.data/photos-test',
   SEED_DEMO: '1',
 };
 

@@ -17,6 +17,8 @@ export const ROLE_PERMISSIONS = {
   'visit:read': { coordinator: 'organisation', advisor: 'assigned', farmer: 'owner' },
   'visit:capture': { coordinator: 'organisation', advisor: 'assigned' },
   'visit:plan': { coordinator: 'organisation' },
+  // Photo originals keep their EXIF GPS: staff only; farmers see the thumbnail (no metadata).
+  'photo:original': { coordinator: 'organisation', advisor: 'assigned' },
   'farm:read': { coordinator: 'organisation', advisor: 'assigned', farmer: 'owner' },
   'farm:edit': { coordinator: 'organisation' },
   'demand:edit': { coordinator: 'organisation', advisor: 'assigned', farmer: 'owner' },

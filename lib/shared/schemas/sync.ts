@@ -3,7 +3,7 @@
 import { z } from 'zod';
 import { DEMAND_CATALOGUE, type DemandKind } from '@/lib/engine/demand';
 import { PIPE_MATERIALS, type PipeMaterialId } from '@/lib/engine/materials';
-import { POINT_ROLES } from '../domain';
+import { POINT_ROLES, type VisitStatus } from '../domain';
 import { fallRunSchema, flowMeasurementSchema, LIFT_DIRECT_METHODS } from './site-readings';
 
 const uuid = z.string().uuid('Must be a UUID.');
@@ -165,7 +165,8 @@ export interface PullResponse {
   /** Every visit currently assigned to (or visible by) the caller: the phone may drop others it holds. */
   visibleVisitIds: string[];
   farms: { id: string; rev: number; name: string; area: string; lat: number | null; lon: number | null; notes: string; ownerName: string | null }[];
-  visits: (PulledRecord<'visit'> & { farmId: string; plannedOn: string | null; advisorId: string | null })[];
+  /** `status` is the visit's whole life (the phone may only write scheduled → surveyed). */
+  visits: (Omit<PulledRecord<'visit'>, 'status'> & { status: VisitStatus; farmId: string; plannedOn: string | null; advisorId: string | null })[];
   records: { [E in Exclude<SyncEntity, 'visit'>]: PulledRecord<E>[] };
   /** Organisation settings the phone's live preview needs. */
   settings: { unitsDefault: 'metric' | 'us'; designFractionOfLowest: number; demandFigures: Record<string, number> };

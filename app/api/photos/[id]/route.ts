@@ -1,0 +1,20 @@
+// PUT /api/photos/:id – the raw bytes of a photo whose metadata was pushed; GET – the original (staff only).
+import { readPhoto, storePhotoUpload } from '@/lib/server/data/photos';
+import { withAuth } from '@/lib/server/http/with-auth';
+import { idParam } from '@/lib/shared/schemas/list-query';
+
+export const runtime = 'nodejs';
+
+export const PUT = withAuth<{ id: string }>('visit:capture', async ({ req, user, params }) => {
+  const { id } = idParam.parse(params);
+  return Response.json({ photo: await storePhotoUpload(user, id, req) });
+});
+
+// Farmers get 403 here: originals keep the camera's GPS; they see /thumbnail (no metadata).
+export const GET = withAuth<{ id: string }>('visit:read', async ({ user, params }) => {
+  const { id } = idParam.parse(params);
+  const { data, contentType } = await readPhoto(user, id, 'original');
+  return new Response(new Uint8Array(data), {
+    headers: { 'content-type': contentType, 'content-length': String(data.length), 'cache-control': 'private, max-age=86400', 'x-content-type-options': 'nosniff' },
+  });
+});

@@ -1,0 +1,75 @@
+import 'server-only';
+import { createHash } from 'node:crypto';
+import { Farm, Photo, Visit, getSequelize } from '@/lib/server/db';
+import { MAX_PHOTO_BYTES } from '@/lib/shared/schemas/sync';
+import { recordAudit } from '../audit';
+import { authorize, type Permission, type SessionUser } from '../auth/permissions';
+import { invalid, notFound } from '../errors';
+import { readBodyCapped } from '../http/body';
+import { checkPhotoImage } from '../services/photo-image';
+import { getPhotoStorage } from '../storage';
+
+export interface PhotoUploadOutcome {
+  id: string;
+  uploadedAt: string;
+  width: number | null;
+  height: number | null;
+  /** False when the same bytes were already stored (a repeated upload changes nothing). */
+  stored: boolean;
+}
+
+/** The photo's metadata row, if it exists and the caller holds the permission on its visit. */
+async function getPhotoOrThrow(user: SessionUser, id: string, permission: Permission): Promise<Photo> {
+  const photo = await Photo.findOne({ where: { id, deletedAt: null } });
+  const visit = photo && (await Visit.findOne({ where: { id: photo.visitId, deletedAt: null }, include: [{ model: Farm, attributes: ['ownerId'] }] }));
+  if (!photo || !visit) throw notFound('photo');
+  authorize(user, permission, {
+    organisationId: visit.organisationId,
+    advisorIds: visit.advisorId ? [visit.advisorId] : [],
+    ownerId: (visit as Visit & { Farm?: Farm }).Farm?.ownerId ?? null,
+  });
+  return photo;
+}
+
+const thumbnailKey = (key: string) => key.replace(/\.[a-z]+$/, '-thumb.jpg');
+
+/**
+ * Stores the body of PUT /api/photos/:id: its size and sha-256 must match the pushed metadata,
+ * its content must be a readable photo; the original and a metadata-free thumbnail go to storage.
+ */
+export async function storePhotoUpload(user: SessionUser, id: string, req: Request): Promise<PhotoUploadOutcome> {
+  const photo = await getPhotoOrThrow(user, id, 'visit:capture');
+  const data = await readBodyCapped(req, MAX_PHOTO_BYTES, 'The photo');
+  const sha256 = createHash('sha256').update(data).digest('hex');
+  if (data.length !== photo.bytes || sha256 !== photo.sha256) {
+    throw invalid('The photo did not arrive whole — it will be sent again.', {
+      body: [`Got ${data.length} bytes (sha-256 ${sha256.slice(0, 12)}…), expected ${photo.bytes} (${photo.sha256.slice(0, 12)}…).`],
+    });
+  }
+  if (photo.uploadedAt && photo.storageKey) {
+    return { id, uploadedAt: photo.uploadedAt.toISOString(), width: photo.width, height: photo.height, stored: false };
+  }
+  const image = await checkPhotoImage(data);
+  const key = `photos/${photo.visitId}/${photo.id}.${image.ext}`;
+  const storage = getPhotoStorage();
+  await storage.put(key, data, image.mime);
+  await storage.put(thumbnailKey(key), image.thumbnail, 'image/jpeg');
+  const uploadedAt = new Date();
+  await getSequelize().transaction(async (transaction) => {
+    const row = await Photo.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE, rejectOnEmpty: true });
+    await row.update({ storageKey: key, uploadedAt, width: image.width, height: image.height, mime: image.mime }, { transaction });
+    await recordAudit({ organisationId: user.organisationId, actorId: user.id, entity: 'photo', entityId: id, visitId: photo.visitId,
+      action: 'uploaded', changes: { bytes: data.length, mime: image.mime, width: image.width, height: image.height } }, transaction);
+  });
+  return { id, uploadedAt: uploadedAt.toISOString(), width: image.width, height: image.height, stored: true };
+}
+
+/** A stored photo's bytes: the original (staff: photo:original) or the thumbnail (visit:read). */
+export async function readPhoto(user: SessionUser, id: string, variant: 'original' | 'thumbnail') {
+  const photo = await getPhotoOrThrow(user, id, variant === 'original' ? 'photo:original' : 'visit:read');
+  if (!photo.storageKey) throw notFound('uploaded photo (it has not arrived from the phone yet)');
+  const key = variant === 'original' ? photo.storageKey : thumbnailKey(photo.storageKey);
+  const data = await getPhotoStorage().get(key);
+  if (!data) throw notFound('stored photo');
+  return { data, contentType: variant === 'original' ? photo.mime : 'image/jpeg' };
+}

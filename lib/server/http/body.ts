@@ -1,0 +1,37 @@
+import 'server-only';
+import { invalid, tooLarge } from '../errors';
+
+/** The request body parsed as JSON; a body that is not JSON is a 422, not a 500. */
+export async function readJson(req: Request): Promise<unknown> {
+  const text = await req.text();
+  try {
+    return JSON.parse(text);
+  } catch {
+    throw invalid('The request body is not valid JSON.');
+  }
+}
+
+/**
+ * The raw body as one buffer, read chunk by chunk and abandoned past `maxBytes` (413), so a huge
+ * upload is never buffered whole. Content-Length is checked first when the client sends it.
+ */
+export async function readBodyCapped(req: Request, maxBytes: number, what: string): Promise<Buffer> {
+  const tooBig = () => tooLarge(`${what} is larger than ${Math.round(maxBytes / 1024 / 1024)} MB.`);
+  const declared = Number(req.headers.get('content-length') ?? NaN);
+  if (Number.isFinite(declared) && declared > maxBytes) throw tooBig();
+  if (!req.body) return Buffer.alloc(0);
+  const reader = req.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > maxBytes) {
+      await reader.cancel().catch(() => undefined);
+      throw tooBig();
+    }
+    chunks.push(value);
+  }
+  return Buffer.concat(chunks, total);
+}

@@ -1,0 +1,65 @@
+import 'server-only';
+import { Op, type Transaction } from 'sequelize';
+import { Farm, Visit } from '@/lib/server/db';
+import { authorize, type SessionUser } from '../auth/permissions';
+import { notFound } from '../errors';
+
+export interface VisitFacts {
+  id: string;
+  organisationId: string;
+  farmId: string;
+  advisorId: string | null;
+  status: string;
+}
+
+/**
+ * Who may write what during one push: visits and farms are read once per batch and the checks go
+ * through the one permission helper (visit:capture for visit records, demand:edit for demand lines).
+ */
+export class SyncAccess {
+  private visits = new Map<string, VisitFacts | null>();
+  private farmAdvisors = new Map<string, { organisationId: string; ownerId: string | null; advisorIds: string[] } | null>();
+
+  constructor(readonly user: SessionUser, private transaction: Transaction) {}
+
+  /** The visit's facts, or null when it does not exist (or was deleted). */
+  async visit(id: string): Promise<VisitFacts | null> {
+    if (!this.visits.has(id)) {
+      const row = await Visit.findOne({ where: { id, deletedAt: null }, transaction: this.transaction });
+      this.visits.set(id, row
+        ? { id: row.id, organisationId: row.organisationId, farmId: row.farmId, advisorId: row.advisorId, status: row.status }
+        : null);
+    }
+    return this.visits.get(id) ?? null;
+  }
+
+  /** Keeps the batch's view of a visit's status current after the push changed it. */
+  noteStatus(id: string, status: string): void {
+    const facts = this.visits.get(id);
+    if (facts) facts.status = status;
+  }
+
+  /** Throws 404/403 unless the caller may capture on the visit; returns its facts. */
+  async assertCanCapture(visitId: string): Promise<VisitFacts> {
+    const facts = await this.visit(visitId);
+    if (!facts) throw notFound('visit');
+    authorize(this.user, 'visit:capture', { organisationId: facts.organisationId, advisorIds: facts.advisorId ? [facts.advisorId] : [] });
+    return facts;
+  }
+
+  /** Throws 404/403 unless the caller may edit the farm's demand (advisor: a visit on it is theirs). */
+  async assertCanEditDemand(farmId: string): Promise<void> {
+    if (!this.farmAdvisors.has(farmId)) {
+      const farm = await Farm.findOne({ where: { id: farmId, deletedAt: null }, transaction: this.transaction });
+      const visits = farm
+        ? await Visit.findAll({ attributes: ['advisorId'], where: { farmId, deletedAt: null, advisorId: { [Op.ne]: null } }, transaction: this.transaction })
+        : [];
+      this.farmAdvisors.set(farmId, farm
+        ? { organisationId: farm.organisationId, ownerId: farm.ownerId, advisorIds: visits.map((v) => v.advisorId as string) }
+        : null);
+    }
+    const farm = this.farmAdvisors.get(farmId);
+    if (!farm) throw notFound('farm');
+    authorize(this.user, 'demand:edit', farm);
+  }
+}

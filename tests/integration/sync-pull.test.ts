@@ -1,0 +1,134 @@
+import { randomUUID } from 'node:crypto';
+import { QueryTypes } from 'sequelize';
+import { describe, expect, it } from 'vitest';
+import { Visit, getSequelize } from '@/lib/server/db';
+import { makeOrganisation } from './support/fixtures';
+import { pull, pullAll, pulledIds, push, putOp, readingOps } from './support/sync';
+
+async function reassign(visitId: string, advisorId: string) {
+  await getSequelize().transaction(async (transaction) => {
+    const visit = await Visit.findByPk(visitId, { transaction, rejectOnEmpty: true });
+    await visit.update({ advisorId }, { transaction });
+  });
+}
+
+describe('pull', () => {
+  it("returns the caller's visits, farms, records and settings, and nothing of another advisor's visit", async () => {
+    const o = await makeOrganisation('pull-scope');
+    const mine = readingOps(o.visit.id, o.farm.id);
+    const theirs = readingOps(o.otherVisit.id, o.otherFarm.id);
+    await push(o.advisor, { ops: mine.ops });
+    await push(o.otherAdvisor, { ops: theirs.ops });
+
+    const page = await pull(o.advisor);
+    expect(page.visibleVisitIds).toEqual([o.visit.id]);
+    expect(page.visits.map((v) => v.id)).toEqual([o.visit.id]);
+    expect(page.farms.map((f) => f.id)).toEqual([o.farm.id]);
+    expect(page.farms[0]?.ownerName).toBe(o.farmer.name);
+    const ids = pulledIds(page);
+    for (const id of Object.values(mine.ids)) expect(ids.some((x) => x.endsWith(id))).toBe(true);
+    for (const id of Object.values(theirs.ids)) expect(ids.some((x) => x.endsWith(id))).toBe(false);
+    expect(page.settings).toMatchObject({ unitsDefault: 'metric', designFractionOfLowest: 0.5 });
+    const revs = page.records.point.map((r) => r.rev);
+    expect(revs.every((rev) => rev <= page.cursor)).toBe(true);
+  });
+
+  it('a newly assigned visit arrives whole: its farm, demand lines and every record, whatever their revisions', async () => {
+    const o = await makeOrganisation('pull-assign');
+    const theirs = readingOps(o.otherVisit.id, o.otherFarm.id);
+    await push(o.otherAdvisor, { ops: theirs.ops });
+    const before = await pull(o.advisor);
+    expect(before.visibleVisitIds).not.toContain(o.otherVisit.id);
+
+    await reassign(o.otherVisit.id, o.advisor.id);
+    const after = await pull(o.advisor, before.cursor);
+    expect(after.visibleVisitIds.sort()).toEqual([o.visit.id, o.otherVisit.id].sort());
+    expect(after.visits.map((v) => v.id)).toEqual([o.otherVisit.id]);
+    expect(after.farms.map((f) => f.id)).toEqual([o.otherFarm.id]);
+    const ids = pulledIds(after);
+    for (const [name, id] of Object.entries(theirs.ids)) expect(ids.some((x) => x.endsWith(id)), name).toBe(true);
+
+    // ...and the advisor it was taken from is told to drop it.
+    expect((await pull(o.otherAdvisor, 0)).visibleVisitIds).not.toContain(o.otherVisit.id);
+  });
+
+  it('paging with a small limit returns every record exactly once, in revision order', async () => {
+    const o = await makeOrganisation('pull-pages');
+    await push(o.advisor, { ops: readingOps(o.visit.id, o.farm.id).ops });
+    await push(o.advisor, { ops: Array.from({ length: 7 }, (_, i) => putOp('point', randomUUID(), {
+      visitId: o.visit.id, role: 'station', label: `Station ${i}`, lat: null, lon: null, accuracyM: null, altitudeM: null,
+      altitudeAccuracyM: null, chainageM: i * 20, capturedAt: null,
+    })) });
+    const whole = pulledIds(await pull(o.advisor, 0, 2000));
+    const { pages } = await pullAll(o.advisor, 0, 3);
+    expect(pages.length).toBeGreaterThan(5);
+    const paged = pages.flatMap(pulledIds);
+    expect(new Set(paged).size).toBe(paged.length);
+    expect(paged.sort()).toEqual(whole.sort());
+    for (const [i, page] of pages.entries()) {
+      const prev = i === 0 ? 0 : (pages[i - 1]?.cursor ?? 0);
+      expect(page.cursor).toBeGreaterThanOrEqual(prev);
+    }
+    expect(pages.at(-1)?.hasMore).toBe(false);
+  });
+
+  it('a coordinator pulls the organisation\'s booked and walked visits', async () => {
+    const o = await makeOrganisation('pull-office');
+    const page = await pull(o.coordinator);
+    expect(page.visibleVisitIds.sort()).toEqual([o.visit.id, o.otherVisit.id].sort());
+  });
+
+  it('answers 422 for a bad cursor, 403 for a farmer', async () => {
+    const o = await makeOrganisation('pull-bad');
+    const { GET } = await import('@/app/api/sync/pull/route');
+    const { request, params } = await import('./support/fixtures');
+    expect((await GET(await request('/api/sync/pull?cursor=-1', o.advisor), params({}))).status).toBe(422);
+    expect((await GET(await request('/api/sync/pull?limit=5000', o.advisor), params({}))).status).toBe(422);
+    expect((await GET(await request('/api/sync/pull', o.farmer), params({}))).status).toBe(403);
+  });
+
+  it('every query a push and a pull run has an index to use (EXPLAIN)', async () => {
+    const o = await makeOrganisation('pull-explain');
+    const sequelize = getSequelize();
+    const statements: string[] = [];
+    const options = (sequelize as unknown as { options: { logging: unknown } }).options;
+    const logging = options.logging;
+    options.logging = (sql: string) => { statements.push(sql.replace(/^Executing \([^)]*\): /, '')); };
+    try {
+      const { ops } = readingOps(o.visit.id, o.farm.id);
+      await push(o.advisor, { ops });
+      await pull(o.advisor, 0);
+      await pull(o.advisor, 1);
+    } finally {
+      options.logging = logging;
+    }
+    const tables = /\b(visits|farms|demand_lines|water_sources|flow_measurements|fall_readings|points|photos|pipe_runs|sync_ops)\b/;
+    const selects = [...new Set(statements.filter((s) => /^SELECT/i.test(s) && tables.test(s) && !/LAST_INSERT_ID/.test(s)))];
+    expect(selects.length).toBeGreaterThan(10);
+    for (const sql of selects) {
+      const plan = await sequelize.query<{ table: string; type: string; possible_keys: string | null }>(`EXPLAIN ${sql}`, { type: QueryTypes.SELECT });
+      for (const step of plan) {
+        if (!tables.test(step.table ?? '') && !/^[A-Z]/.test(step.table ?? '')) continue;
+        expect(step.possible_keys, `${sql}\n${JSON.stringify(step)}`).not.toBeNull();
+      }
+    }
+  });
+});
+
+describe('push throughput', () => {
+  // The figure is printed and measured properly by tests/bench/sync.bench.ts; the bound here only
+  // catches a gross regression (per-op round trips gone quadratic), since CI machines are shared.
+  it('200 ops push in one batch, timed', async () => {
+    const o = await makeOrganisation('push-speed');
+    const ops = Array.from({ length: 200 }, (_, i) => putOp('point', randomUUID(), {
+      visitId: o.visit.id, role: 'station', label: `Station ${i}`, lat: 52.4 + i / 1e4, lon: -3.6, accuracyM: 4, altitudeM: 230 + i / 10,
+      altitudeAccuracyM: 6, chainageM: i * 5, capturedAt: '2026-08-01T10:00:00Z',
+    }));
+    const t0 = performance.now();
+    const { results } = await push(o.advisor, { ops });
+    const ms = performance.now() - t0;
+    console.log(`[sync] 200 ops pushed in ${Math.round(ms)} ms`);
+    expect(results.filter((r) => r.status === 'applied')).toHaveLength(200);
+    expect(ms).toBeLessThan(8000);
+  });
+});
