@@ -18,6 +18,9 @@ const SYNC_TAG = 'fallbook-sync';
 
 const serwist = new Serwist({
   precacheEntries: self.__SW_MANIFEST,
+  // Field pages carry ids in the query string (/field/visit?id=…): any query string still finds
+  // the precached page, so a page never opened before opens offline.
+  precacheOptions: { ignoreURLParametersMatching: [/.*/] },
   // Updates wait until the page says so (it asks only when no form holds unsaved input).
   skipWaiting: false,
   clientsClaim: true,

@@ -16,8 +16,8 @@ async function signInOnline(page: Page) {
   await page.getByRole('button', { name: 'Sign in' }).click();
   await expect(page).toHaveURL(/\/field$/);
   // The worker must control the page before going offline (the shell then comes from its cache).
-  await page.evaluate(async () => { await navigator.serviceWorker.ready; });
-  await expect.poll(() => page.evaluate(() => !!navigator.serviceWorker.controller), { timeout: 15_000 }).toBe(true);
+  await expect(page.getByRole('heading', { name: 'My site visits' })).toBeVisible();
+  await expect.poll(() => page.evaluate(() => !!navigator.serviceWorker.controller).catch(() => false), { timeout: 20_000 }).toBe(true);
 }
 
 async function typeInto(page: Page, label: string, value: string, nth = 0) {
