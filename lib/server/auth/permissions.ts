@@ -17,6 +17,8 @@ export const ROLE_PERMISSIONS = {
   'visit:read': { coordinator: 'organisation', advisor: 'assigned', farmer: 'owner' },
   'visit:capture': { coordinator: 'organisation', advisor: 'assigned' },
   'visit:plan': { coordinator: 'organisation' },
+  'visit:export': { coordinator: 'organisation' },
+  'visit:audit': { coordinator: 'organisation' },
   'farm:read': { coordinator: 'organisation', advisor: 'assigned', farmer: 'owner' },
   'farm:edit': { coordinator: 'organisation' },
   'demand:edit': { coordinator: 'organisation', advisor: 'assigned', farmer: 'owner' },
