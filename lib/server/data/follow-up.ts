@@ -1,6 +1,6 @@
 import 'server-only';
 import { Op } from 'sequelize';
-import { User, Visit, getSequelize } from '@/lib/server/db';
+import { Farm, User, Visit, getSequelize } from '@/lib/server/db';
 import type { VisitStatus } from '@/lib/shared/domain';
 import { todayIso } from '@/lib/shared/visit-rules';
 import { authorize, type SessionUser } from '../auth/permissions';
@@ -38,4 +38,14 @@ export async function visitCountsByAdvisor(user: SessionUser, today = todayIso()
   for (const r of rows) loadOf(r.advisorId).byStatus[r.status] = Number(r.n);
   for (const r of late) loadOf(r.advisorId).overdue = Number(r.n);
   return [...loads.values()].sort((a, b) => (a.advisor ? 0 : 1) - (b.advisor ? 0 : 1));
+}
+
+/** The farm areas in use in the organisation, for the area filter (index farms_org_area). */
+export async function districtAreas(user: SessionUser): Promise<string[]> {
+  authorize(user, 'visit:plan');
+  const rows = await Farm.findAll({
+    attributes: ['area'], where: { organisationId: user.organisationId, deletedAt: null, area: { [Op.ne]: '' } },
+    group: ['area'], order: [['area', 'ASC']], raw: true,
+  });
+  return rows.map((r) => r.area);
 }
