@@ -47,7 +47,7 @@ export default async function OfficeVisitPage({ params }: { params: Promise<{ id
       </section>
       <section aria-labelledby="state" className="space-y-3">
         <h2 id="state" className="text-xl font-bold">Follow-up</h2>
-        <StatusForm visitId={visit.id} status={visit.status} />
+        <StatusForm key={visit.status} visitId={visit.id} status={visit.status} />
       </section>
       <section aria-labelledby="history" className="space-y-3">
         <h2 id="history" className="text-xl font-bold">Who changed what</h2>
