@@ -5,6 +5,7 @@ import { DemandLine } from './demand-line';
 import { FallReading } from './fall-reading';
 import { Farm } from './farm';
 import { FlowMeasurement } from './flow-measurement';
+import { Invitation } from './invitation';
 import { Organisation } from './organisation';
 import { Photo } from './photo';
 import { PipeRun } from './pipe-run';
@@ -17,7 +18,7 @@ import { Visit } from './visit';
 import { WaterSource } from './water-source';
 
 export {
-  AuditEntry, DemandLine, FallReading, Farm, FlowMeasurement, Organisation, Photo, PipeRun, Point,
+  AuditEntry, DemandLine, FallReading, Farm, FlowMeasurement, Invitation, Organisation, Photo, PipeRun, Point,
   Screening, SignInAttempt, SyncOp, User, Visit, WaterSource,
 };
 export type { OrganisationSettings } from './organisation';
@@ -70,7 +71,7 @@ export function initModels(sequelize: Sequelize) {
   initialised = sequelize;
   for (const model of [
     Organisation, User, Farm, Visit, WaterSource, FlowMeasurement, FallReading, Point, Photo,
-    DemandLine, PipeRun, Screening, AuditEntry, SyncOp, SignInAttempt,
+    DemandLine, PipeRun, Screening, AuditEntry, SyncOp, SignInAttempt, Invitation,
   ]) model.initModel(sequelize);
 
   Organisation.hasMany(User, { foreignKey: 'organisationId' });

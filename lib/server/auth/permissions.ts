@@ -19,6 +19,8 @@ export const ROLE_PERMISSIONS = {
   'visit:plan': { coordinator: 'organisation' },
   // Photo originals keep their EXIF GPS: staff only; farmers see the thumbnail (no metadata).
   'photo:original': { coordinator: 'organisation', advisor: 'assigned' },
+  'visit:export': { coordinator: 'organisation' },
+  'visit:audit': { coordinator: 'organisation' },
   'farm:read': { coordinator: 'organisation', advisor: 'assigned', farmer: 'owner' },
   'farm:edit': { coordinator: 'organisation' },
   'demand:edit': { coordinator: 'organisation', advisor: 'assigned', farmer: 'owner' },

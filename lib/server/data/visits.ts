@@ -1,8 +1,9 @@
 import 'server-only';
-import { Op, type WhereOptions } from 'sequelize';
+import { Op, type Order, type WhereOptions } from 'sequelize';
 import { Farm, Screening, User, Visit, getSequelize } from '@/lib/server/db';
-import { VISIT_STATUS_LABELS, type Verdict, type VisitStatus } from '@/lib/shared/domain';
-import type { VisitListQuery } from '@/lib/shared/schemas/list-query';
+import { VISIT_STATUSES, VISIT_STATUS_LABELS, type Verdict, type VisitStatus } from '@/lib/shared/domain';
+import type { VisitFilters, VisitListQuery } from '@/lib/shared/schemas/list-query';
+import { isOverdue, todayIso } from '@/lib/shared/visit-rules';
 import { authorize, type Permission, type SessionUser } from '../auth/permissions';
 import { notFound } from '../errors';
 
@@ -12,21 +13,28 @@ export interface VisitSummary {
   statusLabel: string;
   plannedOn: string | null;
   lastSyncedAt: string | null;
+  updatedAt: string;
+  overdue: boolean;
   farm: { id: string; name: string; area: string };
+  farmer: { id: string; name: string } | null;
   advisor: { id: string; name: string } | null;
   verdict: Verdict | null;
 }
 
-type VisitRow = Visit & { Farm?: Farm; advisor?: User | null };
+type VisitRow = Visit & { Farm?: Farm & { owner?: User | null }; advisor?: User | null };
 
-function toSummary(row: VisitRow, verdict: Verdict | null): VisitSummary {
+function toSummary(row: VisitRow, verdict: Verdict | null, today: string): VisitSummary {
+  const owner = row.Farm?.owner;
   return {
     id: row.id,
     status: row.status,
     statusLabel: VISIT_STATUS_LABELS[row.status] ?? row.status,
     plannedOn: row.plannedOn,
     lastSyncedAt: row.lastSyncedAt?.toISOString() ?? null,
+    updatedAt: row.updatedAt.toISOString(),
+    overdue: isOverdue(row, today),
     farm: { id: row.farmId, name: row.Farm?.name ?? '', area: row.Farm?.area ?? '' },
+    farmer: owner ? { id: owner.id, name: owner.name } : null,
     advisor: row.advisor ? { id: row.advisor.id, name: row.advisor.name } : null,
     verdict,
   };
@@ -50,22 +58,80 @@ async function latestVerdicts(visitIds: string[]): Promise<Map<string, Verdict>>
   return new Map(rows.map((r) => [r.visitId, r.verdict]));
 }
 
-/** One page of visits visible to the user, newest planned date first. */
-export async function listVisits(user: SessionUser, query: VisitListQuery) {
+// The latest screening's verdict of the row's visit (index screenings_visit_created).
+const LATEST_VERDICT_SQL =
+  '(SELECT s.verdict FROM screenings s WHERE s.visit_id = `Visit`.`id` ORDER BY s.created_at DESC, s.id DESC LIMIT 1)';
+
+/** Escapes LIKE wildcards so a search for "50%" finds the text, not everything. */
+const likeContains = (text: string) => `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+
+/**
+ * The where clauses of the filters. Each is served by an index: status, advisor and planned date
+ * by the visits_org_* indexes, area by farms_org_area, verdict by screenings_visit_created. The
+ * text search is a LIKE "contains" on farm and farmer names: a scan of the organisation's rows,
+ * acceptable at a few thousand visits per organisation.
+ */
+function filterWhere(filters: Partial<VisitFilters>, today: string): { visit: WhereOptions[]; farm: WhereOptions[] } {
+  const sequelize = getSequelize();
+  const visit: WhereOptions[] = [];
+  const farm: WhereOptions[] = [];
+  if (filters.status) visit.push({ status: filters.status });
+  if (filters.advisor) visit.push({ advisorId: filters.advisor === 'none' ? null : filters.advisor });
+  if (filters.plannedFrom) visit.push({ plannedOn: { [Op.gte]: filters.plannedFrom } });
+  if (filters.plannedTo) visit.push({ plannedOn: { [Op.lte]: filters.plannedTo } });
+  if (filters.overdue) visit.push({ status: { [Op.in]: ['requested', 'scheduled'] }, plannedOn: { [Op.lt]: today } });
+  if (filters.verdict === 'none') {
+    visit.push(sequelize.literal('NOT EXISTS (SELECT 1 FROM screenings s0 WHERE s0.visit_id = `Visit`.`id`)'));
+  } else if (filters.verdict) {
+    visit.push(sequelize.where(sequelize.literal(LATEST_VERDICT_SQL), filters.verdict));
+  }
+  if (filters.area) farm.push({ area: filters.area });
+  if (filters.q) {
+    const pattern = likeContains(filters.q);
+    visit.push({ [Op.or]: [{ '$Farm.name$': { [Op.like]: pattern } }, { '$Farm.owner.name$': { [Op.like]: pattern } }] });
+  }
+  return { visit, farm };
+}
+
+function orderOf(filters: Partial<VisitFilters>): Order {
+  const dir = (filters.dir ?? 'desc').toUpperCase() as 'ASC' | 'DESC';
+  const tie: [string, string] = ['id', 'ASC'];
+  switch (filters.sort ?? 'planned') {
+    case 'farm': return [[{ model: Farm, as: 'Farm' }, 'name', dir], tie];
+    case 'advisor': return [[{ model: User, as: 'advisor' }, 'name', dir], tie];
+    case 'status': {
+      const list = VISIT_STATUSES.map((s) => `'${s}'`).join(',');
+      return [[getSequelize().literal(`FIELD(\`Visit\`.\`status\`, ${list})`), dir], tie];
+    }
+    case 'synced': return [['lastSyncedAt', dir], tie];
+    case 'updated': return [['updatedAt', dir], tie];
+    default: return [['plannedOn', dir], tie];
+  }
+}
+
+/** One page of the visits the user may see, filtered and sorted as asked. */
+export async function listVisits(user: SessionUser, query: VisitListQuery, today = todayIso()) {
   const { where, farmWhere } = visibleWhere(user);
+  const filters = filterWhere(query, today);
+  const farmConditions = [...(farmWhere ? [farmWhere] : []), ...filters.farm];
   const { rows, count } = await Visit.findAndCountAll({
-    where: query.status ? { ...where, status: query.status } : where,
+    where: { [Op.and]: [where, ...filters.visit] },
     include: [
-      { model: Farm, attributes: ['id', 'name', 'area', 'ownerId'], where: farmWhere, required: true },
+      {
+        model: Farm, attributes: ['id', 'name', 'area', 'ownerId'], required: true,
+        where: farmConditions.length ? { [Op.and]: farmConditions } : undefined,
+        include: [{ model: User, as: 'owner', attributes: ['id', 'name'] }],
+      },
       { model: User, as: 'advisor', attributes: ['id', 'name'] },
     ],
-    order: [['plannedOn', 'DESC'], ['id', 'ASC']],
+    order: orderOf(query),
     limit: query.pageSize,
     offset: (query.page - 1) * query.pageSize,
+    subQuery: false,
   });
   const verdicts = await latestVerdicts(rows.map((r) => r.id));
   return {
-    items: (rows as VisitRow[]).map((r) => toSummary(r, verdicts.get(r.id) ?? null)),
+    items: (rows as VisitRow[]).map((r) => toSummary(r, verdicts.get(r.id) ?? null, today)),
     page: query.page,
     pageSize: query.pageSize,
     total: count,
@@ -77,7 +143,10 @@ export async function getVisitOrThrow(user: SessionUser, id: string, permission:
   const row = (await Visit.findOne({
     where: { id, deletedAt: null },
     include: [
-      { model: Farm, attributes: ['id', 'name', 'area', 'ownerId', 'organisationId'] },
+      {
+        model: Farm, attributes: ['id', 'name', 'area', 'ownerId', 'organisationId'],
+        include: [{ model: User, as: 'owner', attributes: ['id', 'name'] }],
+      },
       { model: User, as: 'advisor', attributes: ['id', 'name'] },
     ],
   })) as VisitRow | null;
@@ -88,11 +157,11 @@ export async function getVisitOrThrow(user: SessionUser, id: string, permission:
     ownerId: row.Farm?.ownerId ?? null,
   });
   const verdicts = await latestVerdicts([row.id]);
-  return { ...toSummary(row, verdicts.get(row.id) ?? null), notes: row.notes };
+  return { ...toSummary(row, verdicts.get(row.id) ?? null, todayIso()), notes: row.notes };
 }
 
 /** Visits per status in the user's view, plus how many are overdue. */
-export async function visitCounts(user: SessionUser, today = new Date().toISOString().slice(0, 10)) {
+export async function visitCounts(user: SessionUser, today = todayIso()) {
   const sequelize = getSequelize();
   const { where, farmWhere } = visibleWhere(user);
   const include = [{ model: Farm, attributes: [], where: farmWhere, required: true }];

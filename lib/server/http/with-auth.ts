@@ -14,13 +14,26 @@ export interface AuthedContext<P> {
 
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
-// Route handlers have no CSRF protection of their own: refuse cross-site mutations.
-function assertSameOrigin(req: NextRequest) {
+// The host the browser addressed: `next start` may build nextUrl with another name for the same
+// server (localhost vs 127.0.0.1), so the Host header is what an Origin must match.
+function requestHost(req: NextRequest): string {
+  return req.headers.get('x-forwarded-host') ?? req.headers.get('host') ?? req.nextUrl.host;
+}
+
+/** Route handlers have no CSRF protection of their own: refuse cross-site mutations. */
+export function assertSameOrigin(req: NextRequest) {
   if (SAFE_METHODS.has(req.method)) return;
   const site = req.headers.get('sec-fetch-site');
   if (site && site !== 'same-origin' && site !== 'none') throw forbidden('Cross-site requests are refused.');
   const origin = req.headers.get('origin');
-  if (origin && origin !== req.nextUrl.origin) throw forbidden('Cross-site requests are refused.');
+  if (!origin) return;
+  let host: string;
+  try {
+    host = new URL(origin).host;
+  } catch {
+    throw forbidden('Cross-site requests are refused.');
+  }
+  if (host !== requestHost(req) && origin !== req.nextUrl.origin) throw forbidden('Cross-site requests are refused.');
 }
 
 /** Wraps a route handler: session (401), permission by role (403), same-origin writes, errors → status. */

@@ -1,0 +1,34 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { invitationState } from '@/lib/server/data/invitations';
+import { SetPasswordForm } from './_components/set-password-form';
+
+export const metadata: Metadata = { title: 'Welcome', robots: { index: false } };
+
+const MESSAGES = {
+  unknown: 'This invitation link is not valid. Check that the whole link was copied, or ask your coordinator for a new one.',
+  used: 'This invitation has already been used. Sign in with the password you chose, or ask your coordinator for a new link.',
+  expired: 'This invitation has expired. Ask your coordinator to send a new one.',
+} as const;
+
+// Public: the token in the path is the only key; it is checked against its stored hash.
+export default async function WelcomePage({ params }: { params: Promise<{ token: string }> }) {
+  const { token } = await params;
+  const invitation = await invitationState(token);
+  return (
+    <main className="mx-auto flex min-h-dvh max-w-md flex-col justify-center px-5 py-10">
+      <h1 className="text-4xl font-bold text-slate">Welcome to Fallbook</h1>
+      {invitation.state === 'valid' ? (
+        <>
+          <p className="mt-2 text-lg">{invitation.name}, choose a password for <strong>{invitation.email}</strong> with {invitation.organisation}.</p>
+          <SetPasswordForm token={token} email={invitation.email ?? ''} />
+        </>
+      ) : (
+        <>
+          <p role="alert" className="mt-4 rounded-md border-2 border-clay bg-white p-3 text-lg font-bold text-clay">{MESSAGES[invitation.state]}</p>
+          <p className="mt-4"><Link href="/login">Go to sign in</Link></p>
+        </>
+      )}
+    </main>
+  );
+}

@@ -1,0 +1,27 @@
+import Link from 'next/link';
+
+const LINKS = [
+  { href: '/office', label: 'Visits' },
+  { href: '/office/visits/new', label: 'Plan a visit' },
+  { href: '/office/map', label: 'Map' },
+  { href: '/office/farms', label: 'Farms' },
+  { href: '/office/people', label: 'People' },
+  { href: '/office/settings', label: 'Settings' },
+];
+
+/** The office's sections, as plain links (each a ≥ 48 px target). */
+export function OfficeNav() {
+  return (
+    <nav aria-label="Office" className="border-b border-rule bg-white">
+      <ul className="mx-auto flex max-w-6xl flex-wrap gap-1 px-4">
+        {LINKS.map((l) => (
+          <li key={l.href}>
+            <Link href={l.href} className="inline-flex min-h-12 items-center px-3 font-bold text-slate no-underline hover:underline">
+              {l.label}
+            </Link>
+          </li>
+        ))}
+      </ul>
+    </nav>
+  );
+}

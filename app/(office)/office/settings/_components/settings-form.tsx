@@ -1,0 +1,69 @@
+'use client';
+
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
+import { useFieldArray, useForm } from 'react-hook-form';
+import { apiJson, applyFieldErrors } from '@/lib/client/api';
+import { settingsSchema, type SettingsInput } from '@/lib/shared/schemas/office';
+
+const field = 'mt-1 block min-h-12 w-full rounded-md border-2 border-stone bg-white px-2 text-lg';
+export interface DemandKindView { kind: string; label: string; unit: string; catalogue: number }
+
+/** The organisation's settings: units, design fraction, per-head demand overrides, pipe prices. */
+export function SettingsForm({ initial, kinds }: { initial: SettingsInput; kinds: DemandKindView[] }) {
+  const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
+  const { register, handleSubmit, formState, setError, control } = useForm<SettingsInput>({ resolver: zodResolver(settingsSchema), defaultValues: initial });
+  const prices = useFieldArray({ control, name: 'pipePrices' });
+  const { errors, isSubmitting } = formState;
+  async function onSubmit(values: SettingsInput) {
+    setMessage(null);
+    // Blank per-head boxes mean "use the catalogue figure".
+    const demandFigures = Object.fromEntries(Object.entries(values.demandFigures).filter(([, v]) => v !== '' && v !== undefined && v !== null));
+    try {
+      await apiJson('/api/organisation/settings', { method: 'PUT', body: { ...values, demandFigures } });
+      setMessage({ ok: true, text: 'Settings saved. New screenings use them.' });
+    } catch (error) {
+      if (!applyFieldErrors(error, setError, ['unitsDefault', 'designFractionOfLowest'])) setMessage({ ok: false, text: error instanceof Error ? error.message : 'Not saved.' });
+    }
+  }
+  return (
+    <form aria-label="Organisation settings" noValidate onSubmit={handleSubmit(onSubmit)} className="space-y-6">
+      <div className="grid max-w-xl gap-4 sm:grid-cols-2">
+        <div><label htmlFor="unitsDefault" className="block font-bold">Units for new accounts</label>
+          <select id="unitsDefault" className={field} {...register('unitsDefault')}><option value="metric">Metric (m, L)</option><option value="us">US customary (ft, gal)</option></select></div>
+        <div><label htmlFor="designFractionOfLowest" className="block font-bold">Design share of the lowest flow</label>
+          <input id="designFractionOfLowest" type="text" inputMode="decimal" className={`${field} figure`} aria-describedby="fraction-help" {...register('designFractionOfLowest')} />
+          <p id="fraction-help" className="text-stone">0.1–0.9 of the driest measured flow; the rest stays in the stream.</p>
+          {errors.designFractionOfLowest && <p className="font-bold text-clay">{errors.designFractionOfLowest.message}</p>}</div>
+      </div>
+      <fieldset className="space-y-2">
+        <legend className="text-lg font-bold">Daily water per head (L/day); blank uses the catalogue figure</legend>
+        <div className="grid gap-2 sm:grid-cols-2 lg:grid-cols-3">
+          {kinds.map((k) => (
+            <label key={k.kind} className="block">
+              <span className="block">{k.label} <span className="figure text-stone">(catalogue {k.catalogue} L/{k.unit}/day)</span></span>
+              <input type="text" inputMode="decimal" className={`${field} figure`} {...register(`demandFigures.${k.kind}` as const)} />
+              {errors.demandFigures?.[k.kind] && <span className="font-bold text-clay">{errors.demandFigures[k.kind]?.message}</span>}
+            </label>
+          ))}
+        </div>
+      </fieldset>
+      <fieldset className="space-y-2">
+        <legend className="text-lg font-bold">Pipe prices for the bill of materials</legend>
+        {prices.fields.map((f, i) => (
+          <div key={f.id} className="grid grid-cols-2 items-end gap-2 sm:grid-cols-5">
+            <label className="block">Material<input className={field} {...register(`pipePrices.${i}.material`)} /></label>
+            <label className="block">Diameter (mm)<input inputMode="decimal" className={`${field} figure`} {...register(`pipePrices.${i}.diameterMm`)} /></label>
+            <label className="block">Price per metre<input inputMode="decimal" className={`${field} figure`} {...register(`pipePrices.${i}.pricePerM`)} /></label>
+            <label className="block">Currency<input className={field} {...register(`pipePrices.${i}.currency`)} /></label>
+            <button type="button" onClick={() => prices.remove(i)} className="min-h-12 rounded-md border-2 border-clay px-3 font-bold text-clay">Remove</button>
+            {errors.pipePrices?.[i] && <p className="col-span-full font-bold text-clay">{Object.values(errors.pipePrices[i] ?? {}).map((e) => (e as { message?: string })?.message).filter(Boolean).join(' ')}</p>}
+          </div>
+        ))}
+        <button type="button" onClick={() => prices.append({ material: '', diameterMm: '', pricePerM: '', currency: 'GBP' } as never)} className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate">Add a pipe price</button>
+      </fieldset>
+      {message && <p role={message.ok ? 'status' : 'alert'} className={`font-bold ${message.ok ? 'text-moss' : 'text-clay'}`}>{message.text}</p>}
+      <button type="submit" disabled={isSubmitting} className="min-h-12 rounded-md bg-slate px-5 text-lg font-bold text-white disabled:opacity-70">{isSubmitting ? 'Saving…' : 'Save settings'}</button>
+    </form>
+  );
+}

@@ -1,0 +1,80 @@
+'use client';
+
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useRouter } from 'next/navigation';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { ApiError, apiJson, applyFieldErrors } from '@/lib/client/api';
+import { visitAssignSchema, type VisitAssignInput } from '@/lib/shared/schemas/office';
+
+const field = 'mt-1 block min-h-12 w-full rounded-md border-2 border-stone bg-white px-2 text-lg';
+
+/** Assign or reassign the visit; the server's "may hold unsynced data" answer becomes a warning to confirm. */
+export function AssignForm({ visitId, advisors, current, mayBeUnsynced }: {
+  visitId: string;
+  advisors: { id: string; name: string }[];
+  current: { advisorId: string | null; plannedOn: string | null };
+  mayBeUnsynced: boolean;
+}) {
+  const router = useRouter();
+  const [warning, setWarning] = useState<string | null>(null);
+  const [done, setDone] = useState<string | null>(null);
+  const [serverError, setServerError] = useState<string | null>(null);
+  const { register, handleSubmit, formState, setError, getValues } = useForm<VisitAssignInput>({
+    resolver: zodResolver(visitAssignSchema),
+    defaultValues: { advisorId: current.advisorId ?? '', plannedOn: current.plannedOn ?? '', confirmUnsynced: false },
+  });
+  const { errors, isSubmitting } = formState;
+
+  async function send(values: VisitAssignInput, confirmUnsynced: boolean) {
+    setServerError(null);
+    setDone(null);
+    try {
+      const { visit } = await apiJson<{ visit: { noticeSent: boolean } }>(`/api/visits/${visitId}/assignment`, { method: 'PUT', body: { ...values, confirmUnsynced } });
+      setWarning(null);
+      setDone(visit.noticeSent ? 'Saved. The advisor has been e-mailed and will see it at the next sync.' : 'Saved.');
+      router.refresh();
+    } catch (error) {
+      if (error instanceof ApiError && error.code === 'unsynced') setWarning(error.message);
+      else if (!applyFieldErrors(error, setError, ['advisorId', 'plannedOn'])) setServerError(error instanceof Error ? error.message : 'Not saved.');
+    }
+  }
+
+  return (
+    <form aria-label="Assign the visit" noValidate onSubmit={handleSubmit((v) => send(v, false))} className="space-y-4 rounded-md border border-rule bg-white p-4">
+      {mayBeUnsynced && (
+        <p className="rounded-md border-2 border-ochre p-3 font-bold text-ochre">
+          ⚠ Nothing has synced from this visit since its planned day: the advisor’s phone may hold readings the office has not seen.
+        </p>
+      )}
+      <div className="grid gap-4 sm:grid-cols-2">
+        <div>
+          <label htmlFor="advisorId" className="block font-bold">Advisor</label>
+          <select id="advisorId" className={field} aria-invalid={!!errors.advisorId} aria-describedby={errors.advisorId ? 'advisorId-error' : undefined} {...register('advisorId')}>
+            <option value="">Choose an advisor…</option>
+            {advisors.map((a) => <option key={a.id} value={a.id}>{a.name}</option>)}
+          </select>
+          {errors.advisorId && <p id="advisorId-error" className="mt-1 font-bold text-clay">{errors.advisorId.message}</p>}
+        </div>
+        <div>
+          <label htmlFor="plannedOn" className="block font-bold">Planned date</label>
+          <input id="plannedOn" type="date" className={field} aria-invalid={!!errors.plannedOn} aria-describedby={errors.plannedOn ? 'plannedOn-error' : undefined} {...register('plannedOn')} />
+          {errors.plannedOn && <p id="plannedOn-error" className="mt-1 font-bold text-clay">{errors.plannedOn.message}</p>}
+        </div>
+      </div>
+      <button type="submit" disabled={isSubmitting} className="min-h-12 rounded-md bg-slate px-5 text-lg font-bold text-white disabled:opacity-70">
+        {isSubmitting ? 'Saving…' : current.advisorId ? 'Save assignment' : 'Assign'}
+      </button>
+      {warning && (
+        <div role="alert" className="rounded-md border-2 border-ochre p-3">
+          <p className="font-bold text-ochre">⚠ {warning}</p>
+          <button type="button" onClick={() => send(getValues(), true)} className="mt-2 min-h-12 rounded-md border-2 border-ochre px-4 font-bold text-ochre">
+            Reassign anyway
+          </button>
+        </div>
+      )}
+      {serverError && <p role="alert" className="font-bold text-clay">{serverError}</p>}
+      {done && <p role="status" className="font-bold text-moss">{done}</p>}
+    </form>
+  );
+}

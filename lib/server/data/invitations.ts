@@ -1,0 +1,98 @@
+import 'server-only';
+import { createHash, randomBytes, randomUUID } from 'node:crypto';
+import { Invitation, Organisation, User, getSequelize } from '@/lib/server/db';
+import type { acceptInvitationSchema, invitationSchema } from '@/lib/shared/schemas/office';
+import type { z } from 'zod';
+import { recordAudit } from '../audit';
+import { hashPassword } from '../auth/passwords';
+import { authorize, type SessionUser } from '../auth/permissions';
+import { AppError, conflict } from '../errors';
+import { sendInvitation } from '../mail/notices';
+
+// A week: long enough for someone who checks mail at the weekend, short enough to go stale.
+export const INVITATION_DAYS = 7;
+
+/** Only the sha-256 of a token is stored: a leaked table does not let anyone in. */
+export const hashToken = (token: string) => createHash('sha256').update(token, 'utf8').digest('hex');
+
+/** Invites a person by e-mail (creating their account without a password) and mails a one-time link. */
+export async function invitePerson(user: SessionUser, input: z.output<typeof invitationSchema>, now = new Date()) {
+  authorize(user, 'people:manage');
+  const token = randomBytes(32).toString('base64url');
+  const expiresAt = new Date(now.getTime() + INVITATION_DAYS * 86_400_000);
+  const { person, invitation, organisation } = await getSequelize().transaction(async (transaction) => {
+    let person = await User.findOne({ where: { email: input.email }, transaction, lock: transaction.LOCK.UPDATE });
+    if (person && person.organisationId !== user.organisationId) throw conflict('That e-mail address already has an account with another organisation.');
+    if (person && person.passwordHash && person.active) throw conflict(`${person.name} already has an active account and can sign in.`);
+    if (person) await person.update({ name: input.name, role: input.role }, { transaction });
+    else {
+      person = await User.create({
+        id: randomUUID(), organisationId: user.organisationId, email: input.email, name: input.name, role: input.role,
+        passwordHash: null, units: null, phone: null, lastSignInAt: null,
+      }, { transaction });
+    }
+    const invitation = await Invitation.create({
+      id: randomUUID(), organisationId: user.organisationId, email: input.email, name: input.name, role: input.role,
+      tokenHash: hashToken(token), invitedById: user.id, userId: person.id, expiresAt, usedAt: null,
+    }, { transaction });
+    await recordAudit({
+      organisationId: user.organisationId, actorId: user.id, entity: 'user', entityId: person.id, action: 'invite',
+      changes: { email: input.email, role: input.role, expiresAt: expiresAt.toISOString() },
+    }, transaction);
+    const organisation = await Organisation.findByPk(user.organisationId, { transaction, rejectOnEmpty: true });
+    return { person, invitation, organisation };
+  });
+  let mailSent = true;
+  try {
+    await sendInvitation({ email: person.email, name: person.name }, token, organisation.name, user.name, expiresAt);
+  } catch (error) {
+    console.error('[fallbook] invitation not sent', error);
+    mailSent = false;
+  }
+  return { id: invitation.id, userId: person.id, email: person.email, expiresAt: expiresAt.toISOString(), mailSent };
+}
+
+export type InvitationState = 'valid' | 'expired' | 'used' | 'unknown';
+
+/** What the welcome page should say about a token (no session: the token is the key). */
+export async function invitationState(token: string, now = new Date()) {
+  const invitation = token.length <= 100 ? await Invitation.findOne({ where: { tokenHash: hashToken(token) } }) : null;
+  if (!invitation) return { state: 'unknown' as InvitationState };
+  const organisation = await Organisation.findByPk(invitation.organisationId);
+  const state: InvitationState = invitation.usedAt ? 'used' : invitation.expiresAt <= now ? 'expired' : 'valid';
+  return { state, name: invitation.name, email: invitation.email, organisation: organisation?.name ?? '' };
+}
+
+const GONE: Record<Exclude<InvitationState, 'valid'>, string> = {
+  unknown: 'This invitation link is not valid. Check that the whole link was copied, or ask for a new one.',
+  used: 'This invitation has already been used. Sign in with the password you chose, or ask for a new link.',
+  expired: 'This invitation has expired. Ask your coordinator to send a new one.',
+};
+
+/** Sets the invited person's password, switches the account on and spends the token, all at once. */
+export async function acceptInvitation(token: string, input: z.output<typeof acceptInvitationSchema>, now = new Date()) {
+  const passwordHash = await hashPassword(input.password);
+  return getSequelize().transaction(async (transaction) => {
+    const invitation = token.length <= 100
+      ? await Invitation.findOne({ where: { tokenHash: hashToken(token) }, transaction, lock: transaction.LOCK.UPDATE })
+      : null;
+    const state: InvitationState = !invitation ? 'unknown' : invitation.usedAt ? 'used' : invitation.expiresAt <= now ? 'expired' : 'valid';
+    if (!invitation || state !== 'valid') throw new AppError(state === 'unknown' ? 404 : 409, `invitation_${state}`, GONE[state as keyof typeof GONE]);
+    const person = invitation.userId ? await User.findByPk(invitation.userId, { transaction, lock: transaction.LOCK.UPDATE }) : null;
+    if (!person) throw new AppError(404, 'invitation_unknown', GONE.unknown);
+    await person.update({ passwordHash, active: true, sessionVersion: person.sessionVersion + 1 }, { transaction });
+    await invitation.update({ usedAt: now }, { transaction });
+    await recordAudit({ organisationId: person.organisationId, actorId: person.id, entity: 'user', entityId: person.id, action: 'accept-invitation', changes: { email: person.email } }, transaction);
+    return { email: person.email, role: person.role };
+  });
+}
+
+/** The organisation's recent invitations for the people page. */
+export async function listInvitations(user: SessionUser, now = new Date()) {
+  authorize(user, 'people:read');
+  const rows = await Invitation.findAll({ where: { organisationId: user.organisationId }, order: [['createdAt', 'DESC']], limit: 50 });
+  return rows.map((i) => ({
+    id: i.id, email: i.email, name: i.name, role: i.role, expiresAt: i.expiresAt.toISOString(),
+    state: (i.usedAt ? 'used' : i.expiresAt <= now ? 'expired' : 'waiting') as 'used' | 'expired' | 'waiting',
+  }));
+}
