@@ -43,8 +43,9 @@ export function niceStep(span: number, target: number): number {
 const run = (pipeM: number, riseM: number): number => (pipeM > Math.abs(riseM) ? Math.sqrt(pipeM ** 2 - riseM ** 2) : Math.max(pipeM, 1));
 
 /** Geometry of the profile in a width × height box (SVG user units or PDF points). */
-export function profileGeometry(p: ProfileInput, units: UnitSystem, width = 640, height = 300): ProfileGeometry {
-  const plot = { x: 56, y: 34, w: width - 56 - 24, h: height - 34 - 40 };
+export function profileGeometry(p: ProfileInput, units: UnitSystem, width = 640, height = 320): ProfileGeometry {
+  // Room above for the intake and tank labels, below for the axis and the ram's label.
+  const plot = { x: 56, y: 44, w: width - 56 - 28, h: height - 44 - 62 };
   const driveRun = run(p.driveLengthM, p.fallM);
   const deliveryRun = run(p.deliveryLengthM, p.staticLiftM);
   const spanX = driveRun + deliveryRun;
@@ -80,4 +81,24 @@ export function profileGeometry(p: ProfileInput, units: UnitSystem, width = 640,
   const exaggeration = ratio > 1.5 ? `Heights drawn ${Math.round(ratio)} × larger than lengths` : ratio < 0.67 ? `Lengths drawn ${Math.round(1 / ratio)} × larger than heights` : '';
   const description = `Elevation profile: the intake is ${nodes[0]?.height}; the water runs down the ${driveLabel.toLowerCase()} to the ram pump, then up the ${deliveryLabel.toLowerCase()} to the tank, ${tank.height}.`;
   return { width, height, plot, nodes, pipes, xGrid, yGrid, exaggeration, description };
+}
+
+export interface LabelAnchor { x: number; y: number; align: 'left' | 'right'; /** SVG text-anchor */ anchor: 'start' | 'end' }
+
+/** Where a point's two-line label goes (top-left corner of a 180-wide box): clear of the pipes. */
+export function nodeLabelAt(g: ProfileGeometry, node: ProfileNode): LabelAnchor {
+  if (node.key === 'tank') return { x: node.x - 204, y: node.y - 36, align: 'right', anchor: 'end' };
+  // The ram sits on the baseline: its label goes under the axis labels.
+  if (node.key === 'pump') return { x: Math.max(node.x - 10, 0), y: g.plot.y + g.plot.h + 22, align: 'left', anchor: 'start' };
+  return { x: Math.max(node.x - 10, 0), y: node.y - 38, align: 'left', anchor: 'start' };
+}
+
+/** Where a pipe's length label goes (a 160-wide box): above the delivery line, beside the drive line. */
+export function profileLabelAt(g: ProfileGeometry, pipe: ProfilePipe): LabelAnchor {
+  const mx = (pipe.x1 + pipe.x2) / 2;
+  const my = (pipe.y1 + pipe.y2) / 2;
+  if (pipe.key === 'delivery') return { x: mx - 166, y: my - 22, align: 'right', anchor: 'end' };
+  // A short drive pipe is labelled beside the ram's label, under the axis.
+  if (Math.abs(pipe.x2 - pipe.x1) < 170) return { x: Math.max(pipe.x2 + 90, 0), y: g.plot.y + g.plot.h + 22, align: 'left', anchor: 'start' };
+  return { x: mx + 8, y: my - 4, align: 'left', anchor: 'start' };
 }
