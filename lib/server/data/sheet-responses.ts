@@ -30,7 +30,7 @@ export async function respondToSheet(user: SessionUser, visitId: string, kind: '
     const created = await SheetResponse.create({ id: crypto.randomUUID(), visitId, screeningId, farmerId: user.id, kind, text }, { transaction });
     if (kind === 'acknowledged') {
       const fresh = await Visit.findByPk(visitId, { transaction, rejectOnEmpty: true });
-      if (fresh.status === 'screened' || fresh.status === 'sent') await fresh.update({ status: 'acknowledged' }, { transaction });
+      if (['surveyed', 'screened', 'sent'].includes(fresh.status)) await fresh.update({ status: 'acknowledged' }, { transaction });
     }
     await recordAudit({ organisationId: visit.organisationId, actorId: user.id, entity: 'sheet_response', entityId: created.id, visitId,
       action: kind === 'acknowledged' ? 'sheet_acknowledged' : 'sheet_question', changes: { screeningId, text } }, transaction);

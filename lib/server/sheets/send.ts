@@ -65,7 +65,7 @@ export async function sendSheet(user: SessionUser, visitId: string, body: SendSh
   await getSequelize().transaction(async (transaction) => {
     if (row.status === 'sent') {
       const visit = await Visit.findByPk(visitId, { transaction, rejectOnEmpty: true });
-      if (visit.status === 'screened') await visit.update({ status: 'sent' }, { transaction });
+      if (visit.status === 'surveyed' || visit.status === 'screened') await visit.update({ status: 'sent' }, { transaction });
     }
     await recordAudit({ organisationId: ctx.visit.organisationId, actorId: user.id, entity: 'sheet_send', entityId: row.id, visitId,
       action: row.status === 'sent' ? 'sheet_sent' : 'sheet_send_failed', changes: { to, paper, error: row.error } }, transaction);

@@ -1,6 +1,6 @@
 // Gives a fixture visit invented field readings and a stored screening (as a sync would).
 import { randomUUID } from 'node:crypto';
-import { DemandLine, FallReading, FlowMeasurement, PipeRun, Point, WaterSource, getSequelize } from '@/lib/server/db';
+import { DemandLine, FallReading, FlowMeasurement, PipeRun, Point, Visit, WaterSource, getSequelize } from '@/lib/server/db';
 import { screenVisit } from '@/lib/server/services/screening';
 
 export async function screenFixtureVisit(visitId: string, farmId: string, advisorId: string): Promise<void> {
@@ -26,5 +26,7 @@ export async function screenFixtureVisit(visitId: string, farmId: string, adviso
     await DemandLine.create({ id: randomUUID(), farmId, kind: 'person-tap-on-plot', count: 3, litresPerHeadPerDay: 50, figureSource: 'who-howard-bartram-2003', note: '', createdById: advisorId }, { transaction });
     const outcome = await screenVisit(visitId, advisorId, transaction);
     if (outcome.status === 'incomplete') throw new Error(`fixture readings incomplete: ${outcome.missing.join('; ')}`);
+    const visit = await Visit.findByPk(visitId, { transaction, rejectOnEmpty: true });
+    await visit.update({ status: 'screened', visitedAt: new Date() }, { transaction });
   });
 }
