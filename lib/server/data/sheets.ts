@@ -9,6 +9,7 @@ type VisitWithFarm = Visit & { Farm?: Farm & { owner?: User | null }; advisor?: 
 
 export interface SheetContext {
   visit: { id: string; organisationId: string; status: Visit['status']; farmId: string };
+  advisorId: string | null;
   farmer: { id: string; name: string; email: string; units: 'metric' | 'us' } | null;
   screeningId: string;
   source: SheetSource;
@@ -48,6 +49,7 @@ export async function loadSheet(user: SessionUser, visitId: string, permission: 
   const pipeLength = (purpose: string) => pipes.find((p) => p.purpose === purpose)?.lengthM ?? null;
   return {
     visit: { id: visit.id, organisationId: visit.organisationId, status: visit.status, farmId: visit.farmId },
+    advisorId: visit.advisorId,
     farmer: owner ? { id: owner.id, name: owner.name, email: owner.email, units: owner.units ?? 'metric' } : null,
     screeningId: screening.id,
     source: {

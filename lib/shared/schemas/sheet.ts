@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { DEMAND_CATALOGUE, type DemandKind } from '@/lib/engine/demand';
+import { parseFieldNumber } from '../units';
 
 // Bodies and queries of the sheet routes, shared by the forms and the handlers.
 export const PAPERS = ['a4', 'letter'] as const;
@@ -23,8 +24,16 @@ export const questionBody = z.object({
 export const ANIMAL_KINDS = (Object.keys(DEMAND_CATALOGUE) as DemandKind[]).filter((k) => !k.startsWith('person') && k !== 'garden-m2');
 export const HOUSEHOLD_KIND: DemandKind = 'person-tap-on-plot';
 
+// Form fields arrive as typed text ("12", "0,5", ""); JSON bodies as numbers. Empty counts as 0.
+const fieldNumber = (value: unknown): unknown => {
+  if (typeof value !== 'string') return value;
+  if (value.trim() === '') return 0;
+  const parsed = parseFieldNumber(value);
+  return parsed.ok ? parsed.value : Number.NaN;
+};
+
 const wholeCount = (what: string, max: number) =>
-  z.number({ message: `Enter how many ${what}, as a number.` }).int(`The number of ${what} must be a whole number.`).min(0, `The number of ${what} cannot be negative.`).max(max, `At most ${max.toLocaleString('en-US')} ${what}.`);
+  z.preprocess(fieldNumber, z.number({ message: `Enter how many ${what}, as a number.` }).int(`The number of ${what} must be a whole number.`).min(0, `The number of ${what} cannot be negative.`).max(max, `At most ${max.toLocaleString('en-US')} ${what}.`));
 
 export const farmNeedsBody = z.object({
   people: wholeCount('people', 500),
@@ -32,7 +41,7 @@ export const farmNeedsBody = z.object({
     kind: z.enum(ANIMAL_KINDS as [DemandKind, ...DemandKind[]], { message: 'Pick a kind of animal from the list.' }),
     count: wholeCount('animals', 100_000),
   })).max(20, 'At most 20 kinds of animal.'),
-  gardenArea: z.number({ message: 'Enter the garden area as a number (0 for none).' }).min(0, 'The garden area cannot be negative.').max(1_000_000),
+  gardenArea: z.preprocess(fieldNumber, z.number({ message: 'Enter the garden area as a number (0 for none).' }).min(0, 'The garden area cannot be negative.').max(1_000_000, 'That garden is larger than a square kilometre: check the number.')),
   gardenUnit: z.enum(['m2', 'ft2']),
   tankSite: z.string().trim().max(300, 'Keep the tank place under 300 characters.'),
 }).refine((b) => new Set(b.animals.map((a) => a.kind)).size === b.animals.length, { message: 'Each kind of animal once, please: add the numbers together.', path: ['animals'] });
