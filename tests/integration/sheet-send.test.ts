@@ -83,6 +83,15 @@ describe('the farmer acknowledges or asks', () => {
     }
   });
 
+  it('a write from another site is refused; the same host by its address (127.0.0.1) is not', async () => {
+    const url = `/api/visits/${id()}/sheet/questions`;
+    const body = { text: 'Is the pipe buried?' };
+    const evil = await postQuestion(await request(url, org.farmer, { method: 'POST', body, headers: { origin: 'http://evil.example', host: '127.0.0.1:3100' } }), params({ id: id() }));
+    expect(evil.status).toBe(403);
+    const same = await postQuestion(await request(url, org.farmer, { method: 'POST', body, headers: { origin: 'http://127.0.0.1:3100', host: '127.0.0.1:3100' } }), params({ id: id() }));
+    expect(same.status).toBe(201);
+  });
+
   it('an empty question is a 422 saying what to do', async () => {
     const res = await postQuestion(await request(`/api/visits/${id()}/sheet/questions`, org.farmer, { method: 'POST', body: { text: ' ' } }), params({ id: id() }));
     expect(res.status).toBe(422);

@@ -14,13 +14,24 @@ export interface AuthedContext<P> {
 
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
+function hostOf(origin: string): string | null {
+  try {
+    return new URL(origin).host;
+  } catch {
+    return null;
+  }
+}
+
 // Route handlers have no CSRF protection of their own: refuse cross-site mutations.
 function assertSameOrigin(req: NextRequest) {
   if (SAFE_METHODS.has(req.method)) return;
   const site = req.headers.get('sec-fetch-site');
   if (site && site !== 'same-origin' && site !== 'none') throw forbidden('Cross-site requests are refused.');
   const origin = req.headers.get('origin');
-  if (origin && origin !== req.nextUrl.origin) throw forbidden('Cross-site requests are refused.');
+  // NextURL reports 127.0.0.1 as "localhost", so compare hosts with the Host header as well.
+  if (origin && origin !== req.nextUrl.origin && hostOf(origin) !== req.headers.get('host')) {
+    throw forbidden('Cross-site requests are refused.');
+  }
 }
 
 /** Wraps a route handler: session (401), permission by role (403), same-origin writes, errors → status. */
