@@ -4,7 +4,9 @@ import { nodeLabelAt, profileLabelAt, type ProfileGeometry } from '@/lib/shared/
 export function ProfileDrawing({ g }: { g: ProfileGeometry }) {
   return (
     <figure className="space-y-2">
-      <svg viewBox={`0 0 ${g.width} ${g.height}`} className="h-auto w-full bg-white" role="img" aria-label={g.description}>
+      {/* Kept wide enough on a phone for its labels to stay readable: scroll sideways if needed. */}
+      <div className="overflow-x-auto print:overflow-visible">
+      <svg viewBox={`0 0 ${g.width} ${g.height}`} className="h-auto w-full min-w-[600px] bg-white print:min-w-0" role="img" aria-label={g.description}>
         {g.yGrid.map((l) => (
           <g key={`y${l.at}`}>
             <line x1={g.plot.x} x2={g.plot.x + g.plot.w} y1={l.at} y2={l.at} stroke="#C9C4B6" strokeWidth={0.8} />
@@ -39,6 +41,7 @@ export function ProfileDrawing({ g }: { g: ProfileGeometry }) {
           );
         })}
       </svg>
+      </div>
       <figcaption className="text-stone">
         {[g.exaggeration, 'Drive pipe solid, delivery pipe dashed.'].filter(Boolean).join('. ')}
       </figcaption>
