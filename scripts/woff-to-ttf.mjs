@@ -1,5 +1,6 @@
 // Unpacks a WOFF (v1) font into the plain TrueType it wraps (each table zlib-inflated), so the
-// PDF renderer reads the fonts from fonts/ without the WOFF path. Usage: node scripts/woff-to-ttf.mjs in.woff out.ttf
+// PDF renderer reads plain TTF from fonts/ (fontkit failed decoding glyphs from the WOFF files).
+// Usage: node scripts/woff-to-ttf.mjs node_modules/@fontsource/<family>/files/<file>.woff fonts/<file>.ttf
 import { readFileSync, writeFileSync } from 'node:fs';
 import { inflateSync } from 'node:zlib';
 
