@@ -3,6 +3,7 @@ import * as m0001 from './0001-people-and-farms';
 import * as m0002 from './0002-site-readings';
 import * as m0003 from './0003-screenings-audit-sync';
 import * as m0004 from './0004-ordered-revisions';
+import * as m0005 from './0005-farmer-sheets';
 import * as m0006 from './0006-office-invitations-and-indexes';
 import * as m0007 from './0007-visit-exposure';
 
@@ -17,6 +18,7 @@ export const MIGRATIONS: { name: string; module: MigrationModule }[] = [
   { name: '0002-site-readings.ts', module: m0002 },
   { name: '0003-screenings-audit-sync.ts', module: m0003 },
   { name: '0004-ordered-revisions.ts', module: m0004 },
+  { name: '0005-farmer-sheets.ts', module: m0005 },
   { name: '0006-office-invitations-and-indexes.ts', module: m0006 },
   { name: '0007-visit-exposure.ts', module: m0007 },
 ];

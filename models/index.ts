@@ -4,6 +4,7 @@ import { AuditEntry } from './audit-entry';
 import { DemandLine } from './demand-line';
 import { FallReading } from './fall-reading';
 import { Farm } from './farm';
+import { FarmNeed } from './farm-need';
 import { FlowMeasurement } from './flow-measurement';
 import { Invitation } from './invitation';
 import { Organisation } from './organisation';
@@ -11,6 +12,8 @@ import { Photo } from './photo';
 import { PipeRun } from './pipe-run';
 import { Point } from './point';
 import { Screening } from './screening';
+import { SheetResponse } from './sheet-response';
+import { SheetSend } from './sheet-send';
 import { SignInAttempt } from './sign-in-attempt';
 import { SyncOp } from './sync-op';
 import { User } from './user';
@@ -21,6 +24,7 @@ export {
   AuditEntry, DemandLine, FallReading, Farm, FlowMeasurement, Invitation, Organisation, Photo, PipeRun, Point,
   Screening, SignInAttempt, SyncOp, User, Visit, WaterSource,
 };
+export { FarmNeed, SheetResponse, SheetSend };
 export type { OrganisationSettings } from './organisation';
 
 /** Models whose rows sync with the phone: each save takes a fresh revision. */
@@ -72,6 +76,7 @@ export function initModels(sequelize: Sequelize) {
   for (const model of [
     Organisation, User, Farm, Visit, WaterSource, FlowMeasurement, FallReading, Point, Photo,
     DemandLine, PipeRun, Screening, AuditEntry, SyncOp, SignInAttempt, Invitation,
+    SheetSend, SheetResponse, FarmNeed,
   ]) model.initModel(sequelize);
 
   Organisation.hasMany(User, { foreignKey: 'organisationId' });

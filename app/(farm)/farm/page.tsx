@@ -1,4 +1,6 @@
 import type { Metadata } from 'next';
+import Link from 'next/link';
+import { VerdictMark } from '@/components/verdict-mark';
 import { VisitTable } from '@/components/visit-table';
 import { requirePageUser } from '@/lib/server/auth/page-guard';
 import { listFarms } from '@/lib/server/data/farms';
@@ -27,10 +29,29 @@ export default async function FarmHome() {
               <span className="mt-1 block">
                 Daily need you told us: <strong className="figure">{formatLitresPerDay(farm.demandLpd)}</strong>
               </span>
+              <Link href={`/farm/farms/${farm.id}/needs`} className="mt-2 inline-flex min-h-12 items-center font-bold">
+                Water needs for {farm.name}
+              </Link>
             </li>
           ))}
         </ul>
       </section>
+      {visits.items.some((v) => v.verdict) && (
+        <section aria-labelledby="sheets" className="space-y-3">
+          <h2 id="sheets" className="text-xl font-bold">Your sheets</h2>
+          <ul className="space-y-2">
+            {visits.items.filter((v) => v.verdict).map((v) => (
+              <li key={v.id} className="flex flex-wrap items-center justify-between gap-3 rounded-md border border-rule bg-white p-4">
+                <span>
+                  <span className="block text-lg font-bold">{v.farm.name}</span>
+                  {v.verdict && <VerdictMark verdict={v.verdict} size={20} />}
+                </span>
+                <Link href={`/sheets/${v.id}`} className="inline-flex min-h-12 items-center font-bold">Read the sheet for {v.farm.name}</Link>
+              </li>
+            ))}
+          </ul>
+        </section>
+      )}
       <section aria-labelledby="visits">
         <h2 id="visits" className="mb-3 text-xl font-bold">Site visits</h2>
         <VisitTable visits={visits.items} caption="Visits to your farms" />

@@ -1,0 +1,57 @@
+import type { Metadata } from 'next';
+import { forbidden, notFound } from 'next/navigation';
+import { requirePageUser } from '@/lib/server/auth/page-guard';
+import { can } from '@/lib/server/auth/permissions';
+import { listSheetResponses } from '@/lib/server/data/sheet-responses';
+import { loadSheet } from '@/lib/server/data/sheets';
+import { AppError } from '@/lib/server/errors';
+import { idParam } from '@/lib/shared/schemas/list-query';
+import { buildSheetView } from '@/lib/shared/sheet/view-model';
+import { FarmerReply } from './_components/farmer-reply';
+import { ResponsesList } from './_components/responses-list';
+import { SendPanel } from './_components/send-panel';
+import { SheetBody } from './_components/sheet-body';
+
+export const metadata: Metadata = { title: 'Site sheet' };
+
+// The data layer's 403/404 become the app's 403 and 404 pages.
+async function loadOrPage(load: () => ReturnType<typeof loadSheet>) {
+  try {
+    return await load();
+  } catch (error) {
+    if (error instanceof AppError && error.status === 403) forbidden();
+    if (error instanceof AppError && error.status === 404) notFound();
+    throw error;
+  }
+}
+
+export default async function SheetPage({ params }: { params: Promise<{ visitId: string }> }) {
+  const { visitId } = await params;
+  const user = await requirePageUser(['coordinator', 'advisor', 'farmer'], `/sheets/${visitId}`);
+  if (!idParam.safeParse({ id: visitId }).success) notFound();
+  const sheet = await loadOrPage(() => loadSheet(user, visitId));
+  const view = buildSheetView(sheet.source, user.units);
+  const responses = await listSheetResponses(user, visitId);
+  const paper = user.units === 'us' ? 'letter' : 'a4';
+  const ownership = { organisationId: sheet.visit.organisationId, ownerId: sheet.farmer?.id ?? null };
+  const canSend = can(user, 'sheet:send', { ...ownership, advisorIds: sheet.advisorId ? [sheet.advisorId] : [] });
+  const canReply = can(user, 'sheet:acknowledge', ownership);
+  return (
+    <div className="space-y-8">
+      <nav aria-label="Sheet as PDF" className="flex flex-wrap gap-3 print:hidden">
+        <a href={`/api/visits/${visitId}/sheet/pdf?paper=${paper}`} download
+          className="inline-flex min-h-12 items-center rounded-md bg-slate px-4 text-lg font-bold text-white no-underline">
+          Download PDF ({paper === 'a4' ? 'A4' : 'US Letter'})
+        </a>
+        <a href={`/api/visits/${visitId}/sheet/pdf?paper=${paper === 'a4' ? 'letter' : 'a4'}`} download
+          className="inline-flex min-h-12 items-center rounded-md border-2 border-slate px-4 font-bold text-slate no-underline">
+          {paper === 'a4' ? 'US Letter' : 'A4'} PDF
+        </a>
+      </nav>
+      <SheetBody v={view} />
+      <ResponsesList responses={responses} />
+      {canReply && <FarmerReply visitId={visitId} acknowledged={responses.some((r) => r.kind === 'acknowledged')} />}
+      {canSend && <SendPanel visitId={visitId} farmerName={sheet.farmer?.name ?? null} farmerEmail={sheet.farmer?.email ?? null} />}
+    </div>
+  );
+}

@@ -1,0 +1,78 @@
+import 'server-only';
+import { SheetSend, Visit, getSequelize } from '@/lib/server/db';
+import type { PaperSize, SendSheetBody } from '@/lib/shared/schemas/sheet';
+import { buildSheetView } from '@/lib/shared/sheet/view-model';
+import type { SessionUser } from '../auth/permissions';
+import { recordAudit } from '../audit';
+import { loadSheet } from '../data/sheets';
+import { appEnv } from '../env';
+import { invalid } from '../errors';
+import { sendMail } from '../mail/transport';
+import { renderSheetPdf } from './pdf';
+
+export interface SheetSendView {
+  id: string;
+  to: string;
+  paper: string;
+  status: string;
+  error: string | null;
+  at: string;
+  sentById: string | null;
+}
+
+/** A send record as the API shows it. */
+export function sendView(row: SheetSend): SheetSendView {
+  return { id: row.id, to: row.toAddress, paper: row.paper, status: row.status, error: row.error, at: row.updatedAt.toISOString(), sentById: row.sentById };
+}
+
+/** The sheet's link and the PDF's file name for a visit. */
+export function sheetLink(visitId: string): string {
+  return `${appEnv().NEXTAUTH_URL.replace(/\/$/, '')}/sheets/${visitId}`;
+}
+
+/**
+ * E-mails the visit's sheet (link + PDF in the farmer's units) to the farmer, or to `to`. Every
+ * attempt is recorded; a refused message is kept as `failed` with the reason, so it can be retried.
+ */
+export async function sendSheet(user: SessionUser, visitId: string, body: SendSheetBody): Promise<SheetSendView> {
+  const ctx = await loadSheet(user, visitId, 'sheet:send');
+  const to = body.to ?? ctx.farmer?.email;
+  if (!to) throw invalid('This farm has no farmer with an e-mail address: enter one.', { to: ['Enter an e-mail address.'] });
+  const units = ctx.farmer?.units ?? 'metric';
+  const paper: PaperSize = body.paper ?? (units === 'us' ? 'letter' : 'a4');
+  const view = buildSheetView(ctx.source, units);
+  const pdf = await renderSheetPdf(view, paper);
+  const row = await SheetSend.create({
+    id: crypto.randomUUID(), visitId, screeningId: ctx.screeningId, sentById: user.id, toAddress: to, paper,
+    status: 'sending', error: null, messageId: null,
+  });
+  const link = sheetLink(visitId);
+  try {
+    const { messageId } = await sendMail({
+      to,
+      subject: `Your water sheet: ${view.farmName} – ${view.verdictWord}`,
+      text: [`Hello${ctx.farmer ? ` ${ctx.farmer.name}` : ''},`, '', `${user.name} sends you the sheet for ${view.farmName}.`, '',
+        view.verdictWord, ...view.summary, '', `Read it, acknowledge it or ask a question here: ${link}`,
+        'The sheet is also attached as a PDF to keep or print.', '',
+        'This is a first check from field readings, not an engineering design.'].join('\n'),
+      attachments: [{ filename: `fallbook-sheet-${slug(view.farmName)}.pdf`, content: pdf, contentType: 'application/pdf' }],
+    });
+    await row.update({ status: 'sent', messageId });
+  } catch (error) {
+    const reason = error instanceof Error ? error.message : String(error);
+    await row.update({ status: 'failed', error: `The mail server did not take the message: ${reason}`.slice(0, 500) });
+  }
+  await getSequelize().transaction(async (transaction) => {
+    if (row.status === 'sent') {
+      const visit = await Visit.findByPk(visitId, { transaction, rejectOnEmpty: true });
+      if (visit.status === 'surveyed' || visit.status === 'screened') await visit.update({ status: 'sent' }, { transaction });
+    }
+    await recordAudit({ organisationId: ctx.visit.organisationId, actorId: user.id, entity: 'sheet_send', entityId: row.id, visitId,
+      action: row.status === 'sent' ? 'sheet_sent' : 'sheet_send_failed', changes: { to, paper, error: row.error } }, transaction);
+  });
+  return sendView(row);
+}
+
+function slug(name: string): string {
+  return name.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'site';
+}

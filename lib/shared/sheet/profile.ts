@@ -1,0 +1,104 @@
+// The elevation profile as geometry: intake → drive pipe → ram → delivery pipe → tank, heights and
+// lengths to scale (each axis its own scale, the vertical exaggeration stated). Drawn by the page
+// (SVG) and by the PDF (pdfkit paths) from the same numbers.
+import type { UnitSystem } from '../domain';
+import { mToFt } from '../units';
+import { length as lengthQ, pipeLength } from './quantities';
+
+export interface ProfileInput {
+  fallM: number;
+  staticLiftM: number;
+  driveLengthM: number;
+  deliveryLengthM: number;
+}
+
+export interface ProfileNode { key: 'intake' | 'pump' | 'tank'; x: number; y: number; label: string; height: string }
+export interface ProfilePipe { key: 'drive' | 'delivery'; x1: number; y1: number; x2: number; y2: number; label: string }
+export interface GridLine { at: number; label: string }
+
+export interface ProfileGeometry {
+  width: number;
+  height: number;
+  plot: { x: number; y: number; w: number; h: number };
+  nodes: ProfileNode[];
+  pipes: ProfilePipe[];
+  xGrid: GridLine[];
+  yGrid: GridLine[];
+  /** "Heights drawn 8 × larger than lengths", or '' when drawn true. */
+  exaggeration: string;
+  /** Accessible description of the drawing in words. */
+  description: string;
+}
+
+/** A "nice" grid step (1, 2 or 5 × 10ⁿ) giving about `target` divisions of `span`. */
+export function niceStep(span: number, target: number): number {
+  if (!(span > 0)) return 1;
+  const raw = span / target;
+  const power = 10 ** Math.floor(Math.log10(raw));
+  const m = raw / power;
+  return (m < 1.5 ? 1 : m < 3.5 ? 2 : m < 7.5 ? 5 : 10) * power;
+}
+
+// Horizontal distance along a pipe laid on a slope: the pipe length is measured along the ground.
+const run = (pipeM: number, riseM: number): number => (pipeM > Math.abs(riseM) ? Math.sqrt(pipeM ** 2 - riseM ** 2) : Math.max(pipeM, 1));
+
+/** Geometry of the profile in a width × height box (SVG user units or PDF points). */
+export function profileGeometry(p: ProfileInput, units: UnitSystem, width = 640, height = 320): ProfileGeometry {
+  // Room above for the intake and tank labels, below for the axis and the ram's label.
+  const plot = { x: 56, y: 44, w: width - 56 - 28, h: height - 44 - 62 };
+  const driveRun = run(p.driveLengthM, p.fallM);
+  const deliveryRun = run(p.deliveryLengthM, p.staticLiftM);
+  const spanX = driveRun + deliveryRun;
+  const spanY = Math.max(p.fallM, p.staticLiftM, 1);
+  const sx = plot.w / spanX;
+  const sy = plot.h / spanY;
+  const X = (m: number) => plot.x + m * sx;
+  const Y = (m: number) => plot.y + plot.h - m * sy;
+  const toUnits = (m: number) => (units === 'us' ? mToFt(m) : m);
+  const fromUnits = (v: number) => (units === 'us' ? v * 0.3048 : v);
+  const unit = units === 'us' ? 'ft' : 'm';
+
+  const stepY = niceStep(toUnits(spanY), 4);
+  const yGrid: GridLine[] = [];
+  for (let v = 0; v <= toUnits(spanY) + 1e-9; v += stepY) yGrid.push({ at: Y(fromUnits(v)), label: `${+v.toFixed(3)} ${unit}` });
+  const stepX = niceStep(toUnits(spanX), 5);
+  const xGrid: GridLine[] = [];
+  for (let v = 0; v <= toUnits(spanX) + 1e-9; v += stepX) xGrid.push({ at: X(fromUnits(v)), label: `${+v.toFixed(3)} ${unit}` });
+
+  const nodes: ProfileNode[] = [
+    { key: 'intake', x: X(0), y: Y(p.fallM), label: 'Intake', height: `${lengthQ(p.fallM, units).text} above the ram` },
+    { key: 'pump', x: X(driveRun), y: Y(0), label: 'Ram pump', height: 'height 0' },
+    { key: 'tank', x: X(spanX), y: Y(p.staticLiftM), label: 'Tank', height: `${lengthQ(p.staticLiftM, units).text} above the ram` },
+  ];
+  const [intake, pump, tank] = nodes as [ProfileNode, ProfileNode, ProfileNode];
+  const driveLabel = `Drive pipe ${pipeLength(p.driveLengthM, units).text}`;
+  const deliveryLabel = `Delivery pipe ${pipeLength(p.deliveryLengthM, units).text}`;
+  const pipes: ProfilePipe[] = [
+    { key: 'drive', x1: intake.x, y1: intake.y, x2: pump.x, y2: pump.y, label: driveLabel },
+    { key: 'delivery', x1: pump.x, y1: pump.y, x2: tank.x, y2: tank.y, label: deliveryLabel },
+  ];
+  const ratio = sy / sx;
+  const exaggeration = ratio > 1.5 ? `Heights drawn ${Math.round(ratio)} × larger than lengths` : ratio < 0.67 ? `Lengths drawn ${Math.round(1 / ratio)} × larger than heights` : '';
+  const description = `Elevation profile: the intake is ${nodes[0]?.height}; the water runs down the ${driveLabel.toLowerCase()} to the ram pump, then up the ${deliveryLabel.toLowerCase()} to the tank, ${tank.height}.`;
+  return { width, height, plot, nodes, pipes, xGrid, yGrid, exaggeration, description };
+}
+
+export interface LabelAnchor { x: number; y: number; align: 'left' | 'right'; /** SVG text-anchor */ anchor: 'start' | 'end' }
+
+/** Where a point's two-line label goes (top-left corner of a 180-wide box): clear of the pipes. */
+export function nodeLabelAt(g: ProfileGeometry, node: ProfileNode): LabelAnchor {
+  if (node.key === 'tank') return { x: node.x - 204, y: node.y - 36, align: 'right', anchor: 'end' };
+  // The ram sits on the baseline: its label goes under the axis labels.
+  if (node.key === 'pump') return { x: Math.max(node.x - 10, 0), y: g.plot.y + g.plot.h + 22, align: 'left', anchor: 'start' };
+  return { x: Math.max(node.x - 10, 0), y: node.y - 38, align: 'left', anchor: 'start' };
+}
+
+/** Where a pipe's length label goes (a 160-wide box): above the delivery line, beside the drive line. */
+export function profileLabelAt(g: ProfileGeometry, pipe: ProfilePipe): LabelAnchor {
+  const mx = (pipe.x1 + pipe.x2) / 2;
+  const my = (pipe.y1 + pipe.y2) / 2;
+  if (pipe.key === 'delivery') return { x: mx - 166, y: my - 22, align: 'right', anchor: 'end' };
+  // A short drive pipe is labelled beside the ram's label, under the axis.
+  if (Math.abs(pipe.x2 - pipe.x1) < 170) return { x: Math.max(pipe.x2 + 90, 0), y: g.plot.y + g.plot.h + 22, align: 'left', anchor: 'start' };
+  return { x: mx + 8, y: my - 4, align: 'left', anchor: 'start' };
+}

@@ -1,0 +1,173 @@
+// The farmer's sheet as display strings: one pure function feeds both the page and the PDF, so
+// they always say the same thing. Every number comes from the stored screening (the engine).
+import type { FigureKey, Screening } from '@/lib/engine/screening-types';
+import type { UnitSystem, Verdict } from '../domain';
+import { formatDay } from '../format';
+import { profileGeometry, type ProfileGeometry } from './profile';
+import { aboutDaily, aboutNumber, length, perDay, perMinute, pipeLength, pressureHead, volume } from './quantities';
+import { siteMapGeometry, type SiteMapGeometry } from './site-map';
+
+/** What the server hands over for one sheet: the stored screening and who/where/when. */
+export interface SheetSource {
+  visitId: string;
+  farm: { name: string; area: string; ownerName: string | null };
+  advisorName: string | null;
+  visitedAt: string | null;
+  screenedAt: string;
+  screening: Screening;
+  points: { role: string; label: string; lat: number | null; lon: number | null }[];
+  pipeLengthsM: { drive: number | null; delivery: number | null };
+  demandKinds: string[];
+}
+
+export interface SheetFigure { key: string; label: string; value: string; note: string }
+export interface SheetCaution { code: string; title: string; text: string }
+export interface SheetBomLine { item: string; size: string; quantity: string; note: string }
+
+export interface SheetView {
+  visitId: string;
+  units: UnitSystem;
+  farmName: string;
+  area: string;
+  ownerName: string | null;
+  verdict: Verdict;
+  verdictWord: string;
+  summary: [string, string];
+  figures: SheetFigure[];
+  reasons: string[];
+  conditions: string[];
+  billOfMaterials: SheetBomLine[];
+  cautions: SheetCaution[];
+  surveyed: string;
+  engineVersion: string;
+  method: string[];
+  sources: { id: string; citation: string }[];
+  profile: ProfileGeometry | null;
+  map: SiteMapGeometry | null;
+}
+
+export const VERDICT_WORDS: Record<Verdict, string> = { go: 'Go', conditional: 'Go, with conditions', 'no-go': 'No-go' };
+
+const CAUTION_TITLES: Record<string, string> = {
+  NOT_A_DESIGN: 'A first check, not a design',
+  SURGE_PRESSURE: 'Pressure surges and pipe rating',
+  WORKING_IN_WATER: 'Floods, working in water, frost',
+  PERMITS: 'Water rights and permits',
+  UNTREATED_WATER: 'Drinking water',
+};
+
+/** Who the water is for, in words: "your household and animals", "your garden". */
+export function needPhrase(kinds: string[]): string {
+  const parts: string[] = [];
+  if (kinds.some((k) => k.startsWith('person'))) parts.push('household');
+  if (kinds.some((k) => !k.startsWith('person') && k !== 'garden-m2')) parts.push('animals');
+  if (kinds.includes('garden-m2')) parts.push('garden');
+  if (parts.length === 0) return 'your needs come to';
+  const joined = parts.length === 1 ? parts[0] : `${parts.slice(0, -1).join(', ')} and ${parts[parts.length - 1]}`;
+  return `your ${joined} need`;
+}
+
+/** The two-sentence summary at the top of the sheet. */
+export function summarySentences(s: SheetSource, units: UnitSystem): [string, string] {
+  const f = s.screening.figures;
+  const delivery = f.deliveryLpd?.value ?? 0;
+  const demand = f.demandLpd?.value ?? 0;
+  const tank = s.points.find((p) => p.role === 'tank')?.label.trim();
+  const where = tank ? `the tank (${tank.charAt(0).toLowerCase()}${tank.slice(1)})` : 'the tank';
+  const first = `This site can deliver ${aboutDaily(delivery, units)} a day to ${where}; ${needPhrase(s.demandKinds)} about ${aboutNumber(demand, units)}.`;
+  const verdict = s.screening.verdict;
+  const second =
+    verdict === 'go'
+      ? 'A ram pump should do the job here; read the cautions before anything is bought or built.'
+      : verdict === 'conditional'
+        ? 'A ram pump can do the job here if the conditions on this sheet are met first.'
+        : 'As measured, a ram pump will not do the job here; the reasons are on this sheet.';
+  return [first, second];
+}
+
+/** A probability in words a reader trusts: whole per cent, never a flat "100 %" or "0 %". */
+export function chance(p: number): string {
+  if (p >= 0.995) return 'over 99 %';
+  if (p <= 0.005) return 'under 1 %';
+  return `${Math.round(p * 100)} %`;
+}
+
+function keyFigures(s: SheetSource, units: UnitSystem): SheetFigure[] {
+  const f = s.screening.figures;
+  const out: SheetFigure[] = [];
+  const add = (key: FigureKey, label: string, show: (v: number) => string, note = '') => {
+    const v = f[key]?.value;
+    if (v !== null && v !== undefined) out.push({ key, label, value: show(v), note });
+  };
+  add('fallM', 'Fall (intake to ram)', (v) => length(v, units).text, 'Drives the ram');
+  add('designFlowLpm', 'Design flow', (v) => perMinute(v, units).text, 'Part of the driest flow measured');
+  add('totalLiftM', 'Lift (ram to tank)', (v) => length(v, units).text, 'Height plus pipe friction');
+  add('liftRatio', 'Lift ratio', (v) => `${v.toFixed(1)} to 1`, 'Lift ÷ fall');
+  add('deliveryLpd', 'Delivery per day', (v) => perDay(v, units).text, 'Ram running day and night');
+  add('demandLpd', 'Demand per day', (v) => perDay(v, units).text, 'What you told us you need');
+  add('demandMarginLpd', 'Margin', (v) => (v >= 0 ? `${perDay(v, units).text} to spare` : `${perDay(-v, units).text} short`), 'Delivery minus demand');
+  add('probabilityMeetsDemand', 'Chance of meeting demand', chance, 'Allowing for measuring error');
+  add('tankL', 'Tank', (v) => volume(v, units).text, 'Storage to size for');
+  add('peakPressureHeadM', 'Pressure at the ram', (v) => pressureHead(v, units), 'Lift plus surge: rate pipe and ram for it');
+  add('drivePipeRatingM', 'Drive pipe rated for', (v) => pressureHead(v, units));
+  return out;
+}
+
+function billOfMaterials(s: SheetSource, units: UnitSystem): SheetBomLine[] {
+  const tankL = s.screening.figures.tankL?.value;
+  return s.screening.billOfMaterials.map((line) => {
+    const quantity = line.unit === 'm' ? pipeLength(line.quantity, units).text : `${line.quantity} ${line.unit}`;
+    const size = line.item.startsWith('Storage tank') && tankL != null ? volume(tankL, units).text : line.size;
+    return { item: line.item, size, quantity, note: line.note };
+  });
+}
+
+function methodNotes(s: SheetSource): string[] {
+  const f = s.screening.figures;
+  const rule = (key: FigureKey) => f[key]?.rule;
+  const mc = s.screening.monteCarlo;
+  return [
+    rule('fallM') && `Fall — ${rule('fallM')}.`,
+    rule('designFlowLpm') && `Design flow — ${rule('designFlowLpm')}, the driest flow measured.`,
+    rule('staticLiftM') && `Lift — ${rule('staticLiftM')}; then ${rule('totalLiftM')?.toLowerCase()}.`,
+    rule('deliveryLpm') && `Delivery — ${rule('deliveryLpm')}, the ram's efficiency from a published curve (${rule('efficiency')}).`,
+    rule('demandLpd') && `Demand — ${rule('demandLpd')}, from published daily figures.`,
+    `Chance of meeting demand — the readings were varied within their measuring error ${mc.samples.toLocaleString('en-US')} times; the share of those runs that met demand is shown.`,
+  ].filter((line): line is string => typeof line === 'string' && line.length > 0);
+}
+
+/** Builds the sheet's display strings and drawings for a reader with the given unit preference. */
+export function buildSheetView(s: SheetSource, units: UnitSystem): SheetView {
+  const sc = s.screening;
+  const fig = (key: FigureKey) => sc.figures[key]?.value ?? null;
+  const fall = fig('fallM');
+  const lift = fig('staticLiftM');
+  const driveM = s.pipeLengthsM.drive ?? fig('driveLengthM');
+  const deliveryM = s.pipeLengthsM.delivery;
+  const profile = fall !== null && lift !== null && driveM && deliveryM
+    ? profileGeometry({ fallM: fall, staticLiftM: lift, driveLengthM: driveM, deliveryLengthM: deliveryM }, units)
+    : null;
+  const located = s.points.filter((p): p is typeof p & { lat: number; lon: number } => p.lat !== null && p.lon !== null);
+  const visited = s.visitedAt ? formatDay(s.visitedAt) : 'a date not recorded';
+  return {
+    visitId: s.visitId,
+    units,
+    farmName: s.farm.name,
+    area: s.farm.area,
+    ownerName: s.farm.ownerName,
+    verdict: sc.verdict,
+    verdictWord: VERDICT_WORDS[sc.verdict],
+    summary: summarySentences(s, units),
+    figures: keyFigures(s, units),
+    reasons: sc.reasons.map((r) => r.text),
+    conditions: sc.conditions.map((c) => c.text),
+    billOfMaterials: billOfMaterials(s, units),
+    cautions: sc.cautions.map((c) => ({ code: c.code, title: CAUTION_TITLES[c.code] ?? 'Caution', text: c.text })),
+    surveyed: `Surveyed by ${s.advisorName ?? 'an advisor'} on ${visited}; screened on ${formatDay(s.screenedAt)}.`,
+    engineVersion: sc.engineVersion,
+    method: methodNotes(s),
+    sources: sc.sources.map((src) => ({ id: src.id, citation: src.citation })),
+    profile,
+    map: siteMapGeometry(located.map((p) => ({ role: p.role, label: p.label, lat: p.lat, lon: p.lon })), units),
+  };
+}

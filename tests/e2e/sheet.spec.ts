@@ -1,0 +1,93 @@
+import { readFileSync } from 'node:fs';
+import { expect, test, type Page } from '@playwright/test';
+
+const PASSWORD = 'fallbook-demo';
+const shots = process.env.SHEET_SCREENSHOTS_DIR; // set by hand to look at the pages
+
+async function signIn(page: Page, email: string) {
+  await page.goto('/login');
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page).not.toHaveURL(/\/login/);
+}
+
+test('a farmer enters needs, and the advisor gets them as demand lines from the server', async ({ page, browser }) => {
+  await signIn(page, 'gwen@wenlow-water.test');
+  await page.getByRole('link', { name: "Water needs for Pryce's Upper Field" }).click();
+  await expect(page.getByRole('heading', { level: 1 })).toContainText("Pryce's Upper Field");
+  const farmId = page.url().match(/farms\/([0-9a-f-]{36})\/needs/)?.[1];
+  expect(farmId).toBeTruthy();
+  await page.getByLabel('People in the household').fill('5');
+  // The demo farm has goats; change their number and add hens.
+  const counts = page.getByLabel('How many');
+  await counts.first().fill('46');
+  await page.getByRole('button', { name: 'Add animals' }).click();
+  await page.getByLabel('Kind').last().selectOption({ label: 'Laying hen' });
+  await counts.last().fill('12');
+  await page.getByLabel('Garden to water').fill('80');
+  await page.getByLabel('Where should the tank be?').fill('Ridge behind the house');
+  await page.getByRole('button', { name: 'Save my needs' }).click();
+  await expect(page.getByRole('status')).toContainText('Saved');
+
+  const advisor = await browser.newContext();
+  const advisorPage = await advisor.newPage();
+  await signIn(advisorPage, 'tobias@wenlow-water.test');
+  const res = await advisorPage.request.get(`/api/farms/${farmId}/demand`);
+  expect(res.status()).toBe(200);
+  const { needs } = await res.json();
+  const counted = Object.fromEntries(needs.lines.map((l: { kind: string; count: number }) => [l.kind, l.count]));
+  expect(counted).toMatchObject({ goat: 46, 'laying-hen': 12, 'garden-m2': 80, 'person-tap-on-plot': 5 });
+  expect(needs.tankSite).toBe('Ridge behind the house');
+  await advisor.close();
+});
+
+test('a farmer opens their sheet, downloads the PDF and acknowledges it', async ({ page }) => {
+  await signIn(page, 'hallie@wenlow-water.test');
+  await page.getByRole('link', { name: 'Read the sheet for Brandt Hollow' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: 'Brandt Hollow' })).toBeVisible();
+  await expect(page.getByTestId('verdict')).toHaveText(/Go/);
+  await expect(page.getByText(/This site can deliver about [\d,]+ litres a day/)).toBeVisible();
+  await expect(page.getByRole('img', { name: /Elevation profile/ })).toBeVisible();
+  await expect(page.getByRole('heading', { name: 'Cautions' })).toBeVisible();
+  if (shots) {
+    await page.screenshot({ path: `${shots}/sheet-phone.png`, fullPage: true });
+    await page.emulateMedia({ media: 'print' });
+    await page.screenshot({ path: `${shots}/sheet-print.png`, fullPage: true });
+    await page.emulateMedia({ media: 'screen' });
+  }
+
+  const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'Download PDF (A4)' }).click()]);
+  const pdf = readFileSync(await download.path());
+  expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+  expect(download.suggestedFilename()).toMatch(/\.pdf$/);
+
+  await page.getByRole('button', { name: 'I have read this sheet' }).click();
+  await expect(page.getByText('You acknowledged this sheet.')).toBeVisible();
+  await page.getByLabel('Ask your advisor a question').fill('Could the tank sit nearer the yard?');
+  await page.getByRole('button', { name: 'Send question' }).click();
+  await expect(page.getByRole('region', { name: 'Questions and answers' })).toContainText('Could the tank sit nearer the yard?');
+});
+
+test("another farmer cannot open someone else's sheet", async ({ page, browser }) => {
+  await signIn(page, 'hallie@wenlow-water.test');
+  await page.getByRole('link', { name: 'Read the sheet for Brandt Hollow' }).click();
+  await expect(page).toHaveURL(/\/sheets\//);
+  const other = await browser.newContext();
+  const otherPage = await other.newPage();
+  await signIn(otherPage, 'gwen@wenlow-water.test');
+  const response = await otherPage.goto(page.url());
+  expect(response?.status()).toBe(403);
+  await expect(otherPage.getByRole('heading', { name: 'This page is not for your account' })).toBeVisible();
+  await other.close();
+});
+
+test('the coordinator sends a demo sheet to the farmer and sees it recorded', async ({ page }) => {
+  await signIn(page, 'maren@wenlow-water.test');
+  const list = await (await page.request.get('/api/visits?pageSize=100')).json();
+  const visit = list.items.find((v: { farm: { name: string } }) => v.farm.name === "Pryce's Upper Field");
+  await page.goto(`/sheets/${visit.id}`);
+  await expect(page.getByRole('heading', { level: 1, name: "Pryce's Upper Field" })).toBeVisible();
+  await page.getByRole('button', { name: /Send to Gwen Pryce/ }).click();
+  await expect(page.getByRole('list', { name: 'Sends of this sheet' })).toContainText('Sent to gwen@wenlow-water.test');
+});
