@@ -27,6 +27,9 @@ export default defineConfig({
     command: `node node_modules/next/dist/bin/next start -H 127.0.0.1 -p ${port}`,
     url: `${baseURL}/api/health`,
     reuseExistingServer: false,
+    // Server errors show in the test output, prefixed [WebServer].
+    stdout: 'pipe',
+    stderr: 'pipe',
     timeout: 60_000,
     env: { ...(process.env as Record<string, string>), NODE_ENV: 'production' },
   },

@@ -10,6 +10,7 @@ import { hasUnsavedInput } from '@/lib/client/dirty';
  */
 export function ServiceWorkerRegister() {
   const workbox = useRef<Workbox | null>(null);
+  const updateAccepted = useRef(false);
   const [waiting, setWaiting] = useState(false);
   const [blocked, setBlocked] = useState(false);
 
@@ -18,7 +19,11 @@ export function ServiceWorkerRegister() {
     void import('workbox-window').then(({ Workbox }) => {
       const wb = new Workbox('/sw.js', { scope: '/' });
       wb.addEventListener('waiting', () => setWaiting(true));
-      wb.addEventListener('controlling', () => window.location.reload());
+      // Reload only for an update the person accepted: the first install also takes control
+      // (clientsClaim), and reloading then would throw away whatever they were typing.
+      wb.addEventListener('controlling', () => {
+        if (updateAccepted.current) window.location.reload();
+      });
       workbox.current = wb;
       void wb.register();
     });
@@ -32,6 +37,7 @@ export function ServiceWorkerRegister() {
         <button type="button" className="min-h-12 rounded-md bg-slate px-4 font-bold text-white"
           onClick={() => {
             if (hasUnsavedInput()) return setBlocked(true);
+            updateAccepted.current = true;
             workbox.current?.messageSkipWaiting();
           }}>
           Update now

@@ -6,6 +6,7 @@ import * as m0004 from './0004-ordered-revisions';
 import * as m0005 from './0005-farmer-sheets';
 import * as m0006 from './0006-office-invitations-and-indexes';
 import * as m0007 from './0007-visit-exposure';
+import * as m0008 from './0008-millisecond-times';
 
 export interface MigrationModule {
   up(params: { context: QueryInterface }): Promise<void>;
@@ -21,4 +22,5 @@ export const MIGRATIONS: { name: string; module: MigrationModule }[] = [
   { name: '0005-farmer-sheets.ts', module: m0005 },
   { name: '0006-office-invitations-and-indexes.ts', module: m0006 },
   { name: '0007-visit-exposure.ts', module: m0007 },
+  { name: '0008-millisecond-times.ts', module: m0008 },
 ];

@@ -26,7 +26,7 @@ export class AuditEntry extends Model<InferAttributes<AuditEntry>, InferCreation
         visitId: { type: DataTypes.UUID, allowNull: true },
         action: { type: DataTypes.STRING(32), allowNull: false },
         changes: { type: DataTypes.JSON, allowNull: true },
-        createdAt: DataTypes.DATE,
+        createdAt: DataTypes.DATE(3),
       },
       { sequelize, modelName: 'AuditEntry', tableName: 'audit_log', underscored: true, updatedAt: false },
     );

@@ -31,7 +31,7 @@ export class Screening extends Model<InferAttributes<Screening>, InferCreationAt
         probabilityMeetsDemand: { type: DataTypes.DOUBLE, allowNull: true },
         deliveryLpd: { type: DataTypes.DOUBLE, allowNull: true },
         demandLpd: { type: DataTypes.DOUBLE, allowNull: true },
-        createdAt: DataTypes.DATE,
+        createdAt: DataTypes.DATE(3),
       },
       { sequelize, modelName: 'Screening', tableName: 'screenings', underscored: true, updatedAt: false },
     );

@@ -23,7 +23,7 @@ export class SheetResponse extends Model<InferAttributes<SheetResponse>, InferCr
         farmerId: { type: DataTypes.UUID, allowNull: false },
         kind: { type: DataTypes.STRING(12), allowNull: false },
         text: { type: DataTypes.TEXT, allowNull: false },
-        createdAt: DataTypes.DATE,
+        createdAt: DataTypes.DATE(3),
       },
       { sequelize, modelName: 'SheetResponse', tableName: 'sheet_responses', underscored: true, updatedAt: false },
     );

@@ -30,8 +30,8 @@ export class SheetSend extends Model<InferAttributes<SheetSend>, InferCreationAt
         status: { type: DataTypes.STRING(8), allowNull: false },
         error: { type: DataTypes.STRING(500), allowNull: true },
         messageId: { type: DataTypes.STRING(255), allowNull: true },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
+        createdAt: DataTypes.DATE(3),
+        updatedAt: DataTypes.DATE(3),
       },
       { sequelize, modelName: 'SheetSend', tableName: 'sheet_sends', underscored: true },
     );

@@ -43,7 +43,9 @@ try {
     ]);
     const report = readJson(out);
     const passed = report?.numPassedTests ?? 0;
-    let failed = (report?.numFailedTests ?? 0) + (report?.numFailedTestSuites ?? 0);
+    // Files that failed without a failing test (e.g. an import error) count once each.
+    const brokenFiles = (report?.testResults ?? []).filter((f) => f.status === 'failed' && !f.assertionResults?.some((a) => a.status === 'failed')).length;
+    let failed = (report?.numFailedTests ?? 0) + brokenFiles;
     if (code !== 0 && failed === 0) failed = 1; // the runner itself failed
     totals.passed += passed;
     totals.failed += failed;

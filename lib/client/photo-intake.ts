@@ -33,12 +33,12 @@ export async function readPhoto(file: File): Promise<PhotoIntake> {
   let lon: number | null = null;
   let takenAt: string | null = null;
   try {
-    const tags = (await exifr.parse(data, { gps: true, pick: ['DateTimeOriginal', 'latitude', 'longitude', 'ExifImageWidth', 'ExifImageHeight'] })) as
-      { latitude?: number; longitude?: number; DateTimeOriginal?: Date } | undefined;
-    if (tags && Number.isFinite(tags.latitude) && Number.isFinite(tags.longitude)) {
-      lat = tags.latitude ?? null;
-      lon = tags.longitude ?? null;
+    const gps = (await exifr.gps(data)) as { latitude?: number; longitude?: number } | undefined;
+    if (gps && Number.isFinite(gps.latitude) && Number.isFinite(gps.longitude)) {
+      lat = gps.latitude ?? null;
+      lon = gps.longitude ?? null;
     }
+    const tags = (await exifr.parse(data, ['DateTimeOriginal'])) as { DateTimeOriginal?: Date } | undefined;
     if (tags?.DateTimeOriginal instanceof Date && !Number.isNaN(tags.DateTimeOriginal.getTime())) takenAt = tags.DateTimeOriginal.toISOString();
   } catch {
     // No EXIF (screenshots, some galleries strip it): fall back below.

@@ -2,7 +2,7 @@
 import type { OpResult } from '@/lib/shared/schemas/sync';
 import { fieldDb, TABLE_OF, type OutboxEntry } from '../db';
 import { backoffMs } from './backoff';
-import { requestJson, SyncHttpError } from './transport';
+import { OfflineError, requestJson, SyncHttpError } from './transport';
 
 export const PUSH_BATCH = 100;
 
@@ -56,11 +56,14 @@ export async function deferEntries(entries: OutboxEntry[], now = Date.now()): Pr
   });
 }
 
-/** Pushes everything ready; returns how many ops the server acknowledged. Throws on 401/offline. */
-export async function pushAll(): Promise<number> {
+/**
+ * Pushes everything ready (everything waiting when `force`, e.g. the "Sync now" button); returns how
+ * many ops the server acknowledged. Throws on 401 and when offline.
+ */
+export async function pushAll(force = false): Promise<number> {
   let acknowledged = 0;
   for (;;) {
-    const batch = await readyOps(PUSH_BATCH);
+    const batch = await readyOps(PUSH_BATCH, force ? Number.POSITIVE_INFINITY : Date.now());
     if (batch.length === 0) return acknowledged;
     try {
       const results = await postBatch(batch);
@@ -72,7 +75,8 @@ export async function pushAll(): Promise<number> {
         for (const entry of batch) acknowledged += await pushSingle(entry);
         continue;
       }
-      if (error instanceof SyncHttpError && error.status === 401) throw error;
+      // No signal is not the server's fault: no backoff, the next trigger (e.g. `online`) retries.
+      if (error instanceof OfflineError || (error instanceof SyncHttpError && error.status === 401)) throw error;
       await deferEntries(batch);
       throw error;
     }

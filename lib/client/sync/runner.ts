@@ -11,10 +11,10 @@ export const SYNC_LOCK = 'fallbook-sync';
 
 export type SyncOutcome = SyncRecord | { skipped: 'busy' };
 
-async function runOnce(onProgress?: UploadProgress): Promise<SyncRecord> {
+async function runOnce(onProgress?: UploadProgress, force = false): Promise<SyncRecord> {
   const record: SyncRecord = { at: new Date().toISOString(), ok: false, message: null, pushed: 0, pulled: 0, photos: 0 };
   try {
-    record.pushed = await pushAll();
+    record.pushed = await pushAll(force);
     record.photos = await uploadPhotos(onProgress);
     record.pulled = await pullAll();
     // Photos whose metadata went up in this run.
@@ -37,11 +37,15 @@ async function runOnce(onProgress?: UploadProgress): Promise<SyncRecord> {
   return record;
 }
 
-/** Runs a sync unless one is already running (here or in another tab or the worker). */
-export async function runSync(onProgress?: UploadProgress): Promise<SyncOutcome> {
+/**
+ * Runs a sync unless one is already running (here, in another tab or in the worker). `force`
+ * (the person pressed "Sync now") also sends what waits out a retry delay.
+ */
+export async function runSync(onProgress?: UploadProgress, force = false): Promise<SyncOutcome> {
   const locks = typeof navigator !== 'undefined' ? navigator.locks : undefined;
-  if (!locks) return runOnce(onProgress);
-  const outcome = await locks.request(SYNC_LOCK, { ifAvailable: true }, async (lock) => (lock ? runOnce(onProgress) : null));
+  if (!locks) return runOnce(onProgress, force);
+  // A pressed button waits for a running sync to finish, then runs; automatic triggers skip.
+  const outcome = await locks.request(SYNC_LOCK, force ? {} : { ifAvailable: true }, async (lock) => (lock ? runOnce(onProgress, force) : null));
   return outcome ?? { skipped: 'busy' };
 }
 

@@ -10,14 +10,14 @@ const TIMER_MS = 60_000;
 type SyncRegistration = ServiceWorkerRegistration & { sync?: { register(tag: string): Promise<void> } };
 
 /** Asks for a sync now; resolves when this context's run (if any) finishes. */
-export async function requestSync(onProgress?: UploadProgress): Promise<SyncOutcome | null> {
+export async function requestSync(onProgress?: UploadProgress, force = false): Promise<SyncOutcome | null> {
   if ('serviceWorker' in navigator && navigator.serviceWorker.controller) {
     const registration = (await navigator.serviceWorker.ready) as SyncRegistration;
     // Background Sync (Chromium) retries even after the page is closed.
     await registration.sync?.register(SYNC_TAG).catch(() => undefined);
   }
   // The page runs the loop itself too: it has upload progress, and the Web Lock keeps it single.
-  return runSync(onProgress);
+  return runSync(onProgress, force);
 }
 
 /** Wires the automatic triggers; returns a function that unwires them. */

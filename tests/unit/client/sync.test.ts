@@ -37,11 +37,11 @@ describe('push', () => {
     expect((await db.waterSources.toArray()).every((s) => s.rev > 0)).toBe(true);
   });
 
-  it('keeps everything and backs off when the network fails', async () => {
+  it('keeps everything and backs off when the server fails', async () => {
     const server = fakeServer();
     await note(1);
-    server.failNextWith(0);
-    await expect(pushAll()).rejects.toThrow(/No connection/);
+    server.failNextWith(500);
+    await expect(pushAll()).rejects.toThrow();
     const [entry] = await db.outbox.toArray();
     expect(entry?.attempts).toBe(1);
     expect(entry?.nextAttemptAt).toBeGreaterThan(Date.now());
@@ -127,5 +127,26 @@ describe('pull', () => {
     await mergePull(page);
     expect(await db.visits.get(VISIT)).toBeDefined();
     expect(await db.visits.get('77777777-7777-4777-8777-777777777777')).toBeUndefined();
+  });
+});
+
+describe('no signal is not a server failure', () => {
+  it('an offline attempt adds no retry delay, so the first run back in coverage sends everything', async () => {
+    const server = fakeServer();
+    await note(1);
+    server.failNextWith(0);
+    await expect(pushAll()).rejects.toThrow(/No connection/);
+    const [entry] = await db.outbox.toArray();
+    expect(entry?.attempts).toBe(0);
+    expect(await pushAll()).toBe(1);
+  });
+
+  it('a server error backs off, but the "Sync now" button (force) still sends at once', async () => {
+    const server = fakeServer();
+    await note(1);
+    server.failNextWith(503);
+    await expect(pushAll()).rejects.toThrow();
+    expect(await pushAll()).toBe(0);
+    expect(await pushAll(true)).toBe(1);
   });
 });

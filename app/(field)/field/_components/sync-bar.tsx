@@ -34,7 +34,7 @@ export function SyncBar() {
   async function syncNow() {
     setBusy(true);
     try {
-      await requestSync((_, sent, total) => setProgress({ sent, total }));
+      await requestSync((_, sent, total) => setProgress({ sent, total }), true);
     } finally {
       setBusy(false);
       setProgress(null);

@@ -32,11 +32,13 @@ function PhotosPage() {
     return Promise.all(rows.map(async (p) => ({ ...p, uploaded: (await db.photoBlobs.get(p.id))?.uploadedAt ?? (p.rev > 0 ? 'server' : null) })));
   }, [visitId]);
 
-  async function add(files: FileList | null) {
-    if (!files?.length) return;
+  async function add(list: FileList | null) {
+    // Copy first: clearing the input empties the live FileList.
+    const files = Array.from(list ?? []);
+    if (!files.length) return;
     setBusy(true);
     const problems: string[] = [];
-    for (const file of Array.from(files)) {
+    for (const file of files) {
       try {
         const { data, fields } = await readPhoto(file);
         await savePhoto(newId(), { ...fields, visitId, pointId: null, caption: file.name.slice(0, 300) }, data);
