@@ -36,7 +36,8 @@ test('a coordinator assigns a visit to an advisor; the advisor sees it on their 
   const field = await newPage(browser);
   await signIn(field.page, 'tobias@wenlow-water.test');
   await expect(field.page).toHaveURL(/\/field$/);
-  await expect(field.page.getByRole('table', { name: 'Visits assigned to you' })).toContainText('Cwm Rhyd paddock');
+  // The field book pulls the new assignment into the phone's database at its first sync.
+  await expect(field.page.getByRole('link', { name: /Cwm Rhyd paddock/ })).toBeVisible({ timeout: 15_000 });
   await office.context.close();
   await field.context.close();
 });
