@@ -49,6 +49,8 @@ function VisitOverview() {
         ))}
       </ul>
       <ScreenPreview visitId={id} />
+      {/* The sheet is rendered by the server from the stored screening: it needs a signal. */}
+      <p><a href={`/sheets/${id}`} className="text-lg font-bold">The farmer&apos;s sheet (needs a signal)</a></p>
     </div>
   );
 }

@@ -36,7 +36,7 @@ export default async function OfficeVisitPage({ params }: { params: Promise<{ id
           <div><dt className="text-stone">State</dt><dd><StatusChip status={visit.status} /></dd></div>
           <div><dt className="text-stone">Advisor</dt><dd className="font-bold">{visit.advisor?.name ?? 'Not assigned'}</dd></div>
           <div><dt className="text-stone">Planned</dt><dd className="figure">{formatDay(visit.plannedOn)}{visit.overdue && <strong className="ml-2 text-clay">⚠ Overdue</strong>}</dd></div>
-          <div><dt className="text-stone">Screening</dt><dd>{visit.verdict ? <VerdictMark verdict={visit.verdict} size={18} /> : 'Not screened'}</dd></div>
+          <div><dt className="text-stone">Screening</dt><dd>{visit.verdict ? <><VerdictMark verdict={visit.verdict} size={18} /> <Link href={`/sheets/${visit.id}`} className="ml-2 font-bold">Open the sheet</Link></> : 'Not screened'}</dd></div>
           <div><dt className="text-stone">Last synced</dt><dd className="figure">{visit.lastSyncedAt ? `${visit.lastSyncedAt.slice(0, 16).replace('T', ' ')} UTC` : 'Never'}</dd></div>
         </dl>
         {visit.notes && <p className="mt-3 max-w-prose">{visit.notes}</p>}
