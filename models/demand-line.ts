@@ -1,10 +1,8 @@
-import {
-  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize,
-} from 'sequelize';
-import { syncedColumns, uuidKey } from './synced';
+import { DataTypes, type Sequelize } from 'sequelize';
+import { SyncedModel, syncedColumns, uuidKey } from './synced';
 
 /** One line of the farm's daily water need: a kind (people, beef cows…), a count, a per-head figure. */
-export class DemandLine extends Model<InferAttributes<DemandLine>, InferCreationAttributes<DemandLine>> {
+export class DemandLine extends SyncedModel<DemandLine> {
   declare id: string;
   declare farmId: string;
   declare kind: string;
@@ -13,11 +11,6 @@ export class DemandLine extends Model<InferAttributes<DemandLine>, InferCreation
   // Where the per-head figure comes from (catalogue source id, or "farmer's own figure").
   declare figureSource: string;
   declare note: string;
-  declare rev: CreationOptional<number>;
-  declare createdById: CreationOptional<string | null>;
-  declare deletedAt: CreationOptional<Date | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize) {
     DemandLine.init(

@@ -1,10 +1,8 @@
-import {
-  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize,
-} from 'sequelize';
-import { syncedColumns, uuidKey } from './synced';
+import { DataTypes, type Sequelize } from 'sequelize';
+import { SyncedModel, syncedColumns, uuidKey } from './synced';
 
 /** A run of height readings (level book, hose steps, clinometer legs, GPS) for the fall or the lift. */
-export class FallReading extends Model<InferAttributes<FallReading>, InferCreationAttributes<FallReading>> {
+export class FallReading extends SyncedModel<FallReading> {
   declare id: string;
   declare visitId: string;
   // 'fall' (intake → pump, along the drive pipe route) or 'lift' (pump → tank).
@@ -15,11 +13,6 @@ export class FallReading extends Model<InferAttributes<FallReading>, InferCreati
   // Ordered raw bookings in SI, validated by lib/shared schemas.
   declare bookings: unknown;
   declare notes: string;
-  declare rev: CreationOptional<number>;
-  declare createdById: CreationOptional<string | null>;
-  declare deletedAt: CreationOptional<Date | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize) {
     FallReading.init(

@@ -1,9 +1,7 @@
-import {
-  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize,
-} from 'sequelize';
-import { syncedColumns, uuidKey } from './synced';
+import { DataTypes, type Sequelize } from 'sequelize';
+import { SyncedModel, syncedColumns, uuidKey } from './synced';
 
-export class Farm extends Model<InferAttributes<Farm>, InferCreationAttributes<Farm>> {
+export class Farm extends SyncedModel<Farm> {
   declare id: string;
   declare organisationId: string;
   declare ownerId: string | null;
@@ -12,11 +10,6 @@ export class Farm extends Model<InferAttributes<Farm>, InferCreationAttributes<F
   declare lat: number | null;
   declare lon: number | null;
   declare notes: string;
-  declare rev: CreationOptional<number>;
-  declare createdById: CreationOptional<string | null>;
-  declare deletedAt: CreationOptional<Date | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize) {
     Farm.init(

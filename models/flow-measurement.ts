@@ -1,10 +1,8 @@
-import {
-  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize,
-} from 'sequelize';
-import { syncedColumns, uuidKey } from './synced';
+import { DataTypes, type Sequelize } from 'sequelize';
+import { SyncedModel, syncedColumns, uuidKey } from './synced';
 
 /** One flow measurement: the method and its raw trials, exactly as read in the field. */
-export class FlowMeasurement extends Model<InferAttributes<FlowMeasurement>, InferCreationAttributes<FlowMeasurement>> {
+export class FlowMeasurement extends SyncedModel<FlowMeasurement> {
   declare id: string;
   declare visitId: string;
   declare sourceId: string | null;
@@ -14,11 +12,6 @@ export class FlowMeasurement extends Model<InferAttributes<FlowMeasurement>, Inf
   // Raw trials in SI (e.g. [{volumeL, seconds}] or [{headM}]), validated by lib/shared schemas.
   declare readings: unknown;
   declare notes: string;
-  declare rev: CreationOptional<number>;
-  declare createdById: CreationOptional<string | null>;
-  declare deletedAt: CreationOptional<Date | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize) {
     FlowMeasurement.init(

@@ -1,10 +1,8 @@
-import {
-  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize,
-} from 'sequelize';
-import { syncedColumns, uuidKey } from './synced';
+import { DataTypes, type Sequelize } from 'sequelize';
+import { SyncedModel, syncedColumns, uuidKey } from './synced';
 
 /** Photo metadata; the bytes live in storage under `storageKey` once uploaded. */
-export class Photo extends Model<InferAttributes<Photo>, InferCreationAttributes<Photo>> {
+export class Photo extends SyncedModel<Photo> {
   declare id: string;
   declare visitId: string;
   declare pointId: string | null;
@@ -19,11 +17,6 @@ export class Photo extends Model<InferAttributes<Photo>, InferCreationAttributes
   declare lon: number | null;
   declare takenAt: Date | null;
   declare uploadedAt: Date | null;
-  declare rev: CreationOptional<number>;
-  declare createdById: CreationOptional<string | null>;
-  declare deletedAt: CreationOptional<Date | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize) {
     Photo.init(

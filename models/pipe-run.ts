@@ -1,10 +1,8 @@
-import {
-  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize,
-} from 'sequelize';
-import { syncedColumns, uuidKey } from './synced';
+import { DataTypes, type Sequelize } from 'sequelize';
+import { SyncedModel, syncedColumns, uuidKey } from './synced';
 
 /** The drive or delivery pipe as planned on site: length along the route, size, material. */
-export class PipeRun extends Model<InferAttributes<PipeRun>, InferCreationAttributes<PipeRun>> {
+export class PipeRun extends SyncedModel<PipeRun> {
   declare id: string;
   declare visitId: string;
   // 'drive' (intake → ram) or 'delivery' (ram → tank).
@@ -13,11 +11,6 @@ export class PipeRun extends Model<InferAttributes<PipeRun>, InferCreationAttrib
   declare diameterMm: number | null;
   declare material: string;
   declare pressureClass: string | null;
-  declare rev: CreationOptional<number>;
-  declare createdById: CreationOptional<string | null>;
-  declare deletedAt: CreationOptional<Date | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize) {
     PipeRun.init(

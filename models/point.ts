@@ -1,11 +1,9 @@
-import {
-  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize,
-} from 'sequelize';
+import { DataTypes, type Sequelize } from 'sequelize';
 import type { PointRole } from '@/lib/shared/domain';
-import { syncedColumns, uuidKey } from './synced';
+import { SyncedModel, syncedColumns, uuidKey } from './synced';
 
 /** A located point of the site walk: intake, pump site, tank, profile station. */
-export class Point extends Model<InferAttributes<Point>, InferCreationAttributes<Point>> {
+export class Point extends SyncedModel<Point> {
   declare id: string;
   declare visitId: string;
   declare role: PointRole;
@@ -17,11 +15,6 @@ export class Point extends Model<InferAttributes<Point>, InferCreationAttributes
   declare altitudeAccuracyM: number | null;
   declare chainageM: number | null;
   declare capturedAt: Date | null;
-  declare rev: CreationOptional<number>;
-  declare createdById: CreationOptional<string | null>;
-  declare deletedAt: CreationOptional<Date | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize) {
     Point.init(

@@ -1,4 +1,4 @@
-import { DataTypes } from 'sequelize';
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from 'sequelize';
 
 // Columns every record that syncs with the phone carries (DESIGN.md, data flow).
 export const syncedColumns = {
@@ -11,3 +11,12 @@ export const syncedColumns = {
 };
 
 export const uuidKey = { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 };
+
+/** Base of every model that syncs with the phone: the shared columns, declared once. */
+export abstract class SyncedModel<M extends Model> extends Model<InferAttributes<M>, InferCreationAttributes<M>> {
+  declare rev: CreationOptional<number>;
+  declare createdById: CreationOptional<string | null>;
+  declare deletedAt: CreationOptional<Date | null>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}

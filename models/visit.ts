@@ -1,10 +1,8 @@
-import {
-  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize,
-} from 'sequelize';
+import { DataTypes, type CreationOptional, type Sequelize } from 'sequelize';
 import type { VisitStatus } from '@/lib/shared/domain';
-import { syncedColumns, uuidKey } from './synced';
+import { SyncedModel, syncedColumns, uuidKey } from './synced';
 
-export class Visit extends Model<InferAttributes<Visit>, InferCreationAttributes<Visit>> {
+export class Visit extends SyncedModel<Visit> {
   declare id: string;
   declare organisationId: string;
   declare farmId: string;
@@ -16,11 +14,6 @@ export class Visit extends Model<InferAttributes<Visit>, InferCreationAttributes
   declare notes: string;
   // Revision at which the visit last became visible to a phone (see migrations/0007).
   declare exposedRev: CreationOptional<number>;
-  declare rev: CreationOptional<number>;
-  declare createdById: CreationOptional<string | null>;
-  declare deletedAt: CreationOptional<Date | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize) {
     Visit.init(

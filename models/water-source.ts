@@ -1,20 +1,13 @@
-import {
-  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize,
-} from 'sequelize';
-import { syncedColumns, uuidKey } from './synced';
+import { DataTypes, type Sequelize } from 'sequelize';
+import { SyncedModel, syncedColumns, uuidKey } from './synced';
 
 /** A spring or creek the advisor measured; flow measurements hang off it. */
-export class WaterSource extends Model<InferAttributes<WaterSource>, InferCreationAttributes<WaterSource>> {
+export class WaterSource extends SyncedModel<WaterSource> {
   declare id: string;
   declare visitId: string;
   declare name: string;
   declare kind: string;
   declare notes: string;
-  declare rev: CreationOptional<number>;
-  declare createdById: CreationOptional<string | null>;
-  declare deletedAt: CreationOptional<Date | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize) {
     WaterSource.init(
