@@ -24,7 +24,7 @@ function walk(dir, hash) {
 export function sourceHash() {
   const hash = createHash('sha256');
   // NEXT_PUBLIC_* values are compiled into the pages: a change must rebuild.
-  for (const [key, value] of Object.entries(process.env).filter(([k]) => k.startsWith('NEXT_PUBLIC_')).sort()) hash.update(`${key}=${value}`);
+  for (const [key, value] of Object.entries(process.env).filter(([k, v]) => k.startsWith('NEXT_PUBLIC_') && v).sort()) hash.update(`${key}=${value}`);
   for (const input of INPUTS) {
     const full = path.join(root, input);
     if (!existsSync(full)) continue;
