@@ -6,6 +6,7 @@ import { formatDay } from '../format';
 import { profileGeometry, type ProfileGeometry } from './profile';
 import { aboutDaily, aboutNumber, length, perDay, perMinute, pipeLength, pressureHead, volume } from './quantities';
 import { siteMapGeometry, type SiteMapGeometry } from './site-map';
+import { toUsText } from './us-text';
 
 /** What the server hands over for one sheet: the stored screening and who/where/when. */
 export interface SheetSource {
@@ -149,6 +150,8 @@ export function buildSheetView(s: SheetSource, units: UnitSystem): SheetView {
     : null;
   const located = s.points.filter((p): p is typeof p & { lat: number; lon: number } => p.lat !== null && p.lon !== null);
   const visited = s.visitedAt ? formatDay(s.visitedAt) : 'a date not recorded';
+  // The engine's sentences are metric; a US reader gets them in US customary units.
+  const say = (text: string) => (units === 'us' ? toUsText(text) : text);
   return {
     visitId: s.visitId,
     units,
@@ -159,10 +162,10 @@ export function buildSheetView(s: SheetSource, units: UnitSystem): SheetView {
     verdictWord: VERDICT_WORDS[sc.verdict],
     summary: summarySentences(s, units),
     figures: keyFigures(s, units),
-    reasons: sc.reasons.map((r) => r.text),
-    conditions: sc.conditions.map((c) => c.text),
-    billOfMaterials: billOfMaterials(s, units),
-    cautions: sc.cautions.map((c) => ({ code: c.code, title: CAUTION_TITLES[c.code] ?? 'Caution', text: c.text })),
+    reasons: sc.reasons.map((r) => say(r.text)),
+    conditions: sc.conditions.map((c) => say(c.text)),
+    billOfMaterials: billOfMaterials(s, units).map((line) => ({ ...line, note: say(line.note) })),
+    cautions: sc.cautions.map((c) => ({ code: c.code, title: CAUTION_TITLES[c.code] ?? 'Caution', text: say(c.text) })),
     surveyed: `Surveyed by ${s.advisorName ?? 'an advisor'} on ${visited}; screened on ${formatDay(s.screenedAt)}.`,
     engineVersion: sc.engineVersion,
     method: methodNotes(s),

@@ -79,3 +79,16 @@ describe('the sheet view', () => {
     expect(view.sources.length).toBeGreaterThan(3);
   });
 });
+
+describe('the engine sentences follow the reader units', () => {
+  it('a US reader sees no metric quantity in the cautions, reasons or conditions', () => {
+    const view = buildSheetView(source, 'us');
+    const texts = [...view.reasons, ...view.conditions, ...view.cautions.map((c) => c.text)].join(' ');
+    expect(texts).not.toMatch(/\d (m|L\/day|L\/min|kPa|mm)\b/);
+    expect(texts).toMatch(/\d (ft|gal\/day|psi)\b/);
+  });
+  it('a metric reader sees the engine sentences as written', () => {
+    const view = buildSheetView(source, 'metric');
+    expect(view.cautions.map((c) => c.text)).toEqual(source.screening.cautions.map((c) => c.text));
+  });
+});
