@@ -1,9 +1,12 @@
 import 'server-only';
 import { invalid, tooLarge } from '../errors';
 
-/** The request body parsed as JSON; a body that is not JSON is a 422, not a 500. */
-export async function readJson(req: Request): Promise<unknown> {
-  const text = await req.text();
+/** The largest JSON body a form route reads; a sync push has its own, larger cap. */
+export const MAX_JSON_BYTES = 1024 * 1024;
+
+/** The request body parsed as JSON, read up to `maxBytes` (413 past it); a body that is not JSON is a 422, not a 500. */
+export async function readJson(req: Request, maxBytes = MAX_JSON_BYTES): Promise<unknown> {
+  const text = (await readBodyCapped(req, maxBytes, 'The request body')).toString('utf8');
   try {
     return JSON.parse(text);
   } catch {

@@ -13,6 +13,8 @@ const finite = z.number().finite('Must be a finite number.');
 const keys = <K extends string>(record: Readonly<Record<K, unknown>>) => Object.keys(record) as [K, ...K[]];
 
 export const MAX_OPS_PER_PUSH = 200;
+/** A push body larger than this is refused (413) before it is parsed: 200 full ops fit well inside. */
+export const MAX_PUSH_BYTES = 8 * 1024 * 1024;
 export const MAX_PHOTO_BYTES = 15 * 1024 * 1024;
 export const PHOTO_MIME_TYPES = ['image/jpeg', 'image/png', 'image/webp'] as const;
 

@@ -1,6 +1,7 @@
 // GET /api/farms/:id/demand – the farm's water needs and demand lines (farmer, assigned advisor, coordinator).
 // PUT /api/farms/:id/demand – the farmer (or advisor/coordinator) enters the needs; writes demand lines.
 import { getFarmNeeds, putFarmNeeds } from '@/lib/server/data/farm-needs';
+import { parseJsonBody } from '@/lib/server/http/json-body';
 import { withAuth } from '@/lib/server/http/with-auth';
 import { idParam } from '@/lib/shared/schemas/list-query';
 import { farmNeedsBody } from '@/lib/shared/schemas/sheet';
@@ -12,6 +13,6 @@ export const GET = withAuth<{ id: string }>('farm:read', async ({ user, params }
 
 export const PUT = withAuth<{ id: string }>('demand:edit', async ({ req, user, params }) => {
   const { id } = idParam.parse(params);
-  const body = farmNeedsBody.parse(await req.json().catch(() => ({})));
+  const body = await parseJsonBody(req, farmNeedsBody);
   return Response.json({ needs: await putFarmNeeds(user, id, body) });
 });

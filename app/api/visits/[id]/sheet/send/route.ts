@@ -1,4 +1,5 @@
 // POST /api/visits/:id/sheet/send – e-mails the sheet (link + PDF) to the farmer; records the send.
+import { parseJsonBody } from '@/lib/server/http/json-body';
 import { withAuth } from '@/lib/server/http/with-auth';
 import { sendSheet } from '@/lib/server/sheets/send';
 import { idParam } from '@/lib/shared/schemas/list-query';
@@ -8,7 +9,7 @@ export const runtime = 'nodejs';
 
 export const POST = withAuth<{ id: string }>('sheet:send', async ({ req, user, params }) => {
   const { id } = idParam.parse(params);
-  const body = sendSheetBody.parse(await req.json().catch(() => ({})));
+  const body = await parseJsonBody(req, sendSheetBody);
   const send = await sendSheet(user, id, body);
   if (send.status !== 'sent') {
     // Recorded as failed (shown with a Retry button); the mail server's reason goes back as-is.
