@@ -29,6 +29,18 @@ export const testProfile = {
   MAIL_DIR: '.data/mail-test',
   MAIL_INBOX_PORT: '1081',
   PHOTO_DIR: '.data/photos-test',
+  STORAGE_DRIVER: 'local',
+  // The fake S3 server the integration tests start (scripts/lib/fake-s3.mjs); the S3 tests use it.
+  S3_PORT: '4600',
+  S3_ENDPOINT: 'http://127.0.0.1:4600',
+  S3_BUCKET: 'fallbook-test',
+  S3_REGION: 'us-east-1',
+  S3_ACCESS_KEY_ID: 'S3RVER',
+  S3_SECRET_ACCESS_KEY: 'S3RVER',
+  S3_FORCE_PATH_STYLE: '1',
+  S3_PREFIX: '',
+  DB_READ_HOSTS: '',
+  AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: 'true',
   SEED_DEMO: '1',
 };
 
@@ -48,10 +60,11 @@ export function loadEnv(profile = 'local') {
     // FALLBOOK_PORT_OFFSET lets several checkouts (git worktrees) run their tests side by side.
     const offset = Number(process.env.FALLBOOK_PORT_OFFSET || 0);
     for (const [key, value] of Object.entries(testProfile)) process.env[key] = value;
-    for (const key of ['PORT', 'DB_PORT', 'SMTP_PORT', 'MAIL_INBOX_PORT']) {
+    for (const key of ['PORT', 'DB_PORT', 'SMTP_PORT', 'MAIL_INBOX_PORT', 'S3_PORT']) {
       process.env[key] = String(Number(testProfile[key]) + offset);
     }
     process.env.NEXTAUTH_URL = `http://127.0.0.1:${process.env.PORT}`;
+    process.env.S3_ENDPOINT = `http://127.0.0.1:${process.env.S3_PORT}`;
   } else {
     const envPath = path.join(root, '.env');
     if (existsSync(envPath)) process.loadEnvFile(envPath);

@@ -6,6 +6,8 @@ import { loadEnv, root } from '../../scripts/lib/env.mjs';
 // @ts-expect-error – as above
 import { startMailServer } from '../../scripts/lib/mail-server.mjs';
 // @ts-expect-error – as above
+import { startFakeS3 } from '../../scripts/lib/fake-s3.mjs';
+// @ts-expect-error – as above
 import { ensureDatabase, startDatabase } from '../../scripts/lib/mariadb.mjs';
 // @ts-expect-error – as above
 import { runTs } from '../../scripts/lib/stack.mjs';
@@ -28,7 +30,10 @@ export default async function setup() {
   } catch {
     // npm test's catcher is already listening on these ports.
   }
+  // The fake S3 server for the S3 driver's tests (the default driver stays the local folder).
+  const s3: { close(): Promise<void> } = await startFakeS3({ port: Number(process.env.S3_PORT), bucket: process.env.S3_BUCKET });
   return async () => {
+    await s3.close();
     await mail?.close();
   };
 }

@@ -8,6 +8,7 @@ import { invalid, notFound } from '../errors';
 import { readBodyCapped } from '../http/body';
 import { checkPhotoImage } from '../services/photo-image';
 import { getPhotoStorage } from '../storage';
+import { thumbnailKey } from '../storage/photo-keys';
 
 export interface PhotoUploadOutcome {
   id: string;
@@ -30,8 +31,6 @@ async function getPhotoOrThrow(user: SessionUser, id: string, permission: Permis
   });
   return photo;
 }
-
-const thumbnailKey = (key: string) => key.replace(/\.[a-z]+$/, '-thumb.jpg');
 
 /**
  * Stores the body of PUT /api/photos/:id: its size and sha-256 must match the pushed metadata,

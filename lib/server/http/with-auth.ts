@@ -1,6 +1,8 @@
 import 'server-only';
 import type { NextRequest } from 'next/server';
 import { requireRequestUser } from '../auth/current-user';
+import { onReplicas, onWriter, WROTE_COOKIE, wroteRecently } from '../db/read-routing';
+import { dbEnv } from '../env';
 import { authorize, type Permission, type SessionUser } from '../auth/permissions';
 import { forbidden, toHttpResponse } from '../errors';
 
@@ -36,20 +38,45 @@ export function assertSameOrigin(req: NextRequest) {
   if (host !== requestHost(req) && origin !== req.nextUrl.origin) throw forbidden('Cross-site requests are refused.');
 }
 
+/**
+ * With read replicas: writes, sync (a pull must see the push just made) and any request from a
+ * person who wrote within DB_READ_AFTER_WRITE_SECONDS read from the primary; other reads from a replica.
+ */
+function readsOnWriter(req: NextRequest, permission: Permission): boolean {
+  if (!SAFE_METHODS.has(req.method) || permission === 'sync:use') return true;
+  return wroteRecently(req.cookies.get(WROTE_COOKIE)?.value, dbEnv().DB_READ_AFTER_WRITE_SECONDS);
+}
+
+/** After a successful write (replicas configured): mark the person so their next reads see it. */
+function markWrote(req: NextRequest, res: Response): Response {
+  const env = dbEnv();
+  if (SAFE_METHODS.has(req.method) || !env.DB_READ_HOSTS.trim() || res.status >= 400) return res;
+  try {
+    res.headers.append('set-cookie', `${WROTE_COOKIE}=${Date.now()}; Path=/; Max-Age=${env.DB_READ_AFTER_WRITE_SECONDS}; HttpOnly; SameSite=Lax`);
+  } catch {
+    // A response with immutable headers (a redirect) keeps no mark; reads may lag a moment.
+  }
+  return res;
+}
+
 /** Wraps a route handler: session (401), permission by role (403), same-origin writes, errors → status. */
 export function withAuth<P = Record<string, never>>(
   permission: Permission,
   handler: (ctx: AuthedContext<P>) => Promise<Response>,
 ) {
   return async (req: NextRequest, context: RouteContext<P>): Promise<Response> => {
-    try {
-      const user = await requireRequestUser(req);
-      authorize(user, permission);
-      assertSameOrigin(req);
-      return await handler({ req, user, params: await context.params });
-    } catch (error) {
-      return toHttpResponse(error);
-    }
+    const run = readsOnWriter(req, permission) ? onWriter : onReplicas;
+    return run(async () => {
+      try {
+        // The account is read from the primary: a deactivation ends the session at once, lag or not.
+        const user = await onWriter(() => requireRequestUser(req));
+        authorize(user, permission);
+        assertSameOrigin(req);
+        return markWrote(req, await handler({ req, user, params: await context.params }));
+      } catch (error) {
+        return toHttpResponse(error);
+      }
+    });
   };
 }
 

@@ -1,6 +1,6 @@
 import 'server-only';
 
-/** Where photo bytes live. Drivers: local folder (here); an object store can follow behind the same interface. */
+/** Where photo bytes live. Drivers: the local folder (`local-folder.ts`) and S3-compatible buckets (`s3.ts`). */
 export interface BlobStorage {
   /** Stores the bytes under the key, replacing what was there (written whole or not at all). */
   put(key: string, data: Buffer, contentType: string): Promise<void>;
