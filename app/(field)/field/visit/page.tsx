@@ -40,11 +40,11 @@ function VisitOverview() {
         <p className="text-stone">{data.farm?.area} · planned <span className="figure">{formatDay(data.visit.plannedOn)}</span></p>
       </div>
       <ul className="grid gap-3 sm:grid-cols-2">
-        {[...SECTIONS, { href: 'demand', title: 'Water needed' }, { href: 'positions', title: 'Creek profile, best positions' }].map((s) => (
+        {[...SECTIONS, { href: 'demand', title: 'Water needed' }, { href: 'positions', title: 'Creek profile, best positions' }, { href: 'commission', title: 'Commissioning check' }].map((s) => (
           <li key={s.href}>
             <Link href={`/field/visit/${s.href}?id=${id}`} className="flex min-h-16 items-center justify-between rounded-md border-2 border-rule bg-white px-4 text-lg font-bold text-ink no-underline">
               <span>{s.title}</span>
-              <span className="figure text-stone" data-testid={`count-${s.href}`}>{counts?.[s.href] ?? 0}</span>
+              <span className="figure text-stone" data-testid={`count-${s.href}`}>{s.href === 'commission' ? '' : counts?.[s.href] ?? 0}</span>
             </Link>
           </li>
         ))}

@@ -2,6 +2,7 @@
 
 import { useLiveQuery } from 'dexie-react-hooks';
 import { Suspense, useState } from 'react';
+import { VerdictMark } from '@/components/verdict-mark';
 import { bestPositions, EngineInputError, type BestPositionsResult, type ProfileTank } from '@/lib/engine';
 import { fieldDb } from '@/lib/client/db';
 import { newId } from '@/lib/client/ids';
@@ -94,7 +95,8 @@ function PositionsPage() {
               <li key={`${p.intake.id}-${p.pump.id}`} className="rounded-md border-2 border-rule bg-white p-3" data-testid={`pair-${p.rank}`}>
                 <p className="text-lg font-bold">{p.rank}. Intake at <span className="figure">{showQuantity(p.intake.chainageM, 'length', units)}</span>, ram at <span className="figure">{showQuantity(p.pump.chainageM, 'length', units)}</span></p>
                 <p>Fall <span className="figure">{showQuantity(p.fallM, 'length', units)}</span> · lift <span className="figure">{showQuantity(p.staticLiftM, 'length', units)}</span> · drive pipe <span className="figure">{showQuantity(p.driveLengthM, 'length', units)}</span></p>
-                <p>Delivers about <span className="figure">{showQuantity(p.deliveryLpd, 'litresPerDay', units)}</span>; meets the need in <span className="figure">{Math.round(p.probabilityMeetsDemand * 100)} %</span> of draws · screen: <strong>{p.screening.verdict}</strong></p>
+                <p>Delivers about <span className="figure">{showQuantity(p.deliveryLpd, 'litresPerDay', units)}</span>; meets the need in <span className="figure">{Math.round(p.probabilityMeetsDemand * 100)} %</span> of draws</p>
+                <p>Screen: <VerdictMark verdict={p.screening.verdict} /></p>
                 <button type="button" onClick={() => adopt(p.rank)} className="mt-2 min-h-12 w-full rounded-md border-2 border-slate font-bold text-slate">Adopt pair {p.rank}</button>
               </li>
             ))}
