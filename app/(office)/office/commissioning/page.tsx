@@ -30,7 +30,8 @@ export default async function CommissioningPage() {
       ) : (
         <>
           <PredictedMeasuredPlot points={points} units={user.units} />
-          <table className="w-full max-w-4xl text-left">
+          <div className="overflow-x-auto">
+          <table className="w-full max-w-4xl text-left [&_td]:px-2 [&_th]:px-2">
             <thead>
               <tr className="border-b border-rule">
                 <th className="py-2">Farm</th><th>Predicted</th><th>Measured</th><th>Ram efficiency (D&rsquo;Aubuisson)</th><th>Outcome</th>
@@ -48,6 +49,7 @@ export default async function CommissioningPage() {
               ))}
             </tbody>
           </table>
+          </div>
         </>
       )}
       <p className="max-w-3xl text-sm text-stone">
