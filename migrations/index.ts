@@ -7,6 +7,7 @@ import * as m0005 from './0005-farmer-sheets';
 import * as m0006 from './0006-office-invitations-and-indexes';
 import * as m0007 from './0007-visit-exposure';
 import * as m0008 from './0008-millisecond-times';
+import * as m0011 from './0011-profile-stations-and-commissioning';
 
 export interface MigrationModule {
   up(params: { context: QueryInterface }): Promise<void>;
@@ -23,4 +24,5 @@ export const MIGRATIONS: { name: string; module: MigrationModule }[] = [
   { name: '0006-office-invitations-and-indexes.ts', module: m0006 },
   { name: '0007-visit-exposure.ts', module: m0007 },
   { name: '0008-millisecond-times.ts', module: m0008 },
+  { name: '0011-profile-stations-and-commissioning.ts', module: m0011 },
 ];

@@ -1,6 +1,7 @@
 import { FIELD_VISIT_STATUSES } from '@/lib/shared/domain';
 import { QueryTypes, type Model, type ModelStatic, type Sequelize, type Transaction } from 'sequelize';
 import { AuditEntry } from './audit-entry';
+import { Commissioning } from './commissioning';
 import { DemandLine } from './demand-line';
 import { FallReading } from './fall-reading';
 import { Farm } from './farm';
@@ -24,7 +25,7 @@ export {
   AuditEntry, DemandLine, FallReading, Farm, FlowMeasurement, Invitation, Organisation, Photo, PipeRun, Point,
   Screening, SignInAttempt, SyncOp, User, Visit, WaterSource,
 };
-export { FarmNeed, SheetResponse, SheetSend };
+export { Commissioning, FarmNeed, SheetResponse, SheetSend };
 export type { OrganisationSettings } from './organisation';
 
 /** Models whose rows sync with the phone: each save takes a fresh revision. */
@@ -76,7 +77,7 @@ export function initModels(sequelize: Sequelize) {
   for (const model of [
     Organisation, User, Farm, Visit, WaterSource, FlowMeasurement, FallReading, Point, Photo,
     DemandLine, PipeRun, Screening, AuditEntry, SyncOp, SignInAttempt, Invitation,
-    SheetSend, SheetResponse, FarmNeed,
+    SheetSend, SheetResponse, FarmNeed, Commissioning,
   ]) model.initModel(sequelize);
 
   Organisation.hasMany(User, { foreignKey: 'organisationId' });
@@ -87,6 +88,7 @@ export function initModels(sequelize: Sequelize) {
   Farm.hasMany(DemandLine, { foreignKey: 'farmId' });
   Visit.belongsTo(Farm, { foreignKey: 'farmId' });
   Visit.belongsTo(User, { as: 'advisor', foreignKey: 'advisorId' });
+  Commissioning.belongsTo(Visit, { foreignKey: 'visitId' });
   const visitChildren = [WaterSource, FlowMeasurement, FallReading, Point, Photo, PipeRun, Screening] as ModelStatic<Model>[];
   for (const child of visitChildren) {
     Visit.hasMany(child, { foreignKey: 'visitId' });

@@ -14,6 +14,9 @@ export class Point extends SyncedModel<Point> {
   declare altitudeM: number | null;
   declare altitudeAccuracyM: number | null;
   declare chainageM: number | null;
+  /** Reduced level of a profile station, m (levelled; altitude is the GPS reading). */
+  declare reducedLevelM: CreationOptional<number | null>;
+  declare flags: CreationOptional<string[] | null>;
   declare capturedAt: Date | null;
 
   static initModel(sequelize: Sequelize) {
@@ -29,6 +32,8 @@ export class Point extends SyncedModel<Point> {
         altitudeM: { type: DataTypes.DOUBLE, allowNull: true },
         altitudeAccuracyM: { type: DataTypes.DOUBLE, allowNull: true },
         chainageM: { type: DataTypes.DOUBLE, allowNull: true },
+        reducedLevelM: { type: DataTypes.DOUBLE, allowNull: true },
+        flags: { type: DataTypes.JSON, allowNull: true },
         capturedAt: { type: DataTypes.DATE, allowNull: true },
         ...syncedColumns,
       },

@@ -34,3 +34,11 @@ export { mulberry32, normalSampler, quantileSorted } from './random';
 export { judge, MIN_FALL_M, MAX_LIFT_RATIO, WARN_LIFT_RATIO, MIN_SUPPLY_MULTIPLE, MIN_DELIVERY_HEAD_M, MIN_PROBABILITY_MEETS } from './verdict';
 export type { Screening, Figure, FigureKey, Reason, Condition, Caution, Verdict, Severity, BillOfMaterialsLine } from './screening-types';
 export { siteReadingsSchema, type SiteReadings, type SiteReadingsInput } from '@/lib/shared/schemas/site-readings';
+export {
+  bestPositions, bestPositionsBruteForce, STATION_FLAGS, REJECT_TEXT,
+  type BestPositionsInput, type BestPositionsResult, type PositionPair, type ProfileStation, type ProfileTank, type RejectCode, type StationFlag,
+} from './profile-search';
+export {
+  commissioningCheck, predictionFromFigures, BEATS_PER_MINUTE_BAND,
+  type CommissioningReadings, type CommissioningPrediction, type CommissioningResult, type CommissioningOutcome, type LikelyCause,
+} from './commissioning';

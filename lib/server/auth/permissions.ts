@@ -31,6 +31,9 @@ export const ROLE_PERMISSIONS = {
   'people:manage': { coordinator: 'organisation' },
   'organisation:settings': { coordinator: 'organisation' },
   'sync:use': { coordinator: 'self', advisor: 'self' },
+  // Commissioning: the assigned advisor records what the installed ram does; the office reads them all.
+  'visit:commission': { coordinator: 'organisation', advisor: 'assigned' },
+  'commissioning:read': { coordinator: 'organisation' },
 } as const satisfies Record<string, Partial<Record<Role, Scope>>>;
 
 export type Permission = keyof typeof ROLE_PERMISSIONS;

@@ -3,6 +3,7 @@ import type { Transaction } from 'sequelize';
 import { FallReading, FlowMeasurement, PipeRun, Point, WaterSource } from '@/lib/server/db';
 import { screenVisit } from '../services/screening';
 import { demoId } from './ids';
+import { seedDemoProfile } from './profile';
 
 // Raw field readings of the two walked demo sites (invented), stored exactly as the phone sends them.
 const SITES = [
@@ -92,6 +93,7 @@ export async function seedDemoReadings(transaction: Transaction): Promise<void> 
         { transaction },
       );
     }
+    if (site.visit === 'visit:brandt-hollow') await seedDemoProfile(advisorId, takenAt, transaction);
     const outcome = await screenVisit(visitId, advisorId, transaction);
     if (outcome.status === 'incomplete') throw new Error(`demo readings of ${site.visit} are incomplete: ${outcome.missing.join('; ')}`);
   }

@@ -95,7 +95,7 @@ export const ENTITY_SPECS: Record<SyncEntity, EntitySpec> = {
   flowMeasurement,
   fallReading,
   point: plain(Point, 'visitId',
-    ['visitId', 'role', 'label', 'lat', 'lon', 'accuracyM', 'altitudeM', 'altitudeAccuracyM', 'chainageM', 'capturedAt'], ['capturedAt']),
+    ['visitId', 'role', 'label', 'lat', 'lon', 'accuracyM', 'altitudeM', 'altitudeAccuracyM', 'chainageM', 'capturedAt', 'reducedLevelM', 'flags'], ['capturedAt']),
   photo: plain(Photo, 'visitId',
     ['visitId', 'pointId', 'caption', 'mime', 'bytes', 'sha256', 'width', 'height', 'lat', 'lon', 'takenAt'], ['takenAt']),
   demandLine: plain(DemandLine, 'farmId', ['farmId', 'kind', 'count', 'litresPerHeadPerDay', 'figureSource', 'note']),

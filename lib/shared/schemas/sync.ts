@@ -4,6 +4,7 @@ import { z } from 'zod';
 import { DEMAND_CATALOGUE, type DemandKind } from '@/lib/engine/demand';
 import { PIPE_MATERIALS, type PipeMaterialId } from '@/lib/engine/materials';
 import { POINT_ROLES, type VisitStatus } from '../domain';
+import { STATION_FLAGS } from '@/lib/engine/profile-pairs';
 import { fallRunSchema, flowMeasurementSchema, LIFT_DIRECT_METHODS } from './site-readings';
 
 const uuid = z.string().uuid('Must be a UUID.');
@@ -68,6 +69,9 @@ export const entityFields = {
     altitudeAccuracyM: finite.min(0).max(100_000).nullable(),
     chainageM: finite.min(0).max(100_000).nullable(),
     capturedAt: isoTime.nullable(),
+    /** Profile stations: levelled reduced level, m, and flags such as 'no-pump-site' (optional for older phones). */
+    reducedLevelM: finite.min(-500).max(9000).nullable().optional(),
+    flags: z.array(z.enum(STATION_FLAGS)).max(STATION_FLAGS.length).nullable().optional(),
   }),
   photo: z.object({
     visitId: uuid,

@@ -27,7 +27,8 @@ function VisitOverview() {
     }));
     const visit = await db.visits.get(id);
     const demand = visit ? (await db.demandLines.where('farmId').equals(visit.farmId).toArray()).filter((r) => !r.deletedAt).length : 0;
-    return Object.fromEntries([...entries, ['demand', demand]]) as Record<string, number>;
+    const stations = (await db.points.where('visitId').equals(id).toArray()).filter((p) => !p.deletedAt && p.role === 'station').length;
+    return Object.fromEntries([...entries, ['demand', demand], ['positions', stations]]) as Record<string, number>;
   }, [id]);
   if (data === undefined) return <p className="text-lg">Reading the phone…</p>;
   if (data === null) return <p className="text-lg">This visit is not on this phone. <Link href="/field">Back to my visits</Link></p>;
@@ -39,11 +40,11 @@ function VisitOverview() {
         <p className="text-stone">{data.farm?.area} · planned <span className="figure">{formatDay(data.visit.plannedOn)}</span></p>
       </div>
       <ul className="grid gap-3 sm:grid-cols-2">
-        {[...SECTIONS, { href: 'demand', title: 'Water needed' }].map((s) => (
+        {[...SECTIONS, { href: 'demand', title: 'Water needed' }, { href: 'positions', title: 'Creek profile, best positions' }, { href: 'commission', title: 'Commissioning check' }].map((s) => (
           <li key={s.href}>
             <Link href={`/field/visit/${s.href}?id=${id}`} className="flex min-h-16 items-center justify-between rounded-md border-2 border-rule bg-white px-4 text-lg font-bold text-ink no-underline">
               <span>{s.title}</span>
-              <span className="figure text-stone" data-testid={`count-${s.href}`}>{counts?.[s.href] ?? 0}</span>
+              <span className="figure text-stone" data-testid={`count-${s.href}`}>{s.href === 'commission' ? '' : counts?.[s.href] ?? 0}</span>
             </Link>
           </li>
         ))}

@@ -4,6 +4,7 @@ const LINKS = [
   { href: '/office', label: 'Visits' },
   { href: '/office/visits/new', label: 'Plan a visit' },
   { href: '/office/map', label: 'Map' },
+  { href: '/office/commissioning', label: 'Installed rams' },
   { href: '/office/farms', label: 'Farms' },
   { href: '/office/people', label: 'People' },
   { href: '/office/settings', label: 'Settings' },

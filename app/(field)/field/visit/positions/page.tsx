@@ -1,0 +1,138 @@
+'use client';
+
+import { useLiveQuery } from 'dexie-react-hooks';
+import { Suspense, useState } from 'react';
+import { VerdictMark } from '@/components/verdict-mark';
+import { bestPositions, EngineInputError, type BestPositionsResult, type ProfileTank } from '@/lib/engine';
+import { fieldDb } from '@/lib/client/db';
+import { newId } from '@/lib/client/ids';
+import { deleteRecord, saveRecord } from '@/lib/client/outbox';
+import { adoptPair, levelOf, localProfile } from '@/lib/client/profile-positions';
+import { announceSave } from '@/lib/client/sync/triggers';
+import { showQuantity } from '@/lib/shared/quantities';
+import { PrimaryButton, SectionHeader } from '../../_components/choice';
+import { NumberField } from '../../_components/number-field';
+import { useUnits, useVisitId } from '../../_components/use-field-data';
+import { PositionsChart } from './_components/positions-chart';
+import { StationForm } from './_components/station-form';
+
+function PositionsPage() {
+  const visitId = useVisitId();
+  const units = useUnits();
+  const profile = useLiveQuery(() => localProfile(visitId), [visitId]);
+  const [offsetM, setOffsetM] = useState<number | undefined>(0);
+  const [tankLevel, setTankLevel] = useState<number | undefined>();
+  const [tankChainage, setTankChainage] = useState<number | undefined>();
+  const [result, setResult] = useState<BestPositionsResult | null>(null);
+  const [busy, setBusy] = useState(false);
+  const [message, setMessage] = useState<string | null>(null);
+  if (!profile) return <p className="text-lg">Reading the phone…</p>;
+
+  const tp = profile.tankPoint;
+  const levelM = tankLevel ?? (tp ? levelOf(tp) : null) ?? undefined;
+  const chainM = tankChainage ?? tp?.chainageM ?? undefined;
+  const tank: ProfileTank | null = levelM !== undefined && chainM !== undefined ? { levelM, chainageM: chainM, offsetM: offsetM ?? 0 } : null;
+
+  async function saveTank() {
+    if (levelM === undefined || chainM === undefined) return setMessage('The tank needs its level and where it stands along the bank.');
+    const fields = { reducedLevelM: levelM, chainageM: chainM };
+    if (tp) await saveRecord('point', tp.id, fields);
+    else await saveRecord('point', newId(), { visitId, role: 'tank', label: 'Tank', lat: null, lon: null, accuracyM: null, altitudeM: null, altitudeAccuracyM: null, capturedAt: new Date().toISOString(), flags: null, ...fields });
+    announceSave();
+    setMessage('Tank saved on this phone.');
+  }
+
+  function search() {
+    if (!profile?.base || !tank) return setMessage('The search needs a flow measurement, the water needed and the tank.');
+    const base = profile.base;
+    setBusy(true);
+    setMessage(null);
+    // Let the "Searching…" state paint before the engine takes the main thread.
+    setTimeout(() => {
+      try {
+        setResult(bestPositions({ ...base, stations: profile.stations.map(({ point: _p, ...s }) => s), tank }));
+      } catch (error) {
+        setMessage(error instanceof EngineInputError ? error.message : 'The search could not run on these readings.');
+      } finally {
+        setBusy(false);
+      }
+    }, 20);
+  }
+
+  async function adopt(rank: number) {
+    const pair = result?.ranked.find((p) => p.rank === rank);
+    if (!pair || !tank || !profile) return;
+    if (!window.confirm('Adopt this pair? The intake and ram points move to it, the pipe lengths follow, and the fall and lift readings are replaced by the profile\u2019s.')) return;
+    await adoptPair(visitId, pair, profile.stations, tank);
+    announceSave();
+    setMessage(`Pair ${rank} adopted on this phone; it syncs with the next connection and the screen uses it.`);
+  }
+
+  return (
+    <div className="space-y-5">
+      <SectionHeader visitId={visitId} title="Creek profile and best positions" />
+      <StationForm visitId={visitId} units={units} />
+      <fieldset className="space-y-3 rounded-md border-2 border-rule bg-white p-3">
+        <legend className="px-1 text-xl font-bold">Tank</legend>
+        <div className="grid gap-3 sm:grid-cols-3">
+          <NumberField label="Tank water level" quantity="length" units={units} signed value={levelM} onChange={setTankLevel} />
+          <NumberField label="Along the bank at" quantity="length" units={units} value={chainM} onChange={setTankChainage} />
+          <NumberField label="Distance away from the creek" quantity="length" units={units} value={offsetM} onChange={setOffsetM} />
+        </div>
+        <button type="button" onClick={saveTank} className="min-h-12 w-full rounded-md border-2 border-slate font-bold text-slate">Save tank</button>
+      </fieldset>
+      <PositionsChart stations={profile.stations} tank={tank} pairs={result?.ranked ?? []} units={units} />
+      <p className="text-stone"><span className="figure">{profile.stations.length}</span> stations{profile.incomplete > 0 ? `, ${profile.incomplete} without distance or level (left out)` : ''}.</p>
+      <PrimaryButton onClick={search} disabled={busy || profile.stations.length < 2}>{busy ? 'Searching…' : 'Find the best positions'}</PrimaryButton>
+      {message && <p role="status" className="font-bold">{message}</p>}
+      {result && (
+        <section aria-labelledby="best" className="space-y-3">
+          <h2 id="best" className="text-xl font-bold">Best pairs</h2>
+          <p className="text-stone">{result.pairsConsidered} pairs looked at, {result.pairsFeasible} within the drive pipe rules.</p>
+          {result.ranked.length === 0 && <p className="font-bold">No pair fits the rules on this reach.</p>}
+          <ol className="space-y-3">
+            {result.ranked.map((p) => (
+              <li key={`${p.intake.id}-${p.pump.id}`} className="rounded-md border-2 border-rule bg-white p-3" data-testid={`pair-${p.rank}`}>
+                <p className="text-lg font-bold">{p.rank}. Intake at <span className="figure">{showQuantity(p.intake.chainageM, 'length', units)}</span>, ram at <span className="figure">{showQuantity(p.pump.chainageM, 'length', units)}</span></p>
+                <p>Fall <span className="figure">{showQuantity(p.fallM, 'length', units)}</span> · lift <span className="figure">{showQuantity(p.staticLiftM, 'length', units)}</span> · drive pipe <span className="figure">{showQuantity(p.driveLengthM, 'length', units)}</span></p>
+                <p>Delivers about <span className="figure">{showQuantity(p.deliveryLpd, 'litresPerDay', units)}</span>; meets the need in <span className="figure">{Math.round(p.probabilityMeetsDemand * 100)} %</span> of draws</p>
+                <p>Screen: <VerdictMark verdict={p.screening.verdict} /></p>
+                <button type="button" onClick={() => adopt(p.rank)} className="mt-2 min-h-12 w-full rounded-md border-2 border-slate font-bold text-slate">Adopt pair {p.rank}</button>
+              </li>
+            ))}
+          </ol>
+          {result.rejected.length > 0 && (
+            <details>
+              <summary className="min-h-12 cursor-pointer font-bold">Why other pairs were set aside</summary>
+              <ul className="ml-5 list-disc">{result.rejected.map((r) => <li key={r.code}><span className="figure">{r.count}</span> × {r.text}</li>)}</ul>
+            </details>
+          )}
+          <p className="text-sm text-stone">A screen, not an engineering design: check the ground, flooding and permits on site, and follow local codes and licensed practice.</p>
+        </section>
+      )}
+      <StationList visitId={visitId} units={units} />
+    </div>
+  );
+}
+
+function StationList({ visitId, units }: { visitId: string; units: ReturnType<typeof useUnits> }) {
+  const rows = useLiveQuery(async () => (await fieldDb().points.where('visitId').equals(visitId).toArray()).filter((p) => !p.deletedAt && p.role === 'station').sort((a, b) => (a.chainageM ?? 0) - (b.chainageM ?? 0)), [visitId]);
+  if (!rows?.length) return null;
+  return (
+    <details>
+      <summary className="min-h-12 cursor-pointer font-bold">Saved stations ({rows.length})</summary>
+      <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
+        {rows.map((p) => (
+          <li key={p.id} className="flex items-center justify-between px-3 py-2">
+            <span className="figure">{showQuantity(p.chainageM, 'length', units)} · level {showQuantity(levelOf(p), 'length', units)}{p.flags?.includes('no-pump-site') ? ' · floods' : ''}{p.flags?.includes('no-intake') ? ' · no intake' : ''}</span>
+            <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold" onClick={async () => { await deleteRecord('point', p.id); announceSave(); }}>Delete</button>
+          </li>
+        ))}
+      </ul>
+    </details>
+  );
+}
+
+export default function Page() {
+  return <Suspense><PositionsPage /></Suspense>;
+}

@@ -1,0 +1,196 @@
+// One (intake, pump site) pair of a surveyed creek profile: the pruning rules, the readings it would
+// be screened with, and a fast estimate that runs the same sums as screenSite with fewer draws.
+import { flowMeasurementSchema, settingsSchema, type ScreenSettings, type SiteReadingsInput } from '@/lib/shared/schemas/site-readings';
+import { DRIVE_LD_BAND, driveLengthBandM, RAM_SIZE_TABLE, ramSizeForFlow, type RamSizeRow } from './drive-pipe';
+import { demandBreakdown } from './demand';
+import { runMonteCarlo } from './monte-carlo';
+import { operatingPoint, type OperatingContext } from './operating-point';
+import { designDeliveryPipe, designDrivePipe } from './pipe-design';
+import { EFFICIENCY_CURVES } from './ram';
+import { combineRuns, estimateFlow, estimateLift } from './readings';
+import { MAX_LIFT_RATIO, MIN_FALL_M } from './verdict';
+
+export const STATION_FLAGS = ['no-intake', 'no-pump-site'] as const;
+export type StationFlag = (typeof STATION_FLAGS)[number];
+
+/** A surveyed station along the bank: chainage from the top of the reach, reduced level, optional own flow. */
+export interface ProfileStation {
+  id: string;
+  label?: string;
+  chainageM: number;
+  levelM: number;
+  /** Flow measured at this station, L/min; without it the reach's flow measurements apply. */
+  flowLpm?: number | null;
+  flags?: readonly string[];
+}
+
+/** Where the tank stands: chainage of the nearest bank point, distance off the creek, water level. */
+export interface ProfileTank {
+  chainageM: number;
+  offsetM: number;
+  levelM: number;
+}
+
+export interface BestPositionsInput {
+  stations: readonly ProfileStation[];
+  tank: ProfileTank;
+  flowMeasurements?: SiteReadingsInput['flowMeasurements'];
+  demand: SiteReadingsInput['demand'];
+  drivePipeMaterial?: string;
+  deliveryPipe?: { material?: string; diameterMm?: number };
+  settings?: SiteReadingsInput['settings'];
+  /** 1σ of the lift from the profile, m (default: the engine's figure for a levelled lift). */
+  liftUncertaintyM?: number;
+  /** How many pairs to return (default 3). */
+  top?: number;
+  /** Draws for the full screenings of the short list (default 10,000) and for ranking everything (default 200). */
+  samples?: number;
+  rankingSamples?: number;
+  seed?: number;
+}
+
+export type RejectCode =
+  | 'flag-intake' | 'flag-pump' | 'little-fall' | 'drive-short' | 'drive-long' | 'gravity' | 'lift-ratio' | 'little-flow' | 'drive-ld';
+
+export const REJECT_TEXT: Record<RejectCode, string> = {
+  'flag-intake': 'The intake station is marked as no place for an intake.',
+  'flag-pump': 'The pump station is marked as no place for a ram (e.g. it floods).',
+  'little-fall': `Less than ${MIN_FALL_M} m of fall between intake and ram (Water for the World RWS.4.D.5).`,
+  'drive-short': 'The drive pipe between them would be shorter than the drive length band for that fall.',
+  'drive-long': 'The drive pipe between them would be longer than the drive length band for that fall.',
+  gravity: 'The tank is not above the intake: water reaches it by gravity, no ram needed.',
+  'lift-ratio': `Lift is more than ${MAX_LIFT_RATIO} × the fall (Ogden 1911).`,
+  'little-flow': 'The flow at the intake is below what the smallest ram in the size table needs (Ogden 1911).',
+  'drive-ld': `Drive length / bore outside ${DRIVE_LD_BAND.min}–${DRIVE_LD_BAND.max} (NITK notes).`,
+};
+
+/** Geometry of a pair: fall, lift, drive and delivery pipe lengths (slope distances). */
+export interface PairGeometry {
+  fallM: number;
+  staticLiftM: number;
+  driveLengthM: number;
+  deliveryLengthM: number;
+}
+
+/** Prepared once per search: parsed settings and flows, so each pair costs only its own sums. */
+export interface SearchContext {
+  input: BestPositionsInput;
+  settings: ScreenSettings;
+  ctxCurve: OperatingContext['curve'];
+  demandLpd: number;
+  flowAt: (station: ProfileStation) => { lowestLpm: number; relativeSigma: number; measurements: SiteReadingsInput['flowMeasurements'] } | null;
+  fallSigmaM: number;
+  liftSigmaFor: (liftM: number) => number;
+}
+
+/** Flow measurements that a station's own flow stands for: one bucket-style trial of a minute. */
+function stationMeasurements(flowLpm: number): SiteReadingsInput['flowMeasurements'] {
+  return [{ method: 'volumetric', season: 'unknown', trials: [{ volumeL: flowLpm, seconds: 60 }] }];
+}
+
+/** Parses what every pair shares. */
+export function prepareSearch(input: BestPositionsInput): SearchContext {
+  const settings = settingsSchema.parse(input.settings ?? {});
+  const reach = (input.flowMeasurements ?? []).map((m) => flowMeasurementSchema.parse(m));
+  const lowestOf = (ms: ReturnType<typeof flowMeasurementSchema.parse>[]) => {
+    const lowest = ms.map(estimateFlow).reduce((a, b) => (b.meanLps < a.meanLps ? b : a));
+    return { lowestLpm: lowest.meanLps * 60, relativeSigma: lowest.relativeSigma };
+  };
+  const reachFlow = reach.length > 0 ? { ...lowestOf(reach), measurements: input.flowMeasurements ?? [] } : null;
+  const cache = new Map<number, ReturnType<SearchContext['flowAt']>>();
+  const flowAt: SearchContext['flowAt'] = (station) => {
+    if (station.flowLpm == null || !(station.flowLpm > 0)) return reachFlow;
+    const hit = cache.get(station.flowLpm);
+    if (hit !== undefined) return hit;
+    const measurements = stationMeasurements(station.flowLpm);
+    const flow = { ...lowestOf(measurements.map((m) => flowMeasurementSchema.parse(m))), measurements };
+    cache.set(station.flowLpm, flow);
+    return flow;
+  };
+  const demandLpd = demandBreakdown(input.demand.map((d) => ({ ...d })), settings.demandOverrides).reduce((s, l) => s + l.dailyL, 0);
+  // A single levelled set-up between intake and ram, as the synthesized readings below carry.
+  const fallSigmaM = combineRuns([{ method: 'level', rows: [{ backsightM: 0 }, { foresightM: 1 }] }]).sigmaM;
+  const liftSigmaFor = (liftM: number) => estimateLift({ kind: 'direct', staticLiftM: liftM, method: 'level', uncertaintyM: input.liftUncertaintyM }).sigmaM;
+  return { input, settings, ctxCurve: EFFICIENCY_CURVES[settings.efficiencyCurve], demandLpd, flowAt, fallSigmaM, liftSigmaFor };
+}
+
+/** Fall, lift and pipe lengths of a pair; the intake must lie upstream (smaller chainage). */
+export function pairGeometry(intake: ProfileStation, pump: ProfileStation, tank: ProfileTank): PairGeometry {
+  const fallM = intake.levelM - pump.levelM;
+  const staticLiftM = tank.levelM - pump.levelM;
+  const driveLengthM = Math.hypot(pump.chainageM - intake.chainageM, fallM);
+  const deliveryLengthM = Math.hypot(Math.hypot(tank.chainageM - pump.chainageM, tank.offsetM), staticLiftM);
+  return { fallM, staticLiftM, driveLengthM, deliveryLengthM };
+}
+
+/** The cheap rules, cheapest first; null when the pair passes them all. */
+export function checkPair(s: SearchContext, intake: ProfileStation, pump: ProfileStation): RejectCode | null {
+  if (intake.flags?.includes('no-intake')) return 'flag-intake';
+  if (pump.flags?.includes('no-pump-site')) return 'flag-pump';
+  const g = pairGeometry(intake, pump, s.input.tank);
+  if (g.fallM < MIN_FALL_M) return 'little-fall';
+  const band = driveLengthBandM(g.fallM, s.settings.driveLengthRule);
+  if (g.driveLengthM < band.minM) return 'drive-short';
+  if (g.driveLengthM > band.maxM) return 'drive-long';
+  if (g.staticLiftM <= g.fallM) return 'gravity';
+  if (g.staticLiftM / g.fallM > MAX_LIFT_RATIO) return 'lift-ratio';
+  const flow = s.flowAt(intake);
+  if (!flow || ramSizeForFlow(s.settings.designFractionOfLowest * flow.lowestLpm).row === null) return 'little-flow';
+  const row = ramSizeForFlow(s.settings.designFractionOfLowest * flow.lowestLpm).row as RamSizeRow;
+  const drive = designDrivePipe({ fallM: g.fallM, totalLiftM: g.staticLiftM, driveLpm: row.minLpm, ram: row, pipe: { lengthM: g.driveLengthM, material: s.input.drivePipeMaterial ?? 'galvanized-steel' }, ruleId: s.settings.driveLengthRule });
+  if (drive.lengthToDiameter < DRIVE_LD_BAND.min || drive.lengthToDiameter > DRIVE_LD_BAND.max) return 'drive-ld';
+  return null;
+}
+
+/** The raw readings screenSite gets for a pair: the profile's fall as one levelled set-up, the lift as levelled. */
+export function pairReadings(s: SearchContext, intake: ProfileStation, pump: ProfileStation, samples: number): SiteReadingsInput {
+  const g = pairGeometry(intake, pump, s.input.tank);
+  const flow = s.flowAt(intake);
+  return {
+    flowMeasurements: flow?.measurements ?? [],
+    fallRuns: [{ method: 'level', rows: [{ backsightM: 0 }, { foresightM: g.fallM }] }],
+    lift: { kind: 'direct', staticLiftM: g.staticLiftM, method: 'level', ...(s.input.liftUncertaintyM ? { uncertaintyM: s.input.liftUncertaintyM } : {}) },
+    drivePipe: { lengthM: g.driveLengthM, material: (s.input.drivePipeMaterial ?? 'galvanized-steel') as 'galvanized-steel' },
+    deliveryPipe: { lengthM: g.deliveryLengthM, material: (s.input.deliveryPipe?.material ?? 'hdpe') as 'hdpe', ...(s.input.deliveryPipe?.diameterMm ? { diameterMm: s.input.deliveryPipe.diameterMm } : {}) },
+    demand: s.input.demand,
+    settings: s.input.settings ?? {},
+    monteCarlo: { samples, seed: s.input.seed ?? 1 },
+  };
+}
+
+/** What ranks a pair: probability of meeting demand, delivery per day, total pipe. */
+export interface RankKey {
+  probabilityMeetsDemand: number;
+  deliveryLpd: number;
+  totalPipeM: number;
+}
+
+/** Orders best first: higher probability, then more delivery, then less pipe. */
+export function compareKeys(a: RankKey, b: RankKey): number {
+  return b.probabilityMeetsDemand - a.probabilityMeetsDemand || b.deliveryLpd - a.deliveryLpd || a.totalPipeM - b.totalPipeM;
+}
+
+/**
+ * The same delivery and Monte Carlo as screenSite (same operating point, delivery pipe choice and seed),
+ * with fewer draws: the draws are a prefix of the full run's, so a pair certain in full is certain here.
+ */
+export function quickKey(s: SearchContext, intake: ProfileStation, pump: ProfileStation, samples: number): RankKey {
+  const g = pairGeometry(intake, pump, s.input.tank);
+  const flow = s.flowAt(intake);
+  const designLpm = s.settings.designFractionOfLowest * (flow?.lowestLpm ?? 0);
+  const ram = ramSizeForFlow(designLpm);
+  const row = ram.row ?? (RAM_SIZE_TABLE[0] as RamSizeRow);
+  const at = (k: number) => operatingPoint({ curve: s.ctxCurve, deliveryFrictionK: k }, g.fallM, g.staticLiftM, ram.usedLpm);
+  const delivery = designDeliveryPipe({
+    pipe: { lengthM: g.deliveryLengthM, material: s.input.deliveryPipe?.material ?? 'hdpe', diameterMm: s.input.deliveryPipe?.diameterMm },
+    fittingsAllowance: s.settings.fittingsAllowanceFraction, ram: row, staticLiftM: g.staticLiftM,
+    deliveryFor: (k) => { const p = at(k); return { deliveryLpm: p.deliveryLpm, frictionM: p.frictionM }; },
+  });
+  const mc = runMonteCarlo({
+    ctx: { curve: s.ctxCurve, deliveryFrictionK: delivery.frictionK }, fallM: g.fallM, fallSigmaM: s.fallSigmaM,
+    staticLiftM: g.staticLiftM, staticLiftSigmaM: s.liftSigmaFor(g.staticLiftM), lowestFlowLpm: flow?.lowestLpm ?? 0,
+    lowestFlowRelativeSigma: flow?.relativeSigma ?? 0, designFraction: s.settings.designFractionOfLowest,
+    ramMaxLpm: row.maxLpm, ramMinLpm: row.minLpm, demandLpd: s.demandLpd, samples, seed: s.input.seed ?? 1,
+  });
+  return { probabilityMeetsDemand: mc.probabilityMeetsDemand, deliveryLpd: at(delivery.frictionK).deliveryLpm * 1440, totalPipeM: g.driveLengthM + g.deliveryLengthM };
+}

@@ -1,0 +1,54 @@
+import { expect, test } from '@playwright/test';
+import { query } from './support/db';
+
+// An advisor runs the creek profile search offline on the demo reach (Brandt spring brook), adopts the
+// best pair, and after the sync the stored screening uses its fall.
+
+test.setTimeout(120_000);
+
+test('find the best positions offline, adopt the best pair, the server screening uses it', async ({ browser }) => {
+  const context = await browser.newContext({ baseURL: test.info().project.use.baseURL });
+  const page = await context.newPage();
+  await page.goto('/login');
+  await page.getByLabel('E-mail').fill('tobias@wenlow-water.test');
+  await page.getByLabel('Password').fill('fallbook-demo');
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page).toHaveURL(/\/field$/);
+  await expect.poll(() => page.evaluate(() => !!navigator.serviceWorker.controller).catch(() => false), { timeout: 20_000 }).toBe(true);
+  const link = page.getByRole('link', { name: /Brandt Hollow/ });
+  await expect(link).toBeVisible({ timeout: 15_000 });
+  const visitId = new URL((await link.getAttribute('href')) ?? '', 'http://x').searchParams.get('id') ?? '';
+  expect(visitId).toMatch(/^[0-9a-f-]{36}$/);
+  await page.goto(`/field/visit/positions?id=${visitId}`);
+  await expect(page.getByRole('heading', { name: 'Creek profile and best positions' })).toBeVisible();
+  await expect(page.getByText('30 stations')).toBeVisible({ timeout: 15_000 });
+
+  await context.setOffline(true);
+  await page.getByLabel('Distance away from the creek', { exact: true }).fill('120');
+  await page.getByRole('button', { name: 'Find the best positions' }).click();
+  const best = page.getByTestId('pair-1');
+  await expect(best).toBeVisible({ timeout: 30_000 });
+  // By construction of the demo reach: the whole slate step (100 → 130 m) is the most fall the rules allow.
+  await expect(best).toContainText('Intake at 100.000 m, ram at 130.000 m');
+  await expect(page.getByTestId('pair-line-1')).toBeVisible();
+  await expect(page.getByTestId('pair-3')).toBeVisible();
+  await page.screenshot({ path: test.info().outputPath('best-positions.png'), fullPage: true });
+
+  page.once('dialog', (d) => d.accept());
+  await page.getByRole('button', { name: 'Adopt pair 1' }).click();
+  await expect(page.getByText('Pair 1 adopted on this phone')).toBeVisible();
+
+  await context.setOffline(false);
+  await page.goto('/field/sync');
+  await page.getByRole('button', { name: 'Sync now' }).click();
+  await expect(page.getByTestId('sync-summary')).toHaveText('Everything is on the server', { timeout: 30_000 });
+
+  const [pump] = await query<{ chainageM: number; level: number }>("SELECT chainage_m AS chainageM, reduced_level_m AS level FROM points WHERE visit_id = ? AND role = 'pump' AND deleted_at IS NULL", [visitId]);
+  expect(pump?.chainageM).toBe(130);
+  await expect.poll(async () => {
+    const [s] = await query<{ result: string }>('SELECT result FROM screenings WHERE visit_id = ? ORDER BY created_at DESC LIMIT 1', [visitId]);
+    const r = (typeof s?.result === 'string' ? JSON.parse(s.result) : s?.result) as { figures: { fallM: { value: number } } } | undefined;
+    return r?.figures.fallM.value;
+  }, { timeout: 15_000 }).toBeCloseTo(4.6, 3);
+  await context.close();
+});
