@@ -1,4 +1,4 @@
-import { DataTypes, type Sequelize } from 'sequelize';
+import { DataTypes, type CreationOptional, type Sequelize } from 'sequelize';
 import type { PointRole } from '@/lib/shared/domain';
 import { SyncedModel, syncedColumns, uuidKey } from './synced';
 
