@@ -14,6 +14,7 @@ import { farmSchema, bulkAssignSchema, invitationSchema, personUpdateSchema, set
 import { idParam, pageQuery, visitFilters, visitListQuery } from '@/lib/shared/schemas/list-query';
 import { farmNeedsBody, paperQuery, questionBody, sendSheetBody } from '@/lib/shared/schemas/sheet';
 import { pullQuerySchema, pushRequestSchema } from '@/lib/shared/schemas/sync';
+import { commissioningInputSchema } from '@/lib/shared/schemas/commissioning';
 import { params } from './support/fixtures';
 import { DELETE, databaseFingerprint, hostileRawBody, hostileString, hostileValue, pathsOf, withAt } from './support/hostile';
 import { ROUTES, handlerOf, routeParams, type GuardedRoute } from './support/route-table';
@@ -57,6 +58,8 @@ const SCHEMAS: Record<string, Schemas> = {
   'POST app/api/visits/[id]/sheet/acknowledge/route.ts': {},
   'GET app/api/visits/[id]/sheet/questions/route.ts': {},
   'POST app/api/visits/[id]/sheet/questions/route.ts': { body: questionBody },
+  'GET app/api/commissionings/route.ts': {},
+  'POST app/api/visits/[id]/commissioning/route.ts': { body: commissioningInputSchema },
 };
 
 const guarded = ROUTES.filter((r): r is GuardedRoute => !('public' in r));

@@ -106,6 +106,14 @@ export const ROUTES: RouteEntry[] = [
     build: async (u) => request('/api/organisation/settings', u, json('PUT', { unitsDefault: 'metric', designFractionOfLowest: 0.5, demandFigures: {}, pipePrices: [] })),
   },
   {
+    file: 'app/api/commissionings/route.ts', method: 'GET', load: () => import('@/app/api/commissionings/route'), permissions: ['commissioning:read'], target: 'none', ok: 200,
+    build: async (u) => request('/api/commissionings', u),
+  },
+  {
+    file: 'app/api/visits/[id]/commissioning/route.ts', method: 'POST', load: () => import('@/app/api/visits/[id]/commissioning/route'), permissions: ['visit:commission'], target: 'visit', ok: 201,
+    build: async (u, r) => request(`/api/visits/${need(r).visitId}/commissioning`, u, json('POST', { driveLpm: 60, deliveredLpm: 4, beatsPerMinute: 60, liftM: 30 })),
+  },
+  {
     file: 'app/api/people/route.ts', method: 'GET', load: () => import('@/app/api/people/route'), permissions: ['people:read'], target: 'none', ok: 200,
     build: async (u) => request('/api/people', u),
   },
