@@ -7,7 +7,7 @@ import { randomUUID } from 'node:crypto';
 import * as mariadb from 'mariadb';
 import { makeOrganisation } from '../integration/support/fixtures';
 import { clientFor, pool } from './support/http';
-import { budget, median, quantile, report, round } from './support/report';
+import { budget, type Budget, median, quantile, report, round } from './support/report';
 import { closeSequelize, getSequelize } from '@/lib/server/db';
 import { visitsCsv } from '@/lib/server/data/visit-export';
 import { listVisits } from '@/lib/server/data/visits';
@@ -50,7 +50,8 @@ async function seed(conn: Conn, org: Awaited<ReturnType<typeof makeOrganisation>
 
 /** Every distinct SQL the list and the export run for each sort and each filter, captured from Sequelize. */
 async function capturedQueries(user: SessionUser, advisorId: string): Promise<string[]> {
-  const sequelize = getSequelize();
+  // Sequelize reads options.logging on every query; its type does not declare options.
+  const sequelize = getSequelize() as unknown as { options: { logging: unknown } };
   const seen = new Set<string>();
   const previous = sequelize.options.logging;
   sequelize.options.logging = (sql: string) => { seen.add(sql.replace(/^Executing \([^)]*\): /, '')); };
@@ -109,8 +110,8 @@ async function main() {
       if (res.status !== 200) throw new Error(`${c.path} answered ${res.status}: ${res.body.slice(0, 200)}`);
       if (c.path.includes('export') && res.body.trim().split('\n').length !== EXPORT_ROWS + 1) throw new Error('export row count differs');
     }
-    const rows = [];
-    const budgets = [];
+    const rows: Record<string, unknown>[] = [];
+    const budgets: Budget[] = [];
     for (const c of cases) {
       const p50s: number[] = [];
       const p99s: number[] = [];

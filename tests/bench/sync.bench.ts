@@ -111,7 +111,7 @@ async function main() {
 
     const orgs = await Promise.all(Array.from({ length: DEVICES / 2 }, (_, i) => makeOrganisation(`bench-load-${i}`)));
     const devices = orgs.flatMap((o) => [{ user: o.advisor, visitId: o.visit.id }, { user: o.otherAdvisor, visitId: o.otherVisit.id }]);
-    const loads = [];
+    const loads: Awaited<ReturnType<typeof loadRun>>[] = [];
     for (let run = 0; run < RUNS; run++) loads.push(await loadRun(devices));
     const p = (key: 'pushes' | 'pulls', q: number) => round(median(loads.map((l) => quantile(l[key], q))));
     const errors = loads.reduce((a, l) => a + l.errors + (l.expected - l.pushes.length - l.pulls.length - l.errors), 0);
