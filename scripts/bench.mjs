@@ -3,7 +3,7 @@
 // (react-server conditions, so server code loads) in turn. Each bench prints "BENCH {json}" lines with rows
 // and budgets; they are merged into bench/results.json and printed as tables. Exit 1 on a failed bench or a
 // missed budget (never part of npm test). Pass names to run only some benches: npm run bench -- sync office
-import { spawnSync } from 'node:child_process';
+import { spawn } from 'node:child_process';
 import { mkdirSync, readdirSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -27,6 +27,19 @@ const tsx = path.join(root, 'node_modules', 'tsx', 'dist', 'cli.mjs');
 const files = readdirSync(benchDir).filter((f) => f.endsWith('.bench.ts'))
   .filter((f) => wanted.length === 0 || wanted.some((w) => f.startsWith(w))).sort();
 
+/** Runs a bench with its output shown as it comes; resolves with its exit status and stdout. */
+function runStreaming(args, env) {
+  return new Promise((resolve) => {
+    const child = spawn(process.execPath, args, { cwd: root, env, stdio: ['ignore', 'pipe', 'inherit'] });
+    let stdout = '';
+    child.stdout.on('data', (chunk) => {
+      stdout += chunk;
+      process.stdout.write(chunk);
+    });
+    child.on('exit', (code, signal) => resolve({ status: code ?? (signal ? 1 : 0), stdout }));
+  });
+}
+
 const { db, startedDb, mail } = await bringUpServices({ freshDatabase: true });
 const servers = [];
 const results = [];
@@ -44,10 +57,7 @@ try {
 
   for (const file of files) {
     process.stdout.write(`\nbench: ${file}\n`);
-    const run = spawnSync(process.execPath, [tsx, '--conditions=react-server', path.join('tests', 'bench', file)],
-      { cwd: root, encoding: 'utf8', env, maxBuffer: 64 * 1024 * 1024 });
-    process.stdout.write(run.stdout ?? '');
-    process.stderr.write(run.stderr ?? '');
+    const run = await runStreaming([tsx, '--conditions=react-server', path.join('tests', 'bench', file)], env);
     const lines = (run.stdout ?? '').split('\n').filter((l) => l.startsWith('BENCH '));
     if (run.status !== 0 || lines.length === 0) {
       failed++;

@@ -2,30 +2,23 @@
 // sign-in page, the field home and a sheet, and the empty App Router page (the floor) in the same run:
 // performance, accessibility and best practices, median of 3 runs, interleaved so every page sees the
 // same machine load. Run with npm run bench (it serves the app and the floor).
-import * as chromeLauncher from 'chrome-launcher';
-import lighthouse from 'lighthouse';
+import { spawnSync } from 'node:child_process';
 import { demoCookie, screenedVisitOf } from './support/demo';
 import { appUrl, budget, median, report } from './support/report';
 
 const RUNS = 3;
-const CHROME_PATH = process.env.CHROME_PATH || '/usr/bin/chromium';
-const FLAGS = ['--headless=new', '--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage'];
 
 interface Target { name: string; url: string; cookie?: string }
-type Scores = { performance: number; accessibility: number; bestPractices: number };
+type Scores = { performance: number; accessibility: number; bestPractices: number; failing: string[] };
 
-async function audit(port: number, target: Target): Promise<Scores> {
-  const result = await lighthouse(target.url, {
-    port, output: 'json', logLevel: 'error', onlyCategories: ['performance', 'accessibility', 'best-practices'],
-    extraHeaders: target.cookie ? { Cookie: target.cookie } : undefined,
-  });
-  const lhr = result?.lhr;
-  if (!lhr) throw new Error(`Lighthouse gave no result for ${target.url}`);
-  if (lhr.runtimeError) throw new Error(`Lighthouse: ${lhr.runtimeError.message}`);
-  const score = (id: string) => Math.round((lhr.categories[id]?.score ?? NaN) * 100);
-  const failing = Object.values(lhr.audits).filter((a) => a.score !== null && a.score < 1 && a.scoreDisplayMode === 'binary').map((a) => a.id);
-  if (failing.length) console.log(`${target.name}: failing audits: ${failing.join(', ')}`);
-  return { performance: score('performance'), accessibility: score('accessibility'), bestPractices: score('best-practices') };
+/** One audit in a child process (plain Node, fresh browser: no cache or worker carried over). */
+function audit(target: Target): Scores {
+  const run = spawnSync(process.execPath, ['tests/bench/support/lighthouse-run.mjs', target.url, ...(target.cookie ? [target.cookie] : [])],
+    { encoding: 'utf8', timeout: 180_000 });
+  if (run.status !== 0) throw new Error(`Lighthouse failed on ${target.url}: ${run.stderr}`);
+  const scores = JSON.parse(run.stdout.trim().split('\n').pop() ?? '{}') as Scores;
+  if (scores.failing.length) console.log(`${target.name}: audits not passed: ${scores.failing.join(', ')}`);
+  return scores;
 }
 
 async function main() {
@@ -44,16 +37,10 @@ async function main() {
   const samples = new Map<string, Scores[]>();
   for (let run = 0; run < RUNS; run++) {
     for (const target of targets) {
-      // A fresh browser per audit: no cache or worker carried from one page to the next.
-      const chrome = await chromeLauncher.launch({ chromePath: CHROME_PATH, chromeFlags: FLAGS });
-      try {
-        samples.set(target.name, [...(samples.get(target.name) ?? []), await audit(chrome.port, target)]);
-      } finally {
-        await chrome.kill();
-      }
+      samples.set(target.name, [...(samples.get(target.name) ?? []), audit(target)]);
     }
   }
-  const med = (name: string, key: keyof Scores) => median((samples.get(name) ?? []).map((s) => s[key]));
+  const med = (name: string, key: Exclude<keyof Scores, 'failing'>) => median((samples.get(name) ?? []).map((s) => s[key]));
   const floor = targets[0]!.name;
   const rows = targets.map((t) => ({
     name: t.name, performance: med(t.name, 'performance'), accessibility: med(t.name, 'accessibility'), bestPractices: med(t.name, 'bestPractices'),

@@ -16,7 +16,7 @@ const BATCH = 200;
 const RUNS = 3;
 const DEVICES = 50;
 const DEVICE_OPS = 50;
-const ROUNDS = 4;
+const ROUNDS = 2;
 const LOAD_DEADLINE_MS = 120_000;
 
 const pointOps = (visitId: string, n: number) => Array.from({ length: n }, (_, i) => putOp('point', randomUUID(), {
