@@ -3,7 +3,7 @@
 // performance, accessibility and best practices, median of 3 runs, interleaved so every page sees the
 // same machine load. Run with npm run bench (it serves the app and the floor).
 import { spawnSync } from 'node:child_process';
-import { demoCookie, screenedVisitOf } from './support/demo';
+import { demoCookie, farmerOf, screenedVisitOf } from './support/demo';
 import { appUrl, budget, median, report } from './support/report';
 
 const RUNS = 3;
@@ -26,13 +26,14 @@ async function main() {
   const floorUrl = process.env.BENCH_FLOOR_URL;
   if (!floorUrl) throw new Error('BENCH_FLOOR_URL is not set: run with npm run bench');
   const advisor = await demoCookie('tobias@wenlow-water.test');
-  const coordinator = await demoCookie('maren@wenlow-water.test');
   const visitId = await screenedVisitOf('tobias@wenlow-water.test');
+  // The sheet as its reader sees it: the farmer (with the reply form).
+  const farmer = await demoCookie(await farmerOf(visitId));
   const targets: Target[] = [
     { name: 'empty App Router page (floor)', url: `${floorUrl}/` },
     { name: 'sign-in /login', url: `${app}/login` },
     { name: 'field home /field', url: `${app}/field`, cookie: advisor.header },
-    { name: 'sheet /sheets/[visitId]', url: `${app}/sheets/${visitId}`, cookie: coordinator.header },
+    { name: 'sheet /sheets/[visitId]', url: `${app}/sheets/${visitId}`, cookie: farmer.header },
   ];
   const samples = new Map<string, Scores[]>();
   for (let run = 0; run < RUNS; run++) {

@@ -4,7 +4,7 @@
 // not the page's load) and every script response is gzipped. Median of 3 loads.
 import { gzipSync } from 'node:zlib';
 import { chromium, devices, type Browser } from '@playwright/test';
-import { demoCookie, screenedVisitOf } from './support/demo';
+import { demoCookie, farmerOf, screenedVisitOf } from './support/demo';
 import { appUrl, budget, median, report, round } from './support/report';
 
 const RUNS = 3;
@@ -34,15 +34,16 @@ async function main() {
   const floorUrl = process.env.BENCH_FLOOR_URL;
   if (!floorUrl) throw new Error('BENCH_FLOOR_URL is not set: run with npm run bench');
   const advisor = await demoCookie('tobias@wenlow-water.test');
-  const coordinator = await demoCookie('maren@wenlow-water.test');
   const visitId = await screenedVisitOf('tobias@wenlow-water.test');
+  // The sheet as its reader sees it: the farmer (with the reply form).
+  const farmer = await demoCookie(await farmerOf(visitId));
   const pages: Page[] = [
     { name: 'empty App Router page (floor)', url: `${floorUrl}/` },
     { name: 'sign-in /login', url: `${app}/login` },
     { name: 'field home /field', url: `${app}/field`, cookie: advisor },
     { name: 'field capture /field/visit/flow', url: `${app}/field/visit/flow?id=${visitId}`, cookie: advisor },
     { name: 'field visit /field/visit', url: `${app}/field/visit?id=${visitId}`, cookie: advisor },
-    { name: 'sheet /sheets/[visitId]', url: `${app}/sheets/${visitId}`, cookie: coordinator },
+    { name: 'sheet /sheets/[visitId]', url: `${app}/sheets/${visitId}`, cookie: farmer },
   ];
   const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: ['--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage'] });
   try {

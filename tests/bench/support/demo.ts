@@ -33,3 +33,11 @@ export async function screenedVisitOf(email: string): Promise<string> {
   if (!row) throw new Error(`no screened visit of ${email}`);
   return row.id;
 }
+
+/** The e-mail of the farmer who owns the visit's farm (the sheet's reader). */
+export async function farmerOf(visitId: string): Promise<string> {
+  const [row] = await query<{ email: string }>(
+    'SELECT u.email FROM visits v JOIN farms f ON f.id = v.farm_id JOIN users u ON u.id = f.owner_id WHERE v.id = ?', [visitId]);
+  if (!row) throw new Error(`visit ${visitId} has no farmer`);
+  return row.email;
+}
