@@ -4,7 +4,7 @@
 // and budgets; they are merged into bench/results.json and printed as tables. Exit 1 on a failed bench or a
 // missed budget (never part of npm test). Pass names to run only some benches: npm run bench -- sync office
 import { spawn } from 'node:child_process';
-import { mkdirSync, readdirSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { loadEnv, root } from './lib/env.mjs';
@@ -71,11 +71,17 @@ try {
   if (startedDb || process.env.CI) await stopDatabase(db);
 }
 
+// A partial run (names given) replaces those benches in the last results and keeps the others.
+const resultsFile = path.join(root, 'bench', 'results.json');
+if (wanted.length > 0 && existsSync(resultsFile)) {
+  const ran = new Set(results.map((r) => r.bench));
+  results.unshift(...JSON.parse(readFileSync(resultsFile, 'utf8')).results.filter((r) => !ran.has(r.bench)));
+}
 const budgets = results.flatMap((r) => (r.budgets ?? []).map((b) => ({ bench: r.bench, ...b })));
 const missed = budgets.filter((b) => !b.met);
 mkdirSync(path.join(root, 'bench'), { recursive: true });
 const out = { at: new Date().toISOString(), cpu: os.cpus()[0]?.model ?? 'unknown', cpus: os.cpus().length, node: process.version, results, budgets };
-writeFileSync(path.join(root, 'bench', 'results.json'), `${JSON.stringify(out, null, 2)}\n`);
+writeFileSync(resultsFile, `${JSON.stringify(out, null, 2)}\n`);
 
 console.log('\nfigures');
 console.table(results.flatMap((r) => (r.rows ?? []).map((row) => ({ bench: r.bench, ...row }))));
