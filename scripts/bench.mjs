@@ -1,37 +1,91 @@
-// npm run bench – runs every tests/bench/*.bench.ts with tsx (react-server conditions, so server code loads) in turn, merges their "BENCH {json}" lines
-// into bench/results.json and prints a table. A bench that fails or prints no BENCH line fails the run.
-import { spawnSync } from 'node:child_process';
-import { mkdirSync, readdirSync, writeFileSync } from 'node:fs';
+// npm run bench – sets up like npm test (test profile database, demo data, fake mail, the production build),
+// builds the empty App Router floor app, serves both, then runs every tests/bench/*.bench.ts with tsx
+// (react-server conditions, so server code loads) in turn. Each bench prints "BENCH {json}" lines with rows
+// and budgets; they are merged into bench/results.json and printed as tables. Exit 1 on a failed bench or a
+// missed budget (never part of npm test). Pass names to run only some benches: npm run bench -- sync office
+import { spawn } from 'node:child_process';
+import { existsSync, mkdirSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { loadEnv, root } from './lib/env.mjs';
+import { ensureDebianPackages, ensureNodeModules, log } from './lib/proc.mjs';
 
-const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+const started = Date.now();
+ensureNodeModules();
+ensureDebianPackages(['chromium'], 'chromium');
+loadEnv('test');
+
+const { bringUpServices } = await import('./lib/stack.mjs');
+const { ensureBuild } = await import('./lib/build.mjs');
+const { ensureFloorBuild, floorDir } = await import('./lib/floor-app.mjs');
+const { startNext } = await import('./lib/next-server.mjs');
+const { stopDatabase } = await import('./lib/mariadb.mjs');
+
+const wanted = process.argv.slice(2).filter((a) => !a.startsWith('-'));
 const benchDir = path.join(root, 'tests', 'bench');
 const tsx = path.join(root, 'node_modules', 'tsx', 'dist', 'cli.mjs');
-const files = readdirSync(benchDir).filter((f) => f.endsWith('.bench.ts')).sort();
+const files = readdirSync(benchDir).filter((f) => f.endsWith('.bench.ts'))
+  .filter((f) => wanted.length === 0 || wanted.some((w) => f.startsWith(w))).sort();
 
-const results = [];
-let failed = 0;
-for (const file of files) {
-  process.stdout.write(`bench: ${file}\n`);
-  const run = spawnSync(process.execPath, [tsx, '--conditions=react-server', path.join('tests', 'bench', file)], { cwd: root, encoding: 'utf8' });
-  process.stdout.write(run.stdout ?? '');
-  process.stderr.write(run.stderr ?? '');
-  const lines = (run.stdout ?? '').split('\n').filter((l) => l.startsWith('BENCH '));
-  if (run.status !== 0 || lines.length === 0) {
-    failed++;
-    process.stderr.write(`bench: ${file} failed (exit ${run.status}, ${lines.length} BENCH line(s))\n`);
-    continue;
-  }
-  for (const line of lines) results.push({ file, ...JSON.parse(line.slice('BENCH '.length)) });
+/** Runs a bench with its output shown as it comes; resolves with its exit status and stdout. */
+function runStreaming(args, env) {
+  return new Promise((resolve) => {
+    const child = spawn(process.execPath, args, { cwd: root, env, stdio: ['ignore', 'pipe', 'inherit'] });
+    let stdout = '';
+    child.stdout.on('data', (chunk) => {
+      stdout += chunk;
+      process.stdout.write(chunk);
+    });
+    child.on('exit', (code, signal) => resolve({ status: code ?? (signal ? 1 : 0), stdout }));
+  });
 }
 
-mkdirSync(path.join(root, 'bench'), { recursive: true });
-const out = { at: new Date().toISOString(), cpu: os.cpus()[0]?.model ?? 'unknown', cpus: os.cpus().length, node: process.version, results };
-writeFileSync(path.join(root, 'bench', 'results.json'), `${JSON.stringify(out, null, 2)}\n`);
+const { db, startedDb, mail } = await bringUpServices({ freshDatabase: true });
+const servers = [];
+const results = [];
+let failed = 0;
+try {
+  ensureBuild();
+  ensureFloorBuild();
+  const port = Number(process.env.PORT);
+  const app = await startNext({ cwd: root, port, probe: '/api/health', label: 'app' });
+  servers.push(app);
+  // The floor listens a few ports above the app, inside this checkout's offset band.
+  const floor = await startNext({ cwd: floorDir, port: port + 5, label: 'floor' });
+  servers.push(floor);
+  const env = { ...process.env, BENCH_APP_URL: app.url, BENCH_APP_PID: String(app.pid), BENCH_FLOOR_URL: floor.url };
 
-console.log('\nsummary');
+  for (const file of files) {
+    process.stdout.write(`\nbench: ${file}\n`);
+    const run = await runStreaming([tsx, '--conditions=react-server', path.join('tests', 'bench', file)], env);
+    const lines = (run.stdout ?? '').split('\n').filter((l) => l.startsWith('BENCH '));
+    if (run.status !== 0 || lines.length === 0) {
+      failed++;
+      process.stderr.write(`bench: ${file} failed (exit ${run.status}, ${lines.length} BENCH line(s))\n`);
+    }
+    for (const line of lines) results.push({ file, ...JSON.parse(line.slice('BENCH '.length)) });
+  }
+} finally {
+  for (const server of servers.reverse()) await server.stop();
+  await mail.close().catch(() => {});
+  if (startedDb || process.env.CI) await stopDatabase(db);
+}
+
+// A partial run (names given) replaces those benches in the last results and keeps the others.
+const resultsFile = path.join(root, 'bench', 'results.json');
+if (wanted.length > 0 && existsSync(resultsFile)) {
+  const ran = new Set(results.map((r) => r.bench));
+  results.unshift(...JSON.parse(readFileSync(resultsFile, 'utf8')).results.filter((r) => !ran.has(r.bench)));
+}
+const budgets = results.flatMap((r) => (r.budgets ?? []).map((b) => ({ bench: r.bench, ...b })));
+const missed = budgets.filter((b) => !b.met);
+mkdirSync(path.join(root, 'bench'), { recursive: true });
+const out = { at: new Date().toISOString(), cpu: os.cpus()[0]?.model ?? 'unknown', cpus: os.cpus().length, node: process.version, results, budgets };
+writeFileSync(resultsFile, `${JSON.stringify(out, null, 2)}\n`);
+
+console.log('\nfigures');
 console.table(results.flatMap((r) => (r.rows ?? []).map((row) => ({ bench: r.bench, ...row }))));
-console.log(`wrote bench/results.json (${results.length} bench result(s), ${failed} failed)`);
-process.exit(failed > 0 ? 1 : 0);
+console.log('budgets');
+console.table(budgets.map((b) => ({ bench: b.bench, budget: b.name, value: b.value, limit: `${b.op} ${b.limit}`, unit: b.unit ?? '', met: b.met ? 'yes' : 'MISSED' })));
+log(`wrote bench/results.json (${results.length} bench result(s), ${failed} failed, ${budgets.length - missed.length}/${budgets.length} budgets met) in ${((Date.now() - started) / 1000).toFixed(0)} s`);
+process.exit(failed > 0 || missed.length > 0 ? 1 : 0);

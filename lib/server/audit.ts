@@ -19,3 +19,12 @@ export async function recordAudit(entry: AuditInput, transaction?: Transaction):
     { transaction },
   );
 }
+
+/** Appends many audit lines in one statement (a push batch's applied ops); in the caller's transaction. */
+export async function recordAudits(entries: AuditInput[], transaction: Transaction): Promise<void> {
+  if (entries.length === 0) return;
+  await AuditEntry.bulkCreate(
+    entries.map((entry) => ({ ...entry, visitId: entry.visitId ?? null, changes: entry.changes ?? null })),
+    { transaction },
+  );
+}

@@ -64,13 +64,16 @@ export async function startDatabase(db) {
     return false;
   }
   const err = openSync(path.join(db.dataDir, 'mariadbd.err'), 'a');
+  // Its own folder for on-disk temporary tables (large sorts), not the machine's shared /tmp.
+  const tmp = `${db.dataDir}-tmp`;
+  mkdirSync(tmp, { recursive: true });
   const child = spawn('mariadbd', [
     '--no-defaults', `--datadir=${db.dataDir}`, `--user=${user}`,
     `--bind-address=${db.host}`, `--port=${db.port}`, `--socket=${db.socket}`,
     `--pid-file=${pidFile(db)}`, '--skip-name-resolve', '--skip-log-bin',
     '--character-set-server=utf8mb4', '--collation-server=utf8mb4_unicode_ci',
     '--innodb-buffer-pool-size=256M', '--innodb-flush-log-at-trx-commit=2',
-    '--max-connections=200',
+    '--max-connections=200', `--tmpdir=${tmp}`,
   ], { detached: true, stdio: ['ignore', err, err] });
   child.unref();
   await waitUntilReady(db);

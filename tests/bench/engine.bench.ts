@@ -36,4 +36,5 @@ const rows: Row[] = [
 
 console.table(rows);
 const key = rows.find((r) => r.samples === 10000);
-console.log(`BENCH ${JSON.stringify({ bench: 'engine', runs: RUNS, warmups: WARMUPS, node: process.version, rows, headline: { label: 'screenSite, 10,000 samples, median', ms: key?.medianMs ?? null } })}`);
+console.log(`BENCH ${JSON.stringify({ bench: 'engine', runs: RUNS, warmups: WARMUPS, node: process.version, rows, headline: { label: 'screenSite, 10,000 samples, median', ms: key?.medianMs ?? null },
+  budgets: rows.filter((r) => r.samples === 10000).map((r) => ({ name: `${r.name}, 10,000 samples, median in Node`, value: r.medianMs, op: '<=', limit: 50, unit: 'ms', met: r.medianMs <= 50 })) })}`);

@@ -1,52 +1,137 @@
-// Bench: 1,000 ops (5 pushes of 200 new points) through the push route handler on the test database,
-// then the same 1,000 again as replays. Starts the test profile's MariaDB if it is not running.
-// Run: node node_modules/tsx/dist/cli.mjs --conditions=react-server tests/bench/sync.bench.ts  (or `npm run bench`)
+// Bench: sync throughput on loopback. (1) 1,000 new-point ops pushed over HTTP to the served app in
+// batches of 200, against the same rows (points, sync_ops, audit_log) inserted straight with the mariadb
+// connector in batches of 200: ops/s of both and the ratio, median of 3 runs (each run measures both).
+// (2) 50 devices at once, each pushing 50 ops and pulling, for a bounded number of rounds: p50/p99.
+// Run with npm run bench (it serves the app and sets BENCH_APP_URL).
 import { randomUUID } from 'node:crypto';
-// @ts-expect-error – plain JS modules shared with the bootstrap scripts
-import { loadEnv } from '../../scripts/lib/env.mjs';
-// @ts-expect-error – as above
-import { ensureDatabase, startDatabase, stopDatabase } from '../../scripts/lib/mariadb.mjs';
-// @ts-expect-error – as above
-import { runTs } from '../../scripts/lib/stack.mjs';
+import * as mariadb from 'mariadb';
+import { makeOrganisation, type TestUser } from '../integration/support/fixtures';
+import { putOp } from '../integration/support/sync';
+import { clientFor, pool } from './support/http';
+import { budget, median, quantile, report, round } from './support/report';
+import { closeSequelize } from '@/lib/server/db';
 
 const OPS = 1000;
 const BATCH = 200;
+const RUNS = 3;
+const DEVICES = 50;
+const DEVICE_OPS = 50;
+const ROUNDS = 2;
+const LOAD_DEADLINE_MS = 120_000;
+
+const pointOps = (visitId: string, n: number) => Array.from({ length: n }, (_, i) => putOp('point', randomUUID(), {
+  visitId, role: 'station', label: `Station ${i}`, lat: 52.4 + i / 1e5, lon: -3.6, accuracyM: 4,
+  altitudeM: 230 + i / 100, altitudeAccuracyM: 6, chainageM: i, capturedAt: '2026-08-01T10:00:00Z',
+}));
+
+/** 1,000 ops through POST /api/sync/push over HTTP; ops/s. */
+async function routeRun(user: TestUser, visitId: string): Promise<number> {
+  const client = await clientFor(user);
+  const ops = pointOps(visitId, OPS);
+  const t0 = performance.now();
+  for (let i = 0; i < OPS; i += BATCH) {
+    const res = await client.post('/api/sync/push', { ops: ops.slice(i, i + BATCH) });
+    const results = JSON.parse(res.body).results as { status: string }[] | undefined;
+    if (res.status !== 200 || results?.some((r) => r.status !== 'applied')) throw new Error(`push answered ${res.status}: ${res.body.slice(0, 300)}`);
+  }
+  return (OPS / (performance.now() - t0)) * 1000;
+}
+
+/** The rows the route writes for those ops, inserted straight in batches of 200 (one transaction each); ops/s. */
+async function rawRun(conn: mariadb.Connection, user: TestUser, visitId: string): Promise<number> {
+  const ops = pointOps(visitId, OPS);
+  const now = new Date();
+  const t0 = performance.now();
+  for (let i = 0; i < OPS; i += BATCH) {
+    const slice = ops.slice(i, i + BATCH);
+    await conn.beginTransaction();
+    // A block of revisions from the counter row, as the model hook takes them one at a time.
+    await conn.query('UPDATE rev_counter SET value = LAST_INSERT_ID(value + ?) WHERE id = 1', [slice.length]);
+    const top = Number(((await conn.query('SELECT LAST_INSERT_ID() AS top')) as { top: bigint }[])[0]?.top);
+    await conn.batch(
+      'INSERT INTO points (id, visit_id, role, label, lat, lon, accuracy_m, altitude_m, altitude_accuracy_m, chainage_m, captured_at, rev, created_by_id, created_at, updated_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)',
+      slice.map((op, k) => {
+        const c = op.changes as Record<string, unknown>;
+        return [op.entityId, visitId, c.role, c.label, c.lat, c.lon, c.accuracyM, c.altitudeM, c.altitudeAccuracyM, c.chainageM, new Date(String(c.capturedAt)), top - slice.length + 1 + k, user.id, now, now];
+      }),
+    );
+    await conn.batch('INSERT INTO audit_log (organisation_id, actor_id, entity, entity_id, visit_id, action, changes, created_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?)',
+      slice.map((op) => [user.organisationId, user.id, 'point', op.entityId, visitId, 'created', JSON.stringify(op.changes), now]));
+    await conn.batch('INSERT INTO sync_ops (op_id, user_id, entity, entity_id, outcome, created_at) VALUES (?, ?, ?, ?, ?, ?)',
+      slice.map((op) => [op.opId, user.id, 'point', op.entityId, JSON.stringify({ opId: op.opId, status: 'applied', rev: 1 }), now]));
+    await conn.commit();
+  }
+  return (OPS / (performance.now() - t0)) * 1000;
+}
+
+/** 50 devices, each pushing 50 new ops then pulling from its cursor, ROUNDS times, all at once. */
+async function loadRun(devices: { user: TestUser; visitId: string }[]) {
+  const clients = await Promise.all(devices.map(async (d) => ({ ...d, client: await clientFor(d.user), cursor: 0 })));
+  const pushes: number[] = [];
+  const pulls: number[] = [];
+  let errors = 0;
+  const t0 = performance.now();
+  await pool(clients.length, clients.length, LOAD_DEADLINE_MS, async (i) => {
+    const device = clients[i];
+    if (!device) return;
+    for (let round = 0; round < ROUNDS; round++) {
+      const pushed = await device.client.post('/api/sync/push', { ops: pointOps(device.visitId, DEVICE_OPS) });
+      const ok = pushed.status === 200 && (JSON.parse(pushed.body).results as { status: string }[]).every((r) => r.status === 'applied');
+      if (ok) pushes.push(pushed.ms); else errors++;
+      const pulled = await device.client.get(`/api/sync/pull?cursor=${device.cursor}&limit=500`);
+      if (pulled.status === 200) {
+        pulls.push(pulled.ms);
+        device.cursor = JSON.parse(pulled.body).cursor as number;
+      } else errors++;
+    }
+  });
+  const wallMs = performance.now() - t0;
+  return { pushes, pulls, errors, wallMs, expected: clients.length * ROUNDS * 2 };
+}
 
 async function main() {
-  const db = loadEnv('test');
-  const started = await startDatabase(db);
-  await ensureDatabase(db);
-  runTs('scripts/migrate.ts', ['up']);
-  const { makeOrganisation } = await import('../integration/support/fixtures');
-  const { push, putOp } = await import('../integration/support/sync');
-  const { closeSequelize } = await import('@/lib/server/db');
+  const conn = await mariadb.createConnection({
+    host: process.env.DB_HOST, port: Number(process.env.DB_PORT), user: process.env.DB_USER,
+    password: process.env.DB_PASSWORD, database: process.env.DB_NAME,
+  });
   try {
-    const org = await makeOrganisation('bench');
-    const ops = Array.from({ length: OPS }, (_, i) => putOp('point', randomUUID(), {
-      visitId: org.visit.id, role: 'station', label: `Station ${i}`, lat: 52.4 + i / 1e5, lon: -3.6, accuracyM: 4,
-      altitudeM: 230 + i / 100, altitudeAccuracyM: 6, chainageM: i, capturedAt: '2026-08-01T10:00:00Z',
-    }));
-    const run = async (label: string, expected: string) => {
-      const batches: number[] = [];
-      for (let i = 0; i < OPS; i += BATCH) {
-        const t0 = performance.now();
-        const { status, results } = await push(org.advisor, { ops: ops.slice(i, i + BATCH) });
-        batches.push(performance.now() - t0);
-        if (status !== 200 || results.some((r) => r.status !== expected)) throw new Error(`${label}: push answered ${status}`);
-      }
-      const totalMs = batches.reduce((a, b) => a + b, 0);
-      const sorted = [...batches].sort((a, b) => a - b);
-      const round = (x: number) => Math.round(x * 10) / 10;
-      return { name: label, ops: OPS, batch: BATCH, totalMs: round(totalMs), opsPerSecond: Math.round((OPS / totalMs) * 1000),
-        medianBatchMs: round(sorted[Math.floor(sorted.length / 2)] ?? NaN), maxBatchMs: round(sorted[sorted.length - 1] ?? NaN) };
-    };
-    const rows = [await run('push new points', 'applied'), await run('replay the same ops', 'replayed')];
-    console.table(rows);
-    console.log(`BENCH ${JSON.stringify({ bench: 'sync-push', node: process.version, rows,
-      headline: { label: `push ${OPS} new ops in batches of ${BATCH}, ops/s`, value: rows[0]?.opsPerSecond ?? null } })}`);
+    const org = await makeOrganisation('bench-sync');
+    // Warm the server's code paths before timing.
+    await routeRun(org.otherAdvisor, org.otherVisit.id);
+    const route: number[] = [];
+    const raw: number[] = [];
+    const ratios: number[] = [];
+    for (let run = 0; run < RUNS; run++) {
+      const r = await routeRun(org.advisor, org.visit.id);
+      const w = await rawRun(conn, org.advisor, org.visit.id);
+      route.push(r);
+      raw.push(w);
+      ratios.push(r / w);
+    }
+
+    const orgs = await Promise.all(Array.from({ length: DEVICES / 2 }, (_, i) => makeOrganisation(`bench-load-${i}`)));
+    const devices = orgs.flatMap((o) => [{ user: o.advisor, visitId: o.visit.id }, { user: o.otherAdvisor, visitId: o.otherVisit.id }]);
+    const loads: Awaited<ReturnType<typeof loadRun>>[] = [];
+    for (let run = 0; run < RUNS; run++) loads.push(await loadRun(devices));
+    const p = (key: 'pushes' | 'pulls', q: number) => round(median(loads.map((l) => quantile(l[key], q))));
+    const errors = loads.reduce((a, l) => a + l.errors + (l.expected - l.pushes.length - l.pulls.length - l.errors), 0);
+
+    const rows = [
+      { name: `push route over HTTP, ${OPS} ops in batches of ${BATCH}`, opsPerSecond: Math.round(median(route)), runs: route.map(Math.round).join(' / ') },
+      { name: `raw mariadb batch insert, same rows`, opsPerSecond: Math.round(median(raw)), runs: raw.map(Math.round).join(' / ') },
+      { name: 'route / raw ratio (same run)', ratio: round(median(ratios), 3), runs: ratios.map((x) => round(x, 3)).join(' / ') },
+      { name: `${DEVICES} devices: push of ${DEVICE_OPS} ops`, samples: loads.map((l) => l.pushes.length).join(' / '), p50Ms: p('pushes', 0.5), p99Ms: p('pushes', 0.99) },
+      { name: `${DEVICES} devices: pull`, samples: loads.map((l) => l.pulls.length).join(' / '), p50Ms: p('pulls', 0.5), p99Ms: p('pulls', 0.99) },
+      { name: `${DEVICES} devices: errors`, errors, wallS: loads.map((l) => round(l.wallMs / 1000)).join(' / ') },
+    ];
+    report('sync', rows, [
+      budget('push route / raw insert rate', round(median(ratios), 3), '>=', round(1 / 3, 3)),
+      budget(`${DEVICES} devices: p99 of a ${DEVICE_OPS}-op push`, p('pushes', 0.99), '<=', 250, 'ms'),
+      budget(`${DEVICES} devices: errors`, errors, '==', 0),
+    ]);
   } finally {
+    await conn.end();
     await closeSequelize();
-    if (started) await stopDatabase(db);
   }
 }
 

@@ -2,7 +2,7 @@ import 'server-only';
 import type { Transaction } from 'sequelize';
 import { VISIT_STATUSES } from '@/lib/shared/domain';
 import { entityFields, type OpResult, type SyncOp } from '@/lib/shared/schemas/sync';
-import { recordAudit } from '../audit';
+import { recordAudit, type AuditInput } from '../audit';
 import { AppError, zodFieldErrors } from '../errors';
 import type { SyncAccess } from './access';
 import { ENTITY_SPECS, pulledRecord, sameValue, type EntitySpec, type SyncedRow } from './entities';
@@ -56,9 +56,10 @@ async function checkParent(op: SyncOp, spec: EntitySpec, row: SyncedRow | null, 
 /**
  * Applies one parsed op inside the caller's (savepoint) transaction: access, create / update /
  * soft delete with the per-field conflict check, audit line. Changes nothing unless it returns
- * 'applied'. Never throws for the op's own faults: they come back as 'rejected'.
+ * 'applied'. Never throws for the op's own faults: they come back as 'rejected'. With `audits`,
+ * the audit line is collected there for the caller to write with the batch (only applied ops add one).
  */
-export async function applyOp(op: SyncOp, access: SyncAccess, transaction: Transaction): Promise<OpEffect> {
+export async function applyOp(op: SyncOp, access: SyncAccess, transaction: Transaction, audits?: AuditInput[]): Promise<OpEffect> {
   const spec = ENTITY_SPECS[op.entity];
   const row = (await spec.model.findByPk(op.entityId, { transaction, lock: transaction.LOCK.UPDATE })) as SyncedRow | null;
   let parent: { visitId: string | null; farmId: string | null };
@@ -69,10 +70,12 @@ export async function applyOp(op: SyncOp, access: SyncAccess, transaction: Trans
     throw error;
   }
   const effect = (result: OpResult): OpEffect => ({ result, ...parent });
-  const audit = (action: string, changes: Json | null) => recordAudit({
-    organisationId: access.user.organisationId, actorId: access.user.id, entity: op.entity, entityId: op.entityId,
-    visitId: parent.visitId, action, changes,
-  }, transaction);
+  const audit = async (action: string, changes: Json | null) => {
+    const entry: AuditInput = { organisationId: access.user.organisationId, actorId: access.user.id, entity: op.entity,
+      entityId: op.entityId, visitId: parent.visitId, action, changes };
+    if (audits) audits.push(entry);
+    else await recordAudit(entry, transaction);
+  };
 
   if (!row) {
     if (op.action === 'delete' || op.baseRev !== null || op.entity === 'visit') {

@@ -2,7 +2,7 @@ import 'server-only';
 import { Op, QueryTypes, Transaction, UniqueConstraintError } from 'sequelize';
 import { SyncOp as SyncOpRow, Visit, getSequelize } from '@/lib/server/db';
 import type { OpResult, SyncOp } from '@/lib/shared/schemas/sync';
-import { recordAudit } from '../audit';
+import { recordAudit, recordAudits, type AuditInput } from '../audit';
 import type { SessionUser } from '../auth/permissions';
 import { screenVisit } from '../services/screening';
 import { SyncAccess } from './access';
@@ -30,11 +30,15 @@ async function storedOutcome(op: SyncOp, user: SessionUser, transaction: Transac
   return replayOf(op.opId, row.outcome);
 }
 
+/** What a batch writes once at its end: the applied ops' audit lines and stored outcomes. */
+interface BatchWrites { audits: AuditInput[]; outcomes: [string, string][] }
+
 /**
  * One op in its own savepoint: claim the op id in sync_ops first (the primary key makes a
- * concurrent push of the same op wait, then see it as a replay), apply, store the outcome.
+ * concurrent push of the same op wait, then see it as a replay), apply. An applied op's outcome
+ * and audit line are written with the batch (the claimed row stays locked until the commit).
  */
-async function runOp(op: SyncOp, access: SyncAccess, outer: Transaction, user: SessionUser): Promise<OpEffect> {
+async function runOp(op: SyncOp, access: SyncAccess, outer: Transaction, user: SessionUser, writes: BatchWrites): Promise<OpEffect> {
   const sequelize = getSequelize();
   try {
     return await sequelize.transaction({ transaction: outer }, async (transaction) => {
@@ -47,18 +51,35 @@ async function runOp(op: SyncOp, access: SyncAccess, outer: Transaction, user: S
         if (error instanceof UniqueConstraintError) throw new Replayed();
         throw error;
       }
-      const effect = await applyOp(op, access, transaction);
+      const audits: AuditInput[] = [];
+      const effect = await applyOp(op, access, transaction, audits);
       if (effect.result.status !== 'applied') throw new Undo(effect);
-      await sequelize.query('UPDATE sync_ops SET outcome = ? WHERE op_id = ?', {
-        replacements: [JSON.stringify(effect.result), op.opId], transaction,
-      });
+      writes.audits.push(...audits);
+      writes.outcomes.push([op.opId, JSON.stringify(effect.result)]);
       return effect;
     });
   } catch (error) {
     if (error instanceof Undo) return error.effect;
-    if (error instanceof Replayed) return { result: await storedOutcome(op, user, outer), visitId: null, farmId: null };
+    if (error instanceof Replayed) {
+      // The same op id earlier in this batch: its outcome is not written yet.
+      const earlier = writes.outcomes.find(([id]) => id === op.opId);
+      if (earlier) return { result: replayOf(op.opId, JSON.parse(earlier[1])), visitId: null, farmId: null };
+      return { result: await storedOutcome(op, user, outer), visitId: null, farmId: null };
+    }
     throw error;
   }
+}
+
+/** The batch's audit lines in one insert and its ops' outcomes in one statement. */
+async function writeBatch(writes: BatchWrites, transaction: Transaction) {
+  await recordAudits(writes.audits, transaction);
+  if (writes.outcomes.length === 0) return;
+  // Every row was claimed (inserted) by this transaction above: this only fills in the outcomes.
+  await getSequelize().query(
+    `INSERT INTO sync_ops (op_id, user_id, entity, entity_id, outcome, created_at) VALUES ${writes.outcomes.map(() => "(?, '', '', '', ?, NOW())").join(', ')}
+     ON DUPLICATE KEY UPDATE outcome = VALUES(outcome)`,
+    { replacements: writes.outcomes.flat(), transaction },
+  );
 }
 
 /** Visits whose screening may change: those touched directly, and walked visits on touched farms. */
@@ -111,12 +132,14 @@ export async function pushOps(user: SessionUser, ops: SyncOp[]): Promise<OpResul
           const known = new Map((await SyncOpRow.findAll({ where: { opId: { [Op.in]: ops.map((op) => op.opId) } }, transaction }))
             .map((row) => [row.opId, row]));
           const effects: OpEffect[] = [];
+          const writes: BatchWrites = { audits: [], outcomes: [] };
           for (const op of ops) {
             const stored = known.get(op.opId);
             effects.push(stored && stored.userId === user.id
               ? { result: replayOf(op.opId, stored.outcome), visitId: null, farmId: null }
-              : await runOp(op, access, transaction, user));
+              : await runOp(op, access, transaction, user, writes));
           }
+          await writeBatch(writes, transaction);
           await touchVisits(effects, ops, access, transaction);
           return { effects, screen: await visitsToScreen(effects, transaction) };
         },

@@ -1,0 +1,39 @@
+// The bare-framework floor for the benches: an empty App Router page built with the same Next.js,
+// in a throwaway folder under .data/ that reuses the installed node_modules through a symlink.
+import { existsSync, mkdirSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { root } from './env.mjs';
+import { log, nodeBin, run } from './proc.mjs';
+
+export const floorDir = path.join(root, '.data', 'bench-floor');
+
+const FILES = {
+  'package.json': '{ "name": "fallbook-bench-floor", "private": true }\n',
+  // Same bundler root as the app, so the symlinked node_modules stays inside it.
+  'next.config.mjs': `export default { poweredByHeader: false, turbopack: { root: ${JSON.stringify(root)} } };\n`,
+  'app/layout.jsx': 'export const metadata = { title: "Empty" };\n'
+    + 'export default function RootLayout({ children }) {\n  return <html lang="en"><body>{children}</body></html>;\n}\n',
+  'app/page.jsx': 'export default function Page() {\n  return <main><h1>Empty page</h1></main>;\n}\n',
+};
+
+function nextVersion() {
+  return JSON.parse(readFileSync(nodeBin('next/package.json'), 'utf8')).version;
+}
+
+/** Builds the empty app unless a build with this Next.js version is already there. */
+export function ensureFloorBuild() {
+  const stamp = path.join(floorDir, '.next', 'floor-stamp');
+  const want = `${nextVersion()}\n${JSON.stringify(FILES)}`;
+  if (existsSync(stamp) && readFileSync(stamp, 'utf8') === want) {
+    log('empty floor app is up to date');
+    return;
+  }
+  log('building the empty App Router app (the framework floor)…');
+  rmSync(floorDir, { recursive: true, force: true });
+  mkdirSync(path.join(floorDir, 'app'), { recursive: true });
+  for (const [file, text] of Object.entries(FILES)) writeFileSync(path.join(floorDir, file), text);
+  symlinkSync(path.join(root, 'node_modules'), path.join(floorDir, 'node_modules'), 'dir');
+  const env = { ...process.env, NODE_ENV: 'production', NEXT_TELEMETRY_DISABLED: '1' };
+  run(process.execPath, [nodeBin('next/dist/bin/next'), 'build'], { cwd: floorDir, env });
+  writeFileSync(stamp, want);
+}

@@ -1,0 +1,63 @@
+// Bench: Lighthouse 12 (mobile emulation, simulated throttling: its defaults) in Debian's Chromium on the
+// sign-in page, the field home and a sheet, and the empty App Router page (the floor) in the same run:
+// performance, accessibility and best practices, median of 3 runs, interleaved so every page sees the
+// same machine load. Run with npm run bench (it serves the app and the floor).
+import { spawnSync } from 'node:child_process';
+import { demoCookie, farmerOf, screenedVisitOf } from './support/demo';
+import { appUrl, budget, median, report } from './support/report';
+
+const RUNS = 3;
+
+interface Target { name: string; url: string; cookie?: string }
+type Scores = { performance: number; accessibility: number; bestPractices: number; failing: string[] };
+
+/** One audit in a child process (plain Node, fresh browser: no cache or worker carried over). */
+function audit(target: Target): Scores {
+  const run = spawnSync(process.execPath, ['tests/bench/support/lighthouse-run.mjs', target.url, ...(target.cookie ? [target.cookie] : [])],
+    { encoding: 'utf8', timeout: 180_000 });
+  if (run.status !== 0) throw new Error(`Lighthouse failed on ${target.url}: ${run.stderr}`);
+  const scores = JSON.parse(run.stdout.trim().split('\n').pop() ?? '{}') as Scores;
+  if (scores.failing.length) console.log(`${target.name}: audits not passed: ${scores.failing.join(', ')}`);
+  return scores;
+}
+
+async function main() {
+  const app = appUrl();
+  const floorUrl = process.env.BENCH_FLOOR_URL;
+  if (!floorUrl) throw new Error('BENCH_FLOOR_URL is not set: run with npm run bench');
+  const advisor = await demoCookie('tobias@wenlow-water.test');
+  const visitId = await screenedVisitOf('tobias@wenlow-water.test');
+  // The sheet as its reader sees it: the farmer (with the reply form).
+  const farmer = await demoCookie(await farmerOf(visitId));
+  const targets: Target[] = [
+    { name: 'empty App Router page (floor)', url: `${floorUrl}/` },
+    { name: 'sign-in /login', url: `${app}/login` },
+    { name: 'field home /field', url: `${app}/field`, cookie: advisor.header },
+    { name: 'sheet /sheets/[visitId]', url: `${app}/sheets/${visitId}`, cookie: farmer.header },
+  ];
+  const samples = new Map<string, Scores[]>();
+  for (let run = 0; run < RUNS; run++) {
+    for (const target of targets) {
+      samples.set(target.name, [...(samples.get(target.name) ?? []), audit(target)]);
+    }
+  }
+  const med = (name: string, key: Exclude<keyof Scores, 'failing'>) => median((samples.get(name) ?? []).map((s) => s[key]));
+  const floor = targets[0]!.name;
+  const rows = targets.map((t) => ({
+    name: t.name, performance: med(t.name, 'performance'), accessibility: med(t.name, 'accessibility'), bestPractices: med(t.name, 'bestPractices'),
+    perfVsFloor: med(t.name, 'performance') - med(floor, 'performance'),
+    runs: (samples.get(t.name) ?? []).map((s) => `${s.performance}/${s.accessibility}/${s.bestPractices}`).join(' '),
+  }));
+  const budgets = targets.slice(1).flatMap((t) => [
+    budget(`${t.name}: performance`, med(t.name, 'performance'), '>=', 90),
+    budget(`${t.name}: performance below the floor`, med(floor, 'performance') - med(t.name, 'performance'), '<=', 3, 'points'),
+    budget(`${t.name}: accessibility`, med(t.name, 'accessibility'), '==', 100),
+    budget(`${t.name}: best practices`, med(t.name, 'bestPractices'), '>=', 95),
+  ]);
+  report('lighthouse', rows, budgets, { lighthouse: '12.2.3' });
+}
+
+main().catch((error) => {
+  console.error(error);
+  process.exit(1);
+});

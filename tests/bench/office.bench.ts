@@ -1,0 +1,146 @@
+// Bench: the office at scale. Seeds 20,000 visits (2,000 farms) in a fresh organisation straight into
+// MariaDB, then, over HTTP on loopback as its coordinator with 10 requests at once: the visits table's
+// first page, a filtered page and the CSV export of 5,000 rows (p50/p99, median of 3 runs). Every query
+// the list and the export run (each sort and each filter) is EXPLAINed; a full table scan fails the bench.
+// Run with npm run bench (it serves the app and sets BENCH_APP_URL).
+import { randomUUID } from 'node:crypto';
+import * as mariadb from 'mariadb';
+import { makeOrganisation } from '../integration/support/fixtures';
+import { clientFor, pool } from './support/http';
+import { budget, type Budget, median, quantile, report, round } from './support/report';
+import { closeSequelize, getSequelize } from '@/lib/server/db';
+import { visitsCsv } from '@/lib/server/data/visit-export';
+import { listVisits } from '@/lib/server/data/visits';
+import { VISIT_STATUSES, type SessionUser } from '@/lib/shared/domain';
+import { VISIT_SORTS, visitFilters, type VisitListQuery } from '@/lib/shared/schemas/list-query';
+
+const VISITS = 20_000;
+const FARMS = 2_000;
+const EXPORT_ROWS = 5_000;
+const CONCURRENCY = 10;
+const RUNS = 3;
+const AREAS = ['Upper Wenn', 'Lower Wenn', 'Carrow', 'Hob Vale', 'Skelling', 'Marrow Fen', 'Tarn End', 'Colby'];
+
+type Conn = mariadb.Connection;
+
+/** Farms and visits in bulk; the export's advisor gets exactly EXPORT_ROWS visits. */
+async function seed(conn: Conn, org: Awaited<ReturnType<typeof makeOrganisation>>) {
+  const now = new Date();
+  const farmIds = Array.from({ length: FARMS }, () => randomUUID());
+  await conn.beginTransaction();
+  await conn.query('UPDATE rev_counter SET value = LAST_INSERT_ID(value + ?) WHERE id = 1', [FARMS + VISITS]);
+  let rev = Number(((await conn.query('SELECT LAST_INSERT_ID() AS top')) as { top: bigint }[])[0]?.top) - FARMS - VISITS;
+  await conn.batch('INSERT INTO farms (id, organisation_id, owner_id, name, area, notes, rev, created_at, updated_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?)',
+    farmIds.map((id, i) => [id, org.organisationId, i % 2 ? org.farmer.id : org.otherFarmer.id, `Holding ${String(i).padStart(4, '0')}`,
+      AREAS[i % AREAS.length], '', ++rev, now, now]));
+  const rows = [];
+  for (let i = 0; i < VISITS; i++) {
+    // The fixture already gave the advisor one visit: 4,999 more make the export's 5,000.
+    const advisor = i % 4 === 0 && i > 0 ? org.advisor.id : i % 4 === 1 ? org.otherAdvisor.id : null;
+    const day = new Date(Date.UTC(2025, 0, 1) + (i % 900) * 86_400_000).toISOString().slice(0, 10);
+    const r = ++rev;
+    rows.push([randomUUID(), org.organisationId, farmIds[i % FARMS], advisor, day, VISIT_STATUSES[i % VISIT_STATUSES.length], '', r, r, now, now]);
+  }
+  for (let i = 0; i < rows.length; i += 2000) {
+    await conn.batch('INSERT INTO visits (id, organisation_id, farm_id, advisor_id, planned_on, status, notes, rev, exposed_rev, created_at, updated_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)',
+      rows.slice(i, i + 2000));
+  }
+  await conn.commit();
+  await conn.query('ANALYZE TABLE visits, farms, users, screenings');
+}
+
+/** Every distinct SQL the list and the export run for each sort and each filter, captured from Sequelize. */
+async function capturedQueries(user: SessionUser, advisorId: string): Promise<string[]> {
+  // Sequelize reads options.logging on every query; its type does not declare options.
+  const sequelize = getSequelize() as unknown as { options: { logging: unknown } };
+  const seen = new Set<string>();
+  const previous = sequelize.options.logging;
+  sequelize.options.logging = (sql: string) => { seen.add(sql.replace(/^Executing \([^)]*\): /, '')); };
+  try {
+    const queries: Partial<VisitListQuery>[] = [
+      ...VISIT_SORTS.flatMap((sort) => [{ sort, dir: 'asc' as const }, { sort, dir: 'desc' as const }]),
+      { status: 'scheduled' }, { advisor: advisorId }, { advisor: 'none' }, { plannedFrom: '2025-06-01', plannedTo: '2025-09-30' },
+      { verdict: 'go' }, { verdict: 'none' }, { area: 'Carrow' }, { q: 'Holding 01' }, { overdue: true },
+      { status: 'scheduled', advisor: advisorId, area: 'Carrow', sort: 'farm' },
+    ];
+    for (const q of queries) await listVisits(user, { page: 3, pageSize: 25, ...q });
+    const filters = visitFilters.parse({ advisor: advisorId });
+    let lines = 0;
+    for await (const line of visitsCsv(user, filters)) if (line) lines++;
+    if (lines !== EXPORT_ROWS + 1) throw new Error(`export gave ${lines} lines, expected ${EXPORT_ROWS + 1}`);
+  } finally {
+    sequelize.options.logging = previous;
+  }
+  return [...seen].filter((sql) => /^\s*SELECT/i.test(sql));
+}
+
+/** EXPLAIN of each query; the ones with a full table scan (type ALL) on a table that has rows. */
+async function scans(conn: Conn, queries: string[]) {
+  const bad: { table: string; sql: string }[] = [];
+  for (const sql of queries) {
+    const plan = (await conn.query(`EXPLAIN ${sql}`)) as { table: string; type: string; rows: number | bigint }[];
+    for (const step of plan) if (step.type === 'ALL') bad.push({ table: step.table, sql: sql.slice(0, 200) });
+  }
+  return bad;
+}
+
+async function main() {
+  const conn = await mariadb.createConnection({
+    host: process.env.DB_HOST, port: Number(process.env.DB_PORT), user: process.env.DB_USER,
+    password: process.env.DB_PASSWORD, database: process.env.DB_NAME,
+  });
+  try {
+    const org = await makeOrganisation('bench-office');
+    const t0 = performance.now();
+    await seed(conn, org);
+    const seedS = round((performance.now() - t0) / 1000);
+    const coordinator: SessionUser = { ...org.coordinator, units: 'metric' };
+    const queries = await capturedQueries(coordinator, org.advisor.id);
+    const bad = await scans(conn, queries);
+    for (const b of bad) console.log(`full scan of ${b.table}: ${b.sql}`);
+
+    const client = await clientFor(org.coordinator);
+    const cases = [
+      { name: 'visits: first page', path: '/api/visits', count: 200 },
+      { name: 'visits: filtered page', path: `/api/visits?status=scheduled&area=Carrow&sort=farm&dir=asc&page=2`, count: 200 },
+      { name: `visits: CSV export of ${EXPORT_ROWS} rows`, path: `/api/visits/export.csv?advisor=${org.advisor.id}`, count: 20 },
+    ];
+    // Warm each route once, checking it answers what it should.
+    for (const c of cases) {
+      const res = await client.get(c.path);
+      if (res.status !== 200) throw new Error(`${c.path} answered ${res.status}: ${res.body.slice(0, 200)}`);
+      if (c.path.includes('export') && res.body.trim().split('\n').length !== EXPORT_ROWS + 1) throw new Error('export row count differs');
+    }
+    const rows: Record<string, unknown>[] = [];
+    const budgets: Budget[] = [];
+    for (const c of cases) {
+      const p50s: number[] = [];
+      const p99s: number[] = [];
+      let errors = 0;
+      for (let run = 0; run < RUNS; run++) {
+        const samples = await pool(c.count, CONCURRENCY, 120_000, () => client.get(c.path));
+        errors += samples.filter((s) => s.status !== 200).length;
+        const ms = samples.map((s) => s.ms);
+        p50s.push(quantile(ms, 0.5));
+        p99s.push(quantile(ms, 0.99));
+      }
+      const p99 = round(median(p99s));
+      rows.push({ name: c.name, concurrency: CONCURRENCY, requests: c.count, p50Ms: round(median(p50s)), p99Ms: p99, errors });
+      const limit = c.path.includes('export') ? 5000 : 250;
+      budgets.push(budget(`${c.name}: p99 at ${CONCURRENCY} at once`, p99, '<=', limit, 'ms'));
+      budgets.push(budget(`${c.name}: errors`, errors, '==', 0));
+    }
+    rows.push({ name: `seeded ${VISITS} visits, ${FARMS} farms`, seconds: seedS });
+    rows.push({ name: 'list + export queries EXPLAINed', queries: queries.length, fullScans: bad.length });
+    budgets.push(budget('queries with a full table scan', bad.length, '==', 0));
+    report('office', rows, budgets, { scans: bad });
+  } finally {
+    await conn.end();
+    await closeSequelize();
+  }
+}
+
+main().catch((error) => {
+  console.error(error);
+  process.exit(1);
+});

@@ -1,0 +1,28 @@
+// One Lighthouse audit in a fresh headless Chromium, run by plain Node (tsx's transform would inject
+// helpers into the functions Lighthouse sends to the page). Prints the category scores as one JSON line.
+// Usage: node tests/bench/support/lighthouse-run.mjs URL [COOKIE]
+import * as chromeLauncher from 'chrome-launcher';
+import lighthouse from 'lighthouse';
+
+const [url, cookie] = process.argv.slice(2);
+const chrome = await chromeLauncher.launch({
+  chromePath: process.env.CHROME_PATH || '/usr/bin/chromium',
+  chromeFlags: ['--headless=new', '--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage'],
+});
+try {
+  // Lighthouse's defaults: mobile form factor and screen, simulated slow 4G and 4x CPU slowdown.
+  const result = await lighthouse(url, {
+    port: chrome.port, output: 'json', logLevel: 'error', onlyCategories: ['performance', 'accessibility', 'best-practices'],
+    extraHeaders: cookie ? { Cookie: cookie } : undefined,
+  });
+  const lhr = result?.lhr;
+  if (!lhr) throw new Error(`no result for ${url}`);
+  if (lhr.runtimeError) throw new Error(lhr.runtimeError.message);
+  const score = (id) => Math.round((lhr.categories[id]?.score ?? NaN) * 100);
+  const failing = Object.values(lhr.audits).filter((a) => a.score !== null && a.score < 1 && a.scoreDisplayMode !== 'informative'
+    && a.scoreDisplayMode !== 'notApplicable' && a.scoreDisplayMode !== 'manual').map((a) => a.id);
+  process.stdout.write(`${JSON.stringify({ performance: score('performance'), accessibility: score('accessibility'),
+    bestPractices: score('best-practices'), failing })}\n`);
+} finally {
+  await chrome.kill();
+}
