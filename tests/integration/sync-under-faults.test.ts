@@ -71,7 +71,7 @@ describe('sync under a failing network (the phone’s own loop, real server)', (
     console.log(`[faults] ${SEEDS.length} phones × (200 ops + 20 photos): ${faults.requests} requests, ${faults.lostBefore} lost before the server, ${faults.lostAfter} lost after it answered`);
   });
 
-  it.each(SEEDS)('200 ops and 20 photos captured offline arrive exactly once through 30 %% failed requests (seed %i)', async (SEED) => {
+  it.each(SEEDS)('200 ops and 20 photos captured offline arrive exactly once when 30 in 100 requests fail (seed %i)', async (SEED) => {
     const org = await makeOrganisation('faults');
     const db = new FieldDatabase(`faults-${randomUUID()}`);
     setFieldDbForTests(db);
