@@ -17,21 +17,13 @@ import { runSync } from '@/lib/client/sync/runner';
 import { AuditEntry, Photo, Point, SyncOp, WaterSource } from '@/lib/server/db';
 import { getPhotoStorage } from '@/lib/server/storage';
 import { makeOrganisation, params, sessionCookie, type TestUser } from './support/fixtures';
+import { mulberry32 } from '@/lib/engine/random';
 
 const SEEDS = [20260607, 20260608, 20260609];
 const FAILURE_RATE = 0.3;
 
-/** mulberry32: a small seeded generator, so a failing run can be replayed exactly. */
-function seeded(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+// The engine's seeded generator, so a failing run can be replayed exactly.
+const seeded = mulberry32;
 
 const faults = { requests: 0, lostBefore: 0, lostAfter: 0 };
 
