@@ -1,5 +1,6 @@
 import { expect, test } from '@playwright/test';
 import { query } from './support/db';
+import { signInAs, waitForWorker } from './support/sign-in';
 
 // An advisor runs the creek profile search offline on the demo reach (Brandt spring brook), adopts the
 // best pair, and after the sync the stored screening uses its fall.
@@ -9,12 +10,8 @@ test.setTimeout(120_000);
 test('find the best positions offline, adopt the best pair, the server screening uses it', async ({ browser }) => {
   const context = await browser.newContext({ baseURL: test.info().project.use.baseURL });
   const page = await context.newPage();
-  await page.goto('/login');
-  await page.getByLabel('E-mail').fill('tobias@wenlow-water.test');
-  await page.getByLabel('Password').fill('fallbook-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page).toHaveURL(/\/field$/);
-  await expect.poll(() => page.evaluate(() => !!navigator.serviceWorker.controller).catch(() => false), { timeout: 20_000 }).toBe(true);
+  await signInAs(page, 'tobias@wenlow-water.test', /\/field$/);
+  await waitForWorker(page);
   const link = page.getByRole('link', { name: /Brandt Hollow/ });
   await expect(link).toBeVisible({ timeout: 15_000 });
   const visitId = new URL((await link.getAttribute('href')) ?? '', 'http://x').searchParams.get('id') ?? '';

@@ -1,5 +1,6 @@
 import { expect, test } from '@playwright/test';
 import { query } from './support/db';
+import { signInAs } from './support/sign-in';
 
 // The advisor records a commissioning check at Brandt Hollow; the coordinator sees it on the predicted-vs-measured plot.
 
@@ -8,11 +9,7 @@ test.setTimeout(90_000);
 test('an advisor records a commissioning check; the coordinator sees predicted against measured', async ({ browser }) => {
   const context = await browser.newContext({ baseURL: test.info().project.use.baseURL });
   const page = await context.newPage();
-  await page.goto('/login');
-  await page.getByLabel('E-mail').fill('tobias@wenlow-water.test');
-  await page.getByLabel('Password').fill('fallbook-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page).toHaveURL(/\/field$/);
+  await signInAs(page, 'tobias@wenlow-water.test', /\/field$/);
   const link = page.getByRole('link', { name: /Brandt Hollow/ });
   await expect(link).toBeVisible({ timeout: 15_000 });
   const visitId = new URL((await link.getAttribute('href')) ?? '', 'http://x').searchParams.get('id') ?? '';
@@ -32,11 +29,7 @@ test('an advisor records a commissioning check; the coordinator sees predicted a
 
   const office = await browser.newContext({ baseURL: test.info().project.use.baseURL });
   const op = await office.newPage();
-  await op.goto('/login');
-  await op.getByLabel('E-mail').fill('maren@wenlow-water.test');
-  await op.getByLabel('Password').fill('fallbook-demo');
-  await op.getByRole('button', { name: 'Sign in' }).click();
-  await expect(op).toHaveURL(/\/office$/);
+  await signInAs(op, 'maren@wenlow-water.test', /\/office$/);
   await op.goto('/office/commissioning');
   await expect(op.getByRole('img', { name: /Predicted against measured delivery/ })).toBeVisible();
   await expect(op.getByRole('table')).toContainText('Brandt Hollow');
