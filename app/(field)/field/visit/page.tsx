@@ -1,11 +1,17 @@
 'use client';
 
 import { useLiveQuery } from 'dexie-react-hooks';
+import dynamic from 'next/dynamic';
 import Link from 'next/link';
 import { Suspense } from 'react';
 import { fieldDb } from '@/lib/client/db';
 import { formatDay } from '@/lib/shared/format';
-import { ScreenPreview } from '../_components/screen-preview';
+
+// The engine loads only when the preview shows (its chunk is precached, so this works offline too).
+const ScreenPreview = dynamic(() => import('../_components/screen-preview').then((m) => m.ScreenPreview), {
+  ssr: false,
+  loading: () => <p className="text-stone">Working out the screen…</p>,
+});
 import { useVisit, useVisitId } from '../_components/use-field-data';
 
 const SECTIONS = [
