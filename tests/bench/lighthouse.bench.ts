@@ -3,8 +3,8 @@
 // performance, accessibility and best practices, median of 3 runs, interleaved so every page sees the
 // same machine load. Run with npm run bench (it serves the app and the floor).
 import { spawnSync } from 'node:child_process';
-import { demoCookie, farmerOf, screenedVisitOf } from './support/demo';
-import { appUrl, budget, median, report } from './support/report';
+import { pageBenchContext } from './support/demo';
+import { budget, median, report } from './support/report';
 
 const RUNS = 3;
 
@@ -22,13 +22,7 @@ function audit(target: Target): Scores {
 }
 
 async function main() {
-  const app = appUrl();
-  const floorUrl = process.env.BENCH_FLOOR_URL;
-  if (!floorUrl) throw new Error('BENCH_FLOOR_URL is not set: run with npm run bench');
-  const advisor = await demoCookie('tobias@wenlow-water.test');
-  const visitId = await screenedVisitOf('tobias@wenlow-water.test');
-  // The sheet as its reader sees it: the farmer (with the reply form).
-  const farmer = await demoCookie(await farmerOf(visitId));
+  const { app, floorUrl, advisor, visitId, farmer } = await pageBenchContext();
   const targets: Target[] = [
     { name: 'empty App Router page (floor)', url: `${floorUrl}/` },
     { name: 'sign-in /login', url: `${app}/login` },

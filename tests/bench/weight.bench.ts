@@ -4,8 +4,8 @@
 // not the page's load) and every script response is gzipped. Median of 3 loads.
 import { gzipSync } from 'node:zlib';
 import { chromium, devices, type Browser } from '@playwright/test';
-import { demoCookie, farmerOf, screenedVisitOf } from './support/demo';
-import { appUrl, budget, median, report, round } from './support/report';
+import { pageBenchContext } from './support/demo';
+import { budget, median, report, round } from './support/report';
 
 const RUNS = 3;
 const FIELD_BUDGET_KB = 120;
@@ -30,13 +30,7 @@ async function scriptWeight(browser: Browser, page: Page) {
 }
 
 async function main() {
-  const app = appUrl();
-  const floorUrl = process.env.BENCH_FLOOR_URL;
-  if (!floorUrl) throw new Error('BENCH_FLOOR_URL is not set: run with npm run bench');
-  const advisor = await demoCookie('tobias@wenlow-water.test');
-  const visitId = await screenedVisitOf('tobias@wenlow-water.test');
-  // The sheet as its reader sees it: the farmer (with the reply form).
-  const farmer = await demoCookie(await farmerOf(visitId));
+  const { app, floorUrl, advisor, visitId, farmer } = await pageBenchContext();
   const pages: Page[] = [
     { name: 'empty App Router page (floor)', url: `${floorUrl}/` },
     { name: 'sign-in /login', url: `${app}/login` },

@@ -2,6 +2,7 @@
 import * as mariadb from 'mariadb';
 import { sessionCookie } from '../../integration/support/fixtures';
 import type { Role } from '@/lib/shared/domain';
+import { appUrl } from './report';
 
 async function query<T>(sql: string, params: unknown[] = []): Promise<T[]> {
   const conn = await mariadb.createConnection({
@@ -40,4 +41,15 @@ export async function farmerOf(visitId: string): Promise<string> {
     'SELECT u.email FROM visits v JOIN farms f ON f.id = v.farm_id JOIN users u ON u.id = f.owner_id WHERE v.id = ?', [visitId]);
   if (!row) throw new Error(`visit ${visitId} has no farmer`);
   return row.email;
+}
+
+/** What the page benches open: the app, the empty floor app, and the demo advisor and farmer. */
+export async function pageBenchContext() {
+  const floorUrl = process.env.BENCH_FLOOR_URL;
+  if (!floorUrl) throw new Error('BENCH_FLOOR_URL is not set: run with npm run bench');
+  const advisor = await demoCookie('tobias@wenlow-water.test');
+  const visitId = await screenedVisitOf('tobias@wenlow-water.test');
+  // The sheet as its reader sees it: the farmer (with the reply form).
+  const farmer = await demoCookie(await farmerOf(visitId));
+  return { app: appUrl(), floorUrl, advisor, visitId, farmer };
 }
