@@ -1,3 +1,5 @@
+import { securityHeaders } from './config/security-headers.mjs';
+
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   // Sequelize loads its dialect with a dynamic require; pdfkit reads its font data from disk:
@@ -7,6 +9,16 @@ const nextConfig = {
   reactStrictMode: true,
   // forbidden() renders app/forbidden.tsx with a real 403 status.
   experimental: { authInterrupts: true },
+  // On every response: pages, route handlers, static files and the service worker. Read at build
+  // time (the build stamp includes NEXTAUTH_URL's scheme, which decides HSTS).
+  async headers() {
+    const headers = securityHeaders({
+      nodeEnv: process.env.NODE_ENV,
+      nextAuthUrl: process.env.NEXTAUTH_URL ?? '',
+      tileUrl: process.env.NEXT_PUBLIC_TILE_URL ?? '',
+    });
+    return [{ source: '/:path*', headers }];
+  },
 };
 
 export default nextConfig;

@@ -5,7 +5,7 @@ import path from 'node:path';
 import { root } from './env.mjs';
 import { log, nodeBin, run } from './proc.mjs';
 
-const INPUTS = ['app', 'components', 'lib', 'models', 'public', 'fonts', 'worker', 'proxy.ts',
+const INPUTS = ['app', 'components', 'config', 'lib', 'models', 'public', 'fonts', 'worker', 'proxy.ts',
   'next.config.mjs', 'tailwind.config.ts', 'postcss.config.mjs', 'tsconfig.json', 'package-lock.json'];
 const STAMP = path.join(root, '.next', 'fallbook-build-stamp');
 const SKIP = new Set(['sw.js', 'sw.js.map']);
@@ -25,6 +25,8 @@ export function sourceHash() {
   const hash = createHash('sha256');
   // NEXT_PUBLIC_* values are compiled into the pages: a change must rebuild.
   for (const [key, value] of Object.entries(process.env).filter(([k, v]) => k.startsWith('NEXT_PUBLIC_') && v).sort()) hash.update(`${key}=${value}`);
+  // The security headers are fixed at build time, and HSTS is sent only when NEXTAUTH_URL is https.
+  hash.update(`https=${(process.env.NEXTAUTH_URL ?? '').startsWith('https://')}`);
   for (const input of INPUTS) {
     const full = path.join(root, input);
     if (!existsSync(full)) continue;

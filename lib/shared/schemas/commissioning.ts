@@ -1,5 +1,5 @@
 // What the advisor measures at an installed ram: one shape for the form and the route.
-import { z } from 'zod';
+import { z } from '@/lib/shared/zod';
 import { PIPE_MATERIALS, type PipeMaterialId } from '@/lib/engine/materials';
 
 const measured = (label: string, max: number) =>

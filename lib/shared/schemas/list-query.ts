@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { z } from '@/lib/shared/zod';
 import { VERDICTS, VISIT_STATUSES } from '../domain';
 
 // Query strings of the list routes. Every list is paginated; page sizes are capped.

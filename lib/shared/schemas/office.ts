@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { z } from '@/lib/shared/zod';
 import { ROLES, UNIT_SYSTEMS, VISIT_STATUSES } from '../domain';
 
 // Bodies of the coordinator's office routes; the forms use the same schemas (zodResolver).

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { z } from '@/lib/shared/zod';
 import { DEMAND_CATALOGUE, type DemandKind } from '@/lib/engine/demand';
 import { parseFieldNumber } from '../units';
 

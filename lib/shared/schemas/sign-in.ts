@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { z } from '@/lib/shared/zod';
 
 // Shared by the sign-in form and the credentials check on the server.
 export const signInSchema = z.object({

@@ -1,6 +1,6 @@
 // The sync protocol between the phone's outbox and the server (push, pull, photo upload).
 // One shape for the client that builds ops, the route that applies them and the tests.
-import { z } from 'zod';
+import { z } from '@/lib/shared/zod';
 import { DEMAND_CATALOGUE, type DemandKind } from '@/lib/engine/demand';
 import { PIPE_MATERIALS, type PipeMaterialId } from '@/lib/engine/materials';
 import { POINT_ROLES, type VisitStatus } from '../domain';

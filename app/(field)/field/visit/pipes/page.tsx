@@ -4,7 +4,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useLiveQuery } from 'dexie-react-hooks';
 import { Suspense, useEffect, useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
-import { z } from 'zod';
+import { z } from '@/lib/shared/zod';
 import { PIPE_MATERIALS, type PipeMaterialId } from '@/lib/engine/materials';
 import { fieldDb, type LocalRecord } from '@/lib/client/db';
 import { setDirty } from '@/lib/client/dirty';
