@@ -4,6 +4,7 @@ import { getToken, type JWT } from 'next-auth/jwt';
 import type { NextRequest } from 'next/server';
 import { User } from '@/lib/server/db';
 import { unauthorized } from '../errors';
+import { servedOverHttps, sessionCookieName } from './cookies';
 import { authOptions } from './options';
 import type { SessionUser } from './permissions';
 
@@ -27,7 +28,8 @@ async function loadUser(claims: Pick<JWT, 'uid' | 'sessionVersion'> | null | und
 
 /** For route handlers: the user behind the request's session cookie, or null. */
 export async function getRequestUser(req: NextRequest): Promise<SessionUser | null> {
-  return loadUser(await getToken({ req }));
+  const url = process.env.NEXTAUTH_URL ?? '';
+  return loadUser(await getToken({ req, cookieName: sessionCookieName(url), secureCookie: servedOverHttps(url) }));
 }
 
 /** For server components and actions: the user of the current request, or null. */

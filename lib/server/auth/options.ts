@@ -4,6 +4,7 @@ import CredentialsProvider from 'next-auth/providers/credentials';
 import { User } from '@/lib/server/db';
 import { signInSchema } from '@/lib/shared/schemas/sign-in';
 import { AppError } from '../errors';
+import { authCookieOptions } from './cookies';
 import { verifyPassword } from './passwords';
 import { assertSignInAllowed, recordSignIn } from './rate-limit';
 
@@ -17,6 +18,8 @@ const WRONG = 'That e-mail and password do not match an active account.';
 
 export const authOptions: NextAuthOptions = {
   session: { strategy: 'jwt', maxAge: 30 * 24 * 60 * 60 },
+  // Read straight from the env (as next-auth does): importing these options must not need the rest.
+  ...authCookieOptions(process.env.NEXTAUTH_URL ?? ''),
   pages: { signIn: '/login', error: '/login' },
   providers: [
     CredentialsProvider({
