@@ -16,7 +16,17 @@ export async function up({ context: qi }: Ctx) {
     (SELECT COALESCE(MAX(rev), 0) FROM fall_readings), (SELECT COALESCE(MAX(rev), 0) FROM points),
     (SELECT COALESCE(MAX(rev), 0) FROM photos), (SELECT COALESCE(MAX(rev), 0) FROM pipe_runs),
     (SELECT COALESCE(MAX(rev), 0) FROM demand_lines)) AS top`);
-  const top = Number((rows as { top: number | string }[])[0]?.top ?? 0);
+  // Never below what the sequence already handed out: rows that held the highest revisions may be
+  // gone (deleted, or their tables reverted), and a counter that went back would hand out numbers
+  // below a phone's pull cursor, so the phone would never see those changes.
+  const [seq] = await qi.sequelize.query(
+    "SELECT COUNT(*) AS n FROM information_schema.tables WHERE table_schema = DATABASE() AND table_name = 'change_rev' AND table_type = 'SEQUENCE'");
+  let issued = 0;
+  if (Number((seq as { n: number | string }[])[0]?.n ?? 0) > 0) {
+    const [next] = await qi.sequelize.query('SELECT next_not_cached_value AS n FROM change_rev');
+    issued = Number((next as { n: number | string }[])[0]?.n ?? 1) - 1;
+  }
+  const top = Math.max(Number((rows as { top: number | string }[])[0]?.top ?? 0), issued);
   await qi.bulkInsert('rev_counter', [{ id: 1, value: top }]);
   await qi.sequelize.query('DROP SEQUENCE IF EXISTS change_rev');
 }

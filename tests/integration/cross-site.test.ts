@@ -1,6 +1,7 @@
 // Cross-site writes: every mutating route in the route table (so a new route is covered the day it
 // is added), sent as a valid request by a signed-in person who may use it, but from another site —
 // by Origin, by Sec-Fetch-Site, or both — is refused with 403 and changes nothing.
+import path from 'node:path';
 import { QueryTypes } from 'sequelize';
 import { NextRequest } from 'next/server';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -8,10 +9,13 @@ import { scopeOf } from '@/lib/server/auth/permissions';
 import { getSequelize } from '@/lib/server/db';
 import { ROLES } from '@/lib/shared/domain';
 import { params } from './support/fixtures';
-import { ROUTES, handlerOf, routeParams, type GuardedRoute, type Target } from './support/route-table';
+import { ROUTES, handlerOf, routeParams, type GuardedRoute, type PublicRoute, type Target } from './support/route-table';
 import { callerOf, makeWorld, resourceFor, type World } from './support/world';
 
 const mutating = ROUTES.filter((r): r is GuardedRoute => !('public' in r) && r.method !== 'GET');
+// Public writes check the origin themselves; next-auth's own POSTs carry its CSRF token instead.
+const publicWrites = ROUTES.filter((r): r is PublicRoute => 'public' in r && r.method !== 'GET' && !r.file.includes('[...nextauth]'));
+const root = path.resolve(__dirname, '../..');
 
 /** How the request claims to come from elsewhere. */
 const DISGUISES: Record<string, Record<string, string>> = {
@@ -72,6 +76,28 @@ describe('cross-site writes are refused on every mutating route', () => {
   }
 });
 
+describe('public routes that write refuse cross-site requests too', () => {
+  for (const route of publicWrites) {
+    for (const [name, headers] of Object.entries(DISGUISES)) {
+      it(`${route.method} ${route.file}, ${name}: 403, nothing stored`, async () => {
+        // A made-up value for each [param]: the origin check comes before anything is looked up.
+        const url = route.file.replace(/^app/, '').replace(/\/route\.ts$/, '').replace(/\[(\w+)\]/g, 'cross-site-$1');
+        const req = new NextRequest(new URL(url, 'http://127.0.0.1:3100'), {
+          method: route.method, body: JSON.stringify({ password: 'a-long-enough-password', name: 'Cross Site' }),
+          headers: { 'content-type': 'application/json', host: '127.0.0.1:3100', ...headers },
+        });
+        const mod: object = await import(/* @vite-ignore */ path.join(root, route.file));
+        const before = await footprint();
+        const res = await handlerOf(mod, route.method)(req, params(routeParams(route.file, req.nextUrl)));
+        expect(res.status).toBe(403);
+        expect((await res.json()).error.message).toMatch(/cross-site/i);
+        expect(await footprint()).toBe(before);
+        refused += 1;
+      });
+    }
+  }
+});
+
 describe('the check is not a blanket refusal', () => {
   it('the same request from the app itself (Origin and Sec-Fetch-Site: same-origin) gets through', async () => {
     const route = mutating[0];
@@ -88,5 +114,5 @@ describe('the check is not a blanket refusal', () => {
 });
 
 afterAll(() => {
-  console.log(`[cross-site] ${refused} refused: ${mutating.length} mutating route methods × ${Object.keys(DISGUISES).length} disguises`);
+  console.log(`[cross-site] ${refused} refused: (${mutating.length} guarded + ${publicWrites.length} public) mutating route methods × ${Object.keys(DISGUISES).length} disguises`);
 });

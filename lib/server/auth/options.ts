@@ -4,15 +4,10 @@ import CredentialsProvider from 'next-auth/providers/credentials';
 import { User } from '@/lib/server/db';
 import { signInSchema } from '@/lib/shared/schemas/sign-in';
 import { AppError } from '../errors';
+import { clientAddress } from './client-address';
 import { authCookieOptions } from './cookies';
 import { verifyPassword } from './passwords';
 import { assertSignInAllowed, recordSignIn } from './rate-limit';
-
-function clientAddress(headers: Record<string, string | string[] | undefined> | undefined): string {
-  const forwarded = headers?.['x-forwarded-for'];
-  const first = Array.isArray(forwarded) ? forwarded[0] : forwarded?.split(',')[0];
-  return first?.trim() || 'local';
-}
 
 const WRONG = 'That e-mail and password do not match an active account.';
 
