@@ -15,7 +15,8 @@ async function watchCsp(context: BrowserContext): Promise<string[]> {
     });
   });
   context.on('console', (message) => {
-    if (/Content Security Policy|Refused to (load|execute|apply|connect|frame|create)/i.test(message.text())) {
+    // Also a Permissions-Policy the browser cannot parse (it says so on the console).
+    if (/Content Security Policy|Permissions-Policy|Refused to (load|execute|apply|connect|frame|create)/i.test(message.text())) {
       violations.push(`console: ${message.text()}`);
     }
   });
