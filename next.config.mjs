@@ -1,4 +1,4 @@
-import { securityHeaders } from './config/security-headers.mjs';
+import { securityHeaders } from './lib/config/security-headers.mjs';
 
 /** @type {import('next').NextConfig} */
 const nextConfig = {

@@ -5,7 +5,7 @@ import path from 'node:path';
 import { root } from './env.mjs';
 import { log, nodeBin, run } from './proc.mjs';
 
-const INPUTS = ['app', 'components', 'config', 'lib', 'models', 'public', 'fonts', 'worker', 'proxy.ts',
+const INPUTS = ['app', 'components', 'lib', 'models', 'public', 'fonts', 'worker', 'proxy.ts',
   'next.config.mjs', 'tailwind.config.ts', 'postcss.config.mjs', 'tsconfig.json', 'package-lock.json'];
 const STAMP = path.join(root, '.next', 'fallbook-build-stamp');
 const SKIP = new Set(['sw.js', 'sw.js.map']);

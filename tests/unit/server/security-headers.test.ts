@@ -1,6 +1,6 @@
 // The security headers next.config.mjs sends: what each directive allows, and when HSTS is sent.
 import { describe, expect, it } from 'vitest';
-import { contentSecurityPolicy, securityHeaders, tileOrigin } from '@/config/security-headers.mjs';
+import { contentSecurityPolicy, securityHeaders, tileOrigin } from '@/lib/config/security-headers.mjs';
 
 const directives = (csp: string) => new Map(csp.split('; ').map((d) => {
   const [name = '', ...values] = d.split(' ');
