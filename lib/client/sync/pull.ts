@@ -1,12 +1,12 @@
 // Pull: fetch what changed on the server since the cursor and merge it into the phone's database.
 // A record with changes still waiting on the phone is left as the person edited it.
 import type { Table } from 'dexie';
-import type { PullResponse, SyncEntity } from '@/lib/shared/schemas/sync';
+import type { PulledEntity, PullResponse } from '@/lib/shared/schemas/sync';
 import { fieldDb, TABLE_OF } from '../db';
 import { getMeta, setMeta } from './meta';
 import { requestJson } from './transport';
 
-const CHILD_ENTITIES: Exclude<SyncEntity, 'visit'>[] = [
+const CHILD_ENTITIES: PulledEntity[] = [
   'waterSource', 'flowMeasurement', 'fallReading', 'point', 'photo', 'demandLine', 'pipeRun',
 ];
 
