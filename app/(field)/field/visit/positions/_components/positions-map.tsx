@@ -12,17 +12,18 @@ const INK = '#15191C';
 const CREEK = '#184F69';
 
 // Fallbook's own pair symbols: the intake is a ring, the ram a filled square, each carrying the pair's
-// number; pairs that share a station stack away from it (intakes upwards, rams downwards).
+// number; they stand beside their station (intakes to the left, rams to the right), pair 1 nearest, so
+// pairs that share a station do not hide each other.
 function pairIcon(kind: 'intake' | 'ram', rank: number, colour: string) {
   const shape = kind === 'intake'
     ? `border-radius:50%;background:#FFFFFF;color:${colour};border:4px solid ${colour}`
     : `border-radius:3px;background:${colour};color:#FFFFFF;border:2px solid ${INK}`;
-  const shift = 30 * (rank - 1);
+  const shift = 22 + 31 * (rank - 1);
   return L.divIcon({
     className: '',
     html: `<span data-testid="map-pair-${rank}-${kind}" aria-label="Pair ${rank} ${kind}" style="display:flex;width:28px;height:28px;align-items:center;justify-content:center;font:700 15px sans-serif;${shape}">${rank}</span>`,
     iconSize: [28, 28],
-    iconAnchor: kind === 'intake' ? [14, 14 + shift] : [14, 14 - shift],
+    iconAnchor: kind === 'intake' ? [14 + shift, 14] : [14 - shift, 14],
   });
 }
 
@@ -39,7 +40,7 @@ function FitTo({ points }: { points: [number, number][] }) {
   const key = JSON.stringify(points);
   useEffect(() => {
     const list = JSON.parse(key) as [number, number][];
-    if (list.length > 0) map.fitBounds(L.latLngBounds(list), { padding: [40, 40], maxZoom: 19 });
+    if (list.length > 0) map.fitBounds(L.latLngBounds(list), { padding: [115, 30], maxZoom: 19 });
   }, [map, key]);
   return null;
 }
@@ -64,7 +65,8 @@ export default function PositionsMap({ placed, tank, pairs }: {
         </CircleMarker>
       ))}
       {tank && <Marker position={[tank.lat, tank.lon]} icon={tankIcon}><Tooltip>Tank</Tooltip></Marker>}
-      {pairs.map((p, i) => {
+      {/* Drawn 3, 2, 1 so the best pair lies on top where runs overlap. */}
+      {pairs.map((p, i) => ({ p, i })).reverse().map(({ p, i }) => {
         const intake = byId.get(p.intake.id);
         const ram = byId.get(p.pump.id);
         if (!intake || !ram) return null;
