@@ -23,7 +23,7 @@ export default function PointMap({ points, draft, onDraftMove }: {
   const all = [...points.map((p) => [p.lat, p.lon] as [number, number]), ...(draft ? [[draft.lat, draft.lon] as [number, number]] : [])];
   const center = all[0] ?? [0, 0];
   return (
-    <FieldMap center={center} zoom={all.length ? 16 : 2}>
+    <FieldMap center={center} zoom={all.length ? 16 : 2} bounds={all.length > 1 ? L.latLngBounds(all) : undefined}>
       {points.length > 1 && <Polyline positions={points.map((p) => [p.lat, p.lon] as [number, number])} pathOptions={{ color: '#184F69', weight: 4 }} />}
       {points.map((p) => (
         <Marker key={p.id} position={[p.lat, p.lon]} icon={icon(p.role)}>
