@@ -57,6 +57,8 @@ export class FieldDatabase extends Dexie {
   photos!: Table<LocalRecord<'photo'>, string>;
   demandLines!: Table<LocalRecord<'demandLine'>, string>;
   pipeRuns!: Table<LocalRecord<'pipeRun'>, string>;
+  /** Commissioning checks recorded on this phone (sent through the outbox, never pulled back). */
+  commissionings!: Table<LocalRecord<'commissioning'>, string>;
   photoBlobs!: Table<PhotoBlob, string>;
   outbox!: Table<OutboxEntry, number>;
   meta!: Table<MetaEntry, string>;
@@ -78,6 +80,7 @@ export class FieldDatabase extends Dexie {
       outbox: '++seq, &opId, entityId, visitId, status',
       meta: 'key',
     });
+    this.version(2).stores({ commissionings: 'id, visitId' });
   }
 }
 
@@ -91,6 +94,7 @@ export const TABLE_OF: Record<SyncEntity, keyof FieldDatabase & string> = {
   photo: 'photos',
   demandLine: 'demandLines',
   pipeRun: 'pipeRuns',
+  commissioning: 'commissionings',
 };
 
 let database: FieldDatabase | undefined;

@@ -19,3 +19,14 @@ export function watchFix(onFix: (fix: Fix) => void, onError: (message: string) =
   );
   return () => navigator.geolocation.clearWatch(id);
 }
+
+/** A fix older than this is not taken for a new booking (the advisor has walked on). */
+export const FRESH_FIX_MS = 2 * 60_000;
+
+export interface FixFields { lat: number | null; lon: number | null; accuracyM: number | null; altitudeM: number | null; altitudeAccuracyM: number | null }
+
+/** The position fields of a record booked now: the latest fix when fresh, otherwise none (never a stale place). */
+export function fixFields(fix: Fix | null, now: number = Date.now()): FixFields {
+  if (!fix || !(now - Date.parse(fix.at) <= FRESH_FIX_MS)) return { lat: null, lon: null, accuracyM: null, altitudeM: null, altitudeAccuracyM: null };
+  return { lat: fix.lat, lon: fix.lon, accuracyM: fix.accuracyM, altitudeM: fix.altitudeM, altitudeAccuracyM: fix.altitudeAccuracyM };
+}

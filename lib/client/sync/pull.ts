@@ -1,12 +1,12 @@
 // Pull: fetch what changed on the server since the cursor and merge it into the phone's database.
 // A record with changes still waiting on the phone is left as the person edited it.
 import type { Table } from 'dexie';
-import type { PullResponse, SyncEntity } from '@/lib/shared/schemas/sync';
+import type { PulledEntity, PullResponse } from '@/lib/shared/schemas/sync';
 import { fieldDb, TABLE_OF } from '../db';
 import { getMeta, setMeta } from './meta';
 import { requestJson } from './transport';
 
-const CHILD_ENTITIES: Exclude<SyncEntity, 'visit'>[] = [
+const CHILD_ENTITIES: PulledEntity[] = [
   'waterSource', 'flowMeasurement', 'fallReading', 'point', 'photo', 'demandLine', 'pipeRun',
 ];
 
@@ -16,7 +16,7 @@ type Row = { id: string; deletedAt?: string | null } & Record<string, unknown>;
 export async function mergePull(page: PullResponse): Promise<void> {
   const db = fieldDb();
   const tables = CHILD_ENTITIES.map((e) => db.table(TABLE_OF[e]));
-  await db.transaction('rw', [db.visits, db.farms, db.outbox, db.meta, db.photoBlobs, ...tables], async () => {
+  await db.transaction('rw', [db.visits, db.farms, db.outbox, db.meta, db.photoBlobs, db.commissionings, ...tables], async () => {
     const waiting = new Set((await db.outbox.toArray()).map((e) => e.entityId));
     const waitingVisits = new Set((await db.outbox.toArray()).map((e) => e.visitId));
     const merge = async (table: Table<Row, string>, rows: Row[]) => {
@@ -43,6 +43,8 @@ export async function mergePull(page: PullResponse): Promise<void> {
         await table.bulkDelete(ids);
         if (entity === 'photo') await db.photoBlobs.bulkDelete(ids);
       }
+      // Checks recorded here (never pulled) go with the visit once nothing of it waits to be sent.
+      await db.commissionings.where('visitId').equals(visit.id).delete();
     }
     await setMeta('settings', page.settings);
     await setMeta('cursor', page.cursor);

@@ -1,5 +1,6 @@
 import 'server-only';
 import { randomUUID } from 'node:crypto';
+import type { Transaction } from 'sequelize';
 import { commissioningCheck, predictionFromFigures, type CommissioningResult, type Screening as EngineScreening } from '@/lib/engine';
 import { Commissioning, Farm, Screening, Visit, getSequelize } from '@/lib/server/db';
 import type { VisitStatus } from '@/lib/shared/domain';
@@ -29,32 +30,38 @@ export interface CommissioningPoint {
  * and writes the audit line, in one transaction.
  */
 export async function recordCommissioning(user: SessionUser, visitId: string, input: CommissioningInput) {
-  return getSequelize().transaction(async (transaction) => {
-    const visit = await Visit.findOne({ where: { id: visitId, deletedAt: null }, include: [{ model: Farm, attributes: ['ownerId'] }], transaction, lock: transaction.LOCK.UPDATE });
-    if (!visit) throw notFound('visit');
-    authorize(user, 'visit:commission', { organisationId: visit.organisationId, advisorIds: visit.advisorId ? [visit.advisorId] : [] });
-    if (!COMMISSIONABLE.includes(visit.status)) throw conflict(`This visit is "${visit.status}": screen it before commissioning the ram.`);
-    const screening = await Screening.findOne({ where: { visitId }, order: [['createdAt', 'DESC']], transaction });
-    if (!screening) throw conflict('This visit has no screening to compare with.');
-    const result = screening.result as EngineScreening;
-    const fallM = input.fallM ?? result.figures.fallM?.value ?? null;
-    if (fallM === null || !(fallM > 0)) throw invalid('fallM: The screening has no fall; enter the measured fall.', { fallM: ['Enter the measured fall.'] });
-    if (input.liftM <= fallM) throw invalid('liftM: Lift must be more than the fall.', { liftM: ['Lift must be more than the fall.'] });
-    const check: CommissioningResult = commissioningCheck({ ...input, fallM }, predictionFromFigures(result.figures));
-    const row = await Commissioning.create({
-      id: randomUUID(), organisationId: visit.organisationId, visitId, screeningId: screening.id, recordedById: user.id,
-      driveLpm: input.driveLpm, deliveredLpm: input.deliveredLpm, beatsPerMinute: input.beatsPerMinute, liftM: input.liftM, fallM,
-      drivePipeMaterial: input.drivePipeMaterial ?? null, notes: input.notes, measuredLpd: check.measuredLpd,
-      predictedLpd: check.prediction?.deliveryLpd ?? null, outcome: check.outcome, result: check,
-    }, { transaction });
-    const before = visit.status;
-    await visit.update({ status: 'commissioned' }, { transaction });
-    await recordAudit({
-      organisationId: visit.organisationId, actorId: user.id, entity: 'commissioning', entityId: row.id, visitId, action: 'commission',
-      changes: { status: { before, after: 'commissioned' }, measuredLpd: check.measuredLpd, predictedLpd: check.prediction?.deliveryLpd ?? null, outcome: check.outcome },
-    }, transaction);
-    return { id: row.id, visitId, status: 'commissioned' as const, check };
-  });
+  return getSequelize().transaction((transaction) => commissionVisit(user, visitId, input, transaction));
+}
+
+/**
+ * The work of recordCommissioning inside the caller's transaction (the sync push runs it in an op's
+ * savepoint, with the phone's record id). Throws AppError before writing anything when refused.
+ */
+export async function commissionVisit(user: SessionUser, visitId: string, input: CommissioningInput, transaction: Transaction, id: string = randomUUID()) {
+  const visit = await Visit.findOne({ where: { id: visitId, deletedAt: null }, include: [{ model: Farm, attributes: ['ownerId'] }], transaction, lock: transaction.LOCK.UPDATE });
+  if (!visit) throw notFound('visit');
+  authorize(user, 'visit:commission', { organisationId: visit.organisationId, advisorIds: visit.advisorId ? [visit.advisorId] : [] });
+  if (!COMMISSIONABLE.includes(visit.status)) throw conflict(`This visit is "${visit.status}": screen it before commissioning the ram.`);
+  const screening = await Screening.findOne({ where: { visitId }, order: [['createdAt', 'DESC']], transaction });
+  if (!screening) throw conflict('This visit has no screening to compare with.');
+  const result = screening.result as EngineScreening;
+  const fallM = input.fallM ?? result.figures.fallM?.value ?? null;
+  if (fallM === null || !(fallM > 0)) throw invalid('fallM: The screening has no fall; enter the measured fall.', { fallM: ['Enter the measured fall.'] });
+  if (input.liftM <= fallM) throw invalid('liftM: Lift must be more than the fall.', { liftM: ['Lift must be more than the fall.'] });
+  const check: CommissioningResult = commissioningCheck({ ...input, fallM }, predictionFromFigures(result.figures));
+  const row = await Commissioning.create({
+    id, organisationId: visit.organisationId, visitId, screeningId: screening.id, recordedById: user.id,
+    driveLpm: input.driveLpm, deliveredLpm: input.deliveredLpm, beatsPerMinute: input.beatsPerMinute, liftM: input.liftM, fallM,
+    drivePipeMaterial: input.drivePipeMaterial ?? null, notes: input.notes, measuredLpd: check.measuredLpd,
+    predictedLpd: check.prediction?.deliveryLpd ?? null, outcome: check.outcome, result: check,
+  }, { transaction });
+  const before = visit.status;
+  await visit.update({ status: 'commissioned' }, { transaction });
+  await recordAudit({
+    organisationId: visit.organisationId, actorId: user.id, entity: 'commissioning', entityId: row.id, visitId, action: 'commission',
+    changes: { status: { before, after: 'commissioned' }, measuredLpd: check.measuredLpd, predictedLpd: check.prediction?.deliveryLpd ?? null, outcome: check.outcome },
+  }, transaction);
+  return { id: row.id, visitId, status: 'commissioned' as const, check };
 }
 
 /** The latest commissioning of every visit in the caller's organisation: predicted against measured. */

@@ -12,7 +12,10 @@ export interface MapSite {
   points: { role: PointRole | 'farm'; lat: number; lon: number }[];
 }
 
-/** Every visit's located points (or the farm's position when none were taken), with its verdict. */
+/**
+ * Every visit's located points (or the farm's position when none were taken), with its verdict.
+ * Creek-profile stations are left out: a district view wants the sites, not every survey station.
+ */
 export async function districtSites(user: SessionUser): Promise<MapSite[]> {
   authorize(user, 'visit:plan');
   const visits = await Visit.findAll({
@@ -23,7 +26,7 @@ export async function districtSites(user: SessionUser): Promise<MapSite[]> {
   }) as (Visit & { Farm?: Farm })[];
   const ids = visits.map((v) => v.id);
   const [points, screenings] = await Promise.all([
-    Point.findAll({ where: { visitId: { [Op.in]: ids }, deletedAt: null, lat: { [Op.ne]: null }, lon: { [Op.ne]: null } }, attributes: ['visitId', 'role', 'lat', 'lon'] }),
+    Point.findAll({ where: { visitId: { [Op.in]: ids }, deletedAt: null, role: { [Op.ne]: 'station' }, lat: { [Op.ne]: null }, lon: { [Op.ne]: null } }, attributes: ['visitId', 'role', 'lat', 'lon'] }),
     Screening.findAll({ where: { visitId: { [Op.in]: ids } }, attributes: ['visitId', 'verdict', 'createdAt'], order: [['createdAt', 'ASC']] }),
   ]);
   const verdicts = new Map(screenings.map((s) => [s.visitId, s.verdict]));

@@ -1,11 +1,11 @@
 import 'server-only';
 import { Op, type WhereOptions } from 'sequelize';
 import { DemandLine, Farm, Organisation, User, Visit } from '@/lib/server/db';
-import type { PullResponse, SyncEntity } from '@/lib/shared/schemas/sync';
+import type { PulledEntity, PullResponse } from '@/lib/shared/schemas/sync';
 import type { SessionUser } from '../auth/permissions';
 import { ENTITY_SPECS, pulledRecord, type SyncedRow } from '../sync/entities';
 
-type ChildEntity = Exclude<SyncEntity, 'visit'>;
+type ChildEntity = PulledEntity;
 type Kind = ChildEntity | 'farm' | 'visit';
 interface Change { kind: Kind; rev: number; row: SyncedRow }
 

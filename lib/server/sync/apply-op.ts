@@ -5,6 +5,7 @@ import { entityFields, type OpResult, type SyncOp } from '@/lib/shared/schemas/s
 import { recordAudit, type AuditInput } from '../audit';
 import { AppError, zodFieldErrors } from '../errors';
 import type { SyncAccess } from './access';
+import { applyCommissioningOp } from './apply-commissioning';
 import { ENTITY_SPECS, pulledRecord, sameValue, type EntitySpec, type SyncedRow } from './entities';
 
 type Json = Record<string, unknown>;
@@ -60,6 +61,7 @@ async function checkParent(op: SyncOp, spec: EntitySpec, row: SyncedRow | null, 
  * the audit line is collected there for the caller to write with the batch (only applied ops add one).
  */
 export async function applyOp(op: SyncOp, access: SyncAccess, transaction: Transaction, audits?: AuditInput[]): Promise<OpEffect> {
+  if (op.entity === 'commissioning') return applyCommissioningOp(op, access, transaction);
   const spec = ENTITY_SPECS[op.entity];
   const row = (await spec.model.findByPk(op.entityId, { transaction, lock: transaction.LOCK.UPDATE })) as SyncedRow | null;
   let parent: { visitId: string | null; farmId: string | null };

@@ -1,7 +1,7 @@
 import 'server-only';
 import type { Model, ModelStatic } from 'sequelize';
 import {
-  DemandLine, FallReading, FlowMeasurement, Photo, PipeRun, Point, Visit, WaterSource,
+  Commissioning, DemandLine, FallReading, FlowMeasurement, Photo, PipeRun, Point, Visit, WaterSource,
 } from '@/lib/server/db';
 import type { SyncEntity } from '@/lib/shared/schemas/sync';
 
@@ -100,6 +100,8 @@ export const ENTITY_SPECS: Record<SyncEntity, EntitySpec> = {
     ['visitId', 'pointId', 'caption', 'mime', 'bytes', 'sha256', 'width', 'height', 'lat', 'lon', 'takenAt'], ['takenAt']),
   demandLine: plain(DemandLine, 'farmId', ['farmId', 'kind', 'count', 'litresPerHeadPerDay', 'figureSource', 'note']),
   pipeRun: plain(PipeRun, 'visitId', ['visitId', 'purpose', 'lengthM', 'diameterMm', 'material', 'pressureClass']),
+  // Push-only and create-only: applied by applyCommissioningOp, never pulled.
+  commissioning: plain(Commissioning, 'visitId', ['visitId', 'driveLpm', 'deliveredLpm', 'beatsPerMinute', 'liftM', 'fallM', 'drivePipeMaterial', 'notes']),
 };
 
 /** A row as the phone receives it: protocol fields plus id, rev and the soft-delete time. */

@@ -102,9 +102,28 @@ export const entityFields = {
     material: z.enum(keys<PipeMaterialId>(PIPE_MATERIALS)),
     pressureClass: text(24).nullable(),
   }),
+  /**
+   * What an installed ram measured, recorded on the phone (often offline). Create-only: the server
+   * checks it with commissioningInputSchema, runs the commissioning check and marks the visit commissioned.
+   */
+  commissioning: z.object({
+    visitId: uuid,
+    driveLpm: finite,
+    deliveredLpm: finite,
+    beatsPerMinute: finite,
+    liftM: finite,
+    /** Fall measured at installation; null: the screening's. */
+    fallM: finite.nullable(),
+    drivePipeMaterial: z.enum(keys<PipeMaterialId>(PIPE_MATERIALS)).nullable(),
+    notes: text(5000),
+  }),
 } as const;
 
 export type SyncEntity = keyof typeof entityFields;
+/** Entities the phone sends but never pulls back (the server keeps its own result). */
+export type PushOnlyEntity = 'commissioning';
+/** Entities the pull returns besides visits. */
+export type PulledEntity = Exclude<SyncEntity, 'visit' | PushOnlyEntity>;
 export const SYNC_ENTITIES = Object.keys(entityFields) as SyncEntity[];
 export type EntityFields<E extends SyncEntity> = z.infer<(typeof entityFields)[E]>;
 
@@ -133,6 +152,7 @@ export const syncOpSchema = z.discriminatedUnion('entity', [
   opSchema('photo', entityFields.photo),
   opSchema('demandLine', entityFields.demandLine),
   opSchema('pipeRun', entityFields.pipeRun),
+  opSchema('commissioning', entityFields.commissioning),
 ]);
 export type SyncOp = z.infer<typeof syncOpSchema>;
 export type SyncOpInput = z.input<typeof syncOpSchema>;
@@ -173,7 +193,7 @@ export interface PullResponse {
   farms: { id: string; rev: number; name: string; area: string; lat: number | null; lon: number | null; notes: string; ownerName: string | null }[];
   /** `status` is the visit's whole life (the phone may only write scheduled → surveyed). */
   visits: (Omit<PulledRecord<'visit'>, 'status'> & { status: VisitStatus; farmId: string; plannedOn: string | null; advisorId: string | null })[];
-  records: { [E in Exclude<SyncEntity, 'visit'>]: PulledRecord<E>[] };
+  records: { [E in PulledEntity]: PulledRecord<E>[] };
   /** Organisation settings the phone's live preview needs. */
   settings: { unitsDefault: 'metric' | 'us'; designFractionOfLowest: number; demandFigures: Record<string, number> };
 }

@@ -150,3 +150,36 @@ describe('no signal is not a server failure', () => {
     expect(await pushAll(true)).toBe(1);
   });
 });
+
+describe('commissioning checks on the phone', () => {
+  const CHECK = '55555555-5555-4555-8555-000000000001';
+  const check = () => saveRecord('commissioning', CHECK, {
+    visitId: VISIT, driveLpm: 54, deliveredLpm: 3.6, beatsPerMinute: 150, liftM: 25, fallM: 4, drivePipeMaterial: null, notes: '',
+  });
+
+  it('keeps the check and its op until the server acknowledges it, then keeps the check with nothing waiting', async () => {
+    const server = fakeServer();
+    await check();
+    server.failNextWith(0);
+    await expect(pushAll()).rejects.toThrow();
+    expect(await db.commissionings.count()).toBe(1);
+    expect((await db.outbox.where('entityId').equals(CHECK).toArray()).map((e) => e.op.entity)).toEqual(['commissioning']);
+    expect(await pushAll(true)).toBe(1);
+    // The lost attempt never reached the server; the second is the one it acknowledged.
+    expect(server.pushed.flat().filter((op) => op.entityId === CHECK)).toHaveLength(1);
+    expect(await db.outbox.count()).toBe(0);
+    expect((await db.commissionings.get(CHECK))?.liftM).toBe(25);
+  });
+
+  it('a check still waiting is kept when its visit is reassigned away; a sent one goes with the visit', async () => {
+    fakeServer();
+    await check();
+    await db.visits.put({ id: VISIT, rev: 1, farmId: 'f', plannedOn: null, advisorId: null, notes: '', status: 'screened', visitedAt: null, deletedAt: null, updatedAt: new Date().toISOString() } as never);
+    await mergePull({ ...emptyPull(5), visibleVisitIds: [] });
+    expect(await db.commissionings.count()).toBe(1);
+    await pushAll(true);
+    await mergePull({ ...emptyPull(6), visibleVisitIds: [] });
+    expect(await db.commissionings.count()).toBe(0);
+    expect(await db.visits.count()).toBe(0);
+  });
+});

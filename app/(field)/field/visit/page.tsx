@@ -28,8 +28,9 @@ function VisitOverview() {
   const counts = useLiveQuery(async () => {
     const db = fieldDb();
     const entries = await Promise.all(SECTIONS.map(async (s) => {
-      const rows = (await db.table(s.table).where('visitId').equals(id).toArray()) as { deletedAt: string | null }[];
-      return [s.href, rows.filter((r) => !r.deletedAt).length] as const;
+      const rows = (await db.table(s.table).where('visitId').equals(id).toArray()) as { deletedAt: string | null; role?: string; chainageM?: number | null }[];
+      // Profile stations count under "Creek profile", as the points page leaves them to it.
+      return [s.href, rows.filter((r) => !r.deletedAt && !(r.role === 'station' && r.chainageM != null)).length] as const;
     }));
     const visit = await db.visits.get(id);
     const demand = visit ? (await db.demandLines.where('farmId').equals(visit.farmId).toArray()).filter((r) => !r.deletedAt).length : 0;

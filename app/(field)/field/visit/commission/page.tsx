@@ -1,21 +1,22 @@
 'use client';
 
-import { Suspense, useState } from 'react';
+import { Suspense, useEffect, useState } from 'react';
 import { commissioningCheck, EngineInputError, type CommissioningResult } from '@/lib/engine';
-import { ApiError, apiJson } from '@/lib/client/api';
+import { setDirty } from '@/lib/client/dirty';
+import { newId } from '@/lib/client/ids';
+import { QuotaError, saveRecord } from '@/lib/client/outbox';
+import { announceSave } from '@/lib/client/sync/triggers';
+import { commissioningInputSchema } from '@/lib/shared/schemas/commissioning';
 import { PrimaryButton, SectionHeader } from '../../_components/choice';
 import { NumberField } from '../../_components/number-field';
 import { useUnits, useVisitId } from '../../_components/use-field-data';
-import { showQuantity } from '@/lib/shared/quantities';
+import { CheckSummary } from './_components/check-summary';
+import { RecordedChecks } from './_components/recorded-checks';
 
-const OUTCOMES: Record<string, string> = {
-  'as-predicted': 'Within the range the screen predicted.',
-  'above-band': 'Above the range the screen predicted.',
-  short: 'Short of the range the screen predicted.',
-  'well-short': 'Well short: under half of what the screen predicted.',
-};
-
-/** Commissioning check: efficiencies at once on the phone; stored and compared with the screening when sent. */
+/**
+ * Commissioning check: efficiencies at once on the phone; the record is kept on the phone and queued
+ * in the outbox, so it survives no signal; the server stores it and compares it with the screening when it arrives.
+ */
 function CommissionPage() {
   const visitId = useVisitId();
   const units = useUnits();
@@ -24,8 +25,13 @@ function CommissionPage() {
   const [beats, setBeats] = useState<number | undefined>();
   const [liftM, setLiftM] = useState<number | undefined>();
   const [fallM, setFallM] = useState<number | undefined>();
-  const [check, setCheck] = useState<CommissioningResult | null>(null);
   const [message, setMessage] = useState<string | null>(null);
+
+  const typed = [driveLps, deliveredLps, beats, liftM, fallM].some((v) => v !== undefined);
+  useEffect(() => {
+    setDirty('commission', typed);
+    return () => setDirty('commission', false);
+  }, [typed]);
 
   let local: CommissioningResult | null = null;
   let problem: string | null = null;
@@ -37,19 +43,26 @@ function CommissionPage() {
     }
   }
 
-  async function send() {
-    if (!driveLps || !deliveredLps || !beats || !liftM) return setMessage('Drive flow, delivered flow, beats and lift are needed.');
+  async function record() {
+    const parsed = commissioningInputSchema.safeParse({
+      driveLpm: driveLps === undefined ? undefined : driveLps * 60, deliveredLpm: deliveredLps === undefined ? undefined : deliveredLps * 60,
+      beatsPerMinute: beats, liftM, ...(fallM === undefined ? {} : { fallM }),
+    });
+    if (!parsed.success) return setMessage(parsed.error.issues.map((i) => i.message).join('; ') + '.');
+    const input = parsed.data;
     try {
-      const body = { driveLpm: driveLps * 60, deliveredLpm: deliveredLps * 60, beatsPerMinute: beats, liftM, ...(fallM ? { fallM } : {}) };
-      const res = await apiJson<{ commissioning: { check: CommissioningResult } }>(`/api/visits/${visitId}/commissioning`, { method: 'POST', body });
-      setCheck(res.commissioning.check);
-      setMessage('Recorded: the visit is now commissioned.');
+      await saveRecord('commissioning', newId(), {
+        visitId, driveLpm: input.driveLpm, deliveredLpm: input.deliveredLpm, beatsPerMinute: input.beatsPerMinute, liftM: input.liftM,
+        fallM: input.fallM ?? null, drivePipeMaterial: input.drivePipeMaterial ?? null, notes: input.notes,
+      });
     } catch (error) {
-      setMessage(error instanceof ApiError ? error.message : 'Could not send the check.');
+      return setMessage(error instanceof QuotaError ? error.message : 'Could not save the check on this phone.');
     }
+    setDriveLps(undefined); setDeliveredLps(undefined); setBeats(undefined); setLiftM(undefined); setFallM(undefined);
+    setMessage('Check saved on this phone: it goes to the server with the next sync.');
+    announceSave();
   }
 
-  const shown = check ?? local;
   return (
     <div className="space-y-5">
       <SectionHeader visitId={visitId} title="Commissioning check" />
@@ -62,23 +75,16 @@ function CommissionPage() {
         <NumberField label="Fall to the ram (empty: the screening's)" quantity="length" units={units} value={fallM} onChange={setFallM} />
       </div>
       {problem && <p role="alert" className="font-bold text-clay">{problem}</p>}
-      {shown && (
+      {local && (
         <section aria-labelledby="check" className="rounded-md border-2 border-slate bg-white p-4" data-testid="commission-check">
           <h2 id="check" className="text-xl font-bold">What the ram does</h2>
-          <p>Ram efficiency (D&rsquo;Aubuisson) <span className="figure font-bold">{Math.round(shown.daubuissonEfficiency * 100)} %</span> · Rankine <span className="figure font-bold">{Math.round(shown.rankineEfficiency * 100)} %</span></p>
-          <p>Delivers <span className="figure">{showQuantity(shown.measuredLpd, 'litresPerDay', units)}</span>{shown.prediction ? <> against <span className="figure">{showQuantity(shown.prediction.deliveryLpd, 'litresPerDay', units)}</span> predicted</> : null}</p>
-          {shown.outcome && <p className="font-bold">{OUTCOMES[shown.outcome]}</p>}
-          {shown.causes.length > 0 && (
-            <>
-              <h3 className="mt-2 font-bold">Worth checking</h3>
-              <ul className="ml-5 list-disc">{shown.causes.map((c) => <li key={c.code}>{c.text}</li>)}</ul>
-            </>
-          )}
+          <CheckSummary check={local} units={units} />
         </section>
       )}
       {message && <p role="status" className="font-bold">{message}</p>}
-      <PrimaryButton onClick={send}>Record the check (needs a connection)</PrimaryButton>
-      <p className="text-sm text-stone">Keep clear of the waste valve while the ram runs; surge pressure can burst fittings. Repairs follow local codes and licensed practice.</p>
+      <PrimaryButton onClick={record}>Record the check</PrimaryButton>
+      <p className="text-sm text-stone">Works with no signal: the check is kept on this phone until the server has it. Keep clear of the waste valve while the ram runs; surge pressure can burst fittings. Repairs follow local codes and licensed practice.</p>
+      <RecordedChecks visitId={visitId} units={units} />
     </div>
   );
 }

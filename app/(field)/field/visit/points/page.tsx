@@ -1,6 +1,7 @@
 'use client';
 
 import { useLiveQuery } from 'dexie-react-hooks';
+import Link from 'next/link';
 import { Suspense } from 'react';
 import { fieldDb } from '@/lib/client/db';
 import { deleteRecord } from '@/lib/client/outbox';
@@ -13,7 +14,11 @@ import { PointForm } from './_components/point-form';
 function PointsPage() {
   const visitId = useVisitId();
   const units = useUnits();
-  const points = useLiveQuery(async () => (await fieldDb().points.where('visitId').equals(visitId).toArray()).filter((p) => !p.deletedAt), [visitId]);
+  const all = useLiveQuery(async () => (await fieldDb().points.where('visitId').equals(visitId).toArray()).filter((p) => !p.deletedAt), [visitId]);
+  // Creek-profile stations (booked along the bank) live on the profile page: dozens of them would bury the site points here.
+  const isProfileStation = (p: NonNullable<typeof all>[number]) => p.role === 'station' && p.chainageM !== null;
+  const points = all?.filter((p) => !isProfileStation(p));
+  const profileStations = all?.filter(isProfileStation).length ?? 0;
   const mapPoints = (points ?? []).flatMap((p) => (p.lat !== null && p.lon !== null ? [{ id: p.id, lat: p.lat, lon: p.lon, label: p.label, role: p.role }] : []));
   return (
     <div className="space-y-5">
@@ -22,12 +27,16 @@ function PointsPage() {
       <section aria-labelledby="saved-points" className="space-y-2">
         <h2 id="saved-points" className="text-xl font-bold">Saved points</h2>
         {points?.length === 0 && <p className="text-stone">None yet.</p>}
+        {profileStations > 0 && (
+          <p className="text-stone"><span className="figure">{profileStations}</span> creek-profile stations are on{' '}
+            <Link href={`/field/visit/positions?id=${visitId}`} className="font-bold text-slate underline">Creek profile, best positions</Link>.</p>
+        )}
         <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
           {points?.map((p) => (
             <li key={p.id} className="flex items-center justify-between px-3 py-2">
               <span>
                 <span className="block font-bold">{p.role}{p.label ? ` · ${p.label}` : ''}</span>
-                <span className="figure block">{p.lat?.toFixed(5)}, {p.lon?.toFixed(5)}{p.accuracyM !== null ? ` ± ${showQuantity(p.accuracyM, 'length', units)}` : ''}</span>
+                <span className="figure block">{p.lat !== null && p.lon !== null ? `${p.lat.toFixed(5)}, ${p.lon.toFixed(5)}` : 'no position'}{p.accuracyM !== null ? ` ± ${showQuantity(p.accuracyM, 'length', units)}` : ''}</span>
               </span>
               <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold"
                 onClick={async () => { await deleteRecord('point', p.id); announceSave(); }}>Delete</button>

@@ -14,6 +14,7 @@ import { PrimaryButton, SectionHeader } from '../../_components/choice';
 import { NumberField } from '../../_components/number-field';
 import { useUnits, useVisitId } from '../../_components/use-field-data';
 import { PositionsChart } from './_components/positions-chart';
+import { PositionsMapPanel } from './_components/positions-map-panel';
 import { StationForm } from './_components/station-form';
 
 function PositionsPage() {
@@ -82,6 +83,7 @@ function PositionsPage() {
         <button type="button" onClick={saveTank} className="min-h-12 w-full rounded-md border-2 border-slate font-bold text-slate">Save tank</button>
       </fieldset>
       <PositionsChart stations={profile.stations} tank={tank} pairs={result?.ranked ?? []} units={units} />
+      <PositionsMapPanel stations={profile.stations} tankPoint={tp} pairs={result?.ranked ?? []} />
       <p className="text-stone"><span className="figure">{profile.stations.length}</span> stations{profile.incomplete > 0 ? `, ${profile.incomplete} without distance or level (left out)` : ''}.</p>
       <PrimaryButton onClick={search} disabled={busy || profile.stations.length < 2}>{busy ? 'Searching…' : 'Find the best positions'}</PrimaryButton>
       {message && <p role="status" className="font-bold">{message}</p>}

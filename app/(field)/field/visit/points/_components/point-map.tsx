@@ -1,8 +1,8 @@
 'use client';
 
-import 'leaflet/dist/leaflet.css';
 import L from 'leaflet';
-import { MapContainer, Marker, Polyline, ScaleControl, TileLayer, Tooltip } from 'react-leaflet';
+import { Marker, Polyline, Tooltip } from 'react-leaflet';
+import { FieldMap } from '../../../_components/field-map';
 
 export interface MapPoint { id: string; lat: number; lon: number; label: string; role: string }
 
@@ -22,11 +22,8 @@ export default function PointMap({ points, draft, onDraftMove }: {
 }) {
   const all = [...points.map((p) => [p.lat, p.lon] as [number, number]), ...(draft ? [[draft.lat, draft.lon] as [number, number]] : [])];
   const center = all[0] ?? [0, 0];
-  const tiles = process.env.NEXT_PUBLIC_TILE_URL;
   return (
-    <MapContainer center={center} zoom={all.length ? 16 : 2} className="h-72 w-full rounded-md border border-rule" style={{ background: '#EDEAE0' }}>
-      {tiles && <TileLayer url={tiles} attribution={process.env.NEXT_PUBLIC_TILE_ATTRIBUTION ?? ''} />}
-      <ScaleControl position="bottomleft" />
+    <FieldMap center={center} zoom={all.length ? 16 : 2} bounds={all.length > 1 ? L.latLngBounds(all) : undefined}>
       {points.length > 1 && <Polyline positions={points.map((p) => [p.lat, p.lon] as [number, number])} pathOptions={{ color: '#184F69', weight: 4 }} />}
       {points.map((p) => (
         <Marker key={p.id} position={[p.lat, p.lon]} icon={icon(p.role)}>
@@ -39,6 +36,6 @@ export default function PointMap({ points, draft, onDraftMove }: {
           <Tooltip permanent>Drag to the spot</Tooltip>
         </Marker>
       )}
-    </MapContainer>
+    </FieldMap>
   );
 }

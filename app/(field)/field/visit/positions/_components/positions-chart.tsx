@@ -4,7 +4,8 @@ import type { PositionPair, ProfileStation, ProfileTank } from '@/lib/engine';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { showQuantity } from '@/lib/shared/quantities';
 
-const PAIR_COLOURS = ['#1E3A4C', '#184F69', '#6F4700'];
+/** Colour of ranked pair 1, 2, 3: the chart and the map use the same. */
+export const PAIR_COLOURS = ['#1E3A4C', '#184F69', '#6F4700'];
 
 /** The creek profile (level against chainage) with the tank and the ranked pairs drawn intake → ram, numbered. */
 export function PositionsChart({ stations, tank, pairs, units }: { stations: ProfileStation[]; tank: ProfileTank | null; pairs: PositionPair[]; units: UnitSystem }) {

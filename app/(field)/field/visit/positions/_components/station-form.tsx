@@ -1,20 +1,30 @@
 'use client';
 
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
+import { fixFields, watchFix, type Fix } from '@/lib/client/geolocation';
 import { newId } from '@/lib/client/ids';
 import { saveRecord } from '@/lib/client/outbox';
 import { announceSave } from '@/lib/client/sync/triggers';
 import type { UnitSystem } from '@/lib/shared/domain';
+import { showQuantity } from '@/lib/shared/quantities';
 import { PrimaryButton } from '../../../_components/choice';
 import { NumberField } from '../../../_components/number-field';
 
-/** Adds one profile station: distance along the bank, levelled reduced level, and whether it floods. */
+/**
+ * Adds one profile station: distance along the bank, levelled reduced level, and whether it floods.
+ * While the form is open the phone watches its position, and each station is booked with the latest
+ * fix (and its accuracy); with no fix the station is booked without a position, never held up.
+ */
 export function StationForm({ visitId, units }: { visitId: string; units: UnitSystem }) {
   const [chainageM, setChainageM] = useState<number | undefined>();
   const [levelM, setLevelM] = useState<number | undefined>();
   const [floods, setFloods] = useState(false);
   const [noIntake, setNoIntake] = useState(false);
   const [message, setMessage] = useState<string | null>(null);
+  const [fix, setFix] = useState<Fix | null>(null);
+  const [fixProblem, setFixProblem] = useState<string | null>(null);
+
+  useEffect(() => watchFix((f) => { setFix(f); setFixProblem(null); }, setFixProblem), []);
 
   async function save() {
     if (chainageM === undefined || levelM === undefined) {
@@ -22,12 +32,12 @@ export function StationForm({ visitId, units }: { visitId: string; units: UnitSy
       return;
     }
     const flags = [...(noIntake ? ['no-intake' as const] : []), ...(floods ? ['no-pump-site' as const] : [])];
+    const position = fixFields(fix);
     await saveRecord('point', newId(), {
-      visitId, role: 'station', label: '', lat: null, lon: null, accuracyM: null, altitudeM: null, altitudeAccuracyM: null,
-      chainageM, reducedLevelM: levelM, flags, capturedAt: new Date().toISOString(),
+      visitId, role: 'station', label: '', ...position, chainageM, reducedLevelM: levelM, flags, capturedAt: new Date().toISOString(),
     });
     setChainageM(undefined); setLevelM(undefined); setFloods(false); setNoIntake(false);
-    setMessage('Station saved on this phone.');
+    setMessage(position.lat === null ? 'Station saved on this phone, without a position (placed by chainage on the map).' : 'Station saved on this phone, with its position.');
     announceSave();
   }
 
@@ -47,6 +57,10 @@ export function StationForm({ visitId, units }: { visitId: string; units: UnitSy
         {toggle(floods, setFloods, 'Floods: no ram here')}
         {toggle(noIntake, setNoIntake, 'No intake here')}
       </div>
+      <p className="text-stone" data-testid="station-fix" aria-live="polite">
+        {fix ? <>Position from the phone, <span className="figure">± {showQuantity(fix.accuracyM, 'length', units)}</span>: saved with the station.</>
+          : `${fixProblem ? 'No position from the phone (location off, blocked or no open sky).' : 'Waiting for a position fix.'} Stations are saved without one meanwhile.`}
+      </p>
       {message && <p role="status" className="font-bold">{message}</p>}
       <PrimaryButton onClick={save}>Save station</PrimaryButton>
     </fieldset>
