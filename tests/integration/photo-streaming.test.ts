@@ -1,10 +1,10 @@
 // Photo uploads stream to the store and downloads stream from it: a body is refused while it arrives
 // (over the cap, or not a photo by its first bytes) without being read to the end; nothing is left in
-// the staging folder; putFile/open round-trip through both drivers; with S3_SIGNED_URLS the routes
+// the staging folder (and what a crashed server left there is swept); putFile/open round-trip through both drivers; with S3_SIGNED_URLS the routes
 // answer 302 to a presigned URL that fetches the same bytes, only after the access check, whose V4
 // signature covers the key and lifetime, and that the store refuses once expired.
 import { createHash, randomUUID } from 'node:crypto';
-import { mkdtemp, readdir, rm, writeFile } from 'node:fs/promises';
+import { mkdir, mkdtemp, readdir, rm, utimes, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { NextRequest } from 'next/server';
@@ -85,6 +85,21 @@ async function expectNothingStored(id: string) {
 const stagedFiles = async () => (await readdir(uploadStagingDir()).catch(() => [] as string[])).filter((f) => f.endsWith('.upload'));
 
 describe('photo uploads stream', () => {
+  it('staging files left by a crashed server (over an hour old) are swept; a recent one is left alone', async () => {
+    const dir = uploadStagingDir();
+    await mkdir(dir, { recursive: true });
+    const stale = path.join(dir, `${randomUUID()}.upload`);
+    const recent = path.join(dir, `${randomUUID()}.upload`);
+    await writeFile(stale, 'half a photo');
+    await writeFile(recent, 'an upload in progress elsewhere');
+    const hoursAgo = new Date(Date.now() - 2 * 3600_000);
+    await utimes(stale, hoursAgo, hoursAgo);
+    const id = await pushPhoto({ bytes: jpeg.length, sha256: sha(jpeg) });
+    expect((await putStream(id, Buffer.from('not a photo at all, just words'))).status).toBe(415);
+    await expect.poll(async () => (await stagedFiles()).sort()).toEqual([path.basename(recent)]);
+    await rm(recent);
+  });
+
   it('a body with no Content-Length is cut off at the cap: 413 before the rest is read, nothing stored or staged', async () => {
     const id = await pushPhoto({ bytes: jpeg.length, sha256: sha(jpeg) });
     const total = MAX_PHOTO_BYTES * 4;

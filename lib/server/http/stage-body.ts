@@ -1,6 +1,6 @@
 import 'server-only';
 import { createHash, randomUUID } from 'node:crypto';
-import { mkdir, open, rm } from 'node:fs/promises';
+import { mkdir, open, readdir, rm, stat } from 'node:fs/promises';
 import path from 'node:path';
 import { tooLarge } from '../errors';
 
@@ -11,6 +11,22 @@ export interface StagedBody {
   sha256: string;
   /** Deletes the staging file (always call it, stored or refused). */
   discard(): Promise<void>;
+}
+
+/** A staging file this old belongs to an upload whose server died mid-way: nothing will finish it. */
+const STALE_MS = 60 * 60 * 1000;
+const lastSweep = new Map<string, number>();
+
+/** Deletes staging files left by a crashed server, at most every 10 minutes per folder (never awaited). */
+async function sweepStale(dir: string, now = Date.now()) {
+  if (now - (lastSweep.get(dir) ?? 0) < 10 * 60 * 1000) return;
+  lastSweep.set(dir, now);
+  for (const name of await readdir(dir).catch(() => [] as string[])) {
+    if (!name.endsWith('.upload')) continue;
+    const file = path.join(dir, name);
+    const info = await stat(file).catch(() => null);
+    if (info && now - info.mtimeMs > STALE_MS) await rm(file, { force: true });
+  }
 }
 
 /** How many leading bytes `checkHead` sees (enough for every photo format's signature). */
@@ -28,6 +44,7 @@ export async function stageBody(req: Request, options: { dir: string; maxBytes: 
   const declared = Number(req.headers.get('content-length') ?? NaN);
   if (Number.isFinite(declared) && declared > maxBytes) throw tooBig();
   await mkdir(dir, { recursive: true });
+  void sweepStale(dir).catch(() => undefined);
   const file = path.join(dir, `${randomUUID()}.upload`);
   const discard = () => rm(file, { force: true });
   const handle = await open(file, 'wx');
