@@ -158,6 +158,19 @@ describe('photo uploads stream', () => {
     expect(sha((await getPhotoStorage().get(row.storageKey as string)) as Buffer)).toBe(sha(jpeg));
     expect(await stagedFiles()).toEqual([]);
   });
+
+  it('when the store fails half-way (the thumbnail is refused), the original written before it is removed', async () => {
+    const inner = localFolderStorage(path.join(folder, 'failing'));
+    setPhotoStorage({ ...inner, put: async () => { throw new Error('the store refused the thumbnail'); } });
+    const id = await pushPhoto({ bytes: jpeg.length, sha256: sha(jpeg) });
+    const res = await putStream(id, jpeg);
+    expect(res.status).toBe(500);
+    expect(await inner.get(`photos/${org.visit.id}/${id}.jpg`)).toBeNull();
+    const row = await Photo.findByPk(id, { rejectOnEmpty: true });
+    expect([row.storageKey, row.uploadedAt]).toEqual([null, null]);
+    expect(await stagedFiles()).toEqual([]);
+    setPhotoStorage(undefined);
+  });
 });
 
 describe('storage drivers: streamed put and open', () => {

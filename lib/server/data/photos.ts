@@ -32,6 +32,17 @@ async function getPhotoOrThrow(user: SessionUser, id: string, permission: Permis
 }
 
 /**
+ * After a failed store (the bucket or the database refused half-way): removes what was written, unless
+ * a parallel upload of the same photo has claimed the key meanwhile. Best effort; the phone retries.
+ */
+async function removeUnclaimed(id: string, key: string) {
+  const row = await Photo.findByPk(id, { attributes: ['storageKey'] }).catch(() => null);
+  if (row?.storageKey) return;
+  const storage = getPhotoStorage();
+  await Promise.all([storage.remove(key), storage.remove(thumbnailKey(key))]).catch(() => undefined);
+}
+
+/**
  * Stores the body of PUT /api/photos/:id: streamed to a staging file (memory stays flat), refused as
  * soon as it passes the size cap or its first bytes are not a photo; its size and sha-256 must match
  * the pushed metadata and its content must decode; then the original and a metadata-free thumbnail
@@ -52,16 +63,21 @@ export async function storePhotoUpload(user: SessionUser, id: string, req: Reque
     const image = await checkPhotoImage(staged.file);
     const key = `photos/${photo.visitId}/${photo.id}.${image.ext}`;
     const storage = getPhotoStorage();
-    await storage.putFile(key, staged.file, image.mime, staged.sha256);
-    await storage.put(thumbnailKey(key), image.thumbnail, 'image/jpeg');
-    const uploadedAt = new Date();
-    await getSequelize().transaction(async (transaction) => {
-      const row = await Photo.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE, rejectOnEmpty: true });
-      await row.update({ storageKey: key, uploadedAt, width: image.width, height: image.height, mime: image.mime }, { transaction });
-      await recordAudit({ organisationId: user.organisationId, actorId: user.id, entity: 'photo', entityId: id, visitId: photo.visitId,
-        action: 'uploaded', changes: { bytes: staged.bytes, mime: image.mime, width: image.width, height: image.height } }, transaction);
-    });
-    return { id, uploadedAt: uploadedAt.toISOString(), width: image.width, height: image.height, stored: true };
+    try {
+      await storage.putFile(key, staged.file, image.mime, staged.sha256);
+      await storage.put(thumbnailKey(key), image.thumbnail, 'image/jpeg');
+      const uploadedAt = new Date();
+      await getSequelize().transaction(async (transaction) => {
+        const row = await Photo.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE, rejectOnEmpty: true });
+        await row.update({ storageKey: key, uploadedAt, width: image.width, height: image.height, mime: image.mime }, { transaction });
+        await recordAudit({ organisationId: user.organisationId, actorId: user.id, entity: 'photo', entityId: id, visitId: photo.visitId,
+          action: 'uploaded', changes: { bytes: staged.bytes, mime: image.mime, width: image.width, height: image.height } }, transaction);
+      });
+      return { id, uploadedAt: uploadedAt.toISOString(), width: image.width, height: image.height, stored: true };
+    } catch (error) {
+      await removeUnclaimed(id, key);
+      throw error;
+    }
   } finally {
     await staged.discard();
   }
