@@ -39,6 +39,10 @@ const storageSchema = z.object({
   S3_SECRET_ACCESS_KEY: z.string().optional(),
   S3_FORCE_PATH_STYLE: flag,
   S3_PREFIX: z.string().regex(/^([a-z0-9][a-z0-9._-]*\/)*$/, 'S3_PREFIX must be empty or end with /, e.g. fallbook/').default(''),
+  /** With the S3 driver: answer photo downloads (after the access check) with a presigned URL. */
+  S3_SIGNED_URLS: flag,
+  /** How long such a URL is valid, in seconds. */
+  S3_SIGNED_URL_SECONDS: z.coerce.number().int().min(1).max(3600).default(60),
 }).refine((env) => env.STORAGE_DRIVER !== 's3' || env.S3_BUCKET.length >= 3, {
   message: 'STORAGE_DRIVER=s3 needs S3_BUCKET (3 to 63 characters)', path: ['S3_BUCKET'],
 });

@@ -4,7 +4,7 @@
 import path from 'node:path';
 import { NextRequest } from 'next/server';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startReplicaPair, type ReplicaPair, type Server } from './support/replica-pair';
+import { createAppDatabase, startReplicaPair, type ReplicaPair, type Server } from '../support/replica-pair';
 
 type Fixtures = typeof import('./support/fixtures');
 type Sync = typeof import('./support/sync');
@@ -39,13 +39,7 @@ async function listVisitIds(cookieExtra = '') {
 beforeAll(async () => {
   const root = path.resolve(__dirname, '../..');
   pair = await startReplicaPair(path.join(root, '.data', 'replica-test'), Number(process.env.DB_PORT) + 1000);
-  const conn = await pair.root(pair.primary);
-  await conn.query('CREATE DATABASE fallbook_test CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci');
-  for (const host of ['127.0.0.1', 'localhost']) {
-    await conn.query('CREATE USER ?@? IDENTIFIED BY ?', [process.env.DB_USER, host, process.env.DB_PASSWORD]);
-    await conn.query('GRANT ALL PRIVILEGES ON fallbook_test.* TO ?@?', [process.env.DB_USER, host]);
-  }
-  await conn.end();
+  await createAppDatabase(pair, { name: 'fallbook_test', user: process.env.DB_USER as string, password: process.env.DB_PASSWORD as string });
   // Point the app at the pair before anything opens a connection (modules load below).
   process.env.DB_PORT = String(pair.primary.port);
   process.env.DB_READ_HOSTS = `127.0.0.1:${pair.replica.port}`;
@@ -119,6 +113,26 @@ describe('MariaDB primary + read replica', () => {
       await replica.query('START SLAVE SQL_THREAD').catch(() => undefined);
       await replica.end();
     }
+  });
+
+  it('a phone pulling right after its push sees the push, while the replica has not applied it', async () => {
+    const { cursor } = await sync.pullAll(org.advisor);
+    const replica = await pair.root(pair.replica);
+    await replica.query('STOP SLAVE SQL_THREAD');
+    try {
+      const { ops, ids } = sync.readingOps(org.visit.id, org.farm.id);
+      const { status, results } = await sync.push(org.advisor, { ops });
+      expect([status, results.every((r) => r.status === 'applied')]).toEqual([200, true]);
+      const sql = 'SELECT COUNT(*) AS n FROM fallbook_test.points WHERE id = ?';
+      expect([await count(pair.primary, sql, [ids.point]), await count(pair.replica, sql, [ids.point])]).toEqual([1, 0]);
+      // No cookie here (a phone's pull is not a page): the sync routes read the primary by themselves.
+      const pulled = (await sync.pullAll(org.advisor, cursor)).pages.flatMap(sync.pulledIds);
+      expect(pulled).toEqual(expect.arrayContaining([`point:${ids.point}`, `waterSource:${ids.source}`, `fallReading:${ids.fall}`]));
+    } finally {
+      await replica.query('START SLAVE SQL_THREAD').catch(() => undefined);
+      await replica.end();
+    }
+    await pair.catchUp();
   });
 
   it('a bad DB_READ_HOSTS entry is refused with the setting named', async () => {

@@ -20,12 +20,30 @@ export interface CheckedPhoto {
 }
 
 const NOT_A_PHOTO = 'This file is not a JPEG, PNG or WebP photo.';
+const HEIC = 'HEIC photos cannot be read here; set the camera to JPEG (most compatible).';
+
+// Staged uploads are deleted right after the check: libvips must not keep them open in its file cache.
+sharp.cache({ files: 0 });
 
 /**
- * Checks the bytes are a readable JPEG, PNG or WebP by their content (never the announced type),
- * refuses decompression bombs, and makes the thumbnail (decoding the whole image finds damage).
+ * Refuses an upload by its first bytes, before the rest arrives: JPEG, PNG and WebP signatures pass
+ * (the full check below still decodes them); HEIF/HEIC gets its own advice; anything else is not a photo.
  */
-export async function checkPhotoImage(data: Buffer): Promise<CheckedPhoto> {
+export function checkPhotoHead(head: Buffer): void {
+  const at = (offset: number, text: string) => head.subarray(offset, offset + text.length).toString('latin1') === text;
+  if (head[0] === 0xff && head[1] === 0xd8 && head[2] === 0xff) return;
+  if (at(0, '\x89PNG\r\n\x1a\n')) return;
+  if (at(0, 'RIFF') && at(8, 'WEBP')) return;
+  if (at(4, 'ftyp')) throw unsupportedType(HEIC);
+  throw unsupportedType(NOT_A_PHOTO);
+}
+
+/**
+ * Checks the bytes (or the file, read by libvips without loading it whole) are a readable JPEG, PNG or
+ * WebP by their content (never the announced type), refuses decompression bombs, and makes the
+ * thumbnail (decoding the whole image finds damage).
+ */
+export async function checkPhotoImage(data: Buffer | string): Promise<CheckedPhoto> {
   let meta: Metadata;
   try {
     // The header only (no decode), so the pixel count can be refused with a clear message below.
@@ -33,7 +51,7 @@ export async function checkPhotoImage(data: Buffer): Promise<CheckedPhoto> {
   } catch {
     throw unsupportedType(NOT_A_PHOTO);
   }
-  if (meta.format === 'heif') throw unsupportedType('HEIC photos cannot be read here; set the camera to JPEG (most compatible).');
+  if (meta.format === 'heif') throw unsupportedType(HEIC);
   if (!meta.format || !(meta.format in FORMATS)) throw unsupportedType(NOT_A_PHOTO);
   const width = meta.width ?? 0;
   const height = meta.height ?? 0;

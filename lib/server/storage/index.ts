@@ -16,12 +16,18 @@ export function s3SettingsFromEnv(): S3Settings {
     endpoint: env.S3_ENDPOINT || undefined, bucket: env.S3_BUCKET, region: env.S3_REGION,
     accessKeyId: env.S3_ACCESS_KEY_ID || undefined, secretAccessKey: env.S3_SECRET_ACCESS_KEY || undefined,
     forcePathStyle: env.S3_FORCE_PATH_STYLE, prefix: env.S3_PREFIX,
+    signedUrlSeconds: env.S3_SIGNED_URLS ? env.S3_SIGNED_URL_SECONDS : 0,
   };
 }
 
 /** The local photo folder (PHOTO_DIR, default .data/photos), whatever the driver. */
 export function localPhotoStorage(): BlobStorage {
   return localFolderStorage(path.resolve(process.cwd(), storageEnv().PHOTO_DIR));
+}
+
+/** Where uploads are staged while they stream in and are checked (beside the local photos: one disk, so moving them in is a rename). */
+export function uploadStagingDir(): string {
+  return path.resolve(process.cwd(), storageEnv().PHOTO_DIR, '.incoming');
 }
 
 /** The store for photo originals and thumbnails: the local folder (default) or an S3 bucket. */

@@ -1,5 +1,6 @@
 // PUT /api/photos/:id – the raw bytes of a photo whose metadata was pushed; GET – the original (staff only).
 import { readPhoto, storePhotoUpload } from '@/lib/server/data/photos';
+import { photoResponse } from '@/lib/server/http/photo-response';
 import { withAuth } from '@/lib/server/http/with-auth';
 import { idParam } from '@/lib/shared/schemas/list-query';
 
@@ -11,10 +12,8 @@ export const PUT = withAuth<{ id: string }>('visit:capture', async ({ req, user,
 });
 
 // Farmers get 403 here: originals keep the camera's GPS; they see /thumbnail (no metadata).
+// Streamed from the store, or a 302 to a short-lived signed URL (S3_SIGNED_URLS) after the same check.
 export const GET = withAuth<{ id: string }>('visit:read', async ({ user, params }) => {
   const { id } = idParam.parse(params);
-  const { data, contentType } = await readPhoto(user, id, 'original');
-  return new Response(new Uint8Array(data), {
-    headers: { 'content-type': contentType, 'content-length': String(data.length), 'cache-control': 'private, max-age=86400', 'x-content-type-options': 'nosniff' },
-  });
+  return photoResponse(await readPhoto(user, id, 'original'));
 });

@@ -1,5 +1,5 @@
 // A MariaDB primary and a GTID replica of it on loopback, each with its own port and data folder
-// under .data/, for the read-replica test. Small buffers so both start in a second or two.
+// under .data/, for the read-replica tests (integration and e2e). Small buffers so both start in a second or two.
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import { cpSync, mkdirSync, openSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir, userInfo } from 'node:os';
@@ -98,4 +98,27 @@ export async function startReplicaPair(base: string, port: number): Promise<Repl
     throw error;
   }
   return pair;
+}
+
+/** Creates the app's database and account on the primary (they replicate to the replica). */
+export async function createAppDatabase(pair: ReplicaPair, db: { name: string; user: string; password: string }): Promise<void> {
+  const conn = await pair.root(pair.primary);
+  try {
+    await conn.query(`CREATE DATABASE \`${db.name}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
+    for (const host of ['127.0.0.1', 'localhost']) {
+      await conn.query('CREATE USER ?@? IDENTIFIED BY ?', [db.user, host, db.password]);
+      await conn.query(`GRANT ALL PRIVILEGES ON \`${db.name}\`.* TO ?@?`, [db.user, host]);
+    }
+  } finally {
+    await conn.end();
+  }
+}
+
+/** Copies a database from another server into the primary (mariadb-dump | mariadb); it replicates. */
+export function copyDatabaseInto(pair: ReplicaPair, from: { host: string; port: number; user: string; password: string; name: string }): void {
+  const dump = spawnSync('mariadb-dump', [`--host=${from.host}`, `--port=${from.port}`, `--user=${from.user}`, `--password=${from.password}`,
+    '--single-transaction', '--no-tablespaces', '--skip-triggers', from.name], { encoding: 'utf8', maxBuffer: 512 * 1024 * 1024 });
+  if (dump.status !== 0) throw new Error(`mariadb-dump failed: ${dump.stderr}`);
+  const load = spawnSync('mariadb', [`--socket=${pair.primary.socket}`, '--user=root', from.name], { input: dump.stdout, encoding: 'utf8' });
+  if (load.status !== 0) throw new Error(`loading the dump failed: ${load.stderr}`);
 }

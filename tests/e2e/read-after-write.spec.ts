@@ -1,0 +1,107 @@
+// The page right after a save reads the primary: a `next start` of the production build runs against
+// a MariaDB primary + GTID replica pair (a copy of the test database) with DB_READ_HOSTS set. With the
+// replica held back (STOP SLAVE SQL_THREAD), a coordinator plans a visit through the API; the visit's
+// office page (a server component) shows it to a request carrying the fallbook-wrote cookie the save
+// set, and is a 404 to one without it (read from the replica, which has not applied the write yet).
+import { spawn, type ChildProcess } from 'node:child_process';
+import { randomUUID } from 'node:crypto';
+import path from 'node:path';
+import { expect, test } from '@playwright/test';
+import { encode } from 'next-auth/jwt';
+import { copyDatabaseInto, createAppDatabase, startReplicaPair, type ReplicaPair } from '../support/replica-pair';
+import { query } from './support/db';
+
+const db = { host: '127.0.0.1', port: Number(process.env.DB_PORT), user: process.env.DB_USER as string, password: process.env.DB_PASSWORD as string, name: process.env.DB_NAME as string };
+const port = Number(process.env.PORT || 3100) + 1001;
+const base = `http://127.0.0.1:${port}`;
+let pair: ReplicaPair | undefined;
+let server: ChildProcess | undefined;
+let session = '';
+let farmId = '';
+let advisorId = '';
+
+async function waitForHealth(url: string, timeoutMs = 60_000) {
+  const started = Date.now();
+  while (Date.now() - started < timeoutMs) {
+    if (server?.exitCode !== null) throw new Error(`the app server exited with ${server?.exitCode}`);
+    try {
+      if ((await fetch(url)).ok) return;
+    } catch {
+      // not listening yet
+    }
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new Error(`${url} did not answer in ${timeoutMs / 1000} s`);
+}
+
+test.beforeAll(async () => {
+  test.setTimeout(120_000);
+  pair = await startReplicaPair(path.resolve('.data', 'replica-e2e'), db.port + 1002);
+  await createAppDatabase(pair, db);
+  copyDatabaseInto(pair, db);
+  await pair.catchUp();
+  const [maren] = await query<{ id: string; role: 'coordinator'; organisation_id: string; session_version: number; name: string; email: string }>(
+    "SELECT id, role, organisation_id, session_version, name, email FROM users WHERE email = 'maren@wenlow-water.test'");
+  if (!maren) throw new Error('the demo coordinator is missing');
+  const [farm] = await query<{ id: string }>('SELECT id FROM farms WHERE organisation_id = ? AND deleted_at IS NULL ORDER BY name LIMIT 1', [maren.organisation_id]);
+  const [advisor] = await query<{ id: string }>("SELECT id FROM users WHERE organisation_id = ? AND role = 'advisor' AND active = 1 ORDER BY email LIMIT 1", [maren.organisation_id]);
+  farmId = farm?.id ?? '';
+  advisorId = advisor?.id ?? '';
+  const token = await encode({ secret: process.env.NEXTAUTH_SECRET ?? '', token: {
+    uid: maren.id, role: maren.role, organisationId: maren.organisation_id, sessionVersion: maren.session_version, email: maren.email, name: maren.name,
+  } });
+  session = `next-auth.session-token=${token}`;
+  server = spawn(process.execPath, ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(port)], {
+    env: { ...process.env, NODE_ENV: 'production', PORT: String(port), NEXTAUTH_URL: base, DB_HOST: '127.0.0.1',
+      DB_PORT: String(pair.primary.port), DB_READ_HOSTS: `127.0.0.1:${pair.replica.port}` },
+    stdio: ['ignore', 'inherit', 'inherit'],
+  });
+  await waitForHealth(`${base}/api/health`);
+});
+
+test.afterAll(async () => {
+  if (server && server.exitCode === null) {
+    const exited = new Promise((r) => server?.once('exit', r));
+    server.kill('SIGTERM');
+    await exited;
+  }
+  await pair?.stop();
+});
+
+/** The office page of the visit as this cookie header sees it: its status and text. */
+async function visitPage(id: string, cookie: string) {
+  const res = await fetch(`${base}/office/visits/${id}`, { headers: { cookie }, redirect: 'manual' });
+  return { status: res.status, text: await res.text() };
+}
+
+test('the page right after a save reads the primary; without the mark it reads the held-back replica', async () => {
+  test.setTimeout(60_000);
+  const held = await (pair as ReplicaPair).root((pair as ReplicaPair).replica);
+  await held.query('STOP SLAVE SQL_THREAD');
+  try {
+    const notes = `Replica check ${randomUUID().slice(0, 8)}`;
+    const res = await fetch(`${base}/api/visits`, {
+      method: 'POST', headers: { cookie: session, origin: base, 'content-type': 'application/json' },
+      body: JSON.stringify({ farmId, advisorId, plannedOn: '2027-03-01', notes }),
+    });
+    expect(res.status).toBe(201);
+    const id = ((await res.json()) as { visit: { id: string } }).visit.id;
+    const wrote = /fallbook-wrote=(\d+)/.exec(res.headers.get('set-cookie') ?? '')?.[0];
+    expect(wrote).toBeTruthy();
+
+    // The browser sends the mark with the next page: the server component reads the primary.
+    const after = await visitPage(id, `${session}; ${wrote}`);
+    expect(after.status).toBe(200);
+    expect(after.text).toContain(notes);
+    // Without it the page reads the replica, which does not have the visit yet.
+    expect((await visitPage(id, session)).status).toBe(404);
+
+    await held.query('START SLAVE SQL_THREAD');
+    await (pair as ReplicaPair).catchUp();
+    const later = await visitPage(id, session);
+    expect([later.status, later.text.includes(notes)]).toEqual([200, true]);
+  } finally {
+    await held.query('START SLAVE SQL_THREAD').catch(() => undefined);
+    await held.end();
+  }
+});
