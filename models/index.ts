@@ -104,10 +104,10 @@ export async function writeSyncedRows(
     }
   }
   const values = (list: Model[]) => list.map((row) => row.get({ plain: true }) as Record<string, unknown>);
-  if (rows.created.length > 0) await model.bulkCreate(values(rows.created), { transaction, hooks: false, validate: true });
+  if (rows.created.length > 0) await model.bulkCreate(values(rows.created), { transaction, hooks: false });
   if (rows.updated.length > 0) {
     await model.bulkCreate(values(rows.updated), {
-      transaction, hooks: false, validate: true, updateOnDuplicate: [...new Set([...fields, 'rev', 'deletedAt', 'updatedAt'])],
+      transaction, hooks: false, updateOnDuplicate: [...new Set([...fields, 'rev', 'deletedAt', 'updatedAt'])],
     });
   }
 }

@@ -114,11 +114,11 @@ function orderOf(filters: Partial<VisitFilters>): Order {
 function visitQuery(user: SessionUser, query: Partial<VisitFilters>, today: string, withColumns = true) {
   const { where, farmWhere } = visibleWhere(user);
   const filters = filterWhere(query, today);
-  // The farm's organisation is the visit's: saying so lets the join read farms by farms_org_* indexes.
-  const farmConditions = [{ organisationId: user.organisationId }, ...(farmWhere ? [farmWhere] : []), ...filters.farm];
   // Only these filters read the farm (or its owner); these sorts read a joined name. Without them a
   // count or an id list reads the visits index alone.
   const filtersJoin = !!farmWhere || filters.farm.length > 0 || !!query.q;
+  // The farm's organisation is the visit's: saying so lets a join read farms by farms_org_* indexes.
+  const farmConditions = [{ organisationId: user.organisationId }, ...(farmWhere ? [farmWhere] : []), ...filters.farm];
   return {
     filtersJoin,
     sortsJoin: query.sort === 'farm' || query.sort === 'advisor',
@@ -138,15 +138,14 @@ function visitQuery(user: SessionUser, query: Partial<VisitFilters>, today: stri
 
 /** One page of the visits the user may see, filtered and sorted as asked. */
 export async function listVisits(user: SessionUser, query: VisitListQuery, today = todayIso()) {
-  const { filtersJoin, sortsJoin: _sorts, ...found } = visitQuery(user, query, today);
-  const [rows, count] = await Promise.all([
-    Visit.findAll({ ...found, limit: query.pageSize, offset: (query.page - 1) * query.pageSize }),
+  const { filtersJoin, where, include } = visitQuery(user, query, today);
+  const [ids, count] = await Promise.all([
+    visitIdsInOrder(user, query, today, { limit: query.pageSize, offset: (query.page - 1) * query.pageSize }),
     // The count reads the visits index alone unless a filter needs the farm.
-    filtersJoin ? Visit.count({ where: found.where, include: countInclude(found.include), distinct: true, col: 'id' }) : Visit.count({ where: found.where }),
+    filtersJoin ? Visit.count({ where, include: countInclude(include), distinct: true, col: 'id' }) : Visit.count({ where }),
   ]);
-  const verdicts = await latestVerdicts(rows.map((r) => r.id));
   return {
-    items: (rows as VisitRow[]).map((r) => toSummary(r, verdicts.get(r.id) ?? null, today)),
+    items: await visitSummaries(user, ids, today),
     page: query.page,
     pageSize: query.pageSize,
     total: count,
@@ -159,10 +158,15 @@ function countInclude(include: ReturnType<typeof visitQuery>['include']) {
   return farm ? [{ ...farm, attributes: [], include: [{ model: User, as: 'owner', attributes: [] }] }] : [];
 }
 
-/** The ids of every visit the user may see under the filters, in the list's order (one index-ordered read). */
-export async function visitIdsInOrder(user: SessionUser, filters: Partial<VisitFilters>, today = todayIso()): Promise<string[]> {
+/**
+ * The ids of the visits the user may see under the filters, in the list's order (all, or one page).
+ * Without a farm filter or a name sort it reads a visits index alone, in order: joined, the optimizer
+ * would start from the farms and sort every visit of the organisation to find one page.
+ */
+export async function visitIdsInOrder(user: SessionUser, filters: Partial<VisitFilters>, today = todayIso(),
+  page: { limit?: number; offset?: number } = {}): Promise<string[]> {
   const { filtersJoin, sortsJoin, ...found } = visitQuery(user, filters, today, false);
-  const rows = await Visit.findAll({ ...found, ...(filtersJoin || sortsJoin ? {} : { include: [] }), attributes: ['id'], raw: true });
+  const rows = await Visit.findAll({ ...found, ...(filtersJoin || sortsJoin ? {} : { include: [] }), attributes: ['id'], raw: true, ...page });
   return rows.map((r) => r.id);
 }
 

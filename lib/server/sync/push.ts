@@ -1,6 +1,5 @@
 import 'server-only';
-import { randomUUID } from 'node:crypto';
-import { Op, QueryTypes, Transaction } from 'sequelize';
+import { Op, QueryTypes, Transaction, UniqueConstraintError } from 'sequelize';
 import { Visit, getSequelize, reserveRevs, writeSyncedRows } from '@/lib/server/db';
 import type { OpResult, SyncEntity, SyncOp } from '@/lib/shared/schemas/sync';
 import { recordAudit, recordAudits } from '../audit';
@@ -20,32 +19,22 @@ function replayOf(opId: string, stored: unknown): OpResult {
 const noEffect = (result: OpResult): OpEffect => ({ result, visitId: null, farmId: null });
 
 /**
- * Claims the batch's op ids in sync_ops with one INSERT IGNORE (in key order, so two pushes of
- * overlapping batches lock alike): an id claimed by a concurrent push waits for its commit and is
- * then ignored. Returns the ids this transaction claimed, and the stored outcome of the others.
+ * The outcomes stored for the batch's op ids (one SELECT); the other ids are new. Nothing is
+ * claimed up front: the applied ops' rows go in at the end with a plain INSERT, so a concurrent push
+ * of the same op waits on the first one's uncommitted row, fails on its key once that commits, and
+ * its retry answers from the stored outcome (see pushOps).
  */
-async function claimOps(ops: SyncOp[], user: SessionUser, transaction: Transaction) {
-  const token = JSON.stringify({ pending: randomUUID() });
-  const first = new Map<string, SyncOp>();
-  for (const op of ops) if (!first.has(op.opId)) first.set(op.opId, op);
-  const ids = [...first.keys()].sort();
-  const sequelize = getSequelize();
-  await sequelize.query(
-    `INSERT IGNORE INTO sync_ops (op_id, user_id, entity, entity_id, outcome, created_at) VALUES ${ids.map(() => '(?, ?, ?, ?, ?, NOW())').join(', ')}`,
-    { replacements: ids.flatMap((id) => { const op = first.get(id) as SyncOp; return [id, user.id, op.entity, op.entityId, token]; }), transaction },
-  );
-  const rows = await sequelize.query<{ op_id: string; user_id: string; outcome: unknown }>(
+async function knownOps(ops: SyncOp[], user: SessionUser, transaction: Transaction) {
+  const ids = [...new Set(ops.map((op) => op.opId))];
+  const rows = await getSequelize().query<{ op_id: string; user_id: string; outcome: unknown }>(
     'SELECT op_id, user_id, outcome FROM sync_ops WHERE op_id IN (?)', { replacements: [ids], type: QueryTypes.SELECT, transaction },
   );
-  const claimed = new Set<string>();
   const stored = new Map<string, OpResult>();
   for (const row of rows) {
-    const outcome = typeof row.outcome === 'string' ? row.outcome : JSON.stringify(row.outcome);
-    if (outcome === token) claimed.add(row.op_id);
-    else if (row.user_id !== user.id) stored.set(row.op_id, { opId: row.op_id, status: 'rejected', rev: null, error: { code: 409, message: 'This op id was already used.' } });
+    if (row.user_id !== user.id) stored.set(row.op_id, { opId: row.op_id, status: 'rejected', rev: null, error: { code: 409, message: 'This op id was already used.' } });
     else stored.set(row.op_id, replayOf(row.op_id, typeof row.outcome === 'string' ? JSON.parse(row.outcome) : row.outcome));
   }
-  return { claimed, stored };
+  return { fresh: new Set(ids.filter((id) => !stored.has(id))), stored };
 }
 
 /** The batch's existing rows, one locking SELECT per entity table; keyed "entity:id". */
@@ -64,9 +53,9 @@ async function loadRows(ops: SyncOp[], transaction: Transaction): Promise<Map<st
 /**
  * Writes what the plans applied: a block of revisions (one per writing op, in op order, so each
  * result carries its own), visits saved through the model (their hooks), every other table in bulk,
- * then the applied ops' outcomes, and the claims of ops that did not apply removed.
+ * then the applied ops' outcomes.
  */
-async function writePlans(plans: OpPlan[], ops: SyncOp[], claimed: Set<string>, transaction: Transaction) {
+async function writePlans(plans: OpPlan[], ops: SyncOp[], fresh: Set<string>, userId: string, transaction: Transaction) {
   const sequelize = getSequelize();
   const writing = plans.filter((p) => p.writes && p.state && p.state.spec !== ENTITY_SPECS.visit).length;
   const block = writing > 0 ? await reserveRevs(sequelize, transaction, writing) : null;
@@ -94,32 +83,29 @@ async function writePlans(plans: OpPlan[], ops: SyncOp[], claimed: Set<string>, 
     await writeSyncedRows(spec.model, { created: list.filter((s) => s.isNew).map((s) => s.row), updated: list.filter((s) => !s.isNew).map((s) => s.row) }, fields, transaction);
   }
 
-  // The first applied op of an id stores the outcome; ids whose ops all failed give their claim back.
-  const outcomes = new Map<string, string>();
+  // The first applied op of an id stores the outcome; ops that did not apply leave no row.
+  const outcomes = new Map<string, [SyncOp, string]>();
   plans.forEach((plan, i) => {
-    const id = ops[i]?.opId;
-    if (id && claimed.has(id) && plan.result.status === 'applied' && !outcomes.has(id)) outcomes.set(id, JSON.stringify(plan.result));
+    const op = ops[i];
+    if (op && fresh.has(op.opId) && plan.result.status === 'applied' && !outcomes.has(op.opId)) outcomes.set(op.opId, [op, JSON.stringify(plan.result)]);
   });
   if (outcomes.size > 0) {
     await sequelize.query(
-      `INSERT INTO sync_ops (op_id, user_id, entity, entity_id, outcome, created_at) VALUES ${[...outcomes].map(() => "(?, '', '', '', ?, NOW())").join(', ')}
-       ON DUPLICATE KEY UPDATE outcome = VALUES(outcome)`,
-      { replacements: [...outcomes].flat(), transaction },
+      `INSERT INTO sync_ops (op_id, user_id, entity, entity_id, outcome, created_at) VALUES ${[...outcomes].map(() => '(?, ?, ?, ?, ?, NOW())').join(', ')}`,
+      { replacements: [...outcomes.values()].flatMap(([op, outcome]) => [op.opId, userId, op.entity, op.entityId, outcome]), transaction },
     );
   }
-  const unused = [...claimed].filter((id) => !outcomes.has(id));
-  if (unused.length > 0) await sequelize.query('DELETE FROM sync_ops WHERE op_id IN (?)', { replacements: [unused], transaction });
 }
 
 /** Plans every op in order against the batch's rows; a repeated op id replays its earlier applied outcome. */
-async function planBatch(ops: SyncOp[], access: SyncAccess, claimed: Set<string>, stored: Map<string, OpResult>, rows: Map<string, RowState>) {
+async function planBatch(ops: SyncOp[], access: SyncAccess, fresh: Set<string>, stored: Map<string, OpResult>, rows: Map<string, RowState>) {
   const plans: OpPlan[] = [];
   const appliedAt = new Map<string, OpPlan>();
   for (const op of ops) {
     const earlier = appliedAt.get(op.opId);
     const known = stored.get(op.opId);
     if (earlier) plans.push({ ...noEffect({ opId: op.opId, status: 'replayed', rev: null }), state: earlier.state, writes: false, audit: null, replayOf: earlier });
-    else if (known || !claimed.has(op.opId)) plans.push({ ...noEffect(known ?? { opId: op.opId, status: 'rejected', rev: null, error: { code: 409, message: 'This op id was already used.' } }), state: null, writes: false, audit: null });
+    else if (known || !fresh.has(op.opId)) plans.push({ ...noEffect(known ?? { opId: op.opId, status: 'rejected', rev: null, error: { code: 409, message: 'This op id was already used.' } }), state: null, writes: false, audit: null });
     else {
       const plan = await planOp(op, access, rows);
       if (plan.result.status === 'applied') appliedAt.set(op.opId, plan);
@@ -171,11 +157,14 @@ async function markSurveyed(visitIds: string[], access: SyncAccess, transaction:
   }
 }
 
-const isRetryable = (error: unknown) => /deadlock|lock wait timeout/i.test(String((error as Error)?.message ?? ''));
+// A duplicate key is a concurrent push that committed the same op (or created the same record) first:
+// the retry sees its stored outcome (or its row) and answers as a replay (or a conflict).
+const isRetryable = (error: unknown) => error instanceof UniqueConstraintError
+  || /deadlock|lock wait timeout/i.test(String((error as Error)?.message ?? ''));
 
 /**
  * Applies a push batch in order, set-based, in one transaction (read committed, so it sees what
- * other pushes committed): claim the op ids, load the rows, plan every op in memory, then take the
+ * other pushes committed): read the stored op ids, load the rows, plan every op in memory, then take the
  * revision counter's lock only for the writes (DEVELOPERS.md, "Server revisions"). Returns one
  * result per op; screens touched visits after the commit.
  */
@@ -188,14 +177,16 @@ export async function pushOps(user: SessionUser, ops: SyncOp[]): Promise<OpResul
         { isolationLevel: Transaction.ISOLATION_LEVELS.READ_COMMITTED },
         async (transaction) => {
           const access = new SyncAccess(user, transaction);
-          const { claimed, stored } = await claimOps(ops, user, transaction);
-          const rows = await loadRows(ops.filter((op) => claimed.has(op.opId)), transaction);
-          const plans = await planBatch(ops, access, claimed, stored, rows);
+          // Rows first, then the stored op ids: a push of the same ops that commits in between is then
+          // seen in sync_ops (its rows and outcomes commit together), so it is never mistaken for a conflict.
+          const rows = await loadRows(ops, transaction);
+          const { fresh, stored } = await knownOps(ops, user, transaction);
+          const plans = await planBatch(ops, access, fresh, stored, rows);
           // Everything that needs no revision first, so the counter's lock is held only for the writes.
           await recordAudits(plans.flatMap((p) => (p.result.status === 'applied' && p.audit ? [p.audit] : [])), transaction);
           const booked = await touchVisits(plans, ops, transaction);
           const screen = await visitsToScreen(plans, transaction);
-          await writePlans(plans, ops, claimed, transaction);
+          await writePlans(plans, ops, fresh, user.id, transaction);
           await markSurveyed(booked, access, transaction);
           for (const plan of plans) if (plan.replayOf) plan.result = replayOf(plan.result.opId, plan.replayOf.result);
           const effects: OpEffect[] = plans.map(({ result, visitId, farmId }) => ({ result, visitId, farmId }));
