@@ -175,7 +175,14 @@ export async function visitIdsInOrder(user: SessionUser, filters: Partial<VisitF
 export async function visitSummaries(user: SessionUser, ids: string[], today = todayIso()): Promise<VisitSummary[]> {
   if (ids.length === 0) return [];
   const { include } = visitQuery(user, {}, today);
-  const rows = (await Visit.findAll({ where: { id: { [Op.in]: ids } }, include, subQuery: false })) as VisitRow[];
+  // Plain rows (raw + nest): building model instances with their joins costs more than the query at
+  // export sizes. A missing advisor or owner comes back as all-null columns: made null again here.
+  const raw = (await Visit.findAll({ where: { id: { [Op.in]: ids } }, include, subQuery: false, raw: true, nest: true })) as unknown as VisitRow[];
+  const rows = raw.map((r) => ({
+    ...r,
+    advisor: r.advisor?.id ? r.advisor : null,
+    Farm: r.Farm ? { ...r.Farm, owner: r.Farm.owner?.id ? r.Farm.owner : null } : undefined,
+  }) as VisitRow);
   const verdicts = await latestVerdicts(ids);
   const byId = new Map(rows.map((r) => [r.id, r]));
   return ids.flatMap((id) => {
