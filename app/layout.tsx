@@ -21,6 +21,8 @@ const mono = localFont({
   ],
   variable: '--font-mono',
   display: 'swap',
+  // Figures only, rarely above the fold: not preloaded, so it does not compete with the page's own scripts.
+  preload: false,
 });
 
 export const metadata: Metadata = {

@@ -36,24 +36,80 @@ export const syncedModels = [Farm, Visit, WaterSource, FlowMeasurement, FallRead
  * transaction commits, so revisions become visible in order; hence a transaction is required.
  */
 export async function nextRev(sequelize: Sequelize, transaction?: Transaction | null): Promise<number> {
+  return (await reserveRevs(sequelize, transaction, 1)).first;
+}
+
+/** A block of revisions reserved by one transaction: first … last, handed out in order by `take`. */
+export interface RevBlock {
+  first: number;
+  last: number;
+  /** The next unused revision of the block; throws when the block is used up. */
+  take(): number;
+}
+
+/**
+ * Reserves `count` consecutive revisions with one statement under the counter row's lock (held
+ * to the commit, like nextRev). Bulk writers of synced rows (writeSyncedRows) may only store
+ * revisions reserved this way by their own transaction.
+ */
+export async function reserveRevs(sequelize: Sequelize, transaction: Transaction | null | undefined, count: number): Promise<RevBlock> {
   if (!transaction) throw new Error('Synced records must be saved inside a transaction (see DEVELOPERS.md).');
+  if (!Number.isInteger(count) || count < 1) throw new Error(`reserveRevs needs a positive count, not ${count}`);
   // LAST_INSERT_ID is per connection: keep one transaction's two statements from interleaving.
   const previous = revLocks.get(transaction) ?? Promise.resolve(0);
-  const next = previous.catch(() => 0).then(() => takeRev(sequelize, transaction));
+  const next = previous.catch(() => 0).then(() => takeRevs(sequelize, transaction, count));
   revLocks.set(transaction, next);
-  return next;
+  const last = await next;
+  const first = last - count + 1;
+  const blocks = reserved.get(transaction) ?? [];
+  blocks.push([first, last]);
+  reserved.set(transaction, blocks);
+  let cursor = first;
+  return {
+    first, last, take() {
+      if (cursor > last) throw new Error('revision block used up');
+      return cursor++;
+    },
+  };
 }
 
 const revLocks = new WeakMap<Transaction, Promise<number>>();
+const reserved = new WeakMap<Transaction, [number, number][]>();
 
-async function takeRev(sequelize: Sequelize, transaction: Transaction): Promise<number> {
-  await sequelize.query('UPDATE rev_counter SET value = LAST_INSERT_ID(value + 1) WHERE id = 1', { transaction });
+async function takeRevs(sequelize: Sequelize, transaction: Transaction, count: number): Promise<number> {
+  await sequelize.query('UPDATE rev_counter SET value = LAST_INSERT_ID(value + ?) WHERE id = 1', { replacements: [count], transaction });
   const [row] = await sequelize.query<{ rev: number | bigint }>('SELECT LAST_INSERT_ID() AS rev', {
     type: QueryTypes.SELECT,
     transaction,
   });
   if (!row) throw new Error('rev_counter returned nothing');
   return Number(row.rev);
+}
+
+/**
+ * The bulk path for synced rows (the push): new rows in one multi-row INSERT (a duplicate id
+ * fails it), existing rows in one INSERT … ON DUPLICATE KEY UPDATE of `fields`. Hooks are skipped,
+ * so it checks what the revision hook guarantees: a transaction, and every row's `rev` taken from a
+ * block this transaction reserved (so the counter lock is held until the commit).
+ */
+export async function writeSyncedRows(
+  model: ModelStatic<Model>, rows: { created: Model[]; updated: Model[] }, fields: string[], transaction: Transaction,
+): Promise<void> {
+  if (!syncedModels.includes(model as never)) throw new Error(`${model.name} is not a synced model`);
+  const blocks = reserved.get(transaction) ?? [];
+  for (const row of [...rows.created, ...rows.updated]) {
+    const rev = Number(row.get('rev'));
+    if (!blocks.some(([first, last]) => rev >= first && rev <= last)) {
+      throw new Error(`${model.name} ${String(row.get('id'))}: rev ${rev} was not reserved by this transaction`);
+    }
+  }
+  const values = (list: Model[]) => list.map((row) => row.get({ plain: true }) as Record<string, unknown>);
+  if (rows.created.length > 0) await model.bulkCreate(values(rows.created), { transaction, hooks: false });
+  if (rows.updated.length > 0) {
+    await model.bulkCreate(values(rows.updated), {
+      transaction, hooks: false, updateOnDuplicate: [...new Set([...fields, 'rev', 'deletedAt', 'updatedAt'])],
+    });
+  }
 }
 
 function addRevisionHooks(sequelize: Sequelize, model: ModelStatic<Model>) {

@@ -9,7 +9,7 @@ import { budget, median, report } from './support/report';
 const RUNS = 3;
 
 interface Target { name: string; url: string; cookie?: string }
-type Scores = { performance: number; accessibility: number; bestPractices: number; failing: string[] };
+type Scores = { performance: number; accessibility: number; bestPractices: number; failing: string[]; metrics?: Record<string, number> };
 
 /** One audit in a child process (plain Node, fresh browser: no cache or worker carried over). */
 function audit(target: Target): Scores {
@@ -18,6 +18,7 @@ function audit(target: Target): Scores {
   if (run.status !== 0) throw new Error(`Lighthouse failed on ${target.url}: ${run.stderr}`);
   const scores = JSON.parse(run.stdout.trim().split('\n').pop() ?? '{}') as Scores;
   if (scores.failing.length) console.log(`${target.name}: audits not passed: ${scores.failing.join(', ')}`);
+  console.log(`${target.name}: performance ${scores.performance}, ${JSON.stringify(scores.metrics ?? {})}`);
   return scores;
 }
 
@@ -35,7 +36,7 @@ async function main() {
       samples.set(target.name, [...(samples.get(target.name) ?? []), audit(target)]);
     }
   }
-  const med = (name: string, key: Exclude<keyof Scores, 'failing'>) => median((samples.get(name) ?? []).map((s) => s[key]));
+  const med = (name: string, key: 'performance' | 'accessibility' | 'bestPractices') => median((samples.get(name) ?? []).map((s) => s[key]));
   const floor = targets[0]!.name;
   const rows = targets.map((t) => ({
     name: t.name, performance: med(t.name, 'performance'), accessibility: med(t.name, 'accessibility'), bestPractices: med(t.name, 'bestPractices'),

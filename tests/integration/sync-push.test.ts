@@ -105,6 +105,32 @@ describe('push: create, update, delete', () => {
     expect(await SyncOp.count({ where: { entityId: bad } })).toBe(0);
   });
 
+  it('one batch: each writing op gets its own revision in op order; a refused op in between changes nothing', async () => {
+    const o = await makeOrganisation('push-bulk');
+    const [a, b, refused] = [randomUUID(), randomUUID(), randomUUID()];
+    const { results } = await push(o.advisor, { ops: [
+      putOp('point', a, pointFields(o.visit.id, 'First')),
+      putOp('point', refused, { visitId: o.visit.id, role: 'pump' }),
+      putOp('point', b, pointFields(o.visit.id, 'Second')),
+      // The phone cannot know the revision the first op got: against it, this base is stale.
+      putOp('point', a, { label: 'First, renamed' }, { baseRev: 0 }),
+    ] });
+    expect(results.map((r) => r.status)).toEqual(['applied', 'rejected', 'applied', 'conflict']);
+    const [revA, revB] = [results[0]?.rev as number, results[2]?.rev as number];
+    expect(revA).toBeGreaterThan(0);
+    expect(revB).toBeGreaterThan(revA);
+    expect(results[3]?.rev).toBe(revA);
+    expect(results[3]?.conflict?.server?.rev).toBe(revA);
+    const first = await Point.findByPk(a, { rejectOnEmpty: true });
+    expect([first.label, first.rev]).toEqual(['First', revA]);
+    expect(await Point.count({ where: { id: refused } })).toBe(0);
+    expect(await SyncOp.count({ where: { entityId: refused } })).toBe(0);
+    expect(await SyncOp.count({ where: { entityId: a } })).toBe(1);
+    // A pull from before the batch returns both rows at their stored revisions.
+    const page = await pull(o.advisor, 0);
+    expect(page.records.point.map((r) => [r.id, r.rev]).sort()).toEqual([[a, revA], [b, revB]].sort());
+  });
+
   it('a record cannot move to another visit', async () => {
     const id = randomUUID();
     const created = await push(org.coordinator, { ops: [putOp('point', id, pointFields(org.visit.id))] });

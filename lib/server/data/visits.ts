@@ -67,9 +67,10 @@ const likeContains = (text: string) => `%${text.replace(/[\\%_]/g, (c) => `\\${c
 
 /**
  * The where clauses of the filters. Each is served by an index: status, advisor and planned date
- * by the visits_org_* indexes, area by farms_org_area, verdict by screenings_visit_created. The
- * text search is a LIKE "contains" on farm and farmer names: a scan of the organisation's rows,
- * acceptable at a few thousand visits per organisation.
+ * by the visits_org_live_* indexes (migration 0012, covering: counts read the index alone), area by
+ * farms_org_area, verdict by screenings_visit_created. The text search is a LIKE "contains" on farm
+ * and farmer names: it reads the organisation's farms from farms_org_name_owner, acceptable at a
+ * few thousand farms per organisation.
  */
 function filterWhere(filters: Partial<VisitFilters>, today: string): { visit: WhereOptions[]; farm: WhereOptions[] } {
   const sequelize = getSequelize();
@@ -95,7 +96,8 @@ function filterWhere(filters: Partial<VisitFilters>, today: string): { visit: Wh
 
 function orderOf(filters: Partial<VisitFilters>): Order {
   const dir = (filters.dir ?? 'desc').toUpperCase() as 'ASC' | 'DESC';
-  const tie: [string, string] = ['id', 'ASC'];
+  // The tie-break runs the same way as the sort, so an index on (organisation, column) + the primary key gives the order.
+  const tie: [string, string] = ['id', dir];
   switch (filters.sort ?? 'planned') {
     case 'farm': return [[{ model: Farm, as: 'Farm' }, 'name', dir], tie];
     case 'advisor': return [[{ model: User, as: 'advisor' }, 'name', dir], tie];
@@ -109,33 +111,84 @@ function orderOf(filters: Partial<VisitFilters>): Order {
   }
 }
 
-/** One page of the visits the user may see, filtered and sorted as asked. */
-export async function listVisits(user: SessionUser, query: VisitListQuery, today = todayIso()) {
+/** The where, joins and order of the visits the user may see, filtered and sorted as asked. */
+function visitQuery(user: SessionUser, query: Partial<VisitFilters>, today: string, withColumns = true) {
   const { where, farmWhere } = visibleWhere(user);
   const filters = filterWhere(query, today);
-  const farmConditions = [...(farmWhere ? [farmWhere] : []), ...filters.farm];
-  const { rows, count } = await Visit.findAndCountAll({
+  // Only these filters read the farm (or its owner); these sorts read a joined name. Without them a
+  // count or an id list reads the visits index alone.
+  const filtersJoin = !!farmWhere || filters.farm.length > 0 || !!query.q;
+  // The farm's organisation is the visit's: saying so lets a join read farms by farms_org_* indexes.
+  const farmConditions = [{ organisationId: user.organisationId }, ...(farmWhere ? [farmWhere] : []), ...filters.farm];
+  return {
+    filtersJoin,
+    sortsJoin: query.sort === 'farm' || query.sort === 'advisor',
     where: { [Op.and]: [where, ...filters.visit] },
     include: [
       {
-        model: Farm, attributes: ['id', 'name', 'area', 'ownerId'], required: true,
-        where: farmConditions.length ? { [Op.and]: farmConditions } : undefined,
-        include: [{ model: User, as: 'owner', attributes: ['id', 'name'] }],
+        model: Farm, attributes: withColumns ? ['id', 'name', 'area', 'ownerId'] : [], required: true,
+        where: { [Op.and]: farmConditions },
+        include: [{ model: User, as: 'owner', attributes: withColumns ? ['id', 'name'] : [] }],
       },
-      { model: User, as: 'advisor', attributes: ['id', 'name'] },
+      { model: User, as: 'advisor', attributes: withColumns ? ['id', 'name'] : [] },
     ],
     order: orderOf(query),
-    limit: query.pageSize,
-    offset: (query.page - 1) * query.pageSize,
     subQuery: false,
-  });
-  const verdicts = await latestVerdicts(rows.map((r) => r.id));
+  };
+}
+
+/** One page of the visits the user may see, filtered and sorted as asked. */
+export async function listVisits(user: SessionUser, query: VisitListQuery, today = todayIso()) {
+  const { filtersJoin, where, include } = visitQuery(user, query, today);
+  const [ids, count] = await Promise.all([
+    visitIdsInOrder(user, query, today, { limit: query.pageSize, offset: (query.page - 1) * query.pageSize }),
+    // The count reads the visits index alone unless a filter needs the farm.
+    filtersJoin ? Visit.count({ where, include: countInclude(include), distinct: true, col: 'id' }) : Visit.count({ where }),
+  ]);
   return {
-    items: (rows as VisitRow[]).map((r) => toSummary(r, verdicts.get(r.id) ?? null, today)),
+    items: await visitSummaries(user, ids, today),
     page: query.page,
     pageSize: query.pageSize,
     total: count,
   };
+}
+
+/** The joins a count needs: the farm (and its owner, for the name search), no columns. */
+function countInclude(include: ReturnType<typeof visitQuery>['include']) {
+  const [farm] = include;
+  return farm ? [{ ...farm, attributes: [], include: [{ model: User, as: 'owner', attributes: [] }] }] : [];
+}
+
+/**
+ * The ids of the visits the user may see under the filters, in the list's order (all, or one page).
+ * Without a farm filter or a name sort it reads a visits index alone, in order: joined, the optimizer
+ * would start from the farms and sort every visit of the organisation to find one page.
+ */
+export async function visitIdsInOrder(user: SessionUser, filters: Partial<VisitFilters>, today = todayIso(),
+  page: { limit?: number; offset?: number } = {}): Promise<string[]> {
+  const { filtersJoin, sortsJoin, ...found } = visitQuery(user, filters, today, false);
+  const rows = await Visit.findAll({ ...found, ...(filtersJoin || sortsJoin ? {} : { include: [] }), attributes: ['id'], raw: true, ...page });
+  return rows.map((r) => r.id);
+}
+
+/** The summaries of the given visits (already checked visible), in the order of `ids`. */
+export async function visitSummaries(user: SessionUser, ids: string[], today = todayIso()): Promise<VisitSummary[]> {
+  if (ids.length === 0) return [];
+  const { include } = visitQuery(user, {}, today);
+  // Plain rows (raw + nest): building model instances with their joins costs more than the query at
+  // export sizes. A missing advisor or owner comes back as all-null columns: made null again here.
+  const raw = (await Visit.findAll({ where: { id: { [Op.in]: ids } }, include, subQuery: false, raw: true, nest: true })) as unknown as VisitRow[];
+  const rows = raw.map((r) => ({
+    ...r,
+    advisor: r.advisor?.id ? r.advisor : null,
+    Farm: r.Farm ? { ...r.Farm, owner: r.Farm.owner?.id ? r.Farm.owner : null } : undefined,
+  }) as VisitRow);
+  const verdicts = await latestVerdicts(ids);
+  const byId = new Map(rows.map((r) => [r.id, r]));
+  return ids.flatMap((id) => {
+    const row = byId.get(id);
+    return row ? [toSummary(row, verdicts.get(id) ?? null, today)] : [];
+  });
 }
 
 /** The visit, if it exists and the user holds the permission on it (404, then 403 otherwise). */

@@ -1,11 +1,9 @@
 import 'server-only';
-import type { Transaction } from 'sequelize';
 import { VISIT_STATUSES } from '@/lib/shared/domain';
 import { entityFields, type OpResult, type SyncOp } from '@/lib/shared/schemas/sync';
-import { recordAudit, type AuditInput } from '../audit';
+import type { AuditInput } from '../audit';
 import { AppError, zodFieldErrors } from '../errors';
 import type { SyncAccess } from './access';
-import { applyCommissioningOp } from './apply-commissioning';
 import { ENTITY_SPECS, pulledRecord, sameValue, type EntitySpec, type SyncedRow } from './entities';
 
 type Json = Record<string, unknown>;
@@ -54,83 +52,108 @@ async function checkParent(op: SyncOp, spec: EntitySpec, row: SyncedRow | null, 
   return { visitId: parentId, farmId: null };
 }
 
+/** A synced row as the batch holds it: loaded (locked) or built new, changed in memory until the write. */
+export interface RowState {
+  spec: EntitySpec;
+  row: SyncedRow;
+  isNew: boolean;
+  /** Fields any applied op of the batch set (the columns the write updates). */
+  touched: Set<string>;
+  /** An earlier op of this batch wrote it: its revision is newer than any base the phone can hold. */
+  dirty: boolean;
+}
+
+/** What one applied op asks the batch writer to do: nothing (already so), or write its row once more. */
+export interface OpPlan extends OpEffect {
+  state: RowState | null;
+  writes: boolean;
+  audit: AuditInput | null;
+  /** A repeated op id in the same batch: answers with that earlier applied op's outcome. */
+  replayOf?: OpPlan;
+  /** A conflict on a row written earlier in the batch: the writer fills in the revision it had then. */
+  conflictOn?: RowState;
+}
+
+const asIso = (value: unknown) => (value instanceof Date ? value.toISOString() : value);
+
 /**
- * Applies one parsed op inside the caller's (savepoint) transaction: access, create / update /
- * soft delete with the per-field conflict check, audit line. Changes nothing unless it returns
- * 'applied'. Never throws for the op's own faults: they come back as 'rejected'. With `audits`,
- * the audit line is collected there for the caller to write with the batch (only applied ops add one).
+ * Plans one parsed op against the batch's rows in memory: access, create / update / soft delete
+ * with the per-field conflict check, audit line. Changes the row state only when it returns
+ * 'applied' (the result's rev is filled in by the writer). Never throws for the op's own faults:
+ * they come back as 'rejected'. `rows` maps "entity:id" to the batch's row states.
  */
-export async function applyOp(op: SyncOp, access: SyncAccess, transaction: Transaction, audits?: AuditInput[]): Promise<OpEffect> {
-  if (op.entity === 'commissioning') return applyCommissioningOp(op, access, transaction);
+export async function planOp(op: SyncOp, access: SyncAccess, rows: Map<string, RowState>): Promise<OpPlan> {
   const spec = ENTITY_SPECS[op.entity];
-  const row = (await spec.model.findByPk(op.entityId, { transaction, lock: transaction.LOCK.UPDATE })) as SyncedRow | null;
+  const key = `${op.entity}:${op.entityId}`;
+  const state = rows.get(key) ?? null;
+  const row = state?.row ?? null;
   let parent: { visitId: string | null; farmId: string | null };
   try {
     parent = await checkParent(op, spec, row, access);
   } catch (error) {
-    if (error instanceof AppError) return { result: rejected(op, error.status, error.message, error.fieldErrors), visitId: null, farmId: null };
+    if (error instanceof AppError) return { result: rejected(op, error.status, error.message, error.fieldErrors), visitId: null, farmId: null, state: null, writes: false, audit: null };
     throw error;
   }
-  const effect = (result: OpResult): OpEffect => ({ result, ...parent });
-  const audit = async (action: string, changes: Json | null) => {
-    const entry: AuditInput = { organisationId: access.user.organisationId, actorId: access.user.id, entity: op.entity,
-      entityId: op.entityId, visitId: parent.visitId, action, changes };
-    if (audits) audits.push(entry);
-    else await recordAudit(entry, transaction);
-  };
+  const done = (result: OpResult, target: RowState | null = null, action: string | null = null, changes: Json | null = null): OpPlan => ({
+    result, ...parent, state: target, writes: action !== null,
+    audit: action === null ? null : { organisationId: access.user.organisationId, actorId: access.user.id, entity: op.entity,
+      entityId: op.entityId, visitId: parent.visitId, action, changes },
+  });
+  const applied = (): OpResult => ({ opId: op.opId, status: 'applied', rev: null });
 
-  if (!row) {
+  if (!state || !row) {
     if (op.action === 'delete' || op.baseRev !== null || op.entity === 'visit') {
-      return effect(rejected(op, 404, `No such ${op.entity} on the server.`));
+      return done(rejected(op, 404, `No such ${op.entity} on the server.`));
     }
     const parsed = entityFields[op.entity].safeParse(op.changes ?? {});
     if (!parsed.success) {
       const fieldErrors = Object.fromEntries(Object.entries(zodFieldErrors(parsed.error)).map(([k, v]) => [`changes.${k}`, v]));
-      return effect(rejected(op, 422, `A new ${op.entity} must carry every field.`, fieldErrors));
+      return done(rejected(op, 422, `A new ${op.entity} must carry every field.`, fieldErrors));
     }
-    const created = (await spec.model.create(
-      { id: op.entityId, ...spec.toRow(parsed.data as Json), createdById: access.user.id },
-      { transaction },
-    )) as SyncedRow;
-    await audit('created', parsed.data as Json);
-    return effect({ opId: op.opId, status: 'applied', rev: Number(created.rev) });
+    const now = new Date();
+    const built = spec.model.build({ id: op.entityId, ...spec.toRow(parsed.data as Json), createdById: access.user.id, createdAt: now, updatedAt: now }) as SyncedRow;
+    const created: RowState = { spec, row: built, isNew: true, touched: new Set(), dirty: true };
+    rows.set(key, created);
+    return done(applied(), created, 'created', parsed.data as Json);
   }
 
-  if (op.baseRev === null) return effect(conflicted(op, spec, row, []));
-  const stale = Number(row.rev) > op.baseRev;
+  const conflict = (fields: string[]): OpPlan => ({ ...done(conflicted(op, spec, row, fields)), ...(state.dirty ? { conflictOn: state } : {}) });
+  if (op.baseRev === null) return conflict([]);
+  const stale = state.dirty || Number(row.rev) > op.baseRev;
   const server = spec.toFields(row);
 
   if (op.action === 'delete') {
-    if (row.deletedAt) return effect({ opId: op.opId, status: 'applied', rev: Number(row.rev) });
+    if (row.deletedAt) return done(applied(), state);
     if (stale) {
       const base = (op.base ?? {}) as Json;
       const changed = op.base ? Object.keys(base).filter((f) => !sameValue(server[f], base[f])) : [...spec.fields];
-      if (changed.length > 0 || !op.base) return effect(conflicted(op, spec, row, changed));
+      if (changed.length > 0 || !op.base) return conflict(changed);
     }
     row.set('deletedAt', new Date());
-    await row.save({ transaction });
-    await audit('deleted', null);
-    return effect({ opId: op.opId, status: 'applied', rev: Number(row.rev) });
+    state.touched.add('deletedAt');
+    state.dirty = true;
+    return done(applied(), state, 'deleted', null);
   }
 
-  if (row.deletedAt) return effect(conflicted(op, spec, row, ['deletedAt']));
+  if (row.deletedAt) return conflict(['deletedAt']);
   const changes = (op.changes ?? {}) as Json;
   // A visit's status only moves forward (the office may have moved it on): never a conflict.
   const skip = op.entity === 'visit' ? ['status'] : [];
   if (stale) {
     const fields = conflictingFields(server, changes, op.base as Json | undefined, skip);
-    if (fields.length > 0) return effect(conflicted(op, spec, row, fields));
+    if (fields.length > 0) return conflict(fields);
   }
   const merged = { ...server, ...changes };
   if (op.entity === 'visit' && statusRank(server.status) > statusRank(changes.status)) merged.status = server.status;
   if (op.entity === 'photo' && row.get('uploadedAt') && (['sha256', 'bytes'] as const).some((f) => !sameValue(server[f], merged[f]))) {
-    return effect(rejected(op, 422, 'This photo is already uploaded; its bytes cannot change. Add it as a new photo.',
+    return done(rejected(op, 422, 'This photo is already uploaded; its bytes cannot change. Add it as a new photo.',
       { 'changes.sha256': ['Cannot change after upload.'] }));
   }
-  row.set(spec.toRow(merged));
-  if (row.changed()) {
-    await row.save({ transaction });
-    await audit('updated', changes);
-  }
-  return effect({ opId: op.opId, status: 'applied', rev: Number(row.rev) });
+  const next = spec.toRow(merged);
+  const differing = Object.keys(next).filter((k) => !sameValue(asIso(row.get(k)), asIso(next[k])));
+  if (differing.length === 0) return done(applied(), state);
+  row.set(next);
+  for (const k of differing) state.touched.add(k);
+  state.dirty = true;
+  return done(applied(), state, 'updated', changes);
 }

@@ -1,85 +1,145 @@
 import 'server-only';
 import { Op, QueryTypes, Transaction, UniqueConstraintError } from 'sequelize';
-import { SyncOp as SyncOpRow, Visit, getSequelize } from '@/lib/server/db';
-import type { OpResult, SyncOp } from '@/lib/shared/schemas/sync';
-import { recordAudit, recordAudits, type AuditInput } from '../audit';
+import { Visit, getSequelize, reserveRevs, writeSyncedRows } from '@/lib/server/db';
+import type { OpResult, SyncEntity, SyncOp } from '@/lib/shared/schemas/sync';
+import { recordAudit, recordAudits } from '../audit';
 import type { SessionUser } from '../auth/permissions';
 import { screenVisit } from '../services/screening';
 import { SyncAccess } from './access';
-import { applyOp, type OpEffect } from './apply-op';
-
-// Thrown inside an op's savepoint to undo it (a conflict or refusal changes nothing, not even sync_ops).
-class Undo extends Error {
-  constructor(readonly effect: OpEffect) { super('undo'); }
-}
-class Replayed extends Error {}
+import { applyCommissioningOp } from './apply-commissioning';
+import { planOp, type OpEffect, type OpPlan, type RowState } from './apply-op';
+import { ENTITY_SPECS, type EntitySpec, type SyncedRow } from './entities';
 
 const VISIT_CHILDREN = new Set(['waterSource', 'flowMeasurement', 'fallReading', 'point', 'photo', 'pipeRun']);
-const PENDING = JSON.stringify({ pending: true });
 const MAX_ATTEMPTS = 3;
 
 function replayOf(opId: string, stored: unknown): OpResult {
   return { ...(stored as OpResult), opId, status: 'replayed' };
 }
 
-/** The stored outcome of an op id; a locking read so a just-committed claim is seen. */
-async function storedOutcome(op: SyncOp, user: SessionUser, transaction: Transaction): Promise<OpResult> {
-  const row = await SyncOpRow.findByPk(op.opId, { transaction, lock: transaction.LOCK.SHARE });
-  if (!row) throw new Error(`sync op ${op.opId} vanished`);
-  if (row.userId !== user.id) return { opId: op.opId, status: 'rejected', rev: null, error: { code: 409, message: 'This op id was already used.' } };
-  return replayOf(op.opId, row.outcome);
-}
-
-/** What a batch writes once at its end: the applied ops' audit lines and stored outcomes. */
-interface BatchWrites { audits: AuditInput[]; outcomes: [string, string][] }
+const noEffect = (result: OpResult): OpEffect => ({ result, visitId: null, farmId: null });
 
 /**
- * One op in its own savepoint: claim the op id in sync_ops first (the primary key makes a
- * concurrent push of the same op wait, then see it as a replay), apply. An applied op's outcome
- * and audit line are written with the batch (the claimed row stays locked until the commit).
+ * The outcomes stored for the batch's op ids (one SELECT); the other ids are new. Nothing is
+ * claimed up front: the applied ops' rows go in at the end with a plain INSERT, so a concurrent push
+ * of the same op waits on the first one's uncommitted row, fails on its key once that commits, and
+ * its retry answers from the stored outcome (see pushOps).
  */
-async function runOp(op: SyncOp, access: SyncAccess, outer: Transaction, user: SessionUser, writes: BatchWrites): Promise<OpEffect> {
+async function knownOps(ops: SyncOp[], user: SessionUser, transaction: Transaction) {
+  const ids = [...new Set(ops.map((op) => op.opId))];
+  const rows = await getSequelize().query<{ op_id: string; user_id: string; outcome: unknown }>(
+    'SELECT op_id, user_id, outcome FROM sync_ops WHERE op_id IN (?)', { replacements: [ids], type: QueryTypes.SELECT, transaction },
+  );
+  const stored = new Map<string, OpResult>();
+  for (const row of rows) {
+    if (row.user_id !== user.id) stored.set(row.op_id, { opId: row.op_id, status: 'rejected', rev: null, error: { code: 409, message: 'This op id was already used.' } });
+    else stored.set(row.op_id, replayOf(row.op_id, typeof row.outcome === 'string' ? JSON.parse(row.outcome) : row.outcome));
+  }
+  return { fresh: new Set(ids.filter((id) => !stored.has(id))), stored };
+}
+
+/** The batch's existing rows, one locking SELECT per entity table; keyed "entity:id". */
+async function loadRows(ops: SyncOp[], transaction: Transaction): Promise<Map<string, RowState>> {
+  const byEntity = new Map<SyncEntity, Set<string>>();
+  // Commissioning checks are create-only records applied on their own (runCommissioning), not planned rows.
+  for (const op of ops) if (op.entity !== 'commissioning') byEntity.set(op.entity, (byEntity.get(op.entity) ?? new Set()).add(op.entityId));
+  const rows = new Map<string, RowState>();
+  for (const [entity, ids] of byEntity) {
+    const spec = ENTITY_SPECS[entity];
+    const found = (await spec.model.findAll({ where: { id: [...ids].sort() }, transaction, lock: transaction.LOCK.UPDATE })) as SyncedRow[];
+    for (const row of found) rows.set(`${entity}:${row.id}`, { spec, row, isNew: false, touched: new Set(), dirty: false });
+  }
+  return rows;
+}
+
+/**
+ * Writes what the plans applied: a block of revisions (one per writing op, in op order, so each
+ * result carries its own), visits saved through the model (their hooks), every other table in bulk,
+ * then the applied ops' outcomes.
+ */
+async function writePlans(plans: OpPlan[], ops: SyncOp[], fresh: Set<string>, userId: string, transaction: Transaction) {
   const sequelize = getSequelize();
-  try {
-    return await sequelize.transaction({ transaction: outer }, async (transaction) => {
-      try {
-        await sequelize.query(
-          'INSERT INTO sync_ops (op_id, user_id, entity, entity_id, outcome, created_at) VALUES (?, ?, ?, ?, ?, NOW())',
-          { replacements: [op.opId, user.id, op.entity, op.entityId, PENDING], transaction },
-        );
-      } catch (error) {
-        if (error instanceof UniqueConstraintError) throw new Replayed();
-        throw error;
-      }
-      const audits: AuditInput[] = [];
-      const effect = await applyOp(op, access, transaction, audits);
-      if (effect.result.status !== 'applied') throw new Undo(effect);
-      writes.audits.push(...audits);
-      writes.outcomes.push([op.opId, JSON.stringify(effect.result)]);
-      return effect;
-    });
-  } catch (error) {
-    if (error instanceof Undo) return error.effect;
-    if (error instanceof Replayed) {
-      // The same op id earlier in this batch: its outcome is not written yet.
-      const earlier = writes.outcomes.find(([id]) => id === op.opId);
-      if (earlier) return { result: replayOf(op.opId, JSON.parse(earlier[1])), visitId: null, farmId: null };
-      return { result: await storedOutcome(op, user, outer), visitId: null, farmId: null };
+  const writing = plans.filter((p) => p.writes && p.state && p.state.spec !== ENTITY_SPECS.visit).length;
+  const block = writing > 0 ? await reserveRevs(sequelize, transaction, writing) : null;
+  const states = new Set<RowState>();
+  for (const plan of plans) {
+    const { conflict } = plan.result;
+    if (plan.conflictOn && conflict) {
+      // The revision the row had when this op met it (given out earlier in this loop).
+      const rev = Number(plan.conflictOn.row.rev);
+      plan.result = { ...plan.result, rev, conflict: { ...conflict, server: conflict.server ? { ...conflict.server, rev } : null } };
     }
-    throw error;
+    if (plan.result.status !== 'applied' || !plan.state) continue;
+    const { state } = plan;
+    if (plan.writes && state.spec === ENTITY_SPECS.visit) await state.row.save({ transaction });
+    else if (plan.writes && block) {
+      state.row.set('rev', block.take());
+      states.add(state);
+    }
+    plan.result = { ...plan.result, rev: Number(state.row.rev) };
+  }
+  const bySpec = new Map<EntitySpec, RowState[]>();
+  for (const state of states) bySpec.set(state.spec, [...(bySpec.get(state.spec) ?? []), state]);
+  for (const [spec, list] of bySpec) {
+    const fields = [...new Set(list.flatMap((s) => [...s.touched]))];
+    await writeSyncedRows(spec.model, { created: list.filter((s) => s.isNew).map((s) => s.row), updated: list.filter((s) => !s.isNew).map((s) => s.row) }, fields, transaction);
+  }
+
+  // The first applied op of an id stores the outcome; ops that did not apply leave no row.
+  const outcomes = new Map<string, [SyncOp, string]>();
+  plans.forEach((plan, i) => {
+    const op = ops[i];
+    if (op && fresh.has(op.opId) && plan.result.status === 'applied' && !outcomes.has(op.opId)) outcomes.set(op.opId, [op, JSON.stringify(plan.result)]);
+  });
+  if (outcomes.size > 0) {
+    await sequelize.query(
+      `INSERT INTO sync_ops (op_id, user_id, entity, entity_id, outcome, created_at) VALUES ${[...outcomes].map(() => '(?, ?, ?, ?, ?, NOW())').join(', ')}`,
+      { replacements: [...outcomes.values()].flatMap(([op, outcome]) => [op.opId, userId, op.entity, op.entityId, outcome]), transaction },
+    );
   }
 }
 
-/** The batch's audit lines in one insert and its ops' outcomes in one statement. */
-async function writeBatch(writes: BatchWrites, transaction: Transaction) {
-  await recordAudits(writes.audits, transaction);
-  if (writes.outcomes.length === 0) return;
-  // Every row was claimed (inserted) by this transaction above: this only fills in the outcomes.
-  await getSequelize().query(
-    `INSERT INTO sync_ops (op_id, user_id, entity, entity_id, outcome, created_at) VALUES ${writes.outcomes.map(() => "(?, '', '', '', ?, NOW())").join(', ')}
-     ON DUPLICATE KEY UPDATE outcome = VALUES(outcome)`,
-    { replacements: writes.outcomes.flat(), transaction },
-  );
+// Thrown inside a commissioning op's savepoint so a refusal changes nothing.
+class Undo extends Error {
+  constructor(readonly effect: OpEffect) { super('undo'); }
+}
+
+/**
+ * A commissioning check writes through commissionVisit (its record, the visit's status, an audit
+ * line) rather than the batch writer, in its own savepoint taken before the revision block is
+ * reserved, so rolling a refusal back never rolls back revisions handed out to other ops.
+ */
+async function runCommissioning(op: Extract<SyncOp, { entity: 'commissioning' }>, access: SyncAccess, outer: Transaction): Promise<OpPlan> {
+  let effect: OpEffect;
+  try {
+    effect = await getSequelize().transaction({ transaction: outer }, async (transaction) => {
+      const applied = await applyCommissioningOp(op, access, transaction);
+      if (applied.result.status !== 'applied') throw new Undo(applied);
+      return applied;
+    });
+  } catch (error) {
+    if (!(error instanceof Undo)) throw error;
+    effect = error.effect;
+  }
+  return { ...effect, state: null, writes: false, audit: null };
+}
+
+/** Plans every op in order against the batch's rows; a repeated op id replays its earlier applied outcome. */
+async function planBatch(ops: SyncOp[], access: SyncAccess, fresh: Set<string>, stored: Map<string, OpResult>, rows: Map<string, RowState>, transaction: Transaction) {
+  const plans: OpPlan[] = [];
+  const appliedAt = new Map<string, OpPlan>();
+  for (const op of ops) {
+    const earlier = appliedAt.get(op.opId);
+    const known = stored.get(op.opId);
+    if (earlier) plans.push({ ...noEffect({ opId: op.opId, status: 'replayed', rev: null }), state: earlier.state, writes: false, audit: null, replayOf: earlier });
+    else if (known || !fresh.has(op.opId)) plans.push({ ...noEffect(known ?? { opId: op.opId, status: 'rejected', rev: null, error: { code: 409, message: 'This op id was already used.' } }), state: null, writes: false, audit: null });
+    else {
+      const plan = op.entity === 'commissioning' ? await runCommissioning(op, access, transaction) : await planOp(op, access, rows);
+      if (plan.result.status === 'applied') appliedAt.set(op.opId, plan);
+      plans.push(plan);
+    }
+  }
+  return plans;
 }
 
 /** Visits whose screening may change: those touched directly, and walked visits on touched farms. */
@@ -96,15 +156,25 @@ async function visitsToScreen(effects: OpEffect[], transaction: Transaction): Pr
   return [...ids];
 }
 
-/** Marks the visits synced now, and moves a booked visit to 'surveyed' once readings arrive. */
-async function touchVisits(effects: OpEffect[], ops: SyncOp[], access: SyncAccess, transaction: Transaction) {
+/**
+ * Before the writes (no revision needed): marks the touched visits synced now, and returns those
+ * still booked ('scheduled') that got readings, which move to 'surveyed' after the writes.
+ */
+async function touchVisits(effects: OpEffect[], ops: SyncOp[], transaction: Transaction): Promise<string[]> {
   const applied = effects.map((e, i) => ({ e, op: ops[i] })).filter(({ e }) => e.result.status === 'applied' && e.visitId);
   const visitIds = [...new Set(applied.map(({ e }) => e.visitId as string))];
-  if (visitIds.length === 0) return;
+  if (visitIds.length === 0) return [];
   // Server bookkeeping the phone never pulls: a plain UPDATE, so the visit keeps its revision.
   await getSequelize().query('UPDATE visits SET last_synced_at = NOW() WHERE id IN (?)', { replacements: [visitIds], transaction, type: QueryTypes.UPDATE });
-  const withReadings = new Set(applied.filter(({ op }) => op && VISIT_CHILDREN.has(op.entity) && op.action === 'put').map(({ e }) => e.visitId as string));
-  for (const id of withReadings) {
+  const withReadings = [...new Set(applied.filter(({ op }) => op && VISIT_CHILDREN.has(op.entity) && op.action === 'put').map(({ e }) => e.visitId as string))];
+  if (withReadings.length === 0) return [];
+  const booked = await Visit.findAll({ attributes: ['id'], where: { id: { [Op.in]: withReadings }, status: 'scheduled' }, transaction });
+  return booked.map((v) => v.id);
+}
+
+/** After the writes: booked visits that got readings move to 'surveyed' (a saved change, so a revision). */
+async function markSurveyed(visitIds: string[], access: SyncAccess, transaction: Transaction) {
+  for (const id of visitIds) {
     const visit = await Visit.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
     if (visit?.status !== 'scheduled') continue;
     await visit.update({ status: 'surveyed' }, { transaction });
@@ -114,34 +184,40 @@ async function touchVisits(effects: OpEffect[], ops: SyncOp[], access: SyncAcces
   }
 }
 
-const isRetryable = (error: unknown) => /deadlock|lock wait timeout/i.test(String((error as Error)?.message ?? ''));
+// A duplicate key is a concurrent push that committed the same op (or created the same record) first:
+// the retry sees its stored outcome (or its row) and answers as a replay (or a conflict).
+const isRetryable = (error: unknown) => error instanceof UniqueConstraintError
+  || /deadlock|lock wait timeout/i.test(String((error as Error)?.message ?? ''));
 
 /**
- * Applies a push batch in order, in one transaction with a savepoint per op (read committed, so
- * each op sees what other pushes committed). Returns one result per op; screens touched visits after.
+ * Applies a push batch in order, set-based, in one transaction (read committed, so it sees what
+ * other pushes committed): read the stored op ids, load the rows, plan every op in memory, then take the
+ * revision counter's lock only for the writes (DEVELOPERS.md, "Server revisions"). Returns one
+ * result per op; screens touched visits after the commit.
  */
 export async function pushOps(user: SessionUser, ops: SyncOp[]): Promise<OpResult[]> {
   const sequelize = getSequelize();
+  if (ops.length === 0) return [];
   for (let attempt = 1; ; attempt++) {
     try {
       const { effects, screen } = await sequelize.transaction(
         { isolationLevel: Transaction.ISOLATION_LEVELS.READ_COMMITTED },
         async (transaction) => {
           const access = new SyncAccess(user, transaction);
-          // Ops recorded by an earlier push answer from one query; the rest claim their id one by one.
-          const known = new Map((await SyncOpRow.findAll({ where: { opId: { [Op.in]: ops.map((op) => op.opId) } }, transaction }))
-            .map((row) => [row.opId, row]));
-          const effects: OpEffect[] = [];
-          const writes: BatchWrites = { audits: [], outcomes: [] };
-          for (const op of ops) {
-            const stored = known.get(op.opId);
-            effects.push(stored && stored.userId === user.id
-              ? { result: replayOf(op.opId, stored.outcome), visitId: null, farmId: null }
-              : await runOp(op, access, transaction, user, writes));
-          }
-          await writeBatch(writes, transaction);
-          await touchVisits(effects, ops, access, transaction);
-          return { effects, screen: await visitsToScreen(effects, transaction) };
+          // Rows first, then the stored op ids: a push of the same ops that commits in between is then
+          // seen in sync_ops (its rows and outcomes commit together), so it is never mistaken for a conflict.
+          const rows = await loadRows(ops, transaction);
+          const { fresh, stored } = await knownOps(ops, user, transaction);
+          const plans = await planBatch(ops, access, fresh, stored, rows, transaction);
+          // Everything that needs no revision first, so the counter's lock is held only for the writes.
+          await recordAudits(plans.flatMap((p) => (p.result.status === 'applied' && p.audit ? [p.audit] : [])), transaction);
+          const booked = await touchVisits(plans, ops, transaction);
+          const screen = await visitsToScreen(plans, transaction);
+          await writePlans(plans, ops, fresh, user.id, transaction);
+          await markSurveyed(booked, access, transaction);
+          for (const plan of plans) if (plan.replayOf) plan.result = replayOf(plan.result.opId, plan.replayOf.result);
+          const effects: OpEffect[] = plans.map(({ result, visitId, farmId }) => ({ result, visitId, farmId }));
+          return { effects, screen };
         },
       );
       for (const visitId of screen) {

@@ -1,5 +1,6 @@
 import { z } from '@/lib/shared/zod';
 import { DEMAND_CATALOGUE, type DemandKind } from '@/lib/engine/demand';
+import { QUESTION_MAX, QUESTION_MIN, QUESTION_TOO_LONG, QUESTION_TOO_SHORT } from '../sheet/question-rules';
 import { parseFieldNumber } from '../units';
 
 // Bodies and queries of the sheet routes, shared by the forms and the handlers.
@@ -17,7 +18,7 @@ export const sendSheetBody = z.object({
 export type SendSheetBody = z.infer<typeof sendSheetBody>;
 
 export const questionBody = z.object({
-  text: z.string().trim().min(3, 'Write your question (at least a few words).').max(2000, 'Keep the question under 2,000 characters.'),
+  text: z.string().trim().min(QUESTION_MIN, QUESTION_TOO_SHORT).max(QUESTION_MAX, QUESTION_TOO_LONG),
 });
 
 /** Animal kinds a farmer can pick (people and garden have their own fields). */

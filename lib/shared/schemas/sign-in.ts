@@ -1,8 +1,9 @@
 import { z } from '@/lib/shared/zod';
+import { EMAIL_MAX, EMAIL_MESSAGE, PASSWORD_MAX, PASSWORD_MISSING, PASSWORD_TOO_LONG } from '../sign-in-rules';
 
-// Shared by the sign-in form and the credentials check on the server.
+// The credentials check on the server; the sign-in form checks the same limits (sign-in-rules.ts).
 export const signInSchema = z.object({
-  email: z.string().trim().toLowerCase().email('Enter the e-mail address you were invited with.').max(254),
-  password: z.string().min(1, 'Enter your password.').max(200, 'That password is too long.'),
+  email: z.string().trim().toLowerCase().email(EMAIL_MESSAGE).max(EMAIL_MAX, EMAIL_MESSAGE),
+  password: z.string().min(1, PASSWORD_MISSING).max(PASSWORD_MAX, PASSWORD_TOO_LONG),
 });
 export type SignInInput = z.infer<typeof signInSchema>;

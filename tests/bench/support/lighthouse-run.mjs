@@ -21,8 +21,12 @@ try {
   const score = (id) => Math.round((lhr.categories[id]?.score ?? NaN) * 100);
   const failing = Object.values(lhr.audits).filter((a) => a.score !== null && a.score < 1 && a.scoreDisplayMode !== 'informative'
     && a.scoreDisplayMode !== 'notApplicable' && a.scoreDisplayMode !== 'manual').map((a) => a.id);
+  // The metrics behind the performance score (ms, CLS unitless), to see what a low score is made of.
+  const metric = (id) => Math.round((lhr.audits[id]?.numericValue ?? NaN) * (id === 'cumulative-layout-shift' ? 1000 : 1)) / (id === 'cumulative-layout-shift' ? 1000 : 1);
+  const metrics = Object.fromEntries(['first-contentful-paint', 'largest-contentful-paint', 'total-blocking-time', 'speed-index', 'cumulative-layout-shift']
+    .map((id) => [id, metric(id)]));
   process.stdout.write(`${JSON.stringify({ performance: score('performance'), accessibility: score('accessibility'),
-    bestPractices: score('best-practices'), failing })}\n`);
+    bestPractices: score('best-practices'), failing, metrics })}\n`);
 } finally {
   await chrome.kill();
 }

@@ -1,42 +1,56 @@
 'use client';
 
-import { zodResolver } from '@hookform/resolvers/zod';
-import { signIn } from 'next-auth/react';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
-import { useForm } from 'react-hook-form';
-import { signInSchema, type SignInInput } from '@/lib/shared/schemas/sign-in';
+import { signInWithPassword } from '@/lib/client/sign-in';
+import { signInProblems } from '@/lib/shared/sign-in-rules';
 
+/**
+ * The sign-in form: the first page a phone loads, so it carries no form or schema library (the
+ * fields are checked by sign-in-rules, with the server's limits; the server checks again).
+ */
 export function SignInForm({ returnTo }: { returnTo?: string }) {
   const router = useRouter();
   const [serverError, setServerError] = useState<string | null>(null);
-  const { register, handleSubmit, formState } = useForm<SignInInput>({ resolver: zodResolver(signInSchema) });
-  const { errors, isSubmitting } = formState;
+  const [errors, setErrors] = useState<{ email?: string; password?: string }>({});
+  const [isSubmitting, setSubmitting] = useState(false);
 
-  async function onSubmit(values: SignInInput) {
+  async function onSubmit(event: React.FormEvent<HTMLFormElement>) {
+    event.preventDefault();
+    const data = new FormData(event.currentTarget);
+    const email = String(data.get('email') ?? '');
+    const password = String(data.get('password') ?? '');
+    const problems = signInProblems(email, password);
+    setErrors(problems);
     setServerError(null);
-    const result = await signIn('credentials', { ...values, redirect: false });
-    if (!result || result.error) {
-      setServerError(result?.error && result.error !== 'CredentialsSignin'
-        ? result.error
-        : 'That e-mail and password do not match an active account.');
-      return;
+    if (problems.email || problems.password) return;
+    setSubmitting(true);
+    try {
+      const error = await signInWithPassword(email.trim().toLowerCase(), password, returnTo ?? '/');
+      if (error) {
+        setServerError(error !== 'CredentialsSignin' ? error : 'That e-mail and password do not match an active account.');
+        return;
+      }
+      router.replace(returnTo ?? '/');
+      router.refresh();
+    } catch {
+      setServerError('Fallbook did not answer; check the connection and try again.');
+    } finally {
+      setSubmitting(false);
     }
-    router.replace(returnTo ?? '/');
-    router.refresh();
   }
 
   return (
-    <form onSubmit={handleSubmit(onSubmit)} noValidate className="mt-8 space-y-5" aria-label="Sign in">
+    <form onSubmit={onSubmit} noValidate className="mt-8 space-y-5" aria-label="Sign in">
       <div>
         <label htmlFor="email" className="block text-lg font-bold">E-mail</label>
         <input
           id="email" type="email" autoComplete="username" inputMode="email"
           aria-invalid={!!errors.email} aria-describedby={errors.email ? 'email-error' : undefined}
           className="mt-1 block min-h-12 w-full rounded-md border-2 border-stone bg-white px-3 text-lg"
-          {...register('email')}
+          name="email"
         />
-        {errors.email && <p id="email-error" className="mt-1 font-bold text-clay">{errors.email.message}</p>}
+        {errors.email && <p id="email-error" className="mt-1 font-bold text-clay">{errors.email}</p>}
       </div>
       <div>
         <label htmlFor="password" className="block text-lg font-bold">Password</label>
@@ -44,9 +58,9 @@ export function SignInForm({ returnTo }: { returnTo?: string }) {
           id="password" type="password" autoComplete="current-password"
           aria-invalid={!!errors.password} aria-describedby={errors.password ? 'password-error' : undefined}
           className="mt-1 block min-h-12 w-full rounded-md border-2 border-stone bg-white px-3 text-lg"
-          {...register('password')}
+          name="password"
         />
-        {errors.password && <p id="password-error" className="mt-1 font-bold text-clay">{errors.password.message}</p>}
+        {errors.password && <p id="password-error" className="mt-1 font-bold text-clay">{errors.password}</p>}
       </div>
       {serverError && (
         <p role="alert" className="rounded-md border-2 border-clay bg-white p-3 font-bold text-clay">{serverError}</p>

@@ -1,23 +1,25 @@
 'use client';
 
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
-import { useForm } from 'react-hook-form';
-import type { z } from 'zod';
-import { questionBody } from '@/lib/shared/schemas/sheet';
+import { questionProblem } from '@/lib/shared/sheet/question-rules';
 
 async function post(url: string, body?: unknown): Promise<void> {
   const res = await fetch(url, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(body ?? {}) });
   if (!res.ok) throw new Error(((await res.json().catch(() => null)) as { error?: { message?: string } } | null)?.error?.message ?? 'That did not go through; try again.');
 }
 
-/** For the farmer: say the sheet was read, or ask the advisor a question. */
+/**
+ * For the farmer: say the sheet was read, or ask the advisor a question. A small island on a
+ * server-rendered sheet, so it checks the one field by hand (question-rules, the limits the route's
+ * schema uses) rather than load a form library and zod onto the farmer's phone.
+ */
 export function FarmerReply({ visitId, acknowledged }: { visitId: string; acknowledged: boolean }) {
   const router = useRouter();
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
-  const form = useForm<z.infer<typeof questionBody>>({ resolver: zodResolver(questionBody), defaultValues: { text: '' } });
+  const [text, setText] = useState('');
+  const [problem, setProblem] = useState<string | null>(null);
 
   const run = async (fn: () => Promise<void>) => {
     setBusy(true);
@@ -31,10 +33,16 @@ export function FarmerReply({ visitId, acknowledged }: { visitId: string; acknow
       setBusy(false);
     }
   };
-  const ask = form.handleSubmit((values) => run(async () => {
-    await post(`/api/visits/${visitId}/sheet/questions`, values);
-    form.reset();
-  }));
+  const ask = (event: React.FormEvent<HTMLFormElement>) => {
+    event.preventDefault();
+    const found = questionProblem(text);
+    setProblem(found);
+    if (found) return;
+    void run(async () => {
+      await post(`/api/visits/${visitId}/sheet/questions`, { text });
+      setText('');
+    });
+  };
 
   return (
     <section aria-labelledby="reply-heading" className="space-y-4 rounded-md border border-rule bg-white p-4 print:hidden">
@@ -49,9 +57,11 @@ export function FarmerReply({ visitId, acknowledged }: { visitId: string; acknow
       )}
       <form onSubmit={ask} noValidate className="space-y-2" aria-label="Ask a question">
         <label htmlFor="question" className="block font-bold">Ask your advisor a question</label>
-        <textarea id="question" rows={3} {...form.register('text')} className="w-full rounded-md border-2 border-stone bg-paper p-3 text-lg"
-          aria-invalid={!!form.formState.errors.text} aria-describedby="question-error" />
-        {form.formState.errors.text && <p id="question-error" className="text-clay">{form.formState.errors.text.message}</p>}
+        <textarea id="question" name="text" rows={3} value={text}
+          onChange={(e) => { setText(e.target.value); if (problem) setProblem(questionProblem(e.target.value)); }}
+          className="w-full rounded-md border-2 border-stone bg-paper p-3 text-lg"
+          aria-invalid={!!problem} aria-describedby="question-error" />
+        {problem && <p id="question-error" className="text-clay">{problem}</p>}
         <button type="submit" disabled={busy} className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate">Send question</button>
       </form>
       {error && <p role="alert" className="font-bold text-clay">{error}</p>}
