@@ -14,6 +14,11 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
   const router = useRouter();
 
   useEffect(() => {
+    // Test builds only (the condition is compiled in): the fault tests drive the app's own modules.
+    if (process.env.NEXT_PUBLIC_FALLBOOK_TEST_HOOKS === '1') void import('@/lib/client/test-hooks').then((m) => m.installTestHooks());
+  }, []);
+
+  useEffect(() => {
     let stop: (() => void) | undefined;
     void loadLocalSession().then((s) => {
       setSession(s);
