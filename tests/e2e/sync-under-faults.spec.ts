@@ -8,7 +8,7 @@
 // whether the page or the worker runs it (the Web Lock lets one run at a time); the figures count both.
 import { expect, request as apiRequest, test, type APIRequestContext, type BrowserContext, type Page, type Route } from '@playwright/test';
 import { query, revisionLockHeld } from './support/db';
-import { countRequest, loseAnswer, newCounts, randomFaults, SYNC_URLS, type FaultCounts } from './support/faults';
+import { countRequest, loseAnswer, newCounts, randomFaults, SYNC_URLS } from './support/faults';
 import { OwnServer } from './support/own-server';
 import { assertExactlyOnce, captureOffline, newVisit, phoneState, pressSync, syncUntilDone } from './support/phone';
 import { signInAs, waitForWorker } from './support/sign-in';
@@ -25,6 +25,7 @@ let office: APIRequestContext;
 let advisorId = '';
 const figures: string[] = [];
 
+const secs = (from: number) => `${((Date.now() - from) / 1000).toFixed(1)} s`;
 const fromWorker = (route: Route) => route.request().serviceWorker() !== null;
 
 test.beforeAll(async ({ browser }) => {
@@ -58,19 +59,21 @@ test('(a) 30 % of sync requests aborted at random (seeded): everything arrives e
   test.setTimeout(90_000);
   const captured = await captureOffline(page, await newVisit(office, advisorId, 'Fault farm A'), 1);
   const counts = await randomFaults(phone, SEED, FAILURE_RATE);
+  const started = Date.now();
   await goOnline();
   const runs = await syncUntilDone(page);
   await phone.unrouteAll({ behavior: 'wait' });
   await assertExactlyOnce(captured);
   expect(counts.lostBefore).toBeGreaterThan(0);
   expect(counts.lostAfter).toBeGreaterThan(0);
-  figures.push(`(a) ${runs} runs, ${counts.requests} requests (${JSON.stringify(counts.byPath)}), ${counts.lostBefore} aborted before the server, ${counts.lostAfter} after it answered`);
+  figures.push(`(a) synced in ${runs} runs, ${secs(started)}; ${counts.requests} requests (${JSON.stringify(counts.byPath)}), ${counts.lostBefore} aborted before the server, ${counts.lostAfter} after it answered`);
 });
 
 test('(b) server killed mid-push and started again: nothing lost, nothing doubled', async () => {
   test.setTimeout(90_000);
   const captured = await captureOffline(page, await newVisit(office, advisorId, 'Fault farm B'), 2);
   const counts = newCounts();
+  const started = Date.now();
   let killed: Promise<{ open: boolean; committed: number }> | undefined;
   await phone.route(SYNC_URLS, async (route) => {
     countRequest(counts, route);
@@ -102,13 +105,14 @@ test('(b) server killed mid-push and started again: nothing lost, nothing double
   const runs = await syncUntilDone(page);
   await phone.unrouteAll({ behavior: 'wait' });
   await assertExactlyOnce(captured);
-  figures.push(`(b) killed while the push transaction held the revision lock, ${at.committed} ops committed; ${counts.requests} requests, synced in ${runs} runs after the restart`);
+  figures.push(`(b) killed while the push transaction held the revision lock, ${at.committed} ops committed; ${counts.requests} requests, synced in ${runs} runs after the restart; ${secs(started)} in all`);
 });
 
 test('(c) page reloaded in the middle of the photo uploads: every photo once, intact', async () => {
   test.setTimeout(90_000);
   const captured = await captureOffline(page, await newVisit(office, advisorId, 'Fault farm C'), 3);
   const counts = newCounts();
+  const started = Date.now();
   let held: Route | undefined;
   let photoPuts = 0;
   let workerRequests = 0;
@@ -130,13 +134,14 @@ test('(c) page reloaded in the middle of the photo uploads: every photo once, in
   const runs = await syncUntilDone(page);
   await phone.unrouteAll({ behavior: 'wait' });
   await assertExactlyOnce(captured);
-  figures.push(`(c) reloaded during upload 5 of 20; ${photoPuts} photo uploads in all, ${counts.requests} requests (${workerRequests} from the worker), ${runs} runs after the reload`);
+  figures.push(`(c) reloaded during upload 5 of 20; ${photoPuts} photo uploads in all, ${counts.requests} requests (${workerRequests} from the worker), ${runs} runs after the reload; ${secs(started)}`);
 });
 
 test('(d) the same push batch and photo delivered 4 times and replayed twice more: applied once', async () => {
   test.setTimeout(90_000);
   const captured = await captureOffline(page, await newVisit(office, advisorId, 'Fault farm D'), 4);
   const counts = newCounts();
+  const started = Date.now();
   let firstBatch: string | null = null;
   let firstPhoto: string | null = null;
   let lost = 0;
@@ -174,5 +179,5 @@ test('(d) the same push batch and photo delivered 4 times and replayed twice mor
   }
   await api.dispose();
   await assertExactlyOnce(captured);
-  figures.push(`(d) first batch of 100 ops delivered 4 times by the phone + 2 replays, first photo 4 times; ${counts.requests} requests, ${runs} runs`);
+  figures.push(`(d) first batch of 100 ops delivered 4 times by the phone + 2 replays, first photo 4 times; ${counts.requests} requests, ${runs} runs; ${secs(started)}`);
 });

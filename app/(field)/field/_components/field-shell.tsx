@@ -31,6 +31,17 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
     return () => stop?.();
   }, [router]);
 
+  useEffect(() => {
+    // The header's "offline" follows the network, not just how the page first opened.
+    const follow = () => setSession((s) => (s?.state === 'ready' ? { ...s, online: navigator.onLine } : s));
+    window.addEventListener('online', follow);
+    window.addEventListener('offline', follow);
+    return () => {
+      window.removeEventListener('online', follow);
+      window.removeEventListener('offline', follow);
+    };
+  }, []);
+
   if (!session || session.state === 'signed-out') return <p className="p-6 text-lg">Opening your field book…</p>;
   if (session.state === 'other-user-waiting') {
     return (
