@@ -14,7 +14,7 @@ export const SOURCES = 90;
 export const POINTS = 90;
 export const PHOTOS = 20;
 
-export interface Captured { visitId: string; sources: string[]; points: string[]; photos: Map<string, string> }
+export interface Captured { visitId: string; sources: string[]; points: string[]; photos: Map<string, string>; seconds: { records: number; photos: number } }
 
 // Inside page.evaluate (which runs in the page, so no closures): `(window as unknown as Hooked).__fallbookTest`.
 type Hooked = { __fallbookTest: FallbookTestHooks };
@@ -54,6 +54,7 @@ export async function captureOffline(page: Page, visitId: string, seed: number):
   await page.context().setOffline(true);
   await page.goto(`/field/visit/photos?id=${visitId}`);
   await waitForHooks(page);
+  const started = Date.now();
   const ids = Array.from({ length: SOURCES + POINTS }, () => randomUUID());
   await page.evaluate(async ({ visitId, ids, sources }) => {
     const t = (window as unknown as Hooked).__fallbookTest;
@@ -64,6 +65,7 @@ export async function captureOffline(page: Page, visitId: string, seed: number):
         altitudeM: 230 - i / 10, altitudeAccuracyM: 8, chainageM: i * 5, capturedAt: new Date().toISOString() });
     }
   }, { visitId, ids, sources: SOURCES });
+  const records = (Date.now() - started) / 1000;
   const files = await Promise.all(Array.from({ length: PHOTOS }, (_, i) => noiseJpeg(seed * 100 + i)));
   await page.getByTestId('photo-input').setInputFiles(files.map((buffer, i) => ({ name: `walk-${i}.jpg`, mimeType: 'image/jpeg', buffer })));
   await expect(page.getByText(`${PHOTOS} photos kept on this phone.`)).toBeVisible({ timeout: 20_000 });
@@ -73,7 +75,8 @@ export async function captureOffline(page: Page, visitId: string, seed: number):
   const state = await phoneState(page);
   expect(state.pending).toBe(SOURCES + POINTS + PHOTOS);
   expect(state.photosWaiting).toBe(PHOTOS);
-  return { visitId, sources: ids.slice(0, SOURCES), points: ids.slice(SOURCES), photos: new Map(kept) };
+  const seconds = { records, photos: (Date.now() - started) / 1000 - records };
+  return { visitId, sources: ids.slice(0, SOURCES), points: ids.slice(SOURCES), photos: new Map(kept), seconds };
 }
 
 export interface PhoneState { outbox: number; pending: number; parked: number; photosWaiting: number; lastRunAt: string | null }
