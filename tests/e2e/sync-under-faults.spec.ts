@@ -1,7 +1,7 @@
 // The phone's sync in Chromium, against a real `next start` this file owns and MariaDB, under faults:
 // 200 ops and 20 photos captured offline each time, then synced while (a) 30 % of the sync and photo
 // requests are aborted at random (seeded; half before the server sees them, half after it answered),
-// (b) the server is killed (SIGKILL) mid-push and started again, (c) the page is reloaded mid-upload,
+// (b) the server is killed (SIGKILL) mid-push and mid-upload and started again, (c) the page is reloaded mid-upload,
 // (d) the same batch is delivered again and again. After each: every record in MariaDB exactly once,
 // photos match their sha-256, the phone's outbox is empty.
 // Playwright 1.65 routes service-worker requests by default, so `context.route` sees the loop
@@ -69,43 +69,77 @@ test('(a) 30 % of sync requests aborted at random (seeded): everything arrives e
   figures.push(`(a) captured ${captured.seconds.records.toFixed(1)} + ${captured.seconds.photos.toFixed(1)} s; synced in ${runs} runs, ${secs(started)}; ${counts.requests} requests (${JSON.stringify(counts.byPath)}), ${counts.lostBefore} aborted before the server, ${counts.lostAfter} after it answered`);
 });
 
-test('(b) server killed mid-push and started again: nothing lost, nothing doubled', async () => {
+test('(b) server killed mid-push and mid-upload, a gateway answering 502 while it is down: nothing lost, nothing doubled', async () => {
   test.setTimeout(90_000);
   const captured = await captureOffline(page, await newVisit(office, advisorId, 'Fault farm B'), 2);
   const counts = newCounts();
   const started = Date.now();
-  let killed: Promise<{ open: boolean; committed: number }> | undefined;
+  // While the app is down, the phone gets what a reverse proxy in front of it would answer.
+  let down = false;
+  let gateway = 0;
+  let puts = 0;
+  let pushKill: Promise<{ open: boolean; committed: number }> | undefined;
+  let uploadKill: Promise<void> | undefined;
+  const all = [...captured.sources, ...captured.points];
   await phone.route(SYNC_URLS, async (route) => {
     countRequest(counts, route);
-    if (killed || !route.request().url().includes('/api/sync/push')) return route.continue().catch(() => route.abort());
-    // The first push: hand it to the server, and kill the server while its transaction is open.
-    const answer = route.fetch().catch(() => null);
-    killed = (async () => {
-      let open = false;
-      for (let i = 0; i < 400 && !open; i++) open = await revisionLockHeld();
-      await server.kill('SIGKILL');
-      const all = [...captured.sources, ...captured.points];
-      const committed = Number((await query<{ n: number }>(`SELECT COUNT(*) AS n FROM sync_ops WHERE entity_id IN (${all.map(() => '?').join(',')})`, all))[0]?.n);
-      return { open, committed };
-    })();
-    await answer;
-    await route.abort('connectionreset');
+    if (down) {
+      gateway++;
+      return route.fulfill({ status: 502, contentType: 'text/html', body: '<h1>502 Bad Gateway</h1>' });
+    }
+    const req = route.request();
+    if (!pushKill && req.url().includes('/api/sync/push')) {
+      // The first push: hand it to the server, and kill the server while its transaction is open.
+      const answer = route.fetch().catch(() => null);
+      pushKill = (async () => {
+        let open = false;
+        for (let i = 0; i < 400 && !open; i++) open = await revisionLockHeld();
+        down = true;
+        await server.kill('SIGKILL');
+        const committed = Number((await query<{ n: number }>(`SELECT COUNT(*) AS n FROM sync_ops WHERE entity_id IN (${all.map(() => '?').join(',')})`, all))[0]?.n);
+        return { open, committed };
+      })();
+      await answer;
+      return route.abort('connectionreset');
+    }
+    if (pushKill && !uploadKill && req.method() === 'PUT' && ++puts === 3) {
+      // The third photo upload: killed while the bytes are on their way.
+      const answer = route.fetch().catch(() => null);
+      uploadKill = (async () => {
+        await new Promise((r) => setTimeout(r, 20));
+        down = true;
+        await server.kill('SIGKILL');
+      })();
+      await answer;
+      return route.abort('connectionreset');
+    }
+    await route.continue().catch(() => route.abort());
   });
   await goOnline();
   await pressSync(page);
-  expect(killed).toBeDefined();
-  const at = await killed!;
+  expect(pushKill).toBeDefined();
+  const at = await pushKill!;
   // Killed with the batch's transaction open: MariaDB rolled all of it back.
   expect(at.open).toBe(true);
   expect(at.committed).toBe(0);
-  // While it is down the phone keeps everything.
+  // While it is down the phone keeps everything (the 502s put the ops on a retry delay).
   await pressSync(page);
   expect((await phoneState(page)).pending).toBe(200);
   await server.start();
+  down = false;
+  await pressSync(page);
+  expect(uploadKill).toBeDefined();
+  await uploadKill;
+  await pressSync(page);
+  expect((await phoneState(page)).photosWaiting).toBeGreaterThan(0);
+  await server.start();
+  down = false;
+  // Back up: one press of "Sync now" sends everything, photos waiting out a retry delay included.
   const runs = await syncUntilDone(page);
   await phone.unrouteAll({ behavior: 'wait' });
   await assertExactlyOnce(captured);
-  figures.push(`(b) killed while the push transaction held the revision lock, ${at.committed} ops committed; ${counts.requests} requests, synced in ${runs} runs after the restart; ${secs(started)} in all`);
+  expect(runs).toBe(1);
+  figures.push(`(b) killed while the push transaction held the revision lock (${at.committed} ops committed) and again during upload 3; ${gateway} requests answered 502 while down; ${counts.requests} requests; ${secs(started)} in all`);
 });
 
 test('(c) page reloaded in the middle of the photo uploads: every photo once, intact', async () => {

@@ -99,6 +99,19 @@ describe('photos', () => {
     expect(calls.indexOf(`/api/photos/${PHOTO}`)).toBeGreaterThan(calls.indexOf('/api/sync/push'));
     expect((await db.photoBlobs.get(PHOTO))?.uploadedAt).not.toBeNull();
   });
+
+  it('a gateway error on an upload backs the photo off, but "Sync now" (force) sends it at once', async () => {
+    const server = fakeServer();
+    await savePhoto(PHOTO, meta, new Uint8Array([1, 2, 3]).buffer);
+    await pushAll();
+    server.failNextWith(502);
+    expect(await runSync()).toMatchObject({ ok: false });
+    expect((await db.photoBlobs.get(PHOTO))?.nextAttemptAt).toBeGreaterThan(Date.now());
+    // An automatic run leaves it to its delay; the button does not.
+    expect(await runSync()).toMatchObject({ ok: true, photos: 0 });
+    expect(await runSync(undefined, true)).toMatchObject({ ok: true, photos: 1 });
+    expect((await db.photoBlobs.get(PHOTO))?.uploadedAt).not.toBeNull();
+  });
 });
 
 describe('pull', () => {
