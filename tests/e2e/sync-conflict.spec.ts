@@ -6,7 +6,7 @@ import { query } from './support/db';
 import { newVisit, phoneState, pressSync, syncUntilDone, waitForHooks } from './support/phone';
 import { signInAs, waitForWorker } from './support/sign-in';
 
-test.setTimeout(120_000);
+test.setTimeout(180_000);
 
 const FT = 0.3048;
 

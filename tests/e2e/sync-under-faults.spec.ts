@@ -56,7 +56,7 @@ async function goOnline() {
 }
 
 test('(a) 30 % of sync requests aborted at random (seeded): everything arrives exactly once', async () => {
-  test.setTimeout(90_000);
+  test.setTimeout(180_000);
   const captured = await captureOffline(page, await newVisit(office, advisorId, 'Fault farm A'), 1);
   const counts = await randomFaults(phone, SEED, FAILURE_RATE);
   const started = Date.now();
@@ -70,7 +70,7 @@ test('(a) 30 % of sync requests aborted at random (seeded): everything arrives e
 });
 
 test('(b) server killed mid-push and mid-upload, a gateway answering 502 while it is down: nothing lost, nothing doubled', async () => {
-  test.setTimeout(90_000);
+  test.setTimeout(180_000);
   const captured = await captureOffline(page, await newVisit(office, advisorId, 'Fault farm B'), 2);
   const counts = newCounts();
   const started = Date.now();
@@ -122,9 +122,10 @@ test('(b) server killed mid-push and mid-upload, a gateway answering 502 while i
   // Killed with the batch's transaction open: MariaDB rolled all of it back.
   expect(at.open).toBe(true);
   expect(at.committed).toBe(0);
-  // While it is down the phone keeps everything (the 502s put the ops on a retry delay).
+  // While it is down the phone keeps everything (the 502s put the ops on a retry delay) and says so.
   await pressSync(page);
   expect((await phoneState(page)).pending).toBe(200);
+  await expect(page.getByText('The server is not answering properly (502). Everything stays on this phone and goes up on a later try.')).toBeVisible();
   await server.start();
   down = false;
   await pressSync(page);
@@ -143,7 +144,7 @@ test('(b) server killed mid-push and mid-upload, a gateway answering 502 while i
 });
 
 test('(c) page reloaded in the middle of the photo uploads: every photo once, intact', async () => {
-  test.setTimeout(90_000);
+  test.setTimeout(180_000);
   const captured = await captureOffline(page, await newVisit(office, advisorId, 'Fault farm C'), 3);
   const counts = newCounts();
   const started = Date.now();
@@ -172,7 +173,7 @@ test('(c) page reloaded in the middle of the photo uploads: every photo once, in
 });
 
 test('(d) the same push batch and photo delivered 4 times and replayed twice more: applied once', async () => {
-  test.setTimeout(90_000);
+  test.setTimeout(180_000);
   const captured = await captureOffline(page, await newVisit(office, advisorId, 'Fault farm D'), 4);
   const counts = newCounts();
   const started = Date.now();
