@@ -96,6 +96,8 @@ export async function phoneState(page: Page): Promise<PhoneState> {
 
 /** Presses "Sync now" and waits for that run to end. */
 export async function pressSync(page: Page): Promise<void> {
+  // After a reload the hooks arrive a moment after the page (loaded once the session is read).
+  await waitForHooks(page);
   const before = (await phoneState(page)).lastRunAt;
   await page.getByRole('button', { name: 'Sync now' }).click({ timeout: 30_000 });
   await expect.poll(async () => (await phoneState(page)).lastRunAt !== before && (await page.getByRole('button', { name: 'Sync now', disabled: false }).count()) === 1,
