@@ -42,6 +42,8 @@ export const testProfile = {
   DB_READ_HOSTS: '',
   AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: 'true',
   SEED_DEMO: '1',
+  // Compiled into the test build: the field pages expose the app's save/sync modules to the e2e fault tests.
+  NEXT_PUBLIC_FALLBOOK_TEST_HOOKS: '1',
 };
 
 /** Creates .env from .env.example with a fresh secret when it is missing. */

@@ -35,11 +35,14 @@ function send(blob: PhotoBlob, onProgress?: UploadProgress): Promise<number> {
     .then((r) => r.status, () => { throw new OfflineError(); });
 }
 
-/** Uploads every photo that is ready; returns how many the server confirmed. */
-export async function uploadPhotos(onProgress?: UploadProgress): Promise<number> {
+/**
+ * Uploads every photo that is ready (every waiting one when `force`: the person pressed "Sync now",
+ * which sends what waits out a retry delay, photos as well as changes); returns how many the server confirmed.
+ */
+export async function uploadPhotos(onProgress?: UploadProgress, force = false): Promise<number> {
   const db = fieldDb();
   let done = 0;
-  for (const blob of await readyBlobs()) {
+  for (const blob of await readyBlobs(force ? Number.POSITIVE_INFINITY : Date.now())) {
     const status = await send(blob, onProgress);
     if (status === 401) throw new SyncHttpError(401, 'Sign in again to send your photos.');
     if (status >= 200 && status < 300) {

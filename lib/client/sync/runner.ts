@@ -15,10 +15,10 @@ async function runOnce(onProgress?: UploadProgress, force = false): Promise<Sync
   const record: SyncRecord = { at: new Date().toISOString(), ok: false, message: null, pushed: 0, pulled: 0, photos: 0 };
   try {
     record.pushed = await pushAll(force);
-    record.photos = await uploadPhotos(onProgress);
+    record.photos = await uploadPhotos(onProgress, force);
     record.pulled = await pullAll();
     // Photos whose metadata went up in this run.
-    record.photos += await uploadPhotos(onProgress);
+    record.photos += await uploadPhotos(onProgress, force);
     record.ok = true;
     await setMeta('authPaused', false);
     await setMeta('lastSuccess', record.at);

@@ -99,6 +99,21 @@ describe('photos', () => {
     expect(calls.indexOf(`/api/photos/${PHOTO}`)).toBeGreaterThan(calls.indexOf('/api/sync/push'));
     expect((await db.photoBlobs.get(PHOTO))?.uploadedAt).not.toBeNull();
   });
+
+  it('a gateway error on an upload backs the photo off, but "Sync now" (force) sends it at once', async () => {
+    const server = fakeServer();
+    await savePhoto(PHOTO, meta, new Uint8Array([1, 2, 3]).buffer);
+    await pushAll();
+    server.failNextWith(502);
+    expect(await runSync()).toMatchObject({ ok: false });
+    expect((await db.photoBlobs.get(PHOTO))?.nextAttemptAt).toBeGreaterThan(Date.now());
+    // A few failures later the delay is long (set here, so a slow machine cannot outlast it).
+    await db.photoBlobs.update(PHOTO, { attempts: 6, nextAttemptAt: Date.now() + 60_000 });
+    // An automatic run leaves it to its delay; the button does not.
+    expect(await runSync()).toMatchObject({ ok: true, photos: 0 });
+    expect(await runSync(undefined, true)).toMatchObject({ ok: true, photos: 1 });
+    expect((await db.photoBlobs.get(PHOTO))?.uploadedAt).not.toBeNull();
+  });
 });
 
 describe('pull', () => {

@@ -14,6 +14,11 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
   const router = useRouter();
 
   useEffect(() => {
+    // Test builds only (the condition is compiled in): the fault tests drive the app's own modules.
+    if (process.env.NEXT_PUBLIC_FALLBOOK_TEST_HOOKS === '1') void import('@/lib/client/test-hooks').then((m) => m.installTestHooks());
+  }, []);
+
+  useEffect(() => {
     let stop: (() => void) | undefined;
     void loadLocalSession().then((s) => {
       setSession(s);
@@ -25,6 +30,17 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
     });
     return () => stop?.();
   }, [router]);
+
+  useEffect(() => {
+    // The header's "offline" follows the network, not just how the page first opened.
+    const follow = () => setSession((s) => (s?.state === 'ready' ? { ...s, online: navigator.onLine } : s));
+    window.addEventListener('online', follow);
+    window.addEventListener('offline', follow);
+    return () => {
+      window.removeEventListener('online', follow);
+      window.removeEventListener('offline', follow);
+    };
+  }, []);
 
   if (!session || session.state === 'signed-out') return <p className="p-6 text-lg">Opening your field book…</p>;
   if (session.state === 'other-user-waiting') {

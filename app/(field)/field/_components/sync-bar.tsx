@@ -42,9 +42,12 @@ export function SyncBar() {
   }
 
   if (!state) return null;
-  const summary = state.waiting + state.photos === 0
+  // A change parked for a decision is not on the server either: never claim everything is.
+  const summary = state.waiting + state.photos + state.parked === 0
     ? 'Everything is on the server'
-    : `${plural(state.waiting, 'change', 'changes')}, ${plural(state.photos, 'photo', 'photos')} waiting`;
+    : state.waiting + state.photos === 0
+      ? 'Not everything is on the server'
+      : `${plural(state.waiting, 'change', 'changes')}, ${plural(state.photos, 'photo', 'photos')} waiting`;
   return (
     <section aria-label="Sync status" className="border-b border-rule bg-white">
       <div className="mx-auto flex max-w-3xl flex-wrap items-center justify-between gap-2 px-4 py-2">

@@ -4,24 +4,25 @@ import { useLiveQuery } from 'dexie-react-hooks';
 import Link from 'next/link';
 import { fieldDb, type OutboxEntry } from '@/lib/client/db';
 import { discardParked, resolveConflict, retryParked } from '@/lib/client/sync/resolve';
+import type { UnitSystem } from '@/lib/shared/domain';
+import { describeRecord, fieldLabel, showFieldValue } from '@/lib/shared/conflict-fields';
+import { useUnits } from '../_components/use-field-data';
 
-const show = (v: unknown) => (v === null || v === undefined ? '—' : typeof v === 'object' ? JSON.stringify(v) : String(v));
-
-function Conflict({ entry }: { entry: OutboxEntry }) {
+function Conflict({ entry, units }: { entry: OutboxEntry; units: UnitSystem }) {
   const fields = entry.result?.conflict?.fields ?? [];
   const server = (entry.result?.conflict?.server ?? {}) as Record<string, unknown>;
   const mine = (entry.op.changes ?? {}) as Record<string, unknown>;
   return (
     <li className="space-y-2 rounded-md border-2 border-ochre bg-white p-3">
-      <p className="font-bold">Changed on the server while you were out: {entry.entity}</p>
+      <p className="font-bold">Changed on the server while you were out: {describeRecord(entry.entity, { ...server, ...mine })}</p>
       <table className="w-full text-left">
         <thead><tr><th className="pr-2">Field</th><th className="pr-2">Yours</th><th>Server</th></tr></thead>
         <tbody>
           {fields.map((f) => (
             <tr key={f} className="border-t border-rule align-top">
-              <td className="pr-2 font-bold">{f}</td>
-              <td className="figure pr-2 break-all">{show(mine[f])}</td>
-              <td className="figure break-all">{show(server[f])}</td>
+              <td className="pr-2 font-bold">{fieldLabel(f)}</td>
+              <td className="figure pr-2 wrap-anywhere">{showFieldValue(f, mine[f], units)}</td>
+              <td className="figure wrap-anywhere">{showFieldValue(f, server[f], units)}</td>
             </tr>
           ))}
         </tbody>
@@ -49,6 +50,7 @@ function Refused({ entry }: { entry: OutboxEntry }) {
 
 export default function SyncPage() {
   const entries = useLiveQuery(() => fieldDb().outbox.orderBy('seq').toArray());
+  const units = useUnits();
   const parked = entries?.filter((e) => e.status !== 'pending') ?? [];
   const waiting = entries?.filter((e) => e.status === 'pending') ?? [];
   return (
@@ -59,7 +61,7 @@ export default function SyncPage() {
       <h2 className="text-xl font-bold">Needs your decision</h2>
       {parked.length === 0 && <p className="text-stone">Nothing to decide.</p>}
       <ul className="space-y-3">
-        {parked.map((e) => (e.status === 'conflict' ? <Conflict key={e.seq} entry={e} /> : <Refused key={e.seq} entry={e} />))}
+        {parked.map((e) => (e.status === 'conflict' ? <Conflict key={e.seq} entry={e} units={units} /> : <Refused key={e.seq} entry={e} />))}
       </ul>
     </div>
   );

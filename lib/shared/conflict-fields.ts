@@ -1,0 +1,43 @@
+// How a parked sync conflict is put to the advisor: the record in words, each field by its form
+// label, numbers converted to the advisor's units with the unit beside them (values are SI).
+import type { UnitSystem } from './domain';
+import { showQuantity, type Quantity } from './quantities';
+import type { SyncEntity } from './schemas/sync';
+
+const ENTITY_NAMES: Record<SyncEntity, string> = {
+  visit: 'the visit', waterSource: 'a water source', flowMeasurement: 'a flow measurement', fallReading: 'a fall reading',
+  point: 'a point', photo: 'a photo', demandLine: 'a demand line', pipeRun: 'a pipe run',
+};
+
+const FIELDS: Record<string, { label: string; quantity?: Quantity }> = {
+  notes: { label: 'Notes' }, status: { label: 'State' }, visitedAt: { label: 'Visited at' }, name: { label: 'Name' }, kind: { label: 'Kind' },
+  sourceId: { label: 'Source' }, takenAt: { label: 'Taken at' }, measurement: { label: 'Method and trials' }, purpose: { label: 'Purpose' },
+  seq: { label: 'Order' }, bookedFrom: { label: 'Booked from' }, run: { label: 'Readings of the run' }, role: { label: 'Role' },
+  label: { label: 'Label' }, lat: { label: 'Latitude' }, lon: { label: 'Longitude' }, accuracyM: { label: 'GPS accuracy', quantity: 'length' },
+  altitudeM: { label: 'Altitude', quantity: 'length' }, altitudeAccuracyM: { label: 'Altitude accuracy', quantity: 'length' },
+  chainageM: { label: 'Distance along the route', quantity: 'length' }, capturedAt: { label: 'Captured at' },
+  reducedLevelM: { label: 'Reduced level', quantity: 'length' }, flags: { label: 'Flags' }, pointId: { label: 'Point' }, caption: { label: 'Caption' },
+  count: { label: 'How many', quantity: 'count' }, litresPerHeadPerDay: { label: 'Water each per day', quantity: 'litresPerDay' },
+  figureSource: { label: 'Where the figure comes from' }, note: { label: 'Note' },
+  lengthM: { label: 'Length along the route', quantity: 'length' }, diameterMm: { label: 'Inside diameter', quantity: 'diameter' },
+  material: { label: 'Material' }, pressureClass: { label: 'Pressure class' }, deletedAt: { label: 'Deleted on the server' },
+};
+
+/** "a pipe run (delivery)", "a water source (Hafod spring)": which record the conflict is about. */
+export function describeRecord(entity: SyncEntity, record: Record<string, unknown>): string {
+  const detail = [record.purpose, record.name, record.label, record.caption].find((v) => typeof v === 'string' && v.trim() !== '');
+  return detail ? `${ENTITY_NAMES[entity]} (${String(detail)})` : ENTITY_NAMES[entity];
+}
+
+/** The form's label of a field (the field's key when unknown). */
+export function fieldLabel(field: string): string {
+  return FIELDS[field]?.label ?? field;
+}
+
+/** A field's value as the advisor reads it: in their units with the unit, or plain text. */
+export function showFieldValue(field: string, value: unknown, units: UnitSystem): string {
+  if (value === null || value === undefined || value === '') return '—';
+  const quantity = FIELDS[field]?.quantity;
+  if (quantity && typeof value === 'number') return showQuantity(value, quantity, units);
+  return typeof value === 'object' ? JSON.stringify(value) : String(value);
+}
