@@ -7,6 +7,7 @@ import type { SyncEntity } from './schemas/sync';
 const ENTITY_NAMES: Record<SyncEntity, string> = {
   visit: 'the visit', waterSource: 'a water source', flowMeasurement: 'a flow measurement', fallReading: 'a fall reading',
   point: 'a point', photo: 'a photo', demandLine: 'a demand line', pipeRun: 'a pipe run',
+  commissioning: 'a commissioning check',
 };
 
 const FIELDS: Record<string, { label: string; quantity?: Quantity }> = {
@@ -20,6 +21,8 @@ const FIELDS: Record<string, { label: string; quantity?: Quantity }> = {
   count: { label: 'How many', quantity: 'count' }, litresPerHeadPerDay: { label: 'Water each per day', quantity: 'litresPerDay' },
   figureSource: { label: 'Where the figure comes from' }, note: { label: 'Note' },
   lengthM: { label: 'Length along the route', quantity: 'length' }, diameterMm: { label: 'Inside diameter', quantity: 'diameter' },
+  driveLpm: { label: 'Drive flow (L/min)' }, deliveredLpm: { label: 'Delivered flow (L/min)' }, beatsPerMinute: { label: 'Beats per minute' },
+  liftM: { label: 'Measured lift', quantity: 'length' }, fallM: { label: 'Fall', quantity: 'length' }, drivePipeMaterial: { label: 'Drive pipe material' },
   material: { label: 'Material' }, pressureClass: { label: 'Pressure class' }, deletedAt: { label: 'Deleted on the server' },
 };
 
