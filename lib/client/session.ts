@@ -8,12 +8,20 @@ export type LocalSession =
   | { state: 'signed-out' }
   | { state: 'other-user-waiting'; user: SessionUser; waitingFor: SessionUser };
 
-/** Checks /api/me when online; falls back to the remembered user offline. */
-export async function loadLocalSession(): Promise<LocalSession> {
+// A weak signal can leave a request hanging for minutes: past this, the phone counts as offline.
+export const SESSION_CHECK_TIMEOUT_MS = 8_000;
+
+/** The advisor last confirmed on this phone, read without touching the network (null if none). */
+export async function rememberedUser(): Promise<SessionUser | null> {
+  return (await getMeta<SessionUser>('user')) ?? null;
+}
+
+/** Checks /api/me when online; falls back to the remembered user offline or when the check hangs. */
+export async function loadLocalSession(timeoutMs = SESSION_CHECK_TIMEOUT_MS): Promise<LocalSession> {
   const remembered = await getMeta<SessionUser>('user');
   let res: Response | undefined;
   try {
-    res = await fetch('/api/me', { credentials: 'same-origin', cache: 'no-store' });
+    res = await fetch('/api/me', { credentials: 'same-origin', cache: 'no-store', signal: AbortSignal.timeout(timeoutMs) });
   } catch {
     return remembered ? { state: 'ready', user: remembered, online: false } : { state: 'signed-out' };
   }

@@ -3,7 +3,7 @@
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { useEffect, useState } from 'react';
-import { loadLocalSession, type LocalSession } from '@/lib/client/session';
+import { loadLocalSession, rememberedUser, type LocalSession } from '@/lib/client/session';
 import { startSyncTriggers } from '@/lib/client/sync/triggers';
 import { StorageNote } from './storage-note';
 import { SyncBar } from './sync-bar';
@@ -20,7 +20,15 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
 
   useEffect(() => {
     let stop: (() => void) | undefined;
+    let cancelled = false;
+    // Open at once as the advisor remembered on this phone: a weak signal must not hold the field
+    // book shut. Sync starts only once the server (or no network) confirms who is signed in, so a
+    // remembered person's changes are never sent under someone else's session.
+    void rememberedUser().then((user) => {
+      if (!cancelled && user) setSession((s) => s ?? { state: 'ready', user, online: navigator.onLine });
+    });
     void loadLocalSession().then((s) => {
+      if (cancelled) return;
       setSession(s);
       if (s.state === 'signed-out') router.replace(`/login?callbackUrl=${encodeURIComponent(location.pathname + location.search)}`);
       if (s.state === 'ready' && s.user.role !== 'farmer') {
@@ -28,7 +36,10 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
         void navigator.storage?.persist?.();
       }
     });
-    return () => stop?.();
+    return () => {
+      cancelled = true;
+      stop?.();
+    };
   }, [router]);
 
   useEffect(() => {
