@@ -41,6 +41,8 @@ export interface PhotoBlob {
   uploadedAt: string | null;
   attempts: number;
   nextAttemptAt: number;
+  /** The server's last refusal (a 4xx with its message): shown on the sync page; the bytes stay. */
+  lastError?: { status: number; message: string } | null;
 }
 
 export interface MetaEntry { key: string; value: unknown }

@@ -198,3 +198,23 @@ describe('commissioning checks on the phone', () => {
     expect(await db.visits.count()).toBe(0);
   });
 });
+
+describe('a photo the server refuses', () => {
+  const PHOTO = '66666666-6666-4666-8666-666666666666';
+  const meta = { visitId: VISIT, pointId: null, caption: 'intake pool', mime: 'image/jpeg' as const, bytes: 3, sha256: 'c'.repeat(64), width: null, height: null, lat: null, lon: null, takenAt: null };
+
+  it('keeps the bytes with the server\'s reason, and clears the reason once a later upload is taken', async () => {
+    const server = fakeServer();
+    await savePhoto(PHOTO, meta, new Uint8Array([1, 2, 3]).buffer);
+    await pushAll();
+    server.failNextWith(415);
+    expect(await runSync()).toMatchObject({ ok: true, photos: 0 });
+    const refused = await db.photoBlobs.get(PHOTO);
+    expect(refused?.uploadedAt).toBeNull();
+    expect(refused?.data.byteLength).toBe(3);
+    expect(refused?.lastError).toEqual({ status: 415, message: 'status 415' });
+    expect(await runSync(undefined, true)).toMatchObject({ ok: true, photos: 1 });
+    expect(await db.photoBlobs.get(PHOTO)).toMatchObject({ lastError: null });
+    expect((await db.photoBlobs.get(PHOTO))?.uploadedAt).not.toBeNull();
+  });
+});

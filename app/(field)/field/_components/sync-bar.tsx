@@ -25,6 +25,7 @@ export function SyncBar() {
       waiting: outbox.filter((e) => e.status === 'pending').length,
       parked: outbox.filter((e) => e.status !== 'pending').length,
       photos: await db.photoBlobs.filter((b) => b.uploadedAt === null).count(),
+      refusedPhotos: await db.photoBlobs.filter((b) => b.uploadedAt === null && !!b.lastError).count(),
       lastSuccess: await getMeta<string>('lastSuccess'),
       lastRun: await getMeta<SyncRecord>('lastRun'),
       paused: (await getMeta<boolean>('authPaused')) ?? false,
@@ -59,6 +60,9 @@ export function SyncBar() {
           )}
           {state.parked > 0 && (
             <Link href="/field/sync" className="block font-bold text-clay">{plural(state.parked, 'change needs', 'changes need')} your decision</Link>
+          )}
+          {state.refusedPhotos > 0 && (
+            <Link href="/field/sync" className="block font-bold text-clay">The server did not take {plural(state.refusedPhotos, 'photo', 'photos')}: see why</Link>
           )}
           {!state.lastRun?.ok && state.lastRun?.message && !state.paused && <span className="block text-stone">{state.lastRun.message}</span>}
         </div>

@@ -3,6 +3,7 @@
 import { useLiveQuery } from 'dexie-react-hooks';
 import Link from 'next/link';
 import { fieldDb, type OutboxEntry } from '@/lib/client/db';
+import { requestSync } from '@/lib/client/sync/triggers';
 import { discardParked, resolveConflict, retryParked } from '@/lib/client/sync/resolve';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { describeRecord, fieldLabel, showFieldValue } from '@/lib/shared/conflict-fields';
@@ -48,6 +49,35 @@ function Refused({ entry }: { entry: OutboxEntry }) {
   );
 }
 
+/** Photos the server refused (a 4xx): the reason, and a way to try again; the bytes stay on the phone. */
+function RefusedPhotos() {
+  const refused = useLiveQuery(async () => {
+    const db = fieldDb();
+    const blobs = await db.photoBlobs.filter((b) => b.uploadedAt === null && !!b.lastError).toArray();
+    return Promise.all(blobs.map(async (b) => ({ id: b.id, error: b.lastError, caption: (await db.photos.get(b.id))?.caption ?? '' })));
+  });
+  if (!refused || refused.length === 0) return null;
+  async function tryAgain(id: string) {
+    await fieldDb().photoBlobs.update(id, { nextAttemptAt: 0 });
+    await requestSync();
+  }
+  return (
+    <>
+      <h2 className="text-xl font-bold">Photos the server did not take</h2>
+      <p>They stay on this phone and are tried again at each sync.</p>
+      <ul className="space-y-3">
+        {refused.map((p) => (
+          <li key={p.id} className="space-y-2 rounded-md border-2 border-clay bg-white p-3">
+            <p className="font-bold">{p.caption ? `Photo “${p.caption}”` : 'A photo'}</p>
+            <p>{p.error?.message}</p>
+            <button type="button" className="min-h-12 w-full rounded-md bg-slate font-bold text-white" onClick={() => tryAgain(p.id)}>Try again now</button>
+          </li>
+        ))}
+      </ul>
+    </>
+  );
+}
+
 export default function SyncPage() {
   const entries = useLiveQuery(() => fieldDb().outbox.orderBy('seq').toArray());
   const units = useUnits();
@@ -63,6 +93,7 @@ export default function SyncPage() {
       <ul className="space-y-3">
         {parked.map((e) => (e.status === 'conflict' ? <Conflict key={e.seq} entry={e} units={units} /> : <Refused key={e.seq} entry={e} />))}
       </ul>
+      <RefusedPhotos />
     </div>
   );
 }
