@@ -1,6 +1,7 @@
 import { FIELD_VISIT_STATUSES } from '@/lib/shared/domain';
 import { QueryTypes, type Model, type ModelStatic, type Sequelize, type Transaction } from 'sequelize';
 import { AuditEntry } from './audit-entry';
+import { batchInsert } from './batch-insert';
 import { Commissioning } from './commissioning';
 import { DemandLine } from './demand-line';
 import { FallReading } from './fall-reading';
@@ -26,6 +27,7 @@ export {
   Screening, SignInAttempt, SyncOp, User, Visit, WaterSource,
 };
 export { Commissioning, FarmNeed, SheetResponse, SheetSend };
+export { batchInsert };
 export type { OrganisationSettings } from './organisation';
 
 /** Models whose rows sync with the phone: each save takes a fresh revision. */
@@ -103,13 +105,14 @@ export async function writeSyncedRows(
       throw new Error(`${model.name} ${String(row.get('id'))}: rev ${rev} was not reserved by this transaction`);
     }
   }
-  const values = (list: Model[]) => list.map((row) => row.get({ plain: true }) as Record<string, unknown>);
-  if (rows.created.length > 0) await model.bulkCreate(values(rows.created), { transaction, hooks: false });
-  if (rows.updated.length > 0) {
-    await model.bulkCreate(values(rows.updated), {
-      transaction, hooks: false, updateOnDuplicate: [...new Set([...fields, 'rev', 'deletedAt', 'updatedAt'])],
-    });
-  }
+  const now = new Date();
+  const values = (list: Model[], created: boolean) => list.map((row) => {
+    const plain = row.get({ plain: true }) as Record<string, unknown>;
+    return { ...plain, ...(created ? { createdAt: now } : {}), updatedAt: now };
+  });
+  // A duplicate id among the new rows fails the insert (the batch retries into a conflict).
+  await batchInsert(model, values(rows.created, true), transaction);
+  await batchInsert(model, values(rows.updated, false), transaction, [...new Set([...fields, 'rev', 'deletedAt', 'updatedAt'])]);
 }
 
 function addRevisionHooks(sequelize: Sequelize, model: ModelStatic<Model>) {

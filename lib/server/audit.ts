@@ -1,6 +1,6 @@
 import 'server-only';
 import type { Transaction } from 'sequelize';
-import { AuditEntry } from '@/lib/server/db';
+import { AuditEntry, batchInsert } from '@/lib/server/db';
 
 export interface AuditInput {
   organisationId: string;
@@ -23,8 +23,6 @@ export async function recordAudit(entry: AuditInput, transaction?: Transaction):
 /** Appends many audit lines in one statement (a push batch's applied ops); in the caller's transaction. */
 export async function recordAudits(entries: AuditInput[], transaction: Transaction): Promise<void> {
   if (entries.length === 0) return;
-  await AuditEntry.bulkCreate(
-    entries.map((entry) => ({ ...entry, visitId: entry.visitId ?? null, changes: entry.changes ?? null })),
-    { transaction },
-  );
+  const createdAt = new Date();
+  await batchInsert(AuditEntry, entries.map((entry) => ({ ...entry, visitId: entry.visitId ?? null, changes: entry.changes ?? null, createdAt })), transaction);
 }

@@ -277,3 +277,37 @@ describe('push: access and bad input', () => {
     expect((await res.json()).error.message).toMatch(/not valid JSON/);
   });
 });
+
+describe('the bulk writer (rows through the connector, not model instances)', () => {
+  it('stores times in UTC, JSON as JSON, timestamps, audit lines and outcomes as the models read them', async () => {
+    const o = await makeOrganisation('push-bulk');
+    const { ids, ops } = readingOps(o.visit.id, o.farm.id);
+    const before = Date.now();
+    const { results } = await push(o.advisor, { ops });
+    const point = await Point.findByPk(ids.point, { rejectOnEmpty: true });
+    // The phone's ISO time comes back as the same instant.
+    expect(point.capturedAt?.toISOString()).toBe('2026-08-01T09:30:00.000Z');
+    expect(point.createdAt.getTime()).toBeGreaterThanOrEqual(before - 1000);
+    expect(point.updatedAt.getTime()).toBeGreaterThanOrEqual(before - 1000);
+    expect(point.createdAt.getTime()).toBeLessThanOrEqual(Date.now() + 1000);
+    const flow = await FlowMeasurement.findByPk(ids.flow, { rejectOnEmpty: true });
+    expect(flow.takenAt?.toISOString()).toBe('2026-08-01T09:30:00.000Z');
+    const audit = await AuditEntry.findOne({ where: { entityId: ids.flow, action: 'created' }, rejectOnEmpty: true });
+    const changes = typeof audit.changes === 'string' ? JSON.parse(audit.changes) : audit.changes;
+    expect(changes).toMatchObject({ sourceId: ids.source, measurement: { method: 'volumetric', season: 'dry' } });
+    expect(audit.createdAt.getTime()).toBeGreaterThanOrEqual(before - 1000);
+    const stored = await SyncOp.findByPk(ops[1]?.opId ?? '', { rejectOnEmpty: true });
+    const outcome = typeof stored.outcome === 'string' ? JSON.parse(stored.outcome) : stored.outcome;
+    expect(outcome).toEqual(results[1]);
+    expect(stored.userId).toBe(o.advisor.id);
+
+    // An update through the bulk path changes only its field, and moves updated_at, not created_at.
+    const created = point.createdAt.getTime();
+    const [update] = (await push(o.advisor, { ops: [putOp('point', ids.point, { label: 'Ram site, moved' }, { baseRev: point.rev, base: { label: 'Ram site' } })] })).results;
+    expect(update?.status).toBe('applied');
+    await point.reload();
+    expect([point.label, point.role, point.altitudeM]).toEqual(['Ram site, moved', 'pump', 232]);
+    expect(point.createdAt.getTime()).toBe(created);
+    expect(point.rev).toBe(update?.rev);
+  });
+});

@@ -1,6 +1,6 @@
 import 'server-only';
 import { Op, QueryTypes, Transaction, UniqueConstraintError } from 'sequelize';
-import { Visit, getSequelize, reserveRevs, writeSyncedRows } from '@/lib/server/db';
+import { SyncOp as SyncOpRow, Visit, batchInsert, getSequelize, reserveRevs, writeSyncedRows } from '@/lib/server/db';
 import type { OpResult, SyncEntity, SyncOp } from '@/lib/shared/schemas/sync';
 import { recordAudit, recordAudits } from '../audit';
 import type { SessionUser } from '../auth/permissions';
@@ -86,17 +86,14 @@ async function writePlans(plans: OpPlan[], ops: SyncOp[], fresh: Set<string>, us
   }
 
   // The first applied op of an id stores the outcome; ops that did not apply leave no row.
-  const outcomes = new Map<string, [SyncOp, string]>();
+  const outcomes = new Map<string, [SyncOp, OpResult]>();
   plans.forEach((plan, i) => {
     const op = ops[i];
-    if (op && fresh.has(op.opId) && plan.result.status === 'applied' && !outcomes.has(op.opId)) outcomes.set(op.opId, [op, JSON.stringify(plan.result)]);
+    if (op && fresh.has(op.opId) && plan.result.status === 'applied' && !outcomes.has(op.opId)) outcomes.set(op.opId, [op, plan.result]);
   });
-  if (outcomes.size > 0) {
-    await sequelize.query(
-      `INSERT INTO sync_ops (op_id, user_id, entity, entity_id, outcome, created_at) VALUES ${[...outcomes].map(() => '(?, ?, ?, ?, ?, NOW())').join(', ')}`,
-      { replacements: [...outcomes.values()].flatMap(([op, outcome]) => [op.opId, userId, op.entity, op.entityId, outcome]), transaction },
-    );
-  }
+  const createdAt = new Date();
+  await batchInsert(SyncOpRow, [...outcomes.values()].map(([op, outcome]) => (
+    { opId: op.opId, userId, entity: op.entity, entityId: op.entityId, outcome, createdAt })), transaction);
 }
 
 // Thrown inside a commissioning op's savepoint so a refusal changes nothing.
@@ -186,7 +183,8 @@ async function markSurveyed(visitIds: string[], access: SyncAccess, transaction:
 
 // A duplicate key is a concurrent push that committed the same op (or created the same record) first:
 // the retry sees its stored outcome (or its row) and answers as a replay (or a conflict).
-const isRetryable = (error: unknown) => error instanceof UniqueConstraintError
+// (The bulk writer goes through the connector itself, whose duplicate key is errno 1062.)
+const isRetryable = (error: unknown) => error instanceof UniqueConstraintError || (error as { errno?: number })?.errno === 1062
   || /deadlock|lock wait timeout/i.test(String((error as Error)?.message ?? ''));
 
 /**
