@@ -52,8 +52,7 @@ export async function batchInsert(
 ): Promise<void> {
   if (rows.length === 0) return;
   const columns = columnsOf(model).filter((c) => rows.some((r) => r[c.attribute] !== undefined));
-  const byAttribute = new Map(columnsOf(model).map((c) => [c.attribute, c]));
-  const updates = updateOnDuplicate.map((a) => byAttribute.get(a)).filter((c): c is Column => !!c && columns.includes(c));
+  const updates = columns.filter((c) => updateOnDuplicate.includes(c.attribute));
   const sql = `INSERT INTO ${quote(model.getTableName() as string)} (${columns.map((c) => quote(c.field)).join(', ')}) VALUES (${columns.map(() => '?').join(', ')})`
     + (updates.length ? ` ON DUPLICATE KEY UPDATE ${updates.map((c) => `${quote(c.field)} = VALUES(${quote(c.field)})`).join(', ')}` : '');
   await connectionOf(transaction).batch(sql, rows.map((r) => columns.map((c) => cell(c, r[c.attribute]))));

@@ -1,9 +1,9 @@
 // A photo the server refuses (a 4xx) is not silently retried for ever: the sync bar says so, the sync
 // page gives the server's reason, the bytes stay on the phone, and "Try again now" sends it once the
 // server takes it (here the refusal is staged by the test in front of the real server).
-import { expect, request as apiRequest, test } from '@playwright/test';
+import { expect, test } from '@playwright/test';
 import { query } from './support/db';
-import { newVisit, phoneState, pressSync, waitForHooks } from './support/phone';
+import { coordinatorApi, newVisit, phoneState, pressSync, waitForHooks } from './support/phone';
 import { gpsJpeg } from './support/photos';
 import { signInAs, waitForWorker } from './support/sign-in';
 
@@ -13,10 +13,7 @@ const REASON = 'That file is not a photo this server can read.';
 
 test('a refused photo shows the reason, stays on the phone, and goes up when tried again', async ({ browser }) => {
   const baseURL = test.info().project.use.baseURL ?? '';
-  const desk = await browser.newContext({ baseURL });
-  await signInAs(await desk.newPage(), 'maren@wenlow-water.test', /\/office$/);
-  const office = await apiRequest.newContext({ baseURL, storageState: await desk.storageState() });
-  await desk.close();
+  const office = await coordinatorApi(browser, baseURL);
   const [tobias] = await query<{ id: string }>("SELECT id FROM users WHERE email = 'tobias@wenlow-water.test'");
   const visitId = await newVisit(office, tobias?.id ?? '', 'Refused-photo farm');
   await office.dispose();

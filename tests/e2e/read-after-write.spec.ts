@@ -3,36 +3,22 @@
 // replica held back (STOP SLAVE SQL_THREAD), a coordinator plans a visit through the API; the visit's
 // office page (a server component) shows it to a request carrying the fallbook-wrote cookie the save
 // set, and is a 404 to one without it (read from the replica, which has not applied the write yet).
-import { spawn, type ChildProcess } from 'node:child_process';
 import { randomUUID } from 'node:crypto';
 import path from 'node:path';
 import { expect, test } from '@playwright/test';
-import { encode } from 'next-auth/jwt';
 import { copyDatabaseInto, createAppDatabase, startReplicaPair, type ReplicaPair } from '../support/replica-pair';
 import { query } from './support/db';
+import { OwnServer } from './support/own-server';
+import { demoSession } from './support/session';
 
 const db = { host: '127.0.0.1', port: Number(process.env.DB_PORT), user: process.env.DB_USER as string, password: process.env.DB_PASSWORD as string, name: process.env.DB_NAME as string };
 const port = Number(process.env.PORT || 3100) + 1001;
 const base = `http://127.0.0.1:${port}`;
 let pair: ReplicaPair | undefined;
-let server: ChildProcess | undefined;
+let server: OwnServer | undefined;
 let session = '';
 let farmId = '';
 let advisorId = '';
-
-async function waitForHealth(url: string, timeoutMs = 60_000) {
-  const started = Date.now();
-  while (Date.now() - started < timeoutMs) {
-    if (server?.exitCode !== null) throw new Error(`the app server exited with ${server?.exitCode}`);
-    try {
-      if ((await fetch(url)).ok) return;
-    } catch {
-      // not listening yet
-    }
-    await new Promise((r) => setTimeout(r, 250));
-  }
-  throw new Error(`${url} did not answer in ${timeoutMs / 1000} s`);
-}
 
 test.beforeAll(async () => {
   test.setTimeout(120_000);
@@ -40,31 +26,18 @@ test.beforeAll(async () => {
   await createAppDatabase(pair, db);
   copyDatabaseInto(pair, db);
   await pair.catchUp();
-  const [maren] = await query<{ id: string; role: 'coordinator'; organisation_id: string; session_version: number; name: string; email: string }>(
-    "SELECT id, role, organisation_id, session_version, name, email FROM users WHERE email = 'maren@wenlow-water.test'");
-  if (!maren) throw new Error('the demo coordinator is missing');
-  const [farm] = await query<{ id: string }>('SELECT id FROM farms WHERE organisation_id = ? AND deleted_at IS NULL ORDER BY name LIMIT 1', [maren.organisation_id]);
-  const [advisor] = await query<{ id: string }>("SELECT id FROM users WHERE organisation_id = ? AND role = 'advisor' AND active = 1 ORDER BY email LIMIT 1", [maren.organisation_id]);
+  const maren = await demoSession('maren@wenlow-water.test');
+  session = maren.cookie;
+  const [farm] = await query<{ id: string }>('SELECT id FROM farms WHERE organisation_id = ? AND deleted_at IS NULL ORDER BY name LIMIT 1', [maren.user.organisation_id]);
+  const [advisor] = await query<{ id: string }>("SELECT id FROM users WHERE organisation_id = ? AND role = 'advisor' AND active = 1 ORDER BY email LIMIT 1", [maren.user.organisation_id]);
   farmId = farm?.id ?? '';
   advisorId = advisor?.id ?? '';
-  const token = await encode({ secret: process.env.NEXTAUTH_SECRET ?? '', token: {
-    uid: maren.id, role: maren.role, organisationId: maren.organisation_id, sessionVersion: maren.session_version, email: maren.email, name: maren.name,
-  } });
-  session = `next-auth.session-token=${token}`;
-  server = spawn(process.execPath, ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(port)], {
-    env: { ...process.env, NODE_ENV: 'production', PORT: String(port), NEXTAUTH_URL: base, DB_HOST: '127.0.0.1',
-      DB_PORT: String(pair.primary.port), DB_READ_HOSTS: `127.0.0.1:${pair.replica.port}` },
-    stdio: ['ignore', 'inherit', 'inherit'],
-  });
-  await waitForHealth(`${base}/api/health`);
+  server = new OwnServer(port, { DB_HOST: '127.0.0.1', DB_PORT: String(pair.primary.port), DB_READ_HOSTS: `127.0.0.1:${pair.replica.port}` });
+  await server.start();
 });
 
 test.afterAll(async () => {
-  if (server && server.exitCode === null) {
-    const exited = new Promise((r) => server?.once('exit', r));
-    server.kill('SIGTERM');
-    await exited;
-  }
+  await server?.stop();
   await pair?.stop();
 });
 

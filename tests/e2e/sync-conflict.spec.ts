@@ -1,9 +1,9 @@
 // Two phones of one advisor edit the same field of the same visit with no signal, then sync: the
 // first wins, the second is told (the sync bar, then the mine/theirs screen), nothing is silently
 // overwritten; the advisor keeps theirs knowingly through the screen and MariaDB ends with it.
-import { expect, request as apiRequest, test, type BrowserContext, type Page } from '@playwright/test';
+import { expect, test, type BrowserContext, type Page } from '@playwright/test';
 import { query } from './support/db';
-import { newVisit, phoneState, pressSync, syncUntilDone, waitForHooks } from './support/phone';
+import { coordinatorApi, newVisit, phoneState, pressSync, syncUntilDone, waitForHooks } from './support/phone';
 import { signInAs, waitForWorker } from './support/sign-in';
 
 test.setTimeout(180_000);
@@ -30,10 +30,7 @@ const deliveryM = async (visitId: string) =>
 
 test('two phones edit the same pipe length offline: the second sees a conflict and decides', async ({ browser }) => {
   const baseURL = test.info().project.use.baseURL ?? '';
-  const desk = await browser.newContext({ baseURL });
-  await signInAs(await desk.newPage(), 'maren@wenlow-water.test', /\/office$/);
-  const office = await apiRequest.newContext({ baseURL, storageState: await desk.storageState() });
-  await desk.close();
+  const office = await coordinatorApi(browser, baseURL);
   const [ines] = await query<{ id: string }>("SELECT id FROM users WHERE email = 'ines@wenlow-water.test'");
   const visitId = await newVisit(office, ines?.id ?? '', 'Two-phone farm');
   await office.dispose();

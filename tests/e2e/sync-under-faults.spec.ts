@@ -10,7 +10,7 @@ import { expect, request as apiRequest, test, type APIRequestContext, type Brows
 import { query, revisionLockHeld } from './support/db';
 import { countRequest, loseAnswer, newCounts, randomFaults, SYNC_URLS } from './support/faults';
 import { OwnServer } from './support/own-server';
-import { assertExactlyOnce, captureOffline, newVisit, phoneState, pressSync, syncUntilDone } from './support/phone';
+import { assertExactlyOnce, captureOffline, coordinatorApi, newVisit, phoneState, pressSync, syncUntilDone } from './support/phone';
 import { signInAs, waitForWorker } from './support/sign-in';
 
 test.describe.configure({ mode: 'serial' });
@@ -33,10 +33,7 @@ test.beforeAll(async ({ browser }) => {
   await server.start();
   const [ines] = await query<{ id: string }>("SELECT id FROM users WHERE email = 'ines@wenlow-water.test'");
   advisorId = ines?.id ?? '';
-  const desk = await browser.newContext({ baseURL: server.url });
-  await signInAs(await desk.newPage(), 'maren@wenlow-water.test', /\/office$/);
-  office = await apiRequest.newContext({ baseURL: server.url, storageState: await desk.storageState() });
-  await desk.close();
+  office = await coordinatorApi(browser, server.url);
   // One phone for the whole day: signed in once, its worker installed, then used for every fault.
   phone = await browser.newContext({ baseURL: server.url });
   page = await phone.newPage();

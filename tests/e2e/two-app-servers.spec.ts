@@ -1,60 +1,35 @@
 // Stateless app servers: a second `next start` beside Playwright's, on the same database and photo
 // store; a phone syncing alternately (and twice at once) through both loses and doubles nothing.
-import { spawn, type ChildProcess } from 'node:child_process';
 import { createHash, randomUUID } from 'node:crypto';
 import { expect, request as httpRequest, test, type APIRequestContext } from '@playwright/test';
-import { encode } from 'next-auth/jwt';
 import sharp from 'sharp';
 import { query } from './support/db';
+import { OwnServer } from './support/own-server';
+import { demoSession } from './support/session';
 
 const portA = Number(process.env.PORT || 3100);
 const portB = portA + 1000;
-let serverB: ChildProcess | undefined;
+let serverB: OwnServer | undefined;
 let a: APIRequestContext;
 let b: APIRequestContext;
 let visitId = '';
 
-async function waitForHealth(url: string, timeoutMs = 60_000) {
-  const started = Date.now();
-  while (Date.now() - started < timeoutMs) {
-    if (serverB?.exitCode !== null) throw new Error(`the second server exited with ${serverB?.exitCode}`);
-    try {
-      if ((await fetch(url)).ok) return;
-    } catch {
-      // not listening yet
-    }
-    await new Promise((r) => setTimeout(r, 250));
-  }
-  throw new Error(`${url} did not answer in ${timeoutMs / 1000} s`);
-}
-
 test.beforeAll(async () => {
   test.setTimeout(90_000);
-  serverB = spawn(process.execPath, ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(portB)], {
-    env: { ...process.env, NODE_ENV: 'production', PORT: String(portB) }, stdio: ['ignore', 'inherit', 'inherit'],
-  });
-  await waitForHealth(`http://127.0.0.1:${portB}/api/health`);
-  const [ines] = await query<{ id: string; role: 'advisor' | 'coordinator' | 'farmer'; organisation_id: string; session_version: number; name: string; email: string }>(
-    "SELECT id, role, organisation_id, session_version, name, email FROM users WHERE email = 'ines@wenlow-water.test'");
-  if (!ines) throw new Error('the demo advisor is missing');
-  const token = await encode({ secret: process.env.NEXTAUTH_SECRET ?? '', token: {
-    uid: ines.id, role: ines.role, organisationId: ines.organisation_id, sessionVersion: ines.session_version, email: ines.email, name: ines.name,
-  } });
-  const headers = { cookie: `next-auth.session-token=${token}` };
+  serverB = new OwnServer(portB);
+  await serverB.start();
+  const ines = await demoSession('ines@wenlow-water.test');
+  const headers = { cookie: ines.cookie };
   a = await httpRequest.newContext({ baseURL: `http://127.0.0.1:${portA}`, extraHTTPHeaders: headers });
   b = await httpRequest.newContext({ baseURL: `http://127.0.0.1:${portB}`, extraHTTPHeaders: headers });
-  const [visit] = await query<{ id: string }>("SELECT id FROM visits WHERE advisor_id = ? AND deleted_at IS NULL AND status IN ('scheduled', 'surveyed') ORDER BY planned_on LIMIT 1", [ines.id]);
+  const [visit] = await query<{ id: string }>("SELECT id FROM visits WHERE advisor_id = ? AND deleted_at IS NULL AND status IN ('scheduled', 'surveyed') ORDER BY planned_on LIMIT 1", [ines.user.id]);
   visitId = visit?.id ?? '';
 });
 
 test.afterAll(async () => {
   await a?.dispose();
   await b?.dispose();
-  if (serverB && serverB.exitCode === null) {
-    const exited = new Promise((r) => serverB?.once('exit', r));
-    serverB.kill('SIGTERM');
-    await exited;
-  }
+  await serverB?.stop();
 });
 
 type Pull = { cursor: number; hasMore: boolean; records: { point: { id: string }[] } };

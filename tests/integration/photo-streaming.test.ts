@@ -12,13 +12,14 @@ import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { GET as getOriginal, PUT as putPhoto } from '@/app/api/photos/[id]/route';
 import { GET as getThumbnail } from '@/app/api/photos/[id]/thumbnail/route';
-import { AuditEntry, Photo } from '@/lib/server/db';
+import { Photo } from '@/lib/server/db';
 import { getPhotoStorage, s3SettingsFromEnv, setPhotoStorage, uploadStagingDir, type BlobStorage } from '@/lib/server/storage';
 import { localFolderStorage } from '@/lib/server/storage/local-folder';
 import { s3Storage } from '@/lib/server/storage/s3';
 import { MAX_PHOTO_BYTES } from '@/lib/shared/schemas/sync';
 import { makeOrganisation, params, request, sessionCookie, type TestUser } from './support/fixtures';
 import { presignedUrlIsValid } from './support/sigv4';
+import { expectNoPhotoStored } from './support/photos';
 import { push, putOp } from './support/sync';
 
 const sha = (data: Buffer) => createHash('sha256').update(data).digest('hex');
@@ -75,12 +76,7 @@ async function putStream(id: string, body: ReadableStream<Uint8Array> | Buffer, 
   return { status: res.status, json: await res.json() };
 }
 
-async function expectNothingStored(id: string) {
-  const row = await Photo.findByPk(id, { rejectOnEmpty: true });
-  expect([row.storageKey, row.uploadedAt]).toEqual([null, null]);
-  expect(await getPhotoStorage().get(`photos/${org.visit.id}/${id}.jpg`)).toBeNull();
-  expect(await AuditEntry.count({ where: { entityId: id, action: 'uploaded' } })).toBe(0);
-}
+const expectNothingStored = (id: string) => expectNoPhotoStored(id, org.visit.id);
 
 const stagedFiles = async () => (await readdir(uploadStagingDir()).catch(() => [] as string[])).filter((f) => f.endsWith('.upload'));
 

@@ -6,9 +6,9 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { GET as getOriginal, PUT as putPhoto } from '@/app/api/photos/[id]/route';
 import { GET as getThumbnail } from '@/app/api/photos/[id]/thumbnail/route';
 import { AuditEntry, Photo } from '@/lib/server/db';
-import { getPhotoStorage } from '@/lib/server/storage';
 import { MAX_PHOTO_BYTES } from '@/lib/shared/schemas/sync';
 import { makeOrganisation, params, request, sessionCookie, type TestUser } from './support/fixtures';
+import { expectNoPhotoStored } from './support/photos';
 import { push, putOp } from './support/sync';
 
 type Org = Awaited<ReturnType<typeof makeOrganisation>>;
@@ -46,12 +46,7 @@ async function upload(id: string, body: Buffer, user: TestUser = org.advisor) {
   return { status: res.status, json: await res.json() };
 }
 
-async function expectNothingStored(id: string) {
-  const row = await Photo.findByPk(id, { rejectOnEmpty: true });
-  expect([row.storageKey, row.uploadedAt]).toEqual([null, null]);
-  expect(await getPhotoStorage().get(`photos/${org.visit.id}/${id}.jpg`)).toBeNull();
-  expect(await AuditEntry.count({ where: { entityId: id, action: 'uploaded' } })).toBe(0);
-}
+const expectNothingStored = (id: string) => expectNoPhotoStored(id, org.visit.id);
 
 describe('PUT /api/photos/:id', () => {
   it('stores the original and an upright thumbnail ≤ 480 px with no GPS; a second PUT changes nothing', async () => {

@@ -6,10 +6,9 @@ import fc from 'fast-check';
 import sharp from 'sharp';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { PUT as putPhoto } from '@/app/api/photos/[id]/route';
-import { AuditEntry, Photo } from '@/lib/server/db';
-import { getPhotoStorage } from '@/lib/server/storage';
 import { makeOrganisation, params } from './support/fixtures';
 import { rawPut, sha256 } from './support/route-table';
+import { expectNoPhotoStored } from './support/photos';
 import { push, putOp } from './support/sync';
 
 type Org = Awaited<ReturnType<typeof makeOrganisation>>;
@@ -33,10 +32,7 @@ async function uploadAsPhoto(bytes: Buffer, mime = 'image/jpeg') {
 }
 
 async function expectNothingStored(id: string) {
-  const row = await Photo.findByPk(id, { rejectOnEmpty: true });
-  expect([row.storageKey, row.uploadedAt]).toEqual([null, null]);
-  for (const ext of ['jpg', 'png', 'webp']) expect(await getPhotoStorage().get(`photos/${org.visit.id}/${id}.${ext}`)).toBeNull();
-  expect(await AuditEntry.count({ where: { entityId: id, action: 'uploaded' } })).toBe(0);
+  await expectNoPhotoStored(id, org.visit.id);
   refused += 1;
 }
 

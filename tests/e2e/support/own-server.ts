@@ -6,14 +6,15 @@ export class OwnServer {
   private child: ChildProcess | undefined;
   readonly url: string;
 
-  constructor(readonly port: number) {
+  /** `env` adds to (or overrides) the test profile's environment, e.g. DB_READ_HOSTS. */
+  constructor(readonly port: number, private readonly env: Record<string, string> = {}) {
     this.url = `http://127.0.0.1:${port}`;
   }
 
   /** Starts `next start` and waits until /api/health answers. */
   async start(timeoutMs = 60_000): Promise<void> {
     const child = spawn(process.execPath, ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(this.port)], {
-      env: { ...process.env, NODE_ENV: 'production', PORT: String(this.port), NEXTAUTH_URL: this.url },
+      env: { ...process.env, NODE_ENV: 'production', PORT: String(this.port), NEXTAUTH_URL: this.url, ...this.env },
       stdio: ['ignore', 'inherit', 'inherit'],
     });
     this.child = child;

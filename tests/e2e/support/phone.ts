@@ -4,11 +4,12 @@
 import { createHash, randomUUID } from 'node:crypto';
 import { readFile } from 'node:fs/promises';
 import path from 'node:path';
-import { expect, type APIRequestContext, type Page } from '@playwright/test';
+import { expect, request as apiRequest, type APIRequestContext, type Browser, type Page } from '@playwright/test';
 import sharp from 'sharp';
 import type { FallbookTestHooks } from '../../../lib/client/test-hooks';
 import { mulberry32 } from '../../../lib/engine/random';
 import { query } from './db';
+import { signInAs } from './sign-in';
 
 export const SOURCES = 90;
 export const POINTS = 90;
@@ -18,6 +19,15 @@ export interface Captured { visitId: string; sources: string[]; points: string[]
 
 // Inside page.evaluate (which runs in the page, so no closures): `(window as unknown as Hooked).__fallbookTest`.
 type Hooked = { __fallbookTest: FallbookTestHooks };
+
+/** The coordinator (Maren) signed in through the sign-in page, as an API context for planning visits. */
+export async function coordinatorApi(browser: Browser, baseURL: string): Promise<APIRequestContext> {
+  const desk = await browser.newContext({ baseURL });
+  await signInAs(await desk.newPage(), 'maren@wenlow-water.test', /\/office$/);
+  const office = await apiRequest.newContext({ baseURL, storageState: await desk.storageState() });
+  await desk.close();
+  return office;
+}
 
 /** A coordinator plans a new visit for the advisor on a new farm; returns the visit id. */
 export async function newVisit(office: APIRequestContext, advisorId: string, name: string): Promise<string> {

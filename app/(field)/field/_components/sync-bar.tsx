@@ -21,11 +21,18 @@ export function SyncBar() {
   const state = useLiveQuery(async () => {
     const db = fieldDb();
     const outbox = await db.outbox.toArray();
+    // One pass over the photo queue, entry by entry (each carries its bytes): what waits, what was refused.
+    let photos = 0;
+    let refusedPhotos = 0;
+    await db.photoBlobs.filter((b) => b.uploadedAt === null).each((b) => {
+      photos += 1;
+      if (b.lastError) refusedPhotos += 1;
+    });
     return {
       waiting: outbox.filter((e) => e.status === 'pending').length,
       parked: outbox.filter((e) => e.status !== 'pending').length,
-      photos: await db.photoBlobs.filter((b) => b.uploadedAt === null).count(),
-      refusedPhotos: await db.photoBlobs.filter((b) => b.uploadedAt === null && !!b.lastError).count(),
+      photos,
+      refusedPhotos,
       lastSuccess: await getMeta<string>('lastSuccess'),
       lastRun: await getMeta<SyncRecord>('lastRun'),
       paused: (await getMeta<boolean>('authPaused')) ?? false,
