@@ -4,11 +4,12 @@ import type { Model, ModelStatic, Transaction } from 'sequelize';
 // every value into one SQL string) cost more than the database's own work. These go through the
 // transaction's own connection as one prepared statement executed in bulk (the connector's batch).
 
-interface Column { attribute: string; field: string; json: boolean; date: boolean }
+export interface Column { attribute: string; field: string; json: boolean; date: boolean }
 
 const columnCache = new WeakMap<ModelStatic<Model>, Column[]>();
 
-function columnsOf(model: ModelStatic<Model>): Column[] {
+/** The model's stored columns (attribute, column name, JSON or date-time), read once per model. */
+export function columnsOf(model: ModelStatic<Model>): Column[] {
   const cached = columnCache.get(model);
   if (cached) return cached;
   const columns = Object.entries(model.getAttributes())
@@ -32,15 +33,20 @@ function cell(column: Column, value: unknown): unknown {
   return value;
 }
 
-interface BatchConnection { batch(sql: string, values: unknown[][]): Promise<unknown> }
+/** The transaction's own connection (the mariadb connector's): statements go out in call order. */
+export interface TxConnection {
+  query<T = unknown>(sql: string, values?: unknown[]): Promise<T>;
+  batch(sql: string, values: unknown[][]): Promise<unknown>;
+}
 
-function connectionOf(transaction: Transaction): BatchConnection {
-  const connection = (transaction as unknown as { connection?: BatchConnection }).connection;
-  if (!connection || typeof connection.batch !== 'function') throw new Error('batchInsert needs a transaction on a mariadb connection');
+/** The connection a transaction runs on; only mariadb connections carry `batch`. */
+export function txConnection(transaction: Transaction): TxConnection {
+  const connection = (transaction as unknown as { connection?: TxConnection }).connection;
+  if (!connection || typeof connection.batch !== 'function') throw new Error('this needs a transaction on a mariadb connection');
   return connection;
 }
 
-const quote = (name: string) => `\`${name.replace(/`/g, '``')}\``;
+export const quote = (name: string) => `\`${name.replace(/`/g, '``')}\``;
 
 /**
  * Inserts plain rows (attribute names as keys) into the model's table in one bulk statement;
@@ -55,5 +61,5 @@ export async function batchInsert(
   const updates = columns.filter((c) => updateOnDuplicate.includes(c.attribute));
   const sql = `INSERT INTO ${quote(model.getTableName() as string)} (${columns.map((c) => quote(c.field)).join(', ')}) VALUES (${columns.map(() => '?').join(', ')})`
     + (updates.length ? ` ON DUPLICATE KEY UPDATE ${updates.map((c) => `${quote(c.field)} = VALUES(${quote(c.field)})`).join(', ')}` : '');
-  await connectionOf(transaction).batch(sql, rows.map((r) => columns.map((c) => cell(c, r[c.attribute]))));
+  await txConnection(transaction).batch(sql, rows.map((r) => columns.map((c) => cell(c, r[c.attribute]))));
 }

@@ -1,7 +1,8 @@
 import { FIELD_VISIT_STATUSES } from '@/lib/shared/domain';
-import { QueryTypes, type Model, type ModelStatic, type Sequelize, type Transaction } from 'sequelize';
+import { type Model, type ModelStatic, type Sequelize, type Transaction } from 'sequelize';
 import { AuditEntry } from './audit-entry';
-import { batchInsert } from './batch-insert';
+import { batchInsert, txConnection } from './batch-insert';
+import { buildRow, PlainRow, selectRows } from './plain-rows';
 import { Commissioning } from './commissioning';
 import { DemandLine } from './demand-line';
 import { FallReading } from './fall-reading';
@@ -27,7 +28,7 @@ export {
   Screening, SignInAttempt, SyncOp, User, Visit, WaterSource,
 };
 export { Commissioning, FarmNeed, SheetResponse, SheetSend };
-export { batchInsert };
+export { batchInsert, buildRow, PlainRow, selectRows, txConnection };
 export type { OrganisationSettings } from './organisation';
 
 /** Models whose rows sync with the phone: each save takes a fresh revision. */
@@ -37,8 +38,8 @@ export const syncedModels = [Farm, Visit, WaterSource, FlowMeasurement, FallRead
  * Next server revision (the pull cursor). Takes the counter row's lock until the caller's
  * transaction commits, so revisions become visible in order; hence a transaction is required.
  */
-export async function nextRev(sequelize: Sequelize, transaction?: Transaction | null): Promise<number> {
-  return (await reserveRevs(sequelize, transaction, 1)).first;
+export async function nextRev(transaction?: Transaction | null): Promise<number> {
+  return (await reserveRevs(transaction, 1)).first;
 }
 
 /** A block of revisions reserved by one transaction: first … last, handed out in order by `take`. */
@@ -54,12 +55,12 @@ export interface RevBlock {
  * to the commit, like nextRev). Bulk writers of synced rows (writeSyncedRows) may only store
  * revisions reserved this way by their own transaction.
  */
-export async function reserveRevs(sequelize: Sequelize, transaction: Transaction | null | undefined, count: number): Promise<RevBlock> {
+export async function reserveRevs(transaction: Transaction | null | undefined, count: number): Promise<RevBlock> {
   if (!transaction) throw new Error('Synced records must be saved inside a transaction (see DEVELOPERS.md).');
   if (!Number.isInteger(count) || count < 1) throw new Error(`reserveRevs needs a positive count, not ${count}`);
   // LAST_INSERT_ID is per connection: keep one transaction's two statements from interleaving.
   const previous = revLocks.get(transaction) ?? Promise.resolve(0);
-  const next = previous.catch(() => 0).then(() => takeRevs(sequelize, transaction, count));
+  const next = previous.catch(() => 0).then(() => takeRevs(transaction, count));
   revLocks.set(transaction, next);
   const last = await next;
   const first = last - count + 1;
@@ -78,15 +79,17 @@ export async function reserveRevs(sequelize: Sequelize, transaction: Transaction
 const revLocks = new WeakMap<Transaction, Promise<number>>();
 const reserved = new WeakMap<Transaction, [number, number][]>();
 
-async function takeRevs(sequelize: Sequelize, transaction: Transaction, count: number): Promise<number> {
-  await sequelize.query('UPDATE rev_counter SET value = LAST_INSERT_ID(value + ?) WHERE id = 1', { replacements: [count], transaction });
-  const [row] = await sequelize.query<{ rev: number | bigint }>('SELECT LAST_INSERT_ID() AS rev', {
-    type: QueryTypes.SELECT,
-    transaction,
-  });
-  if (!row) throw new Error('rev_counter returned nothing');
-  return Number(row.rev);
+// The statement's own answer carries the value LAST_INSERT_ID(expr) set (the OK packet's insert
+// id, as mysql_insert_id() reports it): one round trip under the lock instead of two.
+async function takeRevs(transaction: Transaction, count: number): Promise<number> {
+  const ok = await txConnection(transaction).query<{ insertId?: number | bigint }>('UPDATE rev_counter SET value = LAST_INSERT_ID(value + ?) WHERE id = 1', [count]);
+  const top = Number(ok.insertId);
+  if (!Number.isSafeInteger(top) || top < count) throw new Error(`rev_counter answered ${String(ok.insertId)}`);
+  return top;
 }
+
+/** A model instance or a plain row: what the bulk writer reads values from. */
+type RowValues = { get(key: string): unknown; get(options: { plain: true }): unknown };
 
 /**
  * The bulk path for synced rows (the push): new rows in one multi-row INSERT (a duplicate id
@@ -95,7 +98,7 @@ async function takeRevs(sequelize: Sequelize, transaction: Transaction, count: n
  * block this transaction reserved (so the counter lock is held until the commit).
  */
 export async function writeSyncedRows(
-  model: ModelStatic<Model>, rows: { created: Model[]; updated: Model[] }, fields: string[], transaction: Transaction,
+  model: ModelStatic<Model>, rows: { created: RowValues[]; updated: RowValues[] }, fields: string[], transaction: Transaction,
 ): Promise<void> {
   if (!syncedModels.includes(model as never)) throw new Error(`${model.name} is not a synced model`);
   const blocks = reserved.get(transaction) ?? [];
@@ -106,21 +109,23 @@ export async function writeSyncedRows(
     }
   }
   const now = new Date();
-  const values = (list: Model[], created: boolean) => list.map((row) => {
+  const values = (list: RowValues[], created: boolean) => list.map((row) => {
     const plain = row.get({ plain: true }) as Record<string, unknown>;
     return { ...plain, ...(created ? { createdAt: now } : {}), updatedAt: now };
   });
   // A duplicate id among the new rows fails the insert (the batch retries into a conflict).
-  await batchInsert(model, values(rows.created, true), transaction);
-  await batchInsert(model, values(rows.updated, false), transaction, [...new Set([...fields, 'rev', 'deletedAt', 'updatedAt'])]);
+  await Promise.all([
+    batchInsert(model, values(rows.created, true), transaction),
+    batchInsert(model, values(rows.updated, false), transaction, [...new Set([...fields, 'rev', 'deletedAt', 'updatedAt'])]),
+  ]);
 }
 
 function addRevisionHooks(sequelize: Sequelize, model: ModelStatic<Model>) {
   model.addHook('beforeSave', async (instance: Model, options: { transaction?: Transaction | null }) => {
-    instance.set('rev', await nextRev(sequelize, options.transaction));
+    instance.set('rev', await nextRev(options.transaction));
   });
   model.addHook('beforeBulkCreate', async (instances: Model[], options: { transaction?: Transaction | null }) => {
-    for (const instance of instances) instance.set('rev', await nextRev(sequelize, options.transaction));
+    for (const instance of instances) instance.set('rev', await nextRev(options.transaction));
   });
   model.addHook('beforeBulkUpdate', () => {
     throw new Error(`Update ${model.name} rows one by one (instance.update) so each takes a revision.`);

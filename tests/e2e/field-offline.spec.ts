@@ -130,8 +130,9 @@ test('capture a site walk offline, reopen offline, sync once online', async ({ b
   // 900 ft typed on the phone arrives as 274.32 m (1 ft = 0.3048 m exactly).
   const [delivery] = await query<{ lengthM: number }>("SELECT length_m AS lengthM FROM pipe_runs WHERE visit_id = ? AND purpose = 'delivery'", [visitId]);
   expect(delivery?.lengthM).toBeCloseTo(274.32, 6);
-  const screenings = await query<{ verdict: string }>('SELECT verdict FROM screenings WHERE visit_id = ?', [visitId]);
-  expect(screenings.length).toBeGreaterThanOrEqual(1);
+  // The server screens the visit just after answering the push.
+  await expect.poll(async () => (await query<{ n: number }>('SELECT COUNT(*) AS n FROM screenings WHERE visit_id = ?', [visitId]))[0]?.n, { timeout: 15_000 })
+    .toBeGreaterThanOrEqual(1);
 
   // A reload in the middle of a sync loses nothing and doubles nothing.
   await context.setOffline(true);

@@ -53,10 +53,10 @@ describe('server revisions of synced records', () => {
   it('a reserved block is consecutive, handed out in order, and later revisions come after it', async () => {
     const sequelize = getSequelize();
     const { block, taken, after } = await sequelize.transaction(async (transaction) => {
-      const block = await reserveRevs(sequelize, transaction, 4);
+      const block = await reserveRevs(transaction, 4);
       const taken = [block.take(), block.take(), block.take(), block.take()];
       expect(() => block.take()).toThrow(/used up/);
-      return { block, taken, after: await nextRev(sequelize, transaction) };
+      return { block, taken, after: await nextRev(transaction) };
     });
     expect(block.last - block.first).toBe(3);
     expect(taken).toEqual([block.first, block.first + 1, block.first + 2, block.first + 3]);
@@ -68,13 +68,13 @@ describe('server revisions of synced records', () => {
     const sequelize = getSequelize();
     const farm = (rev: number) => Farm.build({ id: randomUUID(), organisationId: org.organisationId, ownerId: null, name: 'bulk', area: '', lat: null, lon: null, notes: '', rev });
     await expect(sequelize.transaction(async (transaction) => {
-      const block = await reserveRevs(sequelize, transaction, 1);
+      const block = await reserveRevs(transaction, 1);
       await writeSyncedRows(Farm, { created: [farm(block.last + 1000)], updated: [] }, [], transaction);
     })).rejects.toThrow(/not reserved/);
     await expect(sequelize.transaction((transaction) => writeSyncedRows(Farm, { created: [farm(1)], updated: [] }, [], transaction)))
       .rejects.toThrow(/not reserved/);
     const written = await sequelize.transaction(async (transaction) => {
-      const block = await reserveRevs(sequelize, transaction, 1);
+      const block = await reserveRevs(transaction, 1);
       const row = farm(block.take());
       await writeSyncedRows(Farm, { created: [row], updated: [] }, [], transaction);
       return row;

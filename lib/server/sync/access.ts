@@ -1,6 +1,6 @@
 import 'server-only';
 import { Op, type Transaction } from 'sequelize';
-import { Farm, Visit } from '@/lib/server/db';
+import { Farm, Visit, txConnection } from '@/lib/server/db';
 import { authorize, type SessionUser } from '../auth/permissions';
 import { notFound } from '../errors';
 
@@ -31,6 +31,25 @@ export class SyncAccess {
         : null);
     }
     return this.visits.get(id) ?? null;
+  }
+
+  /**
+   * Reads the facts of these visits in one statement on the transaction's connection (sent at once,
+   * so it can go out together with the batch's other first reads); later checks answer from them.
+   */
+  async preloadVisits(ids: string[]): Promise<void> {
+    const wanted = ids.filter((id) => !this.visits.has(id));
+    if (wanted.length === 0) return;
+    const rows = await txConnection(this.transaction).query<{ id: string; organisationId: string; farmId: string; advisorId: string | null; status: string }[]>(
+      'SELECT id, organisation_id AS organisationId, farm_id AS farmId, advisor_id AS advisorId, status FROM visits WHERE id IN (?) AND deleted_at IS NULL', [wanted],
+    );
+    for (const id of wanted) this.visits.set(id, null);
+    for (const row of rows) this.visits.set(row.id, { id: row.id, organisationId: row.organisationId, farmId: row.farmId, advisorId: row.advisorId, status: row.status });
+  }
+
+  /** The visit's status as this batch knows it (read at its start, kept current by noteStatus). */
+  knownStatus(id: string): string | null {
+    return this.visits.get(id)?.status ?? null;
   }
 
   /** Keeps the batch's view of a visit's status current after the push changed it. */

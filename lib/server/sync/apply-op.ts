@@ -1,4 +1,5 @@
 import 'server-only';
+import { buildRow } from '@/lib/server/db';
 import { VISIT_STATUSES } from '@/lib/shared/domain';
 import { entityFields, type OpResult, type SyncOp } from '@/lib/shared/schemas/sync';
 import type { AuditInput } from '../audit';
@@ -111,7 +112,7 @@ export async function planOp(op: SyncOp, access: SyncAccess, rows: Map<string, R
       return done(rejected(op, 422, `A new ${op.entity} must carry every field.`, fieldErrors));
     }
     const now = new Date();
-    const built = spec.model.build({ id: op.entityId, ...spec.toRow(parsed.data as Json), createdById: access.user.id, createdAt: now, updatedAt: now }) as SyncedRow;
+    const built = buildRow(spec.model, { id: op.entityId, ...spec.toRow(parsed.data as Json), createdById: access.user.id, createdAt: now, updatedAt: now });
     const created: RowState = { spec, row: built, isNew: true, touched: new Set(), dirty: true };
     rows.set(key, created);
     return done(applied(), created, 'created', parsed.data as Json);

@@ -6,8 +6,18 @@ import {
 import type { SyncEntity } from '@/lib/shared/schemas/sync';
 
 type Json = Record<string, unknown>;
-/** A synced row seen through its attributes (every synced model has these). */
-export type SyncedRow = Model & { id: string; rev: number; deletedAt: Date | null; updatedAt: Date } & Json;
+/**
+ * A synced row seen through its attributes (every synced model has these): a model instance
+ * (visits, saved through their hooks) or a plain row (the push's and pull's other tables).
+ */
+export interface SyncedRow {
+  id: string;
+  rev: number;
+  deletedAt: Date | null;
+  updatedAt: Date;
+  get(key: string): unknown;
+  set(key: string | Json, value?: unknown): void;
+}
 
 const asObject = (value: unknown): Json => (value && typeof value === 'object' && !Array.isArray(value) ? (value as Json) : {});
 const iso = (value: unknown) => (value instanceof Date ? value.toISOString() : value == null ? null : String(value));

@@ -1,10 +1,10 @@
 import 'server-only';
-import { Op, QueryTypes, Transaction, UniqueConstraintError } from 'sequelize';
-import { SyncOp as SyncOpRow, Visit, batchInsert, getSequelize, reserveRevs, writeSyncedRows } from '@/lib/server/db';
+import { Op, Transaction, UniqueConstraintError } from 'sequelize';
+import { SyncOp as SyncOpRow, Visit, batchInsert, getSequelize, reserveRevs, selectRows, txConnection, writeSyncedRows, type PlainRow } from '@/lib/server/db';
 import type { OpResult, SyncEntity, SyncOp } from '@/lib/shared/schemas/sync';
 import { recordAudit, recordAudits } from '../audit';
 import type { SessionUser } from '../auth/permissions';
-import { screenVisit } from '../services/screening';
+import { screenSoon } from '../services/screening-queue';
 import { SyncAccess } from './access';
 import { applyCommissioningOp } from './apply-commissioning';
 import { planOp, type OpEffect, type OpPlan, type RowState } from './apply-op';
@@ -17,6 +17,17 @@ function replayOf(opId: string, stored: unknown): OpResult {
   return { ...(stored as OpResult), opId, status: 'replayed' };
 }
 
+/** The visits a batch's ops name (as the record, or as a new record's parent): read once up front. */
+function namedVisits(ops: SyncOp[]): string[] {
+  const ids = new Set<string>();
+  for (const op of ops) {
+    if (op.entity === 'visit') ids.add(op.entityId);
+    const visitId = (op.changes as { visitId?: unknown } | undefined)?.visitId;
+    if (typeof visitId === 'string') ids.add(visitId);
+  }
+  return [...ids];
+}
+
 const noEffect = (result: OpResult): OpEffect => ({ result, visitId: null, farmId: null });
 
 /**
@@ -27,8 +38,8 @@ const noEffect = (result: OpResult): OpEffect => ({ result, visitId: null, farmI
  */
 async function knownOps(ops: SyncOp[], user: SessionUser, transaction: Transaction) {
   const ids = [...new Set(ops.map((op) => op.opId))];
-  const rows = await getSequelize().query<{ op_id: string; user_id: string; outcome: unknown }>(
-    'SELECT op_id, user_id, outcome FROM sync_ops WHERE op_id IN (?)', { replacements: [ids], type: QueryTypes.SELECT, transaction },
+  const rows = await txConnection(transaction).query<{ op_id: string; user_id: string; outcome: unknown }[]>(
+    'SELECT op_id, user_id, outcome FROM sync_ops WHERE op_id IN (?)', [ids],
   );
   const stored = new Map<string, OpResult>();
   for (const row of rows) {
@@ -38,16 +49,28 @@ async function knownOps(ops: SyncOp[], user: SessionUser, transaction: Transacti
   return { fresh: new Set(ids.filter((id) => !stored.has(id))), stored };
 }
 
-/** The batch's existing rows, one locking SELECT per entity table; keyed "entity:id". */
+/**
+ * The batch's existing rows, one locking SELECT per entity table, all sent at once (in table order,
+ * before any other statement started after this call); keyed "entity:id". Visits become model
+ * instances (saved through their hooks), the other tables stay plain rows (bulk written).
+ */
 async function loadRows(ops: SyncOp[], transaction: Transaction): Promise<Map<string, RowState>> {
   const byEntity = new Map<SyncEntity, Set<string>>();
   // Commissioning checks are create-only records applied on their own (runCommissioning), not planned rows.
   for (const op of ops) if (op.entity !== 'commissioning') byEntity.set(op.entity, (byEntity.get(op.entity) ?? new Set()).add(op.entityId));
-  const rows = new Map<string, RowState>();
-  for (const [entity, ids] of byEntity) {
+  const tables = [...byEntity].sort(([a], [b]) => (a < b ? -1 : 1)).map(([entity, ids]) => {
     const spec = ENTITY_SPECS[entity];
-    const found = (await spec.model.findAll({ where: { id: [...ids].sort() }, transaction, lock: transaction.LOCK.UPDATE })) as SyncedRow[];
-    for (const row of found) rows.set(`${entity}:${row.id}`, { spec, row, isNew: false, touched: new Set(), dirty: false });
+    const found = selectRows(getSequelize(), spec.model, { where: 'id IN (?)', replacements: [[...ids].sort()], transaction, lock: true });
+    return { entity, spec, found };
+  });
+  const rows = new Map<string, RowState>();
+  for (const { entity, spec, found } of tables) {
+    for (const plain of await found) {
+      const row: SyncedRow = entity === 'visit'
+        ? Visit.build(plain.values as never, { isNewRecord: false, raw: true }) as unknown as SyncedRow
+        : plain;
+      rows.set(`${entity}:${row.id}`, { spec, row, isNew: false, touched: new Set(), dirty: false });
+    }
   }
   return rows;
 }
@@ -58,9 +81,8 @@ async function loadRows(ops: SyncOp[], transaction: Transaction): Promise<Map<st
  * then the applied ops' outcomes.
  */
 async function writePlans(plans: OpPlan[], ops: SyncOp[], fresh: Set<string>, userId: string, transaction: Transaction) {
-  const sequelize = getSequelize();
   const writing = plans.filter((p) => p.writes && p.state && p.state.spec !== ENTITY_SPECS.visit).length;
-  const block = writing > 0 ? await reserveRevs(sequelize, transaction, writing) : null;
+  const block = writing > 0 ? await reserveRevs(transaction, writing) : null;
   const states = new Set<RowState>();
   for (const plan of plans) {
     const { conflict } = plan.result;
@@ -71,7 +93,7 @@ async function writePlans(plans: OpPlan[], ops: SyncOp[], fresh: Set<string>, us
     }
     if (plan.result.status !== 'applied' || !plan.state) continue;
     const { state } = plan;
-    if (plan.writes && state.spec === ENTITY_SPECS.visit) await state.row.save({ transaction });
+    if (plan.writes && state.spec === ENTITY_SPECS.visit) await (state.row as unknown as Visit).save({ transaction });
     else if (plan.writes && block) {
       state.row.set('rev', block.take());
       states.add(state);
@@ -80,10 +102,11 @@ async function writePlans(plans: OpPlan[], ops: SyncOp[], fresh: Set<string>, us
   }
   const bySpec = new Map<EntitySpec, RowState[]>();
   for (const state of states) bySpec.set(state.spec, [...(bySpec.get(state.spec) ?? []), state]);
-  for (const [spec, list] of bySpec) {
+  const writes = [...bySpec].map(([spec, list]) => {
     const fields = [...new Set(list.flatMap((s) => [...s.touched]))];
-    await writeSyncedRows(spec.model, { created: list.filter((s) => s.isNew).map((s) => s.row), updated: list.filter((s) => !s.isNew).map((s) => s.row) }, fields, transaction);
-  }
+    const rowsOf = (isNew: boolean) => list.filter((s) => s.isNew === isNew).map((s) => s.row as unknown as PlainRow);
+    return writeSyncedRows(spec.model, { created: rowsOf(true), updated: rowsOf(false) }, fields, transaction);
+  });
 
   // The first applied op of an id stores the outcome; ops that did not apply leave no row.
   const outcomes = new Map<string, [SyncOp, OpResult]>();
@@ -92,8 +115,9 @@ async function writePlans(plans: OpPlan[], ops: SyncOp[], fresh: Set<string>, us
     if (op && fresh.has(op.opId) && plan.result.status === 'applied' && !outcomes.has(op.opId)) outcomes.set(op.opId, [op, plan.result]);
   });
   const createdAt = new Date();
-  await batchInsert(SyncOpRow, [...outcomes.values()].map(([op, outcome]) => (
-    { opId: op.opId, userId, entity: op.entity, entityId: op.entityId, outcome, createdAt })), transaction);
+  // Sent together on the transaction's connection: the database works through them back to back.
+  await Promise.all([...writes, batchInsert(SyncOpRow, [...outcomes.values()].map(([op, outcome]) => (
+    { opId: op.opId, userId, entity: op.entity, entityId: op.entityId, outcome, createdAt })), transaction)]);
 }
 
 // Thrown inside a commissioning op's savepoint so a refusal changes nothing.
@@ -155,18 +179,17 @@ async function visitsToScreen(effects: OpEffect[], transaction: Transaction): Pr
 
 /**
  * Before the writes (no revision needed): marks the touched visits synced now, and returns those
- * still booked ('scheduled') that got readings, which move to 'surveyed' after the writes.
+ * still booked ('scheduled', as read at the start of the batch) that got readings, which move to
+ * 'surveyed' after the writes (markSurveyed checks the status again under the row's lock).
  */
-async function touchVisits(effects: OpEffect[], ops: SyncOp[], transaction: Transaction): Promise<string[]> {
+function touchVisits(effects: OpEffect[], ops: SyncOp[], access: SyncAccess, transaction: Transaction): { touched: Promise<unknown>; booked: string[] } {
   const applied = effects.map((e, i) => ({ e, op: ops[i] })).filter(({ e }) => e.result.status === 'applied' && e.visitId);
   const visitIds = [...new Set(applied.map(({ e }) => e.visitId as string))];
-  if (visitIds.length === 0) return [];
+  if (visitIds.length === 0) return { touched: Promise.resolve(), booked: [] };
   // Server bookkeeping the phone never pulls: a plain UPDATE, so the visit keeps its revision.
-  await getSequelize().query('UPDATE visits SET last_synced_at = NOW() WHERE id IN (?)', { replacements: [visitIds], transaction, type: QueryTypes.UPDATE });
-  const withReadings = [...new Set(applied.filter(({ op }) => op && VISIT_CHILDREN.has(op.entity) && op.action === 'put').map(({ e }) => e.visitId as string))];
-  if (withReadings.length === 0) return [];
-  const booked = await Visit.findAll({ attributes: ['id'], where: { id: { [Op.in]: withReadings }, status: 'scheduled' }, transaction });
-  return booked.map((v) => v.id);
+  const touched = txConnection(transaction).query('UPDATE visits SET last_synced_at = NOW() WHERE id IN (?)', [visitIds]);
+  const withReadings = new Set(applied.filter(({ op }) => op && VISIT_CHILDREN.has(op.entity) && op.action === 'put').map(({ e }) => e.visitId as string));
+  return { touched, booked: [...withReadings].filter((id) => access.knownStatus(id) === 'scheduled') };
 }
 
 /** After the writes: booked visits that got readings move to 'surveyed' (a saved change, so a revision). */
@@ -191,7 +214,7 @@ const isRetryable = (error: unknown) => error instanceof UniqueConstraintError |
  * Applies a push batch in order, set-based, in one transaction (read committed, so it sees what
  * other pushes committed): read the stored op ids, load the rows, plan every op in memory, then take the
  * revision counter's lock only for the writes (DEVELOPERS.md, "Server revisions"). Returns one
- * result per op; screens touched visits after the commit.
+ * result per op; queues the touched visits for screening after the answer.
  */
 export async function pushOps(user: SessionUser, ops: SyncOp[]): Promise<OpResult[]> {
   const sequelize = getSequelize();
@@ -202,14 +225,16 @@ export async function pushOps(user: SessionUser, ops: SyncOp[]): Promise<OpResul
         { isolationLevel: Transaction.ISOLATION_LEVELS.READ_COMMITTED },
         async (transaction) => {
           const access = new SyncAccess(user, transaction);
-          // Rows first, then the stored op ids: a push of the same ops that commits in between is then
-          // seen in sync_ops (its rows and outcomes commit together), so it is never mistaken for a conflict.
-          const rows = await loadRows(ops, transaction);
-          const { fresh, stored } = await knownOps(ops, user, transaction);
+          // Sent at once, in this order: rows first, then the stored op ids, so a push of the same ops
+          // that commits in between is seen in sync_ops (its rows and outcomes commit together) and is
+          // never mistaken for a conflict; then the visits the ops name, for the access checks.
+          const [rows, { fresh, stored }] = await Promise.all([
+            loadRows(ops, transaction), knownOps(ops, user, transaction), access.preloadVisits(namedVisits(ops)),
+          ]);
           const plans = await planBatch(ops, access, fresh, stored, rows, transaction);
           // Everything that needs no revision first, so the counter's lock is held only for the writes.
-          await recordAudits(plans.flatMap((p) => (p.result.status === 'applied' && p.audit ? [p.audit] : [])), transaction);
-          const booked = await touchVisits(plans, ops, transaction);
+          const { touched, booked } = touchVisits(plans, ops, access, transaction);
+          await Promise.all([touched, recordAudits(plans.flatMap((p) => (p.result.status === 'applied' && p.audit ? [p.audit] : [])), transaction)]);
           const screen = await visitsToScreen(plans, transaction);
           await writePlans(plans, ops, fresh, user.id, transaction);
           await markSurveyed(booked, access, transaction);
@@ -218,14 +243,7 @@ export async function pushOps(user: SessionUser, ops: SyncOp[]): Promise<OpResul
           return { effects, screen };
         },
       );
-      for (const visitId of screen) {
-        try {
-          await sequelize.transaction((transaction) => screenVisit(visitId, user.id, transaction));
-        } catch (error) {
-          // The ops are committed; a failed screening is logged and retried on the next push.
-          console.error('[fallbook] screening after sync failed', visitId, error);
-        }
-      }
+      screenSoon(screen, user.id);
       return effects.map((e) => e.result);
     } catch (error) {
       if (attempt >= MAX_ATTEMPTS || !isRetryable(error)) throw error;

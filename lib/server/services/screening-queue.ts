@@ -1,0 +1,20 @@
+import 'server-only';
+import { getSequelize } from '@/lib/server/db';
+import { screenVisit } from './screening';
+import { visitQueue } from './visit-queue';
+
+// Screening after a push is the office's bookkeeping, not the phone's answer: it runs after the
+// push has answered, one visit at a time, so a burst of pushes is not slowed by it, and a visit
+// pushed again before its turn is screened once, from the readings stored by then. A restart
+// drops the queue: those visits are screened on their next push (their readings are safe).
+const queue = visitQueue(
+  (visitId, actorId) => getSequelize().transaction((transaction) => screenVisit(visitId, actorId, transaction)),
+  // The readings are committed; a failed screening is logged and retried on the next push.
+  (visitId, error) => console.error('[fallbook] screening after sync failed', visitId, error),
+);
+
+/** Queues the visits for screening after the current request. */
+export const screenSoon = (visitIds: string[], actorId: string | null) => queue.add(visitIds, actorId);
+
+/** Resolves once every queued screening has run (tests wait on it). */
+export const screeningsSettled = () => queue.settled();

@@ -1,0 +1,97 @@
+import { QueryTypes, type Model, type ModelStatic, type Sequelize, type Transaction } from 'sequelize';
+import { columnsOf, quote, txConnection } from './batch-insert';
+
+// The sync routes read and build hundreds of rows per request only to copy values in and out:
+// Sequelize instances (setters, change tracking, date parsing per value) cost more than the
+// database's own work. These rows keep the instance's get/set shape over a plain object.
+
+type Values = Record<string, unknown>;
+
+/** A row without a model instance: attribute-keyed values with get/set like an instance's. */
+export class PlainRow {
+  constructor(readonly values: Values) {}
+
+  get(key?: string | { plain: true }): unknown {
+    return typeof key === 'string' ? this.values[key] : { ...this.values };
+  }
+
+  set(key: string | Values, value?: unknown): void {
+    if (typeof key === 'string') this.values[key] = value;
+    else Object.assign(this.values, key);
+  }
+
+  get id(): string { return this.values.id as string; }
+  get rev(): number { return Number(this.values.rev); }
+  get deletedAt(): Date | null { return (this.values.deletedAt as Date | null | undefined) ?? null; }
+  get updatedAt(): Date { return this.values.updatedAt as Date; }
+}
+
+const staticDefaults = new WeakMap<ModelStatic<Model>, Values>();
+
+/** The model's plain default values (a generated default, such as a UUID, is left to the caller). */
+function defaultsOf(model: ModelStatic<Model>): Values {
+  let defaults = staticDefaults.get(model);
+  if (!defaults) {
+    defaults = {};
+    for (const [attribute, a] of Object.entries(model.getAttributes())) {
+      const value = a.defaultValue;
+      if (value === undefined || typeof value === 'function' || (value !== null && typeof value === 'object')) continue;
+      defaults[attribute] = value;
+    }
+    staticDefaults.set(model, defaults);
+  }
+  return defaults;
+}
+
+/** A new row with the model's defaults under the given values (what `model.build` would hold). */
+export function buildRow(model: ModelStatic<Model>, values: Values): PlainRow {
+  // Copied key by key in the values' order (one object shape for every row of a batch: fast).
+  const row: Values = {};
+  for (const key in values) if (values[key] !== undefined) row[key] = values[key];
+  const defaults = defaultsOf(model);
+  for (const key in defaults) if (row[key] === undefined) row[key] = defaults[key];
+  return new PlainRow(row);
+}
+
+const selectLists = new WeakMap<ModelStatic<Model>, string>();
+
+function selectList(model: ModelStatic<Model>): string {
+  let list = selectLists.get(model);
+  if (!list) {
+    list = columnsOf(model).map((c) => (c.field === c.attribute ? quote(c.field) : `${quote(c.field)} AS ${quote(c.attribute)}`)).join(', ');
+    selectLists.set(model, list);
+  }
+  return list;
+}
+
+export interface SelectRowsOptions {
+  /** SQL after WHERE (with ? placeholders), e.g. "visit_id IN (?) AND rev > ? ORDER BY rev LIMIT ?". */
+  where: string;
+  replacements: unknown[];
+  /** Inside a transaction the statement goes out on its connection at once (in call order). */
+  transaction?: Transaction;
+  /** SELECT … FOR UPDATE (inside the transaction). */
+  lock?: boolean;
+}
+
+/**
+ * The model's rows matching `where`, as plain rows: every stored column under its attribute name,
+ * JSON columns parsed, date-times as Dates (the connection's own type casting), numbers as numbers.
+ * Outside a transaction it goes through sequelize.query, so read routing (primary or replica) is
+ * the same as for findAll; inside one, straight on the transaction's connection, so statements
+ * started together go out in the order they were started.
+ */
+export async function selectRows(sequelize: Sequelize, model: ModelStatic<Model>, options: SelectRowsOptions): Promise<PlainRow[]> {
+  const sql = `SELECT ${selectList(model)} FROM ${quote(model.getTableName() as string)} WHERE ${options.where}${options.lock ? ' FOR UPDATE' : ''}`;
+  const rows = options.transaction
+    ? [...await txConnection(options.transaction).query<Values[]>(sql, options.replacements)]
+    : await sequelize.query<Values>(sql, { type: QueryTypes.SELECT, raw: true, replacements: options.replacements });
+  const json = columnsOf(model).filter((c) => c.json).map((c) => c.attribute);
+  return rows.map((row) => {
+    for (const key of json) {
+      const value = row[key];
+      if (typeof value === 'string') row[key] = JSON.parse(value);
+    }
+    return new PlainRow(row);
+  });
+}
