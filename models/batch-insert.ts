@@ -23,7 +23,17 @@ export function columnsOf(model: ModelStatic<Model>): Column[] {
 }
 
 // The app's connections run in UTC (timezone '+00:00'): write DATETIMEs the way Sequelize does.
-const sqlDate = (d: Date) => d.toISOString().replace('T', ' ').replace('Z', '');
+// A batch's rows share their timestamps: the last instant's text is kept for the next cell.
+let lastTime = NaN;
+let lastText = '';
+function sqlDate(d: Date): string {
+  const time = d.getTime();
+  if (time !== lastTime) {
+    lastTime = time;
+    lastText = d.toISOString().replace('T', ' ').replace('Z', '');
+  }
+  return lastText;
+}
 
 function cell(column: Column, value: unknown): unknown {
   if (value === undefined || value === null) return null;

@@ -1,6 +1,6 @@
 import 'server-only';
-import { Op, type WhereOptions } from 'sequelize';
-import { DemandLine, Farm, Organisation, User, Visit } from '@/lib/server/db';
+import { Op } from 'sequelize';
+import { DemandLine, Farm, getSequelize, Organisation, selectRows, User, Visit, type PlainRow } from '@/lib/server/db';
 import type { PulledEntity, PullResponse } from '@/lib/shared/schemas/sync';
 import type { SessionUser } from '../auth/permissions';
 import { ENTITY_SPECS, pulledRecord, type SyncedRow } from '../sync/entities';
@@ -15,10 +15,10 @@ const VISIT_CHILDREN = ['waterSource', 'flowMeasurement', 'fallReading', 'point'
  * The visits a phone holds. Advisors: every visit assigned to them. Coordinators: their
  * organisation's visits that are in the field (booked or walked), not the whole archive.
  */
-function visibleVisitsWhere(user: SessionUser): WhereOptions {
-  const base = { organisationId: user.organisationId, deletedAt: null };
-  if (user.role === 'advisor') return { ...base, advisorId: user.id };
-  return { ...base, status: { [Op.in]: ['scheduled', 'surveyed'] } };
+function visibleVisits(user: SessionUser): Promise<PlainRow[]> {
+  const base = 'organisation_id = ? AND deleted_at IS NULL';
+  if (user.role === 'advisor') return selectRows(getSequelize(), Visit, { where: `${base} AND advisor_id = ? ORDER BY rev`, replacements: [user.organisationId, user.id] });
+  return selectRows(getSequelize(), Visit, { where: `${base} AND status IN ('scheduled', 'surveyed') ORDER BY rev`, replacements: [user.organisationId] });
 }
 
 const byRev = (a: Change, b: Change) => a.rev - b.rev;
@@ -32,32 +32,38 @@ const asChanges = (kind: Kind, rows: unknown[], exposedAt: (row: SyncedRow) => n
  * Records of visits that appeared after the cursor count at the revision the visit appeared at,
  * all of them whatever their own revision, so the phone gets the visit whole, once.
  */
-async function candidates(cursor: number, limit: number, visible: Visit[]): Promise<Change[]> {
-  const exposedVisit = new Map(visible.filter((v) => Number(v.exposedRev) > cursor).map((v) => [v.id, Number(v.exposedRev)]));
+async function candidates(cursor: number, limit: number, visible: PlainRow[]): Promise<Change[]> {
+  const exposedAt = (v: PlainRow) => Number(v.get('exposedRev'));
+  const exposedVisit = new Map(visible.filter((v) => exposedAt(v) > cursor).map((v) => [v.id, exposedAt(v)]));
   const farmExposure = new Map<string, number>();
-  for (const v of visible) farmExposure.set(v.farmId, Math.min(farmExposure.get(v.farmId) ?? Infinity, Number(v.exposedRev)));
+  for (const v of visible) {
+    const farmId = String(v.get('farmId'));
+    farmExposure.set(farmId, Math.min(farmExposure.get(farmId) ?? Infinity, exposedAt(v)));
+  }
   const settledVisits = visible.filter((v) => !exposedVisit.has(v.id)).map((v) => v.id);
   const exposedVisits = [...exposedVisit.keys()];
   const settledFarms = [...farmExposure].filter(([, rev]) => rev <= cursor).map(([id]) => id);
   const exposedFarms = [...farmExposure].filter(([, rev]) => rev > cursor).map(([id]) => id);
 
-  const after = { rev: { [Op.gt]: cursor } };
-  const page = { order: [['rev', 'ASC']] as [string, string][], limit: limit + 1 };
-  const none = Promise.resolve([]);
+  // Plain rows (no model instances): a page holds hundreds of records copied straight to JSON.
+  const sequelize = getSequelize();
+  const none = Promise.resolve([] as PlainRow[]);
+  const newer = (model: Parameters<typeof selectRows>[1], key: string, ids: string[]) => (ids.length
+    ? selectRows(sequelize, model, { where: `${key} IN (?) AND rev > ? ORDER BY rev LIMIT ?`, replacements: [ids, cursor, limit + 1] }) : none);
+  const every = (model: Parameters<typeof selectRows>[1], key: string, ids: string[]) => (ids.length
+    ? selectRows(sequelize, model, { where: `${key} IN (?)`, replacements: [ids] }) : none);
   const visitExposure = (row: SyncedRow) => exposedVisit.get(String(row.get('visitId'))) ?? 0;
   const farmExposed = (key: string) => (row: SyncedRow) => farmExposure.get(String(row.get(key))) ?? 0;
   const [farmsNew, farmsAll, demandNew, demandAll, childrenNew, childrenAll] = await Promise.all([
-    settledFarms.length ? Farm.findAll({ where: { id: { [Op.in]: settledFarms }, ...after }, ...page }) : none,
-    exposedFarms.length ? Farm.findAll({ where: { id: { [Op.in]: exposedFarms } } }) : none,
-    settledFarms.length ? DemandLine.findAll({ where: { farmId: { [Op.in]: settledFarms }, ...after }, ...page }) : none,
-    exposedFarms.length ? DemandLine.findAll({ where: { farmId: { [Op.in]: exposedFarms } } }) : none,
-    Promise.all(VISIT_CHILDREN.map((entity) => (settledVisits.length
-      ? ENTITY_SPECS[entity].model.findAll({ where: { visitId: { [Op.in]: settledVisits }, ...after }, ...page }) : none))),
-    Promise.all(VISIT_CHILDREN.map((entity) => (exposedVisits.length
-      ? ENTITY_SPECS[entity].model.findAll({ where: { visitId: { [Op.in]: exposedVisits } } }) : none))),
+    newer(Farm, 'id', settledFarms),
+    every(Farm, 'id', exposedFarms),
+    newer(DemandLine, 'farm_id', settledFarms),
+    every(DemandLine, 'farm_id', exposedFarms),
+    Promise.all(VISIT_CHILDREN.map((entity) => newer(ENTITY_SPECS[entity].model, 'visit_id', settledVisits))),
+    Promise.all(VISIT_CHILDREN.map((entity) => every(ENTITY_SPECS[entity].model, 'visit_id', exposedVisits))),
   ]);
   return [
-    ...asChanges('visit', visible.filter((v) => Number(v.rev) > cursor)),
+    ...asChanges('visit', visible.filter((v) => v.rev > cursor)),
     ...asChanges('farm', farmsNew), ...asChanges('farm', farmsAll, farmExposed('id')),
     ...asChanges('demandLine', demandNew), ...asChanges('demandLine', demandAll, farmExposed('farmId')),
     ...childrenNew.flatMap((rows, i) => asChanges(VISIT_CHILDREN[i] as ChildEntity, rows)),
@@ -77,7 +83,7 @@ function cutPage(all: Change[], limit: number): Change[] {
  * visit that appeared after the cursor comes whole in one page, even past the limit).
  */
 export async function pullChanges(user: SessionUser, { cursor, limit }: { cursor: number; limit: number }): Promise<PullResponse> {
-  const visible = await Visit.findAll({ where: visibleVisitsWhere(user), order: [['rev', 'ASC']] });
+  const visible = await visibleVisits(user);
   const visitIds = visible.map((v) => v.id);
   const all = await candidates(cursor, limit, visible);
   const unique = cutPage(all, limit);
@@ -85,7 +91,7 @@ export async function pullChanges(user: SessionUser, { cursor, limit }: { cursor
   const nextCursor = unique.length > 0 ? (unique[unique.length - 1] as Change).rev : cursor;
 
   const owners = new Map<string, string>();
-  const ownerIds = [...new Set(unique.filter((c) => c.kind === 'farm').map((c) => (c.row as unknown as Farm).ownerId).filter((id): id is string => !!id))];
+  const ownerIds = [...new Set(unique.filter((c) => c.kind === 'farm').map((c) => c.row.get('ownerId')).filter((id): id is string => typeof id === 'string'))];
   if (ownerIds.length > 0) {
     for (const u of await User.findAll({ attributes: ['id', 'name'], where: { id: { [Op.in]: ownerIds } } })) owners.set(u.id, u.name);
   }
@@ -107,11 +113,11 @@ export async function pullChanges(user: SessionUser, { cursor, limit }: { cursor
   };
   for (const { kind, row } of unique) {
     if (kind === 'farm') {
-      const farm = row as unknown as Farm;
+      const farm = (row as PlainRow).values as unknown as Farm;
       response.farms.push({ id: farm.id, rev: Number(farm.rev), name: farm.name, area: farm.area, lat: farm.lat, lon: farm.lon,
         notes: farm.notes, ownerName: farm.ownerId ? owners.get(farm.ownerId) ?? null : null });
     } else if (kind === 'visit') {
-      const visit = row as unknown as Visit;
+      const visit = (row as PlainRow).values as unknown as Visit;
       response.visits.push({ ...(pulledRecord(ENTITY_SPECS.visit, row) as PullResponse['visits'][number]),
         farmId: visit.farmId, plannedOn: visit.plannedOn, advisorId: visit.advisorId });
     } else {

@@ -232,11 +232,14 @@ export async function pushOps(user: SessionUser, ops: SyncOp[]): Promise<OpResul
             loadRows(ops, transaction), knownOps(ops, user, transaction), access.preloadVisits(namedVisits(ops)),
           ]);
           const plans = await planBatch(ops, access, fresh, stored, rows, transaction);
-          // Everything that needs no revision first, so the counter's lock is held only for the writes.
+          // Everything that needs no revision goes out first, so the database has done it before it
+          // takes the counter's lock for the writes (statements run in the order sent); awaited with them.
           const { touched, booked } = touchVisits(plans, ops, access, transaction);
-          await Promise.all([touched, recordAudits(plans.flatMap((p) => (p.result.status === 'applied' && p.audit ? [p.audit] : [])), transaction)]);
+          const unlocked = Promise.all([touched, recordAudits(plans.flatMap((p) => (p.result.status === 'applied' && p.audit ? [p.audit] : [])), transaction)]);
+          unlocked.catch(() => undefined); // its failure is thrown below, not reported as unhandled
           const screen = await visitsToScreen(plans, transaction);
           await writePlans(plans, ops, fresh, user.id, transaction);
+          await unlocked;
           await markSurveyed(booked, access, transaction);
           for (const plan of plans) if (plan.replayOf) plan.result = replayOf(plan.result.opId, plan.replayOf.result);
           const effects: OpEffect[] = plans.map(({ result, visitId, farmId }) => ({ result, visitId, farmId }));

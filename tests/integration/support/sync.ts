@@ -2,7 +2,7 @@
 import { randomUUID } from 'node:crypto';
 import { GET as pullRoute } from '@/app/api/sync/pull/route';
 import { POST as pushRoute } from '@/app/api/sync/push/route';
-import { screeningsSettled } from '@/lib/server/services/screening-queue';
+import { flushScreenings } from '@/lib/server/services/screening-queue';
 import type { OpResult, PullResponse, SyncEntity, SyncOpInput } from '@/lib/shared/schemas/sync';
 import { params, request, type TestUser } from './fixtures';
 
@@ -18,11 +18,11 @@ export function deleteOp(entity: SyncEntity, entityId: string, baseRev: number, 
   return { opId: randomUUID(), entity, entityId, action: 'delete', baseRev, base, madeAt: new Date().toISOString() } as SyncOpInput;
 }
 
-/** POST /api/sync/push as the user; the status and the parsed body, once the screenings it queued have run. */
+/** POST /api/sync/push as the user; the status and the parsed body, once the screenings it queued have run (at once). */
 export async function push(user: TestUser, body: unknown) {
   const res = await pushRoute(await request('/api/sync/push', user, { method: 'POST', body }), params({}));
   const json = await res.json();
-  await screeningsSettled();
+  await flushScreenings();
   return { status: res.status, results: (json.results ?? []) as OpResult[], error: json.error as { message: string; fieldErrors?: Record<string, string[]> } | undefined };
 }
 
