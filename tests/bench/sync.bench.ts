@@ -1,7 +1,8 @@
 // Bench: sync throughput on loopback. (1) 1,000 new-point ops pushed over HTTP to the served app in
 // batches of 200, against the same rows (points, sync_ops, audit_log) inserted straight with the mariadb
 // connector in batches of 200: ops/s of both and the ratio, median of 7 runs (each run measures both).
-// (2) 50 devices at once, each pushing 50 ops and pulling, for a bounded number of rounds: p50/p99.
+// (2) 50 devices at once, each pushing 50 ops and pulling, for a bounded number of rounds: p50/p99;
+// beside it the framework's floor: the same 50 devices each asking GET /api/me at once.
 // Run with npm run bench (it serves the app and sets BENCH_APP_URL).
 import { randomUUID } from 'node:crypto';
 import * as mariadb from 'mariadb';
@@ -92,6 +93,23 @@ async function loadRun(devices: { user: TestUser; visitId: string }[]) {
   return { pushes, pulls, errors, wallMs, expected: clients.length * ROUNDS * 2 };
 }
 
+/**
+ * The framework's own floor for the same 50 devices: each asks GET /api/me at once (the session
+ * check and one read of the account, nothing else), twice per device like the load's two rounds.
+ */
+async function floorRun(devices: { user: TestUser }[]) {
+  const clients = await Promise.all(devices.map(async (d) => clientFor(d.user)));
+  const times: number[] = [];
+  let errors = 0;
+  for (let round = 0; round < ROUNDS; round++) {
+    await Promise.all(clients.map(async (client) => {
+      const res = await client.get('/api/me');
+      if (res.status === 200) times.push(res.ms); else errors++;
+    }));
+  }
+  return { times, errors };
+}
+
 async function main() {
   const conn = await mariadb.createConnection({
     host: process.env.DB_HOST, port: Number(process.env.DB_PORT), user: process.env.DB_USER,
@@ -129,7 +147,11 @@ async function main() {
     const orgs = await Promise.all(Array.from({ length: DEVICES / 2 }, (_, i) => makeOrganisation(`bench-load-${i}`)));
     const devices = orgs.flatMap((o) => [{ user: o.advisor, visitId: o.visit.id }, { user: o.otherAdvisor, visitId: o.otherVisit.id }]);
     const loads: Awaited<ReturnType<typeof loadRun>>[] = [];
-    for (let run = 0; run < RUNS; run++) loads.push(await loadRun(devices));
+    const floors: Awaited<ReturnType<typeof floorRun>>[] = [];
+    for (let run = 0; run < RUNS; run++) {
+      floors.push(await floorRun(devices));
+      loads.push(await loadRun(devices));
+    }
     const p = (key: 'pushes' | 'pulls', q: number) => round(median(loads.map((l) => quantile(l[key], q))));
     const errors = loads.reduce((a, l) => a + l.errors + (l.expected - l.pushes.length - l.pulls.length - l.errors), 0);
 
@@ -140,6 +162,9 @@ async function main() {
       { name: `${DEVICES} devices: push of ${DEVICE_OPS} ops`, samples: loads.map((l) => l.pushes.length).join(' / '), p50Ms: p('pushes', 0.5), p99Ms: p('pushes', 0.99) },
       { name: `${DEVICES} devices: pull`, samples: loads.map((l) => l.pulls.length).join(' / '), p50Ms: p('pulls', 0.5), p99Ms: p('pulls', 0.99) },
       { name: `${DEVICES} devices: errors`, errors, wallS: loads.map((l) => round(l.wallMs / 1000)).join(' / ') },
+      { name: `framework floor: ${DEVICES} devices GET /api/me at once`, samples: floors.map((f) => f.times.length).join(' / '),
+        p50Ms: round(median(floors.map((f) => quantile(f.times, 0.5)))), p99Ms: round(median(floors.map((f) => quantile(f.times, 0.99)))),
+        errors: floors.reduce((a, f) => a + f.errors, 0) },
     ];
     report('sync', rows, [
       budget('push route / raw insert rate', round(median(ratios), 3), '>=', round(1 / 3, 3)),
