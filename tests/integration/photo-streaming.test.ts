@@ -30,6 +30,9 @@ let folder: string;
 let jpeg: Buffer;
 
 beforeAll(async () => {
+  // The checks below count what is staged: start from an empty staging folder (the e2e fault runs
+  // kill servers mid-upload, which leaves staged files behind in the test profile's own folder).
+  await rm(uploadStagingDir(), { recursive: true, force: true });
   org = await makeOrganisation('stream');
   folder = await mkdtemp(path.join(tmpdir(), 'fallbook-stream-'));
   jpeg = await sharp({ create: { width: 1200, height: 900, channels: 3, background: '#7a6a4f' } }).jpeg({ quality: 90 }).toBuffer();
@@ -91,9 +94,12 @@ describe('photo uploads stream', () => {
     const hoursAgo = new Date(Date.now() - 2 * 3600_000);
     await utimes(stale, hoursAgo, hoursAgo);
     const id = await pushPhoto({ bytes: jpeg.length, sha256: sha(jpeg) });
-    expect((await putStream(id, Buffer.from('not a photo at all, just words'))).status).toBe(415);
-    await expect.poll(async () => (await stagedFiles()).sort()).toEqual([path.basename(recent)]);
-    await rm(recent);
+    try {
+      expect((await putStream(id, Buffer.from('not a photo at all, just words'))).status).toBe(415);
+      await expect.poll(async () => (await stagedFiles()).sort()).toEqual([path.basename(recent)]);
+    } finally {
+      await rm(recent, { force: true });
+    }
   });
 
   it('a body with no Content-Length is cut off at the cap: 413 before the rest is read, nothing stored or staged', async () => {

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
-import { Farm, nextRev, reserveRevs, writeSyncedRows, getSequelize } from '@/lib/server/db';
+import { Farm, nextRev, reserveRevs, txConnection, writeSyncedRows, getSequelize } from '@/lib/server/db';
 import { makeOrganisation } from './support/fixtures';
 
 describe('server revisions of synced records', () => {
@@ -48,6 +48,15 @@ describe('server revisions of synced records', () => {
     const [firstRev, secondRev] = await Promise.all([first, second]);
     expect(secondRev).toBeGreaterThan(firstRev);
     expect(secondTookRevAt).toBeGreaterThanOrEqual(firstCommittedAt);
+  });
+
+  it('every pooled connection reads committed, which the push relies on (it sets no level itself)', async () => {
+    // Three transactions at once hold three connections of the pool.
+    const levels = await Promise.all([1, 2, 3].map(() => getSequelize().transaction(async (transaction) => {
+      const [row] = await txConnection(transaction).query<{ level: string }[]>('SELECT @@tx_isolation AS level');
+      return row?.level;
+    })));
+    expect(levels).toEqual(['READ-COMMITTED', 'READ-COMMITTED', 'READ-COMMITTED']);
   });
 
   it('a reserved block is consecutive, handed out in order, and later revisions come after it', async () => {

@@ -40,7 +40,12 @@ export function createSequelize(overrides: Partial<DbEnv> = {}) {
     pool: { max: env.DB_POOL_MAX, min: 0, idle: 10_000 },
     // Keep instants in UTC regardless of the server's zone.
     timezone: '+00:00',
-    dialectOptions: { bigIntAsNumber: true, decimalAsNumber: true, insertIdAsNumber: true },
+    dialectOptions: {
+      bigIntAsNumber: true, decimalAsNumber: true, insertIdAsNumber: true,
+      // Every transaction reads what others committed before each statement (the sync push relies
+      // on it: DEVELOPERS.md, "The push writes in bulk"); set once per connection, not per transaction.
+      initSql: 'SET SESSION TRANSACTION ISOLATION LEVEL READ COMMITTED',
+    },
     define: { underscored: true },
   });
   if (env.DB_READ_HOSTS.trim()) routeReadsAfterWrites(sequelize, env.DB_READ_AFTER_WRITE_SECONDS);

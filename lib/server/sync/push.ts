@@ -221,8 +221,8 @@ export async function pushOps(user: SessionUser, ops: SyncOp[]): Promise<OpResul
   if (ops.length === 0) return [];
   for (let attempt = 1; ; attempt++) {
     try {
+      // Read committed: every connection's default (lib/server/db/connection.ts), so no statement here.
       const { effects, screen } = await sequelize.transaction(
-        { isolationLevel: Transaction.ISOLATION_LEVELS.READ_COMMITTED },
         async (transaction) => {
           const access = new SyncAccess(user, transaction);
           // Sent at once, in this order: rows first, then the stored op ids, so a push of the same ops
