@@ -4,9 +4,11 @@ import type { Model, ModelStatic, Transaction } from 'sequelize';
 // every value into one SQL string) cost more than the database's own work. These go through the
 // transaction's own connection as one prepared statement executed in bulk (the connector's batch).
 
-export interface Column { attribute: string; field: string; json: boolean; date: boolean }
+export interface Column { attribute: string; field: string; json: boolean; date: boolean; decimal: boolean }
 
 const columnCache = new WeakMap<ModelStatic<Model>, Column[]>();
+
+const FRACTIONAL = new Set(['DOUBLE PRECISION', 'DOUBLE', 'FLOAT', 'REAL', 'DECIMAL']);
 
 /** The model's stored columns (attribute, column name, JSON or date-time), read once per model. */
 export function columnsOf(model: ModelStatic<Model>): Column[] {
@@ -16,7 +18,7 @@ export function columnsOf(model: ModelStatic<Model>): Column[] {
     .filter(([, a]) => (a.type as { key?: string }).key !== 'VIRTUAL')
     .map(([attribute, a]) => {
       const key = (a.type as { key?: string }).key;
-      return { attribute, field: a.field ?? attribute, json: key === 'JSON', date: key === 'DATE' };
+      return { attribute, field: a.field ?? attribute, json: key === 'JSON', date: key === 'DATE', decimal: FRACTIONAL.has(key ?? '') };
     });
   columnCache.set(model, columns);
   return columns;
@@ -40,6 +42,10 @@ function cell(column: Column, value: unknown): unknown {
   if (column.json) return JSON.stringify(value);
   if (column.date && value instanceof Date) return sqlDate(value);
   if (column.date && typeof value === 'string' && /T.*Z$/.test(value)) return sqlDate(new Date(value));
+  // The connector binds a whole number as INT and any other as DOUBLE, and starts a new bulk packet
+  // (one more round trip) whenever a column's type changes from one row to the next: 230 then 230.5.
+  // As text (the shortest form that reads back to the same double) every row binds alike.
+  if (column.decimal && typeof value === 'number') return String(value);
   return value;
 }
 

@@ -56,7 +56,10 @@ async function rawRun(conn: mariadb.Connection, user: TestUser, visitId: string)
       'INSERT INTO points (id, visit_id, role, label, lat, lon, accuracy_m, altitude_m, altitude_accuracy_m, chainage_m, captured_at, rev, created_by_id, created_at, updated_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)',
       slice.map((op, k) => {
         const c = op.changes as Record<string, unknown>;
-        return [op.entityId, visitId, c.role, c.label, c.lat, c.lon, c.accuracyM, c.altitudeM, c.altitudeAccuracyM, c.chainageM, new Date(String(c.capturedAt)), top - slice.length + 1 + k, user.id, now, now];
+        // DOUBLE columns bound as text, as the app's bulk writer does, so each table is one bulk
+        // statement here too (a whole number among fractions would start another).
+        const d = (x: unknown) => String(x);
+        return [op.entityId, visitId, c.role, c.label, d(c.lat), d(c.lon), d(c.accuracyM), d(c.altitudeM), d(c.altitudeAccuracyM), d(c.chainageM), new Date(String(c.capturedAt)), top - slice.length + 1 + k, user.id, now, now];
       }),
     );
     await conn.batch('INSERT INTO audit_log (organisation_id, actor_id, entity, entity_id, visit_id, action, changes, created_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?)',
