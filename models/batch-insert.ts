@@ -55,11 +55,28 @@ export interface TxConnection {
   batch(sql: string, values: unknown[][]): Promise<unknown>;
 }
 
+type StatementObserver = (sql: string, values: unknown[] | undefined) => void;
+let observer: StatementObserver | null = null;
+
+/**
+ * Lets a test see every statement sent straight on a transaction's connection (Sequelize's own
+ * logging does not); returns the function that stops it.
+ */
+export function observeStatements(fn: StatementObserver): () => void {
+  observer = fn;
+  return () => { observer = null; };
+}
+
 /** The connection a transaction runs on; only mariadb connections carry `batch`. */
 export function txConnection(transaction: Transaction): TxConnection {
   const connection = (transaction as unknown as { connection?: TxConnection }).connection;
   if (!connection || typeof connection.batch !== 'function') throw new Error('this needs a transaction on a mariadb connection');
-  return connection;
+  if (!observer) return connection;
+  const seen = observer;
+  return {
+    query: (sql, values) => { seen(sql, values); return connection.query(sql, values); },
+    batch: (sql, values) => { seen(sql, values[0]); return connection.batch(sql, values); },
+  };
 }
 
 export const quote = (name: string) => `\`${name.replace(/`/g, '``')}\``;

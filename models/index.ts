@@ -1,7 +1,7 @@
 import { FIELD_VISIT_STATUSES } from '@/lib/shared/domain';
 import { type Model, type ModelStatic, type Sequelize, type Transaction } from 'sequelize';
 import { AuditEntry } from './audit-entry';
-import { batchInsert, txConnection } from './batch-insert';
+import { batchInsert, observeStatements, txConnection } from './batch-insert';
 import { buildRow, PlainRow, selectRows } from './plain-rows';
 import { Commissioning } from './commissioning';
 import { DemandLine } from './demand-line';
@@ -28,7 +28,7 @@ export {
   Screening, SignInAttempt, SyncOp, User, Visit, WaterSource,
 };
 export { Commissioning, FarmNeed, SheetResponse, SheetSend };
-export { batchInsert, buildRow, PlainRow, selectRows, txConnection };
+export { batchInsert, buildRow, observeStatements, PlainRow, selectRows, txConnection };
 export type { OrganisationSettings } from './organisation';
 
 /** Models whose rows sync with the phone: each save takes a fresh revision. */

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
 import { describe, expect, it } from 'vitest';
-import { Visit, getSequelize } from '@/lib/server/db';
+import { Visit, getSequelize, observeStatements } from '@/lib/server/db';
 import { makeOrganisation } from './support/fixtures';
 import { pull, pullAll, pulledIds, push, putOp, readingOps } from './support/sync';
 
@@ -90,10 +90,12 @@ describe('pull', () => {
   it('every query a push and a pull run has an index to use (EXPLAIN)', async () => {
     const o = await makeOrganisation('pull-explain');
     const sequelize = getSequelize();
-    const statements: string[] = [];
+    const statements: { sql: string; values?: unknown[] }[] = [];
     const options = (sequelize as unknown as { options: { logging: unknown } }).options;
     const logging = options.logging;
-    options.logging = (sql: string) => { statements.push(sql.replace(/^Executing \([^)]*\): /, '')); };
+    options.logging = (sql: string) => { statements.push({ sql: sql.replace(/^Executing \([^)]*\): /, '') }); };
+    // The push and the pull also send statements straight on their transaction's connection.
+    const stop = observeStatements((sql, values) => { statements.push({ sql, values }); });
     try {
       const { ops } = readingOps(o.visit.id, o.farm.id);
       await push(o.advisor, { ops });
@@ -101,12 +103,14 @@ describe('pull', () => {
       await pull(o.advisor, 1);
     } finally {
       options.logging = logging;
+      stop();
     }
     const tables = /\b(visits|farms|demand_lines|water_sources|flow_measurements|fall_readings|points|photos|pipe_runs|sync_ops)\b/;
-    const selects = [...new Set(statements.filter((s) => /^SELECT/i.test(s) && tables.test(s) && !/LAST_INSERT_ID/.test(s)))];
+    const selects = [...new Map(statements.filter(({ sql }) => /^SELECT/i.test(sql) && tables.test(sql) && !/LAST_INSERT_ID/.test(sql))
+      .map((s) => [`${s.sql} ${JSON.stringify(s.values ?? [])}`, s])).values()];
     expect(selects.length).toBeGreaterThan(10);
-    for (const sql of selects) {
-      const plan = await sequelize.query<{ table: string; type: string; possible_keys: string | null }>(`EXPLAIN ${sql}`, { type: QueryTypes.SELECT });
+    for (const { sql, values } of selects) {
+      const plan = await sequelize.query<{ table: string; type: string; possible_keys: string | null }>(`EXPLAIN ${sql}`, { type: QueryTypes.SELECT, replacements: values });
       for (const step of plan) {
         if (!tables.test(step.table ?? '') && !/^[A-Z]/.test(step.table ?? '')) continue;
         expect(step.possible_keys, `${sql}\n${JSON.stringify(step)}`).not.toBeNull();

@@ -1,6 +1,6 @@
 import 'server-only';
-import { Op } from 'sequelize';
-import { DemandLine, Farm, getSequelize, Organisation, selectRows, User, Visit, type PlainRow } from '@/lib/server/db';
+import type { Transaction } from 'sequelize';
+import { DemandLine, Farm, getSequelize, Organisation, selectRows, txConnection, Visit, type PlainRow } from '@/lib/server/db';
 import type { PulledEntity, PullResponse } from '@/lib/shared/schemas/sync';
 import type { SessionUser } from '../auth/permissions';
 import { ENTITY_SPECS, pulledRecord, type SyncedRow } from '../sync/entities';
@@ -15,10 +15,10 @@ const VISIT_CHILDREN = ['waterSource', 'flowMeasurement', 'fallReading', 'point'
  * The visits a phone holds. Advisors: every visit assigned to them. Coordinators: their
  * organisation's visits that are in the field (booked or walked), not the whole archive.
  */
-function visibleVisits(user: SessionUser): Promise<PlainRow[]> {
+function visibleVisits(user: SessionUser, transaction: Transaction): Promise<PlainRow[]> {
   const base = 'organisation_id = ? AND deleted_at IS NULL';
-  if (user.role === 'advisor') return selectRows(getSequelize(), Visit, { where: `${base} AND advisor_id = ? ORDER BY rev`, replacements: [user.organisationId, user.id] });
-  return selectRows(getSequelize(), Visit, { where: `${base} AND status IN ('scheduled', 'surveyed') ORDER BY rev`, replacements: [user.organisationId] });
+  if (user.role === 'advisor') return selectRows(getSequelize(), Visit, { where: `${base} AND advisor_id = ? ORDER BY rev`, replacements: [user.organisationId, user.id], transaction });
+  return selectRows(getSequelize(), Visit, { where: `${base} AND status IN ('scheduled', 'surveyed') ORDER BY rev`, replacements: [user.organisationId], transaction });
 }
 
 const byRev = (a: Change, b: Change) => a.rev - b.rev;
@@ -32,7 +32,7 @@ const asChanges = (kind: Kind, rows: unknown[], exposedAt: (row: SyncedRow) => n
  * Records of visits that appeared after the cursor count at the revision the visit appeared at,
  * all of them whatever their own revision, so the phone gets the visit whole, once.
  */
-async function candidates(cursor: number, limit: number, visible: PlainRow[]): Promise<Change[]> {
+async function candidates(cursor: number, limit: number, visible: PlainRow[], transaction: Transaction): Promise<Change[]> {
   const exposedAt = (v: PlainRow) => Number(v.get('exposedRev'));
   const exposedVisit = new Map(visible.filter((v) => exposedAt(v) > cursor).map((v) => [v.id, exposedAt(v)]));
   const farmExposure = new Map<string, number>();
@@ -45,13 +45,14 @@ async function candidates(cursor: number, limit: number, visible: PlainRow[]): P
   const settledFarms = [...farmExposure].filter(([, rev]) => rev <= cursor).map(([id]) => id);
   const exposedFarms = [...farmExposure].filter(([, rev]) => rev > cursor).map(([id]) => id);
 
-  // Plain rows (no model instances): a page holds hundreds of records copied straight to JSON.
+  // Plain rows (no model instances): a page holds hundreds of records copied straight to JSON. The
+  // statements go out together on the one connection (no pool connection per table).
   const sequelize = getSequelize();
   const none = Promise.resolve([] as PlainRow[]);
   const newer = (model: Parameters<typeof selectRows>[1], key: string, ids: string[]) => (ids.length
-    ? selectRows(sequelize, model, { where: `${key} IN (?) AND rev > ? ORDER BY rev LIMIT ?`, replacements: [ids, cursor, limit + 1] }) : none);
+    ? selectRows(sequelize, model, { where: `${key} IN (?) AND rev > ? ORDER BY rev LIMIT ?`, replacements: [ids, cursor, limit + 1], transaction }) : none);
   const every = (model: Parameters<typeof selectRows>[1], key: string, ids: string[]) => (ids.length
-    ? selectRows(sequelize, model, { where: `${key} IN (?)`, replacements: [ids] }) : none);
+    ? selectRows(sequelize, model, { where: `${key} IN (?)`, replacements: [ids], transaction }) : none);
   const visitExposure = (row: SyncedRow) => exposedVisit.get(String(row.get('visitId'))) ?? 0;
   const farmExposed = (key: string) => (row: SyncedRow) => farmExposure.get(String(row.get(key))) ?? 0;
   const [farmsNew, farmsAll, demandNew, demandAll, childrenNew, childrenAll] = await Promise.all([
@@ -83,19 +84,21 @@ function cutPage(all: Change[], limit: number): Change[] {
  * visit that appeared after the cursor comes whole in one page, even past the limit).
  */
 export async function pullChanges(user: SessionUser, { cursor, limit }: { cursor: number; limit: number }): Promise<PullResponse> {
-  const visible = await visibleVisits(user);
+  // One connection for the whole page (its reads pipelined on it), not one pool connection per table.
+  const { visible, all, owners, organisation } = await getSequelize().transaction(async (transaction) => {
+    const visible = await visibleVisits(user, transaction);
+    const all = await candidates(cursor, limit, visible, transaction);
+    const ownerIds = [...new Set(all.filter((c) => c.kind === 'farm').map((c) => c.row.get('ownerId')).filter((id): id is string => typeof id === 'string'))];
+    const [people, organisation] = await Promise.all([
+      ownerIds.length > 0 ? txConnection(transaction).query<{ id: string; name: string }[]>('SELECT id, name FROM users WHERE id IN (?)', [ownerIds]) : Promise.resolve([]),
+      Organisation.findByPk(user.organisationId, { rejectOnEmpty: true, transaction }),
+    ]);
+    return { visible, all, owners: new Map(people.map((u) => [u.id, u.name])), organisation };
+  });
   const visitIds = visible.map((v) => v.id);
-  const all = await candidates(cursor, limit, visible);
   const unique = cutPage(all, limit);
   const hasMore = unique.length < all.length;
   const nextCursor = unique.length > 0 ? (unique[unique.length - 1] as Change).rev : cursor;
-
-  const owners = new Map<string, string>();
-  const ownerIds = [...new Set(unique.filter((c) => c.kind === 'farm').map((c) => c.row.get('ownerId')).filter((id): id is string => typeof id === 'string'))];
-  if (ownerIds.length > 0) {
-    for (const u of await User.findAll({ attributes: ['id', 'name'], where: { id: { [Op.in]: ownerIds } } })) owners.set(u.id, u.name);
-  }
-  const organisation = await Organisation.findByPk(user.organisationId, { rejectOnEmpty: true });
 
   const records = Object.fromEntries([...VISIT_CHILDREN, 'demandLine'].map((k) => [k, [] as unknown[]])) as Record<ChildEntity, unknown[]>;
   const response: PullResponse = {
