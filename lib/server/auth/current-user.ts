@@ -14,7 +14,10 @@ import type { SessionUser } from './permissions';
  */
 async function loadUser(claims: Pick<JWT, 'uid' | 'sessionVersion'> | null | undefined): Promise<SessionUser | null> {
   if (!claims?.uid) return null;
-  const user = await User.findByPk(claims.uid);
+  // Only what a request needs (never the password hash), as a plain row: this runs on every request.
+  const user = await User.findByPk(claims.uid, {
+    attributes: ['id', 'organisationId', 'role', 'name', 'email', 'units', 'active', 'sessionVersion'], raw: true,
+  });
   if (!user || !user.active || user.sessionVersion !== claims.sessionVersion) return null;
   return {
     id: user.id,
