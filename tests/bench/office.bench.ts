@@ -4,53 +4,23 @@
 // the list, the export, the follow-up board and the district map run (each sort and each filter) is
 // EXPLAINed; a real scan of a big table fails the bench (see `scans` for how that is decided).
 // Run with npm run bench (it serves the app and sets BENCH_APP_URL).
-import { randomUUID } from 'node:crypto';
 import * as mariadb from 'mariadb';
 import { makeOrganisation } from '../integration/support/fixtures';
 import { clientFor, pool } from './support/http';
+import { EXPORT_ROWS, FARMS, seedOffice, VISITS } from './support/office-seed';
 import { budget, type Budget, median, quantile, report, round } from './support/report';
 import { closeSequelize, getSequelize } from '@/lib/server/db';
 import { districtSites } from '@/lib/server/data/district-map';
 import { districtAreas, visitCountsByAdvisor } from '@/lib/server/data/follow-up';
 import { visitsCsv } from '@/lib/server/data/visit-export';
 import { listVisits } from '@/lib/server/data/visits';
-import { VISIT_STATUSES, type SessionUser } from '@/lib/shared/domain';
+import type { SessionUser } from '@/lib/shared/domain';
 import { VISIT_SORTS, visitFilters, type VisitListQuery } from '@/lib/shared/schemas/list-query';
 
-const VISITS = 20_000;
-const FARMS = 2_000;
-const EXPORT_ROWS = 5_000;
 const CONCURRENCY = 10;
 const RUNS = 3;
-const AREAS = ['Upper Wenn', 'Lower Wenn', 'Carrow', 'Hob Vale', 'Skelling', 'Marrow Fen', 'Tarn End', 'Colby'];
 
 type Conn = mariadb.Connection;
-
-/** Farms and visits in bulk; the export's advisor gets exactly EXPORT_ROWS visits. */
-async function seed(conn: Conn, org: Awaited<ReturnType<typeof makeOrganisation>>) {
-  const now = new Date();
-  const farmIds = Array.from({ length: FARMS }, () => randomUUID());
-  await conn.beginTransaction();
-  await conn.query('UPDATE rev_counter SET value = LAST_INSERT_ID(value + ?) WHERE id = 1', [FARMS + VISITS]);
-  let rev = Number(((await conn.query('SELECT LAST_INSERT_ID() AS top')) as { top: bigint }[])[0]?.top) - FARMS - VISITS;
-  await conn.batch('INSERT INTO farms (id, organisation_id, owner_id, name, area, notes, rev, created_at, updated_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?)',
-    farmIds.map((id, i) => [id, org.organisationId, i % 2 ? org.farmer.id : org.otherFarmer.id, `Holding ${String(i).padStart(4, '0')}`,
-      AREAS[i % AREAS.length], '', ++rev, now, now]));
-  const rows = [];
-  for (let i = 0; i < VISITS; i++) {
-    // The fixture already gave the advisor one visit: 4,999 more make the export's 5,000.
-    const advisor = i % 4 === 0 && i > 0 ? org.advisor.id : i % 4 === 1 ? org.otherAdvisor.id : null;
-    const day = new Date(Date.UTC(2025, 0, 1) + (i % 900) * 86_400_000).toISOString().slice(0, 10);
-    const r = ++rev;
-    rows.push([randomUUID(), org.organisationId, farmIds[i % FARMS], advisor, day, VISIT_STATUSES[i % VISIT_STATUSES.length], '', r, r, now, now]);
-  }
-  for (let i = 0; i < rows.length; i += 2000) {
-    await conn.batch('INSERT INTO visits (id, organisation_id, farm_id, advisor_id, planned_on, status, notes, rev, exposed_rev, created_at, updated_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)',
-      rows.slice(i, i + 2000));
-  }
-  await conn.commit();
-  await conn.query('ANALYZE TABLE visits, farms, users, screenings');
-}
 
 /** Every distinct SQL the list, export, follow-up board and map run for each sort and filter, captured from Sequelize. */
 async function capturedQueries(user: SessionUser, advisorId: string): Promise<string[]> {
@@ -108,7 +78,7 @@ async function main() {
   try {
     const org = await makeOrganisation('bench-office');
     const t0 = performance.now();
-    await seed(conn, org);
+    await seedOffice(conn, org);
     const seedS = round((performance.now() - t0) / 1000);
     const coordinator: SessionUser = { ...org.coordinator, units: 'metric' };
     const queries = await capturedQueries(coordinator, org.advisor.id);

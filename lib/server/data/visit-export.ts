@@ -4,7 +4,8 @@ import type { VisitFilters } from '@/lib/shared/schemas/list-query';
 import { authorize, type SessionUser } from '../auth/permissions';
 import { tooLarge } from '../errors';
 import { todayIso } from '@/lib/shared/visit-rules';
-import { visitIdsInOrder, visitSummaries } from './visits';
+import { visitSummaries } from './visit-summaries';
+import { visitIdsInOrder } from './visits';
 
 const HEADER = ['Farm', 'Area', 'Farmer', 'Advisor', 'Planned', 'State', 'Overdue', 'Screening', 'Last synced', 'Visit id'];
 const CHUNK = 500;

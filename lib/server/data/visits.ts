@@ -1,44 +1,14 @@
 import 'server-only';
 import { Op, type Order, type WhereOptions } from 'sequelize';
-import { Farm, Screening, User, Visit, getSequelize } from '@/lib/server/db';
-import { VISIT_STATUSES, VISIT_STATUS_LABELS, type Verdict, type VisitStatus } from '@/lib/shared/domain';
+import { Farm, User, Visit, getSequelize } from '@/lib/server/db';
+import { VISIT_STATUSES, type VisitStatus } from '@/lib/shared/domain';
 import type { VisitFilters, VisitListQuery } from '@/lib/shared/schemas/list-query';
-import { isOverdue, todayIso } from '@/lib/shared/visit-rules';
+import { todayIso } from '@/lib/shared/visit-rules';
 import { authorize, type Permission, type SessionUser } from '../auth/permissions';
 import { notFound } from '../errors';
+import { latestVerdict, toSummary, visitSummaries, type SummaryRow } from './visit-summaries';
 
-export interface VisitSummary {
-  id: string;
-  status: VisitStatus;
-  statusLabel: string;
-  plannedOn: string | null;
-  lastSyncedAt: string | null;
-  updatedAt: string;
-  overdue: boolean;
-  farm: { id: string; name: string; area: string };
-  farmer: { id: string; name: string } | null;
-  advisor: { id: string; name: string } | null;
-  verdict: Verdict | null;
-}
-
-type VisitRow = Visit & { Farm?: Farm & { owner?: User | null }; advisor?: User | null };
-
-function toSummary(row: VisitRow, verdict: Verdict | null, today: string): VisitSummary {
-  const owner = row.Farm?.owner;
-  return {
-    id: row.id,
-    status: row.status,
-    statusLabel: VISIT_STATUS_LABELS[row.status] ?? row.status,
-    plannedOn: row.plannedOn,
-    lastSyncedAt: row.lastSyncedAt?.toISOString() ?? null,
-    updatedAt: row.updatedAt.toISOString(),
-    overdue: isOverdue(row, today),
-    farm: { id: row.farmId, name: row.Farm?.name ?? '', area: row.Farm?.area ?? '' },
-    farmer: owner ? { id: owner.id, name: owner.name } : null,
-    advisor: row.advisor ? { id: row.advisor.id, name: row.advisor.name } : null,
-    verdict,
-  };
-}
+export { visitSummaries, type VisitSummary } from './visit-summaries';
 
 /** The visits a user may see: the organisation's, those assigned to them, or those of their farms. */
 function visibleWhere(user: SessionUser): { where: WhereOptions; farmWhere?: WhereOptions } {
@@ -46,16 +16,6 @@ function visibleWhere(user: SessionUser): { where: WhereOptions; farmWhere?: Whe
   if (user.role === 'coordinator') return { where: base };
   if (user.role === 'advisor') return { where: { ...base, advisorId: user.id } };
   return { where: base, farmWhere: { ownerId: user.id } };
-}
-
-async function latestVerdicts(visitIds: string[]): Promise<Map<string, Verdict>> {
-  if (visitIds.length === 0) return new Map();
-  const rows = await Screening.findAll({
-    attributes: ['visitId', 'verdict', 'createdAt'],
-    where: { visitId: { [Op.in]: visitIds } },
-    order: [['createdAt', 'ASC']],
-  });
-  return new Map(rows.map((r) => [r.visitId, r.verdict]));
 }
 
 // The latest screening's verdict of the row's visit (index screenings_visit_created).
@@ -171,26 +131,6 @@ export async function visitIdsInOrder(user: SessionUser, filters: Partial<VisitF
   return rows.map((r) => r.id);
 }
 
-/** The summaries of the given visits (already checked visible), in the order of `ids`. */
-export async function visitSummaries(user: SessionUser, ids: string[], today = todayIso()): Promise<VisitSummary[]> {
-  if (ids.length === 0) return [];
-  const { include } = visitQuery(user, {}, today);
-  // Plain rows (raw + nest): building model instances with their joins costs more than the query at
-  // export sizes. A missing advisor or owner comes back as all-null columns: made null again here.
-  const raw = (await Visit.findAll({ where: { id: { [Op.in]: ids } }, include, subQuery: false, raw: true, nest: true })) as unknown as VisitRow[];
-  const rows = raw.map((r) => ({
-    ...r,
-    advisor: r.advisor?.id ? r.advisor : null,
-    Farm: r.Farm ? { ...r.Farm, owner: r.Farm.owner?.id ? r.Farm.owner : null } : undefined,
-  }) as VisitRow);
-  const verdicts = await latestVerdicts(ids);
-  const byId = new Map(rows.map((r) => [r.id, r]));
-  return ids.flatMap((id) => {
-    const row = byId.get(id);
-    return row ? [toSummary(row, verdicts.get(id) ?? null, today)] : [];
-  });
-}
-
 /** The visit, if it exists and the user holds the permission on it (404, then 403 otherwise). */
 export async function getVisitOrThrow(user: SessionUser, id: string, permission: Permission = 'visit:read') {
   const row = (await Visit.findOne({
@@ -202,15 +142,19 @@ export async function getVisitOrThrow(user: SessionUser, id: string, permission:
       },
       { model: User, as: 'advisor', attributes: ['id', 'name'] },
     ],
-  })) as VisitRow | null;
+  })) as (Visit & { Farm?: Farm & { owner?: User | null }; advisor?: User | null }) | null;
   if (!row) throw notFound('visit');
   authorize(user, permission, {
     organisationId: row.organisationId,
     advisorIds: row.advisorId ? [row.advisorId] : [],
     ownerId: row.Farm?.ownerId ?? null,
   });
-  const verdicts = await latestVerdicts([row.id]);
-  return { ...toSummary(row, verdicts.get(row.id) ?? null, todayIso()), notes: row.notes };
+  const flat: SummaryRow = {
+    id: row.id, status: row.status, plannedOn: row.plannedOn, lastSyncedAt: row.lastSyncedAt, updatedAt: row.updatedAt, farmId: row.farmId,
+    farmName: row.Farm?.name ?? '', farmArea: row.Farm?.area ?? '', ownerId: row.Farm?.owner?.id ?? null, ownerName: row.Farm?.owner?.name ?? null,
+    advisorId: row.advisor?.id ?? null, advisorName: row.advisor?.name ?? null, verdict: await latestVerdict(row.id),
+  };
+  return { ...toSummary(flat, todayIso()), notes: row.notes };
 }
 
 /** Visits per status in the user's view, plus how many are overdue. */
