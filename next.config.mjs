@@ -8,7 +8,7 @@ const nextConfig = {
   poweredByHeader: false,
   reactStrictMode: true,
   // forbidden() renders app/forbidden.tsx with a real 403 status.
-  experimental: { authInterrupts: true },
+  experimental: { authInterrupts: true, inlineCss: true },
   // On every response: pages, route handlers, static files and the service worker. Read at build
   // time (the build stamp includes NEXTAUTH_URL's scheme, which decides HSTS).
   async headers() {

@@ -4,14 +4,23 @@ import { ServiceWorkerRegister } from '@/components/service-worker-register';
 import './globals.css';
 
 // Fonts ship in fonts/ (OFL); nothing is fetched from outside the machine.
+// The two faces every page draws with are preloaded (the first paint then uses them: a long sheet
+// drawn in a fallback and swapped would reflow and shift). The italic face is only used by <em>
+// (office tables): a family of its own (globals.css) that loads when used, never preloaded.
 const sans = localFont({
   src: [
     { path: '../fonts/atkinson-hyperlegible-latin-400-normal.woff2', weight: '400', style: 'normal' },
-    { path: '../fonts/atkinson-hyperlegible-latin-400-italic.woff2', weight: '400', style: 'italic' },
     { path: '../fonts/atkinson-hyperlegible-latin-700-normal.woff2', weight: '700', style: 'normal' },
   ],
   variable: '--font-sans',
   display: 'swap',
+});
+
+const sansItalic = localFont({
+  src: [{ path: '../fonts/atkinson-hyperlegible-latin-400-italic.woff2', weight: '400', style: 'italic' }],
+  variable: '--font-sans-italic',
+  display: 'swap',
+  preload: false,
 });
 
 const mono = localFont({
@@ -41,7 +50,7 @@ export const viewport: Viewport = {
 
 export default function RootLayout({ children }: { children: React.ReactNode }) {
   return (
-    <html lang="en" className={`${sans.variable} ${mono.variable}`}>
+    <html lang="en" className={`${sans.variable} ${sansItalic.variable} ${mono.variable}`}>
       <body className="bg-paper text-ink antialiased">
         {children}
         <ServiceWorkerRegister />

@@ -16,7 +16,8 @@ export function ServiceWorkerRegister() {
 
   useEffect(() => {
     if (process.env.NODE_ENV !== 'production' || !('serviceWorker' in navigator)) return;
-    void import('workbox-window').then(({ Workbox }) => {
+    let idle = 0;
+    const register = () => void import('workbox-window').then(({ Workbox }) => {
       const wb = new Workbox('/sw.js', { scope: '/' });
       wb.addEventListener('waiting', () => setWaiting(true));
       // Reload only for an update the person accepted: the first install also takes control
@@ -27,6 +28,19 @@ export function ServiceWorkerRegister() {
       workbox.current = wb;
       void wb.register();
     });
+    // Once the page has loaded and the main thread is free: the first install downloads the whole
+    // app for offline use, which must not compete with the page's own first requests and rendering.
+    const afterLoad = () => {
+      // Safari has no requestIdleCallback.
+      idle = typeof window.requestIdleCallback === 'function' ? window.requestIdleCallback(register, { timeout: 5_000 }) : window.setTimeout(register, 1_000);
+    };
+    if (document.readyState === 'complete') afterLoad();
+    else window.addEventListener('load', afterLoad, { once: true });
+    return () => {
+      window.removeEventListener('load', afterLoad);
+      if (typeof window.cancelIdleCallback === 'function') window.cancelIdleCallback(idle);
+      else window.clearTimeout(idle);
+    };
   }, []);
 
   if (!waiting) return null;

@@ -1,12 +1,28 @@
 // Display formatting shared by pages (dates are stored as ISO strings).
+import type { UnitSystem } from './domain';
 
-const dateFormat = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
+// Written out rather than Intl.DateTimeFormat: building a formatter loads locale data, which costs a
+// phone tens of milliseconds in the middle of drawing a list. Same words as en-GB ("Wed, 9 Sept 2026").
+const WEEKDAYS = ['Sun', 'Mon', 'Tue', 'Wed', 'Thu', 'Fri', 'Sat'];
+const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sept', 'Oct', 'Nov', 'Dec'];
 
-/** "Tue 8 Dec 2026" from "2026-12-08"; an em dash when there is no date. */
+/** "Tue, 8 Dec 2026" from "2026-12-08"; an em dash when there is no date. */
 export function formatDay(isoDay: string | null | undefined): string {
   if (!isoDay) return '—';
   const date = new Date(`${isoDay.slice(0, 10)}T00:00:00Z`);
-  return Number.isNaN(date.getTime()) ? '—' : dateFormat.format(date);
+  if (Number.isNaN(date.getTime())) return '—';
+  return `${WEEKDAYS[date.getUTCDay()]}, ${date.getUTCDate()} ${MONTHS[date.getUTCMonth()]} ${date.getUTCFullYear()}`;
+}
+
+/**
+ * A time of day on this device's clock, "14:05" (metric users) or "2:05 PM" (US customary users),
+ * written out for the same reason as formatDay: toLocaleTimeString builds a formatter on every call.
+ */
+export function formatClock(date: Date, units: UnitSystem): string {
+  const minutes = String(date.getMinutes()).padStart(2, '0');
+  if (units === 'metric') return `${String(date.getHours()).padStart(2, '0')}:${minutes}`;
+  const hour = date.getHours() % 12 || 12;
+  return `${hour}:${minutes} ${date.getHours() < 12 ? 'AM' : 'PM'}`;
 }
 
 /** Litres per day with thousands separators, e.g. "2,300 L/day". */

@@ -13,8 +13,15 @@ type Scores = { performance: number; accessibility: number; bestPractices: numbe
 
 /** One audit in a child process (plain Node, fresh browser: no cache or worker carried over). */
 function audit(target: Target): Scores {
-  const run = spawnSync(process.execPath, ['tests/bench/support/lighthouse-run.mjs', target.url, ...(target.cookie ? [target.cookie] : [])],
+  const once = () => spawnSync(process.execPath, ['tests/bench/support/lighthouse-run.mjs', target.url, ...(target.cookie ? [target.cookie] : [])],
     { encoding: 'utf8', timeout: 180_000 });
+  let run = once();
+  // Lighthouse now and then loses the trace of a load (NO_NAVSTART: "Please run Lighthouse again"):
+  // that says nothing about the page, so the audit is run again (twice at most).
+  for (let retry = 0; retry < 2 && run.status !== 0 && /run Lighthouse again/.test(run.stderr); retry++) {
+    console.log(`${target.name}: Lighthouse lost the trace, running the audit again`);
+    run = once();
+  }
   if (run.status !== 0) throw new Error(`Lighthouse failed on ${target.url}: ${run.stderr}`);
   const scores = JSON.parse(run.stdout.trim().split('\n').pop() ?? '{}') as Scores;
   if (scores.failing.length) console.log(`${target.name}: audits not passed: ${scores.failing.join(', ')}`);

@@ -3,29 +3,36 @@
 import { useLiveQuery } from 'dexie-react-hooks';
 import Link from 'next/link';
 import { fieldDb } from '@/lib/client/db';
+import { getMeta, type SyncRecord } from '@/lib/client/sync/meta';
 import { VISIT_STATUS_LABELS, type VisitStatus } from '@/lib/shared/domain';
 import { formatDay } from '@/lib/shared/format';
+import { useFieldUser } from './_components/field-session';
 
 export default function FieldHome() {
+  // Nothing of anyone's is read until the frame knows whose field book this is.
+  const user = useFieldUser();
   const visits = useLiveQuery(async () => {
+    if (!user) return undefined;
     const db = fieldDb();
     const rows = await db.visits.orderBy('plannedOn').toArray();
     const outbox = await db.outbox.toArray();
-    return Promise.all(rows.map(async (v) => ({
-      ...v,
-      farm: await db.farms.get(v.farmId),
-      waiting: outbox.filter((e) => e.visitId === v.id).length,
-    })));
-  });
+    const farms = new Map((await db.farms.bulkGet(rows.map((v) => v.farmId))).flatMap((f) => (f ? [[f.id, f] as const] : [])));
+    return {
+      // Before the phone's first sync an empty list means "not fetched yet", not "none assigned".
+      synced: (await getMeta<SyncRecord>('lastRun')) !== undefined,
+      rows: rows.map((v) => ({ ...v, farm: farms.get(v.farmId), waiting: outbox.filter((e) => e.visitId === v.id).length })),
+    };
+  }, [user]);
   return (
     <div className="space-y-5">
       <h1 className="text-3xl font-bold text-slate">My site visits</h1>
       {visits === undefined && <p className="text-lg">Reading the phone…</p>}
-      {visits?.length === 0 && (
+      {visits?.rows.length === 0 && !visits.synced && <p className="text-lg">Fetching your visits from the server…</p>}
+      {visits?.rows.length === 0 && visits.synced && (
         <p className="text-lg">No visits on this phone yet. They arrive at the next sync once your coordinator assigns them.</p>
       )}
       <ul className="space-y-3">
-        {visits?.map((v) => (
+        {visits?.rows.map((v) => (
           <li key={v.id}>
             <Link href={`/field/visit?id=${v.id}`} className="block rounded-md border-2 border-rule bg-white p-4 text-ink no-underline">
               <span className="block text-xl font-bold">{v.farm?.name ?? 'Farm'}</span>

@@ -19,12 +19,16 @@ export async function mergePull(page: PullResponse): Promise<void> {
   await db.transaction('rw', [db.visits, db.farms, db.outbox, db.meta, db.photoBlobs, db.commissionings, ...tables], async () => {
     const waiting = new Set((await db.outbox.toArray()).map((e) => e.entityId));
     const waitingVisits = new Set((await db.outbox.toArray()).map((e) => e.visitId));
+    // One bulk call per table, not one call per row: on a phone each call costs its own round of
+    // promise work, and a first pull of a few hundred rows would hold the page for a long moment.
+    // The last copy of an id in the page decides, as one call per row in order would.
     const merge = async (table: Table<Row, string>, rows: Row[]) => {
-      for (const row of rows) {
-        if (waiting.has(row.id)) continue;
-        if (row.deletedAt) await table.delete(row.id);
-        else await table.put(row);
-      }
+      const latest = new Map<string, Row>();
+      for (const row of rows) if (!waiting.has(row.id)) latest.set(row.id, row);
+      const gone = [...latest.values()].filter((row) => row.deletedAt).map((row) => row.id);
+      const kept = [...latest.values()].filter((row) => !row.deletedAt);
+      if (gone.length > 0) await table.bulkDelete(gone);
+      if (kept.length > 0) await table.bulkPut(kept);
     };
     await merge(db.farms as unknown as Table<Row, string>, page.farms as unknown as Row[]);
     await merge(db.visits as unknown as Table<Row, string>, page.visits as unknown as Row[]);

@@ -1,7 +1,8 @@
 // One sync run: push the outbox, upload photos, pull changes. The same module runs in the service
 // worker (Background Sync, messages) and in the page where no worker controls it; a Web Lock
 // makes sure only one runs at a time, whichever context it is in.
-import { getMeta, setMeta, type SyncRecord } from './meta';
+import { fieldDb, type MetaEntry } from '../db';
+import { getMeta, type SyncRecord } from './meta';
 import { uploadPhotos, type UploadProgress } from './photos';
 import { pullAll } from './pull';
 import { pushAll } from './push';
@@ -13,6 +14,9 @@ export type SyncOutcome = SyncRecord | { skipped: 'busy' };
 
 async function runOnce(onProgress?: UploadProgress, force = false): Promise<SyncRecord> {
   const record: SyncRecord = { at: new Date().toISOString(), ok: false, message: null, pushed: 0, pulled: 0, photos: 0 };
+  // What the run leaves behind is written in one go at the end: each write wakes every open page's
+  // live queries, so three separate writes would redraw the sync bar three times.
+  const facts: MetaEntry[] = [];
   try {
     record.pushed = await pushAll(force);
     record.photos = await uploadPhotos(onProgress, force);
@@ -20,12 +24,11 @@ async function runOnce(onProgress?: UploadProgress, force = false): Promise<Sync
     // Photos whose metadata went up in this run.
     record.photos += await uploadPhotos(onProgress, force);
     record.ok = true;
-    await setMeta('authPaused', false);
-    await setMeta('lastSuccess', record.at);
+    facts.push({ key: 'authPaused', value: false }, { key: 'lastSuccess', value: record.at });
   } catch (error) {
     if (error instanceof SyncHttpError && error.status === 401) {
       // Never drop anything: pause until the person signs in again.
-      await setMeta('authPaused', true);
+      facts.push({ key: 'authPaused', value: true });
       record.message = 'Sign in again to send what is waiting. Nothing is lost.';
     } else if (error instanceof OfflineError) {
       record.message = 'No signal: everything stays on this phone and goes up when there is coverage.';
@@ -33,7 +36,7 @@ async function runOnce(onProgress?: UploadProgress, force = false): Promise<Sync
       record.message = error instanceof Error ? error.message : 'Sync failed; it will try again.';
     }
   }
-  await setMeta('lastRun', record);
+  await fieldDb().meta.bulkPut([...facts, { key: 'lastRun', value: record }]);
   return record;
 }
 

@@ -1,6 +1,9 @@
 // One Lighthouse audit in a fresh headless Chromium, run by plain Node (tsx's transform would inject
 // helpers into the functions Lighthouse sends to the page). Prints the category scores as one JSON line.
 // Usage: node tests/bench/support/lighthouse-run.mjs URL [COOKIE]
+// With LIGHTHOUSE_REPORT=file.json set, the whole report is written there too (LCP element and phases,
+// long tasks, main-thread breakdown: what a score is made of).
+import { writeFileSync } from 'node:fs';
 import * as chromeLauncher from 'chrome-launcher';
 import lighthouse from 'lighthouse';
 
@@ -18,6 +21,7 @@ try {
   const lhr = result?.lhr;
   if (!lhr) throw new Error(`no result for ${url}`);
   if (lhr.runtimeError) throw new Error(lhr.runtimeError.message);
+  if (process.env.LIGHTHOUSE_REPORT) writeFileSync(process.env.LIGHTHOUSE_REPORT, JSON.stringify(lhr, null, 1));
   const score = (id) => Math.round((lhr.categories[id]?.score ?? NaN) * 100);
   const failing = Object.values(lhr.audits).filter((a) => a.score !== null && a.score < 1 && a.scoreDisplayMode !== 'informative'
     && a.scoreDisplayMode !== 'notApplicable' && a.scoreDisplayMode !== 'manual').map((a) => a.id);

@@ -5,10 +5,16 @@ import { useRouter } from 'next/navigation';
 import { useEffect, useState } from 'react';
 import { loadLocalSession, rememberedUser, type LocalSession } from '@/lib/client/session';
 import { startSyncTriggers } from '@/lib/client/sync/triggers';
+import { FieldUserContext } from './field-session';
 import { StorageNote } from './storage-note';
 import { SyncBar } from './sync-bar';
 
-/** Frame of the advisor's pages: who is signed in (remembered offline), the sync bar, the triggers. */
+/**
+ * Frame of the advisor's pages: who is signed in (remembered offline), the sync bar, the triggers.
+ * The frame and the page's own headings are drawn at once (they are in the static HTML, so a slow
+ * phone shows them before any script runs); the person's name, counts and lists follow once the
+ * phone or the server says who is signed in.
+ */
 export function FieldShell({ children }: { children: React.ReactNode }) {
   const [session, setSession] = useState<LocalSession | null>(null);
   const router = useRouter();
@@ -53,8 +59,8 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
     };
   }, []);
 
-  if (!session || session.state === 'signed-out') return <p className="p-6 text-lg">Opening your field book…</p>;
-  if (session.state === 'other-user-waiting') {
+  if (session?.state === 'signed-out') return <p className="p-6 text-lg">Opening your field book…</p>;
+  if (session?.state === 'other-user-waiting') {
     return (
       <main className="mx-auto max-w-xl p-6">
         <h1 className="text-2xl font-bold text-clay">Changes of {session.waitingFor.name} still wait on this phone</h1>
@@ -62,7 +68,7 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
       </main>
     );
   }
-  if (session.user.role === 'farmer') {
+  if (session?.user.role === 'farmer') {
     return (
       <main className="mx-auto max-w-xl p-6">
         <h1 className="text-2xl font-bold text-slate">The field book is for advisors</h1>
@@ -70,20 +76,25 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
       </main>
     );
   }
+  const user = session?.user ?? null;
+  // A column as tall as the screen: the storage note sits at its foot, so lists filling in above it
+  // never push it about. Before the session is known, the name lines hold their place with a blank.
   return (
-    <>
-      <header className="border-b border-rule">
-        <div className="mx-auto flex max-w-3xl items-center justify-between px-4 py-3">
-          <Link href="/field" className="text-2xl font-bold text-slate no-underline">Fallbook</Link>
-          <span className="text-right leading-tight">
-            <span className="block font-bold">{session.user.name}</span>
-            <span className="block text-stone">{session.online ? 'Field advisor' : 'Field advisor · offline'}</span>
-          </span>
-        </div>
-      </header>
-      <SyncBar />
-      <main className="mx-auto max-w-3xl px-4 py-5">{children}</main>
-      <StorageNote />
-    </>
+    <FieldUserContext.Provider value={user}>
+      <div className="flex min-h-dvh flex-col">
+        <header className="border-b border-rule">
+          <div className="mx-auto flex w-full max-w-3xl items-center justify-between px-4 py-3">
+            <Link href="/field" className="text-2xl font-bold text-slate no-underline">Fallbook</Link>
+            <span className="text-right leading-tight">
+              <span className="block font-bold">{user?.name ?? '\u00a0'}</span>
+              <span className="block text-stone">{!session ? '\u00a0' : session.online ? 'Field advisor' : 'Field advisor · offline'}</span>
+            </span>
+          </div>
+        </header>
+        <SyncBar ready={user !== null} />
+        <main className="mx-auto w-full max-w-3xl px-4 py-5">{children}</main>
+        <StorageNote />
+      </div>
+    </FieldUserContext.Provider>
   );
 }

@@ -6,19 +6,27 @@ import { useState } from 'react';
 import { fieldDb } from '@/lib/client/db';
 import { getMeta, type SyncRecord } from '@/lib/client/sync/meta';
 import { requestSync } from '@/lib/client/sync/triggers';
+import type { UnitSystem } from '@/lib/shared/domain';
+import { formatClock } from '@/lib/shared/format';
+import { useFieldUser } from './field-session';
 
-function timeOf(iso: string | undefined): string {
-  if (!iso) return 'never';
-  return new Date(iso).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' });
+function timeOf(iso: string | undefined, units: UnitSystem): string {
+  return iso ? formatClock(new Date(iso), units) : 'never';
 }
 
 const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
 
-/** What waits on the phone, in words and counts, always in the same place (never an icon alone). */
-export function SyncBar() {
+/**
+ * What waits on the phone, in words and counts, always in the same place (never an icon alone).
+ * Until `ready` (the session is known) it holds its place with the same two lines, and the button
+ * waits: a sync may only start once the server or the phone has said who is signed in.
+ */
+export function SyncBar({ ready }: { ready: boolean }) {
+  const user = useFieldUser();
   const [progress, setProgress] = useState<{ sent: number; total: number } | null>(null);
   const [busy, setBusy] = useState(false);
   const state = useLiveQuery(async () => {
+    if (!ready) return undefined;
     const db = fieldDb();
     const outbox = await db.outbox.toArray();
     // One pass over the photo queue, entry by entry (each carries its bytes): what waits, what was refused.
@@ -37,7 +45,7 @@ export function SyncBar() {
       lastRun: await getMeta<SyncRecord>('lastRun'),
       paused: (await getMeta<boolean>('authPaused')) ?? false,
     };
-  });
+  }, [ready]);
 
   async function syncNow() {
     setBusy(true);
@@ -49,31 +57,23 @@ export function SyncBar() {
     }
   }
 
-  if (!state) return null;
   // A change parked for a decision is not on the server either: never claim everything is.
-  const summary = state.waiting + state.photos + state.parked === 0
-    ? 'Everything is on the server'
-    : state.waiting + state.photos === 0
-      ? 'Not everything is on the server'
-      : `${plural(state.waiting, 'change', 'changes')}, ${plural(state.photos, 'photo', 'photos')} waiting`;
+  const summary = !ready || !state
+    ? 'Checking the phone…'
+    : state.waiting + state.photos + state.parked === 0
+      ? 'Everything is on the server'
+      : state.waiting + state.photos === 0
+        ? 'Not everything is on the server'
+        : `${plural(state.waiting, 'change', 'changes')}, ${plural(state.photos, 'photo', 'photos')} waiting`;
   return (
     <section aria-label="Sync status" className="border-b border-rule bg-white">
       <div className="mx-auto flex max-w-3xl flex-wrap items-center justify-between gap-2 px-4 py-2">
         <div role="status" aria-live="polite" className="leading-tight">
           <span className="block font-bold" data-testid="sync-summary">{summary}</span>
-          <span className="block text-stone">Last sync {timeOf(state.lastSuccess)}</span>
-          {state.paused && (
-            <a href="/login?callbackUrl=/field" className="block font-bold text-clay">Sign in again to send what is waiting</a>
-          )}
-          {state.parked > 0 && (
-            <Link href="/field/sync" className="block font-bold text-clay">{plural(state.parked, 'change needs', 'changes need')} your decision</Link>
-          )}
-          {state.refusedPhotos > 0 && (
-            <Link href="/field/sync" className="block font-bold text-clay">The server did not take {plural(state.refusedPhotos, 'photo', 'photos')}: see why</Link>
-          )}
-          {!state.lastRun?.ok && state.lastRun?.message && !state.paused && <span className="block text-stone">{state.lastRun.message}</span>}
+          <span className="block text-stone">{ready && state ? `Last sync ${timeOf(state.lastSuccess, user?.units ?? 'metric')}` : 'Last sync …'}</span>
+          {ready && state && <Notices state={state} />}
         </div>
-        <button type="button" onClick={syncNow} disabled={busy}
+        <button type="button" onClick={syncNow} disabled={busy || !ready}
           className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate disabled:opacity-60">
           {busy ? 'Syncing…' : 'Sync now'}
         </button>
@@ -84,5 +84,25 @@ export function SyncBar() {
         </div>
       )}
     </section>
+  );
+}
+
+type BarState = { parked: number; refusedPhotos: number; paused: boolean; lastRun: SyncRecord | undefined };
+
+/** What needs the person: signing in again, parked changes, refused photos, the last failure. */
+function Notices({ state }: { state: BarState }) {
+  return (
+    <>
+      {state.paused && (
+        <a href="/login?callbackUrl=/field" className="block font-bold text-clay">Sign in again to send what is waiting</a>
+      )}
+      {state.parked > 0 && (
+        <Link href="/field/sync" className="block font-bold text-clay">{plural(state.parked, 'change needs', 'changes need')} your decision</Link>
+      )}
+      {state.refusedPhotos > 0 && (
+        <Link href="/field/sync" className="block font-bold text-clay">The server did not take {plural(state.refusedPhotos, 'photo', 'photos')}: see why</Link>
+      )}
+      {!state.lastRun?.ok && state.lastRun?.message && !state.paused && <span className="block text-stone">{state.lastRun.message}</span>}
+    </>
   );
 }

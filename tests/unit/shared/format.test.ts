@@ -1,0 +1,35 @@
+import { describe, expect, it } from 'vitest';
+import { formatClock, formatDay } from '@/lib/shared/format';
+
+// formatDay is written out by hand (no Intl formatter on the phone's hot path): it must say what the
+// en-GB formatter says, for every weekday and month.
+const reference = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
+
+describe('formatDay', () => {
+  it('matches the en-GB formatter for every day of two years', () => {
+    const start = Date.UTC(2026, 0, 1);
+    for (let day = 0; day < 731; day++) {
+      const date = new Date(start + day * 86_400_000);
+      const iso = date.toISOString().slice(0, 10);
+      expect(formatDay(iso), iso).toBe(reference.format(date));
+    }
+  });
+
+  it('reads the day from a full timestamp and shows a dash for none or nonsense', () => {
+    expect(formatDay('2026-12-08T23:30:00Z')).toBe('Tue, 8 Dec 2026');
+    expect(formatDay(null)).toBe('—');
+    expect(formatDay('')).toBe('—');
+    expect(formatDay('not a day')).toBe('—');
+  });
+});
+
+describe('formatClock', () => {
+  it('writes a 24-hour clock for metric users and AM/PM for US customary users', () => {
+    const at = (h: number, m: number) => new Date(2026, 11, 2, h, m);
+    expect(formatClock(at(4, 5), 'metric')).toBe('04:05');
+    expect(formatClock(at(14, 30), 'metric')).toBe('14:30');
+    expect(formatClock(at(0, 7), 'us')).toBe('12:07 AM');
+    expect(formatClock(at(12, 0), 'us')).toBe('12:00 PM');
+    expect(formatClock(at(23, 59), 'us')).toBe('11:59 PM');
+  });
+});
