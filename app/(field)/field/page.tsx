@@ -34,7 +34,8 @@ export default function FieldHome() {
       <ul className="space-y-3">
         {visits?.rows.map((v) => (
           <li key={v.id}>
-            <Link href={`/field/visit?id=${v.id}`} className="block rounded-md border-2 border-rule bg-white p-4 text-ink no-underline">
+            {/* No prefetch: every visit opens the same static page, which the service worker already holds. */}
+            <Link href={`/field/visit?id=${v.id}`} prefetch={false} className="block rounded-md border-2 border-rule bg-white p-4 text-ink no-underline">
               <span className="block text-xl font-bold">{v.farm?.name ?? 'Farm'}</span>
               <span className="block text-stone">{v.farm?.area}</span>
               <span className="mt-1 block">

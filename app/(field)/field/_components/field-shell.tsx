@@ -84,7 +84,7 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
       <div className="flex min-h-dvh flex-col">
         <header className="border-b border-rule">
           <div className="mx-auto flex w-full max-w-3xl items-center justify-between px-4 py-3">
-            <Link href="/field" className="text-2xl font-bold text-slate no-underline">Fallbook</Link>
+            <Link href="/field" prefetch={false} className="text-2xl font-bold text-slate no-underline">Fallbook</Link>
             <span className="text-right leading-tight">
               <span className="block font-bold">{user?.name ?? '\u00a0'}</span>
               <span className="block text-stone">{!session ? '\u00a0' : session.online ? 'Field advisor' : 'Field advisor · offline'}</span>
