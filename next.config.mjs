@@ -8,7 +8,9 @@ const nextConfig = {
   poweredByHeader: false,
   reactStrictMode: true,
   // forbidden() renders app/forbidden.tsx with a real 403 status.
-  experimental: { authInterrupts: true, inlineCss: true },
+  // (CSS stays in its file: inlined, it rides in every page's HTML and again in its RSC data, and
+  // the sheet's Lighthouse runs scored lower for the extra parsing: 85–95 against 96–98.)
+  experimental: { authInterrupts: true },
   // On every response: pages, route handlers, static files and the service worker. Read at build
   // time (the build stamp includes NEXTAUTH_URL's scheme, which decides HSTS).
   async headers() {
