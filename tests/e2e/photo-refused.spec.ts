@@ -25,16 +25,17 @@ test('a refused photo shows the reason, stays on the phone, and goes up when tri
   await waitForHooks(page);
   await pressSync(page);
 
+  // The server refuses the bytes (as it would a file it cannot read) for as long as this route stands:
+  // set before the photo is taken, since saving it starts a sync at once.
+  const refuse = /\/api\/photos\/[0-9a-f-]{36}$/;
+  await context.route(refuse, (route) => (route.request().method() === 'PUT'
+    ? route.fulfill({ status: 415, contentType: 'application/json', body: JSON.stringify({ error: { code: 'unsupported', message: REASON } }) })
+    : route.continue()));
   const photo = await gpsJpeg(52.41, -3.61, '#6a8caf');
   await page.goto(`/field/visit/photos?id=${visitId}`);
   await page.getByTestId('photo-input').setInputFiles([{ name: 'pool.jpg', mimeType: 'image/jpeg', buffer: photo.buffer }]);
   await expect(page.getByText('1 photo kept on this phone.')).toBeVisible({ timeout: 20_000 });
 
-  // The server refuses the bytes (as it would a file it cannot read) for as long as this route stands.
-  const refuse = /\/api\/photos\/[0-9a-f-]{36}$/;
-  await context.route(refuse, (route) => (route.request().method() === 'PUT'
-    ? route.fulfill({ status: 415, contentType: 'application/json', body: JSON.stringify({ error: { code: 'unsupported', message: REASON } }) })
-    : route.continue()));
   await pressSync(page);
   expect((await phoneState(page)).photosWaiting).toBe(1);
   const seeWhy = page.getByRole('link', { name: 'The server did not take 1 photo: see why' });

@@ -7,7 +7,7 @@
 // Playwright 1.65 routes service-worker requests by default, so `context.route` sees the loop
 // whether the page or the worker runs it (the Web Lock lets one run at a time); the figures count both.
 import { expect, request as apiRequest, test, type APIRequestContext, type BrowserContext, type Page, type Route } from '@playwright/test';
-import { query, revisionLockHeld } from './support/db';
+import { holdSyncOp, query, revisionLockHeld } from './support/db';
 import { countRequest, loseAnswer, newCounts, randomFaults, SYNC_URLS } from './support/faults';
 import { OwnServer } from './support/own-server';
 import { assertExactlyOnce, captureOffline, coordinatorApi, newVisit, phoneState, pressSync, syncUntilDone } from './support/phone';
@@ -87,12 +87,18 @@ test('(b) server killed mid-push and mid-upload, a gateway answering 502 while i
     const req = route.request();
     if (!pushKill && req.url().includes('/api/sync/push')) {
       // The first push: hand it to the server, and kill the server while its transaction is open.
+      // An uncommitted row under the batch's last op id keeps it open: the push waits on it at its
+      // last insert, after it took the revision lock (its writes take a few milliseconds, less
+      // than a kill takes to land).
+      const ops = (req.postDataJSON() as { ops: { opId: string }[] }).ops;
+      const blocker = await holdSyncOp(ops[ops.length - 1]?.opId ?? '', advisorId);
       const answer = route.fetch().catch(() => null);
       pushKill = (async () => {
         let open = false;
         for (let i = 0; i < 400 && !open; i++) open = await revisionLockHeld();
         down = true;
         await server.kill('SIGKILL');
+        await blocker.release();
         const committed = Number((await query<{ n: number }>(`SELECT COUNT(*) AS n FROM sync_ops WHERE entity_id IN (${all.map(() => '?').join(',')})`, all))[0]?.n);
         return { open, committed };
       })();

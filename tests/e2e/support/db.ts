@@ -22,6 +22,23 @@ export async function query<T>(sql: string, params: unknown[] = []): Promise<T[]
  * Whether another transaction holds the revision counter's row lock right now (a sync push is
  * writing records): a NOWAIT locking read fails instead of waiting. Needs no PROCESS privilege.
  */
+/**
+ * Holds an uncommitted sync_ops row under the given op id: a push carrying that op waits on it at
+ * its last insert, after it took the revision lock, so the test can act while the push's
+ * transaction is certainly open. `release` rolls the row back.
+ */
+export async function holdSyncOp(opId: string, userId: string): Promise<{ release(): Promise<void> }> {
+  const conn = await connect();
+  await conn.beginTransaction();
+  await conn.query("INSERT INTO sync_ops (op_id, user_id, entity, entity_id, outcome, created_at) VALUES (?, ?, 'point', ?, '{}', NOW(3))", [opId, userId, opId]);
+  return {
+    async release() {
+      await conn.rollback().catch(() => undefined);
+      await conn.end();
+    },
+  };
+}
+
 export async function revisionLockHeld(): Promise<boolean> {
   const conn = await connect();
   try {
