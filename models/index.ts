@@ -58,11 +58,9 @@ export interface RevBlock {
 export async function reserveRevs(transaction: Transaction | null | undefined, count: number): Promise<RevBlock> {
   if (!transaction) throw new Error('Synced records must be saved inside a transaction (see DEVELOPERS.md).');
   if (!Number.isInteger(count) || count < 1) throw new Error(`reserveRevs needs a positive count, not ${count}`);
-  // LAST_INSERT_ID is per connection: keep one transaction's two statements from interleaving.
-  const previous = revLocks.get(transaction) ?? Promise.resolve(0);
-  const next = previous.catch(() => 0).then(() => takeRevs(transaction, count));
-  revLocks.set(transaction, next);
-  const last = await next;
+  // One statement whose own answer carries its block: calls in parallel on one transaction need
+  // no ordering of their own (the connection runs them in the order sent).
+  const last = await takeRevs(transaction, count);
   const first = last - count + 1;
   const blocks = reserved.get(transaction) ?? [];
   blocks.push([first, last]);
@@ -76,7 +74,6 @@ export async function reserveRevs(transaction: Transaction | null | undefined, c
   };
 }
 
-const revLocks = new WeakMap<Transaction, Promise<number>>();
 const reserved = new WeakMap<Transaction, [number, number][]>();
 
 // The statement's own answer carries the value LAST_INSERT_ID(expr) set (the OK packet's insert

@@ -53,15 +53,20 @@ export function buildRow(model: ModelStatic<Model>, values: Values): PlainRow {
   return new PlainRow(row);
 }
 
-const selectLists = new WeakMap<ModelStatic<Model>, string>();
+const selects = new WeakMap<ModelStatic<Model>, { list: string; json: string[] }>();
 
-function selectList(model: ModelStatic<Model>): string {
-  let list = selectLists.get(model);
-  if (!list) {
-    list = columnsOf(model).map((c) => (c.field === c.attribute ? quote(c.field) : `${quote(c.field)} AS ${quote(c.attribute)}`)).join(', ');
-    selectLists.set(model, list);
+/** The model's select list (column AS attribute) and its JSON attributes, built once per model. */
+function selectOf(model: ModelStatic<Model>): { list: string; json: string[] } {
+  let select = selects.get(model);
+  if (!select) {
+    const columns = columnsOf(model);
+    select = {
+      list: columns.map((c) => (c.field === c.attribute ? quote(c.field) : `${quote(c.field)} AS ${quote(c.attribute)}`)).join(', '),
+      json: columns.filter((c) => c.json).map((c) => c.attribute),
+    };
+    selects.set(model, select);
   }
-  return list;
+  return select;
 }
 
 export interface SelectRowsOptions {
@@ -82,11 +87,11 @@ export interface SelectRowsOptions {
  * started together go out in the order they were started.
  */
 export async function selectRows(sequelize: Sequelize, model: ModelStatic<Model>, options: SelectRowsOptions): Promise<PlainRow[]> {
-  const sql = `SELECT ${selectList(model)} FROM ${quote(model.getTableName() as string)} WHERE ${options.where}${options.lock ? ' FOR UPDATE' : ''}`;
+  const { list, json } = selectOf(model);
+  const sql = `SELECT ${list} FROM ${quote(model.getTableName() as string)} WHERE ${options.where}${options.lock ? ' FOR UPDATE' : ''}`;
   const rows = options.transaction
     ? [...await txConnection(options.transaction).query<Values[]>(sql, options.replacements)]
     : await sequelize.query<Values>(sql, { type: QueryTypes.SELECT, raw: true, replacements: options.replacements });
-  const json = columnsOf(model).filter((c) => c.json).map((c) => c.attribute);
   return rows.map((row) => {
     for (const key of json) {
       const value = row[key];

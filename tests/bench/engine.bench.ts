@@ -5,7 +5,8 @@
 import path from 'node:path';
 import { chromium } from '@playwright/test';
 import { build } from 'esbuild';
-import { screenSite, type SiteReadingsInput } from '@/lib/engine';
+import type { SiteReadingsInput } from '@/lib/engine';
+import { timeScreening } from './support/time-screening';
 import { clearGo, conditionalSmallDeliveryPipe } from '@/tests/unit/engine/fixtures/demo-sites';
 
 interface Row {
@@ -21,15 +22,7 @@ const WARMUPS = 3;
 const RUNS = 11;
 
 function time(name: string, site: SiteReadingsInput, samples: number): Row {
-  const input: SiteReadingsInput = { ...site, monteCarlo: { samples, seed: 1 } };
-  for (let i = 0; i < WARMUPS; i++) screenSite(input);
-  const times: number[] = [];
-  for (let i = 0; i < RUNS; i++) {
-    const t0 = performance.now();
-    screenSite(input);
-    times.push(performance.now() - t0);
-  }
-  return summary(name, 'node', samples, times);
+  return summary(name, 'node', samples, timeScreening(site, samples, WARMUPS, RUNS));
 }
 
 function summary(name: string, engine: string, samples: number, times: number[]): Row {

@@ -9,7 +9,7 @@ import { scopeOf } from '@/lib/server/auth/permissions';
 import { getSequelize } from '@/lib/server/db';
 import { ROLES } from '@/lib/shared/domain';
 import { params } from './support/fixtures';
-import { ROUTES, handlerOf, routeParams, type GuardedRoute, type PublicRoute, type Target } from './support/route-table';
+import { ROUTES, handlerOf, routeParams, type GuardedRoute, type HttpMethod, type PublicRoute, type Target } from './support/route-table';
 import { callerOf, makeWorld, resourceFor, type World } from './support/world';
 
 const mutating = ROUTES.filter((r): r is GuardedRoute => !('public' in r) && r.method !== 'GET');
@@ -45,6 +45,16 @@ async function disguised(req: NextRequest, extra: Record<string, string>): Promi
 const worlds = new Map<Target, World>();
 let refused = 0;
 
+/** Sends the request to the route's handler: 403 naming the cross-site refusal, and nothing stored. */
+async function expectRefused(mod: object, route: { method: HttpMethod; file: string }, req: NextRequest) {
+  const before = await footprint();
+  const res = await handlerOf(mod, route.method)(req, params(routeParams(route.file, req.nextUrl)));
+  expect(res.status).toBe(403);
+  expect((await res.json()).error.message).toMatch(/cross-site/i);
+  expect(await footprint()).toBe(before);
+  refused += 1;
+}
+
 beforeAll(async () => {
   for (const target of new Set(mutating.map((r) => r.target))) worlds.set(target, await makeWorld(target, 'xsite'));
 }, 120_000);
@@ -65,12 +75,7 @@ describe('cross-site writes are refused on every mutating route', () => {
         if (!world) throw new Error(`no world for ${route.target}`);
         const mod = await route.load();
         const req = await disguised(await route.build(callerOf(world.org, role), resourceFor(world, route.target, 'own')), headers);
-        const before = await footprint();
-        const res = await handlerOf(mod, route.method)(req, params(routeParams(route.file, req.nextUrl)));
-        expect(res.status).toBe(403);
-        expect((await res.json()).error.message).toMatch(/cross-site/i);
-        expect(await footprint()).toBe(before);
-        refused += 1;
+        await expectRefused(mod, route, req);
       });
     }
   }
@@ -87,12 +92,7 @@ describe('public routes that write refuse cross-site requests too', () => {
           headers: { 'content-type': 'application/json', host: '127.0.0.1:3100', ...headers },
         });
         const mod: object = await import(/* @vite-ignore */ path.join(root, route.file));
-        const before = await footprint();
-        const res = await handlerOf(mod, route.method)(req, params(routeParams(route.file, req.nextUrl)));
-        expect(res.status).toBe(403);
-        expect((await res.json()).error.message).toMatch(/cross-site/i);
-        expect(await footprint()).toBe(before);
-        refused += 1;
+        await expectRefused(mod, route, req);
       });
     }
   }

@@ -53,20 +53,24 @@ export function toSummary(row: SummaryRow, today: string): VisitSummary {
   };
 }
 
-/** The latest screening's verdict of the visit (index screenings_visit_created). */
+/** The latest screening's verdict of the visit in `visitColumn`, as a subquery (index screenings_visit_created). */
+export const latestVerdictSql = (visitColumn: string) =>
+  `(SELECT s.verdict FROM screenings s WHERE s.visit_id = ${visitColumn} ORDER BY s.created_at DESC, s.id DESC LIMIT 1)`;
+
+/** The latest screening's verdict of the visit, or null before its first screening. */
 export async function latestVerdict(visitId: string): Promise<Verdict | null> {
-  const [row] = await getSequelize().query<{ verdict: Verdict }>(
-    'SELECT verdict FROM screenings WHERE visit_id = ? ORDER BY created_at DESC, id DESC LIMIT 1', { replacements: [visitId], type: QueryTypes.SELECT },
+  const [row] = await getSequelize().query<{ verdict: Verdict | null }>(
+    `SELECT ${latestVerdictSql('?')} AS verdict`, { replacements: [visitId], type: QueryTypes.SELECT },
   );
   return row?.verdict ?? null;
 }
 
 // The summaries' one query: the visits by primary key with their farm (in the user's organisation,
-// and the farmer's own for a farmer), its owner, the advisor and the latest screening's verdict
-// (index screenings_visit_created), as flat columns.
+// and the farmer's own for a farmer), its owner, the advisor and the latest screening's verdict,
+// as flat columns.
 const SUMMARY_SQL = `SELECT v.id, v.status, v.planned_on AS plannedOn, v.last_synced_at AS lastSyncedAt, v.updated_at AS updatedAt,
   v.farm_id AS farmId, f.name AS farmName, f.area AS farmArea, o.id AS ownerId, o.name AS ownerName, a.id AS advisorId, a.name AS advisorName,
-  (SELECT s.verdict FROM screenings s WHERE s.visit_id = v.id ORDER BY s.created_at DESC, s.id DESC LIMIT 1) AS verdict
+  ${latestVerdictSql('v.id')} AS verdict
   FROM visits v
   JOIN farms f ON f.id = v.farm_id AND f.organisation_id = ?
   LEFT JOIN users o ON o.id = f.owner_id

@@ -6,7 +6,7 @@ import type { VisitFilters, VisitListQuery } from '@/lib/shared/schemas/list-que
 import { todayIso } from '@/lib/shared/visit-rules';
 import { authorize, type Permission, type SessionUser } from '../auth/permissions';
 import { notFound } from '../errors';
-import { latestVerdict, toSummary, visitSummaries, type SummaryRow } from './visit-summaries';
+import { latestVerdict, latestVerdictSql, toSummary, visitSummaries, type SummaryRow } from './visit-summaries';
 
 export { visitSummaries, type VisitSummary } from './visit-summaries';
 
@@ -18,9 +18,8 @@ function visibleWhere(user: SessionUser): { where: WhereOptions; farmWhere?: Whe
   return { where: base, farmWhere: { ownerId: user.id } };
 }
 
-// The latest screening's verdict of the row's visit (index screenings_visit_created).
-const LATEST_VERDICT_SQL =
-  '(SELECT s.verdict FROM screenings s WHERE s.visit_id = `Visit`.`id` ORDER BY s.created_at DESC, s.id DESC LIMIT 1)';
+// The latest screening's verdict of the row's visit.
+const LATEST_VERDICT_SQL = latestVerdictSql('`Visit`.`id`');
 
 /** Escapes LIKE wildcards so a search for "50%" finds the text, not everything. */
 const likeContains = (text: string) => `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;

@@ -24,12 +24,7 @@ export class SyncAccess {
 
   /** The visit's facts, or null when it does not exist (or was deleted). */
   async visit(id: string): Promise<VisitFacts | null> {
-    if (!this.visits.has(id)) {
-      const row = await Visit.findOne({ where: { id, deletedAt: null }, transaction: this.transaction });
-      this.visits.set(id, row
-        ? { id: row.id, organisationId: row.organisationId, farmId: row.farmId, advisorId: row.advisorId, status: row.status }
-        : null);
-    }
+    await this.preloadVisits([id]);
     return this.visits.get(id) ?? null;
   }
 
@@ -40,7 +35,7 @@ export class SyncAccess {
   async preloadVisits(ids: string[]): Promise<void> {
     const wanted = ids.filter((id) => !this.visits.has(id));
     if (wanted.length === 0) return;
-    const rows = await txConnection(this.transaction).query<{ id: string; organisationId: string; farmId: string; advisorId: string | null; status: string }[]>(
+    const rows = await txConnection(this.transaction).query<VisitFacts[]>(
       'SELECT id, organisation_id AS organisationId, farm_id AS farmId, advisor_id AS advisorId, status FROM visits WHERE id IN (?) AND deleted_at IS NULL', [wanted],
     );
     for (const id of wanted) this.visits.set(id, null);
