@@ -1,12 +1,12 @@
 // Bench: Lighthouse 12 (mobile emulation, simulated throttling: its defaults) in Debian's Chromium on the
 // sign-in page, the field home and a sheet, and the empty App Router page (the floor) in the same run:
-// performance, accessibility and best practices, median of 3 runs, interleaved so every page sees the
+// performance, accessibility and best practices, median of 5 runs, interleaved so every page sees the
 // same machine load. Run with npm run bench (it serves the app and the floor).
 import { spawnSync } from 'node:child_process';
 import { pageBenchContext } from './support/demo';
 import { budget, median, report } from './support/report';
 
-const RUNS = 3;
+const RUNS = 5;
 
 interface Target { name: string; url: string; cookie?: string }
 type Scores = { performance: number; accessibility: number; bestPractices: number; failing: string[]; metrics?: Record<string, number> };

@@ -1,25 +1,22 @@
 'use client';
 
-import { useLiveQuery } from 'dexie-react-hooks';
 import Link from 'next/link';
-import { fieldDb } from '@/lib/client/db';
-import { getMeta, type SyncRecord } from '@/lib/client/sync/meta';
 import { VISIT_STATUS_LABELS, type VisitStatus } from '@/lib/shared/domain';
 import { formatDay } from '@/lib/shared/format';
 import { useFieldUser } from './_components/field-session';
+import { useLocalQuery } from './_components/use-local-query';
 
 export default function FieldHome() {
   // Nothing of anyone's is read until the frame knows whose field book this is.
   const user = useFieldUser();
-  const visits = useLiveQuery(async () => {
+  const visits = useLocalQuery(async (db) => {
     if (!user) return undefined;
-    const db = fieldDb();
     const rows = await db.visits.orderBy('plannedOn').toArray();
     const outbox = await db.outbox.toArray();
     const farms = new Map((await db.farms.bulkGet(rows.map((v) => v.farmId))).flatMap((f) => (f ? [[f.id, f] as const] : [])));
     return {
       // Before the phone's first sync an empty list means "not fetched yet", not "none assigned".
-      synced: (await getMeta<SyncRecord>('lastRun')) !== undefined,
+      synced: (await db.meta.get('lastRun')) !== undefined,
       rows: rows.map((v) => ({ ...v, farm: farms.get(v.farmId), waiting: outbox.filter((e) => e.visitId === v.id).length })),
     };
   }, [user]);

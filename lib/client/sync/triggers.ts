@@ -1,8 +1,10 @@
 // When the page asks for a sync: at start, after each save, on `online`, when the app comes back
-// to the foreground, on a timer while open, and on the button. Where a service worker controls
-// the page it runs the sync (and Background Sync wakes it later); otherwise the page runs it.
-import { runSync, type SyncOutcome } from './runner';
+// to the foreground, on a timer while open, and on the button. The page's own sync worker runs it
+// (off the main thread); where a service worker controls the page, Background Sync also wakes the
+// service worker later, even with the page closed. A Web Lock keeps one run at a time.
+import { runSyncInWorker } from './in-worker';
 import type { UploadProgress } from './photos';
+import type { SyncOutcome } from './runner';
 
 export const SYNC_TAG = 'fallbook-sync';
 const TIMER_MS = 60_000;
@@ -16,8 +18,8 @@ export async function requestSync(onProgress?: UploadProgress, force = false): P
     // Background Sync (Chromium) retries even after the page is closed.
     await registration.sync?.register(SYNC_TAG).catch(() => undefined);
   }
-  // The page runs the loop itself too: it has upload progress, and the Web Lock keeps it single.
-  return runSync(onProgress, force);
+  // The page's worker runs the loop too: it reports upload progress, and the Web Lock keeps it single.
+  return runSyncInWorker(onProgress, force);
 }
 
 /** Wires the automatic triggers; returns a function that unwires them. */

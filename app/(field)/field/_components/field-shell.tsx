@@ -2,9 +2,8 @@
 
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
-import { useEffect, useState } from 'react';
-import { loadLocalSession, rememberedUser, type LocalSession } from '@/lib/client/session';
-import { startSyncTriggers } from '@/lib/client/sync/triggers';
+import { startTransition, useEffect, useState } from 'react';
+import type { LocalSession } from '@/lib/client/session';
 import { FieldUserContext } from './field-session';
 import { StorageNote } from './storage-note';
 import { SyncBar } from './sync-bar';
@@ -29,15 +28,20 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
     let cancelled = false;
     // Open at once as the advisor remembered on this phone: a weak signal must not hold the field
     // book shut. Sync starts only once the server (or no network) confirms who is signed in, so a
-    // remembered person's changes are never sent under someone else's session.
-    void rememberedUser().then((user) => {
-      if (!cancelled && user) setSession((s) => s ?? { state: 'ready', user, online: navigator.onLine });
-    });
-    void loadLocalSession().then((s) => {
+    // remembered person's changes are never sent under someone else's session. The phone's database
+    // and the sync code load after hydration: the frame is drawn and answers input before that.
+    void import('@/lib/client/session').then(async ({ loadLocalSession, rememberedUser }) => {
+      void rememberedUser().then((user) => {
+        if (!cancelled && user) startTransition(() => setSession((s) => s ?? { state: 'ready', user, online: navigator.onLine }));
+      });
+      const s = await loadLocalSession();
       if (cancelled) return;
-      setSession(s);
+      // Drawn as a transition: React may pause the redraw of the frame for the person's input.
+      startTransition(() => setSession(s));
       if (s.state === 'signed-out') router.replace(`/login?callbackUrl=${encodeURIComponent(location.pathname + location.search)}`);
       if (s.state === 'ready' && s.user.role !== 'farmer') {
+        const { startSyncTriggers } = await import('@/lib/client/sync/triggers');
+        if (cancelled) return;
         stop = startSyncTriggers();
         void navigator.storage?.persist?.();
       }

@@ -1,6 +1,6 @@
 'use client';
 
-import { useEffect, useState } from 'react';
+import { startTransition, useEffect, useState } from 'react';
 
 type Storage = { usage: number; quota: number; persisted: boolean };
 
@@ -15,8 +15,9 @@ export function StorageNote() {
     void (async () => {
       const estimate = await navigator.storage?.estimate?.();
       const persisted = (await navigator.storage?.persisted?.()) ?? false;
-      if (!estimate?.quota) return;
-      setStorage({ usage: estimate.usage ?? 0, quota: estimate.quota, persisted });
+      const quota = estimate?.quota;
+      if (!quota) return;
+      startTransition(() => setStorage({ usage: estimate.usage ?? 0, quota, persisted }));
     })();
   }, []);
   // Plain digits: toLocaleString would build a number formatter (locale data) on a busy phone.

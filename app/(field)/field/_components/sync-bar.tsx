@@ -1,14 +1,12 @@
 'use client';
 
-import { useLiveQuery } from 'dexie-react-hooks';
 import Link from 'next/link';
 import { useState } from 'react';
-import { fieldDb } from '@/lib/client/db';
-import { getMeta, type SyncRecord } from '@/lib/client/sync/meta';
-import { requestSync } from '@/lib/client/sync/triggers';
+import type { SyncRecord } from '@/lib/client/sync/meta';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { formatClock } from '@/lib/shared/format';
 import { useFieldUser } from './field-session';
+import { useLocalQuery } from './use-local-query';
 
 function timeOf(iso: string | undefined, units: UnitSystem): string {
   return iso ? formatClock(new Date(iso), units) : 'never';
@@ -25,9 +23,8 @@ export function SyncBar({ ready }: { ready: boolean }) {
   const user = useFieldUser();
   const [progress, setProgress] = useState<{ sent: number; total: number } | null>(null);
   const [busy, setBusy] = useState(false);
-  const state = useLiveQuery(async () => {
+  const state = useLocalQuery(async (db) => {
     if (!ready) return undefined;
-    const db = fieldDb();
     const outbox = await db.outbox.toArray();
     // One pass over the photo queue, entry by entry (each carries its bytes): what waits, what was refused.
     let photos = 0;
@@ -41,15 +38,16 @@ export function SyncBar({ ready }: { ready: boolean }) {
       parked: outbox.filter((e) => e.status !== 'pending').length,
       photos,
       refusedPhotos,
-      lastSuccess: await getMeta<string>('lastSuccess'),
-      lastRun: await getMeta<SyncRecord>('lastRun'),
-      paused: (await getMeta<boolean>('authPaused')) ?? false,
+      lastSuccess: (await db.meta.get('lastSuccess'))?.value as string | undefined,
+      lastRun: (await db.meta.get('lastRun'))?.value as SyncRecord | undefined,
+      paused: ((await db.meta.get('authPaused'))?.value as boolean | undefined) ?? false,
     };
   }, [ready]);
 
   async function syncNow() {
     setBusy(true);
     try {
+      const { requestSync } = await import('@/lib/client/sync/triggers');
       await requestSync((_, sent, total) => setProgress({ sent, total }), true);
     } finally {
       setBusy(false);

@@ -1,0 +1,102 @@
+// The sync worker and the page's side of it: the worker runs the real loop and answers with its
+// outcome; the page falls back to running the loop itself when there is no worker or it dies.
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import type { SyncWorkerReply, SyncWorkerRequest } from '@/lib/client/sync/sync-worker';
+
+afterEach(() => { vi.unstubAllGlobals(); });
+
+/**
+ * Fresh modules for one test (the page module keeps one worker per page), all sharing one fresh
+ * phone database: a fake server, a way to queue a change, and the page's side of the worker.
+ */
+async function load() {
+  vi.resetModules();
+  const helpers = await import('./helpers');
+  const { saveRecord } = await import('@/lib/client/outbox');
+  const db = helpers.freshDb();
+  const source = (i: number) => saveRecord('waterSource', `55555555-5555-4555-8555-${String(i).padStart(12, '0')}`, {
+    visitId: helpers.VISIT, name: `source ${i}`, kind: 'creek', notes: '',
+  });
+  return { db, source, fakeServer: helpers.fakeServer, inWorker: () => import('@/lib/client/sync/in-worker') };
+}
+
+/** A stand-in for `new Worker(...)`: hands each posted request to `answer`, which replies or fails. */
+function stubWorker(answer: (request: SyncWorkerRequest, reply: (m: SyncWorkerReply) => void, fail: () => void) => void) {
+  const started: string[] = [];
+  class FakeWorker extends EventTarget {
+    constructor(url: URL) {
+      super();
+      started.push(url.pathname);
+    }
+    postMessage(request: SyncWorkerRequest) {
+      queueMicrotask(() => answer(request,
+        (m) => this.dispatchEvent(new MessageEvent('message', { data: m })),
+        () => this.dispatchEvent(new Event('error'))));
+    }
+    terminate() {}
+  }
+  vi.stubGlobal('Worker', FakeWorker);
+  return started;
+}
+
+describe('the sync worker', () => {
+  it('runs the loop on a request and answers with its outcome under the same id', async () => {
+    const { db, source, fakeServer } = await load();
+    const server = fakeServer();
+    await source(1);
+    await source(2);
+    const posted: SyncWorkerReply[] = [];
+    let onMessage: ((event: MessageEvent<SyncWorkerRequest>) => void) | undefined;
+    vi.stubGlobal('self', {
+      postMessage: (m: SyncWorkerReply) => posted.push(m),
+      addEventListener: (_: string, listener: typeof onMessage) => { onMessage = listener; },
+    });
+    await import('@/lib/client/sync/sync-worker');
+    onMessage?.(new MessageEvent('message', { data: { id: 7, force: false } }));
+    await vi.waitFor(() => expect(posted.some((m) => 'outcome' in m)).toBe(true));
+    expect(posted.at(-1)).toMatchObject({ id: 7, outcome: { ok: true, pushed: 2 } });
+    expect(server.pushed.flat()).toHaveLength(2);
+    expect(await db.outbox.count()).toBe(0);
+  });
+});
+
+describe('the page side (runSyncInWorker)', () => {
+  it('hands the run to the worker: progress and outcome come back to the caller', async () => {
+    const { inWorker } = await load();
+    const started = stubWorker((request, reply) => {
+      reply({ id: request.id, progress: ['photo-1', 512, 1024] });
+      reply({ id: request.id, outcome: { at: 'now', ok: true, message: null, pushed: 3, pulled: 0, photos: 1 } });
+    });
+    const { runSyncInWorker } = await inWorker();
+    const progress: unknown[] = [];
+    const outcome = await runSyncInWorker((...args) => progress.push(args), true);
+    expect(outcome).toMatchObject({ ok: true, pushed: 3 });
+    expect(progress).toEqual([['photo-1', 512, 1024]]);
+    expect(started).toHaveLength(1);
+    expect(started[0]).toMatch(/sync-worker\.ts$/);
+    // One worker serves every later run.
+    await runSyncInWorker(undefined, false);
+    expect(started).toHaveLength(1);
+  });
+
+  it('runs the loop in the page where there is no Worker', async () => {
+    const { source, fakeServer, inWorker } = await load();
+    vi.stubGlobal('Worker', undefined);
+    const server = fakeServer();
+    await source(3);
+    const { runSyncInWorker } = await inWorker();
+    expect(await runSyncInWorker(undefined, false)).toMatchObject({ ok: true, pushed: 1 });
+    expect(server.pushed.flat()).toHaveLength(1);
+  });
+
+  it('runs the loop in the page when the worker dies under a run: nothing waits for it', async () => {
+    const { db, source, fakeServer, inWorker } = await load();
+    stubWorker((_request, _reply, fail) => fail());
+    const server = fakeServer();
+    await source(4);
+    const { runSyncInWorker } = await inWorker();
+    expect(await runSyncInWorker(undefined, false)).toMatchObject({ ok: true, pushed: 1 });
+    expect(server.pushed.flat()).toHaveLength(1);
+    expect(await db.outbox.count()).toBe(0);
+  });
+});
