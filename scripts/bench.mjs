@@ -14,6 +14,10 @@ const started = Date.now();
 ensureNodeModules();
 ensureDebianPackages(['chromium'], 'chromium');
 loadEnv('test');
+// The pages are measured as `npm start` serves them: without the e2e tests' hooks, which a test build
+// loads on every field page (the app's save and sync modules, Dexie with them) before anything else.
+// A bench after `npm test` therefore builds once more (the build stamp includes NEXT_PUBLIC_* values).
+process.env.NEXT_PUBLIC_FALLBOOK_TEST_HOOKS = '';
 
 const { bringUpServices } = await import('./lib/stack.mjs');
 const { ensureBuild } = await import('./lib/build.mjs');

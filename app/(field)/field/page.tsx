@@ -12,12 +12,13 @@ export default function FieldHome() {
   const visits = useLocalQuery(async (db) => {
     if (!user) return undefined;
     const rows = await db.visits.orderBy('plannedOn').toArray();
-    const outbox = await db.outbox.toArray();
+    // The visit of each waiting change, from the index alone (no op is loaded).
+    const waitingVisits = (await db.outbox.orderBy('visitId').keys()) as string[];
     const farms = new Map((await db.farms.bulkGet(rows.map((v) => v.farmId))).flatMap((f) => (f ? [[f.id, f] as const] : [])));
     return {
       // Before the phone's first sync an empty list means "not fetched yet", not "none assigned".
       synced: (await db.meta.get('lastRun')) !== undefined,
-      rows: rows.map((v) => ({ ...v, farm: farms.get(v.farmId), waiting: outbox.filter((e) => e.visitId === v.id).length })),
+      rows: rows.map((v) => ({ ...v, farm: farms.get(v.farmId), waiting: waitingVisits.filter((id) => id === v.id).length })),
     };
   }, [user]);
   return (

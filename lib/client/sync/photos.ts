@@ -1,19 +1,21 @@
 // Photo bytes go up one per request, after their metadata was acknowledged; the phone keeps them
 // until the server has confirmed size and sha-256.
 import { fieldDb, type PhotoBlob } from '../db';
+import { waitingPhotoIds } from '../photo-queue';
 import { backoffMs } from './backoff';
 import { OfflineError, SyncHttpError } from './transport';
 
 export type UploadProgress = (photoId: string, sentBytes: number, totalBytes: number) => void;
 
-async function readyBlobs(now = Date.now()): Promise<PhotoBlob[]> {
+/** Ids of the photos due now whose metadata the server already has (its op left the outbox). */
+async function readyIds(now = Date.now()): Promise<string[]> {
   const db = fieldDb();
-  const waiting = await db.photoBlobs.filter((b) => b.uploadedAt === null && b.nextAttemptAt <= now).toArray();
-  const out: PhotoBlob[] = [];
-  for (const blob of waiting) {
-    // The server must know the photo's metadata first: its op must have left the outbox.
-    const pending = await db.outbox.where('entityId').equals(blob.id).count();
-    if (pending === 0) out.push(blob);
+  const out: string[] = [];
+  for (const id of await waitingPhotoIds(db)) {
+    const pending = await db.outbox.where('entityId').equals(id).count();
+    if (pending > 0) continue;
+    const blob = await db.photoBlobs.get(id);
+    if (blob && blob.uploadedAt === null && blob.nextAttemptAt <= now) out.push(id);
   }
   return out;
 }
@@ -55,7 +57,10 @@ function send(blob: PhotoBlob, onProgress?: UploadProgress): Promise<Answer> {
 export async function uploadPhotos(onProgress?: UploadProgress, force = false): Promise<number> {
   const db = fieldDb();
   let done = 0;
-  for (const blob of await readyBlobs(force ? Number.POSITIVE_INFINITY : Date.now())) {
+  // One photo's bytes in memory at a time: a day offline can leave dozens waiting.
+  for (const id of await readyIds(force ? Number.POSITIVE_INFINITY : Date.now())) {
+    const blob = await db.photoBlobs.get(id);
+    if (!blob || blob.uploadedAt !== null) continue;
     const { status, body } = await send(blob, onProgress);
     if (status === 401) throw new SyncHttpError(401, 'Sign in again to send your photos.');
     if (status >= 200 && status < 300) {

@@ -2,6 +2,7 @@
 
 import Link from 'next/link';
 import { useState } from 'react';
+import { photoQueueCounts } from '@/lib/client/photo-queue';
 import type { SyncRecord } from '@/lib/client/sync/meta';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { formatClock } from '@/lib/shared/format';
@@ -25,22 +26,22 @@ export function SyncBar({ ready }: { ready: boolean }) {
   const [busy, setBusy] = useState(false);
   const state = useLocalQuery(async (db) => {
     if (!ready) return undefined;
-    const outbox = await db.outbox.toArray();
-    // One pass over the photo queue, entry by entry (each carries its bytes): what waits, what was refused.
-    let photos = 0;
-    let refusedPhotos = 0;
-    await db.photoBlobs.filter((b) => b.uploadedAt === null).each((b) => {
-      photos += 1;
-      if (b.lastError) refusedPhotos += 1;
-    });
+    // Counts from indexes and keys: no op and no photo bytes are loaded to draw two lines.
+    const [waiting, changes, photos, facts] = await Promise.all([
+      db.outbox.where('status').equals('pending').count(),
+      db.outbox.count(),
+      photoQueueCounts(db),
+      db.meta.bulkGet(['lastSuccess', 'lastRun', 'authPaused']),
+    ]);
+    const [lastSuccess, lastRun, paused] = facts.map((f) => f?.value);
     return {
-      waiting: outbox.filter((e) => e.status === 'pending').length,
-      parked: outbox.filter((e) => e.status !== 'pending').length,
-      photos,
-      refusedPhotos,
-      lastSuccess: (await db.meta.get('lastSuccess'))?.value as string | undefined,
-      lastRun: (await db.meta.get('lastRun'))?.value as SyncRecord | undefined,
-      paused: ((await db.meta.get('authPaused'))?.value as boolean | undefined) ?? false,
+      waiting,
+      parked: changes - waiting,
+      photos: photos.waiting,
+      refusedPhotos: photos.refused,
+      lastSuccess: lastSuccess as string | undefined,
+      lastRun: lastRun as SyncRecord | undefined,
+      paused: (paused as boolean | undefined) ?? false,
     };
   }, [ready]);
 

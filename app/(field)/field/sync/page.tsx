@@ -3,6 +3,7 @@
 import { useLiveQuery } from 'dexie-react-hooks';
 import Link from 'next/link';
 import { fieldDb, type OutboxEntry } from '@/lib/client/db';
+import { waitingPhotos } from '@/lib/client/photo-queue';
 import { requestSync } from '@/lib/client/sync/triggers';
 import { discardParked, resolveConflict, retryParked } from '@/lib/client/sync/resolve';
 import type { UnitSystem } from '@/lib/shared/domain';
@@ -53,7 +54,7 @@ function Refused({ entry }: { entry: OutboxEntry }) {
 function RefusedPhotos() {
   const refused = useLiveQuery(async () => {
     const db = fieldDb();
-    const blobs = await db.photoBlobs.filter((b) => b.uploadedAt === null && !!b.lastError).toArray();
+    const blobs = await waitingPhotos(db, (b) => !!b.lastError);
     return Promise.all(blobs.map(async (b) => ({ id: b.id, error: b.lastError, caption: (await db.photos.get(b.id))?.caption ?? '' })));
   });
   if (!refused || refused.length === 0) return null;
