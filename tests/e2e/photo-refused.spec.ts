@@ -47,6 +47,11 @@ test('a refused photo shows the reason, stays on the phone, and goes up when tri
   // Nothing was stored on the server, and the phone still has the bytes.
   const [metadata] = await query<{ uploadedAt: Date | null }>('SELECT uploaded_at AS uploadedAt FROM photos WHERE visit_id = ?', [visitId]);
   expect(metadata?.uploadedAt ?? null).toBeNull();
+  // The photos page agrees: the photo's metadata is on the server, its bytes are not.
+  await page.goto(`/field/visit/photos?id=${visitId}`);
+  await expect(page.getByText('Waiting to upload')).toBeVisible();
+  await expect(page.getByText('On the server')).toHaveCount(0);
+  await page.goto('/field/sync');
 
   await context.unroute(refuse);
   await refused.getByRole('button', { name: 'Try again now' }).click();
@@ -55,5 +60,7 @@ test('a refused photo shows the reason, stays on the phone, and goes up when tri
   const [stored] = await query<{ sha256: string; uploadedAt: Date | null }>('SELECT sha256, uploaded_at AS uploadedAt FROM photos WHERE visit_id = ?', [visitId]);
   expect(stored?.sha256).toBe(photo.sha256);
   expect(stored?.uploadedAt).not.toBeNull();
+  await page.goto(`/field/visit/photos?id=${visitId}`);
+  await expect(page.getByText('On the server')).toBeVisible();
   await context.close();
 });

@@ -5,6 +5,7 @@ import { Suspense, useEffect, useMemo, useState } from 'react';
 import { fieldDb } from '@/lib/client/db';
 import { newId } from '@/lib/client/ids';
 import { deleteRecord, savePhoto } from '@/lib/client/outbox';
+import { waitingPhotoIds } from '@/lib/client/photo-queue';
 import { readPhoto } from '@/lib/client/photo-intake';
 import { announceSave } from '@/lib/client/sync/triggers';
 import { SectionHeader } from '../../_components/choice';
@@ -29,7 +30,10 @@ function PhotosPage() {
   const photos = useLiveQuery(async () => {
     const db = fieldDb();
     const rows = (await db.photos.where('visitId').equals(visitId).toArray()).filter((p) => !p.deletedAt);
-    return Promise.all(rows.map(async (p) => ({ ...p, uploaded: (await db.photoBlobs.get(p.id))?.uploadedAt ?? (p.rev > 0 ? 'server' : null) })));
+    // Waiting means the bytes have not gone up, whether or not the metadata has (a refused photo's
+    // metadata is on the server, its bytes are not). Read by keys: no photo's bytes are loaded here.
+    const waiting = new Set(await waitingPhotoIds(db));
+    return rows.map((p) => ({ ...p, uploaded: !waiting.has(p.id) }));
   }, [visitId]);
 
   async function add(list: FileList | null) {
