@@ -17,8 +17,9 @@ export async function mergePull(page: PullResponse): Promise<void> {
   const db = fieldDb();
   const tables = CHILD_ENTITIES.map((e) => db.table(TABLE_OF[e]));
   await db.transaction('rw', [db.visits, db.farms, db.outbox, db.meta, db.photoBlobs, db.commissionings, ...tables], async () => {
-    const waiting = new Set((await db.outbox.toArray()).map((e) => e.entityId));
-    const waitingVisits = new Set((await db.outbox.toArray()).map((e) => e.visitId));
+    // From the outbox's indexes: the ops themselves (their changes) are not loaded.
+    const waiting = new Set((await db.outbox.orderBy('entityId').keys()) as string[]);
+    const waitingVisits = new Set((await db.outbox.orderBy('visitId').keys()) as string[]);
     // One bulk call per table, not one call per row: on a phone each call costs its own round of
     // promise work, and a first pull of a few hundred rows would hold the page for a long moment.
     // The last copy of an id in the page decides, as one call per row in order would.
