@@ -1,5 +1,5 @@
-// The Dexie side of useLocalQuery, loaded on demand: a field page draws and hydrates without
-// evaluating Dexie or opening the phone's database first (on a slow phone each is a long task).
+// A live read in the page itself, loaded on demand: the frame's reads where the page has no field
+// worker (see sync/in-worker.ts).
 import { liveQuery } from 'dexie';
 import { fieldDb, type FieldDatabase } from './db';
 

@@ -4,23 +4,12 @@ import Link from 'next/link';
 import { VISIT_STATUS_LABELS, type VisitStatus } from '@/lib/shared/domain';
 import { formatDay } from '@/lib/shared/format';
 import { useFieldUser } from './_components/field-session';
-import { useLocalQuery } from './_components/use-local-query';
+import { useFrameQuery } from './_components/use-frame-query';
 
 export default function FieldHome() {
-  // Nothing of anyone's is read until the frame knows whose field book this is.
   const user = useFieldUser();
-  const visits = useLocalQuery(async (db) => {
-    if (!user) return undefined;
-    const rows = await db.visits.orderBy('plannedOn').toArray();
-    // The visit of each waiting change, from the index alone (no op is loaded).
-    const waitingVisits = (await db.outbox.orderBy('visitId').keys()) as string[];
-    const farms = new Map((await db.farms.bulkGet(rows.map((v) => v.farmId))).flatMap((f) => (f ? [[f.id, f] as const] : [])));
-    return {
-      // Before the phone's first sync an empty list means "not fetched yet", not "none assigned".
-      synced: (await db.meta.get('lastRun')) !== undefined,
-      rows: rows.map((v) => ({ ...v, farm: farms.get(v.farmId), waiting: waitingVisits.filter((id) => id === v.id).length })),
-    };
-  }, [user]);
+  // Nothing of anyone's is read until the frame knows whose field book this is.
+  const visits = useFrameQuery('homeVisits', user !== null);
   return (
     <div className="space-y-5">
       <h1 className="text-3xl font-bold text-slate">My site visits</h1>

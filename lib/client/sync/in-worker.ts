@@ -1,40 +1,33 @@
-// The page's side of the sync worker: one worker per page, started on the first request, with a
-// fallback to running the loop in the page where workers (or module workers) are not available.
+// The page's side of the field worker (sync-worker.ts): one worker per page, started on the first
+// request. It runs the sync loop and answers the frame's reads; where there is no worker (or module
+// workers), or it dies, the page does the same work itself with the same modules.
+import type { SessionUser } from '@/lib/shared/domain';
+import type { FrameAnswer, FrameQuery } from '../frame-queries';
+import type { LocalSession } from '../session';
 import type { UploadProgress } from './photos';
 import type { SyncOutcome } from './runner';
 import type { SyncWorkerReply, SyncWorkerRequest } from './sync-worker';
 
-interface Pending { resolve: (outcome: SyncOutcome) => void; reject: (error: Error) => void; onProgress?: UploadProgress }
+type Request = SyncWorkerRequest extends infer R ? (R extends SyncWorkerRequest ? Omit<R, 'id'> : never) : never;
+interface Call { onReply: (reply: SyncWorkerReply) => void; onDeath: () => void }
 
 let worker: Worker | null | undefined;
 let nextId = 1;
-const pending = new Map<number, Pending>();
-
-function failAll(error: Error): void {
-  for (const call of pending.values()) call.reject(error);
-  pending.clear();
-}
+const calls = new Map<number, Call>();
 
 function startWorker(): Worker | null {
   if (typeof Worker === 'undefined') return null;
   try {
-    const started = new Worker(new URL('./sync-worker.ts', import.meta.url), { type: 'module', name: 'fallbook-sync' });
-    started.addEventListener('message', (event: MessageEvent<SyncWorkerReply>) => {
-      const reply = event.data;
-      const call = pending.get(reply.id);
-      if (!call) return;
-      if ('progress' in reply) call.onProgress?.(...reply.progress);
-      else {
-        pending.delete(reply.id);
-        if ('outcome' in reply) call.resolve(reply.outcome);
-        else call.reject(new Error(reply.error));
-      }
-    });
-    // A worker that failed to load or crashed: the page runs the loop itself from now on.
+    const started = new Worker(new URL('./sync-worker.ts', import.meta.url), { type: 'module', name: 'fallbook-field' });
+    started.addEventListener('message', (event: MessageEvent<SyncWorkerReply>) => calls.get(event.data.id)?.onReply(event.data));
+    // A worker that failed to load or crashed: the page does the work itself from now on, and what
+    // was waiting on the worker is done again here (its Web Lock went with it).
     started.addEventListener('error', () => {
       worker = null;
       started.terminate();
-      failAll(new Error('The sync worker stopped.'));
+      const waiting = [...calls.values()];
+      calls.clear();
+      for (const call of waiting) call.onDeath();
     });
     return started;
   } catch {
@@ -42,22 +35,69 @@ function startWorker(): Worker | null {
   }
 }
 
-/** Runs one sync in the worker; falls back to the page when there is no worker. */
-export async function runSyncInWorker(onProgress: UploadProgress | undefined, force: boolean): Promise<SyncOutcome> {
+/** Sends a request to the worker; returns its id, or null when there is no worker. */
+function send(request: Request, call: Call): number | null {
   if (worker === undefined) worker = startWorker();
-  if (!worker) {
-    const { runSync } = await import('./runner');
-    return runSync(onProgress, force);
-  }
+  if (!worker) return null;
   const id = nextId++;
-  const reply = new Promise<SyncOutcome>((resolve, reject) => pending.set(id, { resolve, reject, onProgress }));
-  worker.postMessage({ id, force } satisfies SyncWorkerRequest);
-  try {
-    return await reply;
-  } catch {
-    // The worker died under this run: whatever it had not finished is still on the phone, and the
-    // Web Lock it held is gone with it, so the page can run the loop itself at once.
-    const { runSync } = await import('./runner');
-    return runSync(onProgress, force);
-  }
+  calls.set(id, call);
+  worker.postMessage({ ...request, id } as SyncWorkerRequest);
+  return id;
+}
+
+/** One answer from the worker under `key`, or the same work done in the page. */
+function ask<T>(request: Request, key: 'outcome' | 'session' | 'user', local: () => Promise<T>, onProgress?: UploadProgress): Promise<T> {
+  return new Promise<T>((resolve, reject) => {
+    const inPage = () => void local().then(resolve, reject);
+    const id = send(request, {
+      onReply: (reply) => {
+        if ('progress' in reply) return onProgress?.(...reply.progress);
+        calls.delete(reply.id);
+        if (key in reply) resolve((reply as unknown as Record<typeof key, T>)[key]);
+        else inPage();
+      },
+      onDeath: inPage,
+    });
+    if (id === null) inPage();
+  });
+}
+
+/** Runs one sync in the worker; the page runs it where there is no worker. */
+export function runSyncInWorker(onProgress: UploadProgress | undefined, force: boolean): Promise<SyncOutcome> {
+  return ask({ type: 'sync', force }, 'outcome', async () => (await import('./runner')).runSync(onProgress, force), onProgress);
+}
+
+/** Who is signed in (the server asked, the phone remembering): see lib/client/session.ts. */
+export function sessionFromWorker(): Promise<LocalSession> {
+  return ask({ type: 'session' }, 'session', async () => (await import('../session')).loadLocalSession());
+}
+
+/** The advisor remembered on this phone, without the network. */
+export function rememberedFromWorker(): Promise<SessionUser | null> {
+  return ask({ type: 'remembered' }, 'user', async () => (await import('../session')).rememberedUser());
+}
+
+/** A live read of the frame (see frame-queries.ts); returns the unsubscribe. */
+export function watchFrame<Q extends FrameQuery>(query: Q, onValue: (value: FrameAnswer<Q>) => void, onError: (error: unknown) => void): () => void {
+  let stop: (() => void) | undefined;
+  let stopped = false;
+  const inPage = () => void Promise.all([import('../live-query'), import('../frame-queries')]).then(([{ watchLocal }, { FRAME_QUERIES }]) => {
+    if (!stopped) stop = watchLocal((db) => FRAME_QUERIES[query](db) as Promise<FrameAnswer<Q>>, onValue, onError);
+  });
+  const id = send({ type: 'watch', query }, {
+    onReply: (reply) => {
+      if ('value' in reply) onValue(reply.value as FrameAnswer<Q>);
+      else if ('error' in reply) onError(new Error(reply.error));
+    },
+    onDeath: inPage,
+  });
+  if (id === null) inPage();
+  else stop = () => {
+    calls.delete(id);
+    worker?.postMessage({ id, type: 'unwatch' } satisfies SyncWorkerRequest);
+  };
+  return () => {
+    stopped = true;
+    stop?.();
+  };
 }

@@ -1,5 +1,6 @@
-// The sync worker and the page's side of it: the worker runs the real loop and answers with its
-// outcome; the page falls back to running the loop itself when there is no worker or it dies.
+// The field worker and the page's side of it: the worker runs the real loop and answers with its
+// outcome, and answers the frame's live reads; the page does the same work itself when there is no
+// worker or it dies.
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import type { SyncWorkerReply, SyncWorkerRequest } from '@/lib/client/sync/sync-worker';
 
@@ -17,7 +18,7 @@ async function load() {
   const source = (i: number) => saveRecord('waterSource', `55555555-5555-4555-8555-${String(i).padStart(12, '0')}`, {
     visitId: helpers.VISIT, name: `source ${i}`, kind: 'creek', notes: '',
   });
-  return { db, source, fakeServer: helpers.fakeServer, inWorker: () => import('@/lib/client/sync/in-worker') };
+  return { db, source, fakeServer: helpers.fakeServer, visit: helpers.VISIT, inWorker: () => import('@/lib/client/sync/in-worker') };
 }
 
 /** A stand-in for `new Worker(...)`: hands each posted request to `answer`, which replies or fails. */
@@ -52,11 +53,58 @@ describe('the sync worker', () => {
       addEventListener: (_: string, listener: typeof onMessage) => { onMessage = listener; },
     });
     await import('@/lib/client/sync/sync-worker');
-    onMessage?.(new MessageEvent('message', { data: { id: 7, force: false } }));
+    onMessage?.(new MessageEvent('message', { data: { id: 7, type: 'sync', force: false } }));
     await vi.waitFor(() => expect(posted.some((m) => 'outcome' in m)).toBe(true));
     expect(posted.at(-1)).toMatchObject({ id: 7, outcome: { ok: true, pushed: 2 } });
     expect(server.pushed.flat()).toHaveLength(2);
     expect(await db.outbox.count()).toBe(0);
+  });
+});
+
+describe('the field worker: the frame\'s reads', () => {
+  it('answers a watch with the summary, again after a change, and not after unwatch', async () => {
+    const { source } = await load();
+    const posted: SyncWorkerReply[] = [];
+    let onMessage: ((event: MessageEvent<SyncWorkerRequest>) => void) | undefined;
+    vi.stubGlobal('self', {
+      postMessage: (m: SyncWorkerReply) => posted.push(m),
+      addEventListener: (_: string, listener: typeof onMessage) => { onMessage = listener; },
+    });
+    await import('@/lib/client/sync/sync-worker');
+    const values = () => posted.filter((m): m is { id: number; value: { waiting: number } } => m.id === 3 && 'value' in m).map((m) => m.value.waiting);
+    onMessage?.(new MessageEvent('message', { data: { id: 3, type: 'watch', query: 'syncSummary' } }));
+    await vi.waitFor(() => expect(values()).toEqual([0]));
+    await source(5);
+    await vi.waitFor(() => expect(values()).toEqual([0, 1]));
+    onMessage?.(new MessageEvent('message', { data: { id: 3, type: 'unwatch' } }));
+    await source(6);
+    await new Promise((resolve) => setTimeout(resolve, 100));
+    expect(values()).toEqual([0, 1]);
+  });
+
+  it('answers who is remembered on this phone', async () => {
+    const { db } = await load();
+    await db.meta.put({ key: 'user', value: { id: 'u1', name: 'Tobias' } });
+    const posted: SyncWorkerReply[] = [];
+    let onMessage: ((event: MessageEvent<SyncWorkerRequest>) => void) | undefined;
+    vi.stubGlobal('self', {
+      postMessage: (m: SyncWorkerReply) => posted.push(m),
+      addEventListener: (_: string, listener: typeof onMessage) => { onMessage = listener; },
+    });
+    await import('@/lib/client/sync/sync-worker');
+    onMessage?.(new MessageEvent('message', { data: { id: 4, type: 'remembered' } }));
+    await vi.waitFor(() => expect(posted).toContainEqual({ id: 4, user: { id: 'u1', name: 'Tobias' } }));
+  });
+
+  it('the page reads the frame itself where there is no Worker', async () => {
+    const { source, inWorker } = await load();
+    vi.stubGlobal('Worker', undefined);
+    await source(7);
+    const { watchFrame } = await inWorker();
+    const seen: number[] = [];
+    const stop = watchFrame('syncSummary', (value) => seen.push(value.waiting), (error) => { throw error; });
+    await vi.waitFor(() => expect(seen).toEqual([1]));
+    stop();
   });
 });
 

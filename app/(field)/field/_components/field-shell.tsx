@@ -28,13 +28,13 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
     let cancelled = false;
     // Open at once as the advisor remembered on this phone: a weak signal must not hold the field
     // book shut. Sync starts only once the server (or no network) confirms who is signed in, so a
-    // remembered person's changes are never sent under someone else's session. The phone's database
-    // and the sync code load after hydration: the frame is drawn and answers input before that.
-    void import('@/lib/client/session').then(async ({ loadLocalSession, rememberedUser }) => {
-      void rememberedUser().then((user) => {
+    // remembered person's changes are never sent under someone else's session. The field worker
+    // reads the phone's database and runs the sync: the frame evaluates no Dexie of its own.
+    void import('@/lib/client/sync/in-worker').then(async ({ sessionFromWorker, rememberedFromWorker }) => {
+      void rememberedFromWorker().then((user) => {
         if (!cancelled && user) startTransition(() => setSession((s) => s ?? { state: 'ready', user, online: navigator.onLine }));
       });
-      const s = await loadLocalSession();
+      const s = await sessionFromWorker();
       if (cancelled) return;
       // Drawn as a transition: React may pause the redraw of the frame for the person's input.
       startTransition(() => setSession(s));

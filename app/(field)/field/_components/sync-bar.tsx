@@ -2,12 +2,11 @@
 
 import Link from 'next/link';
 import { useState } from 'react';
-import { photoQueueCounts } from '@/lib/client/photo-queue';
 import type { SyncRecord } from '@/lib/client/sync/meta';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { formatClock } from '@/lib/shared/format';
 import { useFieldUser } from './field-session';
-import { useLocalQuery } from './use-local-query';
+import { useFrameQuery } from './use-frame-query';
 
 function timeOf(iso: string | undefined, units: UnitSystem): string {
   return iso ? formatClock(new Date(iso), units) : 'never';
@@ -24,26 +23,7 @@ export function SyncBar({ ready }: { ready: boolean }) {
   const user = useFieldUser();
   const [progress, setProgress] = useState<{ sent: number; total: number } | null>(null);
   const [busy, setBusy] = useState(false);
-  const state = useLocalQuery(async (db) => {
-    if (!ready) return undefined;
-    // Counts from indexes and keys: no op and no photo bytes are loaded to draw two lines.
-    const [waiting, changes, photos, facts] = await Promise.all([
-      db.outbox.where('status').equals('pending').count(),
-      db.outbox.count(),
-      photoQueueCounts(db),
-      db.meta.bulkGet(['lastSuccess', 'lastRun', 'authPaused']),
-    ]);
-    const [lastSuccess, lastRun, paused] = facts.map((f) => f?.value);
-    return {
-      waiting,
-      parked: changes - waiting,
-      photos: photos.waiting,
-      refusedPhotos: photos.refused,
-      lastSuccess: lastSuccess as string | undefined,
-      lastRun: lastRun as SyncRecord | undefined,
-      paused: (paused as boolean | undefined) ?? false,
-    };
-  }, [ready]);
+  const state = useFrameQuery('syncSummary', ready);
 
   async function syncNow() {
     setBusy(true);

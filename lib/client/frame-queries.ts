@@ -1,0 +1,44 @@
+// The field frame's and home's reads of the phone's database, by name. The page's sync worker runs
+// them and posts the answers, so those pages evaluate no Dexie at all; a page without the worker
+// runs them itself. Small summaries only: counts from indexes, never ops or photo bytes.
+import type { FieldDatabase, LocalFarm, LocalVisit } from './db';
+import { photoQueueCounts } from './photo-queue';
+import type { SyncRecord } from './sync/meta';
+
+/** What the sync bar shows: changes and photos waiting or parked, the last runs, a paused sync. */
+export async function syncSummary(db: FieldDatabase) {
+  const [waiting, changes, photos, facts] = await Promise.all([
+    db.outbox.where('status').equals('pending').count(),
+    db.outbox.count(),
+    photoQueueCounts(db),
+    db.meta.bulkGet(['lastSuccess', 'lastRun', 'authPaused']),
+  ]);
+  const [lastSuccess, lastRun, paused] = facts.map((f) => f?.value);
+  return {
+    waiting,
+    parked: changes - waiting,
+    photos: photos.waiting,
+    refusedPhotos: photos.refused,
+    lastSuccess: lastSuccess as string | undefined,
+    lastRun: lastRun as SyncRecord | undefined,
+    paused: (paused as boolean | undefined) ?? false,
+  };
+}
+
+/** The home's list: the phone's visits by planned day with their farms and waiting changes. */
+export async function homeVisits(db: FieldDatabase) {
+  const rows = await db.visits.orderBy('plannedOn').toArray();
+  // The visit of each waiting change, from the index alone (no op is loaded).
+  const waitingVisits = (await db.outbox.orderBy('visitId').keys()) as string[];
+  const farms = new Map((await db.farms.bulkGet(rows.map((v) => v.farmId))).flatMap((f) => (f ? [[f.id, f] as const] : [])));
+  return {
+    // Before the phone's first sync an empty list means "not fetched yet", not "none assigned".
+    synced: (await db.meta.get('lastRun')) !== undefined,
+    rows: rows.map((v): LocalVisit & { farm: LocalFarm | undefined; waiting: number } => (
+      { ...v, farm: farms.get(v.farmId), waiting: waitingVisits.filter((id) => id === v.id).length })),
+  };
+}
+
+export const FRAME_QUERIES = { syncSummary, homeVisits };
+export type FrameQuery = keyof typeof FRAME_QUERIES;
+export type FrameAnswer<Q extends FrameQuery> = Awaited<ReturnType<(typeof FRAME_QUERIES)[Q]>>;
