@@ -29,13 +29,14 @@ export async function syncSummary(db: FieldDatabase) {
 export async function homeVisits(db: FieldDatabase) {
   const rows = await db.visits.orderBy('plannedOn').toArray();
   // The visit of each waiting change, from the index alone (no op is loaded).
-  const waitingVisits = (await db.outbox.orderBy('visitId').keys()) as string[];
+  const waiting = new Map<string, number>();
+  for (const id of (await db.outbox.orderBy('visitId').keys()) as string[]) waiting.set(id, (waiting.get(id) ?? 0) + 1);
   const farms = new Map((await db.farms.bulkGet(rows.map((v) => v.farmId))).flatMap((f) => (f ? [[f.id, f] as const] : [])));
   return {
     // Before the phone's first sync an empty list means "not fetched yet", not "none assigned".
     synced: (await db.meta.get('lastRun')) !== undefined,
     rows: rows.map((v): LocalVisit & { farm: LocalFarm | undefined; waiting: number } => (
-      { ...v, farm: farms.get(v.farmId), waiting: waitingVisits.filter((id) => id === v.id).length })),
+      { ...v, farm: farms.get(v.farmId), waiting: waiting.get(v.id) ?? 0 })),
   };
 }
 

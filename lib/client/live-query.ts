@@ -1,5 +1,5 @@
-// A live read in the page itself, loaded on demand: the frame's reads where the page has no field
-// worker (see sync/in-worker.ts).
+// A live read of the phone's database: the field worker's answers to the frame, and the same reads
+// in the page where it has no field worker (see sync/in-worker.ts).
 import { liveQuery } from 'dexie';
 import { fieldDb, type FieldDatabase } from './db';
 

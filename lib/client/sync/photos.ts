@@ -7,19 +7,6 @@ import { OfflineError, SyncHttpError } from './transport';
 
 export type UploadProgress = (photoId: string, sentBytes: number, totalBytes: number) => void;
 
-/** Ids of the photos due now whose metadata the server already has (its op left the outbox). */
-async function readyIds(now = Date.now()): Promise<string[]> {
-  const db = fieldDb();
-  const out: string[] = [];
-  for (const id of await waitingPhotoIds(db)) {
-    const pending = await db.outbox.where('entityId').equals(id).count();
-    if (pending > 0) continue;
-    const blob = await db.photoBlobs.get(id);
-    if (blob && blob.uploadedAt === null && blob.nextAttemptAt <= now) out.push(id);
-  }
-  return out;
-}
-
 interface Answer { status: number; body: string }
 
 /** The message of the server's JSON error ({ error: { message } }), or a plain fallback. */
@@ -57,10 +44,13 @@ function send(blob: PhotoBlob, onProgress?: UploadProgress): Promise<Answer> {
 export async function uploadPhotos(onProgress?: UploadProgress, force = false): Promise<number> {
   const db = fieldDb();
   let done = 0;
-  // One photo's bytes in memory at a time: a day offline can leave dozens waiting.
-  for (const id of await readyIds(force ? Number.POSITIVE_INFINITY : Date.now())) {
+  const now = force ? Number.POSITIVE_INFINITY : Date.now();
+  // One photo's bytes in memory at a time, read once: a day offline can leave dozens waiting.
+  for (const id of await waitingPhotoIds(db)) {
+    // The server must know the photo's metadata first: its op must have left the outbox.
+    if ((await db.outbox.where('entityId').equals(id).count()) > 0) continue;
     const blob = await db.photoBlobs.get(id);
-    if (!blob || blob.uploadedAt !== null) continue;
+    if (!blob || blob.uploadedAt !== null || blob.nextAttemptAt > now) continue;
     const { status, body } = await send(blob, onProgress);
     if (status === 401) throw new SyncHttpError(401, 'Sign in again to send your photos.');
     if (status >= 200 && status < 300) {

@@ -3,9 +3,9 @@
 // frame's own reads (who is signed in, the sync bar's counts, the home list), so the frame and the
 // home evaluate no Dexie at all. The pages' other live queries still see every change: Dexie tells
 // the other contexts of the origin what was written.
-import { liveQuery } from 'dexie';
-import { fieldDb } from '../db';
+import type { FieldDatabase } from '../db';
 import { FRAME_QUERIES, type FrameQuery } from '../frame-queries';
+import { watchLocal } from '../live-query';
 import { loadLocalSession, rememberedUser, type LocalSession } from '../session';
 import type { SessionUser } from '@/lib/shared/domain';
 import { runSync, type SyncOutcome } from './runner';
@@ -31,7 +31,7 @@ const scope = self as unknown as {
   addEventListener(type: 'message', listener: (event: MessageEvent<SyncWorkerRequest>) => void): void;
 };
 
-const watches = new Map<number, { unsubscribe(): void }>();
+const watches = new Map<number, () => void>();
 const failed = (id: number) => (error: unknown) => scope.postMessage({ id, error: error instanceof Error ? error.message : String(error) });
 
 scope.addEventListener('message', (event) => {
@@ -43,12 +43,12 @@ scope.addEventListener('message', (event) => {
         .then((outcome) => scope.postMessage({ id, outcome }), failed(id));
       break;
     case 'watch': {
-      const query = FRAME_QUERIES[request.query] as (db: ReturnType<typeof fieldDb>) => Promise<unknown>;
-      watches.set(id, liveQuery(() => query(fieldDb())).subscribe({ next: (value) => scope.postMessage({ id, value }), error: failed(id) }));
+      const query = FRAME_QUERIES[request.query] as (db: FieldDatabase) => Promise<unknown>;
+      watches.set(id, watchLocal(query, (value) => scope.postMessage({ id, value }), failed(id)));
       break;
     }
     case 'unwatch':
-      watches.get(id)?.unsubscribe();
+      watches.get(id)?.();
       watches.delete(id);
       break;
     case 'session':

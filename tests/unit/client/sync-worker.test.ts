@@ -18,7 +18,19 @@ async function load() {
   const source = (i: number) => saveRecord('waterSource', `55555555-5555-4555-8555-${String(i).padStart(12, '0')}`, {
     visitId: helpers.VISIT, name: `source ${i}`, kind: 'creek', notes: '',
   });
-  return { db, source, fakeServer: helpers.fakeServer, visit: helpers.VISIT, inWorker: () => import('@/lib/client/sync/in-worker') };
+  return { db, source, fakeServer: helpers.fakeServer, inWorker: () => import('@/lib/client/sync/in-worker') };
+}
+
+/** The worker module loaded under a stand-in global scope: what it posts, and a way to send it a request. */
+async function workerScope() {
+  const posted: SyncWorkerReply[] = [];
+  let onMessage: ((event: MessageEvent<SyncWorkerRequest>) => void) | undefined;
+  vi.stubGlobal('self', {
+    postMessage: (m: SyncWorkerReply) => posted.push(m),
+    addEventListener: (_: string, listener: typeof onMessage) => { onMessage = listener; },
+  });
+  await import('@/lib/client/sync/sync-worker');
+  return { posted, request: (data: SyncWorkerRequest) => onMessage?.(new MessageEvent('message', { data })) };
 }
 
 /** A stand-in for `new Worker(...)`: hands each posted request to `answer`, which replies or fails. */
@@ -46,14 +58,8 @@ describe('the sync worker', () => {
     const server = fakeServer();
     await source(1);
     await source(2);
-    const posted: SyncWorkerReply[] = [];
-    let onMessage: ((event: MessageEvent<SyncWorkerRequest>) => void) | undefined;
-    vi.stubGlobal('self', {
-      postMessage: (m: SyncWorkerReply) => posted.push(m),
-      addEventListener: (_: string, listener: typeof onMessage) => { onMessage = listener; },
-    });
-    await import('@/lib/client/sync/sync-worker');
-    onMessage?.(new MessageEvent('message', { data: { id: 7, type: 'sync', force: false } }));
+    const { posted, request } = await workerScope();
+    request({ id: 7, type: 'sync', force: false });
     await vi.waitFor(() => expect(posted.some((m) => 'outcome' in m)).toBe(true));
     expect(posted.at(-1)).toMatchObject({ id: 7, outcome: { ok: true, pushed: 2 } });
     expect(server.pushed.flat()).toHaveLength(2);
@@ -64,19 +70,13 @@ describe('the sync worker', () => {
 describe('the field worker: the frame\'s reads', () => {
   it('answers a watch with the summary, again after a change, and not after unwatch', async () => {
     const { source } = await load();
-    const posted: SyncWorkerReply[] = [];
-    let onMessage: ((event: MessageEvent<SyncWorkerRequest>) => void) | undefined;
-    vi.stubGlobal('self', {
-      postMessage: (m: SyncWorkerReply) => posted.push(m),
-      addEventListener: (_: string, listener: typeof onMessage) => { onMessage = listener; },
-    });
-    await import('@/lib/client/sync/sync-worker');
+    const { posted, request } = await workerScope();
     const values = () => posted.filter((m): m is { id: number; value: { waiting: number } } => m.id === 3 && 'value' in m).map((m) => m.value.waiting);
-    onMessage?.(new MessageEvent('message', { data: { id: 3, type: 'watch', query: 'syncSummary' } }));
+    request({ id: 3, type: 'watch', query: 'syncSummary' });
     await vi.waitFor(() => expect(values()).toEqual([0]));
     await source(5);
     await vi.waitFor(() => expect(values()).toEqual([0, 1]));
-    onMessage?.(new MessageEvent('message', { data: { id: 3, type: 'unwatch' } }));
+    request({ id: 3, type: 'unwatch' });
     await source(6);
     await new Promise((resolve) => setTimeout(resolve, 100));
     expect(values()).toEqual([0, 1]);
@@ -85,14 +85,8 @@ describe('the field worker: the frame\'s reads', () => {
   it('answers who is remembered on this phone', async () => {
     const { db } = await load();
     await db.meta.put({ key: 'user', value: { id: 'u1', name: 'Tobias' } });
-    const posted: SyncWorkerReply[] = [];
-    let onMessage: ((event: MessageEvent<SyncWorkerRequest>) => void) | undefined;
-    vi.stubGlobal('self', {
-      postMessage: (m: SyncWorkerReply) => posted.push(m),
-      addEventListener: (_: string, listener: typeof onMessage) => { onMessage = listener; },
-    });
-    await import('@/lib/client/sync/sync-worker');
-    onMessage?.(new MessageEvent('message', { data: { id: 4, type: 'remembered' } }));
+    const { posted, request } = await workerScope();
+    request({ id: 4, type: 'remembered' });
     await vi.waitFor(() => expect(posted).toContainEqual({ id: 4, user: { id: 'u1', name: 'Tobias' } }));
   });
 

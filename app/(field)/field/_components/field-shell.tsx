@@ -95,7 +95,7 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
             </span>
           </div>
         </header>
-        <SyncBar ready={user !== null} />
+        <SyncBar />
         <main className="mx-auto w-full max-w-3xl px-4 py-5">{children}</main>
         <StorageNote />
       </div>

@@ -16,11 +16,12 @@ const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one :
 
 /**
  * What waits on the phone, in words and counts, always in the same place (never an icon alone).
- * Until `ready` (the session is known) it holds its place with the same two lines, and the button
- * waits: a sync may only start once the server or the phone has said who is signed in.
+ * Until the session is known it holds its place with the same two lines, and the button waits: a
+ * sync may only start once the server or the phone has said who is signed in.
  */
-export function SyncBar({ ready }: { ready: boolean }) {
+export function SyncBar() {
   const user = useFieldUser();
+  const ready = user !== null;
   const [progress, setProgress] = useState<{ sent: number; total: number } | null>(null);
   const [busy, setBusy] = useState(false);
   const state = useFrameQuery('syncSummary', ready);
