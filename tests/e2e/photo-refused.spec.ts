@@ -49,8 +49,8 @@ test('a refused photo shows the reason, stays on the phone, and goes up when tri
   expect(metadata?.uploadedAt ?? null).toBeNull();
   // The photos page agrees: the photo's metadata is on the server, its bytes are not.
   await page.goto(`/field/visit/photos?id=${visitId}`);
-  await expect(page.getByText('Waiting to upload')).toBeVisible();
-  await expect(page.getByText('On the server')).toHaveCount(0);
+  await expect(page.getByText('Waiting to upload', { exact: true })).toBeVisible();
+  await expect(page.getByText('On the server', { exact: true })).toHaveCount(0);
   await page.goto('/field/sync');
 
   await context.unroute(refuse);
@@ -61,6 +61,6 @@ test('a refused photo shows the reason, stays on the phone, and goes up when tri
   expect(stored?.sha256).toBe(photo.sha256);
   expect(stored?.uploadedAt).not.toBeNull();
   await page.goto(`/field/visit/photos?id=${visitId}`);
-  await expect(page.getByText('On the server')).toBeVisible();
+  await expect(page.getByText('On the server', { exact: true })).toBeVisible();
   await context.close();
 });
