@@ -39,7 +39,9 @@ export const metadata: Metadata = {
   description: 'Screen small-farm sites for hydraulic ram pumps: field readings offline, a plain go / no-go sheet.',
   applicationName: 'Fallbook',
   appleWebApp: { capable: true, title: 'Fallbook', statusBarStyle: 'default' },
-  icons: { apple: '/icons/apple-touch-icon.png' },
+  // Named here because `icons` set in metadata replaces the app/icon.svg convention: without a
+  // rel=icon link the browser asks for /favicon.ico, a 404 in every page's console.
+  icons: { icon: [{ url: '/icon.svg', type: 'image/svg+xml' }], apple: '/icons/apple-touch-icon.png' },
 };
 
 export const viewport: Viewport = {

@@ -15,11 +15,27 @@ let worker: Worker | null | undefined;
 let nextId = 1;
 const calls = new Map<number, Call>();
 
+// Replies are handed on in batches: answers that arrive within BATCH_MS of the first (the session,
+// then the sync bar's counts and the list; after a sync, its outcome and both again) reach the page
+// in one task, so React draws them in one pass instead of one pass each.
+const BATCH_MS = 50;
+let batch: SyncWorkerReply[] = [];
+
+function deliverSoon(reply: SyncWorkerReply) {
+  batch.push(reply);
+  if (batch.length > 1) return;
+  setTimeout(() => {
+    const replies = batch;
+    batch = [];
+    for (const r of replies) calls.get(r.id)?.onReply(r);
+  }, BATCH_MS);
+}
+
 function startWorker(): Worker | null {
   if (typeof Worker === 'undefined') return null;
   try {
     const started = new Worker(new URL('./sync-worker.ts', import.meta.url), { type: 'module', name: 'fallbook-field' });
-    started.addEventListener('message', (event: MessageEvent<SyncWorkerReply>) => calls.get(event.data.id)?.onReply(event.data));
+    started.addEventListener('message', (event: MessageEvent<SyncWorkerReply>) => deliverSoon(event.data));
     // A worker that failed to load or crashed: the page does the work itself from now on, and what
     // was waiting on the worker is done again here (its Web Lock went with it).
     started.addEventListener('error', () => {

@@ -121,6 +121,30 @@ describe('the page side (runSyncInWorker)', () => {
     expect(started).toHaveLength(1);
   });
 
+  it('hands replies arriving close together to the page in one task, so React draws them in one pass', async () => {
+    const { inWorker } = await load();
+    // The sync bar's counts answer at once, the list 20 ms later (its own read of the database).
+    stubWorker((request, reply) => {
+      if (request.type !== 'watch') return;
+      if (request.query === 'syncSummary') reply({ id: request.id, value: { waiting: 2, parked: 0, photos: 0, refusedPhotos: 0, paused: false } });
+      else setTimeout(() => reply({ id: request.id, value: { synced: true, rows: [] } }), 20);
+    });
+    const { watchFrame } = await inWorker();
+    // Each task the page runs in bumps `task`: an answer records the task it arrived in.
+    let task = 0;
+    const ticker = setInterval(() => task++, 1);
+    const arrived: [string, number][] = [];
+    const fail = (error: unknown) => { throw error; };
+    const stops = [watchFrame('syncSummary', () => arrived.push(['summary', task]), fail), watchFrame('homeVisits', () => arrived.push(['list', task]), fail)];
+    await vi.waitFor(() => expect(arrived).toHaveLength(2));
+    clearInterval(ticker);
+    stops.forEach((stop) => stop());
+    expect(arrived.map(([what]) => what)).toEqual(['summary', 'list']);
+    expect(arrived[0]![1]).toBe(arrived[1]![1]);
+    // Neither waited past the batch window by much (a stalled flush would show here).
+    expect(task).toBeLessThan(200);
+  });
+
   it('runs the loop in the page where there is no Worker', async () => {
     const { source, fakeServer, inWorker } = await load();
     vi.stubGlobal('Worker', undefined);

@@ -30,6 +30,8 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
     // book shut. Sync starts only once the server (or no network) confirms who is signed in, so a
     // remembered person's changes are never sent under someone else's session. The field worker
     // reads the phone's database and runs the sync: the frame evaluates no Dexie of its own.
+    // The triggers' code is asked for with the worker's, in the same task: one round of script loading.
+    const triggers = import('@/lib/client/sync/triggers');
     void import('@/lib/client/sync/in-worker').then(async ({ sessionFromWorker, rememberedFromWorker }) => {
       void rememberedFromWorker().then((user) => {
         if (!cancelled && user) startTransition(() => setSession((s) => s ?? { state: 'ready', user, online: navigator.onLine }));
@@ -40,7 +42,7 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
       startTransition(() => setSession(s));
       if (s.state === 'signed-out') router.replace(`/login?callbackUrl=${encodeURIComponent(location.pathname + location.search)}`);
       if (s.state === 'ready' && s.user.role !== 'farmer') {
-        const { startSyncTriggers } = await import('@/lib/client/sync/triggers');
+        const { startSyncTriggers } = await triggers;
         if (cancelled) return;
         stop = startSyncTriggers();
         void navigator.storage?.persist?.();
