@@ -38,8 +38,10 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
       });
       const s = await sessionFromWorker();
       if (cancelled) return;
-      // Drawn as a transition: React may pause the redraw of the frame for the person's input.
-      startTransition(() => setSession(s));
+      // Drawn as a transition: React may pause the redraw of the frame for the person's input. The
+      // server confirming the person the phone remembered draws nothing: a new but equal session
+      // would redraw the frame and everything that reads the person.
+      startTransition(() => setSession((shown) => (JSON.stringify(shown) === JSON.stringify(s) ? shown : s)));
       if (s.state === 'signed-out') router.replace(`/login?callbackUrl=${encodeURIComponent(location.pathname + location.search)}`);
       if (s.state === 'ready' && s.user.role !== 'farmer') {
         const { startSyncTriggers } = await triggers;
