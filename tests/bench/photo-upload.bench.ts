@@ -5,29 +5,18 @@
 // size just before. Median of 3 runs, each with new photos. Run with npm run bench.
 import { createHash, randomUUID } from 'node:crypto';
 import { spawn } from 'node:child_process';
-import { readFileSync, readdirSync, writeFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import sharp from 'sharp';
 import { makeOrganisation, sessionCookie } from '../integration/support/fixtures';
 import { putOp } from '../integration/support/sync';
 import { clientFor } from './support/http';
+import { processTree } from './support/proc';
 import { budget, median, report, round } from './support/report';
 import { closeSequelize } from '@/lib/server/db';
 
 const RUNS = 3;
 const MIB = 1024 * 1024;
-
-/** The served app's process and its children (a `next start` may fork its server). */
-function processTree(pid: number): number[] {
-  const children = readdirSync(`/proc/${pid}/task`).flatMap((task) => {
-    try {
-      return readFileSync(`/proc/${pid}/task/${task}/children`, 'utf8').trim().split(/\s+/).filter(Boolean).map(Number);
-    } catch {
-      return [];
-    }
-  });
-  return [pid, ...children.flatMap(processTree)];
-}
 
 /** kB figures of /proc/PID/status, summed over the tree, in bytes. */
 function memory(pids: number[]): { rss: number; hwm: number; anon: number } {

@@ -2,13 +2,15 @@
 // batches of 200, against the same rows (points, sync_ops, audit_log) inserted straight with the mariadb
 // connector in batches of 200: ops/s of both and the ratio, median of 7 runs (each run measures both).
 // (2) 50 devices at once, each pushing 50 ops and pulling, for a bounded number of rounds: p50/p99;
-// beside it the framework's floor: the same 50 devices each asking GET /api/me at once.
+// beside it the framework's floor: the same 50 devices each asking GET /api/me at once, and the CPU
+// the app, MariaDB and this script use during the load (which of them is the bottleneck).
 // Run with npm run bench (it serves the app and sets BENCH_APP_URL).
 import { randomUUID } from 'node:crypto';
 import * as mariadb from 'mariadb';
 import { makeOrganisation, type TestUser } from '../integration/support/fixtures';
 import { putOp } from '../integration/support/sync';
 import { clientFor, pool } from './support/http';
+import { cpuSeconds, processesNamed, processTree } from './support/proc';
 import { budget, median, quantile, report, round } from './support/report';
 import { closeSequelize } from '@/lib/server/db';
 
@@ -77,6 +79,10 @@ async function loadRun(devices: { user: TestUser; visitId: string }[]) {
   const pushes: number[] = [];
   const pulls: number[] = [];
   let errors = 0;
+  // Who uses the machine's CPU during the load: the app, MariaDB and this script.
+  const app = processTree(Number(process.env.BENCH_APP_PID));
+  const db = processesNamed('mariadbd');
+  const cpu0 = { app: cpuSeconds(app), db: cpuSeconds(db), load: process.cpuUsage() };
   const t0 = performance.now();
   await pool(clients.length, clients.length, LOAD_DEADLINE_MS, async (i) => {
     const device = clients[i];
@@ -93,7 +99,9 @@ async function loadRun(devices: { user: TestUser; visitId: string }[]) {
     }
   });
   const wallMs = performance.now() - t0;
-  return { pushes, pulls, errors, wallMs, expected: clients.length * ROUNDS * 2 };
+  const loadCpu = process.cpuUsage(cpu0.load);
+  const cpu = { app: cpuSeconds(app) - cpu0.app, db: cpuSeconds(db) - cpu0.db, load: (loadCpu.user + loadCpu.system) / 1e6 };
+  return { pushes, pulls, errors, wallMs, cpu, expected: clients.length * ROUNDS * 2 };
 }
 
 /**
@@ -156,6 +164,7 @@ async function main() {
       loads.push(await loadRun(devices));
     }
     const p = (key: 'pushes' | 'pulls', q: number) => round(median(loads.map((l) => quantile(l[key], q))));
+    const share = (who: 'app' | 'db' | 'load') => round(median(loads.map((l) => l.cpu[who] / (l.wallMs / 1000))), 2);
     const errors = loads.reduce((a, l) => a + l.errors + (l.expected - l.pushes.length - l.pulls.length - l.errors), 0);
 
     const rows = [
@@ -165,6 +174,11 @@ async function main() {
       { name: `${DEVICES} devices: push of ${DEVICE_OPS} ops`, samples: loads.map((l) => l.pushes.length).join(' / '), p50Ms: p('pushes', 0.5), p99Ms: p('pushes', 0.99) },
       { name: `${DEVICES} devices: pull`, samples: loads.map((l) => l.pulls.length).join(' / '), p50Ms: p('pulls', 0.5), p99Ms: p('pulls', 0.99) },
       { name: `${DEVICES} devices: errors`, errors, wallS: loads.map((l) => round(l.wallMs / 1000)).join(' / ') },
+      // CPU time over wall time: 1 is one core busy throughout. The app's per request is its CPU
+      // over the pushes and pulls it answered (/proc ticks: 10 ms steps).
+      { name: `${DEVICES} devices: CPU during the load, cores busy: app / MariaDB / load script`,
+        app: share('app'), mariadb: share('db'), loadScript: share('load'),
+        appCpuMsPerRequest: round(median(loads.map((l) => (l.cpu.app * 1000) / (l.pushes.length + l.pulls.length)))) },
       { name: `framework floor: ${DEVICES} devices GET /api/me at once`, samples: floors.map((f) => f.times.length).join(' / '),
         p50Ms: round(median(floors.map((f) => quantile(f.times, 0.5)))), p99Ms: round(median(floors.map((f) => quantile(f.times, 0.99)))),
         errors: floors.reduce((a, f) => a + f.errors, 0) },
