@@ -42,3 +42,31 @@ export function cpuSeconds(pids: number[]): number {
   }
   return ticks / ticksPerSecond;
 }
+
+/** Busy and total CPU ticks of the whole machine so far (/proc/stat's first line). */
+function machineTicks(): { busy: number; total: number } {
+  const [, ...values] = readFileSync('/proc/stat', 'utf8').split('\n')[0]!.trim().split(/\s+/);
+  const ticks = values.map(Number);
+  const idle = (ticks[3] ?? 0) + (ticks[4] ?? 0); // idle + iowait
+  const total = ticks.reduce((a, b) => a + b, 0);
+  return { busy: total - idle, total };
+}
+
+/**
+ * Waits until the machine is quiet: two windows of `windowMs` in a row with under `busyShare` of
+ * its CPU busy, or `maxMs` at most. Returns how long it waited and whether it got quiet.
+ */
+export async function waitForQuietMachine({ windowMs = 500, busyShare = 0.1, maxMs = 15_000 } = {}): Promise<{ waitedMs: number; quiet: boolean }> {
+  const start = Date.now();
+  let quietWindows = 0;
+  let before = machineTicks();
+  while (Date.now() - start < maxMs) {
+    await new Promise((resolve) => setTimeout(resolve, windowMs));
+    const now = machineTicks();
+    const share = (now.busy - before.busy) / Math.max(1, now.total - before.total);
+    before = now;
+    quietWindows = share < busyShare ? quietWindows + 1 : 0;
+    if (quietWindows >= 2) return { waitedMs: Date.now() - start, quiet: true };
+  }
+  return { waitedMs: Date.now() - start, quiet: false };
+}
