@@ -4,7 +4,7 @@
 // same machine load. Before each audit the bench waits for the machine to be quiet: an audit ends
 // while the page's service worker may still be downloading its precache from the app server and the
 // browser is shutting down, and on two cores that would weigh on the next page's audit (the field
-// home after the sign-in page: 95 without the wait, 97 with 5 s of it). Run with npm run bench (it
+// home after the sign-in page: 95 with no pause, 97 with a fixed 5 s one). Run with npm run bench (it
 // serves the app and the floor).
 import { spawnSync } from 'node:child_process';
 import { pageBenchContext } from './support/demo';
