@@ -81,7 +81,8 @@ async function loadRun(devices: { user: TestUser; visitId: string }[]) {
   let errors = 0;
   // Who uses the machine's CPU during the load: the app, MariaDB and this script.
   const app = processTree(Number(process.env.BENCH_APP_PID));
-  const db = processesNamed('mariadbd');
+  // This checkout's MariaDB, by its port: other checkouts may run theirs on the same machine.
+  const db = processesNamed('mariadbd', `--port=${process.env.DB_PORT}`);
   const cpu0 = { app: cpuSeconds(app), db: cpuSeconds(db), load: process.cpuUsage() };
   const t0 = performance.now();
   await pool(clients.length, clients.length, LOAD_DEADLINE_MS, async (i) => {

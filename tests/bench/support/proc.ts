@@ -14,11 +14,15 @@ export function processTree(pid: number): number[] {
   return [pid, ...children.flatMap(processTree)];
 }
 
-/** The processes whose command name is `name` (as in /proc/PID/comm). */
-export function processesNamed(name: string): number[] {
+/**
+ * The processes whose command name is `name` (as in /proc/PID/comm) and, given `arg`, whose command
+ * line holds that argument: another checkout's server of the same name on this machine is not ours.
+ */
+export function processesNamed(name: string, arg?: string): number[] {
   return readdirSync('/proc').filter((entry) => /^\d+$/.test(entry)).map(Number).filter((pid) => {
     try {
-      return readFileSync(`/proc/${pid}/comm`, 'utf8').trim() === name;
+      if (readFileSync(`/proc/${pid}/comm`, 'utf8').trim() !== name) return false;
+      return arg === undefined || readFileSync(`/proc/${pid}/cmdline`, 'utf8').split('\0').includes(arg);
     } catch {
       return false;
     }
