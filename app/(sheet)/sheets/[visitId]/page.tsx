@@ -7,10 +7,9 @@ import { loadSheet } from '@/lib/server/data/sheets';
 import { AppError } from '@/lib/server/errors';
 import { idParam } from '@/lib/shared/schemas/list-query';
 import { buildSheetView } from '@/lib/shared/sheet/view-model';
-import { QueryProvider } from '@/components/query-provider';
 import { FarmerReply } from './_components/farmer-reply';
 import { ResponsesList } from './_components/responses-list';
-import { SendPanel } from './_components/send-panel';
+import { SendSection } from './_components/send-section';
 import { SheetBody } from './_components/sheet-body';
 
 export const metadata: Metadata = { title: 'Site sheet' };
@@ -52,12 +51,7 @@ export default async function SheetPage({ params }: { params: Promise<{ visitId:
       <SheetBody v={view} />
       <ResponsesList responses={responses} />
       {canReply && <FarmerReply visitId={visitId} acknowledged={responses.some((r) => r.kind === 'acknowledged')} />}
-      {/* The query client is the send panel's alone: a farmer's phone never loads it. */}
-      {canSend && (
-        <QueryProvider>
-          <SendPanel visitId={visitId} farmerName={sheet.farmer?.name ?? null} farmerEmail={sheet.farmer?.email ?? null} />
-        </QueryProvider>
-      )}
+      {canSend && <SendSection visitId={visitId} farmerName={sheet.farmer?.name ?? null} farmerEmail={sheet.farmer?.email ?? null} />}
     </div>
   );
 }

@@ -2,6 +2,7 @@
 
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
+import { QueryProvider } from '@/components/query-provider';
 
 interface SendRow { id: string; to: string; paper: string; status: string; error: string | null; at: string }
 
@@ -61,5 +62,14 @@ export function SendPanel({ visitId, farmerName, farmerEmail }: { visitId: strin
         ))}
       </ul>
     </section>
+  );
+}
+
+/** The panel with its own query client, the module's default: what send-section.tsx loads on demand. */
+export default function SendSection(props: { visitId: string; farmerName: string | null; farmerEmail: string | null }) {
+  return (
+    <QueryProvider>
+      <SendPanel {...props} />
+    </QueryProvider>
   );
 }
