@@ -9,6 +9,7 @@ import * as m0007 from './0007-visit-exposure';
 import * as m0008 from './0008-millisecond-times';
 import * as m0011 from './0011-profile-stations-and-commissioning';
 import * as m0012 from './0012-office-scale-indexes';
+import * as m0013 from './0013-office-area-indexes';
 
 export interface MigrationModule {
   up(params: { context: QueryInterface }): Promise<void>;
@@ -27,4 +28,5 @@ export const MIGRATIONS: { name: string; module: MigrationModule }[] = [
   { name: '0008-millisecond-times.ts', module: m0008 },
   { name: '0011-profile-stations-and-commissioning.ts', module: m0011 },
   { name: '0012-office-scale-indexes.ts', module: m0012 },
+  { name: '0013-office-area-indexes.ts', module: m0013 },
 ];

@@ -40,7 +40,7 @@ export async function visitCountsByAdvisor(user: SessionUser, today = todayIso()
   return [...loads.values()].sort((a, b) => (a.advisor ? 0 : 1) - (b.advisor ? 0 : 1));
 }
 
-/** The farm areas in use in the organisation, for the area filter (index farms_org_area). */
+/** The farm areas in use in the organisation, for the area filter (index farms_org_area_name). */
 export async function districtAreas(user: SessionUser): Promise<string[]> {
   authorize(user, 'visit:plan');
   const rows = await Farm.findAll({

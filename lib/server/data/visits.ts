@@ -27,9 +27,10 @@ const likeContains = (text: string) => `%${text.replace(/[\\%_]/g, (c) => `\\${c
 /**
  * The where clauses of the filters. Each is served by an index: status, advisor and planned date
  * by the visits_org_live_* indexes (migration 0012, covering: counts read the index alone), area by
- * farms_org_area, verdict by screenings_visit_created. The text search is a LIKE "contains" on farm
- * and farmer names: it reads the organisation's farms from farms_org_name_owner, acceptable at a
- * few thousand farms per organisation.
+ * farms_org_area_name joined to visits_farm_live_status (0013, both read alone), verdict by
+ * screenings_visit_created. The text search is a LIKE "contains" on farm and farmer names: it
+ * reads the organisation's farms from farms_org_name_owner, acceptable at a few thousand farms per
+ * organisation.
  */
 function filterWhere(filters: Partial<VisitFilters>, today: string): { visit: WhereOptions[]; farm: WhereOptions[] } {
   const sequelize = getSequelize();
