@@ -3,7 +3,8 @@ import { requirePageUser } from '@/lib/server/auth/page-guard';
 
 // Sheets are read by the farmer who owns the farm, the assigned advisor and the coordinators:
 // a route group of its own, so no audience's home layout stands in the way. No client providers here:
-// the sheet is server-rendered, and only the advisor's send panel needs TanStack Query (see the page).
+// the sheet is server-rendered, and only the send panel needs TanStack Query (fetched only where it is
+// drawn: [visitId]/_components/send-section.tsx).
 export default async function SheetLayout({ children }: { children: React.ReactNode }) {
   const user = await requirePageUser(['coordinator', 'advisor', 'farmer'], '/sheets');
   return (
