@@ -18,8 +18,8 @@ function scriptsBeforePaint(trace) {
   const nav = events.find((e) => e.name === 'navigationStart' && e.args?.data?.isLoadingMainFrame && e.args?.data?.documentLoaderURL?.startsWith('http'));
   if (!nav) return null;
   const paint = events.find((e) => e.name === 'firstContentfulPaint' && e.pid === nav.pid && e.ts >= nav.ts);
-  const runs = events.filter((e) => e.name === 'EvaluateScript' && e.pid === nav.pid && e.ts >= nav.ts && /\/_next\/static\//.test(e.args?.data?.url ?? ''));
   if (!paint) return null;
+  const runs = events.filter((e) => e.name === 'EvaluateScript' && e.pid === nav.pid && e.ts >= nav.ts && /\/_next\/static\//.test(e.args?.data?.url ?? ''));
   return { beforePaint: runs.filter((e) => e.ts < paint.ts).length, total: runs.length, paintMs: Math.round((paint.ts - nav.ts) / 1000) };
 }
 
@@ -53,7 +53,7 @@ try {
   const metrics = Object.fromEntries(['first-contentful-paint', 'largest-contentful-paint', 'total-blocking-time', 'speed-index', 'cumulative-layout-shift']
     .map((id) => [id, metric(id)]));
   process.stdout.write(`${JSON.stringify({ performance: score('performance'), accessibility: score('accessibility'),
-    bestPractices: score('best-practices'), failing, metrics, scripts: scriptsBeforePaint(result.artifacts?.Trace ?? result.artifacts?.traces?.defaultPass) })}\n`);
+    bestPractices: score('best-practices'), failing, metrics, scripts: scriptsBeforePaint(result.artifacts?.Trace) })}\n`);
 } finally {
   await chrome.kill();
 }

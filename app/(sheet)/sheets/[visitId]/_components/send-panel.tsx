@@ -66,7 +66,7 @@ export function SendPanel({ visitId, farmerName, farmerEmail }: { visitId: strin
 }
 
 /** The panel with its own query client, the module's default: what send-section.tsx loads on demand. */
-export default function SendSection(props: { visitId: string; farmerName: string | null; farmerEmail: string | null }) {
+export default function SendPanelWithClient(props: { visitId: string; farmerName: string | null; farmerEmail: string | null }) {
   return (
     <QueryProvider>
       <SendPanel {...props} />
