@@ -57,7 +57,7 @@ try {
   // The floor listens a few ports above the app, inside this checkout's offset band.
   const floor = await startNext({ cwd: floorDir, port: port + 5, label: 'floor' });
   servers.push(floor);
-  const env = { ...process.env, BENCH_APP_URL: app.url, BENCH_APP_PID: String(app.pid), BENCH_FLOOR_URL: floor.url };
+  const env = { ...process.env, BENCH_APP_URL: app.url, BENCH_APP_PID: String(app.pid), BENCH_FLOOR_URL: floor.url, BENCH_FLOOR_PID: String(floor.pid) };
 
   for (const file of files) {
     process.stdout.write(`\nbench: ${file}\n`);

@@ -1,4 +1,5 @@
-// The bare-framework floor for the benches: an empty App Router page built with the same Next.js,
+// The bare-framework floor for the benches: an empty App Router page (and an empty sync-shaped route
+// handler) built with the same Next.js,
 // in a throwaway folder under .data/ that reuses the installed node_modules through a symlink.
 import { existsSync, mkdirSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
@@ -14,6 +15,12 @@ const FILES = {
   'app/layout.jsx': 'export const metadata = { title: "Empty" };\n'
     + 'export default function RootLayout({ children }) {\n  return <html lang="en"><body>{children}</body></html>;\n}\n',
   'app/page.jsx': 'export default function Page() {\n  return <main><h1>Empty page</h1></main>;\n}\n',
+  // The bare framework's sync: a route handler that reads the pushed JSON and answers one outcome
+  // per op (POST), or an empty page of changes (GET), with no session, database or validation.
+  'app/api/echo/route.js': 'export const dynamic = "force-dynamic";\n'
+    + 'export async function POST(request) {\n  const { ops } = await request.json();\n'
+    + '  return Response.json({ results: ops.map((op) => ({ opId: op.opId, status: "applied" })) });\n}\n'
+    + 'export function GET() {\n  return Response.json({ changes: [], cursor: 0 });\n}\n',
 };
 
 function nextVersion() {
@@ -31,7 +38,10 @@ export function ensureFloorBuild() {
   log('building the empty App Router app (the framework floor)…');
   rmSync(floorDir, { recursive: true, force: true });
   mkdirSync(path.join(floorDir, 'app'), { recursive: true });
-  for (const [file, text] of Object.entries(FILES)) writeFileSync(path.join(floorDir, file), text);
+  for (const [file, text] of Object.entries(FILES)) {
+    mkdirSync(path.dirname(path.join(floorDir, file)), { recursive: true });
+    writeFileSync(path.join(floorDir, file), text);
+  }
   symlinkSync(path.join(root, 'node_modules'), path.join(floorDir, 'node_modules'), 'dir');
   const env = { ...process.env, NODE_ENV: 'production', NEXT_TELEMETRY_DISABLED: '1' };
   run(process.execPath, [nodeBin('next/dist/bin/next'), 'build'], { cwd: floorDir, env });

@@ -2,14 +2,15 @@
 // batches of 200, against the same rows (points, sync_ops, audit_log) inserted straight with the mariadb
 // connector in batches of 200: ops/s of both and the ratio, median of 7 runs (each run measures both).
 // (2) 50 devices at once, each pushing 50 ops and pulling, for a bounded number of rounds: p50/p99;
-// beside it the framework's floor: the same 50 devices each asking GET /api/me at once, and the CPU
-// the app, MariaDB and this script use during the load (which of them is the bottleneck).
+// beside it the bare framework under the same load (the empty floor app's sync-shaped route handler),
+// the app's lightest route (the same 50 devices each asking GET /api/me at once), and the CPU the
+// app, MariaDB and this script use during the load (which of them is the bottleneck).
 // Run with npm run bench (it serves the app and sets BENCH_APP_URL).
 import { randomUUID } from 'node:crypto';
 import * as mariadb from 'mariadb';
 import { makeOrganisation, type TestUser } from '../integration/support/fixtures';
 import { putOp } from '../integration/support/sync';
-import { clientFor, pool } from './support/http';
+import { clientAt, clientFor, pool } from './support/http';
 import { cpuSeconds, processesNamed, processTree } from './support/proc';
 import { budget, median, quantile, report, round } from './support/report';
 import { closeSequelize } from '@/lib/server/db';
@@ -106,10 +107,10 @@ async function loadRun(devices: { user: TestUser; visitId: string }[]) {
 }
 
 /**
- * The framework's own floor for the same 50 devices: each asks GET /api/me at once (the session
+ * The app's lightest route for the same 50 devices: each asks GET /api/me at once (the session
  * check and one read of the account, nothing else), twice per device like the load's two rounds.
  */
-async function floorRun(devices: { user: TestUser }[]) {
+async function lightestRun(devices: { user: TestUser }[]) {
   const clients = await Promise.all(devices.map(async (d) => clientFor(d.user)));
   const times: number[] = [];
   let errors = 0;
@@ -120,6 +121,32 @@ async function floorRun(devices: { user: TestUser }[]) {
     }));
   }
   return { times, errors };
+}
+
+/**
+ * The bare framework under the load's own shape: the empty floor app (same Next.js, same `next
+ * start`) has a route handler that reads the pushed JSON and answers an outcome per op, with no
+ * session, database or validation. 50 devices each post the same 50 ops to it and then ask it for
+ * changes, ROUNDS times, all at once; with the CPU per request of the floor's process.
+ */
+async function bareRun(count: number) {
+  const base = process.env.BENCH_FLOOR_URL;
+  const pid = Number(process.env.BENCH_FLOOR_PID);
+  if (!base || !pid) throw new Error('BENCH_FLOOR_URL and BENCH_FLOOR_PID are not set: run with npm run bench');
+  const floor = clientAt(base);
+  const pushes: number[] = [];
+  let errors = 0;
+  const tree = processTree(pid);
+  const cpu0 = cpuSeconds(tree);
+  await pool(count, count, LOAD_DEADLINE_MS, async () => {
+    for (let round = 0; round < ROUNDS; round++) {
+      const pushed = await floor.post('/api/echo', { ops: pointOps(randomUUID(), DEVICE_OPS) });
+      if (pushed.status === 200 && (JSON.parse(pushed.body).results as unknown[]).length === DEVICE_OPS) pushes.push(pushed.ms); else errors++;
+      if ((await floor.get('/api/echo')).status !== 200) errors++;
+    }
+  });
+  const cpuMsPerRequest = ((cpuSeconds(tree) - cpu0) * 1000) / (count * ROUNDS * 2);
+  return { pushes, errors, cpuMsPerRequest };
 }
 
 async function main() {
@@ -159,9 +186,12 @@ async function main() {
     const orgs = await Promise.all(Array.from({ length: DEVICES / 2 }, (_, i) => makeOrganisation(`bench-load-${i}`)));
     const devices = orgs.flatMap((o) => [{ user: o.advisor, visitId: o.visit.id }, { user: o.otherAdvisor, visitId: o.otherVisit.id }]);
     const loads: Awaited<ReturnType<typeof loadRun>>[] = [];
-    const floors: Awaited<ReturnType<typeof floorRun>>[] = [];
+    const lightest: Awaited<ReturnType<typeof lightestRun>>[] = [];
+    const bare: Awaited<ReturnType<typeof bareRun>>[] = [];
+    await bareRun(devices.length); // warms the floor's route as routeRun warmed the app's
     for (let run = 0; run < RUNS; run++) {
-      floors.push(await floorRun(devices));
+      bare.push(await bareRun(devices.length));
+      lightest.push(await lightestRun(devices));
       loads.push(await loadRun(devices));
     }
     const p = (key: 'pushes' | 'pulls', q: number) => round(median(loads.map((l) => quantile(l[key], q))));
@@ -172,7 +202,8 @@ async function main() {
       { name: `push route over HTTP, ${OPS} ops in batches of ${BATCH}`, opsPerSecond: Math.round(median(route)), runs: route.map(Math.round).join(' / ') },
       { name: `raw mariadb batch insert, same rows`, opsPerSecond: Math.round(median(raw)), runs: raw.map(Math.round).join(' / ') },
       { name: 'route / raw ratio (same run)', ratio: round(median(ratios), 3), runs: ratios.map((x) => round(x, 3)).join(' / ') },
-      { name: `${DEVICES} devices: push of ${DEVICE_OPS} ops`, samples: loads.map((l) => l.pushes.length).join(' / '), p50Ms: p('pushes', 0.5), p99Ms: p('pushes', 0.99) },
+      { name: `${DEVICES} devices: push of ${DEVICE_OPS} ops`, samples: loads.map((l) => l.pushes.length).join(' / '), p50Ms: p('pushes', 0.5), p99Ms: p('pushes', 0.99),
+        runs: loads.map((l) => round(quantile(l.pushes, 0.99))).join(' / ') },
       { name: `${DEVICES} devices: pull`, samples: loads.map((l) => l.pulls.length).join(' / '), p50Ms: p('pulls', 0.5), p99Ms: p('pulls', 0.99) },
       { name: `${DEVICES} devices: errors`, errors, wallS: loads.map((l) => round(l.wallMs / 1000)).join(' / ') },
       // CPU time over wall time: 1 is one core busy throughout. The app's per request is its CPU
@@ -180,9 +211,13 @@ async function main() {
       { name: `${DEVICES} devices: CPU during the load, cores busy: app / MariaDB / load script`,
         app: share('app'), mariadb: share('db'), loadScript: share('load'),
         appCpuMsPerRequest: round(median(loads.map((l) => (l.cpu.app * 1000) / (l.pushes.length + l.pulls.length)))) },
-      { name: `framework floor: ${DEVICES} devices GET /api/me at once`, samples: floors.map((f) => f.times.length).join(' / '),
-        p50Ms: round(median(floors.map((f) => quantile(f.times, 0.5)))), p99Ms: round(median(floors.map((f) => quantile(f.times, 0.99)))),
-        errors: floors.reduce((a, f) => a + f.errors, 0) },
+      { name: `bare framework: ${DEVICES} devices push ${DEVICE_OPS} ops to an empty route handler and pull`, samples: bare.map((b) => b.pushes.length).join(' / '),
+        p50Ms: round(median(bare.map((b) => quantile(b.pushes, 0.5)))), p99Ms: round(median(bare.map((b) => quantile(b.pushes, 0.99)))),
+        runs: bare.map((b) => round(quantile(b.pushes, 0.99))).join(' / '),
+        errors: bare.reduce((a, b) => a + b.errors, 0), appCpuMsPerRequest: round(median(bare.map((b) => b.cpuMsPerRequest))) },
+      { name: `app's lightest route: ${DEVICES} devices GET /api/me at once`, samples: lightest.map((f) => f.times.length).join(' / '),
+        p50Ms: round(median(lightest.map((f) => quantile(f.times, 0.5)))), p99Ms: round(median(lightest.map((f) => quantile(f.times, 0.99)))),
+        errors: lightest.reduce((a, f) => a + f.errors, 0) },
     ];
     report('sync', rows, [
       budget('push route / raw insert rate', round(median(ratios), 3), '>=', round(1 / 3, 3)),

@@ -1,14 +1,12 @@
-// HTTP helpers of the benches: signed-in requests to the served app on loopback, timed.
+// HTTP helpers of the benches: requests to the served app (signed in) or the floor app on loopback, timed.
 import { sessionCookie, type TestUser } from '../../integration/support/fixtures';
 import { appUrl } from './report';
 
-/** A signed-in client for one user: GET and POST JSON against the served app, each timed. */
-export async function clientFor(user: TestUser) {
-  const base = appUrl();
-  const cookie = await sessionCookie(user);
+/** GET and POST JSON against `base`, each timed; `headers` go with every request. */
+export function clientAt(base: string, headers: Record<string, string> = {}) {
   const send = async (path: string, init: RequestInit = {}) => {
     const t0 = performance.now();
-    const res = await fetch(`${base}${path}`, { ...init, headers: { cookie, origin: base, ...(init.headers ?? {}) } });
+    const res = await fetch(`${base}${path}`, { ...init, headers: { ...headers, ...(init.headers ?? {}) } });
     const body = await res.text();
     return { status: res.status, body, ms: performance.now() - t0 };
   };
@@ -16,6 +14,12 @@ export async function clientFor(user: TestUser) {
     get: (path: string) => send(path),
     post: (path: string, json: unknown) => send(path, { method: 'POST', body: JSON.stringify(json), headers: { 'content-type': 'application/json' } }),
   };
+}
+
+/** A signed-in client for one user against the served app. */
+export async function clientFor(user: TestUser) {
+  const base = appUrl();
+  return clientAt(base, { cookie: await sessionCookie(user), origin: base });
 }
 
 /** Runs `task(i)` for i in 0..count-1 with at most `concurrency` at once; stops starting new ones after `deadlineMs`. */
