@@ -2,11 +2,12 @@
 // MariaDB, then, over HTTP on loopback as its coordinator with 10 requests at once: the visits table's
 // first page, a filtered page and the CSV export of 5,000 rows (p50/p99, median of 3 runs). Every query
 // the list, the export, the follow-up board and the district map run (each sort and each filter) is
-// EXPLAINed; a real scan of a big table fails the bench (see `scans` for how that is decided).
+// EXPLAINed; a real scan of a big table fails the bench (see `scans` for how that is decided). Beside
+// them, the bare framework at the same concurrency: the empty floor app's route handler.
 // Run with npm run bench (it serves the app and sets BENCH_APP_URL).
 import * as mariadb from 'mariadb';
 import { makeOrganisation } from '../integration/support/fixtures';
-import { clientFor, pool } from './support/http';
+import { clientAt, clientFor, pool } from './support/http';
 import { EXPORT_ROWS, FARMS, seedOffice, VISITS } from './support/office-seed';
 import { budget, type Budget, median, quantile, report, round } from './support/report';
 import { closeSequelize, getSequelize } from '@/lib/server/db';
@@ -116,6 +117,15 @@ async function main() {
       budgets.push(budget(`${c.name}: p99 at ${CONCURRENCY} at once`, p99, '<=', limit, 'ms'));
       budgets.push(budget(`${c.name}: errors`, errors, '==', 0));
     }
+    // The bare framework under the same 10 at once: what any request costs here before the app's work.
+    const floorUrl = process.env.BENCH_FLOOR_URL;
+    if (!floorUrl) throw new Error('BENCH_FLOOR_URL is not set: run with npm run bench');
+    const floor = clientAt(floorUrl);
+    await floor.get('/api/echo');
+    const bare = [];
+    for (let run = 0; run < RUNS; run++) bare.push((await pool(200, CONCURRENCY, 120_000, () => floor.get('/api/echo'))).map((s) => s.ms));
+    rows.push({ name: 'bare framework: an empty route handler of the floor app', concurrency: CONCURRENCY, requests: 200,
+      p50Ms: round(median(bare.map((ms) => quantile(ms, 0.5)))), p99Ms: round(median(bare.map((ms) => quantile(ms, 0.99)))) });
     rows.push({ name: `seeded ${VISITS} visits, ${FARMS} farms`, seconds: seedS });
     rows.push({ name: 'list, export, follow-up and map queries EXPLAINed', queries: queries.length, fullScans: bad.length });
     budgets.push(budget(`query steps scanning a table of over ${BIG_TABLE_ROWS} rows whole`, bad.length, '==', 0));
