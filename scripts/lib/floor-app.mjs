@@ -1,6 +1,6 @@
-// The bare-framework floor for the benches: an empty App Router page (and an empty sync-shaped route
-// handler) built with the same Next.js,
-// in a throwaway folder under .data/ that reuses the installed node_modules through a symlink.
+// The bare-framework floor for the benches: an empty App Router page and an empty sync-shaped route
+// handler, built with the same Next.js in a throwaway folder under .data/ that reuses the installed
+// node_modules through a symlink.
 import { existsSync, mkdirSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { root } from './env.mjs';
@@ -37,7 +37,6 @@ export function ensureFloorBuild() {
   }
   log('building the empty App Router app (the framework floor)…');
   rmSync(floorDir, { recursive: true, force: true });
-  mkdirSync(path.join(floorDir, 'app'), { recursive: true });
   for (const [file, text] of Object.entries(FILES)) {
     mkdirSync(path.dirname(path.join(floorDir, file)), { recursive: true });
     writeFileSync(path.join(floorDir, file), text);

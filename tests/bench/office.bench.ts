@@ -9,7 +9,7 @@ import * as mariadb from 'mariadb';
 import { makeOrganisation } from '../integration/support/fixtures';
 import { clientAt, clientFor, pool } from './support/http';
 import { EXPORT_ROWS, FARMS, seedOffice, VISITS } from './support/office-seed';
-import { budget, type Budget, median, quantile, report, round } from './support/report';
+import { budget, type Budget, floorApp, median, quantile, report, round } from './support/report';
 import { closeSequelize, getSequelize } from '@/lib/server/db';
 import { districtSites } from '@/lib/server/data/district-map';
 import { districtAreas, visitCountsByAdvisor } from '@/lib/server/data/follow-up';
@@ -118,11 +118,9 @@ async function main() {
       budgets.push(budget(`${c.name}: errors`, errors, '==', 0));
     }
     // The bare framework under the same 10 at once: what any request costs here before the app's work.
-    const floorUrl = process.env.BENCH_FLOOR_URL;
-    if (!floorUrl) throw new Error('BENCH_FLOOR_URL is not set: run with npm run bench');
-    const floor = clientAt(floorUrl);
+    const floor = clientAt(floorApp().url);
     await floor.get('/api/echo');
-    const bare = [];
+    const bare: number[][] = [];
     for (let run = 0; run < RUNS; run++) bare.push((await pool(200, CONCURRENCY, 120_000, () => floor.get('/api/echo'))).map((s) => s.ms));
     rows.push({ name: 'bare framework: an empty route handler of the floor app', concurrency: CONCURRENCY, requests: 200,
       p50Ms: round(median(bare.map((ms) => quantile(ms, 0.5)))), p99Ms: round(median(bare.map((ms) => quantile(ms, 0.99)))) });

@@ -12,7 +12,7 @@ import { makeOrganisation, type TestUser } from '../integration/support/fixtures
 import { putOp } from '../integration/support/sync';
 import { clientAt, clientFor, pool } from './support/http';
 import { cpuSeconds, processesNamed, processTree } from './support/proc';
-import { budget, median, quantile, report, round } from './support/report';
+import { budget, floorApp, median, quantile, report, round } from './support/report';
 import { closeSequelize } from '@/lib/server/db';
 
 const OPS = 1000;
@@ -130,10 +130,8 @@ async function lightestRun(devices: { user: TestUser }[]) {
  * changes, ROUNDS times, all at once; with the CPU per request of the floor's process.
  */
 async function bareRun(count: number) {
-  const base = process.env.BENCH_FLOOR_URL;
-  const pid = Number(process.env.BENCH_FLOOR_PID);
-  if (!base || !pid) throw new Error('BENCH_FLOOR_URL and BENCH_FLOOR_PID are not set: run with npm run bench');
-  const floor = clientAt(base);
+  const { url, pid } = floorApp();
+  const floor = clientAt(url);
   const pushes: number[] = [];
   let errors = 0;
   const tree = processTree(pid);

@@ -2,7 +2,7 @@
 import * as mariadb from 'mariadb';
 import { sessionCookie } from '../../integration/support/fixtures';
 import type { Role } from '@/lib/shared/domain';
-import { appUrl } from './report';
+import { appUrl, floorApp } from './report';
 
 async function query<T>(sql: string, params: unknown[] = []): Promise<T[]> {
   const conn = await mariadb.createConnection({
@@ -45,8 +45,7 @@ export async function farmerOf(visitId: string): Promise<string> {
 
 /** What the page benches open: the app, the empty floor app, and the demo advisor and farmer. */
 export async function pageBenchContext() {
-  const floorUrl = process.env.BENCH_FLOOR_URL;
-  if (!floorUrl) throw new Error('BENCH_FLOOR_URL is not set: run with npm run bench');
+  const floorUrl = floorApp().url;
   const advisor = await demoCookie('tobias@wenlow-water.test');
   const visitId = await screenedVisitOf('tobias@wenlow-water.test');
   // The sheet as its reader sees it: the farmer (with the reply form).

@@ -35,3 +35,11 @@ export function appUrl(): string {
   if (!url) throw new Error('BENCH_APP_URL is not set: run the benches with npm run bench');
   return url;
 }
+
+/** The empty App Router app the harness serves beside it (the bare-framework floor): URL and process id. */
+export function floorApp(): { url: string; pid: number } {
+  const url = process.env.BENCH_FLOOR_URL;
+  const pid = Number(process.env.BENCH_FLOOR_PID);
+  if (!url || !pid) throw new Error('BENCH_FLOOR_URL and BENCH_FLOOR_PID are not set: run the benches with npm run bench');
+  return { url, pid };
+}
