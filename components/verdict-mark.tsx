@@ -1,15 +1,13 @@
-import type { Verdict } from '@/lib/shared/domain';
-
-const WORDS: Record<Verdict, string> = { go: 'Go', conditional: 'Go, with conditions', 'no-go': 'No-go' };
-const COLOURS: Record<Verdict, string> = { go: '#3E5B1E', conditional: '#6F4700', 'no-go': '#8C2F10' };
+import { VERDICT_COLOURS, VERDICT_WORDS, type Verdict } from '@/lib/shared/domain';
 
 /**
  * The verdict as word + shape + colour (never colour alone): a level vial whose bubble sits
- * between the marks for go, off to one side for conditional, and a struck-through vial for no-go.
+ * between the marks for go, off to one side for conditional, a struck-through vial for no-go,
+ * and a downhill chevron for gravity (no pump needed).
  */
 export function VerdictMark({ verdict, size = 28 }: { verdict: Verdict; size?: number }) {
-  const colour = COLOURS[verdict];
-  const bubbleX = verdict === 'go' ? 24 : verdict === 'conditional' ? 36 : 24;
+  const colour = VERDICT_COLOURS[verdict];
+  const bubbleX = verdict === 'conditional' ? 36 : 24;
   return (
     <span className="inline-flex items-center gap-2 font-bold" style={{ color: colour }}>
       <svg width={size * 1.7} height={size} viewBox="0 0 48 28" aria-hidden="true" focusable="false">
@@ -18,11 +16,13 @@ export function VerdictMark({ verdict, size = 28 }: { verdict: Verdict; size?: n
         <line x1="30" y1="6" x2="30" y2="22" stroke={colour} strokeWidth="2" />
         {verdict === 'no-go' ? (
           <line x1="4" y1="26" x2="44" y2="2" stroke={colour} strokeWidth="3.5" strokeLinecap="round" />
+        ) : verdict === 'gravity' ? (
+          <path d="M19 10 L24 17 L29 10" fill="none" stroke={colour} strokeWidth="3" strokeLinecap="round" strokeLinejoin="round" />
         ) : (
           <ellipse cx={bubbleX} cy="14" rx="5" ry="4" fill={colour} />
         )}
       </svg>
-      <span>{WORDS[verdict]}</span>
+      <span>{VERDICT_WORDS[verdict]}</span>
     </span>
   );
 }

@@ -1,4 +1,4 @@
-// Bill of materials from the screened design: pipes by length and size, ram, valves, intake and tank.
+// Bill of materials from the screened design: rams, pipes by length and size, valves, intake and tank.
 import { fmt } from './format';
 import { NOMINAL_SIZES, type NominalSize } from './materials';
 import type { DeliveryDesign, DriveDesign } from './pipe-design';
@@ -9,48 +9,78 @@ export interface BomInput {
   delivery: DeliveryDesign;
   deliveryLengthM: number;
   ramDriveIn: number;
+  ramCount: number;
   ramMinLpm: number;
   ramMaxLpm: number;
   tankL: number;
   tankRuleLabel: string;
   standPipe: boolean;
+  /** The pressures call for a relief valve at the ram. */
+  reliefValve: boolean;
+}
+
+export interface GravityBomInput {
+  pipe: { material: string; classLabel: string; sizeLabel: string };
+  lengthM: number;
+  tankL: number;
+  tankRuleLabel: string;
 }
 
 function sizeLabel(nominalIn: number): string {
   return (NOMINAL_SIZES.find((s) => s.nominalIn === nominalIn) as NominalSize | undefined)?.label ?? `${nominalIn}″`;
 }
 
-/** Lines of the bill of materials; pipe lengths rounded up to whole metres. */
+function commonLines(tankL: number, tankRuleLabel: string): BillOfMaterialsLine[] {
+  return [
+    { item: 'Intake screen and settling drum or basin', size: '—', quantity: 1, unit: 'each', note: 'Keeps trash, sand and fish out; keep the inlet well under water' },
+    { item: 'Storage tank with a lid and an overflow', size: fmt(tankL, 'L'), quantity: 1, unit: 'each', note: `Sized by the rule: ${tankRuleLabel}` },
+  ];
+}
+
+/** Lines of the bill of materials for rams; pipe lengths rounded up to whole metres, one drive pipe per ram. */
 export function billOfMaterials(b: BomInput): BillOfMaterialsLine[] {
+  const n = b.ramCount;
   const lines: BillOfMaterialsLine[] = [
     {
       item: 'Hydraulic ram',
       size: `for ${sizeLabel(b.ramDriveIn)} drive pipe`,
-      quantity: 1,
+      quantity: n,
       unit: 'each',
-      note: `Drive flow ${fmt(b.ramMinLpm, 'L/min')}–${fmt(b.ramMaxLpm, 'L/min')} (Ogden 1911, Table XI)`,
+      note: `Drive flow ${fmt(b.ramMinLpm, 'L/min')}–${fmt(b.ramMaxLpm, 'L/min')} (Ogden 1911, Table XI); body rated for at least ${fmt(b.drive.blockedDeliveryHeadM, 'm')} of head`,
     },
     {
       item: `Drive pipe, ${b.drive.material.label}, ${b.drive.cls.label}`,
       size: b.drive.size.label,
-      quantity: Math.ceil(b.drive.lengthM),
+      quantity: n * Math.ceil(b.drive.lengthM),
       unit: 'm',
-      note: 'Rigid, one diameter, long sweeps only, no elbows',
+      note: n > 1 ? `${Math.ceil(b.drive.lengthM)} m for each ram; rigid, one diameter, long sweeps only` : 'Rigid, one diameter, long sweeps only, no elbows',
     },
     {
       item: `Delivery pipe, ${b.delivery.material.label}, ${b.delivery.cls.label}`,
       size: b.delivery.size.label,
       quantity: Math.ceil(b.deliveryLengthM),
       unit: 'm',
-      note: 'Length as walked; fittings allowance is in the friction, not the order',
+      note: n > 1 ? 'One pipe shared by the rams; length as walked' : 'Length as walked; fittings allowance is in the friction, not the order',
     },
-    { item: 'Full-bore valve (gate or ball) on the drive pipe at the ram', size: b.drive.size.label, quantity: 1, unit: 'each', note: 'For stopping the ram' },
-    { item: 'Valve on the delivery pipe at the ram', size: b.delivery.size.label, quantity: 1, unit: 'each', note: 'For starting against a closed delivery' },
-    { item: 'Intake screen and settling drum or basin', size: '—', quantity: 1, unit: 'each', note: 'Keeps trash and sand out; keep the inlet well under water' },
-    { item: 'Storage tank', size: fmt(b.tankL, 'L'), quantity: 1, unit: 'each', note: `Sized by the rule: ${b.tankRuleLabel}` },
+    { item: 'Full-bore valve (gate or ball) on the drive pipe at the ram', size: b.drive.size.label, quantity: n, unit: 'each', note: 'For stopping the ram' },
+    { item: 'Non-return valve and isolating valve on the delivery at the ram', size: b.delivery.size.label, quantity: n, unit: 'each', note: 'So one ram can be stopped while the others run' },
+    { item: 'Pressure gauge on the ram', size: '0–' + fmt(Math.ceil(b.drive.blockedDeliveryHeadM * 1.5), 'm'), quantity: n, unit: 'each', note: 'For setting up and commissioning' },
+    ...commonLines(b.tankL, b.tankRuleLabel),
   ];
+  if (b.reliefValve) {
+    lines.push({ item: 'Pressure-relief valve at the ram', size: b.delivery.size.label, quantity: n, unit: 'each', note: `Set below ${fmt(b.drive.allowedHeadM, 'm')} of head (the drive pipe's usable rating)` });
+  }
   if (b.standPipe) {
-    lines.push({ item: 'Open stand pipe or header tank on the drive line', size: b.drive.size.label, quantity: 1, unit: 'each', note: `About ${fmt(b.drive.bandMaxM, 'm')} up the drive pipe from the ram` });
+    lines.push({ item: 'Open stand pipe or header tank on the drive line', size: b.drive.size.label, quantity: n, unit: 'each', note: `About ${fmt(Math.min(b.drive.bandMaxM, b.drive.lengthM), 'm')} up the drive pipe from the ram` });
   }
   return lines;
+}
+
+/** Lines of the bill of materials for a gravity supply. */
+export function gravityBillOfMaterials(b: GravityBomInput): BillOfMaterialsLine[] {
+  return [
+    { item: `Supply pipe, ${b.pipe.material}, ${b.pipe.classLabel}`, size: b.pipe.sizeLabel, quantity: Math.ceil(b.lengthM), unit: 'm', note: 'From the intake down to the tank; air valves at high points' },
+    { item: 'Isolating valve at the intake and at the tank', size: b.pipe.sizeLabel, quantity: 2, unit: 'each', note: 'For flushing and repairs' },
+    ...commonLines(b.tankL, b.tankRuleLabel),
+  ];
 }

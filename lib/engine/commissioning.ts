@@ -128,9 +128,11 @@ export function commissioningCheck(r: CommissioningReadings, prediction: Commiss
   };
 }
 
-/** The prediction a stored screening carries, or null when a figure is missing. */
+/** One ram's prediction from a stored screening (daily figures shared between rams in parallel), or null when a figure is missing. */
 export function predictionFromFigures(figures: Partial<Record<string, { value: number | null }>>): CommissioningPrediction | null {
   const v = (k: string) => figures[k]?.value ?? null;
-  const p = { deliveryLpd: v('deliveryLpd'), p10Lpd: v('deliveryP10Lpd'), p90Lpd: v('deliveryP90Lpd'), efficiency: v('efficiency'), driveLpm: v('driveFlowLpm'), totalLiftM: v('totalLiftM') };
+  const n = v('ramCount') ?? 1;
+  const perRam = (x: number | null) => (x === null ? null : x / n);
+  const p = { deliveryLpd: perRam(v('deliveryLpd')), p10Lpd: perRam(v('deliveryP10Lpd')), p90Lpd: perRam(v('deliveryP90Lpd')), efficiency: v('efficiency'), driveLpm: v('driveFlowLpm'), totalLiftM: v('totalLiftM') };
   return Object.values(p).every((x) => typeof x === 'number') ? (p as CommissioningPrediction) : null;
 }

@@ -13,7 +13,7 @@ export interface DriveLengthRule {
   sourceId: SourceId;
 }
 
-// The rules conflict (REFERENCES §2): the organisation chooses; the band is a warning, not a hard limit.
+// The rules conflict: the organisation chooses; the band is a warning, not a hard limit.
 export const DRIVE_LENGTH_RULES: Readonly<Record<DriveLengthRuleId, DriveLengthRule>> = {
   'perkin-3-7': { id: 'perkin-3-7', label: '3–7 × fall (Perkin, via Wikipedia)', minTimesFall: 3, maxTimesFall: 7, sourceId: 'wikipedia-hydraulic-ram' },
   'watt-5-10': { id: 'watt-5-10', label: '5–10 × fall (Watt 1975)', minTimesFall: 5, maxTimesFall: 10, sourceId: 'drive-length-other-rules' },
@@ -37,20 +37,28 @@ export interface RamSizeRow {
   deliveryIn: number;
   minLpm: number;
   maxLpm: number;
+  /** Least fall the size works on, m (Ogden 1911, Table XI). */
+  minFallM: number;
 }
 
-// Ogden (1911), Rural Hygiene, Table XI: drive/delivery pipe and drive flow in gpm (× 3.785 L/min).
+// Ogden (1911), Rural Hygiene, Table XI: drive/delivery pipe, drive flow in gpm (× 3.785 L/min), least fall in ft.
 const GPM = 3.785411784;
+const FT = 0.3048;
 export const RAM_SIZE_TABLE: readonly RamSizeRow[] = [
-  { driveIn: 1.25, deliveryIn: 0.75, minLpm: 2.5 * GPM, maxLpm: 6 * GPM },
-  { driveIn: 1.5, deliveryIn: 0.75, minLpm: 6 * GPM, maxLpm: 12 * GPM },
-  { driveIn: 2, deliveryIn: 1, minLpm: 8 * GPM, maxLpm: 18 * GPM },
-  { driveIn: 2.5, deliveryIn: 1, minLpm: 11 * GPM, maxLpm: 24 * GPM },
-  { driveIn: 3, deliveryIn: 1.25, minLpm: 15 * GPM, maxLpm: 35 * GPM },
-  { driveIn: 4, deliveryIn: 2, minLpm: 30 * GPM, maxLpm: 75 * GPM },
-  { driveIn: 8, deliveryIn: 4, minLpm: 150 * GPM, maxLpm: 350 * GPM },
-  { driveIn: 12, deliveryIn: 5, minLpm: 375 * GPM, maxLpm: 700 * GPM },
+  { driveIn: 1.25, deliveryIn: 0.75, minLpm: 2.5 * GPM, maxLpm: 6 * GPM, minFallM: 3 * FT },
+  { driveIn: 1.5, deliveryIn: 0.75, minLpm: 6 * GPM, maxLpm: 12 * GPM, minFallM: 3 * FT },
+  { driveIn: 2, deliveryIn: 1, minLpm: 8 * GPM, maxLpm: 18 * GPM, minFallM: 2 * FT },
+  { driveIn: 2.5, deliveryIn: 1, minLpm: 11 * GPM, maxLpm: 24 * GPM, minFallM: 2 * FT },
+  { driveIn: 3, deliveryIn: 1.25, minLpm: 15 * GPM, maxLpm: 35 * GPM, minFallM: 2 * FT },
+  { driveIn: 4, deliveryIn: 2, minLpm: 30 * GPM, maxLpm: 75 * GPM, minFallM: 2 * FT },
+  { driveIn: 8, deliveryIn: 4, minLpm: 150 * GPM, maxLpm: 350 * GPM, minFallM: 2 * FT },
+  { driveIn: 12, deliveryIn: 5, minLpm: 375 * GPM, maxLpm: 700 * GPM, minFallM: 2 * FT },
 ];
+
+/** The table row for a ram's drive pipe size, inches, or null. */
+export function ramRowFor(driveIn: number): RamSizeRow | null {
+  return RAM_SIZE_TABLE.find((r) => r.driveIn === driveIn) ?? null;
+}
 
 export type RamSizeStatus = 'in-table' | 'below-table' | 'capped';
 
@@ -68,7 +76,11 @@ export function ramSizeForFlow(designLpm: number): { row: RamSizeRow | null; use
   return { row: below, usedLpm: below.maxLpm, status: 'capped' };
 }
 
-/** Least drive velocity, m/s, whose Joukowsky surge reaches the delivery head: v = g·h/a (Thomas 1994). */
-export function minimumDriveVelocityMps(deliveryHeadM: number, waveSpeedMps: number): number {
-  return (G * positive(deliveryHeadM, 'deliveryHeadM')) / positive(waveSpeedMps, 'waveSpeedMps');
+/**
+ * Least closure velocity, m/s, whose Joukowsky rise on top of the fall reaches the delivery head:
+ * H + a·v/g ≥ h, so v = g·(h − H)/a (Joukowsky; the concept in Thomas 1994).
+ */
+export function minimumDriveVelocityMps(deliveryHeadM: number, waveSpeedMps: number, fallM = 0): number {
+  const rise = positive(deliveryHeadM, 'deliveryHeadM') - nonNegative(fallM, 'fallM');
+  return (G * Math.max(0, rise)) / positive(waveSpeedMps, 'waveSpeedMps');
 }

@@ -20,3 +20,8 @@ export function fmt(value: number, unit = ''): string {
 export function pct(fraction: number): string {
   return `${Math.round(fraction * 100)} %`;
 }
+
+/** A length to the millimetre, for texts that compare a reading with a threshold ("0.499 m"). */
+export function fmtMm(valueM: number): string {
+  return `${(Math.round(valueM * 1000) / 1000).toFixed(3)} m`;
+}

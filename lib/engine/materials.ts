@@ -9,6 +9,8 @@ export interface PressureClass {
   ratingKPa: number;
   /** Wall thickness for a nominal size: plastic from SDR, steel from the schedule table. */
   sdr?: number;
+  /** Largest nominal size, inches, the class is made in (threaded malleable fittings); no limit when absent. */
+  maxNominalIn?: number;
   sourceId: SourceId;
 }
 
@@ -30,7 +32,7 @@ export interface NominalSize {
   steelWallMm: number;
 }
 
-// IPS outside diameters and Schedule 40 walls (ASME B36.10, from memory; 2″ confirmed in REFERENCES §3).
+// IPS outside diameters and Schedule 40 walls (ASME B36.10, from memory; the 2″ bore 52.5 mm and wall 3.91 mm confirmed).
 export const NOMINAL_SIZES: readonly NominalSize[] = [
   { nominalIn: 0.5, label: '½″ (15 mm)', outsideMm: 21.3, steelWallMm: 2.77 },
   { nominalIn: 0.75, label: '¾″ (20 mm)', outsideMm: 26.7, steelWallMm: 2.87 },
@@ -69,8 +71,9 @@ export const PIPE_MATERIALS: Readonly<Record<PipeMaterialId, PipeMaterial>> = {
     roughnessMm: 0.15,
     // Threaded joints: the malleable-iron fittings, not the pipe, set the rating (from memory).
     classes: [
-      { id: 'sch40-class150', label: 'Schedule 40, class 150 fittings (300 psi)', ratingKPa: 300 * PSI_KPA, sourceId: 'steel-pipe-sizes' },
-      { id: 'sch40-class300', label: 'Schedule 40, class 300 fittings (600 psi)', ratingKPa: 600 * PSI_KPA, sourceId: 'steel-pipe-sizes' },
+      // ASME B16.3 makes class 150 malleable fittings to 6″ and class 300 to 3″ (from memory).
+      { id: 'sch40-class150', label: 'Schedule 40, class 150 fittings (300 psi)', ratingKPa: 300 * PSI_KPA, maxNominalIn: 6, sourceId: 'steel-pipe-sizes' },
+      { id: 'sch40-class300', label: 'Schedule 40, class 300 fittings (600 psi)', ratingKPa: 600 * PSI_KPA, maxNominalIn: 3, sourceId: 'steel-pipe-sizes' },
     ],
   },
   pvc: {
@@ -125,4 +128,17 @@ export function sizeForBore(diameterMm: number, cls: PressureClass): NominalSize
     if (Math.abs(boreMm(s, cls) - diameterMm) < Math.abs(boreMm(best, cls) - diameterMm)) best = s;
   }
   return best;
+}
+
+/** Whether a class is made in a nominal size (malleable fittings stop at 6″ for class 150, 3″ for class 300). */
+export function classMadeIn(cls: PressureClass, size: NominalSize): boolean {
+  return cls.maxNominalIn === undefined || size.nominalIn <= cls.maxNominalIn;
+}
+
+/** Share of the static rating a plastic pipe keeps under a ram's 10⁷–10⁸ pressure cycles a year (from memory). */
+export const PLASTIC_CYCLIC_RATING_FACTOR = 0.5;
+
+/** Whether a material is a plastic whose rating is derated for cycling. */
+export function isPlastic(material: PipeMaterial): boolean {
+  return material.id !== 'galvanized-steel';
 }

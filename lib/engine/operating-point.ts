@@ -5,6 +5,10 @@ export interface OperatingContext {
   curve: EfficiencyCurve;
   /** Hazen–Williams k for the delivery pipe (loss = k·Q^1.852, Q in m³/s), fittings allowance included. */
   deliveryFrictionK: number;
+  /** Rams in parallel sharing the delivery pipe: friction is taken at their summed flow (1 when absent). */
+  ramCount?: number;
+  /** Multiplies the curve's efficiency (Monte Carlo draws of the spread between makes); 1 when absent. */
+  efficiencyFactor?: number;
 }
 
 export interface OperatingPoint {
@@ -15,22 +19,26 @@ export interface OperatingPoint {
   efficiency: number;
 }
 
-/** Efficiency at a lift ratio without extrapolating: edge value below the curve, 0 above it. */
-export function efficiencyAt(curve: EfficiencyCurve, ratio: number): number {
+/**
+ * Efficiency at a lift ratio without extrapolating: above the curve 0; below it the delivered share q/Q is held
+ * at the curve's first value (η·H/h at the edge), so the efficiency falls with the ratio instead of staying high.
+ */
+export function efficiencyAt(curve: EfficiencyCurve, ratio: number, factor = 1): number {
   if (ratio > curve.maxRatio) return 0;
-  const r = ratio < curve.minRatio ? curve.minRatio : ratio;
-  const e = curve.at(r);
+  const edge = curve.at(curve.minRatio);
+  const e = (ratio < curve.minRatio ? (edge * ratio) / curve.minRatio : curve.at(ratio)) * factor;
   return e < 0 ? 0 : e > 1 ? 1 : e;
 }
 
 function liftAt(ctx: OperatingContext, staticLiftM: number, q: number): number {
-  return staticLiftM + ctx.deliveryFrictionK * (q / 60000) ** 1.852;
+  const n = ctx.ramCount ?? 1;
+  return staticLiftM + ctx.deliveryFrictionK * ((n * q) / 60000) ** 1.852;
 }
 
 /** q the ram would deliver if the delivery pipe carried q0: η(h/H)·Q·H/h, never above Q; falls as q0 rises. */
 function deliveryIfFlowing(ctx: OperatingContext, fallM: number, staticLiftM: number, driveLpm: number, q0: number): number {
   const lift = liftAt(ctx, staticLiftM, q0);
-  const q = (efficiencyAt(ctx.curve, lift / fallM) * driveLpm * fallM) / lift;
+  const q = (efficiencyAt(ctx.curve, lift / fallM, ctx.efficiencyFactor) * driveLpm * fallM) / lift;
   return q < driveLpm ? q : driveLpm;
 }
 
@@ -45,7 +53,7 @@ export function deliveryLpm(ctx: OperatingContext, fallM: number, staticLiftM: n
       out[0] = 0;
       out[1] = staticLiftM;
       out[2] = fallM > 0 ? staticLiftM / fallM : 0;
-      out[3] = fallM > 0 && staticLiftM > 0 ? efficiencyAt(ctx.curve, staticLiftM / fallM) : 0;
+      out[3] = fallM > 0 && staticLiftM > 0 ? efficiencyAt(ctx.curve, staticLiftM / fallM, ctx.efficiencyFactor) : 0;
     }
     return 0;
   }
@@ -78,12 +86,12 @@ export function deliveryLpm(ctx: OperatingContext, fallM: number, staticLiftM: n
     out[0] = lift - staticLiftM;
     out[1] = lift;
     out[2] = lift / fallM;
-    out[3] = efficiencyAt(ctx.curve, lift / fallM);
+    out[3] = efficiencyAt(ctx.curve, lift / fallM, ctx.efficiencyFactor);
   }
   return delivered;
 }
 
-/** The same operating point as a plain object, for the deterministic screen. */
+/** The same operating point as a plain object, for the deterministic screen (per ram; friction at the rams' summed flow). */
 export function operatingPoint(ctx: OperatingContext, fallM: number, staticLiftM: number, driveLpm: number): OperatingPoint {
   const scratch = new Float64Array(4);
   const q = deliveryLpm(ctx, fallM, staticLiftM, driveLpm, scratch);

@@ -3,7 +3,7 @@
 /** Standard gravity, m/s² (CGPM 1901 conventional value). */
 export const G = 9.80665;
 
-/** Bulk modulus of water, Pa: 2.2 GPa at ~20 °C (from memory; 2.07–2.2 GPa quoted, REFERENCES §3). */
+/** Bulk modulus of water, Pa: 2.2 GPa at ~20 °C (from memory; 2.07–2.2 GPa quoted). */
 export const WATER_BULK_MODULUS_PA = 2.2e9;
 
 /** Density of water, kg/m³, nominal for heads and wave speed. */

@@ -1,11 +1,11 @@
 // One (intake, pump site) pair of a surveyed creek profile: the pruning rules, the readings it would
 // be screened with, and a fast estimate that runs the same sums as screenSite with fewer draws.
 import { flowMeasurementSchema, settingsSchema, type ScreenSettings, type SiteReadingsInput } from '@/lib/shared/schemas/site-readings';
-import { DRIVE_LD_BAND, driveLengthBandM, RAM_SIZE_TABLE, ramSizeForFlow, type RamSizeRow } from './drive-pipe';
+import { DRIVE_LD_BAND, driveLengthBandM } from './drive-pipe';
 import { demandBreakdown } from './demand';
 import { runMonteCarlo } from './monte-carlo';
-import { operatingPoint, type OperatingContext } from './operating-point';
-import { designDeliveryPipe, designDrivePipe } from './pipe-design';
+import type { OperatingContext } from './operating-point';
+import { planRams, type RamPlan } from './ram-plan';
 import { EFFICIENCY_CURVES } from './ram';
 import { combineRuns, estimateFlow, estimateLift } from './readings';
 import { MAX_LIFT_RATIO, MIN_FALL_M } from './verdict';
@@ -123,23 +123,35 @@ export function pairGeometry(intake: ProfileStation, pump: ProfileStation, tank:
   return { fallM, staticLiftM, driveLengthM, deliveryLengthM };
 }
 
-/** The cheap rules, cheapest first; null when the pair passes them all. */
-export function checkPair(s: SearchContext, intake: ProfileStation, pump: ProfileStation): RejectCode | null {
-  if (intake.flags?.includes('no-intake')) return 'flag-intake';
-  if (pump.flags?.includes('no-pump-site')) return 'flag-pump';
+/** The rams screenSite would size for a pair (the same sizing from demand, without the fixes a conditional names). */
+export function pairPlan(s: SearchContext, intake: ProfileStation, pump: ProfileStation): RamPlan {
   const g = pairGeometry(intake, pump, s.input.tank);
-  if (g.fallM < MIN_FALL_M) return 'little-fall';
-  const band = driveLengthBandM(g.fallM, s.settings.driveLengthRule);
-  if (g.driveLengthM < band.minM) return 'drive-short';
-  if (g.driveLengthM > band.maxM) return 'drive-long';
-  if (g.staticLiftM <= g.fallM) return 'gravity';
-  if (g.staticLiftM / g.fallM > MAX_LIFT_RATIO) return 'lift-ratio';
   const flow = s.flowAt(intake);
-  if (!flow || ramSizeForFlow(s.settings.designFractionOfLowest * flow.lowestLpm).row === null) return 'little-flow';
-  const row = ramSizeForFlow(s.settings.designFractionOfLowest * flow.lowestLpm).row as RamSizeRow;
-  const drive = designDrivePipe({ fallM: g.fallM, totalLiftM: g.staticLiftM, driveLpm: row.minLpm, ram: row, pipe: { lengthM: g.driveLengthM, material: s.input.drivePipeMaterial ?? 'galvanized-steel' }, ruleId: s.settings.driveLengthRule });
-  if (drive.lengthToDiameter < DRIVE_LD_BAND.min || drive.lengthToDiameter > DRIVE_LD_BAND.max) return 'drive-ld';
-  return null;
+  return planRams({
+    fallM: g.fallM, staticLiftM: g.staticLiftM, availableLpm: s.settings.designFractionOfLowest * (flow?.lowestLpm ?? 0),
+    needLpd: s.demandLpd * (1 + s.settings.demandMarginFraction), curve: s.ctxCurve, driveLengthRule: s.settings.driveLengthRule,
+    fittingsAllowance: s.settings.fittingsAllowanceFraction,
+    drivePipe: { lengthM: g.driveLengthM, material: s.input.drivePipeMaterial ?? 'galvanized-steel' },
+    deliveryPipe: { lengthM: g.deliveryLengthM, material: s.input.deliveryPipe?.material ?? 'hdpe', diameterMm: s.input.deliveryPipe?.diameterMm },
+  });
+}
+
+/** The cheap rules, cheapest first; the reject code, or null with the pair's ram plan when it passes them all. */
+export function checkPair(s: SearchContext, intake: ProfileStation, pump: ProfileStation): { code: RejectCode; plan?: undefined } | { code: null; plan: RamPlan & { status: 'meets' | 'short' } } {
+  if (intake.flags?.includes('no-intake')) return { code: 'flag-intake' };
+  if (pump.flags?.includes('no-pump-site')) return { code: 'flag-pump' };
+  const g = pairGeometry(intake, pump, s.input.tank);
+  if (g.fallM < MIN_FALL_M) return { code: 'little-fall' };
+  const band = driveLengthBandM(g.fallM, s.settings.driveLengthRule);
+  if (g.driveLengthM < band.minM) return { code: 'drive-short' };
+  if (g.driveLengthM > band.maxM) return { code: 'drive-long' };
+  if (g.staticLiftM <= g.fallM) return { code: 'gravity' };
+  if (g.staticLiftM / g.fallM > MAX_LIFT_RATIO) return { code: 'lift-ratio' };
+  const plan = pairPlan(s, intake, pump);
+  if (plan.status === 'no-ram') return { code: plan.cause === 'fall' ? 'little-fall' : 'little-flow' };
+  const ld = plan.option.drive.lengthToDiameter;
+  if (ld < DRIVE_LD_BAND.min || ld > DRIVE_LD_BAND.max) return { code: 'drive-ld' };
+  return { code: null, plan };
 }
 
 /** The raw readings screenSite gets for a pair: the profile's fall as one levelled set-up, the lift as levelled. */
@@ -171,26 +183,18 @@ export function compareKeys(a: RankKey, b: RankKey): number {
 }
 
 /**
- * The same delivery and Monte Carlo as screenSite (same operating point, delivery pipe choice and seed),
- * with fewer draws: the draws are a prefix of the full run's, so a pair certain in full is certain here.
+ * The same sizing, delivery and Monte Carlo as screenSite, with fewer draws: the draws are a prefix of the full
+ * run's, so a pair certain in full is certain here.
  */
-export function quickKey(s: SearchContext, intake: ProfileStation, pump: ProfileStation, samples: number): RankKey {
+export function quickKey(s: SearchContext, intake: ProfileStation, pump: ProfileStation, samples: number, plan: RamPlan & { status: 'meets' | 'short' }): RankKey {
   const g = pairGeometry(intake, pump, s.input.tank);
   const flow = s.flowAt(intake);
-  const designLpm = s.settings.designFractionOfLowest * (flow?.lowestLpm ?? 0);
-  const ram = ramSizeForFlow(designLpm);
-  const row = ram.row ?? (RAM_SIZE_TABLE[0] as RamSizeRow);
-  const at = (k: number) => operatingPoint({ curve: s.ctxCurve, deliveryFrictionK: k }, g.fallM, g.staticLiftM, ram.usedLpm);
-  const delivery = designDeliveryPipe({
-    pipe: { lengthM: g.deliveryLengthM, material: s.input.deliveryPipe?.material ?? 'hdpe', diameterMm: s.input.deliveryPipe?.diameterMm },
-    fittingsAllowance: s.settings.fittingsAllowanceFraction, ram: row, staticLiftM: g.staticLiftM,
-    deliveryFor: (k) => { const p = at(k); return { deliveryLpm: p.deliveryLpm, frictionM: p.frictionM }; },
-  });
+  const o = plan.option;
   const mc = runMonteCarlo({
-    ctx: { curve: s.ctxCurve, deliveryFrictionK: delivery.frictionK }, fallM: g.fallM, fallSigmaM: s.fallSigmaM,
+    ctx: { curve: s.ctxCurve, deliveryFrictionK: o.delivery.frictionK }, fallM: g.fallM, fallSigmaM: s.fallSigmaM,
     staticLiftM: g.staticLiftM, staticLiftSigmaM: s.liftSigmaFor(g.staticLiftM), lowestFlowLpm: flow?.lowestLpm ?? 0,
     lowestFlowRelativeSigma: flow?.relativeSigma ?? 0, designFraction: s.settings.designFractionOfLowest,
-    ramMaxLpm: row.maxLpm, ramMinLpm: row.minLpm, demandLpd: s.demandLpd, samples, seed: s.input.seed ?? 1,
+    ramMaxLpm: o.drive.driveLpm, ramMinLpm: o.row.minLpm, ramCount: o.count, demandLpd: s.demandLpd, samples, seed: s.input.seed ?? 1,
   });
-  return { probabilityMeetsDemand: mc.probabilityMeetsDemand, deliveryLpd: at(delivery.frictionK).deliveryLpm * 1440, totalPipeM: g.driveLengthM + g.deliveryLengthM };
+  return { probabilityMeetsDemand: mc.probabilityMeetsDemand, deliveryLpd: o.deliveryLpd, totalPipeM: g.driveLengthM + g.deliveryLengthM };
 }

@@ -68,9 +68,9 @@ export function bestPositions(input: BestPositionsInput): BestPositionsResult {
       const pump = stations[j] as ProfileStation;
       if (pump.chainageM <= intake.chainageM) continue;
       considered++;
-      const code = checkPair(s, intake, pump);
-      if (code) counts.set(code, (counts.get(code) ?? 0) + 1);
-      else quick.push({ i, j, key: quickKey(s, intake, pump, quickSamples) });
+      const check = checkPair(s, intake, pump);
+      if (check.code) counts.set(check.code, (counts.get(check.code) ?? 0) + 1);
+      else quick.push({ i, j, key: quickKey(s, intake, pump, quickSamples, check.plan) });
     }
   }
 
@@ -129,7 +129,7 @@ export function bestPositionsBruteForce(input: BestPositionsInput): { intakeId: 
     for (let j = i + 1; j < stations.length; j++) {
       const intake = stations[i] as ProfileStation;
       const pump = stations[j] as ProfileStation;
-      if (pump.chainageM <= intake.chainageM || checkPair(s, intake, pump)) continue;
+      if (pump.chainageM <= intake.chainageM || checkPair(s, intake, pump).code) continue;
       const g = pairGeometry(intake, pump, input.tank);
       const sc = screenSite(pairReadings(s, intake, pump, input.samples ?? 10_000));
       out.push({

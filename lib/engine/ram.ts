@@ -11,6 +11,8 @@ export interface EfficiencyCurve {
   /** Lift ratios (h/H) the curve is published for; outside it the engine reports instead of extrapolating. */
   minRatio: number;
   maxRatio: number;
+  /** Above this ratio the curve is no longer stated by its source: the screen says so (constant curves). */
+  statedUpToRatio: number;
   at: (liftRatio: number) => number;
 }
 
@@ -36,6 +38,7 @@ export const EFFICIENCY_CURVES: Readonly<Record<EfficiencyCurveId, EfficiencyCur
     sourceId: 'building-trades-pocketbook',
     minRatio: 4,
     maxRatio: 26,
+    statedUpToRatio: 26,
     at: (r) => interpolateTable(BUILDING_TRADES, r),
   },
   eytelwein: {
@@ -45,6 +48,7 @@ export const EFFICIENCY_CURVES: Readonly<Record<EfficiencyCurveId, EfficiencyCur
     // Range assumed (from memory): above 1 where the form exceeds 0.9, up to the 30:1 practical limit.
     minRatio: 1.5,
     maxRatio: 30,
+    statedUpToRatio: 30,
     at: (r) => 1.12 - 0.2 * Math.sqrt(r),
   },
   'wftw-commercial': {
@@ -53,6 +57,8 @@ export const EFFICIENCY_CURVES: Readonly<Record<EfficiencyCurveId, EfficiencyCur
     sourceId: 'wftw-rws4d5',
     minRatio: 1.5,
     maxRatio: 30,
+    // A constant efficiency holds only where efficiency has not yet fallen off: up to about 12 (International Encyclopedia).
+    statedUpToRatio: 12,
     at: () => 0.66,
   },
   'wftw-home-built': {
@@ -61,6 +67,7 @@ export const EFFICIENCY_CURVES: Readonly<Record<EfficiencyCurveId, EfficiencyCur
     sourceId: 'wftw-rws4d5',
     minRatio: 1.5,
     maxRatio: 30,
+    statedUpToRatio: 12,
     at: () => 0.33,
   },
 };
@@ -68,7 +75,7 @@ export const EFFICIENCY_CURVES: Readonly<Record<EfficiencyCurveId, EfficiencyCur
 export type EfficiencyStatus = 'in-range' | 'below-range' | 'above-range';
 
 export interface RamEfficiencyResult {
-  /** D'Aubuisson efficiency 0…1; at a range edge the edge value is held (stated by status), never extrapolated. */
+  /** D'Aubuisson efficiency 0…1; below the curve the delivered share q/Q of its first value is held (stated by status), above it 0. */
   efficiency: number;
   status: EfficiencyStatus;
   curve: EfficiencyCurve;
@@ -79,7 +86,8 @@ export function ramEfficiency(liftRatio: number, curveId: EfficiencyCurveId = 'b
   const r = positive(liftRatio, 'liftRatio');
   const curve = EFFICIENCY_CURVES[curveId];
   if (!curve) throw new EngineInputError('curveId', 'is not a known efficiency curve');
-  if (r < curve.minRatio) return { efficiency: curve.at(curve.minRatio), status: 'below-range', curve };
+  const edge = curve.at(curve.minRatio);
+  if (r < curve.minRatio) return { efficiency: Math.min(1, (edge * r) / curve.minRatio), status: 'below-range', curve };
   if (r > curve.maxRatio) return { efficiency: 0, status: 'above-range', curve };
   return { efficiency: Math.min(1, Math.max(0, curve.at(r))), status: 'in-range', curve };
 }

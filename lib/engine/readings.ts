@@ -3,7 +3,7 @@ import type { FallRun, FlowMeasurement, LiftReadings } from '@/lib/shared/schema
 import { allowedMisclosureMm, altitudeFallM, barometricFallM, clinometerFallM, hoseLevelFallM, levelRun } from './fall';
 import { floatFlowLps, rectangularWeirFlowLps, summarise, vNotchFlowLps, V_NOTCH_MIN_HEAD_M } from './flow';
 
-// Per-method standard uncertainties (from memory / common practice; REFERENCES §6).
+// Per-method standard uncertainties (from memory / common practice).
 export const LEVEL_SIGMA_PER_SETUP_M = 0.003;
 export const HOSE_SIGMA_PER_STEP_M = 0.005;
 export const CLINOMETER_SIGMA_FRACTION = 0.003;
@@ -92,7 +92,19 @@ export function combineRuns(runs: readonly FallRun[], sign = 1): CombinedEstimat
   const disagreeing = estimates
     .filter((e) => e !== best && Math.abs(e.dropM - best.dropM) > 3 * Math.hypot(e.sigmaM, best.sigmaM))
     .map((e) => e.index);
-  return { valueM: wx / wSum, sigmaM: 1 / Math.sqrt(wSum), runs: estimates, disagreeing, methods: [...new Set(estimates.map((e) => e.method))].join('+') };
+  const mean = wx / wSum;
+  return { valueM: mean, sigmaM: birgeRatio(estimates, mean) / Math.sqrt(wSum), runs: estimates, disagreeing, methods: [...new Set(estimates.map((e) => e.method))].join('+') };
+}
+
+/**
+ * Birge ratio √(χ²/(n − 1)) of runs about their weighted mean, never below 1 (Birge 1932): runs that disagree
+ * by more than their own uncertainties widen the combined σ by their spread instead of narrowing it.
+ */
+export function birgeRatio(runs: readonly { dropM: number; sigmaM: number }[], mean: number): number {
+  if (runs.length < 2) return 1;
+  let chi2 = 0;
+  for (const e of runs) chi2 += ((e.dropM - mean) / e.sigmaM) ** 2;
+  return Math.max(1, Math.sqrt(chi2 / (runs.length - 1)));
 }
 
 // Default 1σ for a directly entered static lift, by method (common practice / from memory).
@@ -115,8 +127,10 @@ export function estimateLift(lift: LiftReadings): CombinedEstimate {
   return combineRuns(lift.runs, lift.bookedFrom === 'pump' ? -1 : 1);
 }
 
-// Method uncertainty of a single flow reading, relative 1σ (from memory: ISO 1438 Ce ±1–2 %; float k 0.8–0.9).
+// Method uncertainty of a single flow reading, relative 1σ (from memory: ISO 1438 Ce ±1–2 %).
 const HEAD_READING_SIGMA_M = 0.002;
+/** Float gaugings: ±10 % at best (Herschy; USBR WMM ch. 10; from memory), taken as 1σ. */
+export const FLOAT_RELATIVE_SIGMA = 0.1;
 
 export interface FlowEstimate {
   index: number;
@@ -158,7 +172,7 @@ export function estimateFlow(m: FlowMeasurement, index: number): FlowEstimate {
     }
     case 'float':
       trials = m.trials.map((t) => floatFlowLps({ distanceM: t.distanceM, seconds: t.seconds, areaM2: m.areaM2, coefficient: m.coefficient }));
-      methodRel = 0.06;
+      methodRel = FLOAT_RELATIVE_SIGMA;
       break;
   }
   const s = summarise(trials, `flowMeasurements.${index}.trials`);

@@ -1,20 +1,20 @@
-// screenSite: from the raw readings of one visit to a traced go / conditional / no-go screening.
+// screenSite: from the raw readings of one visit to a traced go / conditional / no-go / gravity screening.
 import { siteReadingsSchema, type SiteReadings, type SiteReadingsInput } from '@/lib/shared/schemas/site-readings';
-import { billOfMaterials } from './bill-of-materials';
+import { billOfMaterials, gravityBillOfMaterials } from './bill-of-materials';
 import { cautionsFor } from './cautions';
 import { demandBreakdown } from './demand';
-import { RAM_SIZE_TABLE, ramSizeForFlow, type RamSizeRow } from './drive-pipe';
+import { DRIVE_LD_BAND, driveLengthBandM, RAM_SIZE_TABLE } from './drive-pipe';
 import { EngineInputError } from './errors';
+import { designGravityPipe } from './gravity';
 import { runMonteCarlo } from './monte-carlo';
-import { operatingPoint, type OperatingContext } from './operating-point';
-import { designDeliveryPipe, designDrivePipe } from './pipe-design';
-import { EFFICIENCY_CURVES, ramEfficiency } from './ram';
-import { combineRuns, estimateFlow, estimateLift } from './readings';
-import { buildFigures } from './screen-figures';
+import { planRams, type RamPlan, type RamPlanInput } from './ram-plan';
+import { EFFICIENCY_CURVES } from './ram';
+import { combineRuns, estimateFlow, estimateLift, type CombinedEstimate, type FlowEstimate } from './readings';
+import { buildFigures, buildGravityFigures, buildSurveyFigures, type SurveyContext } from './screen-figures';
 import type { Screening } from './screening-types';
 import { sourcesFor, type SourceId } from './sources';
 import { tankSizeL } from './tank';
-import { judge } from './verdict';
+import { judge, judgeGravity, type RamVerdictFacts } from './verdict';
 import { ENGINE_VERSION } from './version';
 
 /** Validates readings with the shared zod schema; the first problem becomes an EngineInputError naming its field. */
@@ -27,65 +27,41 @@ export function parseReadingsOrThrow(input: SiteReadingsInput): SiteReadings {
   return parsed.data;
 }
 
-/** Screens one site from its raw readings: figures with their rules and sources, verdict, cautions and materials. */
-export function screenSite(input: SiteReadingsInput): Screening {
-  const r = parseReadingsOrThrow(input);
-  const s = r.settings;
-  const curve = EFFICIENCY_CURVES[s.efficiencyCurve];
+interface Survey {
+  r: SiteReadings;
+  fall: CombinedEstimate;
+  lift: CombinedEstimate;
+  flows: FlowEstimate[];
+  lowest: FlowEstimate;
+  lowestLpm: number;
+  ctx: Omit<SurveyContext, 'fraction'>;
+  facts: Pick<RamVerdictFacts, 'fallM' | 'fallSigmaM' | 'fallRunsDisagree' | 'misclosures' | 'bookingFailed' | 'anyDrySeason' | 'lowHeadMeasurements' | 'lowestLpm' | 'demandLpd' | 'marginFraction'>;
+}
 
-  // 1. Fall, lift and flow from the readings.
+/** Fall, lift, flows, demand and tank from the readings: what every outcome is judged on. */
+function survey(r: SiteReadings): Survey {
+  const s = r.settings;
   const fall = combineRuns(r.fallRuns);
   const lift = estimateLift(r.lift);
   const flows = r.flowMeasurements.map(estimateFlow);
   const lowest = flows.reduce((a, b) => (b.meanLps < a.meanLps ? b : a));
   const allTrials = flows.flatMap((f) => f.trialsLps);
-  const supplyMeanLpm = (flows.reduce((sum, f) => sum + f.meanLps, 0) / flows.length) * 60;
-  const supplySpreadLpm = (Math.max(...allTrials) - Math.min(...allTrials)) * 60;
+  let hi = -Infinity;
+  let lo = Infinity;
+  for (const t of allTrials) {
+    if (t > hi) hi = t;
+    if (t < lo) lo = t;
+  }
   const lowestLpm = lowest.meanLps * 60;
-  const designLpm = s.designFractionOfLowest * lowestLpm;
-  const ram = ramSizeForFlow(designLpm);
-  const row: RamSizeRow = ram.row ?? (RAM_SIZE_TABLE[0] as RamSizeRow);
-  const driveLpm = ram.usedLpm;
-
-  // 2. Delivery pipe and operating point (friction solved with the delivery).
-  const at = (k: number, lpm = driveLpm) => operatingPoint({ curve, deliveryFrictionK: k }, fall.valueM, lift.valueM, lpm);
-  const deliveryInput = { pipe: r.deliveryPipe, fittingsAllowance: s.fittingsAllowanceFraction, ram: row, staticLiftM: lift.valueM, deliveryFor: (k: number) => { const p = at(k); return { deliveryLpm: p.deliveryLpm, frictionM: p.frictionM }; } };
-  const delivery = designDeliveryPipe(deliveryInput);
-  const ctx: OperatingContext = { curve, deliveryFrictionK: delivery.frictionK };
-  const op = at(delivery.frictionK);
-  const effStatus = op.liftRatio > 0 ? ramEfficiency(op.liftRatio, s.efficiencyCurve).status : 'in-range';
-  const deliveryLpd = op.deliveryLpm * 1440;
-
-  // 3. Demand and tank.
   const demandLines = demandBreakdown(r.demand, s.demandOverrides);
   const demandLpd = demandLines.reduce((sum, l) => sum + l.dailyL, 0);
   const tank = tankSizeL(demandLpd, s.tankRule, demandLpd * s.peakHourFraction);
-
-  // 4. Drive pipe: band, L/D, size, velocity, surge against rating.
-  const drive = designDrivePipe({
-    fallM: Math.max(fall.valueM, 1e-3),
-    totalLiftM: Math.max(op.totalLiftM, 1e-3),
-    driveLpm,
-    ram: row,
-    pipe: r.drivePipe,
-    ruleId: s.driveLengthRule,
-  });
-
-  // What would change a shortfall: the recommended delivery pipe, or the largest allowed share of the flow.
-  const recommended = delivery.diameterGiven ? designDeliveryPipe({ ...deliveryInput, pipe: { ...r.deliveryPipe, diameterMm: undefined } }) : null;
-  const withRecommended = recommended && recommended.boreMm > delivery.boreMm ? at(recommended.frictionK).deliveryLpm * 1440 : null;
-  const maxRam = s.maxDesignFractionOfLowest > s.designFractionOfLowest ? ramSizeForFlow(s.maxDesignFractionOfLowest * lowestLpm) : null;
-  const atMaxFraction = maxRam && maxRam.row ? at(delivery.frictionK, maxRam.usedLpm).deliveryLpm * 1440 : null;
-
-  // 5. Uncertainty by Monte Carlo.
-  const mc = runMonteCarlo({
-    ctx, fallM: fall.valueM, fallSigmaM: fall.sigmaM, staticLiftM: lift.valueM, staticLiftSigmaM: lift.sigmaM,
-    lowestFlowLpm: lowestLpm, lowestFlowRelativeSigma: lowest.relativeSigma, designFraction: s.designFractionOfLowest,
-    ramMaxLpm: row.maxLpm, ramMinLpm: row.minLpm, demandLpd, samples: r.monteCarlo.samples, seed: r.monteCarlo.seed,
-  });
-
-  // 6. Verdict.
-  const judgement = judge({
+  const ctx = {
+    r, fall, lift, flows, lowest, lowestLpm, demandLines, demandLpd, tank,
+    supplyMeanLpm: (flows.reduce((sum, f) => sum + f.meanLps, 0) / flows.length) * 60,
+    supplySpreadLpm: (hi - lo) * 60,
+  };
+  const facts = {
     fallM: fall.valueM, fallSigmaM: fall.sigmaM, fallRunsDisagree: fall.disagreeing,
     misclosures: fall.runs.flatMap((e) => {
       // Third-order allowance, but never tighter than 1 % of the fall: a screening, not a control survey.
@@ -95,42 +71,155 @@ export function screenSite(input: SiteReadingsInput): Screening {
     bookingFailed: fall.runs.filter((e) => e.arithmeticCheckOk === false).map((e) => e.index),
     anyDrySeason: flows.some((f) => f.season === 'dry'),
     lowHeadMeasurements: flows.filter((f) => f.lowHead).map((f) => f.index),
-    lowestLpm, designLpm, designFraction: s.designFractionOfLowest, ramStatus: ram.status, ramMinLpm: row.minLpm, driveLpm,
-    staticLiftM: lift.valueM, totalLiftM: op.totalLiftM, liftRatio: op.liftRatio, efficiencyStatus: effStatus,
-    curveLabel: curve.label, curveRange: [curve.minRatio, curve.maxRatio],
-    deliveryLpm: op.deliveryLpm, demandLpd, marginFraction: s.demandMarginFraction,
-    deliveryWithRecommendedPipeLpd: withRecommended, recommendedDeliveryLabel: recommended?.size.label ?? null,
-    deliveryAtMaxFractionLpd: atMaxFraction, maxFraction: s.maxDesignFractionOfLowest,
-    probabilityMeets: mc.probabilityMeetsDemand,
-    drive: {
-      lengthM: drive.lengthM, lengthGiven: drive.lengthGiven, bandMinM: drive.bandMinM, bandMaxM: drive.bandMaxM, bandRule: drive.bandRuleLabel,
-      lengthToDiameter: drive.lengthToDiameter, closureVelocityMps: drive.closureVelocityMps, minimumClosureVelocityMps: drive.minimumClosureVelocityMps,
-      peakPressureHeadM: drive.peakPressureHeadM, surgeHeadM: drive.surgeHeadM, ratingM: drive.ratingM, classLabel: drive.cls.label,
-      higherClassLabel: drive.higherClass?.label ?? null, materialLabel: drive.material.label, smallerThanRam: drive.smallerThanRam,
-    },
-    delivery: { frictionM: op.frictionM, ratingM: delivery.ratingM, classGiven: delivery.classGiven, classLabel: delivery.cls.label, diameterGiven: delivery.diameterGiven },
+    lowestLpm, demandLpd, marginFraction: s.demandMarginFraction,
+  };
+  return { r, fall, lift, flows, lowest, lowestLpm, ctx, facts };
+}
+
+const SHARED_SOURCES: SourceId[] = ['min-fall-wftw', 'lift-ratio-limit', 'wftw-rws4d5', 'clemson-smith'];
+
+function settingsOf(r: SiteReadings): Screening['settings'] {
+  const s = r.settings;
+  return {
+    designFractionOfLowest: s.designFractionOfLowest, maxDesignFractionOfLowest: s.maxDesignFractionOfLowest, efficiencyCurve: s.efficiencyCurve,
+    demandMarginFraction: s.demandMarginFraction, tankRule: s.tankRule, driveLengthRule: s.driveLengthRule,
+    fittingsAllowanceFraction: s.fittingsAllowanceFraction, peakHourFraction: s.peakHourFraction, minProbabilityForGo: s.minProbabilityForGo,
+  };
+}
+
+/** The tank sits below the intake: size the pipe that fills it by gravity. */
+function screenGravity(sv: Survey): Screening {
+  const { r } = sv;
+  const s = r.settings;
+  const headM = sv.fall.valueM - sv.lift.valueM;
+  const needLpd = sv.facts.demandLpd * (1 + s.demandMarginFraction);
+  const routeM = (r.drivePipe.lengthM ?? driveLengthBandM(Math.max(sv.fall.valueM, 1e-3), s.driveLengthRule).minM) + r.deliveryPipe.lengthM;
+  const gravity = designGravityPipe({ headM, lengthM: routeM, needLpd, fittingsAllowance: s.fittingsAllowanceFraction, pipe: r.deliveryPipe });
+  const availableLpm = s.designFractionOfLowest * sv.lowestLpm;
+  const deliveryLpd = Math.min(gravity.capacityLpd ?? 0, availableLpm * 1440);
+  const judgement = judgeGravity({
+    ...sv.facts, availableLpm, designFraction: s.designFractionOfLowest, staticLiftM: sv.lift.valueM, headM,
+    pipeLabel: gravity.size?.label ?? null, pipeLengthM: routeM, capacityLpd: gravity.capacityLpd, givenShortLpd: gravity.givenShortLpd,
+  });
+  const figures = buildGravityFigures({ ...sv.ctx, fraction: s.designFractionOfLowest, gravity, deliveryLpd });
+  const bom = judgement.verdict === 'no-go' || !gravity.size ? [] : gravityBillOfMaterials({
+    pipe: { material: gravity.material.label, classLabel: gravity.cls.label, sizeLabel: gravity.size.label }, lengthM: routeM,
+    tankL: sv.ctx.tank.sizeL, tankRuleLabel: sv.ctx.tank.rule.label,
+  });
+  const sourceIds: SourceId[] = [...Object.values(figures).map((f) => f.sourceId), ...sv.ctx.demandLines.map((l) => l.sourceId), 'gravity-flow'];
+  return {
+    engineVersion: ENGINE_VERSION, verdict: judgement.verdict, reasons: judgement.reasons, conditions: judgement.conditions,
+    cautions: cautionsFor({ pressures: null, anyPeople: sv.ctx.demandLines.some((l) => l.kind.startsWith('person') && l.count > 0), deliveryLpd }),
+    figures, billOfMaterials: bom, settings: settingsOf(r),
+    monteCarlo: { samples: r.monteCarlo.samples, seed: r.monteCarlo.seed, generator: 'mulberry32 + Box–Muller' },
+    sources: sourcesFor(sourceIds),
+  };
+}
+
+type Fix = RamVerdictFacts['fix'];
+
+/**
+ * The plan as the readings stand; when it falls short, the plan with the fix that makes it meet the need (the
+ * recommended delivery pipe, then the organisation's largest share of the flow), so the figures show it met.
+ */
+function planWithFix(sv: Survey, input: RamPlanInput): { plan: RamPlan; fix: Fix; fraction: number } {
+  const s = sv.r.settings;
+  const base = planRams(input);
+  const fraction = s.designFractionOfLowest;
+  const shortLpd = base.status === 'short' ? base.option.deliveryLpd : 0;
+  if (base.status === 'meets' || (base.status === 'no-ram' && base.cause !== 'flow')) return { plan: base, fix: null, fraction };
+  if (base.status === 'short' && sv.r.deliveryPipe.diameterMm) {
+    const p = planRams({ ...input, deliveryPipe: { ...input.deliveryPipe, diameterMm: undefined } });
+    if (p.status === 'meets') return { plan: p, fix: { kind: 'delivery-pipe', label: p.option.delivery.size.label, shortLpd }, fraction };
+  }
+  if (s.maxDesignFractionOfLowest > fraction) {
+    const p = planRams({ ...input, availableLpm: s.maxDesignFractionOfLowest * sv.lowestLpm });
+    if (p.status === 'meets') {
+      const takeLpm = p.option.count * p.option.drive.driveLpm;
+      return { plan: p, fix: { kind: 'more-water', fraction: takeLpm / sv.lowestLpm, takeLpm, leaveLpm: sv.lowestLpm - takeLpm, shortLpd }, fraction: s.maxDesignFractionOfLowest };
+    }
+  }
+  return { plan: base, fix: null, fraction };
+}
+
+/** Screens one site from its raw readings: figures with their rules and sources, verdict, cautions and materials. */
+export function screenSite(input: SiteReadingsInput): Screening {
+  const r = parseReadingsOrThrow(input);
+  const sv = survey(r);
+  // Judged on static levels: a tank whose water stands below the intake fills by gravity.
+  if (sv.lift.valueM < sv.fall.valueM) return screenGravity(sv);
+
+  const s = r.settings;
+  const curve = EFFICIENCY_CURVES[s.efficiencyCurve];
+  const needLpd = sv.facts.demandLpd * (1 + s.demandMarginFraction);
+  const planInput: RamPlanInput = {
+    fallM: Math.max(sv.fall.valueM, 1e-3), staticLiftM: Math.max(sv.lift.valueM, 1e-3), availableLpm: s.designFractionOfLowest * sv.lowestLpm,
+    needLpd, curve, driveLengthRule: s.driveLengthRule, fittingsAllowance: s.fittingsAllowanceFraction,
+    drivePipe: r.drivePipe, deliveryPipe: r.deliveryPipe, forced: r.ram,
+  };
+  const { plan, fix, fraction } = planWithFix(sv, planInput);
+  const option = plan.status === 'no-ram' ? null : plan.option;
+  const smallest = RAM_SIZE_TABLE[0] as (typeof RAM_SIZE_TABLE)[number];
+
+  const mc = option ? runMonteCarlo({
+    ctx: { curve, deliveryFrictionK: option.delivery.frictionK }, fallM: sv.fall.valueM, fallSigmaM: sv.fall.sigmaM,
+    staticLiftM: sv.lift.valueM, staticLiftSigmaM: sv.lift.sigmaM, lowestFlowLpm: sv.lowestLpm, lowestFlowRelativeSigma: sv.lowest.relativeSigma,
+    designFraction: fraction, ramMaxLpm: option.drive.driveLpm, ramMinLpm: option.row.minLpm, ramCount: option.count,
+    demandLpd: sv.facts.demandLpd, samples: r.monteCarlo.samples, seed: r.monteCarlo.seed,
+  }) : null;
+
+  const d = option?.drive;
+  const judgement = judge({
+    ...sv.facts,
+    availableLpm: fraction * sv.lowestLpm, designFraction: s.designFractionOfLowest,
+    plan: plan.status === 'no-ram' ? plan : { status: plan.status, count: plan.option.count, sizeLabel: plan.option.drive.size.label, forced: plan.forced },
+    smallestRamMinLpm: smallest.minLpm, leastRamFallM: Math.min(...RAM_SIZE_TABLE.map((x) => x.minFallM)),
+    staticLiftM: sv.lift.valueM, totalLiftM: option?.op.totalLiftM ?? sv.lift.valueM,
+    liftRatio: option?.op.liftRatio ?? (sv.fall.valueM > 0 ? sv.lift.valueM / sv.fall.valueM : Infinity),
+    efficiencyStatus: option ? (option.op.liftRatio > curve.maxRatio ? 'above-range' : option.op.liftRatio < curve.minRatio ? 'below-range' : 'in-range') : 'in-range',
+    curveLabel: curve.label, curveRange: [curve.minRatio, curve.maxRatio], curveStatedUpTo: curve.statedUpToRatio,
+    deliveryLpd: option?.deliveryLpd ?? 0,
+    probabilityMeets: mc?.probabilityMeetsDemand ?? null, minProbabilityForGo: s.minProbabilityForGo,
+    fix,
+    drive: d ? {
+      lengthM: d.lengthM, lengthGiven: d.lengthGiven, bandMinM: d.bandMinM, bandMaxM: d.bandMaxM, bandRule: d.bandRuleLabel,
+      lengthConflict: d.lengthConflict, ldMinM: (DRIVE_LD_BAND.min * d.boreMm) / 1000, ldMaxM: (DRIVE_LD_BAND.max * d.boreMm) / 1000,
+      lengthToDiameter: d.lengthToDiameter, closureVelocityMps: d.closureVelocityMps, minimumClosureVelocityMps: d.minimumClosureVelocityMps,
+      limitedByFall: d.limitedByFall, attainableVelocityMps: d.attainableVelocityMps, driveLpm: d.driveLpm,
+      workingPeakHeadM: d.workingPeakHeadM, blockedDeliveryHeadM: d.blockedDeliveryHeadM, allowedHeadM: d.allowedHeadM, ratingM: d.ratingM,
+      cyclicDerated: d.cyclicDerated, classLabel: d.cls.label, higherClassLabel: d.higherClass?.label ?? null, materialLabel: d.material.label,
+      rigid: d.material.id === 'galvanized-steel', sizeLabel: d.size.label, fittingsMade: d.fittingsMade, smallerThanRam: d.smallerThanRam,
+    } : null,
+    delivery: option
+      ? { frictionM: option.op.frictionM, frictionOverLimit: option.delivery.frictionOverLimit, ratingM: option.delivery.ratingM, classLabel: option.delivery.cls.label, diameterGiven: option.delivery.diameterGiven }
+      : { frictionM: 0, frictionOverLimit: false, ratingM: Infinity, classLabel: '', diameterGiven: false },
   });
 
-  const figures = buildFigures({ r, fall, lift, flows, lowest, supplyMeanLpm, supplySpreadLpm, lowestLpm, designLpm, driveLpm, row, op, curve, deliveryLpd, demandLines, demandLpd, tank, drive, delivery, mc });
-  const bom = judgement.verdict === 'no-go' ? [] : billOfMaterials({
-    drive, delivery, deliveryLengthM: r.deliveryPipe.lengthM, ramDriveIn: row.driveIn, ramMinLpm: row.minLpm, ramMaxLpm: row.maxLpm,
-    tankL: tank.sizeL, tankRuleLabel: tank.rule.label, standPipe: drive.lengthGiven && drive.lengthM > drive.bandMaxM,
+  const surveyCtx = { ...sv.ctx, fraction };
+  const figures = option && mc ? buildFigures({ ...surveyCtx, option, forced: plan.forced, curve, mc }) : buildSurveyFigures(surveyCtx);
+  const relief = judgement.conditions.some((c) => c.code === 'BLOCKED_PRESSURE_ABOVE_RATING' && /relief valve/.test(c.text));
+  const bom = judgement.verdict === 'no-go' || !option ? [] : billOfMaterials({
+    drive: option.drive, delivery: option.delivery, deliveryLengthM: r.deliveryPipe.lengthM, ramDriveIn: option.row.driveIn, ramCount: option.count,
+    ramMinLpm: option.row.minLpm, ramMaxLpm: option.row.maxLpm, tankL: sv.ctx.tank.sizeL, tankRuleLabel: sv.ctx.tank.rule.label,
+    standPipe: (option.drive.lengthGiven && option.drive.lengthM > option.drive.bandMaxM) || option.drive.lengthConflict === 'fall-band-above-ld',
+    reliefValve: relief,
   });
-  const sourceIds: SourceId[] = [...Object.values(figures).map((f) => f.sourceId), ...demandLines.map((l) => l.sourceId), 'min-fall-wftw', 'lift-ratio-limit', 'wftw-rws4d5', 'clemson-smith'];
+  const sourceIds: SourceId[] = [...Object.values(figures).map((f) => f.sourceId), ...sv.ctx.demandLines.map((l) => l.sourceId), ...SHARED_SOURCES];
+  if (option) sourceIds.push('ogden-1911-least-fall', 'efficiency-spread', 'minor-loss-coefficients');
 
   return {
     engineVersion: ENGINE_VERSION,
     verdict: judgement.verdict,
     reasons: judgement.reasons,
     conditions: judgement.conditions,
-    cautions: cautionsFor({ peakPressureHeadM: driveLpm > 0 ? drive.peakPressureHeadM : null, anyPeople: demandLines.some((l) => l.kind.startsWith('person') && l.count > 0), deliveryLpd }),
+    cautions: cautionsFor({
+      pressures: option ? { workingPeakHeadM: option.drive.workingPeakHeadM, blockedDeliveryHeadM: option.drive.blockedDeliveryHeadM } : null,
+      anyPeople: sv.ctx.demandLines.some((l) => l.kind.startsWith('person') && l.count > 0),
+      deliveryLpd: option?.deliveryLpd ?? 0,
+    }),
     figures,
     billOfMaterials: bom,
-    settings: {
-      designFractionOfLowest: s.designFractionOfLowest, maxDesignFractionOfLowest: s.maxDesignFractionOfLowest, efficiencyCurve: s.efficiencyCurve,
-      demandMarginFraction: s.demandMarginFraction, tankRule: s.tankRule, driveLengthRule: s.driveLengthRule,
-      fittingsAllowanceFraction: s.fittingsAllowanceFraction, peakHourFraction: s.peakHourFraction,
-    },
+    settings: settingsOf(r),
     monteCarlo: { samples: r.monteCarlo.samples, seed: r.monteCarlo.seed, generator: 'mulberry32 + Box–Muller' },
     sources: sourcesFor(sourceIds),
   };

@@ -1,6 +1,7 @@
 import type { Source, SourceId } from './sources';
 
-export type Verdict = 'go' | 'conditional' | 'no-go';
+/** 'gravity': the tank sits below the intake, so a pipe fills it and no pump is needed. */
+export type Verdict = 'go' | 'conditional' | 'no-go' | 'gravity';
 export type Severity = 'no-go' | 'conditional' | 'note';
 
 export interface Reason {
@@ -38,7 +39,9 @@ export type FigureKey =
   | 'demandMarginLpd' | 'tankL' | 'driveLengthMinM' | 'driveLengthMaxM' | 'driveLengthM' | 'driveLengthToDiameter'
   | 'driveBoreMm' | 'driveVelocityMps' | 'driveClosureVelocityMps' | 'minimumClosureVelocityMps' | 'waveSpeedMps'
   | 'surgeHeadM' | 'peakPressureHeadM' | 'drivePipeRatingM' | 'deliveryBoreMm' | 'deliveryPipeRatingM'
-  | 'probabilityMeetsDemand' | 'deliveryP10Lpd' | 'deliveryP50Lpd' | 'deliveryP90Lpd';
+  | 'probabilityMeetsDemand' | 'deliveryP10Lpd' | 'deliveryP50Lpd' | 'deliveryP90Lpd'
+  | 'ramCount' | 'ramSizeIn' | 'attainableDriveVelocityMps' | 'workingPeakHeadM' | 'blockedDeliveryHeadM' | 'drivePipeAllowedHeadM'
+  | 'gravityHeadM' | 'gravityPipeBoreMm' | 'gravityPipeLengthM' | 'gravityCapacityLpd';
 
 export interface BillOfMaterialsLine {
   item: string;

@@ -38,8 +38,13 @@ export type PointRole = (typeof POINT_ROLES)[number];
 export const UNIT_SYSTEMS = ['metric', 'us'] as const;
 export type UnitSystem = (typeof UNIT_SYSTEMS)[number];
 
-export const VERDICTS = ['go', 'conditional', 'no-go'] as const;
+export const VERDICTS = ['go', 'conditional', 'no-go', 'gravity'] as const;
 export type Verdict = (typeof VERDICTS)[number];
+
+/** The verdict in words, everywhere it shows: sheet, PDF, preview, office, map, filters and CSV. */
+export const VERDICT_WORDS: Record<Verdict, string> = { go: 'Go', conditional: 'Go, with conditions', 'no-go': 'No-go', gravity: 'No pump needed' };
+/** The verdict's colour (never alone: word and shape go with it); gravity takes the creek's blue. */
+export const VERDICT_COLOURS: Record<Verdict, string> = { go: '#3E5B1E', conditional: '#6F4700', 'no-go': '#8C2F10', gravity: '#184F69' };
 
 export const HOME_BY_ROLE: Record<Role, string> = {
   coordinator: '/office',

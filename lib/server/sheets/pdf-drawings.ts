@@ -1,6 +1,6 @@
 import 'server-only';
 import type PDFDocument from 'pdfkit';
-import type { Verdict } from '@/lib/shared/domain';
+import { VERDICT_COLOURS, type Verdict } from '@/lib/shared/domain';
 import { nodeLabelAt, profileLabelAt, type ProfileGeometry } from '@/lib/shared/sheet/profile';
 import type { SiteMapGeometry } from '@/lib/shared/sheet/site-map';
 
@@ -11,7 +11,7 @@ export const INK = '#15191C';
 export const STONE = '#4F555A';
 export const CREEK = '#184F69';
 export const RULE = '#C9C4B6';
-export const VERDICT_COLOURS: Record<Verdict, string> = { go: '#3E5B1E', conditional: '#6F4700', 'no-go': '#8C2F10' };
+export { VERDICT_COLOURS };
 
 /** The verdict's level vial (same shape as the page's VerdictMark), `h` points high at (x, y). */
 export function drawVerdictMark(doc: Doc, verdict: Verdict, x: number, y: number, h: number): void {
@@ -21,6 +21,7 @@ export function drawVerdictMark(doc: Doc, verdict: Verdict, x: number, y: number
   doc.lineWidth(2.5).roundedRect(2, 6, 44, 16, 8).stroke(c);
   doc.lineWidth(2).moveTo(18, 6).lineTo(18, 22).stroke(c).moveTo(30, 6).lineTo(30, 22).stroke(c);
   if (verdict === 'no-go') doc.lineWidth(3.5).lineCap('round').moveTo(4, 26).lineTo(44, 2).stroke(c);
+  else if (verdict === 'gravity') doc.lineWidth(3).lineCap('round').lineJoin('round').moveTo(19, 10).lineTo(24, 17).lineTo(29, 10).stroke(c);
   else doc.ellipse(verdict === 'go' ? 24 : 36, 14, 5, 4).fill(c);
   doc.restore();
 }

@@ -123,7 +123,7 @@ export async function renderSheetPdf(v: SheetView, paper: Paper): Promise<Buffer
     doc.x = left;
     doc.y = y + h + 6;
   }
-  heading(doc, v.verdict === 'no-go' ? 'Why not' : 'Conditions for a go');
+  heading(doc, v.verdict === 'no-go' ? 'Why not' : v.verdict === 'gravity' ? 'What to check' : 'Conditions for a go');
   if (v.conditions.length) list(doc, v.conditions);
   else if (v.verdict !== 'no-go') body(doc, 'No extra conditions: follow the cautions below.');
   if (v.reasons.length) list(doc, v.reasons);

@@ -1,7 +1,8 @@
 // Raw readings of one site visit: the one shape the phone form, the sync route, the engine and the tests validate.
 import { z } from '@/lib/shared/zod';
 import { DEMAND_CATALOGUE, type DemandKind } from '@/lib/engine/demand';
-import { DRIVE_LENGTH_RULES, type DriveLengthRuleId } from '@/lib/engine/drive-pipe';
+import { DRIVE_LENGTH_RULES, RAM_SIZE_TABLE, type DriveLengthRuleId } from '@/lib/engine/drive-pipe';
+import { MAX_RAMS } from '@/lib/engine/ram-plan';
 import { PIPE_MATERIALS, type PipeMaterialId } from '@/lib/engine/materials';
 import { EFFICIENCY_CURVES, type EfficiencyCurveId } from '@/lib/engine/ram';
 import { TANK_RULES, type TankRuleId } from '@/lib/engine/tank';
@@ -184,6 +185,16 @@ export const settingsSchema = z.object({
   /** Share of the daily demand drunk in the busiest hour (for the peak tank rule). */
   peakHourFraction: between('Peak hour share', 0.02, 1).default(0.1),
   demandOverrides: z.partialRecord(oneOf('Demand kind', demandKinds), nonNegative('Litres per head per day')).default({}),
+  /** Least chance of meeting the demand for a plain go (0.8: common practice, no source). */
+  minProbabilityForGo: between('Least chance of meeting demand for a go', 0.5, 0.99).default(0.8),
+});
+
+const RAM_SIZES_IN = RAM_SIZE_TABLE.map((r) => r.driveIn);
+
+/** A ram size and count the advisor chose instead of the screen's own sizing from demand. */
+const forcedRam = z.object({
+  driveIn: num('Ram size').refine((v) => RAM_SIZES_IN.includes(v), { message: `Ram size must be one of ${RAM_SIZES_IN.join(', ')} inches` }),
+  count: num('Number of rams').int('Number of rams must be a whole number').min(1, 'Number of rams must be at least 1').max(MAX_RAMS, `Number of rams must be at most ${MAX_RAMS}`).default(1),
 });
 
 export const monteCarloSchema = z.object({
@@ -198,6 +209,7 @@ export const siteReadingsSchema = z.object({
   drivePipe: drivePipe.prefault({}),
   deliveryPipe,
   demand: z.array(demandLine).min(1, 'Add at least one demand line'),
+  ram: forcedRam.optional(),
   settings: settingsSchema.prefault({}),
   monteCarlo: monteCarloSchema.prefault({}),
 });

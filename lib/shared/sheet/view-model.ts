@@ -1,7 +1,7 @@
 // The farmer's sheet as display strings: one pure function feeds both the page and the PDF, so
 // they always say the same thing. Every number comes from the stored screening (the engine).
 import type { FigureKey, Screening } from '@/lib/engine/screening-types';
-import type { UnitSystem, Verdict } from '../domain';
+import { VERDICT_WORDS, type UnitSystem, type Verdict } from '../domain';
 import { formatDay } from '../format';
 import { profileGeometry, type ProfileGeometry } from './profile';
 import { aboutDaily, aboutNumber, length, perDay, perMinute, pipeLength, pressureHead, volume } from './quantities';
@@ -47,7 +47,7 @@ export interface SheetView {
   map: SiteMapGeometry | null;
 }
 
-export const VERDICT_WORDS: Record<Verdict, string> = { go: 'Go', conditional: 'Go, with conditions', 'no-go': 'No-go' };
+export { VERDICT_WORDS };
 
 const CAUTION_TITLES: Record<string, string> = {
   NOT_A_DESIGN: 'A first check, not a design',
@@ -55,6 +55,9 @@ const CAUTION_TITLES: Record<string, string> = {
   WORKING_IN_WATER: 'Floods, working in water, frost',
   PERMITS: 'Water rights and permits',
   UNTREATED_WATER: 'Drinking water',
+  NOISE: 'Noise',
+  TANK_SAFETY: 'A covered, secured tank',
+  BACKFLOW: 'Backflow into house plumbing',
 };
 
 /** Who the water is for, in words: "your household and animals", "your garden". */
@@ -77,8 +80,15 @@ export function summarySentences(s: SheetSource, units: UnitSystem): [string, st
   const where = tank ? `the tank (${tank.charAt(0).toLowerCase()}${tank.slice(1)})` : 'the tank';
   const first = `This site can deliver ${aboutDaily(delivery, units)} a day to ${where}; ${needPhrase(s.demandKinds)} about ${aboutNumber(demand, units)}.`;
   const verdict = s.screening.verdict;
+  const rams = f.ramCount?.value ?? 1;
+  if (verdict === 'gravity') {
+    const pipe = `This site can deliver ${aboutDaily(delivery, units)} a day to ${where} through a pipe; ${needPhrase(s.demandKinds)} about ${aboutNumber(demand, units)}.`;
+    return [pipe, 'The tank sits below the intake, so the water runs down to it by itself: no pump is needed. Read the cautions before anything is bought or built.'];
+  }
   const second =
-    verdict === 'go'
+    verdict === 'go' && rams > 1
+      ? `${rams} ram pumps side by side should do the job here; read the cautions before anything is bought or built.`
+      : verdict === 'go'
       ? 'A ram pump should do the job here; read the cautions before anything is bought or built.'
       : verdict === 'conditional'
         ? 'A ram pump can do the job here if the conditions on this sheet are met first.'
@@ -98,6 +108,7 @@ function keyFigures(s: SheetSource, units: UnitSystem): SheetFigure[] {
   const out: SheetFigure[] = [];
   const add = (key: FigureKey, label: string, show: (v: number) => string, note = '') => {
     const v = f[key]?.value;
+    if (key === 'ramCount' && v === 1) return;
     if (v !== null && v !== undefined) out.push({ key, label, value: show(v), note });
   };
   add('fallM', 'Fall (intake to ram)', (v) => length(v, units).text, 'Drives the ram');
@@ -109,6 +120,11 @@ function keyFigures(s: SheetSource, units: UnitSystem): SheetFigure[] {
   add('demandMarginLpd', 'Margin', (v) => (v >= 0 ? `${perDay(v, units).text} to spare` : `${perDay(-v, units).text} short`), 'Delivery minus demand');
   add('probabilityMeetsDemand', 'Chance of meeting demand', chance, 'Allowing for measuring error');
   add('tankL', 'Tank', (v) => volume(v, units).text, 'Storage to size for');
+  add('ramCount', 'Rams', (v) => `${v} side by side`, 'Each on its own drive pipe');
+  add('gravityHeadM', 'Intake above the tank', (v) => length(v, units).text, 'The water runs down by itself');
+  add('gravityPipeLengthM', 'Pipe from intake to tank', (v) => length(v, units).text);
+  add('workingPeakHeadM', 'Pressure at the ram in normal running', (v) => pressureHead(v, units), 'About the lift');
+  add('blockedDeliveryHeadM', 'Pressure at the ram if the delivery is blocked', (v) => pressureHead(v, units), 'Fall plus surge: rate pipe and ram for it');
   add('peakPressureHeadM', 'Pressure at the ram', (v) => pressureHead(v, units), 'Lift plus surge: rate pipe and ram for it');
   add('drivePipeRatingM', 'Drive pipe rated for', (v) => pressureHead(v, units));
   return out;

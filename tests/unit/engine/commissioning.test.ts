@@ -81,4 +81,9 @@ describe('commissioningCheck against the screening', () => {
     expect(predictionFromFigures(figures)).toEqual({ deliveryLpd: 1, p10Lpd: 0.5, p90Lpd: 2, efficiency: 0.4, driveLpm: 30, totalLiftM: 20 });
     expect(predictionFromFigures({ ...figures, efficiency: { value: null } })).toBeNull();
   });
+  it('with rams in parallel, one ram is checked against its share of the daily figures', () => {
+    const f = (value: number) => ({ value });
+    const figures = { deliveryLpd: f(3000), deliveryP10Lpd: f(2400), deliveryP90Lpd: f(3600), efficiency: f(0.4), driveFlowLpm: f(30), totalLiftM: f(20), ramCount: f(3) };
+    expect(predictionFromFigures(figures)).toEqual({ deliveryLpd: 1000, p10Lpd: 800, p90Lpd: 1200, efficiency: 0.4, driveLpm: 30, totalLiftM: 20 });
+  });
 });

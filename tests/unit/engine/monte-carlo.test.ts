@@ -64,18 +64,20 @@ describe('Monte Carlo in screenSite', () => {
   });
 
   it('when the mean delivery just meets demand the probability of meeting it is near one half', () => {
-    const base = screenSite({ ...clearGo, settings: { demandMarginFraction: 0 } });
+    // The ram held to one size, so the demand changes only the chance, not the sizing.
+    const held = { ...clearGo, ram: { driveIn: 1.25, count: 1 }, settings: { demandMarginFraction: 0 } };
+    const base = screenSite(held);
     const delivered = base.figures.deliveryLpd?.value ?? 0;
-    const s = screenSite({ ...clearGo, demand: [{ kind: 'person-basic', count: 1, litresPerHeadPerDay: delivered }], settings: { demandMarginFraction: 0 } });
+    const s = screenSite({ ...held, demand: [{ kind: 'person-basic', count: 1, litresPerHeadPerDay: delivered }] });
     const p = s.figures.probabilityMeetsDemand?.value ?? NaN;
     expect(p).toBeGreaterThan(0.35);
     expect(p).toBeLessThan(0.65);
   });
 
   it('a mean that meets demand with a probability under one half is conditional', () => {
-    const base = screenSite({ ...clearGo, settings: { demandMarginFraction: 0 } });
+    const base = screenSite({ ...clearGo, ram: { driveIn: 1.25, count: 1 }, settings: { demandMarginFraction: 0 } });
     const delivered = base.figures.deliveryLpd?.value ?? 0;
-    const s = screenSite({ ...clearGo, fallRuns: [{ method: 'clinometer', legs: [{ slopeDistanceM: 300, angleBelowHorizontalDeg: 0.575 }] }], demand: [{ kind: 'person-basic', count: 1, litresPerHeadPerDay: delivered * 0.999 }], settings: { demandMarginFraction: 0 } });
+    const s = screenSite({ ...clearGo, ram: { driveIn: 1.25, count: 1 }, fallRuns: [{ method: 'clinometer', legs: [{ slopeDistanceM: 300, angleBelowHorizontalDeg: 0.575 }] }], demand: [{ kind: 'person-basic', count: 1, litresPerHeadPerDay: delivered * 0.999 }], settings: { demandMarginFraction: 0 } });
     const p = s.figures.probabilityMeetsDemand?.value ?? NaN;
     expect(s.figures.deliveryLpd?.value ?? 0).toBeGreaterThanOrEqual(delivered * 0.999 - 1);
     if (p < 0.5) {

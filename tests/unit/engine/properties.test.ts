@@ -31,8 +31,19 @@ const knobs = fc.record({
   deliveryLengthM: fc.double({ min: 10, max: 2000, noNaN: true }),
 });
 const more = fc.double({ min: 0.001, max: 50, noNaN: true });
-const deliveryOf = (k: SiteKnobs) => screenSite(site(k)).figures.deliveryLpd?.value ?? NaN;
-const rank: Record<Verdict, number> = { 'no-go': 0, conditional: 1, go: 2 };
+// Ram screenings only: a tank below the intake is a gravity supply, with no ram figures.
+const isRam = (k: SiteKnobs) => k.liftM > k.fallM;
+/** Size of the rams chosen, as drive inches × count (0 when none could be sized). */
+/** Whether the rams sized for the site meet its demand plus the 20 % margin. */
+const meetsNeed = (k: SiteKnobs) => {
+  const f = screenSite(site(k)).figures;
+  return (f.deliveryLpd?.value ?? 0) >= 1.2 * k.demandLpd && (f.ramCount?.value ?? 0) > 0;
+};
+const ramSizeOf = (k: SiteKnobs) => {
+  const f = screenSite(site(k)).figures;
+  return (f.ramSizeIn?.value ?? 0) * (f.ramCount?.value ?? 0);
+};
+const rank: Record<Verdict, number> = { 'no-go': 0, conditional: 1, go: 2, gravity: 3 };
 const RUNS = { numRuns: 60 };
 
 describe('properties (fast-check)', () => {
@@ -49,7 +60,9 @@ describe('properties (fast-check)', () => {
 
   it('energy never increases through a screened ram: delivery × total lift ≤ drive flow × fall; delivery never negative', () => {
     fc.assert(fc.property(knobs, (k) => {
+      fc.pre(isRam(k));
       const f = screenSite(site(k)).figures;
+      fc.pre(f.deliveryLpm !== undefined);
       const q = f.deliveryLpm?.value ?? NaN;
       return q >= 0 && q * (f.totalLiftM?.value ?? NaN) <= (f.driveFlowLpm?.value ?? NaN) * (f.fallM?.value ?? NaN) * (1 + 1e-4);
     }), RUNS);
@@ -57,11 +70,14 @@ describe('properties (fast-check)', () => {
 
   it('the friction reported is Hazen–Williams (EPANET) at the delivery reported, even when friction dominates the lift', () => {
     fc.assert(fc.property(knobs, (k) => {
+      fc.pre(isRam(k));
       const f = screenSite(site(k)).figures;
+      fc.pre(f.deliveryLpm !== undefined);
       const inputs = f.deliveryFrictionM?.inputs ?? {};
       const expected = hazenWilliamsLossM({
         lengthM: Number(inputs.lengthM) * (1 + Number(inputs.fittingsAllowance)),
-        flowLps: (f.deliveryLpm?.value ?? NaN) / 60,
+        // The rams share the delivery pipe: friction at their summed flow.
+        flowLps: ((f.deliveryLpm?.value ?? NaN) * (f.ramCount?.value ?? NaN)) / 60,
         diameterMm: Number(inputs.boreMm),
         c: Number(inputs.c),
       });
@@ -76,12 +92,36 @@ describe('properties (fast-check)', () => {
     }), { numRuns: 300 });
   });
 
-  it('more fall never means less delivery', () => {
-    fc.assert(fc.property(knobs, more, (k, extra) => deliveryOf({ ...k, fallM: k.fallM + extra }) >= deliveryOf(k)), RUNS);
+  it('more fall never calls for a larger ram (sizing from demand)', () => {
+    fc.assert(fc.property(knobs, more, (k, extra) => {
+      fc.pre(isRam({ ...k, fallM: k.fallM + extra }) && meetsNeed(k));
+      return ramSizeOf({ ...k, fallM: k.fallM + extra }) <= ramSizeOf(k) + 1e-9;
+    }), RUNS);
   });
 
-  it('more lift never means more delivery', () => {
-    fc.assert(fc.property(knobs, more, (k, extra) => deliveryOf({ ...k, liftM: k.liftM + extra }) <= deliveryOf(k)), RUNS);
+  it('more lift never calls for a smaller ram', () => {
+    fc.assert(fc.property(knobs, more, (k, extra) => {
+      fc.pre(isRam(k) && meetsNeed({ ...k, liftM: k.liftM + extra }));
+      return ramSizeOf({ ...k, liftM: k.liftM + extra }) >= ramSizeOf(k) - 1e-9;
+    }), RUNS);
+  });
+
+  it('more demand never picks a smaller ram', () => {
+    fc.assert(fc.property(knobs, fc.double({ min: 1, max: 20000, noNaN: true }), (k, extra) => {
+      fc.pre(isRam(k) && meetsNeed({ ...k, demandLpd: k.demandLpd + extra }));
+      return ramSizeOf({ ...k, demandLpd: k.demandLpd + extra }) >= ramSizeOf(k) - 1e-9;
+    }), RUNS);
+  });
+
+  it('no plain go below the chance threshold, and no go or conditional whose delivery is short of demand', () => {
+    fc.assert(fc.property(knobs, (k) => {
+      const s = screenSite(site(k));
+      const p = s.figures.probabilityMeetsDemand?.value;
+      const delivery = s.figures.deliveryLpd?.value ?? 0;
+      const demand = s.figures.demandLpd?.value ?? 0;
+      if (s.verdict === 'go' && p !== undefined && p !== null && p < 0.8) return false;
+      return !((s.verdict === 'go' || s.verdict === 'conditional') && delivery < demand);
+    }), RUNS);
   });
 
   it('more demand never flips a verdict towards go', () => {
@@ -106,8 +146,8 @@ describe('properties (fast-check)', () => {
         demand: [{ kind: 'person-basic', count: 1, litresPerHeadPerDay: usGalToL(us.demandGal) }],
       });
       expect(fromUs.verdict).toBe(metric.verdict);
-      const a = metric.figures.deliveryLpd?.value ?? NaN;
-      const b = fromUs.figures.deliveryLpd?.value ?? NaN;
+      const a = metric.figures.deliveryLpd?.value ?? 0;
+      const b = fromUs.figures.deliveryLpd?.value ?? 0;
       return Math.abs(a - b) <= 1e-6 * Math.max(1, a);
     }), { numRuns: 40 });
   });

@@ -49,7 +49,9 @@ describe('efficiency curves against lift ratio', () => {
   });
   it('outside the table it reports the range instead of extrapolating (table runs r = 4…26)', () => {
     expect(ramEfficiency(3).status).toBe('below-range');
-    expectWithin(ramEfficiency(3).efficiency, 0.72, 1e-9);
+    // Below the table the delivered share q/Q = η/r is held at the first row's 0.72/4 = 0.18, so η = 0.18 × 3.
+    expectWithin(ramEfficiency(3).efficiency, 0.54, 1e-9);
+    expectWithin(ramEfficiency(1.07).efficiency / 1.07, 0.18, 1e-9);
     expect(ramEfficiency(28).status).toBe('above-range');
     expect(ramEfficiency(28).efficiency).toBe(0);
   });

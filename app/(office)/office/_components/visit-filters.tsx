@@ -1,10 +1,9 @@
 'use client';
 
 import { useEffect, useState } from 'react';
-import { VERDICTS, VISIT_STATUS_LABELS, VISIT_STATUSES } from '@/lib/shared/domain';
+import { VERDICT_WORDS, VERDICTS, VISIT_STATUS_LABELS, VISIT_STATUSES } from '@/lib/shared/domain';
 
 export interface Option { id: string; name: string }
-const VERDICT_WORDS = { go: 'Go', conditional: 'Go, with conditions', 'no-go': 'No-go' } as const;
 
 const field = 'mt-1 block min-h-12 w-full rounded-md border-2 border-stone bg-white px-2 text-base';
 

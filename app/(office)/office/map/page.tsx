@@ -7,7 +7,7 @@ import { VISIT_STATUS_LABELS } from '@/lib/shared/domain';
 import { DistrictMap } from './_components/district-map';
 
 export const metadata: Metadata = { title: 'Map of the district' };
-const LEGEND = ['go', 'conditional', 'no-go', 'none'] as const;
+const LEGEND = ['go', 'conditional', 'gravity', 'no-go', 'none'] as const;
 
 export default async function MapPage() {
   const user = await requirePageUser(['coordinator'], '/office/map');

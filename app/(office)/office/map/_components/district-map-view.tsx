@@ -22,7 +22,7 @@ export default function DistrictMapView({ sites }: { sites: MapSiteView[] }) {
   const tileUrl = process.env.NEXT_PUBLIC_TILE_URL;
   const icons = useMemo(() => {
     const make = (v: Verdict | 'none') => L.divIcon({ html: verdictSvg(v, 40), className: 'fallbook-marker', iconSize: [40, 24], iconAnchor: [20, 12] });
-    return { go: make('go'), conditional: make('conditional'), 'no-go': make('no-go'), none: make('none') };
+    return { go: make('go'), conditional: make('conditional'), 'no-go': make('no-go'), gravity: make('gravity'), none: make('none') };
   }, []);
   const all = sites.flatMap((s) => s.points.map((p) => [p.lat, p.lon] as [number, number]));
   const bounds = all.length ? L.latLngBounds(all).pad(0.2) : undefined;

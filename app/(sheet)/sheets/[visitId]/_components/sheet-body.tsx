@@ -38,7 +38,7 @@ export function SheetBody({ v }: { v: SheetView }) {
       </Section>
       {v.profile && <Section title="The water path, from intake to tank"><ProfileDrawing g={v.profile} /></Section>}
       {v.map && <Section title="Where the points are"><SiteMapDrawing g={v.map} /></Section>}
-      <Section title={v.verdict === 'no-go' ? 'Why not' : 'Conditions for a go'}>
+      <Section title={v.verdict === 'no-go' ? 'Why not' : v.verdict === 'gravity' ? 'What to check' : 'Conditions for a go'}>
         {v.conditions.length === 0 && v.verdict !== 'no-go' && <p>No extra conditions: follow the cautions below.</p>}
         <ul className="list-disc space-y-2 pl-6">
           {[...v.conditions, ...v.reasons].map((text) => <li key={text}>{text}</li>)}
