@@ -4,6 +4,7 @@ import { useLiveQuery } from 'dexie-react-hooks';
 import { VerdictMark } from '@/components/verdict-mark';
 import { screenSite } from '@/lib/engine';
 import { fmt } from '@/lib/engine/format';
+import { NOMINAL_SIZES } from '@/lib/engine/materials';
 import { localSiteReadings } from '@/lib/client/site-readings';
 import { siteReadingsSchema } from '@/lib/shared/schemas/site-readings';
 
@@ -32,10 +33,22 @@ export function ScreenPreview({ visitId }: { visitId: string }) {
           <p className="figure">
             Delivery {fmt(preview.screening.figures.deliveryLpd?.value ?? 0, 'L/day')} · demand {fmt(preview.screening.figures.demandLpd?.value ?? 0, 'L/day')}
           </p>
+          <p data-testid="preview-ram">{arrangement(preview.screening.figures)}</p>
           <ul className="ml-5 list-disc">{preview.screening.reasons.slice(0, 3).map((r) => <li key={r.code}>{r.text}</li>)}</ul>
           <p className="text-stone">A first check, not an engineering design. The server stores the official screening after sync.</p>
         </div>
       )}
     </section>
   );
+}
+
+type Figures = ReturnType<typeof screenSite>['figures'];
+
+/** What the screen would build, in a line: the rams and their size, or the gravity pipe. */
+function arrangement(f: Figures): string {
+  const label = (inches: number | null | undefined) => NOMINAL_SIZES.find((s) => s.nominalIn === inches)?.label ?? `${inches}″`;
+  if (f.gravityHeadM) return f.gravityPipeBoreMm?.value ? `No pump: a pipe of ${fmt(f.gravityPipeBoreMm.value, 'mm')} bore fills the tank by gravity.` : 'No pump: the tank sits below the intake.';
+  const count = f.ramCount?.value;
+  if (!count || !f.ramSizeIn?.value) return 'No ram size fits these readings.';
+  return `${count === 1 ? 'One ram' : `${count} rams side by side`} for ${label(f.ramSizeIn.value)} drive pipe, taking ${fmt(f.driveFlowLpm?.value ?? 0, 'L/min')}${count > 1 ? ' each' : ''}.`;
 }
