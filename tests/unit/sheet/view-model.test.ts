@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { buildSheetView, chance, needPhrase, summarySentences } from '@/lib/shared/sheet/view-model';
 import { aboutDaily, length, perDay, roughly } from '@/lib/shared/sheet/quantities';
+import { screenSite } from '@/lib/engine';
+import { siteReadingsSchema } from '@/lib/shared/schemas/site-readings';
 import { brandtLikeSource } from './fixture';
 
 const source = brandtLikeSource();
@@ -90,5 +92,33 @@ describe('the engine sentences follow the reader units', () => {
   it('a metric reader sees the engine sentences as written', () => {
     const view = buildSheetView(source, 'metric');
     expect(view.cautions.map((c) => c.text)).toEqual(source.screening.cautions.map((c) => c.text));
+  });
+});
+
+describe('the new figures and outcomes on the sheet', () => {
+  it('shows the pressure in normal running and if the delivery is blocked, never lift + surge as one figure', () => {
+    const view = buildSheetView(source, 'metric');
+    const labels = view.figures.map((f) => f.label);
+    expect(labels).toContain('Pressure at the ram in normal running');
+    expect(labels).toContain('Pressure at the ram if the delivery is blocked');
+    expect(labels).not.toContain('Pressure at the ram');
+  });
+
+  it('a gravity site reads "No pump needed", with no ram in its summary or bill', () => {
+    const gravity = brandtLikeSource();
+    const screened = screenSite(siteReadingsSchema.parse({
+      flowMeasurements: [{ method: 'volumetric', season: 'dry', trials: [{ volumeL: 20, seconds: 10 }] }],
+      fallRuns: [{ method: 'hose', steps: [{ upperReadingM: 0, lowerReadingM: 4 }] }],
+      lift: { kind: 'direct', staticLiftM: 1.5, method: 'level' },
+      deliveryPipe: { lengthM: 300, material: 'hdpe' },
+      demand: [{ kind: 'person-tap-on-plot', count: 4 }],
+      monteCarlo: { samples: 500, seed: 1 },
+    }));
+    const view = buildSheetView({ ...gravity, screening: screened }, 'metric');
+    expect(view.verdict).toBe('gravity');
+    expect(view.verdictWord).toBe('No pump needed');
+    expect(view.summary[1]).toMatch(/no pump is needed/);
+    expect(view.billOfMaterials.map((b) => b.item).join(' ')).not.toMatch(/ram/i);
+    expect(view.figures.map((f) => f.key)).toContain('gravityHeadM');
   });
 });
