@@ -3,7 +3,7 @@ import { VERDICT_COLOURS, VERDICT_WORDS, type Verdict } from '@/lib/shared/domai
 /**
  * The verdict as word + shape + colour (never colour alone): a level vial whose bubble sits
  * between the marks for go, off to one side for conditional, a struck-through vial for no-go,
- * and a downhill chevron for gravity (no pump needed).
+ * and a running-water wave along it for gravity (no pump needed).
  */
 export function VerdictMark({ verdict, size = 28 }: { verdict: Verdict; size?: number }) {
   const colour = VERDICT_COLOURS[verdict];
@@ -17,7 +17,7 @@ export function VerdictMark({ verdict, size = 28 }: { verdict: Verdict; size?: n
         {verdict === 'no-go' ? (
           <line x1="4" y1="26" x2="44" y2="2" stroke={colour} strokeWidth="3.5" strokeLinecap="round" />
         ) : verdict === 'gravity' ? (
-          <path d="M19 10 L24 17 L29 10" fill="none" stroke={colour} strokeWidth="3" strokeLinecap="round" strokeLinejoin="round" />
+          <path d="M6 14 Q12 8 18 14 Q24 20 30 14 Q36 8 42 14" fill="none" stroke={colour} strokeWidth="3" strokeLinecap="round" />
         ) : (
           <ellipse cx={bubbleX} cy="14" rx="5" ry="4" fill={colour} />
         )}

@@ -4,10 +4,10 @@ import { VERDICT_COLOURS as COLOURS, VERDICT_WORDS as WORDS, type Verdict } from
 export const VERDICT_COLOURS: Record<Verdict | 'none', string> = { ...COLOURS, none: '#4F555A' };
 export const VERDICT_WORDS: Record<Verdict | 'none', string> = { ...WORDS, none: 'Not screened yet' };
 
-/** The vial's inner mark: bubble centred (go), off to one side (conditional), struck through (no-go), a downhill chevron (gravity), empty (not screened). */
+/** The vial's inner mark: bubble centred (go), off to one side (conditional), struck through (no-go), a running-water wave along it (gravity), empty (not screened). */
 export function verdictInnerSvg(verdict: Verdict | 'none', colour: string): string {
   if (verdict === 'no-go') return `<line x1="4" y1="26" x2="44" y2="2" stroke="${colour}" stroke-width="3.5" stroke-linecap="round"/>`;
-  if (verdict === 'gravity') return `<path d="M19 10 L24 17 L29 10" fill="none" stroke="${colour}" stroke-width="3" stroke-linecap="round" stroke-linejoin="round"/>`;
+  if (verdict === 'gravity') return `<path d="M6 14 Q12 8 18 14 Q24 20 30 14 Q36 8 42 14" fill="none" stroke="${colour}" stroke-width="3" stroke-linecap="round"/>`;
   if (verdict === 'none') return '';
   return `<ellipse cx="${verdict === 'go' ? 24 : 36}" cy="14" rx="5" ry="4" fill="${colour}"/>`;
 }

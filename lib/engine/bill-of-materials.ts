@@ -26,6 +26,15 @@ export interface GravityBomInput {
   tankRuleLabel: string;
 }
 
+// Common dial gauge ranges, bar (trade catalogues; common practice, no source).
+const GAUGE_RANGES_BAR = [4, 6, 10, 16, 25, 40, 60, 100];
+
+/** The smallest common gauge range that reads the head with half again to spare. */
+function gaugeRangeBar(headM: number): number {
+  const bar = (headM * 1.5 * 9.80665) / 100;
+  return GAUGE_RANGES_BAR.find((r) => r >= bar) ?? (GAUGE_RANGES_BAR[GAUGE_RANGES_BAR.length - 1] as number);
+}
+
 function sizeLabel(nominalIn: number): string {
   return (NOMINAL_SIZES.find((s) => s.nominalIn === nominalIn) as NominalSize | undefined)?.label ?? `${nominalIn}″`;
 }
@@ -63,8 +72,10 @@ export function billOfMaterials(b: BomInput): BillOfMaterialsLine[] {
       note: n > 1 ? 'One pipe shared by the rams; length as walked' : 'Length as walked; fittings allowance is in the friction, not the order',
     },
     { item: 'Full-bore valve (gate or ball) on the drive pipe at the ram', size: b.drive.size.label, quantity: n, unit: 'each', note: 'For stopping the ram' },
-    { item: 'Non-return valve and isolating valve on the delivery at the ram', size: b.delivery.size.label, quantity: n, unit: 'each', note: 'So one ram can be stopped while the others run' },
-    { item: 'Pressure gauge on the ram', size: '0–' + fmt(Math.ceil(b.drive.blockedDeliveryHeadM * 1.5), 'm'), quantity: n, unit: 'each', note: 'For setting up and commissioning' },
+    n > 1
+      ? { item: 'Non-return valve and isolating valve on the delivery at each ram', size: b.delivery.size.label, quantity: n, unit: 'each', note: 'So one ram can be stopped while the others run' }
+      : { item: 'Valve on the delivery pipe at the ram', size: b.delivery.size.label, quantity: 1, unit: 'each', note: 'For stopping the delivery while the ram is serviced; never shut while the ram runs without a relief valve' },
+    { item: 'Pressure gauge on the ram', size: `0–${gaugeRangeBar(b.drive.blockedDeliveryHeadM)} bar`, quantity: n, unit: 'each', note: 'For setting up and commissioning; its range covers the blocked-delivery pressure with a margin' },
     ...commonLines(b.tankL, b.tankRuleLabel),
   ];
   if (b.reliefValve) {

@@ -53,6 +53,29 @@ const SITES = [
       { role: 'tank', label: 'Ridge by the house', lat: 52.43290, lon: -3.63930, altitudeM: 375, accuracyM: 8 },
     ],
   },
+  {
+    // The trough stands below the spring: the screen finds that a pipe fills it by gravity.
+    visit: 'visit:hafod-lower',
+    source: { name: 'Hafod lower spring', kind: 'spring' },
+    flows: [
+      { method: 'volumetric', season: 'dry', readings: { trials: [{ volumeL: 10, seconds: 23.5 }, { volumeL: 10, seconds: 24.6 }, { volumeL: 10, seconds: 24.1 }] } },
+    ],
+    fall: [
+      { method: 'level', bookings: { rows: [{ backsightM: 0.412 }, { foresightM: 3.388, backsightM: 0.505 }, { foresightM: 3.746 }] } },
+    ],
+    lift: [
+      { method: 'level', bookings: { bookedFrom: 'pump', rows: [{ backsightM: 2.918 }, { foresightM: 0.402 }] } },
+    ],
+    pipes: [
+      { purpose: 'drive', lengthM: 35, diameterMm: null, material: 'hdpe' },
+      { purpose: 'delivery', lengthM: 160, diameterMm: null, material: 'hdpe' },
+    ],
+    points: [
+      { role: 'intake', label: 'Spring box under the ash', lat: 52.40455, lon: -3.60121, altitudeM: 171, accuracyM: 4 },
+      { role: 'pump', label: 'Low point by the ford', lat: 52.40421, lon: -3.60079, altitudeM: 165, accuracyM: 4 },
+      { role: 'tank', label: 'Trough in the lower meadow', lat: 52.40352, lon: -3.60003, altitudeM: 167, accuracyM: 5 },
+    ],
+  },
 ] as const;
 
 /** Stores the demo's raw readings, then screens each site with the engine (as a sync would). */

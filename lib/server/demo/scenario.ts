@@ -47,6 +47,11 @@ export const DEMO_FARMS: {
     demand: [{ kind: 'person-tap-on-plot', count: 5 }, { kind: 'laying-hen', count: 80 }, { kind: 'garden-m2', count: 120 }],
   },
   {
+    key: 'farm:hafod-lower', owner: 'user:samuel', name: 'Hafod Lower Meadow', area: 'Hafod spring line',
+    lat: 52.40391, lon: -3.60052, notes: 'Young stock in the lower meadow; the spring rises above it.',
+    demand: [{ kind: 'growing-cattle', count: 10 }],
+  },
+  {
     key: 'farm:lark-spinney', owner: 'user:samuel', name: 'Lark Spinney', area: 'Hafod spring line',
     lat: 52.40211, lon: -3.60412, notes: 'Dairy heifers over winter.',
     demand: [{ kind: 'growing-cattle', count: 12 }],
@@ -58,6 +63,7 @@ export const DEMO_VISITS: {
 }[] = [
   { key: 'visit:brandt-hollow', farm: 'farm:brandt-hollow', advisor: 'user:tobias', plannedInDays: -12, status: 'screened', notes: 'Spring-fed side-creek above the river meadow.' },
   { key: 'visit:pryce-upper', farm: 'farm:pryce-upper', advisor: 'user:tobias', plannedInDays: -3, status: 'screened', notes: 'Steep tank run to the ridge.' },
+  { key: 'visit:hafod-lower', farm: 'farm:hafod-lower', advisor: 'user:tobias', plannedInDays: -6, status: 'screened', notes: 'Trough below the spring: maybe no pump at all.' },
   { key: 'visit:otieno-croft', farm: 'farm:otieno-croft', advisor: 'user:ines', plannedInDays: 6, status: 'scheduled', notes: '' },
   { key: 'visit:lark-spinney', farm: 'farm:lark-spinney', advisor: 'user:ines', plannedInDays: -2, status: 'scheduled', notes: 'Farmer asked to reschedule once.' },
   { key: 'visit:cwm-rhyd', farm: 'farm:cwm-rhyd', advisor: null, plannedInDays: null, status: 'requested', notes: '' },

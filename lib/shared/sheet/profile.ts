@@ -10,6 +10,8 @@ export interface ProfileInput {
   staticLiftM: number;
   driveLengthM: number;
   deliveryLengthM: number;
+  /** The tank fills by gravity: the low point is no ram and the pipe runs on to the tank. */
+  gravity?: boolean;
 }
 
 export interface ProfileNode { key: 'intake' | 'pump' | 'tank'; x: number; y: number; label: string; height: string }
@@ -66,20 +68,22 @@ export function profileGeometry(p: ProfileInput, units: UnitSystem, width = 640,
   for (let v = 0; v <= toUnits(spanX) + 1e-9; v += stepX) xGrid.push({ at: X(fromUnits(v)), label: `${+v.toFixed(3)} ${unit}` });
 
   const nodes: ProfileNode[] = [
-    { key: 'intake', x: X(0), y: Y(p.fallM), label: 'Intake', height: `${lengthQ(p.fallM, units).text} above the ram` },
-    { key: 'pump', x: X(driveRun), y: Y(0), label: 'Ram pump', height: 'height 0' },
-    { key: 'tank', x: X(spanX), y: Y(p.staticLiftM), label: 'Tank', height: `${lengthQ(p.staticLiftM, units).text} above the ram` },
+    { key: 'intake', x: X(0), y: Y(p.fallM), label: 'Intake', height: `${lengthQ(p.fallM, units).text} above the ${p.gravity ? 'low point' : 'ram'}` },
+    { key: 'pump', x: X(driveRun), y: Y(0), label: p.gravity ? 'Low point' : 'Ram pump', height: 'height 0' },
+    { key: 'tank', x: X(spanX), y: Y(p.staticLiftM), label: 'Tank', height: `${lengthQ(p.staticLiftM, units).text} above the ${p.gravity ? 'low point' : 'ram'}` },
   ];
   const [intake, pump, tank] = nodes as [ProfileNode, ProfileNode, ProfileNode];
-  const driveLabel = `Drive pipe ${pipeLength(p.driveLengthM, units).text}`;
-  const deliveryLabel = `Delivery pipe ${pipeLength(p.deliveryLengthM, units).text}`;
+  const driveLabel = `${p.gravity ? 'Pipe' : 'Drive pipe'} ${pipeLength(p.driveLengthM, units).text}`;
+  const deliveryLabel = `${p.gravity ? 'Pipe' : 'Delivery pipe'} ${pipeLength(p.deliveryLengthM, units).text}`;
   const pipes: ProfilePipe[] = [
     { key: 'drive', x1: intake.x, y1: intake.y, x2: pump.x, y2: pump.y, label: driveLabel },
     { key: 'delivery', x1: pump.x, y1: pump.y, x2: tank.x, y2: tank.y, label: deliveryLabel },
   ];
   const ratio = sy / sx;
   const exaggeration = ratio > 1.5 ? `Heights drawn ${Math.round(ratio)} × larger than lengths` : ratio < 0.67 ? `Lengths drawn ${Math.round(1 / ratio)} × larger than heights` : '';
-  const description = `Elevation profile: the intake is ${nodes[0]?.height}; the water runs down the ${driveLabel.toLowerCase()} to the ram pump, then up the ${deliveryLabel.toLowerCase()} to the tank, ${tank.height}.`;
+  const description = p.gravity
+    ? `Elevation profile: the intake is ${nodes[0]?.height}; the water runs down ${pipeLength(p.driveLengthM, units).text} of pipe to the low point, then ${pipeLength(p.deliveryLengthM, units).text} on to the tank, ${tank.height} and below the intake.`
+    : `Elevation profile: the intake is ${nodes[0]?.height}; the water runs down the ${driveLabel.toLowerCase()} to the ram pump, then up the ${deliveryLabel.toLowerCase()} to the tank, ${tank.height}.`;
   return { width, height, plot, nodes, pipes, xGrid, yGrid, exaggeration, description };
 }
 

@@ -118,7 +118,7 @@ function keyFigures(s: SheetSource, units: UnitSystem): SheetFigure[] {
   add('deliveryLpd', 'Delivery per day', (v) => perDay(v, units).text, 'Ram running day and night');
   add('demandLpd', 'Demand per day', (v) => perDay(v, units).text, 'What you told us you need');
   add('demandMarginLpd', 'Margin', (v) => (v >= 0 ? `${perDay(v, units).text} to spare` : `${perDay(-v, units).text} short`), 'Delivery minus demand');
-  add('probabilityMeetsDemand', 'Chance of meeting demand', chance, 'Allowing for measuring error');
+  add('probabilityMeetsDemand', 'Chance of meeting demand', chance, 'Allowing for measuring error and how rams vary');
   add('tankL', 'Tank', (v) => volume(v, units).text, 'Storage to size for');
   add('ramCount', 'Rams', (v) => `${v} side by side`, 'Each on its own drive pipe');
   add('gravityHeadM', 'Intake above the tank', (v) => length(v, units).text, 'The water runs down by itself');
@@ -162,7 +162,7 @@ export function buildSheetView(s: SheetSource, units: UnitSystem): SheetView {
   const driveM = s.pipeLengthsM.drive ?? fig('driveLengthM');
   const deliveryM = s.pipeLengthsM.delivery;
   const profile = fall !== null && lift !== null && driveM && deliveryM
-    ? profileGeometry({ fallM: fall, staticLiftM: lift, driveLengthM: driveM, deliveryLengthM: deliveryM }, units)
+    ? profileGeometry({ fallM: fall, staticLiftM: lift, driveLengthM: driveM, deliveryLengthM: deliveryM, gravity: sc.verdict === 'gravity' }, units)
     : null;
   const located = s.points.filter((p): p is typeof p & { lat: number; lon: number } => p.lat !== null && p.lon !== null);
   const visited = s.visitedAt ? formatDay(s.visitedAt) : 'a date not recorded';
