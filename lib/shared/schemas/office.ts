@@ -1,3 +1,4 @@
+import { DEMAND_CATALOGUE } from '@/lib/engine/demand';
 import { z } from '@/lib/shared/zod';
 import { ROLES, UNIT_SYSTEMS, VISIT_STATUSES } from '../domain';
 
@@ -71,6 +72,19 @@ const positive = (what: string) =>
     z.number({ message: `${what} must be a number.` }).positive(`${what} must be more than 0.`),
   );
 
+/** Flags every own key of the raw record that is not a kind of the demand catalogue. */
+function onlyCatalogueKinds(v: unknown, ctx: z.RefinementCtx): void {
+  if (!v || typeof v !== 'object' || Array.isArray(v)) return;
+  for (const key of Object.keys(v)) {
+    if (!Object.hasOwn(DEMAND_CATALOGUE, key)) ctx.addIssue({ code: 'custom', path: [key], message: 'Not a demand kind the screen knows.' });
+  }
+}
+
+/** The record without entries left blank (empty or spaces only, null, undefined). */
+function withoutBlanks(v: Record<string, unknown>): Record<string, unknown> {
+  return Object.fromEntries(Object.entries(v).filter(([, x]) => x !== null && x !== undefined && !(typeof x === 'string' && x.trim() === '')));
+}
+
 export const settingsSchema = z.object({
   unitsDefault: z.enum(UNIT_SYSTEMS, { message: 'Choose metric or US customary.' }),
   // The share of the lowest measured flow a design may take (the rest stays in the stream).
@@ -78,7 +92,12 @@ export const settingsSchema = z.object({
     (v) => (typeof v === 'string' ? Number(v.trim().replace(',', '.')) : v),
     z.number({ message: 'Enter a fraction like 0.5.' }).min(0.1, 'At least 0.1 of the lowest flow.').max(0.9, 'At most 0.9: leave water in the stream.'),
   ),
-  demandFigures: z.record(z.string().min(1), positive('A per-head figure')),
+  // Only kinds the catalogue itself holds (own keys: not "constructor" or "__proto__", which the
+  // record would drop unseen); a blank box means "use the catalogue figure" and is dropped.
+  demandFigures: z.custom<Record<string, string | number | null | undefined>>((v) => !!v && typeof v === 'object' && !Array.isArray(v), 'Give the per-head figures by kind.')
+    .superRefine(onlyCatalogueKinds)
+    .transform(withoutBlanks)
+    .pipe(z.record(z.string().min(1), positive('A per-head figure'))),
   pipePrices: z.array(z.object({
     material: z.string().trim().min(1, 'Name the pipe material.').max(40),
     diameterMm: positive('Diameter'),
