@@ -5,11 +5,13 @@ import { Farm, User, Visit, getSequelize } from '@/lib/server/db';
 import type { VisitStatus } from '@/lib/shared/domain';
 import type { visitAssignSchema, visitCreateSchema, bulkAssignSchema } from '@/lib/shared/schemas/office';
 import { mayHoldUnsyncedData, todayIso } from '@/lib/shared/visit-rules';
+import { canMove, moveRefusal } from '@/lib/shared/visit-states';
 import type { z } from 'zod';
 import { recordAudit } from '../audit';
 import { authorize, type SessionUser } from '../auth/permissions';
 import { AppError, invalid, notFound } from '../errors';
 import { sendAssignmentNotice, type AssignedVisit } from '../mail/notices';
+import { moveVisit } from './visit-moves';
 
 type Assign = z.output<typeof visitAssignSchema>;
 
@@ -117,17 +119,26 @@ export async function bulkAssign(user: SessionUser, input: z.output<typeof bulkA
   return { assigned: assigned.length, noticeSent };
 }
 
-/** Moves a visit to another state of its life (the follow-up), with an audit line. */
+/** Moves a visit by hand to a state the table allows the office from where it is (audited); anything else is a 409. */
 export async function setVisitStatus(user: SessionUser, id: string, status: VisitStatus) {
   return getSequelize().transaction(async (transaction) => {
     const visit = await visitForPlanning(user, id, transaction);
-    const before = visit.status;
-    if (before === status) return { id: visit.id, status };
-    await visit.update({ status }, { transaction });
-    await recordAudit({
-      organisationId: user.organisationId, actorId: user.id, entity: 'visit', entityId: visit.id, visitId: visit.id,
-      action: 'status', changes: { before: { status: before }, after: { status } },
-    }, transaction);
-    return { id: visit.id, status };
+    if (visit.status !== status && !canMove(visit.status, status, 'office')) {
+      throw new AppError(409, 'transition', `${moveRefusal(visit.status, status)} To move it anyway, use “Move outside the usual order” and give your reason.`);
+    }
+    await moveVisit(visit, status, { by: 'office', actorId: user.id }, transaction);
+    return { id: visit.id, status: visit.status };
+  });
+}
+
+/** A coordinator's move outside the table, with their stated reason in the audit line. */
+export async function jumpVisitStatus(user: SessionUser, id: string, status: VisitStatus, reason: string) {
+  authorize(user, 'visit:jump');
+  return getSequelize().transaction(async (transaction) => {
+    const visit = await visitForPlanning(user, id, transaction);
+    authorize(user, 'visit:jump', { organisationId: visit.organisationId });
+    const allowed = canMove(visit.status, status, 'office');
+    await moveVisit(visit, status, { by: 'office', actorId: user.id, jumpReason: allowed ? undefined : reason, cause: allowed ? reason : undefined }, transaction);
+    return { id: visit.id, status: visit.status };
   });
 }

@@ -1,6 +1,7 @@
 import { DEMAND_CATALOGUE } from '@/lib/engine/demand';
 import { z } from '@/lib/shared/zod';
 import { ROLES, UNIT_SYSTEMS, VISIT_STATUSES } from '../domain';
+import { JUMP_REASON_MIN } from '../visit-states';
 
 // Bodies of the coordinator's office routes; the forms use the same schemas (zodResolver).
 
@@ -26,6 +27,13 @@ export type VisitAssignInput = z.input<typeof visitAssignSchema>;
 
 export const visitStatusSchema = z.object({
   status: z.enum(VISIT_STATUSES, { message: 'Choose a state.' }),
+});
+
+// A move outside the table of visit states: only with the coordinator's reason, which is audited.
+export const visitJumpSchema = z.object({
+  status: z.enum(VISIT_STATUSES, { message: 'Choose a state.' }),
+  reason: z.string({ message: 'Say in a few words why the visit moves outside the usual order.' }).trim()
+    .min(JUMP_REASON_MIN, 'Say in a few words why the visit moves outside the usual order.').max(500, 'At most 500 characters.'),
 });
 
 export const bulkAssignSchema = visitAssignSchema.extend({

@@ -175,7 +175,7 @@ export const ROUTES: RouteEntry[] = [
   },
   {
     file: 'app/api/visits/[id]/route.ts', method: 'PATCH', load: () => import('@/app/api/visits/[id]/route'), permissions: ['visit:plan'], target: 'visit', ok: 200,
-    build: async (u, r) => request(`/api/visits/${need(r).visitId}`, u, json('PATCH', { status: 'installed' })),
+    build: async (u, r) => request(`/api/visits/${need(r).visitId}`, u, json('PATCH', { status: 'cancelled' })),
   },
   {
     file: 'app/api/visits/[id]/assignment/route.ts', method: 'PUT', load: () => import('@/app/api/visits/[id]/assignment/route'), permissions: ['visit:plan'], target: 'visit', ok: 200,
@@ -213,7 +213,33 @@ export const ROUTES: RouteEntry[] = [
     file: 'app/api/visits/[id]/sheet/questions/route.ts', method: 'POST', load: () => import('@/app/api/visits/[id]/sheet/questions/route'), permissions: ['sheet:acknowledge'], target: 'visit', ok: 201,
     build: async (u, r) => request(`/api/visits/${need(r).visitId}/sheet/questions`, u, json('POST', { text: 'How deep is the intake?' })),
   },
+  {
+    file: 'app/api/visits/[id]/sheet/decision/route.ts', method: 'POST', load: () => import('@/app/api/visits/[id]/sheet/decision/route'), permissions: ['sheet:decide'], target: 'visit', ok: 201,
+    build: async (u, r) => request(`/api/visits/${need(r).visitId}/sheet/decision`, u, json('POST', { decision: 'go-ahead', reason: '' })),
+  },
+  {
+    file: 'app/api/visits/[id]/sheet/answers/route.ts', method: 'POST', load: () => import('@/app/api/visits/[id]/sheet/answers/route'), permissions: ['sheet:answer'], target: 'visit', ok: 201,
+    build: async (u, r) => {
+      const question = await askedQuestion(need(r));
+      return request(`/api/visits/${need(r).visitId}/sheet/answers`, u, json('POST', { questionId: question, text: 'About a metre below the pool.' }));
+    },
+  },
+  {
+    file: 'app/api/visits/[id]/jump/route.ts', method: 'POST', load: () => import('@/app/api/visits/[id]/jump/route'), permissions: ['visit:jump', 'visit:plan'], target: 'visit', ok: 200,
+    build: async (u, r) => request(`/api/visits/${need(r).visitId}/jump`, u, json('POST', { status: 'installed', reason: 'Installed on paper last spring.' })),
+  },
+  {
+    file: 'app/api/questions/route.ts', method: 'GET', load: () => import('@/app/api/questions/route'), permissions: ['sheet:answer'], target: 'none', ok: 200,
+    build: async (u) => request('/api/questions', u),
+  },
 ];
+
+/** The farmer's question the world put on the resource's visit (the answers route needs one to answer). */
+async function askedQuestion(r: Resource): Promise<string> {
+  const { SheetResponse } = await import('@/lib/server/db');
+  const question = await SheetResponse.findOne({ where: { visitId: r.visitId, kind: 'question' }, attributes: ['id'] });
+  return question?.id ?? randomUUID();
+}
 
 /** The `[id]`-style params of a route, taken from the request path against the file's folders. */
 export function routeParams(file: string, url: URL): Record<string, string> {
