@@ -3,6 +3,7 @@
 import Link from 'next/link';
 import { VISIT_STATUS_LABELS, type VisitStatus } from '@/lib/shared/domain';
 import { formatDay } from '@/lib/shared/format';
+import { FieldQuestions } from './_components/field-questions';
 import { useFieldUser } from './_components/field-session';
 import { useFrameQuery } from './_components/use-frame-query';
 
@@ -33,6 +34,7 @@ export default function FieldHome() {
           </li>
         ))}
       </ul>
+      <FieldQuestions enabled={user !== null} />
     </div>
   );
 }

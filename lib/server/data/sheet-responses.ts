@@ -1,6 +1,7 @@
 import 'server-only';
 import { Op, QueryTypes } from 'sequelize';
 import { Screening, SheetResponse, SheetSend, User, Visit, getSequelize } from '@/lib/server/db';
+import type { OpenQuestion } from '@/lib/shared/conversation';
 import type { Role } from '@/lib/shared/domain';
 import type { SheetResponseKind } from '@/models/sheet-response';
 import type { SessionUser } from '../auth/permissions';
@@ -134,9 +135,6 @@ export async function answerQuestion(user: SessionUser, visitId: string, questio
     { farmName: visit.Farm?.name ?? '', question: question.text, answer: text, by: user.name, at: row.createdAt, visitId })) : false;
   return { ...toView(row, SELF(user), new Set()), farmerTold };
 }
-
-/** A question no answer names yet, with where it was asked. */
-export interface OpenQuestion { id: string; visitId: string; farmName: string; farmerName: string; text: string; at: string }
 
 /** Questions still waiting for an answer: the organisation's (coordinators) or on the caller's visits (advisors), oldest first. */
 export async function listOpenQuestions(user: SessionUser, limit = 50): Promise<OpenQuestion[]> {
