@@ -27,7 +27,7 @@ export default function FieldHome() {
               <span className="block text-xl font-bold">{v.farm?.name ?? 'Farm'}</span>
               <span className="block text-stone">{v.farm?.area}</span>
               <span className="mt-1 block">
-                <span className="figure">{formatDay(v.plannedOn)}</span> · {VISIT_STATUS_LABELS[v.status as VisitStatus] ?? v.status}
+                {v.plannedOn ? <span className="figure">{formatDay(v.plannedOn)}</span> : 'No date yet'} · {VISIT_STATUS_LABELS[v.status as VisitStatus] ?? v.status}
                 {v.waiting > 0 && <strong> · {v.waiting} waiting to send</strong>}
               </span>
             </Link>

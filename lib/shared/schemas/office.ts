@@ -2,27 +2,44 @@ import { DEMAND_CATALOGUE } from '@/lib/engine/demand';
 import { z } from '@/lib/shared/zod';
 import { ROLES, UNIT_SYSTEMS, VISIT_STATUSES } from '../domain';
 import { JUMP_REASON_MIN } from '../visit-states';
+import { isPastDay, PAST_DAY_UNCONFIRMED, plannedDayProblem } from '../visit-rules';
 
 // Bodies of the coordinator's office routes; the forms use the same schemas (zodResolver).
 
 const isoDay = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Pick a date.');
-const optionalDay = z.preprocess((v) => (v === '' ? null : v), isoDay.nullable().optional());
+// A planned date: a real day from 2000 to two years ahead (a past one needs confirmPast, below).
+const plannedDay = isoDay.superRefine((day, ctx) => {
+  const problem = plannedDayProblem(day);
+  if (problem) ctx.addIssue({ code: 'custom', message: problem });
+});
+const optionalPlannedDay = z.preprocess((v) => (v === '' ? null : v), plannedDay.nullable().optional());
 const uuid = (what: string) => z.string().uuid(`Choose ${what}.`);
+
+/** A planned date before today is kept only when the person ticked that it is in the past. */
+function pastDayConfirmed(v: { plannedOn?: string | null; confirmPast: boolean }, ctx: z.RefinementCtx) {
+  if (isPastDay(v.plannedOn) && !v.confirmPast) ctx.addIssue({ code: 'custom', path: ['plannedOn'], message: PAST_DAY_UNCONFIRMED });
+}
 
 export const visitCreateSchema = z.object({
   farmId: uuid('a farm'),
   advisorId: z.preprocess((v) => (v === '' ? null : v), uuid('an advisor').nullable().optional()),
-  plannedOn: optionalDay,
+  plannedOn: optionalPlannedDay,
+  confirmPast: z.boolean().default(false),
+  // Set after the person has read the warning that the farm already has a visit under way.
+  confirmDuplicate: z.boolean().default(false),
   notes: z.string().trim().max(2000, 'Notes are at most 2,000 characters.').default(''),
-});
+}).superRefine(pastDayConfirmed);
 export type VisitCreateInput = z.input<typeof visitCreateSchema>;
 
-export const visitAssignSchema = z.object({
+const assignFields = {
   advisorId: uuid('an advisor'),
-  plannedOn: isoDay,
+  plannedOn: plannedDay,
+  confirmPast: z.boolean().default(false),
   // Set after the person has read the warning that the current advisor may hold unsynced data.
   confirmUnsynced: z.boolean().default(false),
-});
+};
+
+export const visitAssignSchema = z.object(assignFields).superRefine(pastDayConfirmed);
 export type VisitAssignInput = z.input<typeof visitAssignSchema>;
 
 export const visitStatusSchema = z.object({
@@ -36,9 +53,10 @@ export const visitJumpSchema = z.object({
     .min(JUMP_REASON_MIN, 'Say in a few words why the visit moves outside the usual order.').max(500, 'At most 500 characters.'),
 });
 
-export const bulkAssignSchema = visitAssignSchema.extend({
+export const bulkAssignSchema = z.object({
+  ...assignFields,
   visitIds: z.array(z.string().uuid('A visit id is not valid.')).min(1, 'Tick at least one visit.').max(200, 'At most 200 visits at once.'),
-});
+}).superRefine(pastDayConfirmed);
 export type BulkAssignInput = z.input<typeof bulkAssignSchema>;
 
 const coordinate = (min: number, max: number, what: string) =>
