@@ -129,7 +129,7 @@ test('the office is offered only allowed state moves; a jump needs a reason; the
   const jump = maren.getByRole('form', { name: 'Move outside the usual order' });
   await jump.getByLabel('Move to').selectOption({ label: 'Running, checked' });
   await jump.getByRole('button', { name: 'Move with this reason' }).click();
-  await expect(maren.getByRole('alert')).toHaveText('Say in a few words why the visit moves outside the usual order.');
+  await expect(maren.getByRole('alert').filter({ hasText: 'Say in a few words' })).toHaveText('Say in a few words why the visit moves outside the usual order.');
   await maren.screenshot({ path: `${shots}/office-state-moves-phone.png`, fullPage: true });
 
   const refused = await maren.evaluate(async (id) => {
