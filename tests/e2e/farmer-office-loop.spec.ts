@@ -154,3 +154,28 @@ test('settings save with the per-head boxes left blank', async ({ browser }) => 
   await form.getByRole('button', { name: 'Save settings' }).click();
   await expect(form.getByRole('status')).toHaveText('Settings saved. New screenings use them.');
 });
+
+test('board counts open the filtered table; farms are searched; a farm page shows its visits, needs and "Plan a visit"', async ({ browser }) => {
+  const maren = await person(browser, 'maren@wenlow-water.test', /\/office$/);
+  await maren.getByRole('link', { name: /visits: Visit booked$/ }).click();
+  await expect(maren).toHaveURL(/status=scheduled/);
+  const table = maren.getByRole('table', { name: 'Visits in the district' });
+  await expect(table).toContainText('Otieno Orchard Croft');
+  await expect(table).not.toContainText('Brandt Hollow');
+
+  await maren.goto('/office/farms');
+  const search = maren.getByRole('search', { name: 'Find farms' });
+  await search.getByLabel('Farm, area or farmer').fill('Otieno');
+  await search.getByRole('button', { name: 'Show' }).click();
+  const farms = maren.getByRole('table', { name: 'Farms' });
+  await expect(farms).toContainText('Lark Spinney');
+  await expect(farms).not.toContainText('Brandt Hollow');
+  await maren.screenshot({ path: `${shots}/office-farms-search-phone.png`, fullPage: true });
+  await farms.getByRole('link', { name: 'Otieno Orchard Croft' }).click();
+  await expect(maren.getByRole('heading', { level: 1, name: 'Otieno Orchard Croft' })).toBeVisible();
+  await expect(maren.getByRole('list', { name: 'Visits to this farm' })).toContainText('Visit booked');
+  await expect(maren.getByRole('list', { name: 'Water needs' })).toContainText('Laying hen');
+  await expect(maren.getByRole('link', { name: 'Plan a visit' }).first()).toHaveAttribute('href', /\/office\/visits\/new\?farm=/);
+  await maren.setViewportSize(DESKTOP);
+  await maren.screenshot({ path: `${shots}/office-farm-page-desktop.png`, fullPage: true });
+});
