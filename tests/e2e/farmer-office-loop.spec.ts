@@ -180,3 +180,32 @@ test('board counts open the filtered table; farms are searched; a farm page show
   await maren.setViewportSize(DESKTOP);
   await maren.screenshot({ path: `${shots}/office-farm-page-desktop.png`, fullPage: true });
 });
+
+test('planning: a past date needs its tick, a farm with a visit under way is warned, and an allowed move is made from the page', async ({ browser }) => {
+  const maren = await person(browser, 'maren@wenlow-water.test', /\/office$/);
+  await maren.goto('/office/farms?q=Lark');
+  await maren.getByRole('table', { name: 'Farms' }).getByRole('link', { name: 'Plan a visit' }).click();
+  const form = maren.getByRole('form', { name: 'Plan a visit' });
+  const yesterday = new Date(Date.now() - 86_400_000).toISOString().slice(0, 10);
+  await form.getByLabel('Planned date (optional)').fill('1900-01-01');
+  await form.getByRole('button', { name: 'Plan the visit' }).click();
+  await expect(form.getByText('Pick a date from Sat, 1 Jan 2000 on.')).toBeVisible();
+  await form.getByLabel('Planned date (optional)').fill(yesterday);
+  await form.getByRole('button', { name: 'Plan the visit' }).click();
+  await expect(form.getByText('That day has passed. Tick “Yes, the date is in the past” to keep it.')).toBeVisible();
+  await form.getByLabel('Yes, the date is in the past').check();
+  await form.getByRole('button', { name: 'Plan the visit' }).click();
+  const warning = form.getByRole('alert').filter({ hasText: 'already has a visit under way' });
+  await expect(warning).toContainText('Lark Spinney already has a visit under way (Visit booked');
+  await maren.screenshot({ path: `${shots}/office-plan-duplicate-phone.png`, fullPage: true });
+  await warning.getByRole('button', { name: 'Plan another visit anyway' }).click();
+  await expect(maren).toHaveURL(/\/office\/visits\/[0-9a-f-]{36}$/);
+  await expect(maren.getByRole('heading', { level: 1, name: 'Lark Spinney' })).toBeVisible();
+
+  // The new visit is only requested: cancelling it is a move the table offers the office.
+  const change = maren.getByRole('form', { name: 'Change the state' });
+  await change.getByLabel('Next state').selectOption({ label: 'Cancelled' });
+  await change.getByRole('button', { name: 'Change state' }).click();
+  await expect(maren.getByRole('status').filter({ hasText: 'Now: Cancelled.' })).toBeVisible();
+  await expect(maren.getByRole('list', { name: 'Change history' })).toContainText('State: Needs requested → Cancelled');
+});
