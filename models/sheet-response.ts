@@ -2,14 +2,16 @@ import {
   DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize,
 } from 'sequelize';
 
-export type SheetResponseKind = 'acknowledged' | 'question';
+/** acknowledged: "I have read it"; go-ahead / not-now: the farmer's decision; question; answer (staff). */
+export type SheetResponseKind = 'acknowledged' | 'go-ahead' | 'not-now' | 'question' | 'answer';
 
-/** The farmer's word on a sheet: an acknowledgement, or a question for the advisor and coordinator. */
+/** One line of a sheet's thread: the farmer's reading, decision or question, or staff's answer. */
 export class SheetResponse extends Model<InferAttributes<SheetResponse>, InferCreationAttributes<SheetResponse>> {
   declare id: string;
   declare visitId: string;
   declare screeningId: string;
-  declare farmerId: string;
+  declare authorId: string;
+  declare replyToId: string | null;
   declare kind: SheetResponseKind;
   declare text: string;
   declare createdAt: CreationOptional<Date>;
@@ -20,7 +22,8 @@ export class SheetResponse extends Model<InferAttributes<SheetResponse>, InferCr
         id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
         visitId: { type: DataTypes.UUID, allowNull: false },
         screeningId: { type: DataTypes.UUID, allowNull: false },
-        farmerId: { type: DataTypes.UUID, allowNull: false },
+        authorId: { type: DataTypes.UUID, allowNull: false },
+        replyToId: { type: DataTypes.UUID, allowNull: true },
         kind: { type: DataTypes.STRING(12), allowNull: false },
         text: { type: DataTypes.TEXT, allowNull: false },
         createdAt: DataTypes.DATE(3),

@@ -27,7 +27,9 @@ export async function syncSummary(db: FieldDatabase) {
 
 /** The home's list: the phone's visits by planned day with their farms and waiting changes. */
 export async function homeVisits(db: FieldDatabase) {
-  const rows = await db.visits.orderBy('plannedOn').toArray();
+  // Not orderBy('plannedOn'): an index leaves out the rows whose key is null, and a visit assigned
+  // before its date is set must be on the list too. Dated ones first, by date; then the undated.
+  const rows = (await db.visits.toArray()).sort((a, b) => (a.plannedOn ?? '9999').localeCompare(b.plannedOn ?? '9999'));
   // The visit of each waiting change, from the index alone (no op is loaded).
   const waiting = new Map<string, number>();
   for (const id of (await db.outbox.orderBy('visitId').keys()) as string[]) waiting.set(id, (waiting.get(id) ?? 0) + 1);

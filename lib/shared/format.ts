@@ -14,6 +14,15 @@ export function formatDay(isoDay: string | null | undefined): string {
   return `${WEEKDAYS[date.getUTCDay()]}, ${date.getUTCDate()} ${MONTHS[date.getUTCMonth()]} ${date.getUTCFullYear()}`;
 }
 
+/** "Tue, 8 Dec 2026, 14:05 UTC": a moment for pages and e-mail read in more than one place (one time zone for all). */
+export function formatDateTime(at: Date | string | null | undefined): string {
+  if (!at) return '—';
+  const date = typeof at === 'string' ? new Date(at) : at;
+  if (Number.isNaN(date.getTime())) return '—';
+  const iso = date.toISOString();
+  return `${formatDay(iso)}, ${iso.slice(11, 16)} UTC`;
+}
+
 /**
  * A time of day on this device's clock, "14:05" (metric users) or "2:05 PM" (US customary users),
  * written out for the same reason as formatDay: toLocaleTimeString builds a formatter on every call.

@@ -1,5 +1,6 @@
 // Rules about a visit's state that the office pages and the server share.
 import type { VisitStatus } from './domain';
+import { formatDay } from './format';
 
 export interface VisitTiming {
   status: VisitStatus;
@@ -30,4 +31,32 @@ export function mayHoldUnsyncedData(v: VisitTiming, today = todayIso()): boolean
   if (!v.lastSyncedAt) return true;
   const synced = typeof v.lastSyncedAt === 'string' ? v.lastSyncedAt : v.lastSyncedAt.toISOString();
   return synced.slice(0, 10) < v.plannedOn;
+}
+
+/** The earliest planned date the office may enter: older ones are typing slips. */
+export const EARLIEST_PLANNED_DAY = '2000-01-01';
+
+/** The latest planned date: two years from today (a season's plan, with room to spare). */
+export function latestPlannedDay(today = todayIso()): string {
+  const d = new Date(`${today}T00:00:00Z`);
+  d.setUTCFullYear(d.getUTCFullYear() + 2);
+  return d.toISOString().slice(0, 10);
+}
+
+/** Why a planned date is refused (not a real day, before 2000, more than two years ahead), or null. */
+export function plannedDayProblem(day: string, today = todayIso()): string | null {
+  const d = new Date(`${day}T00:00:00Z`);
+  if (Number.isNaN(d.getTime()) || d.toISOString().slice(0, 10) !== day) return 'Pick a real date.';
+  if (day < EARLIEST_PLANNED_DAY) return `Pick a date from ${formatDay(EARLIEST_PLANNED_DAY)} on.`;
+  const latest = latestPlannedDay(today);
+  if (day > latest) return `Plan at most two years ahead: ${formatDay(latest)} at the latest.`;
+  return null;
+}
+
+/** The field message for a past planned date that was not confirmed. */
+export const PAST_DAY_UNCONFIRMED = 'That day has passed. Tick “Yes, the date is in the past” to keep it.';
+
+/** Whether a planned date lies before today (it then needs the person's confirmation). */
+export function isPastDay(day: string | null | undefined, today = todayIso()): boolean {
+  return !!day && day < today;
 }

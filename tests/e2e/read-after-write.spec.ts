@@ -55,7 +55,7 @@ test('the page right after a save reads the primary; without the mark it reads t
     const notes = `Replica check ${randomUUID().slice(0, 8)}`;
     const res = await fetch(`${base}/api/visits`, {
       method: 'POST', headers: { cookie: session, origin: base, 'content-type': 'application/json' },
-      body: JSON.stringify({ farmId, advisorId, plannedOn: '2027-03-01', notes }),
+      body: JSON.stringify({ farmId, advisorId, plannedOn: '2027-03-01', confirmDuplicate: true, notes }),
     });
     expect(res.status).toBe(201);
     const id = ((await res.json()) as { visit: { id: string } }).visit.id;

@@ -63,7 +63,7 @@ test('a farmer opens their sheet, downloads the PDF and acknowledges it', async 
   expect(download.suggestedFilename()).toMatch(/\.pdf$/);
 
   await page.getByRole('button', { name: 'I have read this sheet' }).click();
-  await expect(page.getByText('You acknowledged this sheet.')).toBeVisible();
+  await expect(page.getByText('You have told us you read this sheet. That is not a yes')).toBeVisible();
   await page.getByLabel('Ask your advisor a question').fill('Could the tank sit nearer the yard?');
   await page.getByRole('button', { name: 'Send question' }).click();
   await expect(page.getByRole('region', { name: 'Questions and answers' })).toContainText('Could the tank sit nearer the yard?');

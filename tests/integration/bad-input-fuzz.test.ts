@@ -10,9 +10,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { POST as acceptInvitation } from '@/app/api/invitations/[token]/accept/route';
 import { scopeOf } from '@/lib/server/auth/permissions';
 import { ROLES } from '@/lib/shared/domain';
-import { farmSchema, bulkAssignSchema, invitationSchema, personUpdateSchema, settingsSchema, visitAssignSchema, visitCreateSchema, visitStatusSchema, acceptInvitationSchema } from '@/lib/shared/schemas/office';
+import { farmSchema, bulkAssignSchema, invitationSchema, personUpdateSchema, settingsSchema, visitAssignSchema, visitCreateSchema, visitStatusSchema, visitJumpSchema, acceptInvitationSchema } from '@/lib/shared/schemas/office';
 import { idParam, pageQuery, visitFilters, visitListQuery } from '@/lib/shared/schemas/list-query';
-import { farmNeedsBody, paperQuery, questionBody, sendSheetBody } from '@/lib/shared/schemas/sheet';
+import { answerBody, decisionBody, farmNeedsBody, paperQuery, questionBody, sendSheetBody } from '@/lib/shared/schemas/sheet';
 import { pullQuerySchema, pushRequestSchema } from '@/lib/shared/schemas/sync';
 import { commissioningInputSchema } from '@/lib/shared/schemas/commissioning';
 import { params } from './support/fixtures';
@@ -58,6 +58,10 @@ const SCHEMAS: Record<string, Schemas> = {
   'POST app/api/visits/[id]/sheet/acknowledge/route.ts': {},
   'GET app/api/visits/[id]/sheet/questions/route.ts': {},
   'POST app/api/visits/[id]/sheet/questions/route.ts': { body: questionBody },
+  'POST app/api/visits/[id]/sheet/decision/route.ts': { body: decisionBody },
+  'POST app/api/visits/[id]/sheet/answers/route.ts': { body: answerBody },
+  'POST app/api/visits/[id]/jump/route.ts': { body: visitJumpSchema },
+  'GET app/api/questions/route.ts': {},
   'GET app/api/commissionings/route.ts': {},
   'POST app/api/visits/[id]/commissioning/route.ts': { body: commissioningInputSchema },
 };

@@ -29,7 +29,7 @@ type Handler = (req: import('next/server').NextRequest, ctx: { params: Promise<R
 // (they name records of the organisation under test), `target` is the record id in the path.
 interface Case { name: string; method: string; handler: Handler; path: (o: Org) => string; id?: (o: Org) => string; body?: (o: Org) => unknown; ok: number }
 const cases: Case[] = [
-  { name: 'POST /api/visits', method: 'POST', handler: postVisit as Handler, path: () => '/api/visits', body: (o) => ({ farmId: o.farm.id }), ok: 201 },
+  { name: 'POST /api/visits', method: 'POST', handler: postVisit as Handler, path: () => '/api/visits', body: (o) => ({ farmId: o.farm.id, confirmDuplicate: true }), ok: 201 },
   { name: 'GET /api/visits/export.csv', method: 'GET', handler: getExport as Handler, path: () => '/api/visits/export.csv', ok: 200 },
   { name: 'PATCH /api/visits/:id', method: 'PATCH', handler: patchVisit as Handler, path: (o) => `/api/visits/${o.visit.id}`, id: (o) => o.visit.id, body: () => ({ status: 'scheduled' }), ok: 200 },
   { name: 'PUT /api/visits/:id/assignment', method: 'PUT', handler: putAssignment as Handler, path: (o) => `/api/visits/${o.visit.id}/assignment`, id: (o) => o.visit.id, body: (o) => ({ advisorId: o.advisor.id, plannedOn: '2026-12-10' }), ok: 200 },

@@ -86,7 +86,7 @@ describe('MariaDB primary + read replica', () => {
     await replica.query('STOP SLAVE SQL_THREAD');
     try {
       const res = await visits.POST(await fixtures.request('/api/visits', org.coordinator, { method: 'POST',
-        body: { farmId: org.otherFarm.id, advisorId: org.advisor.id, plannedOn: '2027-02-01', notes: 'replica check' } }), fixtures.params({}));
+        body: { farmId: org.otherFarm.id, advisorId: org.advisor.id, plannedOn: '2027-02-01', confirmDuplicate: true, notes: 'replica check' } }), fixtures.params({}));
       expect(res.status).toBe(201);
       const created = (await res.json()).visit.id as string;
       const wrote = /fallbook-wrote=(\d+)/.exec(res.headers.get('set-cookie') ?? '')?.[1];

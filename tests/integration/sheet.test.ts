@@ -2,7 +2,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { PDFParse } from 'pdf-parse';
 import { GET as getSheet } from '@/app/api/visits/[id]/sheet/route';
 import { GET as getPdf } from '@/app/api/visits/[id]/sheet/pdf/route';
-import { Screening, User } from '@/lib/server/db';
+import { Screening, User, Visit, getSequelize } from '@/lib/server/db';
 import { makeOrganisation, params, request, type TestUser } from './support/fixtures';
 import { screenFixtureVisit } from './support/screened';
 
@@ -15,6 +15,10 @@ beforeAll(async () => {
   org = await makeOrganisation('sheet');
   otherOrg = await makeOrganisation('sheet-other');
   await screenFixtureVisit(org.visit.id, org.farm.id, org.advisor.id);
+  // Sent, as the farmer reads a sheet only then (sheet-conversation.test.ts checks the 404 before).
+  await getSequelize().transaction(async (transaction) => {
+    await (await Visit.findByPk(org.visit.id, { transaction, rejectOnEmpty: true })).update({ status: 'sent' }, { transaction });
+  });
   const row = await Screening.findOne({ where: { visitId: org.visit.id }, order: [['createdAt', 'DESC']] });
   stored = { deliveryLpd: row?.deliveryLpd ?? NaN, demandLpd: row?.demandLpd ?? NaN, verdict: row?.verdict ?? '' };
 });

@@ -3,6 +3,7 @@
 import Link from 'next/link';
 import { VISIT_STATUS_LABELS, type VisitStatus } from '@/lib/shared/domain';
 import { formatDay } from '@/lib/shared/format';
+import { FieldQuestions } from './_components/field-questions';
 import { useFieldUser } from './_components/field-session';
 import { useFrameQuery } from './_components/use-frame-query';
 
@@ -26,13 +27,14 @@ export default function FieldHome() {
               <span className="block text-xl font-bold">{v.farm?.name ?? 'Farm'}</span>
               <span className="block text-stone">{v.farm?.area}</span>
               <span className="mt-1 block">
-                <span className="figure">{formatDay(v.plannedOn)}</span> · {VISIT_STATUS_LABELS[v.status as VisitStatus] ?? v.status}
+                {v.plannedOn ? <span className="figure">{formatDay(v.plannedOn)}</span> : 'No date yet'} · {VISIT_STATUS_LABELS[v.status as VisitStatus] ?? v.status}
                 {v.waiting > 0 && <strong> · {v.waiting} waiting to send</strong>}
               </span>
             </Link>
           </li>
         ))}
       </ul>
+      <FieldQuestions enabled={user !== null} />
     </div>
   );
 }

@@ -17,6 +17,8 @@ export const ROLE_PERMISSIONS = {
   'visit:read': { coordinator: 'organisation', advisor: 'assigned', farmer: 'owner' },
   'visit:capture': { coordinator: 'organisation', advisor: 'assigned' },
   'visit:plan': { coordinator: 'organisation' },
+  // A move outside the table of visit states, with a stated reason (audited).
+  'visit:jump': { coordinator: 'organisation' },
   // Photo originals keep their EXIF GPS: staff only; farmers see the thumbnail (no metadata).
   'photo:original': { coordinator: 'organisation', advisor: 'assigned' },
   'visit:export': { coordinator: 'organisation' },
@@ -26,7 +28,11 @@ export const ROLE_PERMISSIONS = {
   'demand:edit': { coordinator: 'organisation', advisor: 'assigned', farmer: 'owner' },
   'sheet:read': { coordinator: 'organisation', advisor: 'assigned', farmer: 'owner' },
   'sheet:send': { coordinator: 'organisation', advisor: 'assigned' },
+  // The farmer's own word on a sent sheet: read it, go ahead / not now, ask a question.
   'sheet:acknowledge': { farmer: 'owner' },
+  'sheet:decide': { farmer: 'owner' },
+  // Answering the farmer's questions on the sheet, and the list of questions still open.
+  'sheet:answer': { coordinator: 'organisation', advisor: 'assigned' },
   'people:read': { coordinator: 'organisation' },
   'people:manage': { coordinator: 'organisation' },
   'organisation:settings': { coordinator: 'organisation' },

@@ -6,6 +6,8 @@ import { notFound } from '../errors';
 export interface AuditLine {
   id: number;
   at: string;
+  /** What the line is about (visit, point, sheet_send, …): with the action it picks the words. */
+  entity: string;
   action: string;
   actor: { id: string; name: string } | null;
   changes: unknown;
@@ -22,6 +24,7 @@ export async function visitAuditTrail(user: SessionUser, visitId: string, limit 
   return rows.map((r) => ({
     id: Number(r.id),
     at: r.createdAt.toISOString(),
+    entity: r.entity,
     action: r.action,
     actor: r.actorId ? { id: r.actorId, name: actors.get(r.actorId) ?? 'Unknown person' } : null,
     changes: r.changes,

@@ -3,14 +3,12 @@ import { randomUUID } from 'node:crypto';
 import type { Transaction } from 'sequelize';
 import { commissioningCheck, predictionFromFigures, type CommissioningResult, type Screening as EngineScreening } from '@/lib/engine';
 import { Commissioning, Farm, Screening, Visit, getSequelize } from '@/lib/server/db';
-import type { VisitStatus } from '@/lib/shared/domain';
+import { VISIT_STATUS_LABELS } from '@/lib/shared/domain';
+import { canMove } from '@/lib/shared/visit-states';
 import type { CommissioningInput } from '@/lib/shared/schemas/commissioning';
 import { recordAudit } from '../audit';
 import { authorize, type SessionUser } from '../auth/permissions';
 import { conflict, invalid, notFound } from '../errors';
-
-/** Statuses from which a ram can be commissioned: it was screened (and usually installed) first. */
-const COMMISSIONABLE: readonly VisitStatus[] = ['screened', 'sent', 'acknowledged', 'installed', 'commissioned'];
 
 export interface CommissioningPoint {
   id: string;
@@ -41,7 +39,9 @@ export async function commissionVisit(user: SessionUser, visitId: string, input:
   const visit = await Visit.findOne({ where: { id: visitId, deletedAt: null }, include: [{ model: Farm, attributes: ['ownerId'] }], transaction, lock: transaction.LOCK.UPDATE });
   if (!visit) throw notFound('visit');
   authorize(user, 'visit:commission', { organisationId: visit.organisationId, advisorIds: visit.advisorId ? [visit.advisorId] : [] });
-  if (!COMMISSIONABLE.includes(visit.status)) throw conflict(`This visit is "${visit.status}": screen it before commissioning the ram.`);
+  if (visit.status !== 'commissioned' && !canMove(visit.status, 'commissioned', 'app')) {
+    throw conflict(`This visit is “${VISIT_STATUS_LABELS[visit.status]}”: a ram is commissioned only after a screening, and not on a visit the farmer said not now to or that was cancelled.`);
+  }
   const screening = await Screening.findOne({ where: { visitId }, order: [['createdAt', 'DESC']], transaction });
   if (!screening) throw conflict('This visit has no screening to compare with.');
   const result = screening.result as EngineScreening;

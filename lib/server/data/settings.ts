@@ -1,11 +1,9 @@
 import 'server-only';
 import { Organisation, getSequelize } from '@/lib/server/db';
-import { DEMAND_CATALOGUE } from '@/lib/engine/demand';
 import type { settingsSchema } from '@/lib/shared/schemas/office';
 import type { z } from 'zod';
 import { recordAudit } from '../audit';
 import { authorize, type SessionUser } from '../auth/permissions';
-import { invalid } from '../errors';
 import { defaultOrganisationSettings } from '../organisation-settings';
 
 /** The organisation's settings, with defaults for anything never set. */
@@ -15,13 +13,9 @@ export async function getSettings(user: SessionUser) {
   return { ...defaultOrganisationSettings(), ...org.settings };
 }
 
-/** Replaces the settings; per-head figures must name kinds the engine knows. Audited with before/after. */
+/** Replaces the settings (the schema has checked the per-head kinds against the catalogue). Audited with before/after. */
 export async function updateSettings(user: SessionUser, input: z.output<typeof settingsSchema>) {
   authorize(user, 'organisation:settings');
-  const unknown = Object.keys(input.demandFigures).filter((k) => !(k in DEMAND_CATALOGUE));
-  if (unknown.length) {
-    throw invalid(`demandFigures: unknown kinds ${unknown.join(', ')}.`, Object.fromEntries(unknown.map((k) => [`demandFigures.${k}`, ['Not a demand kind the screen knows.']])));
-  }
   return getSequelize().transaction(async (transaction) => {
     const org = await Organisation.findByPk(user.organisationId, { transaction, lock: transaction.LOCK.UPDATE, rejectOnEmpty: true });
     const before = { ...defaultOrganisationSettings(), ...org.settings };

@@ -2,6 +2,7 @@ import 'server-only';
 import type { Screening as EngineScreening } from '@/lib/engine/screening-types';
 import { DemandLine, Farm, PipeRun, Point, Screening, User, Visit } from '@/lib/server/db';
 import type { SheetSource } from '@/lib/shared/sheet/view-model';
+import { SHEET_RELEASED } from '@/lib/shared/visit-states';
 import { authorize, type Permission, type SessionUser } from '../auth/permissions';
 import { notFound } from '../errors';
 
@@ -15,7 +16,7 @@ export interface SheetContext {
   source: SheetSource;
 }
 
-/** The visit with its farm, owner and advisor, if the user holds the permission on it (404, then 403). */
+/** The visit with its farm, owner and advisor, if the user holds the permission on it (404, then 403; 404 for a farmer before it is sent). */
 export async function getSheetVisitOrThrow(user: SessionUser, visitId: string, permission: Permission): Promise<VisitWithFarm> {
   const visit = (await Visit.findOne({
     where: { id: visitId, deletedAt: null },
@@ -30,6 +31,8 @@ export async function getSheetVisitOrThrow(user: SessionUser, visitId: string, p
     advisorIds: visit.advisorId ? [visit.advisorId] : [],
     ownerId: visit.Farm?.ownerId ?? null,
   });
+  // The farmer reads the sheet once it has been sent to them, not while the office still checks it.
+  if (user.role === 'farmer' && !SHEET_RELEASED.includes(visit.status)) throw notFound('sheet: it has not been sent to you yet');
   return visit;
 }
 

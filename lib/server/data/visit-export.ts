@@ -1,5 +1,8 @@
 import 'server-only';
+import { QueryTypes } from 'sequelize';
+import { getSequelize } from '@/lib/server/db';
 import { csvRow } from '@/lib/shared/csv';
+import { VERDICT_WORDS } from '@/lib/shared/sheet/view-model';
 import type { VisitFilters } from '@/lib/shared/schemas/list-query';
 import { authorize, type SessionUser } from '../auth/permissions';
 import { tooLarge } from '../errors';
@@ -7,7 +10,9 @@ import { todayIso } from '@/lib/shared/visit-rules';
 import { visitSummaries } from './visit-summaries';
 import { visitIdsInOrder } from './visits';
 
-const HEADER = ['Farm', 'Area', 'Farmer', 'Advisor', 'Planned', 'State', 'Overdue', 'Screening', 'Last synced', 'Visit id'];
+// Units in the headers; figures from the latest screening, in litres a day whatever the reader's units.
+const HEADER = ['Farm', 'Area', 'Farmer', 'Advisor', 'Planned (date)', 'State', 'Overdue', 'Verdict', 'Delivery (L/day)', 'Demand (L/day)',
+  'Margin (L/day: delivery minus demand)', 'Last synced (UTC)', 'Visit id'];
 const CHUNK = 500;
 // Larger exports than this should be narrowed with filters first.
 export const EXPORT_LIMIT = 20_000;
@@ -24,8 +29,32 @@ export async function* visitsCsv(user: SessionUser, filters: VisitFilters): Asyn
   if (ids.length > EXPORT_LIMIT) throw tooLarge(`That is ${ids.length} visits; narrow the filters to at most ${EXPORT_LIMIT}.`);
   yield csvRow(HEADER);
   for (let i = 0; i < ids.length; i += CHUNK) {
-    const rows = (await visitSummaries(user, ids.slice(i, i + CHUNK), today)).map((v) => csvRow([v.farm.name, v.farm.area,
-      v.farmer?.name, v.advisor?.name ?? '', v.plannedOn, v.statusLabel, v.overdue ? 'yes' : '', v.verdict ?? '', v.lastSyncedAt, v.id]));
+    const chunk = ids.slice(i, i + CHUNK);
+    const [summaries, figures] = await Promise.all([visitSummaries(user, chunk, today), latestFigures(chunk)]);
+    const rows = summaries.map((v) => {
+      const f = figures.get(v.id);
+      const margin = f?.deliveryLpd != null && f.demandLpd != null ? f.deliveryLpd - f.demandLpd : null;
+      return csvRow([v.farm.name, v.farm.area, v.farmer?.name, v.advisor?.name ?? '', v.plannedOn, v.statusLabel, v.overdue ? 'yes' : 'no',
+        v.verdict ? VERDICT_WORDS[v.verdict] : 'not screened', litres(f?.deliveryLpd), litres(f?.demandLpd), litres(margin),
+        v.lastSyncedAt ? `${v.lastSyncedAt.slice(0, 10)} ${v.lastSyncedAt.slice(11, 16)}` : 'never', v.id]);
+    });
     yield rows.join('');
   }
+}
+
+const litres = (v: number | null | undefined) => (v == null ? '' : Math.round(v));
+
+/** The latest screening's delivery and demand of each visit (index screenings_visit_created). */
+async function latestFigures(visitIds: string[]): Promise<Map<string, { deliveryLpd: number | null; demandLpd: number | null }>> {
+  if (visitIds.length === 0) return new Map();
+  const rows = await getSequelize().query<{ visitId: string; deliveryLpd: number | null; demandLpd: number | null }>(
+    `SELECT s.visit_id AS visitId, s.delivery_lpd AS deliveryLpd, s.demand_lpd AS demandLpd FROM screenings s
+      WHERE s.visit_id IN (?) ORDER BY s.visit_id, s.created_at DESC, s.id DESC`,
+    { replacements: [visitIds], type: QueryTypes.SELECT },
+  );
+  const out = new Map<string, { deliveryLpd: number | null; demandLpd: number | null }>();
+  for (const r of rows) {
+    if (!out.has(r.visitId)) out.set(r.visitId, { deliveryLpd: r.deliveryLpd === null ? null : Number(r.deliveryLpd), demandLpd: r.demandLpd === null ? null : Number(r.demandLpd) });
+  }
+  return out;
 }

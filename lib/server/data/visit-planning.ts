@@ -2,14 +2,17 @@ import 'server-only';
 import { randomUUID } from 'node:crypto';
 import { Op, type Transaction } from 'sequelize';
 import { Farm, User, Visit, getSequelize } from '@/lib/server/db';
-import type { VisitStatus } from '@/lib/shared/domain';
+import { VISIT_STATUS_LABELS, type VisitStatus } from '@/lib/shared/domain';
 import type { visitAssignSchema, visitCreateSchema, bulkAssignSchema } from '@/lib/shared/schemas/office';
 import { mayHoldUnsyncedData, todayIso } from '@/lib/shared/visit-rules';
+import { ACTIVE_STATUSES, canMove, moveRefusal } from '@/lib/shared/visit-states';
+import { formatDay } from '@/lib/shared/format';
 import type { z } from 'zod';
 import { recordAudit } from '../audit';
 import { authorize, type SessionUser } from '../auth/permissions';
 import { AppError, invalid, notFound } from '../errors';
-import { sendAssignmentNotice, type AssignedVisit } from '../mail/notices';
+import { sendAssignmentNotice, sendReassignedAwayNotice, type AssignedVisit } from '../mail/notices';
+import { moveVisit } from './visit-moves';
 
 type Assign = z.output<typeof visitAssignSchema>;
 
@@ -40,12 +43,18 @@ async function notify(advisor: User, visits: AssignedVisit[], by: SessionUser): 
   }
 }
 
-/** Creates a visit for a farm; with an advisor and a date it is booked and the advisor told. */
+/** Creates a visit for a farm (a 409 to confirm when the farm has one under way); with an advisor and a date it is booked; an advisor is told. */
 export async function createVisit(user: SessionUser, input: z.output<typeof visitCreateSchema>) {
   authorize(user, 'visit:plan');
   const { visit, advisor, farm } = await getSequelize().transaction(async (transaction) => {
     const farm = await Farm.findOne({ where: { id: input.farmId, organisationId: user.organisationId, deletedAt: null }, transaction });
     if (!farm) throw invalid('farmId: Choose a farm of your organisation.', { farmId: ['Choose a farm of your organisation.'] });
+    if (!input.confirmDuplicate) {
+      const active = await Visit.findOne({ where: { farmId: farm.id, deletedAt: null, status: [...ACTIVE_STATUSES] }, order: [['createdAt', 'DESC']], transaction });
+      if (active) {
+        throw new AppError(409, 'duplicate', `${farm.name} already has a visit under way (${VISIT_STATUS_LABELS[active.status]}${active.plannedOn ? `, planned ${formatDay(active.plannedOn)}` : ''}). Plan another one anyway?`);
+      }
+    }
     const advisor = input.advisorId ? await advisorOrThrow(user, input.advisorId, transaction) : null;
     const status: VisitStatus = advisor && input.plannedOn ? 'scheduled' : 'requested';
     const visit = await Visit.create({
@@ -83,16 +92,40 @@ async function assignOne(user: SessionUser, visit: Visit & { Farm: Farm }, input
   return before.advisorId !== input.advisorId || before.plannedOn !== input.plannedOn;
 }
 
-/** Assigns or reassigns one visit with a planned date; the advisor gets one e-mail notice. */
+type AwayVisit = AssignedVisit & { newAdvisor: string };
+
+// The advisors who lost visits to a reassignment each get one message listing theirs (after the commit).
+async function notifyPrevious(away: Map<string, AwayVisit[]>, by: SessionUser): Promise<void> {
+  if (away.size === 0) return;
+  const people = await User.findAll({ where: { id: [...away.keys()], active: true }, attributes: ['id', 'name', 'email'] });
+  for (const person of people) {
+    try {
+      await sendReassignedAwayNotice({ email: person.email, name: person.name }, away.get(person.id) ?? [], by.name);
+    } catch (error) {
+      console.error('[fallbook] reassignment notice not sent', error);
+    }
+  }
+}
+
+function noteAway(away: Map<string, AwayVisit[]>, previousAdvisorId: string | null, visit: Visit & { Farm: Farm }, advisor: User) {
+  if (!previousAdvisorId || previousAdvisorId === advisor.id) return;
+  away.set(previousAdvisorId, [...(away.get(previousAdvisorId) ?? []), { farmName: visit.Farm.name, area: visit.Farm.area, plannedOn: visit.plannedOn, newAdvisor: advisor.name }]);
+}
+
+/** Assigns or reassigns one visit with a planned date; the advisor gets one e-mail notice, and a previous advisor is told it left them. */
 export async function assignVisit(user: SessionUser, id: string, input: Assign) {
   authorize(user, 'visit:plan');
+  const away = new Map<string, AwayVisit[]>();
   const { advisor, visit, changed } = await getSequelize().transaction(async (transaction) => {
     const visit = await visitForPlanning(user, id, transaction);
     const advisor = await advisorOrThrow(user, input.advisorId, transaction);
+    const previous = visit.advisorId;
     const changed = await assignOne(user, visit, input, transaction);
+    noteAway(away, previous, visit, advisor);
     return { advisor, visit, changed };
   });
   const noticeSent = changed ? await notify(advisor, [{ farmName: visit.Farm.name, area: visit.Farm.area, plannedOn: visit.plannedOn }], user) : false;
+  await notifyPrevious(away, user);
   return { id: visit.id, status: visit.status, advisorId: visit.advisorId, plannedOn: visit.plannedOn, rev: Number(visit.rev), noticeSent };
 }
 
@@ -100,6 +133,7 @@ export async function assignVisit(user: SessionUser, id: string, input: Assign) 
 export async function bulkAssign(user: SessionUser, input: z.output<typeof bulkAssignSchema>) {
   authorize(user, 'visit:plan');
   const ids = [...new Set(input.visitIds)];
+  const away = new Map<string, AwayVisit[]>();
   const { advisor, assigned } = await getSequelize().transaction(async (transaction) => {
     const advisor = await advisorOrThrow(user, input.advisorId, transaction);
     const visits = await Visit.findAll({
@@ -109,25 +143,37 @@ export async function bulkAssign(user: SessionUser, input: z.output<typeof bulkA
     if (visits.length !== ids.length) throw notFound('visit (one of those ticked is gone or not yours)');
     const assigned: AssignedVisit[] = [];
     for (const visit of visits) {
+      const previous = visit.advisorId;
       if (await assignOne(user, visit, input, transaction)) assigned.push({ farmName: visit.Farm.name, area: visit.Farm.area, plannedOn: visit.plannedOn });
+      noteAway(away, previous, visit, advisor);
     }
     return { advisor, assigned };
   });
   const noticeSent = assigned.length ? await notify(advisor, assigned, user) : false;
+  await notifyPrevious(away, user);
   return { assigned: assigned.length, noticeSent };
 }
 
-/** Moves a visit to another state of its life (the follow-up), with an audit line. */
+/** Moves a visit by hand to a state the table allows the office from where it is (audited); anything else is a 409. */
 export async function setVisitStatus(user: SessionUser, id: string, status: VisitStatus) {
   return getSequelize().transaction(async (transaction) => {
     const visit = await visitForPlanning(user, id, transaction);
-    const before = visit.status;
-    if (before === status) return { id: visit.id, status };
-    await visit.update({ status }, { transaction });
-    await recordAudit({
-      organisationId: user.organisationId, actorId: user.id, entity: 'visit', entityId: visit.id, visitId: visit.id,
-      action: 'status', changes: { before: { status: before }, after: { status } },
-    }, transaction);
-    return { id: visit.id, status };
+    if (visit.status !== status && !canMove(visit.status, status, 'office')) {
+      throw new AppError(409, 'transition', `${moveRefusal(visit.status, status)} To move it anyway, use “Move outside the usual order” and give your reason.`);
+    }
+    await moveVisit(visit, status, { by: 'office', actorId: user.id }, transaction);
+    return { id: visit.id, status: visit.status };
+  });
+}
+
+/** A coordinator's move outside the table, with their stated reason in the audit line. */
+export async function jumpVisitStatus(user: SessionUser, id: string, status: VisitStatus, reason: string) {
+  authorize(user, 'visit:jump');
+  return getSequelize().transaction(async (transaction) => {
+    const visit = await visitForPlanning(user, id, transaction);
+    authorize(user, 'visit:jump', { organisationId: visit.organisationId });
+    const allowed = canMove(visit.status, status, 'office');
+    await moveVisit(visit, status, { by: 'office', actorId: user.id, jumpReason: allowed ? undefined : reason, cause: allowed ? reason : undefined }, transaction);
+    return { id: visit.id, status: visit.status };
   });
 }

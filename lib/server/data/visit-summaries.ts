@@ -3,6 +3,7 @@ import { QueryTypes } from 'sequelize';
 import { getSequelize } from '@/lib/server/db';
 import { VISIT_STATUS_LABELS, type Verdict, type VisitStatus } from '@/lib/shared/domain';
 import { isOverdue, todayIso } from '@/lib/shared/visit-rules';
+import { SHEET_RELEASED } from '@/lib/shared/visit-states';
 import type { SessionUser } from '../auth/permissions';
 
 /** A row of the office's visits table (and of its CSV export). */
@@ -88,6 +89,8 @@ export async function visitSummaries(user: SessionUser, ids: string[], today = t
   const byId = new Map(rows.map((r) => [r.id, r]));
   return ids.flatMap((id) => {
     const row = byId.get(id);
-    return row ? [toSummary(row, today)] : [];
+    if (!row) return [];
+    // A farmer learns the verdict from the sheet once it is sent, not before.
+    return [toSummary(farmerOnly && !SHEET_RELEASED.includes(row.status) ? { ...row, verdict: null } : row, today)];
   });
 }

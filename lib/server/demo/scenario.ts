@@ -61,7 +61,7 @@ export const DEMO_FARMS: {
 export const DEMO_VISITS: {
   key: string; farm: string; advisor: string | null; plannedInDays: number | null; status: VisitStatus; notes: string;
 }[] = [
-  { key: 'visit:brandt-hollow', farm: 'farm:brandt-hollow', advisor: 'user:tobias', plannedInDays: -12, status: 'screened', notes: 'Spring-fed side-creek above the river meadow.' },
+  { key: 'visit:brandt-hollow', farm: 'farm:brandt-hollow', advisor: 'user:tobias', plannedInDays: -12, status: 'sent', notes: 'Spring-fed side-creek above the river meadow.' },
   { key: 'visit:pryce-upper', farm: 'farm:pryce-upper', advisor: 'user:tobias', plannedInDays: -3, status: 'screened', notes: 'Steep tank run to the ridge.' },
   { key: 'visit:hafod-lower', farm: 'farm:hafod-lower', advisor: 'user:tobias', plannedInDays: -6, status: 'screened', notes: 'Trough below the spring: maybe no pump at all.' },
   { key: 'visit:otieno-croft', farm: 'farm:otieno-croft', advisor: 'user:ines', plannedInDays: 6, status: 'scheduled', notes: '' },

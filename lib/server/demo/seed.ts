@@ -58,8 +58,8 @@ export async function seedDemo(): Promise<'created' | 'present'> {
           advisorId: visit.advisor ? demoId(visit.advisor) : null,
           plannedOn: visit.plannedInDays === null ? null : dayOffset(visit.plannedInDays),
           status: visit.status, notes: visit.notes, createdById: coordinatorId,
-          visitedAt: ['surveyed', 'screened'].includes(visit.status) ? new Date(`${dayOffset(visit.plannedInDays ?? 0)}T10:00:00Z`) : null,
-          lastSyncedAt: ['surveyed', 'screened'].includes(visit.status) ? new Date() : null },
+          visitedAt: ['surveyed', 'screened', 'sent'].includes(visit.status) ? new Date(`${dayOffset(visit.plannedInDays ?? 0)}T10:00:00Z`) : null,
+          lastSyncedAt: ['surveyed', 'screened', 'sent'].includes(visit.status) ? new Date() : null },
         { transaction },
       );
     }

@@ -12,7 +12,7 @@ export interface AssignedVisit { farmName: string; area: string; plannedOn: stri
 
 /** Tells an advisor which visits are now theirs; one message however many visits. */
 export async function sendAssignmentNotice(to: { email: string; name: string }, visits: AssignedVisit[], by: string) {
-  const lines = visits.map((v) => `- ${v.farmName} (${v.area || 'no area given'}), planned ${formatDay(v.plannedOn)}`);
+  const lines = visits.map((v) => `- ${v.farmName} (${v.area || 'no area given'}), ${v.plannedOn ? `planned ${formatDay(v.plannedOn)}` : 'no date yet: it will be agreed with you'}`);
   const subject = visits.length === 1
     ? `Site visit for you: ${visits[0]?.farmName ?? ''}`
     : `${visits.length} site visits for you`;
@@ -25,8 +25,27 @@ export async function sendAssignmentNotice(to: { email: string; name: string }, 
       `${by} has assigned ${visits.length === 1 ? 'a site visit' : 'these site visits'} to you:`,
       ...lines,
       '',
-      'They appear on your phone at its next sync (open Fallbook with a signal, or tap "Sync now").',
+      // True for every assigned visit, dated or not: the pull sends an advisor all visits assigned to them.
+      `${visits.length === 1 ? 'It comes' : 'They come'} onto your phone at its next sync (open Fallbook with a signal, or tap "Sync now").`,
       `Your visits: ${appLink('/field')}`,
+    ].join('\n'),
+  });
+}
+
+/** Tells the advisor a visit was theirs that it now goes to someone else; their phone drops it at its next sync. */
+export async function sendReassignedAwayNotice(to: { email: string; name: string }, visits: (AssignedVisit & { newAdvisor: string })[], by: string) {
+  const lines = visits.map((v) => `- ${v.farmName} (${v.area || 'no area given'}): now with ${v.newAdvisor}${v.plannedOn ? `, planned ${formatDay(v.plannedOn)}` : ''}`);
+  await sendMail({
+    to: to.email,
+    subject: visits.length === 1 ? `Site visit moved to another advisor: ${visits[0]?.farmName ?? ''}` : `${visits.length} site visits moved to other advisors`,
+    text: [
+      `Hello ${to.name},`,
+      '',
+      `${by} has given ${visits.length === 1 ? 'this site visit' : 'these site visits'} to another advisor:`,
+      ...lines,
+      '',
+      `${visits.length === 1 ? 'It leaves' : 'They leave'} your phone at its next sync, and the server no longer takes changes to ${visits.length === 1 ? 'it' : 'them'} from you.`,
+      'If your phone holds readings that have not been sent yet, tell your coordinator before you sync.',
     ].join('\n'),
   });
 }

@@ -2,9 +2,11 @@ import 'server-only';
 import { SheetSend, Visit, getSequelize } from '@/lib/server/db';
 import type { PaperSize, SendSheetBody } from '@/lib/shared/schemas/sheet';
 import { buildSheetView } from '@/lib/shared/sheet/view-model';
+import { canMove } from '@/lib/shared/visit-states';
 import type { SessionUser } from '../auth/permissions';
 import { recordAudit } from '../audit';
 import { loadSheet } from '../data/sheets';
+import { moveVisit } from '../data/visit-moves';
 import { appEnv } from '../env';
 import { invalid } from '../errors';
 import { sendMail } from '../mail/transport';
@@ -65,7 +67,7 @@ export async function sendSheet(user: SessionUser, visitId: string, body: SendSh
   await getSequelize().transaction(async (transaction) => {
     if (row.status === 'sent') {
       const visit = await Visit.findByPk(visitId, { transaction, rejectOnEmpty: true });
-      if (visit.status === 'surveyed' || visit.status === 'screened') await visit.update({ status: 'sent' }, { transaction });
+      if (canMove(visit.status, 'sent', 'app')) await moveVisit(visit, 'sent', { by: 'app', actorId: user.id, cause: 'sheet sent' }, transaction);
     }
     await recordAudit({ organisationId: ctx.visit.organisationId, actorId: user.id, entity: 'sheet_send', entityId: row.id, visitId,
       action: row.status === 'sent' ? 'sheet_sent' : 'sheet_send_failed', changes: { to, paper, error: row.error } }, transaction);

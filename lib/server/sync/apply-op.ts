@@ -1,7 +1,8 @@
 import 'server-only';
 import { buildRow } from '@/lib/server/db';
-import { VISIT_STATUSES } from '@/lib/shared/domain';
+import { VISIT_STATUSES, type VisitStatus } from '@/lib/shared/domain';
 import { entityFields, type OpResult, type SyncOp } from '@/lib/shared/schemas/sync';
+import { canMove, moveRefusal } from '@/lib/shared/visit-states';
 import type { AuditInput } from '../audit';
 import { AppError, zodFieldErrors } from '../errors';
 import type { SyncAccess } from './access';
@@ -138,14 +139,23 @@ export async function planOp(op: SyncOp, access: SyncAccess, rows: Map<string, R
 
   if (row.deletedAt) return conflict(['deletedAt']);
   const changes = (op.changes ?? {}) as Json;
-  // A visit's status only moves forward (the office may have moved it on): never a conflict.
+  // A visit's status is never a conflict: the table below decides what a phone's state change does.
   const skip = op.entity === 'visit' ? ['status'] : [];
   if (stale) {
     const fields = conflictingFields(server, changes, op.base as Json | undefined, skip);
     if (fields.length > 0) return conflict(fields);
   }
   const merged = { ...server, ...changes };
-  if (op.entity === 'visit' && statusRank(server.status) > statusRank(changes.status)) merged.status = server.status;
+  if (op.entity === 'visit' && changes.status !== undefined && changes.status !== server.status) {
+    const from = server.status as VisitStatus;
+    const to = changes.status as VisitStatus;
+    // A phone behind the office (it moved the visit on meanwhile) keeps the server's state; a move
+    // forward must be one the table allows a phone.
+    if (statusRank(from) > statusRank(to)) merged.status = from;
+    else if (!canMove(from, to, 'phone')) {
+      return done(rejected(op, 409, moveRefusal(from, to), { 'changes.status': ['Not a move the phone can make.'] }));
+    }
+  }
   if (op.entity === 'photo' && row.get('uploadedAt') && (['sha256', 'bytes'] as const).some((f) => !sameValue(server[f], merged[f]))) {
     return done(rejected(op, 422, 'This photo is already uploaded; its bytes cannot change. Add it as a new photo.',
       { 'changes.sha256': ['Cannot change after upload.'] }));

@@ -1,35 +1,62 @@
+import { DEMAND_CATALOGUE } from '@/lib/engine/demand';
 import { z } from '@/lib/shared/zod';
 import { ROLES, UNIT_SYSTEMS, VISIT_STATUSES } from '../domain';
+import { JUMP_REASON_MIN } from '../visit-states';
+import { isPastDay, PAST_DAY_UNCONFIRMED, plannedDayProblem } from '../visit-rules';
 
 // Bodies of the coordinator's office routes; the forms use the same schemas (zodResolver).
 
 const isoDay = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Pick a date.');
-const optionalDay = z.preprocess((v) => (v === '' ? null : v), isoDay.nullable().optional());
+// A planned date: a real day from 2000 to two years ahead (a past one needs confirmPast, below).
+const plannedDay = isoDay.superRefine((day, ctx) => {
+  const problem = plannedDayProblem(day);
+  if (problem) ctx.addIssue({ code: 'custom', message: problem });
+});
+const optionalPlannedDay = z.preprocess((v) => (v === '' ? null : v), plannedDay.nullable().optional());
 const uuid = (what: string) => z.string().uuid(`Choose ${what}.`);
+
+/** A planned date before today is kept only when the person ticked that it is in the past. */
+function pastDayConfirmed(v: { plannedOn?: string | null; confirmPast: boolean }, ctx: z.RefinementCtx) {
+  if (isPastDay(v.plannedOn) && !v.confirmPast) ctx.addIssue({ code: 'custom', path: ['plannedOn'], message: PAST_DAY_UNCONFIRMED });
+}
 
 export const visitCreateSchema = z.object({
   farmId: uuid('a farm'),
   advisorId: z.preprocess((v) => (v === '' ? null : v), uuid('an advisor').nullable().optional()),
-  plannedOn: optionalDay,
+  plannedOn: optionalPlannedDay,
+  confirmPast: z.boolean().default(false),
+  // Set after the person has read the warning that the farm already has a visit under way.
+  confirmDuplicate: z.boolean().default(false),
   notes: z.string().trim().max(2000, 'Notes are at most 2,000 characters.').default(''),
-});
+}).superRefine(pastDayConfirmed);
 export type VisitCreateInput = z.input<typeof visitCreateSchema>;
 
-export const visitAssignSchema = z.object({
+const assignFields = {
   advisorId: uuid('an advisor'),
-  plannedOn: isoDay,
+  plannedOn: plannedDay,
+  confirmPast: z.boolean().default(false),
   // Set after the person has read the warning that the current advisor may hold unsynced data.
   confirmUnsynced: z.boolean().default(false),
-});
+};
+
+export const visitAssignSchema = z.object(assignFields).superRefine(pastDayConfirmed);
 export type VisitAssignInput = z.input<typeof visitAssignSchema>;
 
 export const visitStatusSchema = z.object({
   status: z.enum(VISIT_STATUSES, { message: 'Choose a state.' }),
 });
 
-export const bulkAssignSchema = visitAssignSchema.extend({
-  visitIds: z.array(z.string().uuid('A visit id is not valid.')).min(1, 'Tick at least one visit.').max(200, 'At most 200 visits at once.'),
+// A move outside the table of visit states: only with the coordinator's reason, which is audited.
+export const visitJumpSchema = z.object({
+  status: z.enum(VISIT_STATUSES, { message: 'Choose a state.' }),
+  reason: z.string({ message: 'Say in a few words why the visit moves outside the usual order.' }).trim()
+    .min(JUMP_REASON_MIN, 'Say in a few words why the visit moves outside the usual order.').max(500, 'At most 500 characters.'),
 });
+
+export const bulkAssignSchema = z.object({
+  ...assignFields,
+  visitIds: z.array(z.string().uuid('A visit id is not valid.')).min(1, 'Tick at least one visit.').max(200, 'At most 200 visits at once.'),
+}).superRefine(pastDayConfirmed);
 export type BulkAssignInput = z.input<typeof bulkAssignSchema>;
 
 const coordinate = (min: number, max: number, what: string) =>
@@ -71,6 +98,19 @@ const positive = (what: string) =>
     z.number({ message: `${what} must be a number.` }).positive(`${what} must be more than 0.`),
   );
 
+/** Flags every own key of the raw record that is not a kind of the demand catalogue. */
+function onlyCatalogueKinds(v: unknown, ctx: z.RefinementCtx): void {
+  if (!v || typeof v !== 'object' || Array.isArray(v)) return;
+  for (const key of Object.keys(v)) {
+    if (!Object.hasOwn(DEMAND_CATALOGUE, key)) ctx.addIssue({ code: 'custom', path: [key], message: 'Not a demand kind the screen knows.' });
+  }
+}
+
+/** The record without entries left blank (empty or spaces only, null, undefined). */
+function withoutBlanks(v: Record<string, unknown>): Record<string, unknown> {
+  return Object.fromEntries(Object.entries(v).filter(([, x]) => x !== null && x !== undefined && !(typeof x === 'string' && x.trim() === '')));
+}
+
 export const settingsSchema = z.object({
   unitsDefault: z.enum(UNIT_SYSTEMS, { message: 'Choose metric or US customary.' }),
   // The share of the lowest measured flow a design may take (the rest stays in the stream).
@@ -78,7 +118,12 @@ export const settingsSchema = z.object({
     (v) => (typeof v === 'string' ? Number(v.trim().replace(',', '.')) : v),
     z.number({ message: 'Enter a fraction like 0.5.' }).min(0.1, 'At least 0.1 of the lowest flow.').max(0.9, 'At most 0.9: leave water in the stream.'),
   ),
-  demandFigures: z.record(z.string().min(1), positive('A per-head figure')),
+  // Only kinds the catalogue itself holds (own keys: not "constructor" or "__proto__", which the
+  // record would drop unseen); a blank box means "use the catalogue figure" and is dropped.
+  demandFigures: z.custom<Record<string, string | number | null | undefined>>((v) => !!v && typeof v === 'object' && !Array.isArray(v), 'Give the per-head figures by kind.')
+    .superRefine(onlyCatalogueKinds)
+    .transform(withoutBlanks)
+    .pipe(z.record(z.string().min(1), positive('A per-head figure'))),
   pipePrices: z.array(z.object({
     material: z.string().trim().min(1, 'Name the pipe material.').max(40),
     diameterMm: positive('Diameter'),

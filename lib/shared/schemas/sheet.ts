@@ -1,6 +1,6 @@
 import { z } from '@/lib/shared/zod';
 import { DEMAND_CATALOGUE, type DemandKind } from '@/lib/engine/demand';
-import { QUESTION_MAX, QUESTION_MIN, QUESTION_TOO_LONG, QUESTION_TOO_SHORT } from '../sheet/question-rules';
+import { ANSWER_TOO_LONG, ANSWER_TOO_SHORT, QUESTION_MAX, QUESTION_MIN, QUESTION_TOO_LONG, QUESTION_TOO_SHORT, REASON_MAX, REASON_NEEDED, REASON_TOO_LONG } from '../sheet/question-rules';
 import { parseFieldNumber } from '../units';
 
 // Bodies and queries of the sheet routes, shared by the forms and the handlers.
@@ -20,6 +20,17 @@ export type SendSheetBody = z.infer<typeof sendSheetBody>;
 export const questionBody = z.object({
   text: z.string().trim().min(QUESTION_MIN, QUESTION_TOO_SHORT).max(QUESTION_MAX, QUESTION_TOO_LONG),
 });
+
+export const answerBody = z.object({
+  questionId: z.string().uuid('Choose a question on this sheet.'),
+  text: z.string().trim().min(QUESTION_MIN, ANSWER_TOO_SHORT).max(QUESTION_MAX, ANSWER_TOO_LONG),
+});
+
+// The farmer's decision: "go ahead" (a note is optional) or "not now" with a reason.
+export const decisionBody = z.object({
+  decision: z.enum(['go-ahead', 'not-now'], { message: 'Choose go ahead or not now.' }),
+  reason: z.string().trim().max(REASON_MAX, REASON_TOO_LONG).default(''),
+}).refine((b) => b.decision === 'go-ahead' || b.reason.length >= QUESTION_MIN, { message: REASON_NEEDED, path: ['reason'] });
 
 /** Animal kinds a farmer can pick (people and garden have their own fields). */
 export const ANIMAL_KINDS = (Object.keys(DEMAND_CATALOGUE) as DemandKind[]).filter((k) => !k.startsWith('person') && k !== 'garden-m2');

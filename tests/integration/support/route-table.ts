@@ -7,6 +7,9 @@ import type { Permission } from '@/lib/server/auth/permissions';
 import { request, sessionCookie, type TestUser } from './fixtures';
 import { putOp } from './sync';
 
+/** A planned date `n` days from today (planned dates must lie within two years, past ones confirmed). */
+export const inDays = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
+
 export type HttpMethod = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 type Handler = (req: NextRequest, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
 
@@ -158,12 +161,12 @@ export const ROUTES: RouteEntry[] = [
   {
     file: 'app/api/visits/route.ts', method: 'POST', load: () => import('@/app/api/visits/route'), permissions: ['visit:plan'], target: 'farm', ok: 201,
     refusedInBody: { status: 422, message: /farm of your organisation/ },
-    build: async (u, r) => request('/api/visits', u, json('POST', { farmId: need(r).farmId, advisorId: null, plannedOn: '2026-12-01', notes: '' })),
+    build: async (u, r) => request('/api/visits', u, json('POST', { farmId: need(r).farmId, advisorId: null, plannedOn: inDays(30), confirmDuplicate: true, notes: '' })),
   },
   {
     file: 'app/api/visits/assignments/route.ts', method: 'POST', load: () => import('@/app/api/visits/assignments/route'), permissions: ['visit:plan'], target: 'visit', ok: 200,
     refusedInBody: { status: 422, message: /advisor of your organisation/ },
-    build: async (u, r) => request('/api/visits/assignments', u, json('POST', { visitIds: [need(r).visitId], advisorId: need(r).advisorId, plannedOn: '2026-12-02', confirmUnsynced: true })),
+    build: async (u, r) => request('/api/visits/assignments', u, json('POST', { visitIds: [need(r).visitId], advisorId: need(r).advisorId, plannedOn: inDays(31), confirmUnsynced: true })),
   },
   {
     file: 'app/api/visits/export.csv/route.ts', method: 'GET', load: () => import('@/app/api/visits/export.csv/route'), permissions: ['visit:export'], target: 'none', ok: 200,
@@ -175,11 +178,11 @@ export const ROUTES: RouteEntry[] = [
   },
   {
     file: 'app/api/visits/[id]/route.ts', method: 'PATCH', load: () => import('@/app/api/visits/[id]/route'), permissions: ['visit:plan'], target: 'visit', ok: 200,
-    build: async (u, r) => request(`/api/visits/${need(r).visitId}`, u, json('PATCH', { status: 'installed' })),
+    build: async (u, r) => request(`/api/visits/${need(r).visitId}`, u, json('PATCH', { status: 'cancelled' })),
   },
   {
     file: 'app/api/visits/[id]/assignment/route.ts', method: 'PUT', load: () => import('@/app/api/visits/[id]/assignment/route'), permissions: ['visit:plan'], target: 'visit', ok: 200,
-    build: async (u, r) => request(`/api/visits/${need(r).visitId}/assignment`, u, json('PUT', { advisorId: need(r).advisorId, plannedOn: '2026-12-03', confirmUnsynced: true })),
+    build: async (u, r) => request(`/api/visits/${need(r).visitId}/assignment`, u, json('PUT', { advisorId: need(r).advisorId, plannedOn: inDays(32), confirmUnsynced: true })),
   },
   {
     file: 'app/api/visits/[id]/audit/route.ts', method: 'GET', load: () => import('@/app/api/visits/[id]/audit/route'), permissions: ['visit:audit'], target: 'visit', ok: 200,
@@ -213,7 +216,33 @@ export const ROUTES: RouteEntry[] = [
     file: 'app/api/visits/[id]/sheet/questions/route.ts', method: 'POST', load: () => import('@/app/api/visits/[id]/sheet/questions/route'), permissions: ['sheet:acknowledge'], target: 'visit', ok: 201,
     build: async (u, r) => request(`/api/visits/${need(r).visitId}/sheet/questions`, u, json('POST', { text: 'How deep is the intake?' })),
   },
+  {
+    file: 'app/api/visits/[id]/sheet/decision/route.ts', method: 'POST', load: () => import('@/app/api/visits/[id]/sheet/decision/route'), permissions: ['sheet:decide'], target: 'visit', ok: 201,
+    build: async (u, r) => request(`/api/visits/${need(r).visitId}/sheet/decision`, u, json('POST', { decision: 'go-ahead', reason: '' })),
+  },
+  {
+    file: 'app/api/visits/[id]/sheet/answers/route.ts', method: 'POST', load: () => import('@/app/api/visits/[id]/sheet/answers/route'), permissions: ['sheet:answer'], target: 'visit', ok: 201,
+    build: async (u, r) => {
+      const question = await askedQuestion(need(r));
+      return request(`/api/visits/${need(r).visitId}/sheet/answers`, u, json('POST', { questionId: question, text: 'About a metre below the pool.' }));
+    },
+  },
+  {
+    file: 'app/api/visits/[id]/jump/route.ts', method: 'POST', load: () => import('@/app/api/visits/[id]/jump/route'), permissions: ['visit:jump', 'visit:plan'], target: 'visit', ok: 200,
+    build: async (u, r) => request(`/api/visits/${need(r).visitId}/jump`, u, json('POST', { status: 'installed', reason: 'Installed on paper last spring.' })),
+  },
+  {
+    file: 'app/api/questions/route.ts', method: 'GET', load: () => import('@/app/api/questions/route'), permissions: ['sheet:answer'], target: 'none', ok: 200,
+    build: async (u) => request('/api/questions', u),
+  },
 ];
+
+/** The farmer's question the world put on the resource's visit (the answers route needs one to answer). */
+async function askedQuestion(r: Resource): Promise<string> {
+  const { SheetResponse } = await import('@/lib/server/db');
+  const question = await SheetResponse.findOne({ where: { visitId: r.visitId, kind: 'question' }, attributes: ['id'] });
+  return question?.id ?? randomUUID();
+}
 
 /** The `[id]`-style params of a route, taken from the request path against the file's folders. */
 export function routeParams(file: string, url: URL): Record<string, string> {

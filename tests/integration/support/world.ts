@@ -4,6 +4,7 @@ import { randomUUID } from 'node:crypto';
 import sharp from 'sharp';
 import { NextRequest } from 'next/server';
 import { PUT as putPhoto } from '@/app/api/photos/[id]/route';
+import { Screening, SheetResponse, Visit, getSequelize } from '@/lib/server/db';
 import type { Role } from '@/lib/shared/domain';
 import { makeOrganisation, params, sessionCookie, type TestUser } from './fixtures';
 import type { Resource, Target } from './route-table';
@@ -54,6 +55,19 @@ export async function makeWorld(target: Target, label: string): Promise<World> {
     for (const o of [org, otherOrg]) {
       await screenFixtureVisit(o.visit.id, o.farm.id, o.advisor.id);
       await screenFixtureVisit(o.otherVisit.id, o.otherFarm.id, o.otherAdvisor.id);
+    }
+    // Sent, so the farmer may read the sheet (a farmer never sees one the office has not sent).
+    await getSequelize().transaction(async (transaction) => {
+      for (const v of await Visit.findAll({ where: { id: [org.visit.id, org.otherVisit.id, otherOrg.visit.id, otherOrg.otherVisit.id] }, transaction })) {
+        await v.update({ status: 'sent' }, { transaction });
+      }
+    });
+    // A farmer's question on each, for the answers route to answer.
+    for (const o of [org, otherOrg]) {
+      for (const [visit, owner] of [[o.visit, o.farmer], [o.otherVisit, o.otherFarmer]] as const) {
+        const screening = await Screening.findOne({ where: { visitId: visit.id }, attributes: ['id'], rejectOnEmpty: true });
+        await SheetResponse.create({ id: randomUUID(), visitId: visit.id, screeningId: screening.id, authorId: owner.id, kind: 'question', text: 'How deep is the intake?', replyToId: null });
+      }
     }
   }
   if (target === 'photo') {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatClock, formatDay } from '@/lib/shared/format';
+import { formatClock, formatDateTime, formatDay } from '@/lib/shared/format';
 
 // formatDay is written out by hand (no Intl formatter on the phone's hot path): it must say what the
 // en-GB formatter says, for every weekday and month.
@@ -31,5 +31,14 @@ describe('formatClock', () => {
     expect(formatClock(at(0, 7), 'us')).toBe('12:07 AM');
     expect(formatClock(at(12, 0), 'us')).toBe('12:00 PM');
     expect(formatClock(at(23, 59), 'us')).toBe('11:59 PM');
+  });
+});
+
+describe('formatDateTime', () => {
+  it('says the day with its year, the time and the zone (UTC), from a Date or an ISO string', () => {
+    expect(formatDateTime(new Date('2026-12-04T19:05:42Z'))).toBe('Fri, 4 Dec 2026, 19:05 UTC');
+    expect(formatDateTime('2027-01-01T00:00:00.000Z')).toBe('Fri, 1 Jan 2027, 00:00 UTC');
+    expect(formatDateTime(null)).toBe('—');
+    expect(formatDateTime('not a time')).toBe('—');
   });
 });

@@ -2,6 +2,7 @@
 
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
+import { PastDayConfirm } from '@/components/past-day-confirm';
 import { ApiError, apiJson } from '@/lib/client/api';
 import type { Option } from './visit-filters';
 
@@ -12,11 +13,12 @@ export function BulkAssign({ visitIds, advisors, onDone }: { visitIds: string[];
   const queryClient = useQueryClient();
   const [advisorId, setAdvisorId] = useState('');
   const [plannedOn, setPlannedOn] = useState('');
+  const [confirmPast, setConfirmPast] = useState(false);
   const [warning, setWarning] = useState<string | null>(null);
   const [message, setMessage] = useState<string | null>(null);
   const mutation = useMutation({
     mutationFn: (confirmUnsynced: boolean) =>
-      apiJson<{ assigned: number; noticeSent: boolean }>('/api/visits/assignments', { method: 'POST', body: { visitIds, advisorId, plannedOn, confirmUnsynced } }),
+      apiJson<{ assigned: number; noticeSent: boolean }>('/api/visits/assignments', { method: 'POST', body: { visitIds, advisorId, plannedOn, confirmPast, confirmUnsynced } }),
     onSuccess: (result) => {
       setWarning(null);
       setMessage(`${result.assigned} ${result.assigned === 1 ? 'visit' : 'visits'} assigned.${result.noticeSent ? ' The advisor has been e-mailed.' : ''}`);
@@ -46,6 +48,7 @@ export function BulkAssign({ visitIds, advisors, onDone }: { visitIds: string[];
         <label className="block font-bold">Planned date
           <input type="date" className={field} value={plannedOn} onChange={(e) => setPlannedOn(e.target.value)} aria-invalid={!!error?.fieldErrors.plannedOn} />
           {error?.fieldErrors.plannedOn && <span className="block text-clay">{error.fieldErrors.plannedOn[0]}</span>}
+          <PastDayConfirm day={plannedOn} checked={confirmPast} onChange={setConfirmPast} />
         </label>
         <div className="flex items-end">
           <button type="button" disabled={mutation.isPending} onClick={() => mutation.mutate(false)}

@@ -1,3 +1,4 @@
+import Link from 'next/link';
 import { VISIT_STATUS_LABELS, VISIT_STATUSES, type VisitStatus } from '@/lib/shared/domain';
 
 export interface AdvisorLoadView {
@@ -8,24 +9,30 @@ export interface AdvisorLoadView {
 
 const LIVE = VISIT_STATUSES.filter((s) => s !== 'cancelled');
 
-/** Where every farm stands: counts by state for the district and for each advisor, overdue in words. */
+/** The visits table below, filtered to what a count counts (the filters live in the URL). */
+const tableLink = (filters: Record<string, string>) => `/office?${new URLSearchParams(filters).toString()}#visits`;
+
+/** Where every visit stands: counts by state for the district and for each advisor, overdue in words; each count opens the table filtered to it. */
 export function FollowUpBoard({ byStatus, overdue, loads }: { byStatus: Partial<Record<VisitStatus, number>>; overdue: number; loads: AdvisorLoadView[] }) {
   return (
     <section aria-labelledby="board" className="space-y-4">
-      <h2 id="board" className="text-xl font-bold">Where every farm stands</h2>
+      <h2 id="board" className="text-xl font-bold">Where every visit stands</h2>
       <ol className="grid grid-cols-2 gap-2 sm:grid-cols-4">
         {LIVE.map((status, i) => (
-          <li key={status} className="rounded-md border border-rule bg-white p-3">
-            <span className="figure block text-sm text-stone">{i + 1}.</span>
-            <span className="figure block text-2xl font-semibold">{byStatus[status] ?? 0}</span>
-            <span className="block">{VISIT_STATUS_LABELS[status]}</span>
+          <li key={status}>
+            <Link href={tableLink({ status })} className="block h-full rounded-md border border-rule bg-white p-3 text-ink no-underline hover:border-slate"
+              aria-label={`${byStatus[status] ?? 0} visits: ${VISIT_STATUS_LABELS[status]}`}>
+              <span className="figure block text-sm text-stone">{i + 1}.</span>
+              <span className="figure block text-2xl font-semibold">{byStatus[status] ?? 0}</span>
+              <span className="block">{VISIT_STATUS_LABELS[status]}</span>
+            </Link>
           </li>
         ))}
       </ol>
       {overdue > 0 && (
-        <p className="inline-block rounded-md border-2 border-clay bg-white px-3 py-2 font-bold text-clay">
+        <Link href={tableLink({ overdue: '1' })} className="inline-block rounded-md border-2 border-clay bg-white px-3 py-2 font-bold text-clay">
           ⚠ {overdue} {overdue === 1 ? 'visit is' : 'visits are'} overdue (planned day passed, site not yet walked)
-        </p>
+        </Link>
       )}
       <div className="overflow-x-auto">
         <table className="w-full border-collapse text-left" aria-label="Visits by advisor">
@@ -43,8 +50,14 @@ export function FollowUpBoard({ byStatus, overdue, loads }: { byStatus: Partial<
                   {l.advisor ? l.advisor.name : <em>Not assigned</em>}
                   {l.advisor && !l.advisor.active && <span className="block text-sm text-stone">account switched off</span>}
                 </th>
-                {LIVE.map((s) => <td key={s} className="figure py-2 pr-3">{l.byStatus[s] ?? 0}</td>)}
-                <td className={`figure py-2 ${l.overdue ? 'font-bold text-clay' : ''}`}>{l.overdue ? `⚠ ${l.overdue}` : 0}</td>
+                {LIVE.map((s) => (
+                  <td key={s} className="figure py-2 pr-3">
+                    {l.byStatus[s] ? <Link href={tableLink({ status: s, advisor: l.advisor?.id ?? 'none' })}>{l.byStatus[s]}</Link> : 0}
+                  </td>
+                ))}
+                <td className={`figure py-2 ${l.overdue ? 'font-bold text-clay' : ''}`}>
+                  {l.overdue ? <Link href={tableLink({ overdue: '1', advisor: l.advisor?.id ?? 'none' })} className="text-clay">⚠ {l.overdue}</Link> : 0}
+                </td>
               </tr>
             ))}
           </tbody>

@@ -4,7 +4,7 @@ import Link from 'next/link';
 import { StatusChip } from '@/components/status-chip';
 import { VerdictMark } from '@/components/verdict-mark';
 import type { VisitStatus, Verdict } from '@/lib/shared/domain';
-import { formatDay } from '@/lib/shared/format';
+import { formatDateTime, formatDay } from '@/lib/shared/format';
 
 export interface VisitItem {
   id: string;
@@ -17,8 +17,6 @@ export interface VisitItem {
   advisor: { id: string; name: string } | null;
   verdict: Verdict | null;
 }
-
-const syncedFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
 
 const COLUMNS = [
   { key: 'farm', label: 'Farm' },
@@ -78,7 +76,7 @@ export function VisitRows({ items, sort, dir, onSort, selected, onToggle, onTogg
               </td>
               <td className="py-3 pr-3"><StatusChip status={v.status} /></td>
               <td className="py-3 pr-3">{v.verdict ? <VerdictMark verdict={v.verdict} size={16} /> : <span className="text-stone">Not screened</span>}</td>
-              <td className="figure py-3">{v.lastSyncedAt ? syncedFormat.format(new Date(v.lastSyncedAt)) : <span className="text-stone">Never</span>}</td>
+              <td className="figure py-3">{v.lastSyncedAt ? formatDateTime(v.lastSyncedAt) : <span className="text-stone">Never</span>}</td>
             </tr>
           ))}
         </tbody>

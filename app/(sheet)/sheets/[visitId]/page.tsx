@@ -7,6 +7,7 @@ import { loadSheet } from '@/lib/server/data/sheets';
 import { AppError } from '@/lib/server/errors';
 import { idParam } from '@/lib/shared/schemas/list-query';
 import { buildSheetView } from '@/lib/shared/sheet/view-model';
+import { canMove } from '@/lib/shared/visit-states';
 import { FarmerReply } from './_components/farmer-reply';
 import { ResponsesList } from './_components/responses-list';
 import { SendSection } from './_components/send-section';
@@ -36,6 +37,9 @@ export default async function SheetPage({ params }: { params: Promise<{ visitId:
   const ownership = { organisationId: sheet.visit.organisationId, ownerId: sheet.farmer?.id ?? null };
   const canSend = can(user, 'sheet:send', { ...ownership, advisorIds: sheet.advisorId ? [sheet.advisorId] : [] });
   const canReply = can(user, 'sheet:acknowledge', ownership);
+  const canAnswer = can(user, 'sheet:answer', { ...ownership, advisorIds: sheet.advisorId ? [sheet.advisorId] : [] });
+  const decided = responses.filter((r) => r.kind === 'go-ahead' || r.kind === 'not-now').at(-1);
+  const lastDecision = decided ? (decided.kind as 'go-ahead' | 'not-now') : null;
   return (
     <div className="space-y-8">
       <nav aria-label="Sheet as PDF" className="flex flex-wrap gap-3 print:hidden">
@@ -49,8 +53,11 @@ export default async function SheetPage({ params }: { params: Promise<{ visitId:
         </a>
       </nav>
       <SheetBody v={view} />
-      <ResponsesList responses={responses} />
-      {canReply && <FarmerReply visitId={visitId} acknowledged={responses.some((r) => r.kind === 'acknowledged')} />}
+      <ResponsesList visitId={visitId} responses={responses} canAnswer={canAnswer} />
+      {canReply && (
+        <FarmerReply visitId={visitId} acknowledged={responses.some((r) => r.kind === 'acknowledged')} decision={lastDecision}
+          canDecide={canMove(sheet.visit.status, 'agreed', 'farmer') || canMove(sheet.visit.status, 'declined', 'farmer')} />
+      )}
       {canSend && <SendSection visitId={visitId} farmerName={sheet.farmer?.name ?? null} farmerEmail={sheet.farmer?.email ?? null} />}
     </div>
   );

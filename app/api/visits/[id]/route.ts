@@ -1,4 +1,4 @@
-// GET /api/visits/:id – one visit, if the caller may see it; PATCH moves it to another state (coordinators).
+// GET /api/visits/:id – one visit, if the caller may see it; PATCH moves it to a state the table of visit states allows the office (coordinators).
 import { setVisitStatus } from '@/lib/server/data/visit-planning';
 import { getVisitOrThrow } from '@/lib/server/data/visits';
 import { parseJsonBody } from '@/lib/server/http/json-body';

@@ -17,10 +17,9 @@ export function SettingsForm({ initial, kinds }: { initial: SettingsInput; kinds
   const { errors, isSubmitting } = formState;
   async function onSubmit(values: SettingsInput) {
     setMessage(null);
-    // Blank per-head boxes mean "use the catalogue figure".
-    const demandFigures = Object.fromEntries(Object.entries(values.demandFigures).filter(([, v]) => v !== '' && v !== undefined && v !== null));
+    // The resolver has already dropped blank per-head boxes ("use the catalogue figure").
     try {
-      await apiJson('/api/organisation/settings', { method: 'PUT', body: { ...values, demandFigures } });
+      await apiJson('/api/organisation/settings', { method: 'PUT', body: values });
       setMessage({ ok: true, text: 'Settings saved. New screenings use them.' });
     } catch (error) {
       if (!applyFieldErrors(error, setError, ['unitsDefault', 'designFractionOfLowest'])) setMessage({ ok: false, text: error instanceof Error ? error.message : 'Not saved.' });

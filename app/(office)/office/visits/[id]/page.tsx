@@ -6,7 +6,7 @@ import { requirePageUser } from '@/lib/server/auth/page-guard';
 import { visitAuditTrail } from '@/lib/server/data/audit-trail';
 import { listPeople } from '@/lib/server/data/people';
 import { getVisitOrThrow } from '@/lib/server/data/visits';
-import { formatDay } from '@/lib/shared/format';
+import { formatDateTime, formatDay } from '@/lib/shared/format';
 import { idParam } from '@/lib/shared/schemas/list-query';
 import { mayHoldUnsyncedData } from '@/lib/shared/visit-rules';
 import { notFound } from 'next/navigation';
@@ -31,13 +31,13 @@ export default async function OfficeVisitPage({ params }: { params: Promise<{ id
       <p><Link href="/office">← All visits</Link></p>
       <section>
         <h1 className="text-3xl font-bold text-slate">{visit.farm.name}</h1>
-        <p className="text-lg text-stone">{visit.farm.area}{visit.farmer ? ` · farmer ${visit.farmer.name}` : ''}</p>
+        <p className="text-lg text-stone">{visit.farm.area}{visit.farmer ? ` · farmer ${visit.farmer.name}` : ''} · <Link href={`/office/farms/${visit.farm.id}`}>The farm’s page</Link></p>
         <dl className="mt-4 grid grid-cols-1 gap-3 sm:grid-cols-2 lg:grid-cols-4">
           <div><dt className="text-stone">State</dt><dd><StatusChip status={visit.status} /></dd></div>
           <div><dt className="text-stone">Advisor</dt><dd className="font-bold">{visit.advisor?.name ?? 'Not assigned'}</dd></div>
           <div><dt className="text-stone">Planned</dt><dd className="figure">{formatDay(visit.plannedOn)}{visit.overdue && <strong className="ml-2 text-clay">⚠ Overdue</strong>}</dd></div>
           <div><dt className="text-stone">Screening</dt><dd>{visit.verdict ? <><VerdictMark verdict={visit.verdict} size={18} /> <Link href={`/sheets/${visit.id}`} className="ml-2 font-bold">Open the sheet</Link></> : 'Not screened'}</dd></div>
-          <div><dt className="text-stone">Last synced</dt><dd className="figure">{visit.lastSyncedAt ? `${visit.lastSyncedAt.slice(0, 16).replace('T', ' ')} UTC` : 'Never'}</dd></div>
+          <div><dt className="text-stone">Last synced</dt><dd className="figure">{visit.lastSyncedAt ? formatDateTime(visit.lastSyncedAt) : 'Never'}</dd></div>
         </dl>
         {visit.notes && <p className="mt-3 max-w-prose">{visit.notes}</p>}
       </section>

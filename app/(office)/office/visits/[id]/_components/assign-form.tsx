@@ -3,8 +3,9 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
-import { useForm } from 'react-hook-form';
+import { useForm, useWatch } from 'react-hook-form';
 import { ApiError, apiJson, applyFieldErrors } from '@/lib/client/api';
+import { PastDayConfirm } from '@/components/past-day-confirm';
 import { visitAssignSchema, type VisitAssignInput } from '@/lib/shared/schemas/office';
 
 const field = 'mt-1 block min-h-12 w-full rounded-md border-2 border-stone bg-white px-2 text-lg';
@@ -20,11 +21,12 @@ export function AssignForm({ visitId, advisors, current, mayBeUnsynced }: {
   const [warning, setWarning] = useState<string | null>(null);
   const [done, setDone] = useState<string | null>(null);
   const [serverError, setServerError] = useState<string | null>(null);
-  const { register, handleSubmit, formState, setError, getValues } = useForm<VisitAssignInput>({
+  const { register, handleSubmit, formState, setError, getValues, control } = useForm<VisitAssignInput>({
     resolver: zodResolver(visitAssignSchema),
-    defaultValues: { advisorId: current.advisorId ?? '', plannedOn: current.plannedOn ?? '', confirmUnsynced: false },
+    defaultValues: { advisorId: current.advisorId ?? '', plannedOn: current.plannedOn ?? '', confirmPast: false, confirmUnsynced: false },
   });
   const { errors, isSubmitting } = formState;
+  const plannedOn = useWatch({ control, name: 'plannedOn' }) as string | null | undefined;
 
   async function send(values: VisitAssignInput, confirmUnsynced: boolean) {
     setServerError(null);
@@ -32,7 +34,7 @@ export function AssignForm({ visitId, advisors, current, mayBeUnsynced }: {
     try {
       const { visit } = await apiJson<{ visit: { noticeSent: boolean } }>(`/api/visits/${visitId}/assignment`, { method: 'PUT', body: { ...values, confirmUnsynced } });
       setWarning(null);
-      setDone(visit.noticeSent ? 'Saved. The advisor has been e-mailed and will see it at the next sync.' : 'Saved.');
+      setDone(visit.noticeSent ? 'Saved. The advisor has been e-mailed; the visit is on their phone at its next sync.' : 'Saved.');
       router.refresh();
     } catch (error) {
       if (error instanceof ApiError && error.code === 'unsynced') setWarning(error.message);
@@ -60,6 +62,7 @@ export function AssignForm({ visitId, advisors, current, mayBeUnsynced }: {
           <label htmlFor="plannedOn" className="block font-bold">Planned date</label>
           <input id="plannedOn" type="date" className={field} aria-invalid={!!errors.plannedOn} aria-describedby={errors.plannedOn ? 'plannedOn-error' : undefined} {...register('plannedOn')} />
           {errors.plannedOn && <p id="plannedOn-error" className="mt-1 font-bold text-clay">{errors.plannedOn.message}</p>}
+          <PastDayConfirm day={plannedOn} field={register('confirmPast')} />
         </div>
       </div>
       <button type="submit" disabled={isSubmitting} className="min-h-12 rounded-md bg-slate px-5 text-lg font-bold text-white disabled:opacity-70">

@@ -1,0 +1,31 @@
+'use client';
+
+import { useEffect, useState } from 'react';
+import { OpenQuestions } from '@/components/open-questions';
+import type { OpenQuestion } from '@/lib/shared/conversation';
+
+/**
+ * Farmers' questions on this advisor's visits that wait for an answer. They live on the server (the
+ * answer is given on the sheet, online), so they are asked for when the phone has a signal and not
+ * kept on the phone; offline the home says so instead of showing an old list.
+ */
+export function FieldQuestions({ enabled }: { enabled: boolean }) {
+  const [questions, setQuestions] = useState<OpenQuestion[] | null>(null);
+  const [offline, setOffline] = useState(false);
+  useEffect(() => {
+    if (!enabled) return;
+    let live = true;
+    const load = () => {
+      fetch('/api/questions', { headers: { accept: 'application/json' } })
+        .then((res) => (res.ok ? res.json() : Promise.reject(new Error(String(res.status)))))
+        .then((body: { questions: OpenQuestion[] }) => { if (live) { setQuestions(body.questions); setOffline(false); } })
+        .catch(() => { if (live) setOffline(true); });
+    };
+    load();
+    window.addEventListener('online', load);
+    return () => { live = false; window.removeEventListener('online', load); };
+  }, [enabled]);
+  if (offline && questions === null) return <p className="text-stone">Farmers’ questions show here when the phone has a signal.</p>;
+  if (questions === null) return null;
+  return <OpenQuestions questions={questions} empty="No farmer’s question is waiting for you." />;
+}

@@ -1,0 +1,31 @@
+// Saving the organisation's settings: blank per-head boxes mean the catalogue figure; only kinds
+// the catalogue itself holds are accepted (not names every object inherits).
+import { describe, expect, it } from 'vitest';
+import { GET, PUT } from '@/app/api/organisation/settings/route';
+import { Organisation } from '@/lib/server/db';
+import { makeOrganisation, params, request } from './support/fixtures';
+
+const body = (demandFigures: Record<string, unknown>) => ({ unitsDefault: 'us', designFractionOfLowest: '0.6', demandFigures, pipePrices: [] });
+
+describe('PUT /api/organisation/settings', () => {
+  it('saves with blank per-head boxes and keeps only the figures typed', async () => {
+    const o = await makeOrganisation('settings');
+    const res = await PUT(await request('/api/organisation/settings', o.coordinator, { method: 'PUT', body: body({ sheep: '', goat: '', 'dairy-cow-dry': '80' }) }), params({}));
+    expect(res.status).toBe(200);
+    const org = await Organisation.findByPk(o.organisationId, { rejectOnEmpty: true });
+    expect(org.settings.unitsDefault).toBe('us');
+    expect(org.settings.demandFigures).toEqual({ 'dairy-cow-dry': 80 });
+    const read = await (await GET(await request('/api/organisation/settings', o.coordinator), params({}))).json();
+    expect(read.settings.designFractionOfLowest).toBe(0.6);
+  });
+
+  it.each(['constructor', 'toString', '__proto__', 'hasOwnProperty'])('refuses the inherited name %s as a kind and changes nothing', async (kind) => {
+    const o = await makeOrganisation('settings-proto');
+    const res = await PUT(await request('/api/organisation/settings', o.coordinator, { method: 'PUT', body: body({ [kind]: '5' }) }), params({}));
+    expect(res.status).toBe(422);
+    const json = await res.json();
+    expect(JSON.stringify(json)).toContain('Not a demand kind the screen knows.');
+    const org = await Organisation.findByPk(o.organisationId, { rejectOnEmpty: true });
+    expect(org.settings.unitsDefault).toBe('metric');
+  });
+});
