@@ -7,6 +7,8 @@ import type { UnitSystem } from '@/lib/shared/domain';
 export interface OrganisationSettings {
   unitsDefault: UnitSystem;
   designFractionOfLowest: number;
+  /** Least chance of meeting the demand for a plain go; absent on older rows (the engine's default 0.8 then). */
+  minProbabilityForGo?: number;
   demandFigures: Record<string, number>;
   pipePrices: { material: string; diameterMm: number; pricePerM: number; currency: string }[];
 }

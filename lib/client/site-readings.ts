@@ -35,7 +35,9 @@ export async function localSiteReadings(visitId: string): Promise<SiteReadingsIn
     drivePipe: pipe('drive') ?? {},
     deliveryPipe: pipe('delivery'),
     demand: live(demand).map((d) => ({ kind: d.kind, count: d.count, litresPerHeadPerDay: d.litresPerHeadPerDay })),
-    settings: settings ? { designFractionOfLowest: settings.designFractionOfLowest, demandOverrides: settings.demandFigures } : {},
+    settings: settings
+      ? { designFractionOfLowest: settings.designFractionOfLowest, demandOverrides: settings.demandFigures, ...(settings.minProbabilityForGo !== undefined ? { minProbabilityForGo: settings.minProbabilityForGo } : {}) }
+      : {},
     // Fewer samples than the server's 10,000: the phone's preview stays instant on a slow handset.
     monteCarlo: { samples: 2000, seed: 1 },
   } as SiteReadingsInput;

@@ -7,6 +7,8 @@ export function defaultOrganisationSettings(): OrganisationSettings {
     unitsDefault: 'metric',
     // 0.5 × the lowest measured flow: low end of the 0.5–0.8 band (common practice, no source).
     designFractionOfLowest: 0.5,
+    // A plain go needs at least a 0.8 chance of meeting the demand (common practice, no source).
+    minProbabilityForGo: 0.8,
     demandFigures: {},
     pipePrices: [],
   };

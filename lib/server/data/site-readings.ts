@@ -53,6 +53,7 @@ export async function loadSiteReadings(visitId: string, transaction?: Transactio
     demand: demand.map((d) => ({ kind: d.kind, count: d.count, litresPerHeadPerDay: d.litresPerHeadPerDay })),
     settings: {
       designFractionOfLowest: organisation.settings.designFractionOfLowest,
+      ...(organisation.settings.minProbabilityForGo !== undefined ? { minProbabilityForGo: organisation.settings.minProbabilityForGo } : {}),
       demandOverrides: organisation.settings.demandFigures,
     },
     monteCarlo: { samples: 10_000, seed: 1 },

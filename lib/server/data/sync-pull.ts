@@ -111,6 +111,7 @@ export async function pullChanges(user: SessionUser, { cursor, limit }: { cursor
     settings: {
       unitsDefault: organisation.settings.unitsDefault,
       designFractionOfLowest: organisation.settings.designFractionOfLowest,
+      ...(organisation.settings.minProbabilityForGo !== undefined ? { minProbabilityForGo: organisation.settings.minProbabilityForGo } : {}),
       demandFigures: organisation.settings.demandFigures,
     },
   };

@@ -118,6 +118,11 @@ export const settingsSchema = z.object({
     (v) => (typeof v === 'string' ? Number(v.trim().replace(',', '.')) : v),
     z.number({ message: 'Enter a fraction like 0.5.' }).min(0.1, 'At least 0.1 of the lowest flow.').max(0.9, 'At most 0.9: leave water in the stream.'),
   ),
+  // Least chance of meeting the demand for a plain go (the engine's range).
+  minProbabilityForGo: z.preprocess(
+    (v) => (typeof v === 'string' ? (v.trim() === '' ? undefined : Number(v.trim().replace(',', '.'))) : v),
+    z.number({ message: 'Enter a chance like 0.8.' }).min(0.5, 'At least 0.5: below that a go is a coin toss.').max(0.99, 'At most 0.99.').default(0.8),
+  ),
   // Only kinds the catalogue itself holds (own keys: not "constructor" or "__proto__", which the
   // record would drop unseen); a blank box means "use the catalogue figure" and is dropped.
   demandFigures: z.custom<Record<string, string | number | null | undefined>>((v) => !!v && typeof v === 'object' && !Array.isArray(v), 'Give the per-head figures by kind.')

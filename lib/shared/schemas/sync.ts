@@ -195,5 +195,5 @@ export interface PullResponse {
   visits: (Omit<PulledRecord<'visit'>, 'status'> & { status: VisitStatus; farmId: string; plannedOn: string | null; advisorId: string | null })[];
   records: { [E in PulledEntity]: PulledRecord<E>[] };
   /** Organisation settings the phone's live preview needs. */
-  settings: { unitsDefault: 'metric' | 'us'; designFractionOfLowest: number; demandFigures: Record<string, number> };
+  settings: { unitsDefault: 'metric' | 'us'; designFractionOfLowest: number; minProbabilityForGo?: number; demandFigures: Record<string, number> };
 }

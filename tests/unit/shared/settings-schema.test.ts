@@ -34,3 +34,16 @@ describe('settings: per-head figures', () => {
     expect(issues).toContainEqual(['demandFigures.goat', 'A per-head figure must be more than 0.']);
   });
 });
+
+describe('settings: least chance of meeting the need for a plain go', () => {
+  it('defaults to 0.8 when blank or left out, and takes a comma decimal', () => {
+    expect(settingsSchema.parse({ ...base, demandFigures: {} }).minProbabilityForGo).toBe(0.8);
+    expect(settingsSchema.parse({ ...base, demandFigures: {}, minProbabilityForGo: '' }).minProbabilityForGo).toBe(0.8);
+    expect(settingsSchema.parse({ ...base, demandFigures: {}, minProbabilityForGo: '0,9' }).minProbabilityForGo).toBe(0.9);
+  });
+  it('refuses a chance a coin toss would meet, naming the box', () => {
+    const parsed = settingsSchema.safeParse({ ...base, demandFigures: {}, minProbabilityForGo: '0.3' });
+    expect(parsed.success).toBe(false);
+    expect(parsed.error?.issues[0]?.path).toEqual(['minProbabilityForGo']);
+  });
+});

@@ -22,7 +22,7 @@ export function SettingsForm({ initial, kinds }: { initial: SettingsInput; kinds
       await apiJson('/api/organisation/settings', { method: 'PUT', body: values });
       setMessage({ ok: true, text: 'Settings saved. New screenings use them.' });
     } catch (error) {
-      if (!applyFieldErrors(error, setError, ['unitsDefault', 'designFractionOfLowest'])) setMessage({ ok: false, text: error instanceof Error ? error.message : 'Not saved.' });
+      if (!applyFieldErrors(error, setError, ['unitsDefault', 'designFractionOfLowest', 'minProbabilityForGo'])) setMessage({ ok: false, text: error instanceof Error ? error.message : 'Not saved.' });
     }
   }
   return (
@@ -34,6 +34,10 @@ export function SettingsForm({ initial, kinds }: { initial: SettingsInput; kinds
           <input id="designFractionOfLowest" type="text" inputMode="decimal" className={`${field} figure`} aria-describedby="fraction-help" {...register('designFractionOfLowest')} />
           <p id="fraction-help" className="text-stone">0.1–0.9 of the driest measured flow; the rest stays in the stream.</p>
           {errors.designFractionOfLowest && <p className="font-bold text-clay">{errors.designFractionOfLowest.message}</p>}</div>
+        <div><label htmlFor="minProbabilityForGo" className="block font-bold">Least chance of meeting the need for a plain go</label>
+          <input id="minProbabilityForGo" type="text" inputMode="decimal" className={`${field} figure`} aria-describedby="chance-help" {...register('minProbabilityForGo')} />
+          <p id="chance-help" className="text-stone">0.5–0.99; below it a site that meets the need on average is a go with conditions.</p>
+          {errors.minProbabilityForGo && <p className="font-bold text-clay">{errors.minProbabilityForGo.message}</p>}</div>
       </div>
       <fieldset className="space-y-2">
         <legend className="text-lg font-bold">Daily water per head (L/day); blank uses the catalogue figure</legend>
