@@ -2,6 +2,7 @@
 import { fmt } from './format';
 import { NOMINAL_SIZES, type NominalSize } from './materials';
 import type { DeliveryDesign, DriveDesign } from './pipe-design';
+import type { FeedDesign } from './ram-plan';
 import type { BillOfMaterialsLine } from './screening-types';
 
 export interface BomInput {
@@ -17,6 +18,8 @@ export interface BomInput {
   standPipe: boolean;
   /** The pressures call for a relief valve at the ram. */
   reliefValve: boolean;
+  /** A feed pipe to an open stand pipe at the head of the drive pipe. */
+  feed?: FeedDesign | null;
 }
 
 export interface GravityBomInput {
@@ -80,6 +83,12 @@ export function billOfMaterials(b: BomInput): BillOfMaterialsLine[] {
   ];
   if (b.reliefValve) {
     lines.push({ item: 'Pressure-relief valve at the ram', size: b.delivery.size.label, quantity: n, unit: 'each', note: `Set below ${fmt(b.drive.allowedHeadM, 'm')} of head (the drive pipe's usable rating)` });
+  }
+  if (b.feed) {
+    lines.push(
+      { item: `Feed pipe, ${b.feed.materialLabel}, ${b.feed.classLabel}`, size: b.feed.size.label, quantity: Math.ceil(b.feed.lengthM), unit: 'm', note: 'Intake to the stand pipe, one size up from the drive pipe; no surge reaches it' },
+      { item: 'Open stand pipe at the head of the drive pipe', size: b.feed.size.label, quantity: 1, unit: 'each', note: 'Its top above the intake\u2019s water level, with a screened overflow back to the stream' },
+    );
   }
   if (b.standPipe) {
     lines.push({ item: 'Open stand pipe or header tank on the drive line', size: b.drive.size.label, quantity: n, unit: 'each', note: `About ${fmt(Math.min(b.drive.bandMaxM, b.drive.lengthM), 'm')} up the drive pipe from the ram` });

@@ -6,7 +6,7 @@ import {
   type NominalSize, type PipeMaterial, type PressureClass,
 } from './materials';
 import { G, waterDensityKgM3, waterViscosityPaS } from './physics';
-import { frictionFactor, hazenWilliamsCoefficient, joukowskySurgeM, pipeVelocityMps, waveSpeedMps } from './pipes';
+import { hazenWilliamsCoefficient, joukowskySurgeM, pipeVelocityMps, waveSpeedMps } from './pipes';
 
 /** Closure velocity ≈ 2 × mean drive velocity: the flow accelerates from near rest each beat (common practice, no source). */
 export const CLOSURE_TO_MEAN_VELOCITY = 2;
@@ -81,16 +81,22 @@ function allowedHeadFor(material: PipeMaterial, cls: PressureClass): number {
   return ratingHeadM(cls) * (isPlastic(material) ? PLASTIC_CYCLIC_RATING_FACTOR : 1);
 }
 
-/** Steady velocity, m/s, of the drive pipe discharging through the open waste valve: Darcy–Weisbach with Colebrook. */
+const KINEMATIC_VISCOSITY_15C = waterViscosityPaS(15) / waterDensityKgM3(15);
+
+/**
+ * Steady velocity, m/s, of the drive pipe discharging through the open waste valve: Darcy–Weisbach with the
+ * Swamee–Jain friction factor (Swamee & Jain 1976, within about 1 % of Colebrook in turbulent flow; laminar 64/Re).
+ */
 export function attainableDriveVelocityMps(fallM: number, lengthM: number, boreMm: number, roughnessMm: number, minorK = DRIVE_MINOR_LOSS_K): number {
   if (!(fallM > 0)) return 0;
   const d = boreMm / 1000;
-  const nu = waterViscosityPaS(15) / waterDensityKgM3(15);
+  const relative = roughnessMm / boreMm / 3.7;
   let v = Math.sqrt((2 * G * fallM) / (1 + minorK));
-  for (let i = 0; i < 50; i++) {
-    const f = frictionFactor(Math.max(v * d / nu, 1), roughnessMm / boreMm);
+  for (let i = 0; i < 40; i++) {
+    const re = Math.max((v * d) / KINEMATIC_VISCOSITY_15C, 1);
+    const f = re < 2300 ? 64 / re : 0.25 / Math.log10(relative + 5.74 / re ** 0.9) ** 2;
     const next = Math.sqrt((2 * G * fallM) / (1 + minorK + (f * lengthM) / d));
-    if (Math.abs(next - v) < 1e-9) return next;
+    if (Math.abs(next - v) < 1e-7 * next) return next;
     v = next;
   }
   return v;

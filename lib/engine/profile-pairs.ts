@@ -5,7 +5,7 @@ import { DRIVE_LD_BAND, driveLengthBandM } from './drive-pipe';
 import { demandBreakdown } from './demand';
 import { runMonteCarlo } from './monte-carlo';
 import type { OperatingContext } from './operating-point';
-import { planRams, type RamPlan } from './ram-plan';
+import { planWithFeed, type RamPlan } from './ram-plan';
 import { EFFICIENCY_CURVES } from './ram';
 import { combineRuns, estimateFlow, estimateLift } from './readings';
 import { MAX_LIFT_RATIO, MIN_FALL_M } from './verdict';
@@ -64,12 +64,16 @@ export const REJECT_TEXT: Record<RejectCode, string> = {
   'drive-ld': `Drive length / bore outside ${DRIVE_LD_BAND.min}–${DRIVE_LD_BAND.max} (NITK notes).`,
 };
 
-/** Geometry of a pair: fall, lift, drive and delivery pipe lengths (slope distances). */
+/** Geometry of a pair: fall, lift, drive and delivery pipe lengths (slope distances), and a stand pipe when there is one. */
 export interface PairGeometry {
   fallM: number;
   staticLiftM: number;
   driveLengthM: number;
   deliveryLengthM: number;
+  /** Intake to the stand pipe, m (0 when the drive pipe starts at the intake). */
+  feedLengthM: number;
+  /** The station where an open stand pipe stands and the drive pipe starts, on a gentle creek. */
+  standPipe: ProfileStation | null;
 }
 
 /** Prepared once per search: parsed settings and flows, so each pair costs only its own sums. */
@@ -114,55 +118,95 @@ export function prepareSearch(input: BestPositionsInput): SearchContext {
   return { input, settings, ctxCurve: EFFICIENCY_CURVES[settings.efficiencyCurve], demandLpd, flowAt, fallSigmaM, liftSigmaFor };
 }
 
-/** Fall, lift and pipe lengths of a pair; the intake must lie upstream (smaller chainage). */
+// Math.hypot is several times slower than the plain sum of squares, and these run for every pair of a reach.
+const slope = (run: number, rise: number): number => Math.sqrt(run * run + rise * rise);
+
+/** Fall, lift and pipe lengths of a pair with the drive pipe from the intake; the intake must lie upstream (smaller chainage). */
 export function pairGeometry(intake: ProfileStation, pump: ProfileStation, tank: ProfileTank): PairGeometry {
   const fallM = intake.levelM - pump.levelM;
   const staticLiftM = tank.levelM - pump.levelM;
-  const driveLengthM = Math.hypot(pump.chainageM - intake.chainageM, fallM);
-  const deliveryLengthM = Math.hypot(Math.hypot(tank.chainageM - pump.chainageM, tank.offsetM), staticLiftM);
-  return { fallM, staticLiftM, driveLengthM, deliveryLengthM };
+  const driveLengthM = slope(pump.chainageM - intake.chainageM, fallM);
+  const along = tank.chainageM - pump.chainageM;
+  const deliveryLengthM = Math.sqrt(along * along + tank.offsetM * tank.offsetM + staticLiftM * staticLiftM);
+  return { fallM, staticLiftM, driveLengthM, deliveryLengthM, feedLengthM: 0, standPipe: null };
 }
 
-/** The rams screenSite would size for a pair (the same sizing from demand, without the fixes a conditional names). */
-export function pairPlan(s: SearchContext, intake: ProfileStation, pump: ProfileStation): RamPlan {
-  const g = pairGeometry(intake, pump, s.input.tank);
+/** Highest a stand pipe may stand above its ground, m: taller needs staying against wind (common practice, no source). */
+export const MAX_STAND_PIPE_M = 4;
+
+/**
+ * The pair's geometry as it would be built: the drive pipe from the intake when its length is inside the fall
+ * band; on a gentler creek, a feed pipe from the intake to an open stand pipe at the station whose drive pipe
+ * to the ram comes nearest the middle of the band (the stand pipe's ground below the intake's water, and
+ * the pipe no taller than MAX_STAND_PIPE_M); the plain geometry when no station serves.
+ */
+export function arrangementGeometry(s: SearchContext, stations: readonly ProfileStation[], i: number, j: number): PairGeometry {
+  const intake = stations[i] as ProfileStation;
+  const pump = stations[j] as ProfileStation;
+  const plain = pairGeometry(intake, pump, s.input.tank);
+  if (!(plain.fallM > 0)) return plain;
+  const band = driveLengthBandM(plain.fallM, s.settings.driveLengthRule);
+  if (plain.driveLengthM <= band.maxM) return plain;
+  const mid = (band.minM + band.maxM) / 2;
+  let best: PairGeometry | null = null;
+  let bestGap = Infinity;
+  // Walking up from the ram, the drive pipe only grows: stop once it is longer than the band.
+  for (let k = j - 1; k > i; k--) {
+    const st = stations[k] as ProfileStation;
+    const drive = slope(pump.chainageM - st.chainageM, st.levelM - pump.levelM);
+    if (pump.chainageM - st.chainageM > band.maxM) break;
+    if (drive < band.minM || drive > band.maxM || st.flags?.includes('no-pump-site')) continue;
+    const height = intake.levelM - st.levelM;
+    if (height <= 0 || height > MAX_STAND_PIPE_M) continue;
+    const gap = Math.abs(drive - mid);
+    if (gap < bestGap) {
+      bestGap = gap;
+      best = { ...plain, driveLengthM: drive, feedLengthM: slope(st.chainageM - intake.chainageM, height), standPipe: st };
+    }
+  }
+  return best ?? plain;
+}
+
+/** The rams screenSite would size for a pair (the same sizing from demand, feed pipe friction off the fall, without the fixes a conditional names). */
+export function pairPlan(s: SearchContext, intake: ProfileStation, g: PairGeometry): { plan: RamPlan; fallM: number } {
   const flow = s.flowAt(intake);
-  return planRams({
+  const { plan, fallM } = planWithFeed({
     fallM: g.fallM, staticLiftM: g.staticLiftM, availableLpm: s.settings.designFractionOfLowest * (flow?.lowestLpm ?? 0),
     needLpd: s.demandLpd * (1 + s.settings.demandMarginFraction), curve: s.ctxCurve, driveLengthRule: s.settings.driveLengthRule,
     fittingsAllowance: s.settings.fittingsAllowanceFraction,
     drivePipe: { lengthM: g.driveLengthM, material: s.input.drivePipeMaterial ?? 'galvanized-steel' },
     deliveryPipe: { lengthM: g.deliveryLengthM, material: s.input.deliveryPipe?.material ?? 'hdpe', diameterMm: s.input.deliveryPipe?.diameterMm },
-  });
+  }, g.standPipe ? { lengthM: g.feedLengthM, material: 'hdpe' } : undefined);
+  return { plan, fallM };
 }
 
 /** The cheap rules, cheapest first; the reject code, or null with the pair's ram plan when it passes them all. */
-export function checkPair(s: SearchContext, intake: ProfileStation, pump: ProfileStation): { code: RejectCode; plan?: undefined } | { code: null; plan: RamPlan & { status: 'meets' | 'short' } } {
+export function checkPair(s: SearchContext, intake: ProfileStation, pump: ProfileStation, g: PairGeometry = pairGeometry(intake, pump, s.input.tank)):
+  { code: RejectCode; plan?: undefined } | { code: null; plan: RamPlan & { status: 'meets' | 'short' }; drivingFallM: number } {
   if (intake.flags?.includes('no-intake')) return { code: 'flag-intake' };
   if (pump.flags?.includes('no-pump-site')) return { code: 'flag-pump' };
-  const g = pairGeometry(intake, pump, s.input.tank);
   if (g.fallM < MIN_FALL_M) return { code: 'little-fall' };
   const band = driveLengthBandM(g.fallM, s.settings.driveLengthRule);
   if (g.driveLengthM < band.minM) return { code: 'drive-short' };
   if (g.driveLengthM > band.maxM) return { code: 'drive-long' };
   if (g.staticLiftM <= g.fallM) return { code: 'gravity' };
   if (g.staticLiftM / g.fallM > MAX_LIFT_RATIO) return { code: 'lift-ratio' };
-  const plan = pairPlan(s, intake, pump);
+  const { plan, fallM } = pairPlan(s, intake, g);
   if (plan.status === 'no-ram') return { code: plan.cause === 'fall' ? 'little-fall' : 'little-flow' };
   const ld = plan.option.drive.lengthToDiameter;
   if (ld < DRIVE_LD_BAND.min || ld > DRIVE_LD_BAND.max) return { code: 'drive-ld' };
-  return { code: null, plan };
+  return { code: null, plan, drivingFallM: fallM };
 }
 
 /** The raw readings screenSite gets for a pair: the profile's fall as one levelled set-up, the lift as levelled. */
-export function pairReadings(s: SearchContext, intake: ProfileStation, pump: ProfileStation, samples: number): SiteReadingsInput {
-  const g = pairGeometry(intake, pump, s.input.tank);
+export function pairReadings(s: SearchContext, intake: ProfileStation, g: PairGeometry, samples: number): SiteReadingsInput {
   const flow = s.flowAt(intake);
   return {
     flowMeasurements: flow?.measurements ?? [],
     fallRuns: [{ method: 'level', rows: [{ backsightM: 0 }, { foresightM: g.fallM }] }],
     lift: { kind: 'direct', staticLiftM: g.staticLiftM, method: 'level', ...(s.input.liftUncertaintyM ? { uncertaintyM: s.input.liftUncertaintyM } : {}) },
     drivePipe: { lengthM: g.driveLengthM, material: (s.input.drivePipeMaterial ?? 'galvanized-steel') as 'galvanized-steel' },
+    ...(g.standPipe ? { feedPipe: { lengthM: g.feedLengthM, material: 'hdpe' as const } } : {}),
     deliveryPipe: { lengthM: g.deliveryLengthM, material: (s.input.deliveryPipe?.material ?? 'hdpe') as 'hdpe', ...(s.input.deliveryPipe?.diameterMm ? { diameterMm: s.input.deliveryPipe.diameterMm } : {}) },
     demand: s.input.demand,
     settings: s.input.settings ?? {},
@@ -170,31 +214,40 @@ export function pairReadings(s: SearchContext, intake: ProfileStation, pump: Pro
   };
 }
 
-/** What ranks a pair: probability of meeting demand, delivery per day, total pipe. */
+/** What ranks a pair: verdict (or, before the full screen, whether the rams meet the need), chance, delivery, total pipe. */
 export interface RankKey {
+  /** 2 go, 1 conditional, 0 no-go; in the quick stage 2 when the plan meets the need, 1 when it falls short. */
+  verdictRank: number;
   probabilityMeetsDemand: number;
   deliveryLpd: number;
   totalPipeM: number;
 }
 
-/** Orders best first: higher probability, then more delivery, then less pipe. */
+/** Rank of a verdict for ordering pairs: a go before a conditional before a no-go. */
+export function verdictRank(verdict: string): number {
+  return verdict === 'go' ? 2 : verdict === 'conditional' ? 1 : 0;
+}
+
+/** Orders best first: the better verdict, then higher probability, then more delivery, then less pipe. */
 export function compareKeys(a: RankKey, b: RankKey): number {
-  return b.probabilityMeetsDemand - a.probabilityMeetsDemand || b.deliveryLpd - a.deliveryLpd || a.totalPipeM - b.totalPipeM;
+  return b.verdictRank - a.verdictRank || b.probabilityMeetsDemand - a.probabilityMeetsDemand || b.deliveryLpd - a.deliveryLpd || a.totalPipeM - b.totalPipeM;
 }
 
 /**
  * The same sizing, delivery and Monte Carlo as screenSite, with fewer draws: the draws are a prefix of the full
  * run's, so a pair certain in full is certain here.
  */
-export function quickKey(s: SearchContext, intake: ProfileStation, pump: ProfileStation, samples: number, plan: RamPlan & { status: 'meets' | 'short' }): RankKey {
-  const g = pairGeometry(intake, pump, s.input.tank);
+export function quickKey(s: SearchContext, intake: ProfileStation, g: PairGeometry, samples: number, plan: RamPlan & { status: 'meets' | 'short' }, drivingFallM: number): RankKey {
   const flow = s.flowAt(intake);
   const o = plan.option;
   const mc = runMonteCarlo({
-    ctx: { curve: s.ctxCurve, deliveryFrictionK: o.delivery.frictionK }, fallM: g.fallM, fallSigmaM: s.fallSigmaM,
+    ctx: { curve: s.ctxCurve, deliveryFrictionK: o.delivery.frictionK }, fallM: drivingFallM, fallSigmaM: s.fallSigmaM,
     staticLiftM: g.staticLiftM, staticLiftSigmaM: s.liftSigmaFor(g.staticLiftM), lowestFlowLpm: flow?.lowestLpm ?? 0,
     lowestFlowRelativeSigma: flow?.relativeSigma ?? 0, designFraction: s.settings.designFractionOfLowest,
     ramMaxLpm: o.drive.driveLpm, ramMinLpm: o.row.minLpm, ramCount: o.count, demandLpd: s.demandLpd, samples, seed: s.input.seed ?? 1,
   });
-  return { probabilityMeetsDemand: mc.probabilityMeetsDemand, deliveryLpd: o.deliveryLpd, totalPipeM: g.driveLengthM + g.deliveryLengthM };
+  return {
+    verdictRank: plan.status === 'meets' ? 2 : 1, probabilityMeetsDemand: mc.probabilityMeetsDemand, deliveryLpd: o.deliveryLpd,
+    totalPipeM: g.feedLengthM + g.driveLengthM + g.deliveryLengthM,
+  };
 }

@@ -2,7 +2,7 @@
 // probability of meeting demand, then delivery, then total pipe; the short list screened in full by screenSite.
 import { EngineInputError } from './errors';
 import {
-  checkPair, compareKeys, pairGeometry, pairReadings, prepareSearch, quickKey, REJECT_TEXT,
+  arrangementGeometry, checkPair, compareKeys, pairReadings, prepareSearch, quickKey, REJECT_TEXT, verdictRank,
   type BestPositionsInput, type PairGeometry, type ProfileStation, type RankKey, type RejectCode,
 } from './profile-pairs';
 import { screenSite } from './screen';
@@ -68,9 +68,10 @@ export function bestPositions(input: BestPositionsInput): BestPositionsResult {
       const pump = stations[j] as ProfileStation;
       if (pump.chainageM <= intake.chainageM) continue;
       considered++;
-      const check = checkPair(s, intake, pump);
+      const g = arrangementGeometry(s, stations, i, j);
+      const check = checkPair(s, intake, pump, g);
       if (check.code) counts.set(check.code, (counts.get(check.code) ?? 0) + 1);
-      else quick.push({ i, j, key: quickKey(s, intake, pump, quickSamples, check.plan) });
+      else quick.push({ i, j, key: quickKey(s, intake, g, quickSamples, check.plan, check.drivingFallM) });
     }
   }
 
@@ -79,27 +80,28 @@ export function bestPositions(input: BestPositionsInput): BestPositionsResult {
   const screen = ({ i, j }: { i: number; j: number }) => {
     const intake = stations[i] as ProfileStation;
     const pump = stations[j] as ProfileStation;
-    const g = pairGeometry(intake, pump, input.tank);
-    const screening = screenSite(pairReadings(s, intake, pump, samples));
+    const g = arrangementGeometry(s, stations, i, j);
+    const screening = screenSite(pairReadings(s, intake, g, samples));
     const key: RankKey = {
+      verdictRank: verdictRank(screening.verdict),
       probabilityMeetsDemand: screening.figures.probabilityMeetsDemand?.value ?? 0,
       deliveryLpd: screening.figures.deliveryLpd?.value ?? 0,
-      totalPipeM: g.driveLengthM + g.deliveryLengthM,
+      totalPipeM: g.feedLengthM + g.driveLengthM + g.deliveryLengthM,
     };
     return { intake, pump, ...g, ...key, screening };
   };
   const full: ReturnType<typeof screen>[] = [];
   const done = new Set<number>();
   // The quick draws are a prefix of the full ones, so a pair certain in full is certain quickly too: when
-  // pairs are certain, the first `top` that stay certain in full, taken in delivery order, are the best.
+  // pairs are certain, the first `top` that stay certain and a go in full, taken in delivery order, are the best.
   let certain = 0;
-  for (let n = 0; n < quick.length && certain < top; n++) {
+  for (let n = 0; n < quick.length && n < SHORT_LIST_MAX && certain < top; n++) {
     const q = quick[n] as (typeof quick)[number];
     if (q.key.probabilityMeetsDemand < 1) break;
     const f = screen(q);
     full.push(f);
     done.add(n);
-    if (f.probabilityMeetsDemand === 1) certain++;
+    if (f.probabilityMeetsDemand === 1 && f.verdictRank === 2) certain++;
   }
   if (certain < top) {
     const bestQuick = quick[0]?.key.probabilityMeetsDemand ?? 0;
@@ -129,12 +131,15 @@ export function bestPositionsBruteForce(input: BestPositionsInput): { intakeId: 
     for (let j = i + 1; j < stations.length; j++) {
       const intake = stations[i] as ProfileStation;
       const pump = stations[j] as ProfileStation;
-      if (pump.chainageM <= intake.chainageM || checkPair(s, intake, pump).code) continue;
-      const g = pairGeometry(intake, pump, input.tank);
-      const sc = screenSite(pairReadings(s, intake, pump, input.samples ?? 10_000));
+      const g = arrangementGeometry(s, stations, i, j);
+      if (pump.chainageM <= intake.chainageM || checkPair(s, intake, pump, g).code) continue;
+      const sc = screenSite(pairReadings(s, intake, g, input.samples ?? 10_000));
       out.push({
         intakeId: intake.id, pumpId: pump.id,
-        key: { probabilityMeetsDemand: sc.figures.probabilityMeetsDemand?.value ?? 0, deliveryLpd: sc.figures.deliveryLpd?.value ?? 0, totalPipeM: g.driveLengthM + g.deliveryLengthM },
+        key: {
+          verdictRank: verdictRank(sc.verdict), probabilityMeetsDemand: sc.figures.probabilityMeetsDemand?.value ?? 0,
+          deliveryLpd: sc.figures.deliveryLpd?.value ?? 0, totalPipeM: g.feedLengthM + g.driveLengthM + g.deliveryLengthM,
+        },
       });
     }
   }

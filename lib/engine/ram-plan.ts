@@ -1,6 +1,7 @@
 // Sizing from demand: the fewest, smallest rams whose delivery meets the need within the water the stream can spare.
 import { RAM_SIZE_TABLE, ramRowFor, type DriveLengthRuleId, type RamSizeRow } from './drive-pipe';
-import { materialOrThrow, pressureClassOrThrow, sizeForBore } from './materials';
+import { boreMm, materialOrThrow, NOMINAL_SIZES, pressureClassOrThrow, sizeForBore, type NominalSize } from './materials';
+import { hazenWilliamsCoefficient } from './pipes';
 import { operatingPoint, type OperatingPoint } from './operating-point';
 import { designDeliveryPipe, designDrivePipe, type DeliveryDesign, type DriveDesign } from './pipe-design';
 import type { EfficiencyCurve } from './ram';
@@ -123,4 +124,48 @@ function searchPlan(input: RamPlanInput, allowSoft: boolean): RamPlan {
   const leastFall = Math.min(...RAM_SIZE_TABLE.map((r) => r.minFallM));
   const cause: NoRamCause = Math.round(input.fallM * 1000) < Math.round(leastFall * 1000) ? 'fall' : causes.has('soft') ? 'soft' : causes.has('push') ? 'push' : 'flow';
   return { status: 'no-ram', cause, forced: false };
+}
+
+export interface FeedEntry {
+  lengthM: number;
+  diameterMm?: number | undefined;
+  material: string;
+}
+
+/** The feed pipe of an arrangement: its size, bore and the friction it takes off the fall at the rams' summed drive flow. */
+export interface FeedDesign {
+  lengthM: number;
+  size: NominalSize;
+  boreMm: number;
+  materialLabel: string;
+  classLabel: string;
+  frictionM: number;
+}
+
+/** Feed pipe one size up from the ram's drive pipe (common practice, no source), or as given; Hazen–Williams friction. */
+export function designFeedPipe(feed: FeedEntry, ramDriveIn: number, totalDriveLpm: number, fittingsAllowance: number): FeedDesign {
+  const material = materialOrThrow(feed.material, 'feedPipe.material');
+  const cls = pressureClassOrThrow(material, undefined, 'feedPipe.pressureClass');
+  const driveAt = NOMINAL_SIZES.findIndex((s) => s.nominalIn >= ramDriveIn);
+  const size = feed.diameterMm ? sizeForBore(feed.diameterMm, cls) : (NOMINAL_SIZES[Math.min(NOMINAL_SIZES.length - 1, Math.max(0, driveAt) + 1)] as NominalSize);
+  const bore = feed.diameterMm ?? boreMm(size, cls);
+  const k = hazenWilliamsCoefficient(feed.lengthM * (1 + fittingsAllowance), bore, material.hazenC);
+  return { lengthM: feed.lengthM, size, boreMm: bore, materialLabel: material.label, classLabel: cls.label, frictionM: k * (totalDriveLpm / 60000) ** 1.852 };
+}
+
+/**
+ * Plans the rams behind a feed pipe and stand pipe: the feed's friction at the rams' drive flow comes off the
+ * fall, so the plan is made again on the fall that is left (once: the drive flow moves little with it).
+ */
+export function planWithFeed(input: RamPlanInput, feed: FeedEntry | undefined): { plan: RamPlan; feed: FeedDesign | null; fallM: number } {
+  let plan = planRams(input);
+  if (!feed) return { plan, feed: null, fallM: input.fallM };
+  let design: FeedDesign | null = null;
+  let fallM = input.fallM;
+  for (let i = 0; i < 1 && plan.status !== 'no-ram'; i++) {
+    design = designFeedPipe(feed, plan.option.row.driveIn, plan.option.count * plan.option.drive.driveLpm, input.fittingsAllowance);
+    fallM = Math.max(1e-3, input.fallM - design.frictionM);
+    plan = planRams({ ...input, fallM });
+  }
+  return { plan, feed: design, fallM };
 }

@@ -4,7 +4,7 @@ import type { DemandLineResult } from './demand';
 import type { GravityDesign } from './gravity';
 import type { MonteCarloResult } from './monte-carlo';
 import { CLOSURE_TO_MEAN_VELOCITY } from './pipe-design';
-import type { RamOption } from './ram-plan';
+import type { FeedDesign, RamOption } from './ram-plan';
 import type { EfficiencyCurve } from './ram';
 import type { CombinedEstimate, FlowEstimate } from './readings';
 import type { Figure, FigureInputs, FigureKey } from './screening-types';
@@ -29,6 +29,10 @@ export interface SurveyContext {
 
 export interface FigureContext extends SurveyContext {
   option: RamOption;
+  /** The feed pipe to a stand pipe, when the drive pipe starts there; its friction comes off the fall. */
+  feed: FeedDesign | null;
+  /** The fall the ram works on: the measured fall less the feed pipe's friction. */
+  drivingFallM: number;
   forced: boolean;
   curve: EfficiencyCurve;
   mc: MonteCarloResult;
@@ -116,6 +120,12 @@ export function buildFigures(c: FigureContext): Partial<Record<FigureKey, Figure
   const sizing = c.forced ? 'As chosen by the advisor' : 'Smallest size, then fewest rams, whose delivery meets demand plus margin within the design flow';
   return {
     ...surveyFigures(c, deliveryLpd),
+    ...(c.feed ? {
+      feedPipeLengthM: fig(c.feed.lengthM, 'm', 'Intake to the stand pipe where the drive pipe starts', 'common-practice', { boreMm: round(c.feed.boreMm) }),
+      feedPipeBoreMm: fig(c.feed.boreMm, 'mm', `One size up from the drive pipe: ${c.feed.size.label}, ${c.feed.materialLabel}`, 'common-practice', { nominalIn: c.feed.size.nominalIn }),
+      feedFrictionM: fig(c.feed.frictionM, 'm', 'Hazen–Williams at the rams\u2019 summed drive flow, taken off the fall', 'hazen-williams-epanet', { lengthM: round(c.feed.lengthM), boreMm: round(c.feed.boreMm), driveLpm: round(count * drive.driveLpm) }),
+      drivingFallM: fig(c.drivingFallM, 'm', 'Fall less the feed pipe\u2019s friction: what drives the ram', 'common-practice', { fallM: round(fall.valueM), feedFrictionM: round(c.feed.frictionM) }),
+    } : {}),
     ramSizeIn: fig(row.driveIn, 'in', `${sizing} (drive pipe size of the ram)`, 'ogden-1911', { ramMinLpm: round(row.minLpm), ramMaxLpm: round(row.maxLpm), ramMinFallM: round(row.minFallM), needLpd: round(c.demandLpd * (1 + s.demandMarginFraction)) }),
     ramCount: fig(count, 'rams', count > 1 ? 'Rams in parallel, each on its own drive pipe, sharing the delivery pipe' : sizing, count > 1 ? 'parallel-rams' : 'ogden-1911', { ramSizeIn: row.driveIn }),
     driveFlowLpm: fig(drive.driveLpm, 'L/min', 'Per ram: the design flow shared between the rams, up to the size\u2019s maximum and what the fall can push', 'ogden-1911', { designLpm: round(c.fraction * c.lowestLpm), ramCount: count, ramMinLpm: round(row.minLpm), ramMaxLpm: round(row.maxLpm), limitedByFall: drive.limitedByFall }),

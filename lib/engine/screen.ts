@@ -7,7 +7,7 @@ import { DRIVE_LD_BAND, driveLengthBandM, RAM_SIZE_TABLE } from './drive-pipe';
 import { EngineInputError } from './errors';
 import { designGravityPipe } from './gravity';
 import { runMonteCarlo } from './monte-carlo';
-import { planRams, type RamPlan, type RamPlanInput } from './ram-plan';
+import { planWithFeed, type FeedDesign, type RamPlan, type RamPlanInput } from './ram-plan';
 import { EFFICIENCY_CURVES } from './ram';
 import { combineRuns, estimateFlow, estimateLift, type CombinedEstimate, type FlowEstimate } from './readings';
 import { buildFigures, buildGravityFigures, buildSurveyFigures, type SurveyContext } from './screen-figures';
@@ -122,24 +122,25 @@ type Fix = RamVerdictFacts['fix'];
  * The plan as the readings stand; when it falls short, the plan with the fix that makes it meet the need (the
  * recommended delivery pipe, then the organisation's largest share of the flow), so the figures show it met.
  */
-function planWithFix(sv: Survey, input: RamPlanInput): { plan: RamPlan; fix: Fix; fraction: number } {
+function planWithFix(sv: Survey, input: RamPlanInput): { plan: RamPlan; fix: Fix; fraction: number; feed: FeedDesign | null; fallM: number } {
   const s = sv.r.settings;
-  const base = planRams(input);
+  const plan = (i: RamPlanInput) => planWithFeed(i, sv.r.feedPipe);
+  const base = plan(input);
   const fraction = s.designFractionOfLowest;
-  const shortLpd = base.status === 'short' ? base.option.deliveryLpd : 0;
-  if (base.status === 'meets' || (base.status === 'no-ram' && base.cause !== 'flow')) return { plan: base, fix: null, fraction };
-  if (base.status === 'short' && sv.r.deliveryPipe.diameterMm) {
-    const p = planRams({ ...input, deliveryPipe: { ...input.deliveryPipe, diameterMm: undefined } });
-    if (p.status === 'meets') return { plan: p, fix: { kind: 'delivery-pipe', label: p.option.delivery.size.label, shortLpd }, fraction };
+  const shortLpd = base.plan.status === 'short' ? base.plan.option.deliveryLpd : 0;
+  if (base.plan.status === 'meets' || (base.plan.status === 'no-ram' && base.plan.cause !== 'flow')) return { ...base, fix: null, fraction };
+  if (base.plan.status === 'short' && sv.r.deliveryPipe.diameterMm) {
+    const p = plan({ ...input, deliveryPipe: { ...input.deliveryPipe, diameterMm: undefined } });
+    if (p.plan.status === 'meets') return { ...p, fix: { kind: 'delivery-pipe', label: p.plan.option.delivery.size.label, shortLpd }, fraction };
   }
   if (s.maxDesignFractionOfLowest > fraction) {
-    const p = planRams({ ...input, availableLpm: s.maxDesignFractionOfLowest * sv.lowestLpm });
-    if (p.status === 'meets') {
-      const takeLpm = p.option.count * p.option.drive.driveLpm;
-      return { plan: p, fix: { kind: 'more-water', fraction: takeLpm / sv.lowestLpm, takeLpm, leaveLpm: sv.lowestLpm - takeLpm, shortLpd }, fraction: s.maxDesignFractionOfLowest };
+    const p = plan({ ...input, availableLpm: s.maxDesignFractionOfLowest * sv.lowestLpm });
+    if (p.plan.status === 'meets') {
+      const takeLpm = p.plan.option.count * p.plan.option.drive.driveLpm;
+      return { ...p, fix: { kind: 'more-water', fraction: takeLpm / sv.lowestLpm, takeLpm, leaveLpm: sv.lowestLpm - takeLpm, shortLpd }, fraction: s.maxDesignFractionOfLowest };
     }
   }
-  return { plan: base, fix: null, fraction };
+  return { ...base, fix: null, fraction };
 }
 
 /** Screens one site from its raw readings: figures with their rules and sources, verdict, cautions and materials. */
@@ -157,12 +158,13 @@ export function screenSite(input: SiteReadingsInput): Screening {
     needLpd, curve, driveLengthRule: s.driveLengthRule, fittingsAllowance: s.fittingsAllowanceFraction,
     drivePipe: r.drivePipe, deliveryPipe: r.deliveryPipe, forced: r.ram,
   };
-  const { plan, fix, fraction } = planWithFix(sv, planInput);
+  const { plan, fix, fraction, feed, fallM: drivingFallM } = planWithFix(sv, planInput);
   const option = plan.status === 'no-ram' ? null : plan.option;
   const smallest = RAM_SIZE_TABLE[0] as (typeof RAM_SIZE_TABLE)[number];
 
   const mc = option ? runMonteCarlo({
-    ctx: { curve, deliveryFrictionK: option.delivery.frictionK }, fallM: sv.fall.valueM, fallSigmaM: sv.fall.sigmaM,
+    // Behind a feed pipe the ram works on the fall that its friction leaves.
+    ctx: { curve, deliveryFrictionK: option.delivery.frictionK }, fallM: drivingFallM, fallSigmaM: sv.fall.sigmaM,
     staticLiftM: sv.lift.valueM, staticLiftSigmaM: sv.lift.sigmaM, lowestFlowLpm: sv.lowestLpm, lowestFlowRelativeSigma: sv.lowest.relativeSigma,
     designFraction: fraction, ramMaxLpm: option.drive.driveLpm, ramMinLpm: option.row.minLpm, ramCount: option.count,
     demandLpd: sv.facts.demandLpd, samples: r.monteCarlo.samples, seed: r.monteCarlo.seed,
@@ -175,7 +177,7 @@ export function screenSite(input: SiteReadingsInput): Screening {
     plan: plan.status === 'no-ram' ? plan : { status: plan.status, count: plan.option.count, sizeLabel: plan.option.drive.size.label, forced: plan.forced },
     smallestRamMinLpm: smallest.minLpm, leastRamFallM: Math.min(...RAM_SIZE_TABLE.map((x) => x.minFallM)),
     staticLiftM: sv.lift.valueM, totalLiftM: option?.op.totalLiftM ?? sv.lift.valueM,
-    liftRatio: option?.op.liftRatio ?? (sv.fall.valueM > 0 ? sv.lift.valueM / sv.fall.valueM : Infinity),
+    liftRatio: option?.op.liftRatio ?? (drivingFallM > 0 ? sv.lift.valueM / drivingFallM : Infinity),
     efficiencyStatus: option ? (option.op.liftRatio > curve.maxRatio ? 'above-range' : option.op.liftRatio < curve.minRatio ? 'below-range' : 'in-range') : 'in-range',
     curveLabel: curve.label, curveRange: [curve.minRatio, curve.maxRatio], curveStatedUpTo: curve.statedUpToRatio,
     deliveryLpd: option?.deliveryLpd ?? 0,
@@ -196,13 +198,13 @@ export function screenSite(input: SiteReadingsInput): Screening {
   });
 
   const surveyCtx = { ...sv.ctx, fraction };
-  const figures = option && mc ? buildFigures({ ...surveyCtx, option, forced: plan.forced, curve, mc }) : buildSurveyFigures(surveyCtx);
+  const figures = option && mc ? buildFigures({ ...surveyCtx, option, forced: plan.forced, curve, mc, feed, drivingFallM }) : buildSurveyFigures(surveyCtx);
   const relief = judgement.conditions.some((c) => c.code === 'BLOCKED_PRESSURE_ABOVE_RATING' && /relief valve/.test(c.text));
   const bom = judgement.verdict === 'no-go' || !option ? [] : billOfMaterials({
     drive: option.drive, delivery: option.delivery, deliveryLengthM: r.deliveryPipe.lengthM, ramDriveIn: option.row.driveIn, ramCount: option.count,
     ramMinLpm: option.row.minLpm, ramMaxLpm: option.row.maxLpm, tankL: sv.ctx.tank.sizeL, tankRuleLabel: sv.ctx.tank.rule.label,
-    standPipe: (option.drive.lengthGiven && option.drive.lengthM > option.drive.bandMaxM) || option.drive.lengthConflict === 'fall-band-above-ld',
-    reliefValve: relief,
+    standPipe: !feed && ((option.drive.lengthGiven && option.drive.lengthM > option.drive.bandMaxM) || option.drive.lengthConflict === 'fall-band-above-ld'),
+    reliefValve: relief, feed,
   });
   const sourceIds: SourceId[] = [...Object.values(figures).map((f) => f.sourceId), ...sv.ctx.demandLines.map((l) => l.sourceId), ...SHARED_SOURCES];
   if (option) sourceIds.push('ogden-1911-least-fall', 'efficiency-spread', 'minor-loss-coefficients');

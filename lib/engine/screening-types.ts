@@ -41,7 +41,8 @@ export type FigureKey =
   | 'surgeHeadM' | 'peakPressureHeadM' | 'drivePipeRatingM' | 'deliveryBoreMm' | 'deliveryPipeRatingM'
   | 'probabilityMeetsDemand' | 'deliveryP10Lpd' | 'deliveryP50Lpd' | 'deliveryP90Lpd'
   | 'ramCount' | 'ramSizeIn' | 'attainableDriveVelocityMps' | 'workingPeakHeadM' | 'blockedDeliveryHeadM' | 'drivePipeAllowedHeadM'
-  | 'gravityHeadM' | 'gravityPipeBoreMm' | 'gravityPipeLengthM' | 'gravityCapacityLpd';
+  | 'gravityHeadM' | 'gravityPipeBoreMm' | 'gravityPipeLengthM' | 'gravityCapacityLpd'
+  | 'feedPipeLengthM' | 'feedPipeBoreMm' | 'feedFrictionM' | 'drivingFallM';
 
 export interface BillOfMaterialsLine {
   item: string;

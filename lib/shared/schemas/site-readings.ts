@@ -157,6 +157,13 @@ const drivePipe = z.object({
   pressureClass: z.string().optional(),
 });
 
+/** A feed pipe from the intake to an open stand pipe, where the drive pipe starts (gentle creeks). */
+const feedPipe = z.object({
+  lengthM: positive('Feed pipe length'),
+  diameterMm: positive('Feed pipe diameter').optional(),
+  material: oneOf('Feed pipe material', materialIds).default('hdpe'),
+});
+
 const deliveryPipe = z.object({
   lengthM: positive('Delivery pipe length'),
   diameterMm: positive('Delivery pipe diameter').optional(),
@@ -207,6 +214,7 @@ export const siteReadingsSchema = z.object({
   fallRuns: z.array(fallRunSchema).min(1, 'Add at least one fall run'),
   lift: liftSchema,
   drivePipe: drivePipe.prefault({}),
+  feedPipe: feedPipe.optional(),
   deliveryPipe,
   demand: z.array(demandLine).min(1, 'Add at least one demand line'),
   ram: forcedRam.optional(),

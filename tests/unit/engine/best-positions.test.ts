@@ -93,3 +93,37 @@ describe('bestPositions against brute force (random small reaches)', () => {
     }
   });
 });
+
+describe('gentle creeks: a feed pipe to an open stand pipe, then the drive pipe to the ram', () => {
+  // 41 stations 5 m apart falling 1 m in 20 m (5 %), the tank 15 m above the foot of the reach: with the
+  // drive pipe starting at the intake every pair is longer than 7 × its fall (Perkin), so none fits.
+  const gentle = (slope: number): BestPositionsInput => ({
+    stations: Array.from({ length: 41 }, (_, n) => ({ id: `S${n}`, chainageM: 5 * n, levelM: 100 - slope * 5 * n })),
+    tank: { chainageM: 200, offsetM: 40, levelM: 100 - slope * 200 + 15 },
+    flowMeasurements: flow,
+    demand: household,
+    samples: 1000,
+  });
+
+  for (const slope of [0.02, 0.05, 0.1]) {
+    it(`a ${slope * 100} % creek finds go arrangements, each with its stand pipe inside the reach and the drive pipe inside the fall band`, () => {
+      const result = bestPositions(gentle(slope));
+      expect(result.pairsFeasible).toBeGreaterThan(0);
+      const best = result.ranked[0];
+      expect(best?.screening.verdict).toBe('go');
+      expect(best?.standPipe).not.toBeNull();
+      const fall = best?.fallM ?? NaN;
+      expect(best?.driveLengthM).toBeGreaterThanOrEqual(3 * fall - 1e-9);
+      expect(best?.driveLengthM).toBeLessThanOrEqual(7 * fall + 1e-9);
+      // The feed pipe's friction comes off the fall the ram works on.
+      expect(best?.screening.figures.drivingFallM?.value).toBeLessThan(fall);
+      expect(best?.screening.billOfMaterials.map((b) => b.item).join(' ')).toMatch(/Feed pipe.*stand pipe/);
+    });
+  }
+
+  it('ranks a go above any conditional (verdict first), whatever their chance or delivery', () => {
+    const ranked = bestPositions(gentle(0.05)).ranked;
+    const ranks = ranked.map((p) => p.verdictRank);
+    expect([...ranks].sort((a, b) => b - a)).toEqual(ranks);
+  });
+});
