@@ -10,6 +10,7 @@ import * as m0008 from './0008-millisecond-times';
 import * as m0011 from './0011-profile-stations-and-commissioning';
 import * as m0012 from './0012-office-scale-indexes';
 import * as m0013 from './0013-office-area-indexes';
+import * as m0014 from './0014-invitation-withdrawal';
 
 export interface MigrationModule {
   up(params: { context: QueryInterface }): Promise<void>;
@@ -29,4 +30,5 @@ export const MIGRATIONS: { name: string; module: MigrationModule }[] = [
   { name: '0011-profile-stations-and-commissioning.ts', module: m0011 },
   { name: '0012-office-scale-indexes.ts', module: m0012 },
   { name: '0013-office-area-indexes.ts', module: m0013 },
+  { name: '0014-invitation-withdrawal.ts', module: m0014 },
 ];
