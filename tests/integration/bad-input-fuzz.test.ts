@@ -47,6 +47,8 @@ const SCHEMAS: Record<string, Schemas> = {
   'POST app/api/visits/route.ts': { body: visitCreateSchema },
   'POST app/api/visits/assignments/route.ts': { body: bulkAssignSchema },
   'GET app/api/visits/export.csv/route.ts': { query: visitFilters },
+  'GET app/api/visits/deleted/route.ts': {},
+  'POST app/api/visits/[id]/restore/route.ts': {},
   'GET app/api/visits/[id]/route.ts': {},
   'PATCH app/api/visits/[id]/route.ts': { body: visitStatusSchema },
   'PUT app/api/visits/[id]/assignment/route.ts': { body: visitAssignSchema },

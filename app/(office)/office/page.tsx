@@ -3,7 +3,9 @@ import { Suspense } from 'react';
 import { requirePageUser } from '@/lib/server/auth/page-guard';
 import { districtAreas, visitCountsByAdvisor } from '@/lib/server/data/follow-up';
 import { listPeople } from '@/lib/server/data/people';
+import { listDeletedVisits } from '@/lib/server/data/visit-restore';
 import { visitCounts } from '@/lib/server/data/visits';
+import { DeletedVisits } from './_components/deleted-visits';
 import { FollowUpBoard } from './_components/follow-up-board';
 import { VisitsBrowser } from './_components/visits-browser';
 
@@ -11,8 +13,8 @@ export const metadata: Metadata = { title: 'District office' };
 
 export default async function OfficeHome() {
   const user = await requirePageUser(['coordinator'], '/office');
-  const [counts, loads, people, areas] = await Promise.all([
-    visitCounts(user), visitCountsByAdvisor(user), listPeople(user, { page: 1, pageSize: 100 }), districtAreas(user),
+  const [counts, loads, people, areas, deleted] = await Promise.all([
+    visitCounts(user), visitCountsByAdvisor(user), listPeople(user, { page: 1, pageSize: 100 }), districtAreas(user), listDeletedVisits(user),
   ]);
   const advisors = people.items.filter((p) => p.role === 'advisor' && p.active).map((p) => ({ id: p.id, name: p.name }));
   const total = Object.values(counts.byStatus).reduce((a, b) => a + (b ?? 0), 0);
@@ -32,6 +34,12 @@ export default async function OfficeHome() {
           <VisitsBrowser advisors={advisors} areas={areas} />
         </Suspense>
       </section>
+      {deleted.length > 0 && (
+        <section aria-labelledby="deleted-visits" className="space-y-3">
+          <h2 id="deleted-visits" className="text-xl font-bold">Deleted visits</h2>
+          <DeletedVisits visits={deleted} />
+        </section>
+      )}
     </div>
   );
 }

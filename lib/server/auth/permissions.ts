@@ -38,6 +38,16 @@ export const ROLE_PERMISSIONS = {
 
 export type Permission = keyof typeof ROLE_PERMISSIONS;
 
+/**
+ * What each sync op needs, from the same table: the permission of the route that makes that change
+ * through the UI. A visit's own record is captured by its advisor, but deleting it is planning.
+ */
+export const SYNC_OP_PERMISSIONS: Record<'visit' | 'demandLine' | 'reading', Record<'put' | 'delete', Permission>> = {
+  visit: { put: 'visit:capture', delete: 'visit:plan' },
+  demandLine: { put: 'demand:edit', delete: 'demand:edit' },
+  reading: { put: 'visit:capture', delete: 'visit:capture' },
+};
+
 export type { SessionUser };
 
 /** What a record says about who may touch it; the data layer fills in what it knows. */

@@ -3,6 +3,7 @@ import { buildRow } from '@/lib/server/db';
 import { VISIT_STATUSES } from '@/lib/shared/domain';
 import { entityFields, type OpResult, type SyncOp } from '@/lib/shared/schemas/sync';
 import type { AuditInput } from '../audit';
+import { SYNC_OP_PERMISSIONS } from '../auth/permissions';
 import { AppError, zodFieldErrors } from '../errors';
 import type { SyncAccess } from './access';
 import { ENTITY_SPECS, pulledRecord, sameValue, type EntitySpec, type SyncedRow } from './entities';
@@ -34,7 +35,7 @@ function conflictingFields(server: Json, changes: Json, base: Json | undefined, 
 /** The parent (visit or farm) the op belongs to, checked against the caller's access. */
 async function checkParent(op: SyncOp, spec: EntitySpec, row: SyncedRow | null, access: SyncAccess) {
   if (op.entity === 'visit') {
-    await access.assertCanCapture(op.entityId);
+    await access.assertOnVisit(op.entityId, SYNC_OP_PERMISSIONS.visit[op.action]);
     return { visitId: op.entityId, farmId: null };
   }
   const key = spec.parentKey as 'visitId' | 'farmId';
@@ -46,10 +47,10 @@ async function checkParent(op: SyncOp, spec: EntitySpec, row: SyncedRow | null, 
   const parentId = stored ?? (typeof sent === 'string' ? sent : null);
   if (!parentId) throw new AppError(422, 'invalid', `A new ${op.entity} needs its ${key}.`, { [`changes.${key}`]: ['Required.'] });
   if (key === 'farmId') {
-    await access.assertCanEditDemand(parentId);
+    await access.assertCanEditDemand(parentId, SYNC_OP_PERMISSIONS.demandLine[op.action]);
     return { visitId: null, farmId: parentId };
   }
-  await access.assertCanCapture(parentId);
+  await access.assertOnVisit(parentId, SYNC_OP_PERMISSIONS.reading[op.action]);
   return { visitId: parentId, farmId: null };
 }
 

@@ -170,6 +170,14 @@ export const ROUTES: RouteEntry[] = [
     build: async (u) => request('/api/visits/export.csv', u),
   },
   {
+    file: 'app/api/visits/deleted/route.ts', method: 'GET', load: () => import('@/app/api/visits/deleted/route'), permissions: ['visit:plan'], target: 'none', ok: 200,
+    build: async (u) => request('/api/visits/deleted', u),
+  },
+  {
+    file: 'app/api/visits/[id]/restore/route.ts', method: 'POST', load: () => import('@/app/api/visits/[id]/restore/route'), permissions: ['visit:plan'], target: 'visit', ok: 200,
+    build: async (u, r) => request(`/api/visits/${need(r).visitId}/restore`, u, json('POST', {})),
+  },
+  {
     file: 'app/api/visits/[id]/route.ts', method: 'GET', load: () => import('@/app/api/visits/[id]/route'), permissions: ['visit:read'], target: 'visit', ok: 200,
     build: async (u, r) => request(`/api/visits/${need(r).visitId}`, u),
   },
