@@ -2,6 +2,7 @@ import 'server-only';
 import type { NextAuthOptions } from 'next-auth';
 import CredentialsProvider from 'next-auth/providers/credentials';
 import { User } from '@/lib/server/db';
+import { sameOriginPath } from '@/lib/shared/return-path';
 import { signInSchema } from '@/lib/shared/schemas/sign-in';
 import { AppError } from '../errors';
 import { clientAddress } from './client-address';
@@ -49,6 +50,11 @@ export const authOptions: NextAuthOptions = {
     }),
   ],
   callbacks: {
+    // next-auth's own check lets `/\host` through (it only looks for a leading slash).
+    redirect({ url, baseUrl }) {
+      const path = sameOriginPath(url, baseUrl);
+      return path ? new URL(path, baseUrl).toString() : baseUrl;
+    },
     jwt({ token, user }) {
       if (user) {
         token.uid = user.id;
