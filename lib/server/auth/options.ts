@@ -7,7 +7,7 @@ import { signInSchema } from '@/lib/shared/schemas/sign-in';
 import { AppError } from '../errors';
 import { clientAddress } from './client-address';
 import { authCookieOptions } from './cookies';
-import { verifyPassword } from './passwords';
+import { dummyHash, verifyPassword } from './passwords';
 import { assertSignInAllowed, recordSignIn } from './rate-limit';
 
 const WRONG = 'That e-mail and password do not match an active account.';
@@ -34,7 +34,9 @@ export const authOptions: NextAuthOptions = {
           throw error;
         }
         const user = await User.findOne({ where: { email } });
-        const ok = !!user?.passwordHash && user.active && (await verifyPassword(password, user.passwordHash));
+        // bcrypt runs whatever the account: an unknown or switched-off one answers in the same time.
+        const matches = await verifyPassword(password, user?.passwordHash ?? (await dummyHash()));
+        const ok = !!user?.passwordHash && user.active && matches;
         await recordSignIn(email, address, ok);
         if (!user || !ok) throw new Error(WRONG);
         await user.update({ lastSignInAt: new Date() });
