@@ -195,8 +195,11 @@ describe('bad input, route by route', () => {
     }), { seed: SEED, numRuns: RUNS });
   });
 
-  it('the database is exactly as before: row counts and CHECKSUM TABLE of every table', async () => {
-    expect(await databaseFingerprint()).toEqual(before);
+  it('the database is exactly as before: row counts and CHECKSUM TABLE of every table (but the log of refused tries)', async () => {
+    // Guessed invitation tokens are logged (sign_in_attempts) to slow the guesser down: that is the point.
+    const withoutTries = (print: Record<string, string>) =>
+      Object.fromEntries(Object.entries(print).filter(([table]) => !table.startsWith('sign_in_attempts')));
+    expect(withoutTries(await databaseFingerprint())).toEqual(withoutTries(before));
   });
 });
 

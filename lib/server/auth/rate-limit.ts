@@ -20,7 +20,7 @@ export function waitAfter(failures: number, free: number): number {
   return Math.min(MAX_WAIT_MS, FIRST_WAIT_MS * 2 ** Math.min(failures - free, 20));
 }
 
-async function failuresSince(where: { email: string } | { address: string }, since: Date) {
+async function failuresSince(where: { email?: string; address?: string }, since: Date) {
   const [row] = await SignInAttempt.findAll({
     attributes: [[fn('COUNT', col('id')), 'n'], [fn('MAX', col('created_at')), 'last']],
     where: { ...where, succeeded: false, createdAt: { [Op.gte]: since } }, raw: true,
@@ -49,4 +49,19 @@ export async function assertSignInAllowed(email: string, address: string, now = 
 
 export async function recordSignIn(email: string, address: string, succeeded: boolean) {
   await SignInAttempt.create({ email, address: address.slice(0, 64), succeeded });
+}
+
+// Invitation links that do not exist, recorded beside sign-ins under this marker in place of an e-mail.
+const LINK_MISS = 'invitation-link-miss';
+export const FREE_LINK_MISSES_PER_ADDRESS = 10;
+
+/**
+ * For a token that matched no invitation: throws a 429 while the address must wait, else records
+ * the miss. Only misses are counted, so a real link is never slowed down by someone else's guesses.
+ */
+export async function recordLinkMiss(address: string, now = new Date()) {
+  const since = new Date(now.getTime() - SIGN_IN_WINDOW_MS);
+  const left = secondsLeft(await failuresSince({ email: LINK_MISS, address }, since), FREE_LINK_MISSES_PER_ADDRESS, now);
+  if (left > 0) throw rateLimited(`Too many tries with invitation links that do not work. Wait ${plural(left)}, then try again.`);
+  await recordSignIn(LINK_MISS, address, false);
 }

@@ -6,6 +6,7 @@ import type { acceptInvitationSchema, invitationSchema } from '@/lib/shared/sche
 import type { z } from 'zod';
 import { recordAudit } from '../audit';
 import { hashPassword } from '../auth/passwords';
+import { recordLinkMiss } from '../auth/rate-limit';
 import { authorize, type SessionUser } from '../auth/permissions';
 import { AppError, conflict } from '../errors';
 import { sendInvitation } from '../mail/notices';
@@ -100,11 +101,13 @@ export const INVITATION_GONE: Record<Exclude<InvitationState, 'valid'>, string> 
  * Sets the invited person's password, switches the account on and spends the token, all at once.
  * The token is looked up before any password is hashed, so guessed tokens cost no hashing; only the
  * newest link sent to a person works, and none works once the office switched the account off after
- * sending it (switching off withdraws pending links).
+ * sending it (switching off withdraws pending links). Tokens that match nothing are counted per
+ * address and slowed down (429).
  */
-export async function acceptInvitation(token: string, input: z.output<typeof acceptInvitationSchema>, now = new Date()) {
+export async function acceptInvitation(token: string, input: z.output<typeof acceptInvitationSchema>, address: string, now = new Date()) {
   const found = token.length <= MAX_TOKEN_LENGTH ? await Invitation.findOne({ where: { tokenHash: hashToken(token) } }) : null;
   const early = stateOf(found, now);
+  if (early === 'unknown') await recordLinkMiss(address, now);
   if (early !== 'valid') throw invitationGone(early);
   const passwordHash = await hashPassword(input.password);
   return getSequelize().transaction(async (transaction) => {
