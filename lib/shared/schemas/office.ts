@@ -1,9 +1,10 @@
 import { z } from '@/lib/shared/zod';
 import { ROLES, UNIT_SYSTEMS, VISIT_STATUSES } from '../domain';
+import { isoDay as boundedDay } from './bounds';
 
 // Bodies of the coordinator's office routes; the forms use the same schemas (zodResolver).
 
-const isoDay = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Pick a date.');
+const isoDay = boundedDay('Pick a date.');
 const optionalDay = z.preprocess((v) => (v === '' ? null : v), isoDay.nullable().optional());
 const uuid = (what: string) => z.string().uuid(`Choose ${what}.`);
 
