@@ -1,6 +1,6 @@
 import 'server-only';
 import { Organisation, getSequelize } from '@/lib/server/db';
-import { DEMAND_CATALOGUE } from '@/lib/engine/demand';
+import { isDemandKind } from '@/lib/shared/demand-kinds';
 import type { settingsSchema } from '@/lib/shared/schemas/office';
 import type { z } from 'zod';
 import { recordAudit } from '../audit';
@@ -18,7 +18,7 @@ export async function getSettings(user: SessionUser) {
 /** Replaces the settings; per-head figures must name kinds the engine knows. Audited with before/after. */
 export async function updateSettings(user: SessionUser, input: z.output<typeof settingsSchema>) {
   authorize(user, 'organisation:settings');
-  const unknown = Object.keys(input.demandFigures).filter((k) => !(k in DEMAND_CATALOGUE));
+  const unknown = Object.keys(input.demandFigures).filter((k) => !isDemandKind(k));
   if (unknown.length) {
     throw invalid(`demandFigures: unknown kinds ${unknown.join(', ')}.`, Object.fromEntries(unknown.map((k) => [`demandFigures.${k}`, ['Not a demand kind the screen knows.']])));
   }

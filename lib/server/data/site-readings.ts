@@ -1,4 +1,5 @@
 import 'server-only';
+import { knownDemandFigures } from '@/lib/shared/demand-kinds';
 import type { Transaction } from 'sequelize';
 import { DemandLine, FallReading, FlowMeasurement, Organisation, PipeRun, Visit } from '@/lib/server/db';
 import type { SiteReadingsInput } from '@/lib/shared/schemas/site-readings';
@@ -53,7 +54,7 @@ export async function loadSiteReadings(visitId: string, transaction?: Transactio
     demand: demand.map((d) => ({ kind: d.kind, count: d.count, litresPerHeadPerDay: d.litresPerHeadPerDay })),
     settings: {
       designFractionOfLowest: organisation.settings.designFractionOfLowest,
-      demandOverrides: organisation.settings.demandFigures,
+      demandOverrides: knownDemandFigures(organisation.settings.demandFigures),
     },
     monteCarlo: { samples: 10_000, seed: 1 },
   } as SiteReadingsInput;

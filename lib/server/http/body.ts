@@ -1,5 +1,5 @@
 import 'server-only';
-import { BROKEN_CHARACTER, loneSurrogatePath } from '@/lib/shared/schemas/bounds';
+import { unusableJson } from '@/lib/shared/schemas/bounds';
 import { invalid, tooLarge } from '../errors';
 
 /** The largest JSON body a form route reads; a sync push has its own, larger cap. */
@@ -14,11 +14,12 @@ export async function readJson(req: Request, maxBytes = MAX_JSON_BYTES): Promise
   } catch {
     throw invalid('The request body is not valid JSON.');
   }
-  // JSON may spell half a character (`"\ud83d"`); it is not text and no column can hold it.
-  const broken = loneSurrogatePath(value);
-  if (broken) {
-    const field = broken.join('.') || '_';
-    throw invalid(`${field}: ${BROKEN_CHARACTER}`, { [field]: [BROKEN_CHARACTER] });
+  // JSON may spell half a character (`"\ud83d"`), which is not text and no column can hold, or
+  // name a key `__proto__`, which no field has.
+  const unusable = unusableJson(value);
+  if (unusable) {
+    const field = unusable.path.join('.') || '_';
+    throw invalid(`${field}: ${unusable.message}`, { [field]: [unusable.message] });
   }
   return value;
 }

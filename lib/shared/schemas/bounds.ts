@@ -46,12 +46,26 @@ const pathOf = (step: Step) => {
   return path;
 };
 
+export const PROTOTYPE_NAME = 'This name is not allowed here.';
+
 /**
- * The path of the first string (or key) in a JSON value that holds a lone surrogate, or null.
- * Walks with its own stack and parent links: a body nested 200,000 deep must not overflow the call
- * stack, nor copy its path at every level.
+ * The first thing in a JSON value that no field can take: a string or key holding a lone surrogate,
+ * or a `__proto__` key (JSON.parse keeps it as an own key, but any copy into an object drops it or
+ * changes the copy's prototype). Its path and the message to show, or null.
  */
-export function loneSurrogatePath(value: unknown): (string | number)[] | null {
+export function unusableJson(value: unknown): { path: (string | number)[]; message: string } | null {
+  const broken = loneSurrogatePath(value, true);
+  if (!broken) return null;
+  const last = broken[broken.length - 1];
+  return { path: broken, message: last === '__proto__' ? PROTOTYPE_NAME : BROKEN_CHARACTER };
+}
+
+/**
+ * The path of the first string (or key) in a JSON value that holds a lone surrogate (or, with
+ * `prototypeKeys`, the first `__proto__` key), or null. Walks with its own stack and parent links:
+ * a body nested 200,000 deep must not overflow the call stack, nor copy its path at every level.
+ */
+export function loneSurrogatePath(value: unknown, prototypeKeys = false): (string | number)[] | null {
   const stack: Step[] = [{ value, key: null, parent: null }];
   while (stack.length > 0) {
     const step = stack.pop() as Step;
@@ -64,7 +78,7 @@ export function loneSurrogatePath(value: unknown): (string | number)[] | null {
       const entries = Object.entries(current);
       for (let i = entries.length - 1; i >= 0; i -= 1) {
         const [key, inner] = entries[i] as [string, unknown];
-        if (hasLoneSurrogate(key)) return pathOf({ value: inner, key, parent: step });
+        if (hasLoneSurrogate(key) || (prototypeKeys && key === '__proto__')) return pathOf({ value: inner, key, parent: step });
         stack.push({ value: inner, key, parent: step });
       }
     }

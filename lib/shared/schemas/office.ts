@@ -1,5 +1,6 @@
 import { z } from '@/lib/shared/zod';
 import { ROLES, UNIT_SYSTEMS, VISIT_STATUSES } from '../domain';
+import { isDemandKind } from '../demand-kinds';
 import { isoDay as boundedDay } from './bounds';
 
 // Bodies of the coordinator's office routes; the forms use the same schemas (zodResolver).
@@ -79,7 +80,9 @@ export const settingsSchema = z.object({
     (v) => (typeof v === 'string' ? Number(v.trim().replace(',', '.')) : v),
     z.number({ message: 'Enter a fraction like 0.5.' }).min(0.1, 'At least 0.1 of the lowest flow.').max(0.9, 'At most 0.9: leave water in the stream.'),
   ),
-  demandFigures: z.record(z.string().min(1), positive('A per-head figure')),
+  demandFigures: z.record(z.string().refine(isDemandKind), positive('A per-head figure'), {
+    error: (issue) => (issue.code === 'invalid_key' ? 'Not a demand kind the screen knows.' : undefined),
+  }),
   pipePrices: z.array(z.object({
     material: z.string().trim().min(1, 'Name the pipe material.').max(40),
     diameterMm: positive('Diameter'),

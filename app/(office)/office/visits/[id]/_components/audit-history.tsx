@@ -5,6 +5,7 @@ export interface AuditLineView { id: number; at: string; action: string; actor: 
 
 const ACTIONS: Record<string, string> = {
   create: 'Visit planned', assign: 'Advisor assigned', reassign: 'Reassigned to another advisor', replan: 'Planned date changed', status: 'State changed',
+  restore: 'Deleted visit restored', 'screening-failed': 'The screen failed on the server; it runs again on the next sync',
 };
 const when = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit', timeZone: 'UTC' });
 
@@ -30,7 +31,7 @@ export function AuditHistory({ lines, names }: { lines: AuditLineView[]; names: 
       {lines.map((l) => (
         <li key={l.id} className="py-2">
           <span className="figure block text-sm text-stone">{when.format(new Date(l.at))} UTC</span>
-          <span className="block"><strong>{l.actor?.name ?? 'The system'}</strong> · {ACTIONS[l.action] ?? l.action}</span>
+          <span className="block"><strong>{l.actor?.name ?? 'The system'}</strong> · {(Object.hasOwn(ACTIONS, l.action) ? ACTIONS[l.action] : undefined) ?? l.action}</span>
           <span className="block text-stone">{describe(l, names)}</span>
         </li>
       ))}
