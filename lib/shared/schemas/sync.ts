@@ -7,6 +7,7 @@ import { POINT_ROLES, type VisitStatus } from '../domain';
 import { STATION_FLAGS } from '@/lib/engine/profile-pairs';
 import { fallRunSchema, flowMeasurementSchema, LIFT_DIRECT_METHODS } from './site-readings';
 import { isoDateTime, MAX_PHOTO_SIDE_PX } from './bounds';
+import { PRESSURE_CLASS_IDS } from '../reading-limits';
 
 const uuid = z.string().uuid('Must be a UUID.');
 const isoTime = isoDateTime;
@@ -101,7 +102,7 @@ export const entityFields = {
     lengthM: finite.positive().max(100_000).nullable(),
     diameterMm: finite.positive().max(2_000).nullable(),
     material: z.enum(keys<PipeMaterialId>(PIPE_MATERIALS)),
-    pressureClass: text(24).nullable(),
+    pressureClass: z.enum(PRESSURE_CLASS_IDS, { message: 'Choose a pressure class from the list.' }).nullable(),
   }),
   /**
    * What an installed ram measured, recorded on the phone (often offline). Create-only: the server
