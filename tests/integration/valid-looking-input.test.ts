@@ -4,8 +4,10 @@
 import { randomUUID } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
 import { POST as postFarm } from '@/app/api/farms/route';
+import { PUT as putAssignment } from '@/app/api/visits/[id]/assignment/route';
 import { POST as postQuestion } from '@/app/api/visits/[id]/sheet/questions/route';
-import { Farm, FlowMeasurement, Photo, Point } from '@/lib/server/db';
+import { GET as getVisits } from '@/app/api/visits/route';
+import { Farm, FlowMeasurement, Photo, Point, Visit } from '@/lib/server/db';
 import { makeOrganisation, params, request } from './support/fixtures';
 import { push, putOp } from './support/sync';
 
@@ -53,5 +55,20 @@ describe('valid-looking input is refused with a 422, never a 500', () => {
     expect(res.status).toBe(422);
     expect(res.error?.message).toMatch(/width/);
     expect(await Photo.findByPk(id)).toBeNull();
+  });
+
+  it('days before year 1000 are refused (they came back shifted: 0000-01-01 as 2000-01-01); the lowest allowed day round-trips', async () => {
+    const o = await makeOrganisation('old-day');
+    const assign = async (plannedOn: string) =>
+      putAssignment(await request(`/api/visits/${o.visit.id}/assignment`, o.coordinator, { method: 'PUT', body: { advisorId: o.advisor.id, plannedOn, confirmUnsynced: true } }), params({ id: o.visit.id }));
+    for (const day of ['0000-01-01', '0999-12-31']) {
+      const res = await assign(day);
+      expect(res.status, day).toBe(422);
+      expect((await res.json()).error.fieldErrors.plannedOn).toBeDefined();
+    }
+    const list = await getVisits(await request('/api/visits?plannedFrom=0000-01-01', o.coordinator), params({}));
+    expect(list.status).toBe(422);
+    expect((await assign('1900-01-01')).status).toBe(200);
+    expect((await Visit.findByPk(o.visit.id, { rejectOnEmpty: true })).plannedOn).toBe('1900-01-01');
   });
 });
