@@ -9,7 +9,9 @@ import { fallRunSchema, flowMeasurementSchema, LIFT_DIRECT_METHODS } from './sit
 import { isoDateTime, MAX_PHOTO_SIDE_PX } from './bounds';
 import { PRESSURE_CLASS_IDS } from '../reading-limits';
 
-const uuid = z.string().uuid('Must be a UUID.');
+// A UUID names the same thing in either case: kept in lower case, so an upper-cased copy of an op
+// id is a replay and an upper-cased record id the same record.
+const uuid = z.string().uuid('Must be a UUID.').transform((id) => id.toLowerCase());
 const isoTime = isoDateTime;
 const text = (max: number) => z.string().max(max, `At most ${max} characters.`);
 const finite = z.number().finite('Must be a finite number.');
