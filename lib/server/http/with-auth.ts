@@ -1,5 +1,6 @@
 import 'server-only';
 import type { NextRequest } from 'next/server';
+import { trustedProxyCount } from '../auth/client-address';
 import { requireRequestUser } from '../auth/current-user';
 import { onReplicas, onWriter, WROTE_COOKIE, wroteRecently } from '../db/read-routing';
 import { dbEnv } from '../env';
@@ -16,10 +17,23 @@ export interface AuthedContext<P> {
 
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
-// The host the browser addressed: `next start` may build nextUrl with another name for the same
-// server (localhost vs 127.0.0.1), so the Host header is what an Origin must match.
-function requestHost(req: NextRequest): string {
-  return req.headers.get('x-forwarded-host') ?? req.headers.get('host') ?? req.nextUrl.host;
+/**
+ * The origins a same-site page of this app can have: the configured public URL (NEXTAUTH_URL), and
+ * the scheme and Host the request arrived with (`next start` may be addressed as localhost or
+ * 127.0.0.1). X-Forwarded-Host and -Proto are the client's own text unless a proxy is configured.
+ */
+function expectedOrigins(req: NextRequest): Set<string> {
+  const origins = new Set<string>([req.nextUrl.origin]);
+  try {
+    if (process.env.NEXTAUTH_URL) origins.add(new URL(process.env.NEXTAUTH_URL).origin);
+  } catch {
+    // A malformed NEXTAUTH_URL adds nothing; env parsing reports it elsewhere.
+  }
+  const proxied = trustedProxyCount() > 0;
+  const host = (proxied ? req.headers.get('x-forwarded-host') : null) ?? req.headers.get('host');
+  const proto = (proxied ? req.headers.get('x-forwarded-proto')?.split(',')[0]?.trim() : null) ?? req.nextUrl.protocol.replace(/:$/, '');
+  if (host) origins.add(`${proto}://${host}`.toLowerCase());
+  return origins;
 }
 
 /** Route handlers have no CSRF protection of their own: refuse cross-site mutations. */
@@ -29,13 +43,13 @@ export function assertSameOrigin(req: NextRequest) {
   if (site && site !== 'same-origin' && site !== 'none') throw forbidden('Cross-site requests are refused.');
   const origin = req.headers.get('origin');
   if (!origin) return;
-  let host: string;
+  let parsed: string;
   try {
-    host = new URL(origin).host;
+    parsed = new URL(origin).origin.toLowerCase();
   } catch {
     throw forbidden('Cross-site requests are refused.');
   }
-  if (host !== requestHost(req) && origin !== req.nextUrl.origin) throw forbidden('Cross-site requests are refused.');
+  if (!expectedOrigins(req).has(parsed)) throw forbidden('Cross-site requests are refused.');
 }
 
 /**
