@@ -73,6 +73,19 @@ function markWrote(req: NextRequest, res: Response): Response {
   return res;
 }
 
+/**
+ * Every answer behind a session is about a person: no browser or shared cache keeps it (a later
+ * user of the same profile, after sign-out, finds nothing). A route may say something stricter.
+ */
+function noStore(res: Response): Response {
+  try {
+    if (!res.headers.get('cache-control')?.includes('no-store')) res.headers.set('cache-control', 'private, no-store');
+  } catch {
+    // A response with immutable headers (a redirect built by the platform) is left as it is.
+  }
+  return res;
+}
+
 /** Wraps a route handler: session (401), permission by role (403), same-origin writes, errors → status. */
 export function withAuth<P = Record<string, never>>(
   permission: Permission,
@@ -86,9 +99,9 @@ export function withAuth<P = Record<string, never>>(
         const user = await onWriter(() => requireRequestUser(req));
         authorize(user, permission);
         assertSameOrigin(req);
-        return markWrote(req, await handler({ req, user, params: await context.params }));
+        return noStore(markWrote(req, await handler({ req, user, params: await context.params })));
       } catch (error) {
-        return toHttpResponse(error);
+        return noStore(toHttpResponse(error));
       }
     });
   };
