@@ -11,6 +11,7 @@ import * as m0011 from './0011-profile-stations-and-commissioning';
 import * as m0012 from './0012-office-scale-indexes';
 import * as m0013 from './0013-office-area-indexes';
 import * as m0014 from './0014-invitation-withdrawal';
+import * as m0015 from './0015-ended-sessions';
 
 export interface MigrationModule {
   up(params: { context: QueryInterface }): Promise<void>;
@@ -31,4 +32,5 @@ export const MIGRATIONS: { name: string; module: MigrationModule }[] = [
   { name: '0012-office-scale-indexes.ts', module: m0012 },
   { name: '0013-office-area-indexes.ts', module: m0013 },
   { name: '0014-invitation-withdrawal.ts', module: m0014 },
+  { name: '0015-ended-sessions.ts', module: m0015 },
 ];

@@ -29,6 +29,7 @@ const SEED = Number(process.env.FUZZ_SEED ?? 20260607);
 type Schemas = { body?: z.ZodType; query?: z.ZodType };
 const SCHEMAS: Record<string, Schemas> = {
   'GET app/api/me/route.ts': {},
+  'POST app/api/me/sessions/route.ts': {},
   'GET app/api/farms/route.ts': { query: pageQuery },
   'POST app/api/farms/route.ts': { body: farmSchema },
   'GET app/api/farms/[id]/route.ts': {},

@@ -1,7 +1,8 @@
 import 'server-only';
 import type { NextAuthOptions } from 'next-auth';
 import CredentialsProvider from 'next-auth/providers/credentials';
-import { User } from '@/lib/server/db';
+import { randomUUID } from 'node:crypto';
+import { EndedSession, User } from '@/lib/server/db';
 import { sameOriginPath } from '@/lib/shared/return-path';
 import { signInSchema } from '@/lib/shared/schemas/sign-in';
 import { AppError } from '../errors';
@@ -9,11 +10,12 @@ import { clientAddress } from './client-address';
 import { authCookieOptions } from './cookies';
 import { dummyHash, verifyPassword } from './passwords';
 import { assertSignInAllowed, recordSignIn } from './rate-limit';
+import { SESSION_MAX_AGE_S } from './session-policy';
 
 const WRONG = 'That e-mail and password do not match an active account.';
 
 export const authOptions: NextAuthOptions = {
-  session: { strategy: 'jwt', maxAge: 30 * 24 * 60 * 60 },
+  session: { strategy: 'jwt', maxAge: SESSION_MAX_AGE_S },
   // Read straight from the env (as next-auth does): importing these options must not need the rest.
   ...authCookieOptions(process.env.NEXTAUTH_URL ?? ''),
   pages: { signIn: '/login', error: '/login' },
@@ -51,6 +53,15 @@ export const authOptions: NextAuthOptions = {
       },
     }),
   ],
+  events: {
+    // The cookie is cleared in the browser; the token itself is listed as ended, so a copy of it
+    // (another tab's, a stolen one) is refused too. The person's other sessions go on.
+    async signOut({ token }) {
+      if (!token?.sid || !token.uid) return;
+      const expiresAt = new Date(((typeof token.exp === 'number' ? token.exp : 0) || Date.now() / 1000 + SESSION_MAX_AGE_S) * 1000);
+      await EndedSession.upsert({ sid: String(token.sid).slice(0, 64), userId: String(token.uid), expiresAt });
+    },
+  },
   callbacks: {
     // next-auth's own check lets `/\host` through (it only looks for a leading slash).
     redirect({ url, baseUrl }) {
@@ -63,6 +74,7 @@ export const authOptions: NextAuthOptions = {
         token.role = user.role;
         token.organisationId = user.organisationId;
         token.sessionVersion = user.sessionVersion;
+        token.sid = randomUUID();
       }
       return token;
     },
@@ -74,6 +86,7 @@ export const authOptions: NextAuthOptions = {
         name: token.name ?? '',
         email: token.email ?? '',
         sessionVersion: token.sessionVersion,
+        sid: token.sid,
       };
       return session;
     },

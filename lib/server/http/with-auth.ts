@@ -1,7 +1,11 @@
 import 'server-only';
 import type { NextRequest } from 'next/server';
 import { trustedProxyCount } from '../auth/client-address';
-import { requireRequestUser } from '../auth/current-user';
+import type { JWT } from 'next-auth/jwt';
+import { encode } from 'next-auth/jwt';
+import { requireRequestSession } from '../auth/current-user';
+import { servedOverHttps, sessionCookieName } from '../auth/cookies';
+import { SESSION_MAX_AGE_S, SESSION_RENEW_AFTER_S } from '../auth/session-policy';
 import { onReplicas, onWriter, WROTE_COOKIE, wroteRecently } from '../db/read-routing';
 import { dbEnv } from '../env';
 import { authorize, type Permission, type SessionUser } from '../auth/permissions';
@@ -74,6 +78,26 @@ function markWrote(req: NextRequest, res: Response): Response {
 }
 
 /**
+ * Sliding sessions: a token used a day or more after it was issued is issued again (same claims,
+ * a fresh two weeks), so a session ends after two weeks without use, not two weeks after sign-in.
+ */
+async function renewSession(claims: JWT, res: Response): Promise<Response> {
+  const issued = typeof claims.iat === 'number' ? claims.iat : 0;
+  const now = Math.floor(Date.now() / 1000);
+  if (res.status >= 400 || now - issued < SESSION_RENEW_AFTER_S) return res;
+  const url = process.env.NEXTAUTH_URL ?? '';
+  const { iat: _iat, exp: _exp, jti: _jti, ...kept } = claims;
+  const token = await encode({ token: kept as JWT, secret: process.env.NEXTAUTH_SECRET ?? '', maxAge: SESSION_MAX_AGE_S });
+  const secure = servedOverHttps(url) ? '; Secure' : '';
+  try {
+    res.headers.append('set-cookie', `${sessionCookieName(url)}=${token}; Path=/; Max-Age=${SESSION_MAX_AGE_S}; HttpOnly; SameSite=Lax${secure}`);
+  } catch {
+    // A response with immutable headers keeps the old token; the next request renews it.
+  }
+  return res;
+}
+
+/**
  * Every answer behind a session is about a person: no browser or shared cache keeps it (a later
  * user of the same profile, after sign-out, finds nothing). A route may say something stricter.
  */
@@ -96,10 +120,11 @@ export function withAuth<P = Record<string, never>>(
     return run(async () => {
       try {
         // The account is read from the primary: a deactivation ends the session at once, lag or not.
-        const user = await onWriter(() => requireRequestUser(req));
+        const { user, claims } = await onWriter(() => requireRequestSession(req));
         authorize(user, permission);
         assertSameOrigin(req);
-        return noStore(markWrote(req, await handler({ req, user, params: await context.params })));
+        const res = await handler({ req, user, params: await context.params });
+        return noStore(await renewSession(claims, markWrote(req, res)));
       } catch (error) {
         return noStore(toHttpResponse(error));
       }
