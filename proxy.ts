@@ -10,6 +10,7 @@ import { withAuth } from 'next-auth/middleware';
 import { NextResponse, type NextFetchEvent, type NextRequest } from 'next/server';
 
 const signInFirst = withAuth({ pages: { signIn: '/login' } });
+
 export default function proxy(req: NextRequest, event: NextFetchEvent) {
   try {
     decodeURIComponent(req.nextUrl.pathname);

@@ -34,12 +34,7 @@ export default async function OfficeHome() {
           <VisitsBrowser advisors={advisors} areas={areas} />
         </Suspense>
       </section>
-      {deleted.length > 0 && (
-        <section aria-labelledby="deleted-visits" className="space-y-3">
-          <h2 id="deleted-visits" className="text-xl font-bold">Deleted visits</h2>
-          <DeletedVisits visits={deleted} />
-        </section>
-      )}
+      <DeletedVisits visits={deleted} />
     </div>
   );
 }

@@ -3,10 +3,14 @@
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { apiJson } from '@/lib/client/api';
+import { formatDay } from '@/lib/shared/format';
 
 export interface DeletedVisit { id: string; farmName: string; advisorName: string | null; deletedAt: string }
 
-/** The organisation's deleted visits, each with a button that brings it back with its readings. */
+/**
+ * The organisation's deleted visits, each with a button that brings it back with its readings.
+ * Shown while there are any, and after the last one is restored, for its message.
+ */
 export function DeletedVisits({ visits }: { visits: DeletedVisit[] }) {
   const router = useRouter();
   const [busy, setBusy] = useState<string | null>(null);
@@ -24,13 +28,15 @@ export function DeletedVisits({ visits }: { visits: DeletedVisit[] }) {
       setBusy(null);
     }
   }
+  if (visits.length === 0 && !message) return null;
   return (
-    <div className="space-y-2">
-      <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
+    <section aria-labelledby="deleted-visits" className="space-y-3">
+      <h2 id="deleted-visits" className="text-xl font-bold">Deleted visits</h2>
+      {visits.length > 0 && <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
         {visits.map((v) => (
           <li key={v.id} className="flex flex-wrap items-center justify-between gap-3 p-3">
             <span>
-              <strong>{v.farmName}</strong>{v.advisorName ? ` · ${v.advisorName}` : ''} · deleted {new Date(v.deletedAt).toLocaleDateString()}
+              <strong>{v.farmName}</strong>{v.advisorName ? ` · ${v.advisorName}` : ''} · deleted {formatDay(v.deletedAt)}
             </span>
             <button type="button" onClick={() => restore(v)} disabled={busy !== null}
               className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate disabled:opacity-50">
@@ -38,8 +44,8 @@ export function DeletedVisits({ visits }: { visits: DeletedVisit[] }) {
             </button>
           </li>
         ))}
-      </ul>
+      </ul>}
       {message && <p role={message.ok ? 'status' : 'alert'} className={`font-bold ${message.ok ? 'text-moss' : 'text-clay'}`}>{message.text}</p>}
-    </div>
+    </section>
   );
 }
