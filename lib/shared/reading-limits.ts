@@ -12,6 +12,10 @@ export const MAX_LEVEL_STATIONS = 500;
 export const MAX_RUN_STEPS = 500;
 /** Runs in one lift booked as runs. */
 export const MAX_LIFT_RUNS = 50;
+/** What one visit's screening takes: flow measurements (so at most 20,000 trials in all), fall runs, demand lines. */
+export const MAX_FLOW_MEASUREMENTS = 200;
+export const MAX_FALL_RUNS = 100;
+export const MAX_DEMAND_LINES = 200;
 
 /** Every pressure class id the engine knows, for any material. */
 export const PRESSURE_CLASS_IDS = [...new Set(Object.values(PIPE_MATERIALS).flatMap((m) => m.classes.map((c) => c.id)))] as [string, ...string[]];

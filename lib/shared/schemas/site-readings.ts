@@ -5,7 +5,9 @@ import { DRIVE_LENGTH_RULES, type DriveLengthRuleId } from '@/lib/engine/drive-p
 import { PIPE_MATERIALS, type PipeMaterialId } from '@/lib/engine/materials';
 import { EFFICIENCY_CURVES, type EfficiencyCurveId } from '@/lib/engine/ram';
 import { TANK_RULES, type TankRuleId } from '@/lib/engine/tank';
-import { isClassOf, MAX_LEVEL_STATIONS, MAX_LIFT_RUNS, MAX_RUN_STEPS, MAX_TRIALS } from '../reading-limits';
+import {
+  isClassOf, MAX_DEMAND_LINES, MAX_FALL_RUNS, MAX_FLOW_MEASUREMENTS, MAX_LEVEL_STATIONS, MAX_LIFT_RUNS, MAX_RUN_STEPS, MAX_TRIALS,
+} from '../reading-limits';
 
 function keysOf<K extends string>(record: Readonly<Record<K, unknown>>): [K, ...K[]] {
   return Object.keys(record) as [K, ...K[]];
@@ -200,12 +202,13 @@ export const monteCarloSchema = z.object({
 });
 
 export const siteReadingsSchema = z.object({
-  flowMeasurements: z.array(flowMeasurementSchema).min(1, 'Add at least one flow measurement'),
-  fallRuns: z.array(fallRunSchema).min(1, 'Add at least one fall run'),
+  flowMeasurements: z.array(flowMeasurementSchema).min(1, 'Add at least one flow measurement')
+    .max(MAX_FLOW_MEASUREMENTS, `At most ${MAX_FLOW_MEASUREMENTS} flow measurements on one visit`),
+  fallRuns: z.array(fallRunSchema).min(1, 'Add at least one fall run').max(MAX_FALL_RUNS, `At most ${MAX_FALL_RUNS} fall runs on one visit`),
   lift: liftSchema,
   drivePipe: drivePipe.prefault({}),
   deliveryPipe,
-  demand: z.array(demandLine).min(1, 'Add at least one demand line'),
+  demand: z.array(demandLine).min(1, 'Add at least one demand line').max(MAX_DEMAND_LINES, `At most ${MAX_DEMAND_LINES} demand lines`),
   settings: settingsSchema.prefault({}),
   monteCarlo: monteCarloSchema.prefault({}),
 });
