@@ -12,7 +12,7 @@ const fields = (visitId: string) => ({
 });
 
 describe('commissioning replays', () => {
-  it('an advisor not assigned to the visit, replaying a stored check id, is refused (403) like a new id', async () => {
+  it('an advisor not assigned to the visit, replaying a stored check id, is refused (404) like a new id', async () => {
     const o = await makeOrganisation('commission-replay');
     await screenFixtureVisit(o.visit.id, o.farm.id, o.advisor.id);
     const id = randomUUID();
@@ -23,7 +23,7 @@ describe('commissioning replays', () => {
     expect(newId.results[0]?.status).toBe('rejected');
     const replay = await push(o.otherAdvisor, { ops: [putOp('commissioning', id, fields(o.visit.id))] });
     expect(replay.results[0]?.status).toBe('rejected');
-    expect(replay.results[0]?.error?.code).toBe(403);
+    expect(replay.results[0]?.error?.code).toBe(404);
     expect(await Commissioning.count({ where: { visitId: o.visit.id } })).toBe(1);
 
     // The assigned advisor's own replay is still acknowledged.

@@ -1,6 +1,6 @@
 import 'server-only';
 import type { Role, SessionUser } from '@/lib/shared/domain';
-import { forbidden } from '../errors';
+import { forbidden, notFound } from '../errors';
 
 /**
  * How far a role's permission reaches:
@@ -75,7 +75,12 @@ export function can(user: SessionUser, permission: Permission, resource?: Resour
   return resource.ownerId === user.id;
 }
 
-/** Throws a 403 AppError unless `can` allows it. */
+/**
+ * Throws unless `can` allows it: a 403 when the role lacks the permission, a 404 when it has it but
+ * the record is out of the caller's reach (another organisation's, another advisor's), so a refusal
+ * never tells whether the record exists.
+ */
 export function authorize(user: SessionUser, permission: Permission, resource?: ResourceOwnership): void {
-  if (!can(user, permission, resource)) throw forbidden();
+  if (can(user, permission, resource)) return;
+  throw resource && scopeOf(user.role, permission) ? notFound() : forbidden();
 }
