@@ -1,6 +1,7 @@
 import Link from 'next/link';
 import { HOME_BY_ROLE, type SessionUser } from '@/lib/shared/domain';
 import { SignOutButton } from './sign-out-button';
+import { SignOutEverywhereButton } from './sign-out-everywhere-button';
 
 const ROLE_NAMES = { coordinator: 'Coordinator', advisor: 'Field advisor', farmer: 'Farmer' } as const;
 
@@ -17,6 +18,7 @@ export function AppHeader({ user }: { user: SessionUser }) {
             <span className="block text-stone">{ROLE_NAMES[user.role]}</span>
           </p>
           <SignOutButton />
+          <SignOutEverywhereButton />
         </div>
       </div>
     </header>

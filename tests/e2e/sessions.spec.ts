@@ -69,12 +69,28 @@ test('signing out ends the session on the server: a copy of its cookie is refuse
   await submitSignIn(page, email, PASSWORD);
   await expect(page).toHaveURL(/\/office$/);
   const cookies = await page.context().cookies();
-  await page.getByRole('button', { name: 'Sign out' }).first().click();
+  await page.getByRole('button', { name: 'Sign out', exact: true }).click();
   await expect(page).toHaveURL(/\/login/);
   // Another browser holding the copied cookie (as a stolen one would be).
   const other = await browser.newContext();
   await other.addCookies(cookies);
   const me = await other.request.get(new URL('/api/me', page.url()).toString());
   expect(me.status()).toBe(401);
+  await other.close();
+});
+
+test('"Sign out everywhere" ends the person\'s sessions in every browser', async ({ page, browser }) => {
+  const { email } = await makeCoordinator();
+  const other = await browser.newContext();
+  const otherPage = await other.newPage();
+  await submitSignIn(otherPage, email, PASSWORD);
+  await expect(otherPage).toHaveURL(/\/office$/);
+  await submitSignIn(page, email, PASSWORD);
+  await expect(page).toHaveURL(/\/office$/);
+  await page.getByRole('button', { name: 'Sign out everywhere' }).click();
+  await expect(page).toHaveURL(/\/login/);
+  expect((await otherPage.request.get('/api/me')).status()).toBe(401);
+  await otherPage.goto('/office');
+  await expect(otherPage).toHaveURL(/\/login/);
   await other.close();
 });

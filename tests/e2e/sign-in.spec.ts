@@ -86,7 +86,7 @@ test('a same-origin return address keeps its whole path and query string through
 test('sign-out ends the session', async ({ page }) => {
   await signIn(page, 'gwen@wenlow-water.test', PASSWORD);
   await expect(page).toHaveURL(/\/farm$/);
-  await page.getByRole('button', { name: 'Sign out' }).click();
+  await page.getByRole('button', { name: 'Sign out', exact: true }).click();
   await expect(page).toHaveURL(/\/login/);
   await page.goto('/farm');
   await expect(page).toHaveURL(/\/login/);
