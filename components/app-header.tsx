@@ -12,7 +12,7 @@ export function AppHeader({ user }: { user: SessionUser }) {
         <Link href={HOME_BY_ROLE[user.role]} className="text-2xl font-bold text-slate no-underline">
           Fallbook
         </Link>
-        <div className="flex items-center gap-4">
+        <div className="flex flex-wrap items-center gap-x-4 gap-y-1">
           <p className="text-right leading-tight">
             <span className="block font-bold">{user.name}</span>
             <span className="block text-stone">{ROLE_NAMES[user.role]}</span>

@@ -17,7 +17,7 @@ export function SignOutEverywhereButton() {
   }
   return (
     <span className="flex flex-col items-start">
-      <button type="button" onClick={() => void endAll()} className="min-h-12 px-1 text-sm font-bold text-slate underline">
+      <button type="button" onClick={() => void endAll()} className="min-h-12 whitespace-nowrap px-1 text-sm font-bold text-slate underline">
         Sign out everywhere
       </button>
       {failed && <span role="alert" className="text-sm font-bold text-clay">Not done: check the connection and try again.</span>}
