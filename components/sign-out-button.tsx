@@ -7,7 +7,7 @@ export function SignOutButton() {
     <button
       type="button"
       onClick={() => void signOutTo('/login')}
-      className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate hover:bg-slate hover:text-white"
+      className="min-h-12 whitespace-nowrap rounded-md border-2 border-slate px-4 font-bold text-slate hover:bg-slate hover:text-white"
     >
       Sign out
     </button>

@@ -11,6 +11,8 @@ import * as m0011 from './0011-profile-stations-and-commissioning';
 import * as m0012 from './0012-office-scale-indexes';
 import * as m0013 from './0013-office-area-indexes';
 import * as m0014 from './0014-sheet-conversations';
+import * as m0015 from './0015-invitation-withdrawal';
+import * as m0016 from './0016-ended-sessions';
 
 export interface MigrationModule {
   up(params: { context: QueryInterface }): Promise<void>;
@@ -31,4 +33,6 @@ export const MIGRATIONS: { name: string; module: MigrationModule }[] = [
   { name: '0012-office-scale-indexes.ts', module: m0012 },
   { name: '0013-office-area-indexes.ts', module: m0013 },
   { name: '0014-sheet-conversations.ts', module: m0014 },
+  { name: '0015-invitation-withdrawal.ts', module: m0015 },
+  { name: '0016-ended-sessions.ts', module: m0016 },
 ];

@@ -17,6 +17,7 @@ import { Point } from './point';
 import { Screening } from './screening';
 import { SheetResponse } from './sheet-response';
 import { SheetSend } from './sheet-send';
+import { EndedSession } from './ended-session';
 import { SignInAttempt } from './sign-in-attempt';
 import { SyncOp } from './sync-op';
 import { User } from './user';
@@ -27,7 +28,7 @@ export {
   AuditEntry, DemandLine, FallReading, Farm, FlowMeasurement, Invitation, Organisation, Photo, PipeRun, Point,
   Screening, SignInAttempt, SyncOp, User, Visit, WaterSource,
 };
-export { Commissioning, FarmNeed, SheetResponse, SheetSend };
+export { Commissioning, EndedSession, FarmNeed, SheetResponse, SheetSend };
 export { batchInsert, buildRow, observeStatements, PlainRow, selectRows, txConnection };
 export type { OrganisationSettings } from './organisation';
 
@@ -138,7 +139,7 @@ export function initModels(sequelize: Sequelize) {
   for (const model of [
     Organisation, User, Farm, Visit, WaterSource, FlowMeasurement, FallReading, Point, Photo,
     DemandLine, PipeRun, Screening, AuditEntry, SyncOp, SignInAttempt, Invitation,
-    SheetSend, SheetResponse, FarmNeed, Commissioning,
+    SheetSend, SheetResponse, FarmNeed, Commissioning, EndedSession,
   ]) model.initModel(sequelize);
 
   Organisation.hasMany(User, { foreignKey: 'organisationId' });

@@ -15,6 +15,10 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
   declare userId: string | null;
   declare expiresAt: Date;
   declare usedAt: Date | null;
+  // A newer invitation to the same person was sent; this link no longer works.
+  declare supersededAt: CreationOptional<Date | null>;
+  // The office switched the account off while the link was pending.
+  declare withdrawnAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize) {
@@ -30,6 +34,8 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
         userId: { type: DataTypes.UUID, allowNull: true },
         expiresAt: { type: DataTypes.DATE, allowNull: false },
         usedAt: { type: DataTypes.DATE, allowNull: true },
+        supersededAt: { type: DataTypes.DATE(3), allowNull: true, defaultValue: null },
+        withdrawnAt: { type: DataTypes.DATE(3), allowNull: true, defaultValue: null },
         createdAt: DataTypes.DATE,
       },
       { sequelize, modelName: 'Invitation', tableName: 'invitations', underscored: true, updatedAt: false },

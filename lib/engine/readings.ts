@@ -158,14 +158,14 @@ export function estimateFlow(m: FlowMeasurement, index: number): FlowEstimate {
       break;
     case 'v-notch': {
       trials = m.trials.map((t) => vNotchFlowLps(t.headM, m.notchAngleDeg));
-      const h = Math.min(...m.trials.map((t) => t.headM));
+      const h = m.trials.reduce((lo, t) => (t.headM < lo ? t.headM : lo), Infinity);
       methodRel = Math.hypot(0.015, (2.5 * HEAD_READING_SIGMA_M) / h);
       lowHead = h < V_NOTCH_MIN_HEAD_M;
       break;
     }
     case 'rectangular-weir': {
       trials = m.trials.map((t) => rectangularWeirFlowLps(t));
-      const h = Math.min(...m.trials.map((t) => t.headM));
+      const h = m.trials.reduce((lo, t) => (t.headM < lo ? t.headM : lo), Infinity);
       methodRel = Math.hypot(0.03, (1.5 * HEAD_READING_SIGMA_M) / h);
       lowHead = h < V_NOTCH_MIN_HEAD_M;
       break;

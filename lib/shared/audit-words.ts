@@ -64,6 +64,10 @@ export function describeAudit(line: AuditFacts, person: (id: string | null | und
       const m = move(c);
       return { title: `State moved outside the usual order: ${state(m.from)} → ${state(m.to)}`, detail: `Reason given: ${quote(c.reason, 500)}` };
     }
+    case 'visit:restore':
+      return { title: 'Deleted visit restored', detail: 'by the office' };
+    case 'screening:screening-failed':
+      return { title: 'The screen could not run on the server', detail: 'the readings are kept; it runs again on the next sync' };
     case 'screening:screened':
       return { title: 'Screened', detail: `verdict: ${VERDICTS[c.verdict as Verdict] ?? 'unknown'}` };
     case 'sheet_send:sheet_sent':

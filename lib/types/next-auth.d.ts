@@ -9,7 +9,7 @@ declare module 'next-auth' {
     sessionVersion: number;
   }
   interface Session {
-    user: { id: string; role: Role; organisationId: string; name: string; email: string; sessionVersion: number };
+    user: { id: string; role: Role; organisationId: string; name: string; email: string; sessionVersion: number; sid?: string };
   }
 }
 
@@ -19,5 +19,7 @@ declare module 'next-auth/jwt' {
     role: Role;
     organisationId: string;
     sessionVersion: number;
+    /** This session's id: signing out lists it as ended. */
+    sid?: string;
   }
 }

@@ -69,7 +69,7 @@ test('a farmer opens their sheet, downloads the PDF and acknowledges it', async 
   await expect(page.getByRole('region', { name: 'Questions and answers' })).toContainText('Could the tank sit nearer the yard?');
 });
 
-test("another farmer cannot open someone else's sheet", async ({ page, browser }) => {
+test("another farmer cannot open someone else's sheet: the not-found page, as if there were none", async ({ page, browser }) => {
   await signIn(page, 'hallie@wenlow-water.test');
   await page.getByRole('link', { name: 'Read the sheet for Brandt Hollow' }).click();
   await expect(page).toHaveURL(/\/sheets\//);
@@ -77,8 +77,8 @@ test("another farmer cannot open someone else's sheet", async ({ page, browser }
   const otherPage = await other.newPage();
   await signIn(otherPage, 'gwen@wenlow-water.test');
   const response = await otherPage.goto(page.url());
-  expect(response?.status()).toBe(403);
-  await expect(otherPage.getByRole('heading', { name: 'This page is not for your account' })).toBeVisible();
+  expect(response?.status()).toBe(404);
+  await expect(otherPage.getByRole('heading', { name: 'Nothing here' })).toBeVisible();
   await other.close();
 });
 

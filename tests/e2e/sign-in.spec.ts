@@ -57,10 +57,36 @@ test('a signed-out visitor of a home page is sent to sign in, then back', async 
   await expect(page).toHaveURL(/\/office$/);
 });
 
+test('an off-site return address is dropped: signing in, or opening it signed in, stays on Fallbook', async ({ page, baseURL }) => {
+  const origin = new URL(baseURL ?? page.url()).origin;
+  for (const evil of ['%2F%5Cevil.example%2Fphish', '%2F%09%2Fevil.example']) {
+    await page.context().clearCookies();
+    await page.goto(`/login?callbackUrl=${evil}`);
+    await page.getByLabel('E-mail').fill('maren@wenlow-water.test');
+    await page.getByLabel('Password').fill(PASSWORD);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await expect(page).toHaveURL(new RegExp(`^${origin}/office$`));
+    // Signed in, the page redirects at once: to the home page, never off-site.
+    const seen: string[] = [];
+    page.on('request', (r) => seen.push(new URL(r.url()).host));
+    await page.goto(`/login?callbackUrl=${evil}`);
+    await expect(page).toHaveURL(new RegExp(`^${origin}/office$`));
+    expect(seen.filter((h) => h.includes('evil.example'))).toEqual([]);
+  }
+});
+
+test('a same-origin return address keeps its whole path and query string through sign-in', async ({ page }) => {
+  await page.goto(`/login?callbackUrl=${encodeURIComponent('/office?status=scheduled&sort=plannedOn')}`);
+  await page.getByLabel('E-mail').fill('maren@wenlow-water.test');
+  await page.getByLabel('Password').fill(PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page).toHaveURL(/\/office\?status=scheduled&sort=plannedOn$/);
+});
+
 test('sign-out ends the session', async ({ page }) => {
   await signIn(page, 'gwen@wenlow-water.test', PASSWORD);
   await expect(page).toHaveURL(/\/farm$/);
-  await page.getByRole('button', { name: 'Sign out' }).click();
+  await page.getByRole('button', { name: 'Sign out', exact: true }).click();
   await expect(page).toHaveURL(/\/login/);
   await page.goto('/farm');
   await expect(page).toHaveURL(/\/login/);

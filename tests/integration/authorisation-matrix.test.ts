@@ -86,14 +86,17 @@ for (const route of guarded) {
       const reaches = route.target === 'none' ? (['own'] as const) : route.target === 'person' ? (['own', 'other-org'] as const) : REACHES;
       for (const reach of reaches) {
         const ok = allowed(role, route.permissions, route.target === 'none' ? 'none' : reach);
-        // A role without the permission is stopped at the door (403); a foreign id in a body is a field error.
-        const inBody = !ok && allowed(role, route.permissions, 'own') ? route.refusedInBody : undefined;
-        const expected = ok ? route.ok : inBody?.status ?? 403;
+        // A role without the permission is stopped at the door (403); a record out of the caller's
+        // reach answers as if it did not exist (404: its existence is not given away); a foreign id
+        // in a body is a field error.
+        const outOfReach = !ok && allowed(role, route.permissions, 'own');
+        const inBody = outOfReach ? route.refusedInBody : undefined;
+        const expected = ok ? route.ok : inBody?.status ?? (outOfReach ? 404 : 403);
         it(`${role} on ${route.target === 'none' ? 'the collection' : `a ${route.target} (${reach})`} is ${expected}`, async () => {
           const { res, status } = await call(role, reach);
           const body = res.headers.get('content-type')?.includes('json') ? await res.clone().json() : null;
           expect(status, JSON.stringify(body)).toBe(expected);
-          if (!ok) expect(body?.error?.message ?? JSON.stringify(body)).toMatch(inBody?.message ?? /access|refused|not allowed/i);
+          if (!ok) expect(body?.error?.message ?? JSON.stringify(body)).toMatch(inBody?.message ?? (outOfReach ? /no such/i : /access|refused|not allowed/i));
           cells += 1;
         });
       }

@@ -31,11 +31,11 @@ describe('POST /api/visits/:id/commissioning by role', () => {
     expect(res.status).toBe(403);
     expect(await Commissioning.count({ where: { visitId: org.visit.id } })).toBe(0);
   });
-  it('an advisor not assigned to the visit is refused (403)', async () => {
-    expect((await post(org.visit.id, org.otherAdvisor, reading)).status).toBe(403);
+  it('an advisor not assigned to the visit is refused (404: as if it did not exist)', async () => {
+    expect((await post(org.visit.id, org.otherAdvisor, reading)).status).toBe(404);
   });
-  it('a coordinator of another organisation is refused (403)', async () => {
-    expect((await post(org.visit.id, otherOrg.coordinator, reading)).status).toBe(403);
+  it('a coordinator of another organisation is refused (404: as if it did not exist)', async () => {
+    expect((await post(org.visit.id, otherOrg.coordinator, reading)).status).toBe(404);
   });
   it('bad input is a 422 naming the field, and changes nothing', async () => {
     const res = await post(org.visit.id, org.advisor, { ...reading, deliveredLpm: 60 });

@@ -23,6 +23,8 @@ const DISGUISES: Record<string, Record<string, string>> = {
   'Sec-Fetch-Site: cross-site': { 'sec-fetch-site': 'cross-site' },
   'Sec-Fetch-Site: same-site (a sibling sub-domain)': { 'sec-fetch-site': 'same-site' },
   'Origin: null (a sandboxed frame)': { origin: 'null' },
+  'Origin of another site, with X-Forwarded-Host made to match it': { origin: 'https://fallbook.evil.example', 'x-forwarded-host': 'fallbook.evil.example' },
+  'Origin of this host over another scheme (https page → http app)': { origin: 'https://127.0.0.1:3100' },
 };
 
 /** Rows that any accepted write leaves behind (every mutation writes an audit line; sync keeps its ops). */

@@ -46,12 +46,12 @@ describe('PUT /api/farms/:id/demand (the farmer enters needs)', () => {
     expect(await DemandLine.count({ where: { farmId: org.farm.id, deletedAt: null } })).toBe(before);
   });
 
-  it("another farmer can neither read nor write this farm's needs", async () => {
+  it("another farmer can neither read nor write this farm's needs (404: as if the farm did not exist)", async () => {
     const get = await getNeeds(await request(`/api/farms/${org.farm.id}/demand`, org.otherFarmer), params({ id: org.farm.id }));
-    expect(get.status).toBe(403);
+    expect(get.status).toBe(404);
     const put = await putNeeds(await request(`/api/farms/${org.farm.id}/demand`, org.otherFarmer, { method: 'PUT', body: needs }), params({ id: org.farm.id }));
-    expect(put.status).toBe(403);
+    expect(put.status).toBe(404);
     const advisor = await getNeeds(await request(`/api/farms/${org.farm.id}/demand`, org.otherAdvisor), params({ id: org.farm.id }));
-    expect(advisor.status).toBe(403);
+    expect(advisor.status).toBe(404);
   });
 });

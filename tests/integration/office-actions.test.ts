@@ -146,7 +146,7 @@ describe('invitations', () => {
     expect(await verifyPassword('a good long password', user.passwordHash!)).toBe(true);
 
     const again = await acceptWith(token!, { password: 'another long password', confirm: 'another long password' });
-    expect(again.status).toBe(409);
+    expect(again.status).toBe(410);
     expect((await again.json()).error.message).toMatch(/already been used/);
   });
 
@@ -157,7 +157,7 @@ describe('invitations', () => {
     const token = (await mailTo(email))[0]!.raw.replace(/=\r?\n/g, '').match(/\/welcome\/([A-Za-z0-9_-]{20,})/)![1]!;
     await Invitation.update({ expiresAt: new Date(Date.now() - 1000) }, { where: { email } });
     const res = await acceptWith(token, { password: 'a good long password', confirm: 'a good long password' });
-    expect(res.status).toBe(409);
+    expect(res.status).toBe(410);
     expect((await res.json()).error.message).toMatch(/expired/);
     expect((await User.findOne({ where: { email }, rejectOnEmpty: true })).passwordHash).toBeNull();
     expect((await acceptWith('x'.repeat(43), { password: 'a good long password', confirm: 'a good long password' })).status).toBe(404);

@@ -90,10 +90,10 @@ describe('one visit: role and ownership', () => {
     expect(await get(org.farmer, org.visit.id)).toBe(200);
   });
 
-  it("refuses another advisor's visit, another farmer's visit and another organisation's visit", async () => {
-    expect(await get(org.advisor, org.otherVisit.id)).toBe(403);
-    expect(await get(org.farmer, org.otherVisit.id)).toBe(403);
-    expect(await get(org.coordinator, otherOrg.visit.id)).toBe(403);
+  it("refuses another advisor's visit, another farmer's visit and another organisation's visit (404: their existence is not given away)", async () => {
+    expect(await get(org.advisor, org.otherVisit.id)).toBe(404);
+    expect(await get(org.farmer, org.otherVisit.id)).toBe(404);
+    expect(await get(org.coordinator, otherOrg.visit.id)).toBe(404);
   });
 
   it('answers 401 without a session, 404 for no such visit, 422 for a malformed id', async () => {

@@ -64,7 +64,7 @@ describe('POST /api/visits/:id/sheet/send', () => {
     const farmer = await postSend(await request(`/api/visits/${id()}/sheet/send`, org.farmer, { method: 'POST', body: {} }), params({ id: id() }));
     expect(farmer.status).toBe(403);
     const other = await postSend(await request(`/api/visits/${id()}/sheet/send`, org.otherAdvisor, { method: 'POST', body: {} }), params({ id: id() }));
-    expect(other.status).toBe(403);
+    expect(other.status).toBe(404);
     expect((await getSends(await request(`/api/visits/${id()}/sheet/sends`, org.farmer), params({ id: id() }))).status).toBe(403);
   });
 
@@ -100,7 +100,7 @@ describe('the farmer acknowledges or asks', () => {
 
   it('only the owner may acknowledge; acknowledging moves the visit to "acknowledged"', async () => {
     const other = await postAck(await request(`/api/visits/${id()}/sheet/acknowledge`, org.otherFarmer, { method: 'POST' }), params({ id: id() }));
-    expect(other.status).toBe(403);
+    expect(other.status).toBe(404);
     const advisor = await postAck(await request(`/api/visits/${id()}/sheet/acknowledge`, org.advisor, { method: 'POST' }), params({ id: id() }));
     expect(advisor.status).toBe(403);
     const res = await postAck(await request(`/api/visits/${id()}/sheet/acknowledge`, org.farmer, { method: 'POST' }), params({ id: id() }));

@@ -41,11 +41,11 @@ describe('GET /api/visits/:id/sheet as each role', () => {
     expect((await sheetAs(org.coordinator)).status).toBe(200);
   });
 
-  it('another farmer, an unassigned advisor and another organisation get 403', async () => {
-    expect((await sheetAs(org.otherFarmer)).status).toBe(403);
-    expect((await sheetAs(org.otherAdvisor)).status).toBe(403);
-    expect((await sheetAs(otherOrg.coordinator)).status).toBe(403);
-    expect((await sheetAs(otherOrg.farmer)).status).toBe(403);
+  it('another farmer, an unassigned advisor and another organisation get 404 (as if there were no sheet)', async () => {
+    expect((await sheetAs(org.otherFarmer)).status).toBe(404);
+    expect((await sheetAs(org.otherAdvisor)).status).toBe(404);
+    expect((await sheetAs(otherOrg.coordinator)).status).toBe(404);
+    expect((await sheetAs(otherOrg.farmer)).status).toBe(404);
   });
 
   it('signed out is 401; an unknown visit is 404; a visit not yet screened is 404 saying so', async () => {
@@ -106,6 +106,6 @@ describe('GET /api/visits/:id/sheet/pdf', () => {
 
   it('another farmer cannot download it', async () => {
     const res = await getPdf(await request(`/api/visits/${org.visit.id}/sheet/pdf`, org.otherFarmer), params({ id: org.visit.id }));
-    expect(res.status).toBe(403);
+    expect(res.status).toBe(404);
   });
 });

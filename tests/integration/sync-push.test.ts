@@ -217,12 +217,12 @@ describe('push: stale base revisions', () => {
 });
 
 describe('push: access and bad input', () => {
-  it("an advisor cannot write to another advisor's visit: rejected 403, nothing written", async () => {
+  it("an advisor cannot write to another advisor's visit: rejected 404 (as if it did not exist), nothing written", async () => {
     const { ops } = readingOps(org.otherVisit.id, org.otherFarm.id);
     const auditsBefore = await AuditEntry.count({ where: { visitId: org.otherVisit.id } });
     const { status, results } = await push(org.advisor, { ops });
     expect(status).toBe(200);
-    expect(results.map((r) => [r.status, r.error?.code])).toEqual(ops.map(() => ['rejected', 403]));
+    expect(results.map((r) => [r.status, r.error?.code])).toEqual(ops.map(() => ['rejected', 404]));
     expect(await Point.count({ where: { visitId: org.otherVisit.id } })).toBe(0);
     expect(await FlowMeasurement.count({ where: { visitId: org.otherVisit.id } })).toBe(0);
     expect(await SyncOp.count({ where: { opId: ops.map((op) => op.opId) } })).toBe(0);
@@ -230,13 +230,13 @@ describe('push: access and bad input', () => {
     expect((await Visit.findByPk(org.otherVisit.id, { rejectOnEmpty: true })).status).toBe('scheduled');
   });
 
-  it('another organisation cannot be written, even by its coordinator; unknown visits are 404', async () => {
+  it('another organisation cannot be written, even by its coordinator; it answers 404 like an unknown visit', async () => {
     const other = await makeOrganisation('push-foreign');
     const { results } = await push(org.coordinator, { ops: [
       putOp('point', randomUUID(), pointFields(other.visit.id)),
       putOp('point', randomUUID(), pointFields(randomUUID())),
     ] });
-    expect(results.map((r) => r.error?.code)).toEqual([403, 404]);
+    expect(results.map((r) => r.error?.code)).toEqual([404, 404]);
   });
 
   it('farmers cannot push at all (403), signed-out callers get 401', async () => {

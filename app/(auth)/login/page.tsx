@@ -2,15 +2,13 @@ import type { Metadata } from 'next';
 import { redirect } from 'next/navigation';
 import { getCurrentUser } from '@/lib/server/auth/current-user';
 import { HOME_BY_ROLE } from '@/lib/shared/domain';
+import { sameOriginPath } from '@/lib/shared/return-path';
 import { SignInForm } from './_components/sign-in-form';
 
 export const metadata: Metadata = { title: 'Sign in' };
 
-/** Only same-site paths are honoured as a return address. */
-function safeReturn(value: string | string[] | undefined): string | undefined {
-  const path = Array.isArray(value) ? value[0] : value;
-  return path && path.startsWith('/') && !path.startsWith('//') ? path : undefined;
-}
+/** Only a path of this origin is honoured as a return address (its whole path and query). */
+const safeReturn = (value: string | string[] | undefined) => sameOriginPath(value, process.env.NEXTAUTH_URL || 'http://localhost');
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const params = await searchParams;

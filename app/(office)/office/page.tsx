@@ -5,7 +5,9 @@ import { districtAreas, visitCountsByAdvisor } from '@/lib/server/data/follow-up
 import { listPeople } from '@/lib/server/data/people';
 import { listOpenQuestions } from '@/lib/server/data/sheet-responses';
 import { OpenQuestions } from '@/components/open-questions';
+import { listDeletedVisits } from '@/lib/server/data/visit-restore';
 import { visitCounts } from '@/lib/server/data/visits';
+import { DeletedVisits } from './_components/deleted-visits';
 import { FollowUpBoard } from './_components/follow-up-board';
 import { VisitsBrowser } from './_components/visits-browser';
 
@@ -13,8 +15,8 @@ export const metadata: Metadata = { title: 'District office' };
 
 export default async function OfficeHome() {
   const user = await requirePageUser(['coordinator'], '/office');
-  const [counts, loads, people, areas, questions] = await Promise.all([
-    visitCounts(user), visitCountsByAdvisor(user), listPeople(user, { page: 1, pageSize: 100 }), districtAreas(user), listOpenQuestions(user),
+  const [counts, loads, people, areas, questions, deleted] = await Promise.all([
+    visitCounts(user), visitCountsByAdvisor(user), listPeople(user, { page: 1, pageSize: 100 }), districtAreas(user), listOpenQuestions(user), listDeletedVisits(user),
   ]);
   const advisors = people.items.filter((p) => p.role === 'advisor' && p.active).map((p) => ({ id: p.id, name: p.name }));
   const total = Object.values(counts.byStatus).reduce((a, b) => a + (b ?? 0), 0);
@@ -36,6 +38,7 @@ export default async function OfficeHome() {
           <VisitsBrowser advisors={advisors} areas={areas} />
         </Suspense>
       </section>
+      <DeletedVisits visits={deleted} />
     </div>
   );
 }

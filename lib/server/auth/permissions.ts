@@ -1,6 +1,6 @@
 import 'server-only';
 import type { Role, SessionUser } from '@/lib/shared/domain';
-import { forbidden } from '../errors';
+import { forbidden, notFound } from '../errors';
 
 /**
  * How far a role's permission reaches:
@@ -44,6 +44,16 @@ export const ROLE_PERMISSIONS = {
 
 export type Permission = keyof typeof ROLE_PERMISSIONS;
 
+/**
+ * What each sync op needs, from the same table: the permission of the route that makes that change
+ * through the UI. A visit's own record is captured by its advisor, but deleting it is planning.
+ */
+export const SYNC_OP_PERMISSIONS: Record<'visit' | 'demandLine' | 'reading', Record<'put' | 'delete', Permission>> = {
+  visit: { put: 'visit:capture', delete: 'visit:plan' },
+  demandLine: { put: 'demand:edit', delete: 'demand:edit' },
+  reading: { put: 'visit:capture', delete: 'visit:capture' },
+};
+
 export type { SessionUser };
 
 /** What a record says about who may touch it; the data layer fills in what it knows. */
@@ -71,7 +81,12 @@ export function can(user: SessionUser, permission: Permission, resource?: Resour
   return resource.ownerId === user.id;
 }
 
-/** Throws a 403 AppError unless `can` allows it. */
+/**
+ * Throws unless `can` allows it: a 403 when the role lacks the permission, a 404 when it has it but
+ * the record is out of the caller's reach (another organisation's, another advisor's), so a refusal
+ * never tells whether the record exists.
+ */
 export function authorize(user: SessionUser, permission: Permission, resource?: ResourceOwnership): void {
-  if (!can(user, permission, resource)) throw forbidden();
+  if (can(user, permission, resource)) return;
+  throw resource && scopeOf(user.role, permission) ? notFound() : forbidden();
 }

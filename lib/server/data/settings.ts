@@ -1,9 +1,11 @@
 import 'server-only';
 import { Organisation, getSequelize } from '@/lib/server/db';
+import { isDemandKind } from '@/lib/shared/demand-kinds';
 import type { settingsSchema } from '@/lib/shared/schemas/office';
 import type { z } from 'zod';
 import { recordAudit } from '../audit';
 import { authorize, type SessionUser } from '../auth/permissions';
+import { invalid } from '../errors';
 import { defaultOrganisationSettings } from '../organisation-settings';
 
 /** The organisation's settings, with defaults for anything never set. */
@@ -16,6 +18,10 @@ export async function getSettings(user: SessionUser) {
 /** Replaces the settings (the schema has checked the per-head kinds against the catalogue). Audited with before/after. */
 export async function updateSettings(user: SessionUser, input: z.output<typeof settingsSchema>) {
   authorize(user, 'organisation:settings');
+  const unknown = Object.keys(input.demandFigures).filter((k) => !isDemandKind(k));
+  if (unknown.length) {
+    throw invalid(`demandFigures: unknown kinds ${unknown.join(', ')}.`, Object.fromEntries(unknown.map((k) => [`demandFigures.${k}`, ['Not a demand kind the screen knows.']])));
+  }
   return getSequelize().transaction(async (transaction) => {
     const org = await Organisation.findByPk(user.organisationId, { transaction, lock: transaction.LOCK.UPDATE, rejectOnEmpty: true });
     const before = { ...defaultOrganisationSettings(), ...org.settings };

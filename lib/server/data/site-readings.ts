@@ -1,4 +1,5 @@
 import 'server-only';
+import { knownDemandFigures } from '@/lib/shared/demand-kinds';
 import type { Transaction } from 'sequelize';
 import { DemandLine, FallReading, FlowMeasurement, Organisation, PipeRun, Visit } from '@/lib/server/db';
 import type { SiteReadingsInput } from '@/lib/shared/schemas/site-readings';
@@ -54,7 +55,7 @@ export async function loadSiteReadings(visitId: string, transaction?: Transactio
     settings: {
       designFractionOfLowest: organisation.settings.designFractionOfLowest,
       ...(organisation.settings.minProbabilityForGo !== undefined ? { minProbabilityForGo: organisation.settings.minProbabilityForGo } : {}),
-      demandOverrides: organisation.settings.demandFigures,
+      demandOverrides: knownDemandFigures(organisation.settings.demandFigures),
     },
     monteCarlo: { samples: 10_000, seed: 1 },
   } as SiteReadingsInput;

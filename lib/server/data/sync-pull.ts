@@ -1,4 +1,5 @@
 import 'server-only';
+import { knownDemandFigures } from '@/lib/shared/demand-kinds';
 import type { Transaction } from 'sequelize';
 import { DemandLine, Farm, getSequelize, Organisation, selectRows, txConnection, Visit, type PlainRow } from '@/lib/server/db';
 import type { PulledEntity, PullResponse } from '@/lib/shared/schemas/sync';
@@ -112,7 +113,7 @@ export async function pullChanges(user: SessionUser, { cursor, limit }: { cursor
       unitsDefault: organisation.settings.unitsDefault,
       designFractionOfLowest: organisation.settings.designFractionOfLowest,
       ...(organisation.settings.minProbabilityForGo !== undefined ? { minProbabilityForGo: organisation.settings.minProbabilityForGo } : {}),
-      demandFigures: organisation.settings.demandFigures,
+      demandFigures: knownDemandFigures(organisation.settings.demandFigures),
     },
   };
   for (const { kind, row } of unique) {

@@ -1,4 +1,5 @@
 import 'server-only';
+import { unusableJson } from '@/lib/shared/schemas/bounds';
 import { invalid, tooLarge } from '../errors';
 
 /** The largest JSON body a form route reads; a sync push has its own, larger cap. */
@@ -7,11 +8,20 @@ export const MAX_JSON_BYTES = 1024 * 1024;
 /** The request body parsed as JSON, read up to `maxBytes` (413 past it); a body that is not JSON is a 422, not a 500. */
 export async function readJson(req: Request, maxBytes = MAX_JSON_BYTES): Promise<unknown> {
   const text = (await readBodyCapped(req, maxBytes, 'The request body')).toString('utf8');
+  let value: unknown;
   try {
-    return JSON.parse(text);
+    value = JSON.parse(text);
   } catch {
     throw invalid('The request body is not valid JSON.');
   }
+  // JSON may spell half a character (`"\ud83d"`), which is not text and no column can hold, or
+  // name a key `__proto__`, which no field has.
+  const unusable = unusableJson(value);
+  if (unusable) {
+    const field = unusable.path.join('.') || '_';
+    throw invalid(`${field}: ${unusable.message}`, { [field]: [unusable.message] });
+  }
+  return value;
 }
 
 /**

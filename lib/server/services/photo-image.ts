@@ -52,7 +52,7 @@ export async function checkPhotoImage(data: Buffer | string): Promise<CheckedPho
     throw unsupportedType(NOT_A_PHOTO);
   }
   if (meta.format === 'heif') throw unsupportedType(HEIC);
-  if (!meta.format || !(meta.format in FORMATS)) throw unsupportedType(NOT_A_PHOTO);
+  if (!meta.format || !Object.hasOwn(FORMATS, meta.format)) throw unsupportedType(NOT_A_PHOTO);
   const width = meta.width ?? 0;
   const height = meta.height ?? 0;
   if (width * height > MAX_PHOTO_PIXELS) {

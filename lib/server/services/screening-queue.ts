@@ -1,6 +1,6 @@
 import 'server-only';
 import { getSequelize } from '@/lib/server/db';
-import { screenVisit } from './screening';
+import { recordScreeningFailure, screenVisit } from './screening';
 import { visitQueue } from './visit-queue';
 
 // Screening after a push is the office's bookkeeping, not the phone's answer: it runs after the
@@ -12,8 +12,12 @@ const SCREENING_DELAY_MS = 500;
 
 const queue = visitQueue(
   (visitId, actorId) => getSequelize().transaction((transaction) => screenVisit(visitId, actorId, transaction)),
-  // The readings are committed; a failed screening is logged and retried on the next push.
-  (visitId, error) => console.error('[fallbook] screening after sync failed', visitId, error),
+  // The readings are committed; a failed screening is logged, shown in the visit's history, and
+  // retried on the next push.
+  (visitId, error) => {
+    console.error('[fallbook] screening after sync failed', visitId, error);
+    recordScreeningFailure(visitId).catch((e) => console.error('[fallbook] screening failure not recorded', visitId, e));
+  },
   SCREENING_DELAY_MS,
 );
 

@@ -63,3 +63,20 @@ export async function screenVisit(visitId: string, actorId: string | null, trans
   );
   return { status: 'screened', screeningId: row.id, verdict: result.verdict };
 }
+
+/**
+ * Why the visit cannot be screened now, in the schema's own plain messages (no field paths), for
+ * the office's visit page; empty when it can.
+ */
+export async function screeningBlockers(visitId: string): Promise<string[]> {
+  const parsed = siteReadingsSchema.safeParse(await loadSiteReadings(visitId));
+  return parsed.success ? [] : [...new Set(parsed.error.issues.map((i) => i.message))];
+}
+
+/** Leaves a line in the visit's history when the screen failed on the server (the office sees it). */
+export async function recordScreeningFailure(visitId: string): Promise<void> {
+  const visit = await Visit.findByPk(visitId);
+  if (!visit) return;
+  await recordAudit({ organisationId: visit.organisationId, actorId: null, entity: 'screening', entityId: visitId, visitId,
+    action: 'screening-failed', changes: { message: 'The screen could not run on the server. The readings are kept; it runs again on the next sync.' } });
+}

@@ -10,6 +10,7 @@ import { moveVisit } from '../data/visit-moves';
 import { appEnv } from '../env';
 import { invalid } from '../errors';
 import { sendMail } from '../mail/transport';
+import { assertMaySendSheet } from './send-limit';
 import { renderSheetPdf } from './pdf';
 
 export interface SheetSendView {
@@ -33,11 +34,13 @@ export function sheetLink(visitId: string): string {
 }
 
 /**
- * E-mails the visit's sheet (link + PDF in the farmer's units) to the farmer, or to `to`. Every
- * attempt is recorded; a refused message is kept as `failed` with the reason, so it can be retried.
+ * E-mails the visit's sheet (link + PDF in the farmer's units) to the farmer, or to `to`, within
+ * the sender's hourly limit. Every attempt is recorded and audited with its address; a refused
+ * message is kept as `failed`, so it can be retried.
  */
 export async function sendSheet(user: SessionUser, visitId: string, body: SendSheetBody): Promise<SheetSendView> {
   const ctx = await loadSheet(user, visitId, 'sheet:send');
+  await assertMaySendSheet(user.id);
   const to = body.to ?? ctx.farmer?.email;
   if (!to) throw invalid('This farm has no farmer with an e-mail address: enter one.', { to: ['Enter an e-mail address.'] });
   const units = ctx.farmer?.units ?? 'metric';
@@ -61,8 +64,9 @@ export async function sendSheet(user: SessionUser, visitId: string, body: SendSh
     });
     await row.update({ status: 'sent', messageId });
   } catch (error) {
-    const reason = error instanceof Error ? error.message : String(error);
-    await row.update({ status: 'failed', error: `The mail server did not take the message: ${reason}`.slice(0, 500) });
+    // The mail server's own words stay in the log: they can name hosts, accounts and software.
+    console.error('[fallbook] sheet not sent', row.id, error);
+    await row.update({ status: 'failed', error: 'The mail server did not take the message. Try again in a few minutes; if it keeps failing, tell whoever runs Fallbook.' });
   }
   await getSequelize().transaction(async (transaction) => {
     if (row.status === 'sent') {

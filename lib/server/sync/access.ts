@@ -1,8 +1,8 @@
 import 'server-only';
 import { Op, type Transaction } from 'sequelize';
 import { Farm, Visit, txConnection } from '@/lib/server/db';
-import { authorize, type SessionUser } from '../auth/permissions';
-import { notFound } from '../errors';
+import { authorize, can, type Permission, type SessionUser } from '../auth/permissions';
+import { forbidden, notFound } from '../errors';
 
 export interface VisitFacts {
   id: string;
@@ -53,16 +53,21 @@ export class SyncAccess {
     if (facts) facts.status = status;
   }
 
-  /** Throws 404/403 unless the caller may capture on the visit; returns its facts. */
-  async assertCanCapture(visitId: string): Promise<VisitFacts> {
+  /** Throws 404/403 unless the caller holds the permission on the visit; returns its facts. */
+  async assertOnVisit(visitId: string, permission: Permission): Promise<VisitFacts> {
     const facts = await this.visit(visitId);
     if (!facts) throw notFound('visit');
-    authorize(this.user, 'visit:capture', { organisationId: facts.organisationId, advisorIds: facts.advisorId ? [facts.advisorId] : [] });
+    const resource = { organisationId: facts.organisationId, advisorIds: facts.advisorId ? [facts.advisorId] : [] };
+    // The role may not do this at all (an advisor deleting a visit): say who may.
+    if (permission === 'visit:plan' && !can(this.user, permission)) {
+      throw forbidden('Only a coordinator can delete a visit. Ask the office if this visit should go.');
+    }
+    authorize(this.user, permission, resource);
     return facts;
   }
 
   /** Throws 404/403 unless the caller may edit the farm's demand (advisor: a visit on it is theirs). */
-  async assertCanEditDemand(farmId: string): Promise<void> {
+  async assertCanEditDemand(farmId: string, permission: Permission = 'demand:edit'): Promise<void> {
     if (!this.farmAdvisors.has(farmId)) {
       const farm = await Farm.findOne({ where: { id: farmId, deletedAt: null }, transaction: this.transaction });
       const visits = farm
@@ -74,6 +79,6 @@ export class SyncAccess {
     }
     const farm = this.farmAdvisors.get(farmId);
     if (!farm) throw notFound('farm');
-    authorize(this.user, 'demand:edit', farm);
+    authorize(this.user, permission, farm);
   }
 }

@@ -31,6 +31,13 @@ export async function applyCommissioningOp(op: CommissioningOp, access: SyncAcce
     return { ...none, result: rejected(op, 422, 'A commissioning check must carry every reading.', prefixed(zodFieldErrors(fields.error))) };
   }
   const { visitId, fallM, drivePipeMaterial, ...readings } = fields.data;
+  // Who may commission the visit is checked first: a stored record id says nothing about the sender.
+  try {
+    await access.assertOnVisit(visitId, 'visit:commission');
+  } catch (error) {
+    if (error instanceof AppError) return { ...none, result: rejected(op, error.status, error.message) };
+    throw error;
+  }
   const existing = await Commissioning.findByPk(op.entityId, { transaction });
   if (existing) {
     if (existing.visitId !== visitId || existing.organisationId !== access.user.organisationId) {

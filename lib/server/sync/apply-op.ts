@@ -1,9 +1,11 @@
 import 'server-only';
 import { buildRow } from '@/lib/server/db';
 import { VISIT_STATUSES, type VisitStatus } from '@/lib/shared/domain';
+import { isClassOf } from '@/lib/shared/reading-limits';
 import { entityFields, type OpResult, type SyncOp } from '@/lib/shared/schemas/sync';
 import { canMove, moveRefusal } from '@/lib/shared/visit-states';
 import type { AuditInput } from '../audit';
+import { SYNC_OP_PERMISSIONS } from '../auth/permissions';
 import { AppError, zodFieldErrors } from '../errors';
 import type { SyncAccess } from './access';
 import { ENTITY_SPECS, pulledRecord, sameValue, type EntitySpec, type SyncedRow } from './entities';
@@ -23,6 +25,14 @@ const rejected = (op: SyncOp, code: number, message: string, fieldErrors?: Recor
 const conflicted = (op: SyncOp, spec: EntitySpec, row: SyncedRow, fields: string[]): OpResult =>
   ({ opId: op.opId, status: 'conflict', rev: Number(row.rev), conflict: { fields, server: pulledRecord(spec, row) } });
 
+/** A pipe run whose pressure class is not one of its material's: the screen could not use it. */
+function pipeClassRefusal(op: SyncOp, fields: Json): OpResult | null {
+  if (op.entity !== 'pipeRun' || fields.pressureClass === null || fields.pressureClass === undefined) return null;
+  if (isClassOf(String(fields.material), String(fields.pressureClass))) return null;
+  return rejected(op, 422, 'That pressure class is not one of this pipe material’s. Choose a class from the list.',
+    { 'changes.pressureClass': ['Not a class of this material.'] });
+}
+
 const statusRank = (status: unknown) => VISIT_STATUSES.indexOf(status as (typeof VISIT_STATUSES)[number]);
 
 /** Fields changed on the server since the phone's copy, that the op would overwrite differently. */
@@ -35,7 +45,7 @@ function conflictingFields(server: Json, changes: Json, base: Json | undefined, 
 /** The parent (visit or farm) the op belongs to, checked against the caller's access. */
 async function checkParent(op: SyncOp, spec: EntitySpec, row: SyncedRow | null, access: SyncAccess) {
   if (op.entity === 'visit') {
-    await access.assertCanCapture(op.entityId);
+    await access.assertOnVisit(op.entityId, SYNC_OP_PERMISSIONS.visit[op.action]);
     return { visitId: op.entityId, farmId: null };
   }
   const key = spec.parentKey as 'visitId' | 'farmId';
@@ -47,10 +57,10 @@ async function checkParent(op: SyncOp, spec: EntitySpec, row: SyncedRow | null, 
   const parentId = stored ?? (typeof sent === 'string' ? sent : null);
   if (!parentId) throw new AppError(422, 'invalid', `A new ${op.entity} needs its ${key}.`, { [`changes.${key}`]: ['Required.'] });
   if (key === 'farmId') {
-    await access.assertCanEditDemand(parentId);
+    await access.assertCanEditDemand(parentId, SYNC_OP_PERMISSIONS.demandLine[op.action]);
     return { visitId: null, farmId: parentId };
   }
-  await access.assertCanCapture(parentId);
+  await access.assertOnVisit(parentId, SYNC_OP_PERMISSIONS.reading[op.action]);
   return { visitId: parentId, farmId: null };
 }
 
@@ -112,6 +122,8 @@ export async function planOp(op: SyncOp, access: SyncAccess, rows: Map<string, R
       const fieldErrors = Object.fromEntries(Object.entries(zodFieldErrors(parsed.error)).map(([k, v]) => [`changes.${k}`, v]));
       return done(rejected(op, 422, `A new ${op.entity} must carry every field.`, fieldErrors));
     }
+    const refusal = pipeClassRefusal(op, parsed.data as Json);
+    if (refusal) return done(refusal);
     const now = new Date();
     const built = buildRow(spec.model, { id: op.entityId, ...spec.toRow(parsed.data as Json), createdById: access.user.id, createdAt: now, updatedAt: now });
     const created: RowState = { spec, row: built, isNew: true, touched: new Set(), dirty: true };
@@ -160,6 +172,8 @@ export async function planOp(op: SyncOp, access: SyncAccess, rows: Map<string, R
     return done(rejected(op, 422, 'This photo is already uploaded; its bytes cannot change. Add it as a new photo.',
       { 'changes.sha256': ['Cannot change after upload.'] }));
   }
+  const classRefusal = pipeClassRefusal(op, merged);
+  if (classRefusal) return done(classRefusal);
   const next = spec.toRow(merged);
   const differing = Object.keys(next).filter((k) => !sameValue(asIso(row.get(k)), asIso(next[k])));
   if (differing.length === 0) return done(applied(), state);

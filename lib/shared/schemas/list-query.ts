@@ -1,5 +1,6 @@
 import { z } from '@/lib/shared/zod';
 import { VERDICTS, VISIT_STATUSES } from '../domain';
+import { isoDay as boundedDay } from './bounds';
 
 // Query strings of the list routes. Every list is paginated; page sizes are capped.
 export const pageQuery = z.object({
@@ -7,7 +8,7 @@ export const pageQuery = z.object({
   pageSize: z.coerce.number().int().min(1).max(100, 'At most 100 rows a page.').default(25),
 });
 
-const isoDay = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-05-31.');
+const isoDay = boundedDay('Use a date like 2026-05-31.');
 
 export const VISIT_SORTS = ['planned', 'farm', 'advisor', 'status', 'synced', 'updated'] as const;
 export type VisitSort = (typeof VISIT_SORTS)[number];

@@ -6,6 +6,9 @@ import { MAX_RAMS } from '@/lib/engine/ram-plan';
 import { PIPE_MATERIALS, type PipeMaterialId } from '@/lib/engine/materials';
 import { EFFICIENCY_CURVES, type EfficiencyCurveId } from '@/lib/engine/ram';
 import { TANK_RULES, type TankRuleId } from '@/lib/engine/tank';
+import {
+  isClassOf, MAX_DEMAND_LINES, MAX_FALL_RUNS, MAX_FLOW_MEASUREMENTS, MAX_LEVEL_STATIONS, MAX_LIFT_RUNS, MAX_RUN_STEPS, MAX_TRIALS,
+} from '../reading-limits';
 
 function keysOf<K extends string>(record: Readonly<Record<K, unknown>>): [K, ...K[]] {
   return Object.keys(record) as [K, ...K[]];
@@ -20,6 +23,8 @@ const between = (label: string, min: number, max: number) =>
 const oneOf = <K extends string>(label: string, values: [K, ...K[]]) =>
   z.enum(values, { error: `${label} must be one of: ${values.join(', ')}` });
 
+const TOO_MANY_TRIALS = `At most ${MAX_TRIALS} trials in one measurement`;
+
 // ---- Flow --------------------------------------------------------------------------------------
 const flowCommon = {
   id: z.string().optional(),
@@ -30,14 +35,14 @@ const flowCommon = {
 const volumetricMeasurement = z.object({
   ...flowCommon,
   method: z.literal('volumetric'),
-  trials: z.array(z.object({ volumeL: positive('Volume'), seconds: positive('Seconds') })).min(1, 'Add at least one trial'),
+  trials: z.array(z.object({ volumeL: positive('Volume'), seconds: positive('Seconds') })).min(1, 'Add at least one trial').max(MAX_TRIALS, TOO_MANY_TRIALS),
 });
 
 const vNotchMeasurement = z.object({
   ...flowCommon,
   method: z.literal('v-notch'),
   notchAngleDeg: between('Notch angle', 25, 100).default(90),
-  trials: z.array(z.object({ headM: positive('Head on the notch') })).min(1, 'Add at least one trial'),
+  trials: z.array(z.object({ headM: positive('Head on the notch') })).min(1, 'Add at least one trial').max(MAX_TRIALS, TOO_MANY_TRIALS),
 });
 
 const weirTrial = z
@@ -47,7 +52,7 @@ const weirTrial = z
 const weirMeasurement = z.object({
   ...flowCommon,
   method: z.literal('rectangular-weir'),
-  trials: z.array(weirTrial).min(1, 'Add at least one trial'),
+  trials: z.array(weirTrial).min(1, 'Add at least one trial').max(MAX_TRIALS, TOO_MANY_TRIALS),
 });
 
 const floatMeasurement = z.object({
@@ -55,7 +60,7 @@ const floatMeasurement = z.object({
   method: z.literal('float'),
   areaM2: positive('Cross-section area'),
   coefficient: between('Float coefficient', 0.5, 1).default(0.85),
-  trials: z.array(z.object({ distanceM: positive('Float distance'), seconds: positive('Seconds') })).min(1, 'Add at least one trial'),
+  trials: z.array(z.object({ distanceM: positive('Float distance'), seconds: positive('Seconds') })).min(1, 'Add at least one trial').max(MAX_TRIALS, TOO_MANY_TRIALS),
 });
 
 export const flowMeasurementSchema = z.discriminatedUnion(
@@ -84,9 +89,9 @@ function checkBooking(rows: readonly z.infer<typeof levelRow>[], key: string, ct
 const levelRun = z
   .object({
     method: z.literal('level'),
-    rows: z.array(levelRow).min(2, 'A level run needs at least two stations'),
+    rows: z.array(levelRow).min(2, 'A level run needs at least two stations').max(MAX_LEVEL_STATIONS, `At most ${MAX_LEVEL_STATIONS} stations in one run`),
     /** Optional return run from the last station back to the first, for the misclosure check. */
-    returnRows: z.array(levelRow).min(2, 'A return run needs at least two stations').optional(),
+    returnRows: z.array(levelRow).min(2, 'A return run needs at least two stations').max(MAX_LEVEL_STATIONS, `At most ${MAX_LEVEL_STATIONS} stations in one run`).optional(),
     routeLengthM: positive('Route length').optional(),
   })
   .superRefine((run, ctx) => {
@@ -96,14 +101,15 @@ const levelRun = z
 
 const hoseRun = z.object({
   method: z.literal('hose'),
-  steps: z.array(z.object({ upperReadingM: nonNegative('Upper reading'), lowerReadingM: nonNegative('Lower reading') })).min(1, 'Add at least one hose step'),
+  steps: z.array(z.object({ upperReadingM: nonNegative('Upper reading'), lowerReadingM: nonNegative('Lower reading') })).min(1, 'Add at least one hose step').max(MAX_RUN_STEPS, `At most ${MAX_RUN_STEPS} steps in one run`),
 });
 
 const clinometerRun = z.object({
   method: z.literal('clinometer'),
   legs: z
     .array(z.object({ slopeDistanceM: positive('Slope distance'), angleBelowHorizontalDeg: between('Angle', -89, 89) }))
-    .min(1, 'Add at least one leg'),
+    .min(1, 'Add at least one leg')
+    .max(MAX_RUN_STEPS, `At most ${MAX_RUN_STEPS} legs in one run`),
 });
 
 const gpsRun = z.object({
@@ -135,7 +141,7 @@ export const liftSchema = z.discriminatedUnion(
       kind: z.literal('runs'),
       /** Where the runs start: at the pump (booked uphill) or at the tank (booked downhill). */
       bookedFrom: oneOf('Booked from', ['pump', 'tank']),
-      runs: z.array(fallRunSchema).min(1, 'Add at least one lift run'),
+      runs: z.array(fallRunSchema).min(1, 'Add at least one lift run').max(MAX_LIFT_RUNS, `At most ${MAX_LIFT_RUNS} lift runs`),
     }),
     z.object({
       kind: z.literal('direct'),
@@ -155,6 +161,8 @@ const drivePipe = z.object({
   diameterMm: positive('Drive pipe diameter').optional(),
   material: oneOf('Drive pipe material', materialIds).default('galvanized-steel'),
   pressureClass: z.string().optional(),
+}).refine((p) => p.pressureClass === undefined || isClassOf(p.material, p.pressureClass), {
+  message: 'Drive pipe pressure class is not one of its material’s', path: ['pressureClass'],
 });
 
 /** A feed pipe from the intake to an open stand pipe, where the drive pipe starts (gentle creeks). */
@@ -169,6 +177,8 @@ const deliveryPipe = z.object({
   diameterMm: positive('Delivery pipe diameter').optional(),
   material: oneOf('Delivery pipe material', materialIds).default('hdpe'),
   pressureClass: z.string().optional(),
+}).refine((p) => p.pressureClass === undefined || isClassOf(p.material, p.pressureClass), {
+  message: 'Delivery pipe pressure class is not one of its material’s', path: ['pressureClass'],
 });
 
 const demandKinds = keysOf<DemandKind>(DEMAND_CATALOGUE);
@@ -210,13 +220,14 @@ export const monteCarloSchema = z.object({
 });
 
 export const siteReadingsSchema = z.object({
-  flowMeasurements: z.array(flowMeasurementSchema).min(1, 'Add at least one flow measurement'),
-  fallRuns: z.array(fallRunSchema).min(1, 'Add at least one fall run'),
+  flowMeasurements: z.array(flowMeasurementSchema).min(1, 'Add at least one flow measurement')
+    .max(MAX_FLOW_MEASUREMENTS, `At most ${MAX_FLOW_MEASUREMENTS} flow measurements on one visit`),
+  fallRuns: z.array(fallRunSchema).min(1, 'Add at least one fall run').max(MAX_FALL_RUNS, `At most ${MAX_FALL_RUNS} fall runs on one visit`),
   lift: liftSchema,
   drivePipe: drivePipe.prefault({}),
   feedPipe: feedPipe.optional(),
   deliveryPipe,
-  demand: z.array(demandLine).min(1, 'Add at least one demand line'),
+  demand: z.array(demandLine).min(1, 'Add at least one demand line').max(MAX_DEMAND_LINES, `At most ${MAX_DEMAND_LINES} demand lines`),
   ram: forcedRam.optional(),
   settings: settingsSchema.prefault({}),
   monteCarlo: monteCarloSchema.prefault({}),

@@ -6,9 +6,13 @@ import { PIPE_MATERIALS, type PipeMaterialId } from '@/lib/engine/materials';
 import { POINT_ROLES, type VisitStatus } from '../domain';
 import { STATION_FLAGS } from '@/lib/engine/profile-pairs';
 import { fallRunSchema, flowMeasurementSchema, LIFT_DIRECT_METHODS } from './site-readings';
+import { isoDateTime, MAX_PHOTO_SIDE_PX } from './bounds';
+import { PRESSURE_CLASS_IDS } from '../reading-limits';
 
-const uuid = z.string().uuid('Must be a UUID.');
-const isoTime = z.string().datetime({ offset: true, message: 'Must be an ISO 8601 date-time.' });
+// A UUID names the same thing in either case: kept in lower case, so an upper-cased copy of an op
+// id is a replay and an upper-cased record id the same record.
+const uuid = z.string().uuid('Must be a UUID.').transform((id) => id.toLowerCase());
+const isoTime = isoDateTime;
 const text = (max: number) => z.string().max(max, `At most ${max} characters.`);
 const finite = z.number().finite('Must be a finite number.');
 const keys = <K extends string>(record: Readonly<Record<K, unknown>>) => Object.keys(record) as [K, ...K[]];
@@ -80,8 +84,8 @@ export const entityFields = {
     mime: z.enum(PHOTO_MIME_TYPES, { message: 'Photos must be JPEG, PNG or WebP.' }),
     bytes: z.number().int().min(1).max(MAX_PHOTO_BYTES, `Photos must be at most ${MAX_PHOTO_BYTES / 1024 / 1024} MB.`),
     sha256: z.string().regex(/^[0-9a-f]{64}$/, 'Must be a lower-case hex sha-256.'),
-    width: z.number().int().positive().nullable(),
-    height: z.number().int().positive().nullable(),
+    width: z.number().int().positive().max(MAX_PHOTO_SIDE_PX, `At most ${MAX_PHOTO_SIDE_PX} pixels.`).nullable(),
+    height: z.number().int().positive().max(MAX_PHOTO_SIDE_PX, `At most ${MAX_PHOTO_SIDE_PX} pixels.`).nullable(),
     lat: finite.min(-90).max(90).nullable(),
     lon: finite.min(-180).max(180).nullable(),
     takenAt: isoTime.nullable(),
@@ -100,7 +104,7 @@ export const entityFields = {
     lengthM: finite.positive().max(100_000).nullable(),
     diameterMm: finite.positive().max(2_000).nullable(),
     material: z.enum(keys<PipeMaterialId>(PIPE_MATERIALS)),
-    pressureClass: text(24).nullable(),
+    pressureClass: z.enum(PRESSURE_CLASS_IDS, { message: 'Choose a pressure class from the list.' }).nullable(),
   }),
   /**
    * What an installed ram measured, recorded on the phone (often offline). Create-only: the server

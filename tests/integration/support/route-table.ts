@@ -4,6 +4,7 @@
 import { createHash, randomUUID } from 'node:crypto';
 import { NextRequest } from 'next/server';
 import type { Permission } from '@/lib/server/auth/permissions';
+import { User } from '@/lib/server/db';
 import { request, sessionCookie, type TestUser } from './fixtures';
 import { putOp } from './sync';
 
@@ -60,6 +61,20 @@ export async function rawPut(path: string, user: TestUser | undefined, bytes: Bu
 
 export const sha256 = (data: Buffer) => createHash('sha256').update(data).digest('hex');
 
+/**
+ * A new account like the caller's (organisation, role, whether it is switched on, its stored session
+ * version), for routes that end the caller's sessions: the cell's outcome is the same, and the
+ * caller's own sessions live on for the cells after it.
+ */
+async function throwawayLike(user: TestUser): Promise<TestUser> {
+  const stored = await User.findByPk(user.id, { rejectOnEmpty: true });
+  const id = randomUUID();
+  const email = `throwaway-${id.slice(0, 8)}@fixtures.test`;
+  await User.create({ id, organisationId: user.organisationId, email, name: `${user.name} (copy)`, role: user.role, passwordHash: null, units: 'metric',
+    phone: null, lastSignInAt: null, active: stored.active, sessionVersion: stored.sessionVersion });
+  return { ...user, id, email };
+}
+
 const need = (r: Resource | undefined): Resource => {
   if (!r) throw new Error('this route needs a resource');
   return r;
@@ -75,6 +90,11 @@ export const ROUTES: RouteEntry[] = [
   {
     file: 'app/api/me/route.ts', method: 'GET', load: () => import('@/app/api/me/route'), permissions: ['profile:read'], target: 'none', ok: 200,
     build: async (u) => request('/api/me', u),
+  },
+  {
+    // Ends the caller's sessions: called as a throwaway account of the same role, so later cells keep theirs.
+    file: 'app/api/me/sessions/route.ts', method: 'POST', load: () => import('@/app/api/me/sessions/route'), permissions: ['profile:read'], target: 'none', ok: 200,
+    build: async (u) => request('/api/me/sessions', u && (await throwawayLike(u)), json('POST', {})),
   },
   {
     file: 'app/api/farms/route.ts', method: 'GET', load: () => import('@/app/api/farms/route'), permissions: ['farm:read'], target: 'none', ok: 200,
@@ -171,6 +191,14 @@ export const ROUTES: RouteEntry[] = [
   {
     file: 'app/api/visits/export.csv/route.ts', method: 'GET', load: () => import('@/app/api/visits/export.csv/route'), permissions: ['visit:export'], target: 'none', ok: 200,
     build: async (u) => request('/api/visits/export.csv', u),
+  },
+  {
+    file: 'app/api/visits/deleted/route.ts', method: 'GET', load: () => import('@/app/api/visits/deleted/route'), permissions: ['visit:plan'], target: 'none', ok: 200,
+    build: async (u) => request('/api/visits/deleted', u),
+  },
+  {
+    file: 'app/api/visits/[id]/restore/route.ts', method: 'POST', load: () => import('@/app/api/visits/[id]/restore/route'), permissions: ['visit:plan'], target: 'visit', ok: 200,
+    build: async (u, r) => request(`/api/visits/${need(r).visitId}/restore`, u, json('POST', {})),
   },
   {
     file: 'app/api/visits/[id]/route.ts', method: 'GET', load: () => import('@/app/api/visits/[id]/route'), permissions: ['visit:read'], target: 'visit', ok: 200,

@@ -26,6 +26,7 @@ export function fakeServer(decide: (op: SyncOp, seen: number) => OpResult['statu
   const seen = new Map<string, number>();
   let rev = 100;
   let failNext: number | null = null;
+  let poison: { when: (op: SyncOp) => boolean; status: number } | null = null;
   const fetchMock = vi.fn(async (url: string, init?: RequestInit) => {
     if (failNext !== null) {
       const status = failNext;
@@ -36,6 +37,9 @@ export function fakeServer(decide: (op: SyncOp, seen: number) => OpResult['statu
     if (url.startsWith('/api/sync/push')) {
       const { ops } = JSON.parse(String(init?.body)) as { ops: SyncOp[] };
       pushed.push(ops);
+      if (poison && ops.some(poison.when)) {
+        return new Response(JSON.stringify({ error: { message: 'Something went wrong on the server.' } }), { status: poison.status });
+      }
       const results: OpResult[] = ops.map((op) => {
         const count = (seen.get(op.opId) ?? 0) + 1;
         seen.set(op.opId, count);
@@ -57,5 +61,7 @@ export function fakeServer(decide: (op: SyncOp, seen: number) => OpResult['statu
     pushed, fetchMock,
     /** The next request fails: 0 = network error, else that HTTP status. */
     failNextWith(status: number) { failNext = status; },
+    /** Every batch holding an op that matches fails whole with that status (as a server-side fault would). */
+    failBatchesContaining(when: (op: SyncOp) => boolean, status: number) { poison = { when, status }; },
   };
 }

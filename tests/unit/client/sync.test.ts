@@ -47,6 +47,36 @@ describe('push', () => {
     expect(entry?.nextAttemptAt).toBeGreaterThan(Date.now());
   });
 
+  it('a batch that fails server-side (500) is split until the one op that fails is found; the rest go through', async () => {
+    const server = fakeServer();
+    for (let i = 0; i < 150; i++) await note(i);
+    const bad = (op: { changes?: unknown }) => (op.changes as { name?: string } | undefined)?.name === 'source 37';
+    server.failBatchesContaining(bad, 500);
+    expect(await pushAll()).toBe(149);
+    const left = await db.outbox.toArray();
+    expect(left).toHaveLength(1);
+    expect((left[0]?.op.changes as { name: string }).name).toBe('source 37');
+    expect(left[0]?.status).toBe('pending');
+    expect(left[0]?.attempts).toBe(1);
+    expect(left[0]?.nextAttemptAt).toBeGreaterThan(Date.now());
+    // Split in halves, not one request per op.
+    expect(server.pushed.length).toBeLessThan(30);
+    // "Sync now" tries it again, once per run, and the run ends.
+    await expect(pushAll(true)).rejects.toThrow();
+    expect(await db.outbox.count()).toBe(1);
+  });
+
+  it('when every op fails (the server is down) the split gives up early and everything waits, nothing lost', async () => {
+    const server = fakeServer();
+    for (let i = 0; i < 150; i++) await note(i);
+    server.failBatchesContaining(() => true, 500);
+    await expect(pushAll()).rejects.toThrow();
+    expect(server.pushed.length).toBeLessThan(20);
+    const left = await db.outbox.toArray();
+    expect(left).toHaveLength(150);
+    expect(left.filter((e) => e.attempts === 1)).toHaveLength(100);
+  });
+
   it('a 401 pauses the queue and drops nothing', async () => {
     const server = fakeServer();
     await note(1);

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { MAX_FLOW_MEASUREMENTS, MAX_TRIALS } from '@/lib/shared/reading-limits';
 import { siteReadingsSchema } from '@/lib/shared/schemas/site-readings';
 import { clearGo } from '../engine/fixtures/demo-sites';
 
@@ -37,5 +38,25 @@ describe('SiteReadings schema', () => {
     const issues = messagesFor({ flowMeasurements: [{ method: 'float', season: 'spring', areaM2: -1, trials: [{ distanceM: 0, seconds: Infinity }] }] });
     expect(issues.length).toBeGreaterThanOrEqual(3);
     for (const i of issues) expect(i.message).toMatch(/^[A-Z][^{}]*[a-z0-9]$/);
+  });
+});
+
+describe('SiteReadings schema: the shared reading limits (lib/shared/reading-limits.ts)', () => {
+  const trial = { volumeL: 20, seconds: 10 };
+  const measurement = { method: 'volumetric', season: 'dry', trials: [trial] };
+  it.each<[string, Record<string, unknown>, string, RegExp]>([
+    [`${MAX_TRIALS + 1} trials`, { flowMeasurements: [{ ...measurement, trials: Array(MAX_TRIALS + 1).fill(trial) }] }, 'flowMeasurements.0.trials', /At most 100 trials/],
+    [`${MAX_FLOW_MEASUREMENTS + 1} measurements`, { flowMeasurements: Array(MAX_FLOW_MEASUREMENTS + 1).fill(measurement) }, 'flowMeasurements', /At most 200 flow measurements/],
+    ['a pressure class of another material', { deliveryPipe: { lengthM: 300, material: 'hdpe', pressureClass: 'sch40-class150' } }, 'deliveryPipe.pressureClass', /not one of its material/],
+    ['a made-up pressure class', { drivePipe: { material: 'galvanized-steel', pressureClass: 'PN10' } }, 'drivePipe.pressureClass', /not one of its material/],
+  ])('refuses %s', (_label, patch, path, message) => {
+    const issues = messagesFor(patch);
+    expect(issues.some((i) => i.path === path && message.test(i.message)), JSON.stringify(issues.slice(0, 3))).toBe(true);
+  });
+
+  it('accepts the limits themselves and a real class of the material', () => {
+    const ok = siteReadingsSchema.safeParse({ ...structuredClone(clearGo), flowMeasurements: [{ ...measurement, trials: Array(MAX_TRIALS).fill(trial) }],
+      deliveryPipe: { lengthM: 300, material: 'hdpe', pressureClass: 'sdr-11' } });
+    expect(ok.success, ok.success ? '' : JSON.stringify(ok.error.issues.slice(0, 3))).toBe(true);
   });
 });

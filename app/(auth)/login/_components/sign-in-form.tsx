@@ -3,6 +3,7 @@
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { signInWithPassword } from '@/lib/client/sign-in';
+import { sameOriginPath } from '@/lib/shared/return-path';
 import { signInProblems } from '@/lib/shared/sign-in-rules';
 
 /**
@@ -31,7 +32,8 @@ export function SignInForm({ returnTo }: { returnTo?: string }) {
         setServerError(error !== 'CredentialsSignin' ? error : 'That e-mail and password do not match an active account.');
         return;
       }
-      router.replace(returnTo ?? '/');
+      // Checked again here: the page's check ran against the configured origin, this one against the browser's.
+      router.replace(sameOriginPath(returnTo, window.location.origin) ?? '/');
       router.refresh();
     } catch {
       setServerError('Fallbook did not answer; check the connection and try again.');

@@ -1,15 +1,9 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { invitationState } from '@/lib/server/data/invitations';
+import { INVITATION_GONE, invitationState } from '@/lib/server/data/invitations';
 import { SetPasswordForm } from './_components/set-password-form';
 
 export const metadata: Metadata = { title: 'Welcome', robots: { index: false } };
-
-const MESSAGES = {
-  unknown: 'This invitation link is not valid. Check that the whole link was copied, or ask your coordinator for a new one.',
-  used: 'This invitation has already been used. Sign in with the password you chose, or ask your coordinator for a new link.',
-  expired: 'This invitation has expired. Ask your coordinator to send a new one.',
-} as const;
 
 // Public: the token in the path is the only key; it is checked against its stored hash.
 export default async function WelcomePage({ params }: { params: Promise<{ token: string }> }) {
@@ -25,7 +19,7 @@ export default async function WelcomePage({ params }: { params: Promise<{ token:
         </>
       ) : (
         <>
-          <p role="alert" className="mt-4 rounded-md border-2 border-clay bg-white p-3 text-lg font-bold text-clay">{MESSAGES[invitation.state]}</p>
+          <p role="alert" className="mt-4 rounded-md border-2 border-clay bg-white p-3 text-lg font-bold text-clay">{INVITATION_GONE[invitation.state]}</p>
           <p className="mt-4"><Link href="/login">Go to sign in</Link></p>
         </>
       )}

@@ -5,6 +5,7 @@ import { VerdictMark } from '@/components/verdict-mark';
 import { requirePageUser } from '@/lib/server/auth/page-guard';
 import { visitAuditTrail } from '@/lib/server/data/audit-trail';
 import { listPeople } from '@/lib/server/data/people';
+import { screeningBlockers } from '@/lib/server/services/screening';
 import { getVisitOrThrow } from '@/lib/server/data/visits';
 import { formatDateTime, formatDay } from '@/lib/shared/format';
 import { idParam } from '@/lib/shared/schemas/list-query';
@@ -22,7 +23,9 @@ export default async function OfficeVisitPage({ params }: { params: Promise<{ id
   if (!idParam.safeParse({ id }).success) notFound();
   const visit = await getVisitOrThrow(user, id, 'visit:plan').catch((e: { status?: number }) => (e.status === 404 || e.status === 403 ? null : Promise.reject(e)));
   if (!visit) notFound();
-  const [audit, people] = await Promise.all([visitAuditTrail(user, id), listPeople(user, { page: 1, pageSize: 100 })]);
+  const [audit, people, blockers] = await Promise.all([
+    visitAuditTrail(user, id), listPeople(user, { page: 1, pageSize: 100 }), visit.verdict ? Promise.resolve([]) : screeningBlockers(id),
+  ]);
   const advisors = people.items.filter((p) => p.role === 'advisor' && (p.active || p.id === visit.advisor?.id)).map((p) => ({ id: p.id, name: p.name }));
   const names = new Map(people.items.map((p) => [p.id, p.name]));
   const unsynced = mayHoldUnsyncedData({ ...visit, advisorId: visit.advisor?.id ?? null });
@@ -39,6 +42,12 @@ export default async function OfficeVisitPage({ params }: { params: Promise<{ id
           <div><dt className="text-stone">Screening</dt><dd>{visit.verdict ? <><VerdictMark verdict={visit.verdict} size={18} /> <Link href={`/sheets/${visit.id}`} className="ml-2 font-bold">Open the sheet</Link></> : 'Not screened'}</dd></div>
           <div><dt className="text-stone">Last synced</dt><dd className="figure">{visit.lastSyncedAt ? formatDateTime(visit.lastSyncedAt) : 'Never'}</dd></div>
         </dl>
+        {blockers.length > 0 && (
+          <div className="mt-3 max-w-prose">
+            <p className="font-bold">The screen cannot run yet:</p>
+            <ul className="list-disc pl-6">{blockers.slice(0, 8).map((b) => <li key={b}>{b}</li>)}</ul>
+          </div>
+        )}
         {visit.notes && <p className="mt-3 max-w-prose">{visit.notes}</p>}
       </section>
       <section aria-labelledby="assign" className="space-y-3">

@@ -12,7 +12,7 @@ export const POST = withAuth<{ id: string }>('sheet:send', async ({ req, user, p
   const body = await parseJsonBody(req, sendSheetBody);
   const send = await sendSheet(user, id, body);
   if (send.status !== 'sent') {
-    // Recorded as failed (shown with a Retry button); the mail server's reason goes back as-is.
+    // Recorded as failed (shown with a Retry button), with a plain reason.
     return Response.json({ error: { code: 'mail_failed', message: send.error ?? 'The message was not sent.' }, send }, { status: 502 });
   }
   return Response.json({ send }, { status: 201 });
