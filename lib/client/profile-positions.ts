@@ -49,11 +49,17 @@ async function upsertPoint(visitId: string, role: 'intake' | 'pump', station: Pr
   else await saveRecord('point', newId(), { visitId, role, capturedAt: new Date().toISOString(), flags: null, ...fields });
 }
 
-async function upsertPipe(visitId: string, purpose: 'drive' | 'delivery', lengthM: number) {
+async function upsertPipe(visitId: string, purpose: 'drive' | 'delivery' | 'feed', lengthM: number) {
   const existing = live(await fieldDb().pipeRuns.where('visitId').equals(visitId).toArray()).find((p) => p.purpose === purpose);
   const rounded = Math.round(lengthM * 10) / 10;
   if (existing) await saveRecord('pipeRun', existing.id, { lengthM: rounded });
   else await saveRecord('pipeRun', newId(), { visitId, purpose, lengthM: rounded, diameterMm: null, material: purpose === 'drive' ? 'galvanized-steel' : 'hdpe', pressureClass: null });
+}
+
+/** A pair without a stand pipe has no feed pipe: one left from an earlier arrangement goes. */
+async function dropFeedPipe(visitId: string) {
+  const existing = live(await fieldDb().pipeRuns.where('visitId').equals(visitId).toArray()).find((p) => p.purpose === 'feed');
+  if (existing) await deleteRecord('pipeRun', existing.id);
 }
 
 /**
@@ -65,11 +71,14 @@ export async function adoptPair(visitId: string, pair: PositionPair, stations: L
   await upsertPoint(visitId, 'intake', find(pair.intake.id));
   await upsertPoint(visitId, 'pump', find(pair.pump.id));
   await upsertPipe(visitId, 'drive', pair.driveLengthM);
+  if (pair.standPipe) await upsertPipe(visitId, 'feed', pair.feedLengthM);
+  else await dropFeedPipe(visitId);
   await upsertPipe(visitId, 'delivery', pair.deliveryLengthM);
   const runs = live(await fieldDb().fallReadings.where('visitId').equals(visitId).toArray());
   for (const r of runs) await deleteRecord('fallReading', r.id);
   const seq = runs.reduce((m, r) => Math.max(m, r.seq + 1), 0);
-  const note = `From the creek profile: intake at ${pair.intake.chainageM} m, ram at ${pair.pump.chainageM} m, tank at level ${tank.levelM} m.`;
+  const stand = pair.standPipe ? `, stand pipe at ${pair.standPipe.chainageM} m` : '';
+  const note = `From the creek profile: intake at ${pair.intake.chainageM} m${stand}, ram at ${pair.pump.chainageM} m, tank at level ${tank.levelM} m.`;
   const takenAt = new Date().toISOString();
   const fall = Math.round(pair.fallM * 1000) / 1000;
   await saveRecord('fallReading', newId(), { visitId, purpose: 'fall', seq, takenAt, notes: note, bookedFrom: null, run: { method: 'level', rows: [{ backsightM: 0 }, { foresightM: fall }] } });

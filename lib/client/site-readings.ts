@@ -24,7 +24,7 @@ export async function localSiteReadings(visitId: string): Promise<SiteReadingsIn
   const lift = direct && direct.run.method === 'direct'
     ? { kind: 'direct' as const, staticLiftM: direct.run.staticLiftM, method: direct.run.liftMethod, uncertaintyM: direct.run.uncertaintyM }
     : { kind: 'runs' as const, bookedFrom: liftRuns[0]?.bookedFrom ?? 'pump', runs: liftRuns.map((r) => r.run) };
-  const pipe = (purpose: 'drive' | 'delivery') => {
+  const pipe = (purpose: 'drive' | 'delivery' | 'feed') => {
     const row = live(pipes).find((p) => p.purpose === purpose);
     return row ? { lengthM: row.lengthM ?? undefined, diameterMm: row.diameterMm ?? undefined, material: row.material, pressureClass: row.pressureClass ?? undefined } : undefined;
   };
@@ -33,6 +33,7 @@ export async function localSiteReadings(visitId: string): Promise<SiteReadingsIn
     fallRuns: ordered.filter((r) => r.purpose === 'fall').map((r) => r.run),
     lift,
     drivePipe: pipe('drive') ?? {},
+    ...(pipe('feed')?.lengthM ? { feedPipe: { lengthM: pipe('feed')?.lengthM, diameterMm: pipe('feed')?.diameterMm, material: pipe('feed')?.material } } : {}),
     deliveryPipe: pipe('delivery'),
     demand: live(demand).map((d) => ({ kind: d.kind, count: d.count, litresPerHeadPerDay: d.litresPerHeadPerDay })),
     settings: settings

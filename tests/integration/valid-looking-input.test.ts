@@ -57,10 +57,10 @@ describe('valid-looking input is refused with a 422, never a 500', () => {
     expect(await Photo.findByPk(id)).toBeNull();
   });
 
-  it('days before year 1000 are refused (they came back shifted: 0000-01-01 as 2000-01-01); the lowest allowed day round-trips', async () => {
+  it('days before year 1000 are refused (they came back shifted: 0000-01-01 as 2000-01-01); the lowest allowed planned day round-trips', async () => {
     const o = await makeOrganisation('old-day');
     const assign = async (plannedOn: string) =>
-      putAssignment(await request(`/api/visits/${o.visit.id}/assignment`, o.coordinator, { method: 'PUT', body: { advisorId: o.advisor.id, plannedOn, confirmUnsynced: true } }), params({ id: o.visit.id }));
+      putAssignment(await request(`/api/visits/${o.visit.id}/assignment`, o.coordinator, { method: 'PUT', body: { advisorId: o.advisor.id, plannedOn, confirmUnsynced: true, confirmPast: true } }), params({ id: o.visit.id }));
     for (const day of ['0000-01-01', '0999-12-31']) {
       const res = await assign(day);
       expect(res.status, day).toBe(422);
@@ -68,7 +68,8 @@ describe('valid-looking input is refused with a 422, never a 500', () => {
     }
     const list = await getVisits(await request('/api/visits?plannedFrom=0000-01-01', o.coordinator), params({}));
     expect(list.status).toBe(422);
-    expect((await assign('1900-01-01')).status).toBe(200);
-    expect((await Visit.findByPk(o.visit.id, { rejectOnEmpty: true })).plannedOn).toBe('1900-01-01');
+    // Planned days start in 2000 (the planning window); a past one needs its confirmation.
+    expect((await assign('2000-01-01')).status).toBe(200);
+    expect((await Visit.findByPk(o.visit.id, { rejectOnEmpty: true })).plannedOn).toBe('2000-01-01');
   });
 });

@@ -50,6 +50,7 @@ export async function loadSiteReadings(visitId: string, transaction?: Transactio
     fallRuns,
     lift,
     drivePipe: pipe('drive') ?? {},
+    ...(pipe('feed')?.lengthM ? { feedPipe: { lengthM: pipe('feed')?.lengthM, diameterMm: pipe('feed')?.diameterMm, material: pipe('feed')?.material } } : {}),
     deliveryPipe: pipe('delivery'),
     demand: demand.map((d) => ({ kind: d.kind, count: d.count, litresPerHeadPerDay: d.litresPerHeadPerDay })),
     settings: {

@@ -3,11 +3,11 @@ import { z } from '@/lib/shared/zod';
 import { ROLES, UNIT_SYSTEMS, VISIT_STATUSES } from '../domain';
 import { JUMP_REASON_MIN } from '../visit-states';
 import { isPastDay, PAST_DAY_UNCONFIRMED, plannedDayProblem } from '../visit-rules';
-import { isoDay as boundedDay } from './bounds';
 
 // Bodies of the coordinator's office routes; the forms use the same schemas (zodResolver).
 
-const isoDay = boundedDay('Pick a date.');
+// Planned days are held to a sane window below (plannedDayProblem), tighter than the general date bounds.
+const isoDay = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Pick a date.');
 // A planned date: a real day from 2000 to two years ahead (a past one needs confirmPast, below).
 const plannedDay = isoDay.superRefine((day, ctx) => {
   const problem = plannedDayProblem(day);

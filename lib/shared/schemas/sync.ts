@@ -100,7 +100,8 @@ export const entityFields = {
   }),
   pipeRun: z.object({
     visitId: uuid,
-    purpose: z.enum(['drive', 'delivery']),
+    // 'feed': intake to an open stand pipe where the drive pipe starts (gentle creeks).
+    purpose: z.enum(['drive', 'delivery', 'feed']),
     lengthM: finite.positive().max(100_000).nullable(),
     diameterMm: finite.positive().max(2_000).nullable(),
     material: z.enum(keys<PipeMaterialId>(PIPE_MATERIALS)),

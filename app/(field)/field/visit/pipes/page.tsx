@@ -9,7 +9,7 @@ import { PIPE_MATERIALS, type PipeMaterialId } from '@/lib/engine/materials';
 import { fieldDb, type LocalRecord } from '@/lib/client/db';
 import { setDirty } from '@/lib/client/dirty';
 import { newId } from '@/lib/client/ids';
-import { saveRecord } from '@/lib/client/outbox';
+import { deleteRecord, saveRecord } from '@/lib/client/outbox';
 import { announceSave } from '@/lib/client/sync/triggers';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { entityFields } from '@/lib/shared/schemas/sync';
@@ -22,10 +22,10 @@ const pipe = entityFields.pipeRun.pick({ material: true }).extend({
   lengthM: z.number({ error: 'Measure the length along the route.' }).positive('Length must be more than 0.'),
   diameterMm: z.number().positive('Diameter must be more than 0.').optional(),
 });
-const schema = z.object({ drive: pipe.partial({ lengthM: true }), delivery: pipe });
+const schema = z.object({ drive: pipe.partial({ lengthM: true }), delivery: pipe, feed: pipe.partial({ lengthM: true }) });
 type Values = z.infer<typeof schema>;
 
-function PipeFields({ name, title, control, units, hint }: { name: 'drive' | 'delivery'; title: string; control: ReturnType<typeof useForm<Values>>['control']; units: UnitSystem; hint: string }) {
+function PipeFields({ name, title, control, units, hint }: { name: 'drive' | 'delivery' | 'feed'; title: string; control: ReturnType<typeof useForm<Values>>['control']; units: UnitSystem; hint: string }) {
   return (
     <fieldset className="space-y-3 rounded-md border-2 border-rule bg-white p-3">
       <legend className="px-1 text-xl font-bold">{title}</legend>
@@ -52,13 +52,14 @@ function PipeFields({ name, title, control, units, hint }: { name: 'drive' | 'de
 }
 
 function PipesForm({ visitId, existing, units }: { visitId: string; existing: LocalRecord<'pipeRun'>[]; units: UnitSystem }) {
-  const find = (purpose: 'drive' | 'delivery') => existing.find((p) => p.purpose === purpose);
+  const find = (purpose: 'drive' | 'delivery' | 'feed') => existing.find((p) => p.purpose === purpose);
   const [message, setMessage] = useState<string | null>(null);
   const { control, handleSubmit, formState } = useForm<Values>({
     resolver: zodResolver(schema),
     defaultValues: {
       drive: { lengthM: find('drive')?.lengthM ?? undefined, diameterMm: find('drive')?.diameterMm ?? undefined, material: find('drive')?.material ?? 'galvanized-steel' },
       delivery: { lengthM: find('delivery')?.lengthM ?? undefined, diameterMm: find('delivery')?.diameterMm ?? undefined, material: find('delivery')?.material ?? 'hdpe' },
+      feed: { lengthM: find('feed')?.lengthM ?? undefined, diameterMm: find('feed')?.diameterMm ?? undefined, material: find('feed')?.material ?? 'hdpe' },
     },
   });
   useEffect(() => {
@@ -67,8 +68,14 @@ function PipesForm({ visitId, existing, units }: { visitId: string; existing: Lo
   }, [formState.isDirty]);
 
   async function save(values: Values) {
-    for (const purpose of ['drive', 'delivery'] as const) {
+    for (const purpose of ['drive', 'delivery', 'feed'] as const) {
       const v = values[purpose];
+      // No feed pipe unless its length is given: an empty section removes one saved before.
+      if (purpose === 'feed' && v.lengthM === undefined) {
+        const old = find('feed');
+        if (old) await deleteRecord('pipeRun', old.id);
+        continue;
+      }
       await saveRecord('pipeRun', find(purpose)?.id ?? newId(), {
         visitId, purpose, lengthM: v.lengthM ?? null, diameterMm: v.diameterMm ?? null, material: v.material, pressureClass: find(purpose)?.pressureClass ?? null,
       });
@@ -80,6 +87,7 @@ function PipesForm({ visitId, existing, units }: { visitId: string; existing: Lo
     <form onSubmit={handleSubmit(save)} className="space-y-4" noValidate>
       <PipeFields name="drive" title="Drive pipe (intake → ram)" control={control} units={units} hint="Rigid pipe; leave the length empty to let the screen propose one from the fall." />
       <PipeFields name="delivery" title="Delivery pipe (ram → tank)" control={control} units={units} hint="Measure along the ground, including bends." />
+      <PipeFields name="feed" title="Feed pipe (intake → stand pipe), gentle creeks only" control={control} units={units} hint="Where the drive pipe starts at an open stand pipe below the intake; leave the length empty when the drive pipe starts at the intake." />
       {message && <p role="status" className="font-bold">{message}</p>}
       <PrimaryButton type="submit">Save pipe runs</PrimaryButton>
     </form>

@@ -97,6 +97,9 @@ function PositionsPage() {
               <li key={`${p.intake.id}-${p.pump.id}`} className="rounded-md border-2 border-rule bg-white p-3" data-testid={`pair-${p.rank}`}>
                 <p className="text-lg font-bold">{p.rank}. Intake at <span className="figure">{showQuantity(p.intake.chainageM, 'length', units)}</span>, ram at <span className="figure">{showQuantity(p.pump.chainageM, 'length', units)}</span></p>
                 <p>Fall <span className="figure">{showQuantity(p.fallM, 'length', units)}</span> · lift <span className="figure">{showQuantity(p.staticLiftM, 'length', units)}</span> · drive pipe <span className="figure">{showQuantity(p.driveLengthM, 'length', units)}</span></p>
+                {p.standPipe && (
+                  <p data-testid={`pair-${p.rank}-stand-pipe`}>Feed pipe <span className="figure">{showQuantity(p.feedLengthM, 'length', units)}</span> to an open stand pipe at <span className="figure">{showQuantity(p.standPipe.chainageM, 'length', units)}</span>, where the drive pipe starts</p>
+                )}
                 <p>Delivers about <span className="figure">{showQuantity(p.deliveryLpd, 'litresPerDay', units)}</span>; meets the need in <span className="figure">{Math.round(p.probabilityMeetsDemand * 100)} %</span> of draws</p>
                 <p>Screen: <VerdictMark verdict={p.screening.verdict} /></p>
                 <button type="button" onClick={() => adopt(p.rank)} className="mt-2 min-h-12 w-full rounded-md border-2 border-slate font-bold text-slate">Adopt pair {p.rank}</button>

@@ -33,14 +33,23 @@ export function PositionsChart({ stations, tank, pairs, units }: { stations: Pro
         {tank && <rect x={x(tank.chainageM) - 6} y={y(tank.levelM) - 6} width="12" height="12" fill="none" stroke="#15191C" strokeWidth="2"><title>Tank</title></rect>}
         {pairs.map((p, i) => (
           <g key={`${p.intake.id}-${p.pump.id}`} data-testid={`pair-line-${p.rank}`}>
-            <line x1={x(p.intake.chainageM)} y1={y(p.intake.levelM)} x2={x(p.pump.chainageM)} y2={y(p.pump.levelM)} stroke={PAIR_COLOURS[i] ?? '#4F555A'} strokeWidth="5" strokeLinecap="round" opacity="0.8" />
+            {p.standPipe ? (
+              <>
+                {/* Feed pipe dashed at the intake's water level to the stand pipe; the drive pipe solid from there. */}
+                <line x1={x(p.intake.chainageM)} y1={y(p.intake.levelM)} x2={x(p.standPipe.chainageM)} y2={y(p.intake.levelM)} stroke={PAIR_COLOURS[i] ?? '#4F555A'} strokeWidth="3" strokeDasharray="6 4" opacity="0.8" />
+                <line x1={x(p.standPipe.chainageM)} y1={y(p.intake.levelM)} x2={x(p.standPipe.chainageM)} y2={y(p.standPipe.levelM)} stroke={PAIR_COLOURS[i] ?? '#4F555A'} strokeWidth="6" data-testid={`stand-pipe-${p.rank}`}><title>Stand pipe</title></line>
+                <line x1={x(p.standPipe.chainageM)} y1={y(p.standPipe.levelM)} x2={x(p.pump.chainageM)} y2={y(p.pump.levelM)} stroke={PAIR_COLOURS[i] ?? '#4F555A'} strokeWidth="5" strokeLinecap="round" opacity="0.8" />
+              </>
+            ) : (
+              <line x1={x(p.intake.chainageM)} y1={y(p.intake.levelM)} x2={x(p.pump.chainageM)} y2={y(p.pump.levelM)} stroke={PAIR_COLOURS[i] ?? '#4F555A'} strokeWidth="5" strokeLinecap="round" opacity="0.8" />
+            )}
             <circle cx={x(p.pump.chainageM)} cy={y(p.pump.levelM) + 14 + 14 * i} r="9" fill={PAIR_COLOURS[i] ?? '#4F555A'} />
             <text x={x(p.pump.chainageM)} y={y(p.pump.levelM) + 18 + 14 * i} textAnchor="middle" fontSize="11" fontWeight="bold" fill="#fff">{p.rank}</text>
           </g>
         ))}
       </svg>
       <figcaption className="text-stone">
-        Level against distance along the bank; numbered lines run from intake to ram; crosses flood (no ram); the square is the tank.
+        Level against distance along the bank; numbered lines run from intake to ram (dashed: a feed pipe to an upright stand pipe, where the drive pipe starts); crosses flood (no ram); the square is the tank.
         Span <span className="figure">{showQuantity(hi - lo, 'length', units)}</span> high, <span className="figure">{showQuantity(c1 - c0, 'length', units)}</span> long.
       </figcaption>
     </figure>

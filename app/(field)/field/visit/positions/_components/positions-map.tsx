@@ -78,6 +78,14 @@ export default function PositionsMap({ placed, tank, pairs }: {
             <Polyline positions={run} className={`map-pair-line-${p.rank}`} pathOptions={{ color: colour, weight: 8, opacity: 0.75, lineCap: 'round' }} />
             <Marker position={[intake.lat, intake.lon]} icon={pairIcon('intake', p.rank, colour)}><Tooltip>{`Pair ${p.rank}: intake at ${p.intake.chainageM} m`}</Tooltip></Marker>
             <Marker position={[ram.lat, ram.lon]} icon={pairIcon('ram', p.rank, colour)}><Tooltip>{`Pair ${p.rank}: ram at ${p.pump.chainageM} m`}</Tooltip></Marker>
+            {(() => {
+              const stand = p.standPipe ? byId.get(p.standPipe.id) : undefined;
+              return stand ? (
+                <CircleMarker center={[stand.lat, stand.lon]} radius={7} className={`map-pair-${p.rank}-stand-pipe`} pathOptions={{ color: colour, fillColor: '#FFFFFF', fillOpacity: 1, weight: 4 }}>
+                  <Tooltip>{`Pair ${p.rank}: stand pipe at ${stand.chainageM} m (feed pipe above it, drive pipe below)`}</Tooltip>
+                </CircleMarker>
+              ) : null;
+            })()}
           </Fragment>
         );
       })}
