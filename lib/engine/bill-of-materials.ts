@@ -3,6 +3,7 @@ import { fmt } from './format';
 import { NOMINAL_SIZES, type NominalSize } from './materials';
 import type { DeliveryDesign, DriveDesign } from './pipe-design';
 import type { FeedDesign } from './ram-plan';
+import { ramParts } from './ram-parts';
 import type { BillOfMaterialsLine } from './screening-types';
 
 export interface BomInput {
@@ -20,6 +21,8 @@ export interface BomInput {
   reliefValve: boolean;
   /** A feed pipe to an open stand pipe at the head of the drive pipe. */
   feed?: FeedDesign | null;
+  /** One ram's delivery, L/min (sizes the air vessel). */
+  deliveryLpm: number;
 }
 
 export interface GravityBomInput {
@@ -79,6 +82,8 @@ export function billOfMaterials(b: BomInput): BillOfMaterialsLine[] {
       ? { item: 'Non-return valve and isolating valve on the delivery at each ram', size: b.delivery.size.label, quantity: n, unit: 'each', note: 'So one ram can be stopped while the others run' }
       : { item: 'Valve on the delivery pipe at the ram', size: b.delivery.size.label, quantity: 1, unit: 'each', note: 'For stopping the delivery while the ram is serviced; never shut while the ram runs without a relief valve' },
     { item: 'Pressure gauge on the ram', size: `0–${gaugeRangeBar(b.drive.blockedDeliveryHeadM)} bar`, quantity: n, unit: 'each', note: 'For setting up and commissioning; its range covers the blocked-delivery pressure with a margin' },
+    ...ramParts({ driveIn: b.ramDriveIn, driveBoreMm: b.drive.boreMm, deliveryBoreMm: b.delivery.boreMm, deliveryLpm: b.deliveryLpm, blockedDeliveryHeadM: b.drive.blockedDeliveryHeadM })
+      .map((part) => ({ item: part.item, size: part.size, quantity: n, unit: 'each', note: part.note })),
     ...commonLines(b.tankL, b.tankRuleLabel),
   ];
   if (b.reliefValve) {

@@ -204,7 +204,7 @@ export function screenSite(input: SiteReadingsInput): Screening {
     drive: option.drive, delivery: option.delivery, deliveryLengthM: r.deliveryPipe.lengthM, ramDriveIn: option.row.driveIn, ramCount: option.count,
     ramMinLpm: option.row.minLpm, ramMaxLpm: option.row.maxLpm, tankL: sv.ctx.tank.sizeL, tankRuleLabel: sv.ctx.tank.rule.label,
     standPipe: !feed && ((option.drive.lengthGiven && option.drive.lengthM > option.drive.bandMaxM) || option.drive.lengthConflict === 'fall-band-above-ld'),
-    reliefValve: relief, feed,
+    reliefValve: relief, feed, deliveryLpm: option.op.deliveryLpm,
   });
   const sourceIds: SourceId[] = [...Object.values(figures).map((f) => f.sourceId), ...sv.ctx.demandLines.map((l) => l.sourceId), ...SHARED_SOURCES];
   if (option) sourceIds.push('ogden-1911-least-fall', 'efficiency-spread', 'minor-loss-coefficients');

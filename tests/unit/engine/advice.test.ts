@@ -270,3 +270,27 @@ function facts(patch: Partial<RamVerdictFacts>): RamVerdictFacts {
     ...patch,
   };
 }
+
+describe('the ram\u2019s own parts on the bill', () => {
+  it('sizes the air vessel from the Clemson home-made sizes: 5.0 L for a 1¼″ ram, 11.1 L for a 3″, between them in line', async () => {
+    const { airVesselL } = await import('@/lib/engine/ram-parts');
+    expectWithin(airVesselL(1.25, 0.5), 5.0, 1e-9);
+    expectWithin(airVesselL(3, 0.5), 11.1, 1e-9);
+    expectWithin(airVesselL(2, 0.5), 5.0 + ((2 - 1.25) / 1.75) * 6.1, 1e-9);
+    // Never under 20 beats' delivery at 60 beats a minute: 60 L/min delivered → 20 L.
+    expectWithin(airVesselL(1.25, 60), 20, 1e-9);
+  });
+
+  it('states the anchoring force as ρ·g·H·A: 100 m of head on a 52.5 mm bore is 2.12 kN', async () => {
+    const { surgeThrustN } = await import('@/lib/engine/ram-parts');
+    expectWithin(surgeThrustN(100, 52.5), 1000 * G * 100 * Math.PI * 0.0525 ** 2 / 4, 1e-9);
+    expectRelative(surgeThrustN(100, 52.5), 2123, 0.001);
+  });
+
+  it('lists waste valve, delivery valve, air vessel, snifter, unions and base for every ram', () => {
+    const s = screenSite(site({ fallM: 3, liftM: 24, lowestLpm: 100 }));
+    const items = s.billOfMaterials.map((b) => b.item).join(' | ');
+    for (const part of ['Waste valve', 'Delivery (check) valve', 'Air vessel', 'Snifter', 'Unions', 'Concrete base']) expect(items).toContain(part);
+    expect(s.billOfMaterials.find((b) => b.item === 'Air vessel')?.quantity).toBe(value(s, 'ramCount'));
+  });
+});
