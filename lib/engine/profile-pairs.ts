@@ -228,9 +228,12 @@ export function verdictRank(verdict: string): number {
   return verdict === 'go' ? 2 : verdict === 'conditional' ? 1 : 0;
 }
 
-/** Orders best first: the better verdict, then higher probability, then more delivery, then less pipe. */
+/**
+ * Orders best first: the better verdict (a go needs the organisation's chance of meeting the demand), then
+ * the larger margin over demand (more delivery), then less pipe.
+ */
 export function compareKeys(a: RankKey, b: RankKey): number {
-  return b.verdictRank - a.verdictRank || b.probabilityMeetsDemand - a.probabilityMeetsDemand || b.deliveryLpd - a.deliveryLpd || a.totalPipeM - b.totalPipeM;
+  return b.verdictRank - a.verdictRank || b.deliveryLpd - a.deliveryLpd || a.totalPipeM - b.totalPipeM;
 }
 
 /**

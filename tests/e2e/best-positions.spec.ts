@@ -29,8 +29,10 @@ test('find the best positions offline, adopt the best pair, the server screening
   await page.getByRole('button', { name: 'Find the best positions' }).click();
   const best = page.getByTestId('pair-1');
   await expect(best).toBeVisible({ timeout: 30_000 });
-  // By construction of the demo reach: the whole slate step (100 → 130 m) is the most fall the rules allow.
-  await expect(best).toContainText('Intake at 100.000 m, ram at 130.000 m');
+  // By construction of the demo reach: the slate step (100 → 130 m) is the most fall a drive pipe from the intake
+  // may span; a feed pipe from the top of the reach to a stand pipe at 100 m adds the bed above it (6.6 m in all).
+  await expect(best).toContainText('Intake at 0.000 m, ram at 130.000 m');
+  await expect(page.getByTestId('pair-1-stand-pipe')).toContainText('stand pipe at 100.000 m');
   await expect(page.getByTestId('pair-line-1')).toBeVisible();
   await expect(page.getByTestId('pair-3')).toBeVisible();
   // The same three pairs on the map, numbered as on the chart: intake ring, ram square, the run along the bank.
@@ -57,9 +59,9 @@ test('find the best positions offline, adopt the best pair, the server screening
   expect(pump?.chainageM).toBe(130);
   await expect.poll(async () => {
     const [s] = await query<{ result: string }>('SELECT result FROM screenings WHERE visit_id = ? ORDER BY created_at DESC LIMIT 1', [visitId]);
-    const r = (typeof s?.result === 'string' ? JSON.parse(s.result) : s?.result) as { figures: { fallM: { value: number } } } | undefined;
-    return r?.figures.fallM.value;
-  }, { timeout: 15_000 }).toBeCloseTo(4.6, 3);
+    const r = (typeof s?.result === 'string' ? JSON.parse(s.result) : s?.result) as { figures: { fallM: { value: number }; feedPipeLengthM?: { value: number } } } | undefined;
+    return [r?.figures.fallM.value, r?.figures.feedPipeLengthM?.value];
+  }, { timeout: 15_000 }).toEqual([6.6, 100]);
 
   // A station booked now takes the phone's fix (and its accuracy) along; removed again after, to keep the demo reach.
   await page.goto(`/field/visit/positions?id=${visitId}`);
