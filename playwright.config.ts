@@ -24,7 +24,7 @@ export default defineConfig({
     { name: 'phone', use: { ...devices['Pixel 7'], browserName: 'chromium' } },
   ],
   webServer: {
-    command: `node node_modules/next/dist/bin/next start -H 127.0.0.1 -p ${port}`,
+    command: `node --import ./scripts/lib/refuse-trace.mjs node_modules/next/dist/bin/next start -H 127.0.0.1 -p ${port}`,
     url: `${baseURL}/api/health`,
     reuseExistingServer: false,
     // Server errors show in the test output, prefixed [WebServer].

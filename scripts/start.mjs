@@ -1,6 +1,8 @@
 // npm start – set up everything on a fresh machine and serve Fallbook on http://localhost:3000.
 import { spawn } from 'node:child_process';
-import { ensureEnvFile, loadEnv } from './lib/env.mjs';
+import path from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { ensureEnvFile, loadEnv, root } from './lib/env.mjs';
 import { log, ensureNodeModules } from './lib/proc.mjs';
 
 const started = Date.now();
@@ -21,7 +23,7 @@ ensureBuild();
 
 const port = process.env.PORT || '3000';
 const host = process.env.HOST || '127.0.0.1';
-const next = spawn(process.execPath, [nodeBin('next/dist/bin/next'), 'start', '-H', host, '-p', port], {
+const next = spawn(process.execPath, ['--import', pathToFileURL(path.join(root, 'scripts/lib/refuse-trace.mjs')).href, nodeBin('next/dist/bin/next'), 'start', '-H', host, '-p', port], {
   stdio: 'inherit',
   env: { ...process.env, NODE_ENV: 'production' },
 });

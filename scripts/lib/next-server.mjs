@@ -1,5 +1,8 @@
 // Starts `next start` for a built app folder and waits until it answers; returns a stopper.
 import { spawn } from 'node:child_process';
+import path from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { root } from './env.mjs';
 import { nodeBin } from './proc.mjs';
 
 async function waitFor(url, timeoutMs) {
@@ -18,7 +21,7 @@ async function waitFor(url, timeoutMs) {
 
 /** Serves the built app in `cwd` on 127.0.0.1:port; `probe` is a path that answers once it is up. */
 export async function startNext({ cwd, port, probe = '/', label = 'app' }) {
-  const child = spawn(process.execPath, [...(process.env.BENCH_CPU_PROF ? ['--cpu-prof', '--cpu-prof-dir=' + process.env.BENCH_CPU_PROF] : []), nodeBin('next/dist/bin/next'), 'start', '-H', '127.0.0.1', '-p', String(port)], {
+  const child = spawn(process.execPath, [...(process.env.BENCH_CPU_PROF ? ['--cpu-prof', '--cpu-prof-dir=' + process.env.BENCH_CPU_PROF] : []), '--import', pathToFileURL(path.join(root, 'scripts/lib/refuse-trace.mjs')).href, nodeBin('next/dist/bin/next'), 'start', '-H', '127.0.0.1', '-p', String(port)], {
     cwd, env: { ...process.env, NODE_ENV: 'production' }, stdio: ['ignore', 'pipe', 'pipe'],
   });
   // Server errors stay visible in the bench output.

@@ -17,3 +17,20 @@ test('well-formed addresses still reach the app (a signed-out API call is a 401,
   expect([302, 307]).toContain(office.status());
   expect(office.headers().location).toMatch(/\/login/);
 });
+
+test('TRACE and TRACK are a 405 naming the method, never a 500', async ({ baseURL }) => {
+  const http = await import('node:http');
+  for (const method of ['TRACE', 'TRACK']) {
+    const { status, body } = await new Promise<{ status: number; body: string }>((resolve, reject) => {
+      const req = http.request(new URL('/api/health', baseURL), { method }, (res) => {
+        let text = '';
+        res.on('data', (c) => { text += c; });
+        res.on('end', () => resolve({ status: res.statusCode ?? 0, body: text }));
+      });
+      req.on('error', reject);
+      req.end();
+    });
+    expect(status, method).toBe(405);
+    expect(JSON.parse(body).error.message).toBe(`${method} is not allowed here.`);
+  }
+});
