@@ -1,6 +1,7 @@
 import 'server-only';
 import type PDFDocument from 'pdfkit';
 import { VERDICT_COLOURS, type Verdict } from '@/lib/shared/domain';
+import { write } from './pdf-fonts';
 import { nodeLabelAt, profileLabelAt, type ProfileGeometry } from '@/lib/shared/sheet/profile';
 import type { SiteMapGeometry } from '@/lib/shared/sheet/site-map';
 
@@ -27,18 +28,18 @@ export function drawVerdictMark(doc: Doc, verdict: Verdict, x: number, y: number
 }
 
 /** The elevation profile, scaled from its geometry box to `width` points wide at (x, y). */
-export function drawProfile(doc: Doc, g: ProfileGeometry, x: number, y: number, width: number, font: { sans: string; bold: string }): number {
+export function drawProfile(doc: Doc, g: ProfileGeometry, x: number, y: number, width: number): number {
   const s = width / g.width;
   doc.save().translate(x, y).scale(s);
   const { plot } = g;
   doc.lineWidth(0.6).strokeColor(RULE);
   for (const line of g.yGrid) {
     doc.moveTo(plot.x, line.at).lineTo(plot.x + plot.w, line.at).stroke();
-    doc.font(font.sans).fontSize(10).fillColor(STONE).text(line.label, 0, line.at - 6, { width: plot.x - 6, align: 'right', lineBreak: false });
+    write(doc.fontSize(10).fillColor(STONE), 'sans', line.label, { x: 0, y: line.at - 6 }, { width: plot.x - 6, align: 'right', lineBreak: false });
   }
   for (const line of g.xGrid) {
     doc.moveTo(line.at, plot.y).lineTo(line.at, plot.y + plot.h).stroke(RULE);
-    doc.font(font.sans).fontSize(10).fillColor(STONE).text(line.label, line.at - 30, plot.y + plot.h + 6, { width: 60, align: 'center', lineBreak: false });
+    write(doc.fontSize(10).fillColor(STONE), 'sans', line.label, { x: line.at - 30, y: plot.y + plot.h + 6 }, { width: 60, align: 'center', lineBreak: false });
   }
   // Water path: drive pipe solid, delivery pipe dashed, so the two read apart in greyscale.
   for (const pipe of g.pipes) {
@@ -49,22 +50,22 @@ export function drawProfile(doc: Doc, g: ProfileGeometry, x: number, y: number, 
   }
   for (const pipe of g.pipes) {
     const label = profileLabelAt(g, pipe);
-    doc.font(font.bold).fontSize(11).fillColor(INK).text(pipe.label, label.x, label.y, { width: 160, align: label.align, lineBreak: false });
+    write(doc.fontSize(11).fillColor(INK), 'bold', pipe.label, { x: label.x, y: label.y }, { width: 160, align: label.align, lineBreak: false });
   }
   for (const node of g.nodes) {
     if (node.key === 'tank') doc.lineWidth(2).rect(node.x - 14, node.y - 20, 16, 20).fillAndStroke('#FFFFFF', INK);
     else if (node.key === 'pump') doc.lineWidth(2).rect(node.x - 7, node.y - 7, 14, 14).fillAndStroke(INK, INK);
     else doc.lineWidth(2).circle(node.x, node.y, 6).fillAndStroke('#FFFFFF', INK);
     const at = nodeLabelAt(g, node);
-    doc.font(font.bold).fontSize(11).fillColor(INK).text(node.label, at.x, at.y, { width: 180, align: at.align, lineBreak: false });
-    doc.font(font.sans).fontSize(10).fillColor(STONE).text(node.height, at.x, at.y + 13, { width: 180, align: at.align, lineBreak: false });
+    write(doc.fontSize(11).fillColor(INK), 'bold', node.label, { x: at.x, y: at.y }, { width: 180, align: at.align, lineBreak: false });
+    write(doc.fontSize(10).fillColor(STONE), 'sans', node.height, { x: at.x, y: at.y + 13 }, { width: 180, align: at.align, lineBreak: false });
   }
   doc.restore();
   return g.height * s;
 }
 
 /** The point map with a scale bar and north arrow, scaled to `width` points wide at (x, y). */
-export function drawSiteMap(doc: Doc, g: SiteMapGeometry, x: number, y: number, width: number, font: { sans: string; bold: string }): number {
+export function drawSiteMap(doc: Doc, g: SiteMapGeometry, x: number, y: number, width: number): number {
   const s = width / g.width;
   doc.save().translate(x, y).scale(s);
   doc.lineWidth(1).rect(0, 0, g.width, g.height).stroke(RULE);
@@ -75,14 +76,14 @@ export function drawSiteMap(doc: Doc, g: SiteMapGeometry, x: number, y: number, 
   }
   for (const p of g.points) {
     doc.lineWidth(1.5).circle(p.x, p.y, 5).fillAndStroke('#FFFFFF', INK);
-    doc.font(font.sans).fontSize(10).fillColor(INK).text(p.label, p.x + 8, p.y - 6, { width: 140, lineBreak: false });
+    write(doc.fontSize(10).fillColor(INK), 'sans', p.label, { x: p.x + 8, y: p.y - 6 }, { width: 140, lineBreak: false });
   }
   const bar = g.scaleBar;
   doc.lineWidth(2).moveTo(bar.x, bar.y).lineTo(bar.x + bar.length, bar.y).stroke(INK);
   doc.moveTo(bar.x, bar.y - 4).lineTo(bar.x, bar.y + 4).stroke().moveTo(bar.x + bar.length, bar.y - 4).lineTo(bar.x + bar.length, bar.y + 4).stroke();
-  doc.font(font.sans).fontSize(10).fillColor(INK).text(bar.label, bar.x + bar.length + 6, bar.y - 6, { lineBreak: false });
+  write(doc.fontSize(10).fillColor(INK), 'sans', bar.label, { x: bar.x + bar.length + 6, y: bar.y - 6 }, { lineBreak: false });
   doc.polygon([g.width - 20, 12], [g.width - 26, 28], [g.width - 14, 28]).fill(INK);
-  doc.font(font.bold).fontSize(10).text('N', g.width - 24, 30, { lineBreak: false });
+  write(doc.fontSize(10), 'bold', 'N', { x: g.width - 24, y: 30 }, { lineBreak: false });
   doc.restore();
   return g.height * s;
 }

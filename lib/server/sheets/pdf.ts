@@ -1,23 +1,11 @@
 import 'server-only';
-import path from 'node:path';
 import PDFDocument from 'pdfkit';
 import type { SheetView } from '@/lib/shared/sheet/view-model';
 import { INK, RULE, STONE, VERDICT_COLOURS, drawProfile, drawSiteMap, drawVerdictMark } from './pdf-drawings';
+import { heightOf, registerFonts, write, type Face } from './pdf-fonts';
 
 export type Paper = 'a4' | 'letter';
 type Doc = InstanceType<typeof PDFDocument>;
-
-const FONT_DIR = path.join(process.cwd(), 'fonts');
-const FONTS = { sans: 'sans', bold: 'sans-bold', mono: 'mono' };
-
-// The embedded fonts are Latin subsets: spell out the few symbols they lack.
-const SPELLED: Record<string, string> = { '≥': '>=', '≤': '<=', '≈': '~', '→': '->', 'Σ': 'sum of ', 'η': 'eta', 'σ': 'sigma', 'Δ': 'delta ', '√': 'sqrt', '₂': '2' };
-const IN_FONT = /[\u0000-\u024F\u2000-\u206F\u20AC\u2122\u2191\u2193\u2212\u2215]/;
-
-/** The text with every character the embedded fonts can draw. */
-export function pdfText(text: string): string {
-  return Array.from(text, (ch) => (IN_FONT.test(ch) ? ch : (SPELLED[ch] ?? '?'))).join('');
-}
 
 function ensureRoom(doc: Doc, height: number) {
   if (doc.y + height > doc.page.height - doc.page.margins.bottom) doc.addPage();
@@ -25,14 +13,14 @@ function ensureRoom(doc: Doc, height: number) {
 
 function heading(doc: Doc, text: string) {
   ensureRoom(doc, 60);
-  doc.moveDown(0.8).font(FONTS.bold).fontSize(14).fillColor('#1E3A4C').text(pdfText(text));
+  write(doc.moveDown(0.8).fontSize(14).fillColor('#1E3A4C'), 'bold', text);
   const y = doc.y + 2;
   doc.lineWidth(0.8).moveTo(doc.page.margins.left, y).lineTo(doc.page.width - doc.page.margins.right, y).stroke(RULE);
   doc.moveDown(0.4);
 }
 
-function body(doc: Doc, text: string, opts: { size?: number; colour?: string; font?: string } = {}) {
-  doc.font(opts.font ?? FONTS.sans).fontSize(opts.size ?? 11).fillColor(opts.colour ?? INK).text(pdfText(text), { lineGap: 2 });
+function body(doc: Doc, text: string, opts: { size?: number; colour?: string; face?: Face } = {}) {
+  write(doc.fontSize(opts.size ?? 11).fillColor(opts.colour ?? INK), opts.face ?? 'sans', text, null, { lineGap: 2 });
 }
 
 function twoColumns(doc: Doc, rows: { left: string; right: string; sub?: string }[], split = 0.5) {
@@ -41,15 +29,14 @@ function twoColumns(doc: Doc, rows: { left: string; right: string; sub?: string 
   const lw = w * split - 8;
   const rw = w * (1 - split);
   for (const row of rows) {
-    doc.font(FONTS.sans).fontSize(11);
-    const hl = doc.heightOfString(pdfText(row.left), { width: lw }) + (row.sub ? doc.fontSize(9).heightOfString(pdfText(row.sub), { width: lw }) : 0);
-    const hr = doc.font(FONTS.mono).fontSize(11).heightOfString(pdfText(row.right), { width: rw });
+    const hl = heightOf(doc.fontSize(11), 'sans', row.left, { width: lw }) + (row.sub ? heightOf(doc.fontSize(9), 'sans', row.sub, { width: lw }) : 0);
+    const hr = heightOf(doc.fontSize(11), 'mono', row.right, { width: rw });
     const h = Math.max(hl, hr) + 6;
     ensureRoom(doc, h);
     const y = doc.y;
-    doc.font(FONTS.sans).fontSize(11).fillColor(INK).text(pdfText(row.left), x, y, { width: lw });
-    if (row.sub) doc.fontSize(9).fillColor(STONE).text(pdfText(row.sub), x, doc.y, { width: lw });
-    doc.font(FONTS.mono).fontSize(11).fillColor(INK).text(pdfText(row.right), x + lw + 8, y, { width: rw });
+    write(doc.fontSize(11).fillColor(INK), 'sans', row.left, { x, y }, { width: lw });
+    if (row.sub) write(doc.fontSize(9).fillColor(STONE), 'sans', row.sub, { x, y: doc.y }, { width: lw });
+    write(doc.fontSize(11).fillColor(INK), 'mono', row.right, { x: x + lw + 8, y }, { width: rw });
     doc.lineWidth(0.5).moveTo(x, y + h - 3).lineTo(x + w, y + h - 3).stroke(RULE);
     doc.x = x;
     doc.y = y + h;
@@ -66,29 +53,27 @@ function list(doc: Doc, items: string[]) {
 
 function header(doc: Doc, v: SheetView) {
   const x = doc.page.margins.left;
-  doc.font(FONTS.sans).fontSize(9).fillColor(STONE).text(pdfText('Fallbook · site sheet for a hydraulic ram pump'));
-  doc.moveDown(0.3).font(FONTS.bold).fontSize(22).fillColor(INK).text(pdfText(v.farmName));
+  write(doc.fontSize(9).fillColor(STONE), 'sans', 'Fallbook · site sheet for a hydraulic ram pump');
+  write(doc.moveDown(0.3).fontSize(22).fillColor(INK), 'bold', v.farmName);
   body(doc, [v.area, v.ownerName ? `for ${v.ownerName}` : ''].filter(Boolean).join(' · '), { colour: STONE });
   doc.moveDown(0.6);
   const y = doc.y;
   drawVerdictMark(doc, v.verdict, x, y, 30);
-  doc.font(FONTS.bold).fontSize(20).fillColor(VERDICT_COLOURS[v.verdict]).text(pdfText(v.verdictWord), x + 62, y + 3);
+  write(doc.fontSize(20).fillColor(VERDICT_COLOURS[v.verdict]), 'bold', v.verdictWord, { x: x + 62, y: y + 3 });
   doc.x = x;
   doc.y = y + 40;
   body(doc, v.summary.join(' '), { size: 13 });
 }
 
-/** The sheet as a PDF (fonts embedded from fonts/, profile drawn as vector paths) on A4 or US Letter. */
+/** The sheet as a PDF (fonts embedded, see pdf-fonts.ts; drawings as vector paths) on A4 or US Letter. */
 export async function renderSheetPdf(v: SheetView, paper: Paper): Promise<Buffer> {
   const doc = new PDFDocument({
     size: paper === 'letter' ? 'LETTER' : 'A4',
     margins: { top: 48, bottom: 56, left: 52, right: 52 },
     bufferPages: true,
-    info: { Title: pdfText(`Site sheet: ${v.farmName}`), Author: 'Fallbook', Subject: pdfText(v.verdictWord) },
+    info: { Title: `Site sheet: ${v.farmName}`, Author: 'Fallbook', Subject: v.verdictWord },
   });
-  doc.registerFont(FONTS.sans, path.join(FONT_DIR, 'atkinson-hyperlegible-latin-400-normal.ttf'));
-  doc.registerFont(FONTS.bold, path.join(FONT_DIR, 'atkinson-hyperlegible-latin-700-normal.ttf'));
-  doc.registerFont(FONTS.mono, path.join(FONT_DIR, 'ibm-plex-mono-latin-400-normal.ttf'));
+  registerFonts(doc);
   const chunks: Buffer[] = [];
   doc.on('data', (c: Buffer) => chunks.push(c));
   const done = new Promise<Buffer>((resolve, reject) => {
@@ -97,7 +82,6 @@ export async function renderSheetPdf(v: SheetView, paper: Paper): Promise<Buffer
   });
   const left = doc.page.margins.left;
   const width = doc.page.width - left - doc.page.margins.right;
-  const fonts = { sans: FONTS.sans, bold: FONTS.bold };
 
   header(doc, v);
   heading(doc, 'Key figures');
@@ -108,7 +92,7 @@ export async function renderSheetPdf(v: SheetView, paper: Paper): Promise<Buffer
     ensureRoom(doc, h + 80);
     heading(doc, 'The water path, from intake to tank');
     const y = doc.y;
-    drawProfile(doc, v.profile, left, y, width, fonts);
+    drawProfile(doc, v.profile, left, y, width);
     doc.x = left;
     doc.y = y + h + 4;
     body(doc, [v.profile.exaggeration, 'Drive pipe solid, delivery pipe dashed.'].filter(Boolean).join('. '), { size: 9, colour: STONE });
@@ -119,7 +103,7 @@ export async function renderSheetPdf(v: SheetView, paper: Paper): Promise<Buffer
     ensureRoom(doc, h + 70);
     heading(doc, 'Where the points are');
     const y = doc.y;
-    drawSiteMap(doc, v.map, left, y, mw, fonts);
+    drawSiteMap(doc, v.map, left, y, mw);
     doc.x = left;
     doc.y = y + h + 6;
   }
@@ -134,11 +118,11 @@ export async function renderSheetPdf(v: SheetView, paper: Paper): Promise<Buffer
   heading(doc, 'Cautions');
   for (const c of v.cautions) {
     ensureRoom(doc, 50);
-    body(doc, c.title, { font: FONTS.bold });
+    body(doc, c.title, { face: 'bold' });
     body(doc, c.text);
     doc.moveDown(0.4);
   }
-  body(doc, 'Local codes and licensed practice come first: have a qualified person check the design before you buy or build.', { font: FONTS.bold });
+  body(doc, 'Local codes and licensed practice come first: have a qualified person check the design before you buy or build.', { face: 'bold' });
 
   heading(doc, 'How we worked this out');
   body(doc, v.surveyed);
@@ -154,8 +138,7 @@ export async function renderSheetPdf(v: SheetView, paper: Paper): Promise<Buffer
     // Writing below the bottom margin would start a new page: lift the margin for the footer.
     doc.page.margins.bottom = 0;
     const y = doc.page.height - 36;
-    doc.font(FONTS.sans).fontSize(8).fillColor(STONE)
-      .text(pdfText(`${v.farmName} · ${v.verdictWord} · a first check, not an engineering design · page ${i + 1} of ${pages.count}`), left, y, { width, align: 'center', lineBreak: false });
+    write(doc.fontSize(8).fillColor(STONE), 'sans', `${v.farmName} · ${v.verdictWord} · a first check, not an engineering design · page ${i + 1} of ${pages.count}`, { x: left, y }, { width, align: 'center', lineBreak: false });
   }
   doc.end();
   return done;

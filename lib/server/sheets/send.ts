@@ -8,6 +8,7 @@ import { loadSheet } from '../data/sheets';
 import { appEnv } from '../env';
 import { invalid } from '../errors';
 import { sendMail } from '../mail/transport';
+import { sheetFileName } from './file-name';
 import { renderSheetPdf } from './pdf';
 
 export interface SheetSendView {
@@ -55,7 +56,7 @@ export async function sendSheet(user: SessionUser, visitId: string, body: SendSh
         view.verdictWord, ...view.summary, '', `Read it, acknowledge it or ask a question here: ${link}`,
         'The sheet is also attached as a PDF to keep or print.', '',
         'This is a first check from field readings, not an engineering design.'].join('\n'),
-      attachments: [{ filename: `fallbook-sheet-${slug(view.farmName)}.pdf`, content: pdf, contentType: 'application/pdf' }],
+      attachments: [{ filename: sheetFileName(view.farmName), content: pdf, contentType: 'application/pdf' }],
     });
     await row.update({ status: 'sent', messageId });
   } catch (error) {
@@ -71,8 +72,4 @@ export async function sendSheet(user: SessionUser, visitId: string, body: SendSh
       action: row.status === 'sent' ? 'sheet_sent' : 'sheet_send_failed', changes: { to, paper, error: row.error } }, transaction);
   });
   return sendView(row);
-}
-
-function slug(name: string): string {
-  return name.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'site';
 }
