@@ -89,11 +89,25 @@ type TextOptions = PDFKit.Mixins.TextOptions;
 /** Writes the text in the face (switching font where a word needs another), at (x, y) when given. */
 export function write(doc: Doc, face: Face, text: string, at?: { x: number; y: number } | null, options: TextOptions = {}): Doc {
   const runs = fontRuns(text, face);
+  if (runs.length > 1 && at && options.lineBreak === false) return writeLine(doc, runs, at, options);
   runs.forEach((run, i) => {
     doc.font(run.font);
     const opts = { ...options, continued: i < runs.length - 1 ? true : (options.continued ?? false) };
     if (i === 0 && at) doc.text(run.text, at.x, at.y, opts);
     else doc.text(run.text, opts);
+  });
+  return doc;
+}
+
+// One line of mixed fonts, placed run by run: pdfkit aligns each continued run on its own.
+function writeLine(doc: Doc, runs: Run[], at: { x: number; y: number }, options: TextOptions): Doc {
+  const widths = runs.map((run) => doc.font(run.font).widthOfString(run.text));
+  const total = widths.reduce((a, b) => a + b, 0);
+  const box = options.width ?? total;
+  let x = at.x + (options.align === 'center' ? (box - total) / 2 : options.align === 'right' ? box - total : 0);
+  runs.forEach((run, i) => {
+    doc.font(run.font).text(run.text, x, at.y, { lineBreak: false });
+    x += widths[i] ?? 0;
   });
   return doc;
 }
