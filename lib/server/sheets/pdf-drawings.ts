@@ -2,8 +2,8 @@ import 'server-only';
 import type PDFDocument from 'pdfkit';
 import { VERDICT_COLOURS, type Verdict } from '@/lib/shared/domain';
 import { write } from './pdf-fonts';
-import { nodeLabelAt, profileLabelAt, type ProfileGeometry } from '@/lib/shared/sheet/profile';
-import type { SiteMapGeometry } from '@/lib/shared/sheet/site-map';
+import { LABEL_SIZE, NOTE_SIZE, nodeLabelAt, profileLabelAt, type ProfileGeometry } from '@/lib/shared/sheet/profile';
+import { MAP_LABEL_SIZE, type SiteMapGeometry } from '@/lib/shared/sheet/site-map';
 
 type Doc = InstanceType<typeof PDFDocument>;
 
@@ -50,15 +50,15 @@ export function drawProfile(doc: Doc, g: ProfileGeometry, x: number, y: number, 
   }
   for (const pipe of g.pipes) {
     const label = profileLabelAt(g, pipe);
-    write(doc.fontSize(11).fillColor(INK), 'bold', pipe.label, { x: label.x, y: label.y }, { width: 160, align: label.align, lineBreak: false });
+    write(doc.fontSize(LABEL_SIZE).fillColor(INK), 'bold', pipe.label, { x: label.x, y: label.y }, { width: label.width, align: label.align, lineBreak: false });
   }
   for (const node of g.nodes) {
     if (node.key === 'tank') doc.lineWidth(2).rect(node.x - 14, node.y - 20, 16, 20).fillAndStroke('#FFFFFF', INK);
     else if (node.key === 'pump') doc.lineWidth(2).rect(node.x - 7, node.y - 7, 14, 14).fillAndStroke(INK, INK);
     else doc.lineWidth(2).circle(node.x, node.y, 6).fillAndStroke('#FFFFFF', INK);
     const at = nodeLabelAt(g, node);
-    write(doc.fontSize(11).fillColor(INK), 'bold', node.label, { x: at.x, y: at.y }, { width: 180, align: at.align, lineBreak: false });
-    write(doc.fontSize(10).fillColor(STONE), 'sans', node.height, { x: at.x, y: at.y + 13 }, { width: 180, align: at.align, lineBreak: false });
+    write(doc.fontSize(LABEL_SIZE).fillColor(INK), 'bold', node.label, { x: at.x, y: at.y }, { width: at.width, align: at.align, lineBreak: false });
+    write(doc.fontSize(NOTE_SIZE).fillColor(STONE), 'sans', node.height, { x: at.x, y: at.y + 15 }, { width: at.width, align: at.align, lineBreak: false });
   }
   doc.restore();
   return g.height * s;
@@ -76,7 +76,8 @@ export function drawSiteMap(doc: Doc, g: SiteMapGeometry, x: number, y: number, 
   }
   for (const p of g.points) {
     doc.lineWidth(1.5).circle(p.x, p.y, 5).fillAndStroke('#FFFFFF', INK);
-    write(doc.fontSize(10).fillColor(INK), 'sans', p.label, { x: p.x + 8, y: p.y - 6 }, { width: 140, lineBreak: false });
+    const w = doc.fontSize(MAP_LABEL_SIZE).widthOfString(p.label);
+    write(doc.fillColor(INK), 'sans', p.label, { x: p.anchor === 'start' ? p.labelX : p.labelX - w, y: p.labelY - 10 }, { lineBreak: false });
   }
   const bar = g.scaleBar;
   doc.lineWidth(2).moveTo(bar.x, bar.y).lineTo(bar.x + bar.length, bar.y).stroke(INK);

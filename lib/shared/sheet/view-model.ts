@@ -44,6 +44,8 @@ export interface SheetView {
   method: string[];
   sources: { id: string; citation: string }[];
   profile: ProfileGeometry | null;
+  /** The same profile laid out for a phone's width (under 640 px). */
+  profileNarrow: ProfileGeometry | null;
   map: SiteMapGeometry | null;
 }
 
@@ -161,9 +163,11 @@ export function buildSheetView(s: SheetSource, units: UnitSystem): SheetView {
   const lift = fig('staticLiftM');
   const driveM = s.pipeLengthsM.drive ?? fig('driveLengthM');
   const deliveryM = s.pipeLengthsM.delivery;
-  const profile = fall !== null && lift !== null && driveM && deliveryM
-    ? profileGeometry({ fallM: fall, staticLiftM: lift, driveLengthM: driveM, deliveryLengthM: deliveryM }, units)
+  const profileInput = fall !== null && lift !== null && driveM && deliveryM
+    ? { fallM: fall, staticLiftM: lift, driveLengthM: driveM, deliveryLengthM: deliveryM }
     : null;
+  const profile = profileInput && profileGeometry(profileInput, units);
+  const profileNarrow = profileInput && profileGeometry(profileInput, units, 360, 300);
   const located = s.points.filter((p): p is typeof p & { lat: number; lon: number } => p.lat !== null && p.lon !== null);
   const visited = s.visitedAt ? formatDay(s.visitedAt) : 'a date not recorded';
   // The engine's sentences are metric; a US reader gets them in US customary units.
@@ -187,6 +191,7 @@ export function buildSheetView(s: SheetSource, units: UnitSystem): SheetView {
     method: methodNotes(s),
     sources: sc.sources.map((src) => ({ id: src.id, citation: src.citation })),
     profile,
+    profileNarrow,
     map: siteMapGeometry(located.map((p) => ({ role: p.role, label: p.label, lat: p.lat, lon: p.lon })), units),
   };
 }

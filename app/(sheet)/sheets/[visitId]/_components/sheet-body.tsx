@@ -36,7 +36,7 @@ export function SheetBody({ v }: { v: SheetView }) {
           ))}
         </dl>
       </Section>
-      {v.profile && <Section title="The water path, from intake to tank"><ProfileDrawing g={v.profile} /></Section>}
+      {v.profile && <Section title="The water path, from intake to tank"><ProfileDrawing g={v.profile} narrow={v.profileNarrow} /></Section>}
       {v.map && <Section title="Where the points are"><SiteMapDrawing g={v.map} /></Section>}
       <Section title={v.verdict === 'no-go' ? 'Why not' : v.verdict === 'gravity' ? 'What to check' : 'Conditions for a go'}>
         {v.conditions.length === 0 && v.verdict !== 'no-go' && <p>No extra conditions: follow the cautions below.</p>}
