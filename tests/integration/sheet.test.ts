@@ -28,7 +28,7 @@ describe('GET /api/visits/:id/sheet as each role', () => {
     expect(res.status).toBe(200);
     const { sheet } = await res.json();
     expect(sheet.verdict).toBe(stored.verdict);
-    expect(sheet.summary[0]).toMatch(/^This site can deliver about [\d,]+ litres a day/);
+    expect(sheet.summary[0]).toMatch(/^This site can deliver [\d,]+ litres a day/);
     expect(sheet.figures.find((f: { key: string }) => f.key === 'deliveryLpd').value).toBe(`${Math.round(stored.deliveryLpd).toLocaleString('en-US')} L/day`);
   });
 

@@ -2,7 +2,7 @@ import 'server-only';
 import type PDFDocument from 'pdfkit';
 import { VERDICT_COLOURS, type Verdict } from '@/lib/shared/domain';
 import { write } from './pdf-fonts';
-import { LABEL_SIZE, NOTE_SIZE, nodeLabelAt, profileLabelAt, type ProfileGeometry } from '@/lib/shared/sheet/profile';
+import { LABEL_SIZE, NOTE_SIZE, nodeLabelAt, profileLabelAt, type LabelAnchor, type ProfileGeometry } from '@/lib/shared/sheet/profile';
 import { MAP_LABEL_SIZE, type SiteMapGeometry } from '@/lib/shared/sheet/site-map';
 
 type Doc = InstanceType<typeof PDFDocument>;
@@ -25,6 +25,12 @@ export function drawVerdictMark(doc: Doc, verdict: Verdict, x: number, y: number
   else if (verdict === 'gravity') doc.lineWidth(3).lineCap('round').lineJoin('round').moveTo(19, 10).lineTo(24, 17).lineTo(29, 10).stroke(c);
   else doc.ellipse(verdict === 'go' ? 24 : 36, 14, 5, 4).fill(c);
   doc.restore();
+}
+
+// pdfkit wraps a line that overruns its box: give each label a little slack on its open side.
+const SLACK = 24;
+function room(at: LabelAnchor, dy = 0): [{ x: number; y: number }, { width: number; align: 'left' | 'right'; lineBreak: false }] {
+  return [{ x: at.align === 'right' ? at.x - SLACK : at.x, y: at.y + dy }, { width: at.width + SLACK, align: at.align, lineBreak: false }];
 }
 
 /** The elevation profile, scaled from its geometry box to `width` points wide at (x, y). */
@@ -50,15 +56,15 @@ export function drawProfile(doc: Doc, g: ProfileGeometry, x: number, y: number, 
   }
   for (const pipe of g.pipes) {
     const label = profileLabelAt(g, pipe);
-    write(doc.fontSize(LABEL_SIZE).fillColor(INK), 'bold', pipe.label, { x: label.x, y: label.y }, { width: label.width, align: label.align, lineBreak: false });
+    write(doc.fontSize(LABEL_SIZE).fillColor(INK), 'bold', pipe.label, ...room(label));
   }
   for (const node of g.nodes) {
     if (node.key === 'tank') doc.lineWidth(2).rect(node.x - 14, node.y - 20, 16, 20).fillAndStroke('#FFFFFF', INK);
     else if (node.key === 'pump') doc.lineWidth(2).rect(node.x - 7, node.y - 7, 14, 14).fillAndStroke(INK, INK);
     else doc.lineWidth(2).circle(node.x, node.y, 6).fillAndStroke('#FFFFFF', INK);
     const at = nodeLabelAt(g, node);
-    write(doc.fontSize(LABEL_SIZE).fillColor(INK), 'bold', node.label, { x: at.x, y: at.y }, { width: at.width, align: at.align, lineBreak: false });
-    write(doc.fontSize(NOTE_SIZE).fillColor(STONE), 'sans', node.height, { x: at.x, y: at.y + 15 }, { width: at.width, align: at.align, lineBreak: false });
+    write(doc.fontSize(LABEL_SIZE).fillColor(INK), 'bold', node.label, ...room(at));
+    write(doc.fontSize(NOTE_SIZE).fillColor(STONE), 'sans', node.height, ...room(at, 15));
   }
   doc.restore();
   return g.height * s;

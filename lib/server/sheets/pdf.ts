@@ -219,8 +219,9 @@ export async function renderSheetPdf(v: SheetView, paper: Paper): Promise<Buffer
   }
   doc.moveDown(0.3);
   ensureRoom(doc, 40);
-  body(doc, `Screening engine version ${v.engineVersion}. Sources behind the rules:`, { size: 10 });
-  for (const s of v.sources) body(doc, `${s.id}: ${s.citation}`, { size: 8, colour: STONE });
+  body(doc, 'Where the numbers come from', { size: 10, face: 'bold' });
+  for (const s of v.sources) body(doc, `• ${s.citation}`, { size: 8.5, colour: STONE });
+  body(doc, `Screening engine version ${v.engineVersion}.`, { size: 8.5, colour: STONE });
 
   const pages = doc.bufferedPageRange();
   for (let i = 0; i < pages.count; i++) {

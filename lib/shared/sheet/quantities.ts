@@ -67,13 +67,12 @@ export function pressureHead(m: number, units: UnitSystem): string {
   return `${figureNumber(m)} m of head (${group(m * 9.80665)} kPa)`;
 }
 
-/** "about 2,300 litres" / "about 600 gallons" for the summary sentences. */
-export function aboutDaily(litres: number, units: UnitSystem): string {
-  if (units === 'us') return `about ${group(roughly(lToUsGal(litres)))} gallons`;
-  return `about ${group(roughly(litres))} litres`;
+/** A daily volume in words for the summary, with the same number as the key figure: "2,524 litres". */
+export function dailyInWords(litres: number, units: UnitSystem): string {
+  return `${perDay(litres, units).number} ${units === 'us' ? 'gallons' : 'litres'}`;
 }
 
-/** The short number alone, rounded like aboutDaily ("1,900"). */
-export function aboutNumber(litres: number, units: UnitSystem): string {
-  return group(roughly(units === 'us' ? lToUsGal(litres) : litres));
+/** A pressure as a metric reader reads a pipe rating: "300 psi" → "2,070 kPa (300 psi)". */
+export function psiAsKPa(psi: number): string {
+  return `${group(Math.round((psi * 6.894757) / 10) * 10)} kPa (${group(psi)} psi)`;
 }

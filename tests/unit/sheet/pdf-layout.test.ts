@@ -47,6 +47,15 @@ describe('PDF layout on A4 and US Letter', () => {
       });
     }
 
+    it(`${paper}: says each figure plainly: sources in words, chance as a likelihood, no raw source ids`, async () => {
+      const view = buildSheetView(brandtLikeSource(), 'metric');
+      const text = (await pagesOf(view, paper)).join('\n').replace(/\s+/g, ' ');
+      expect(text).toContain('Where the numbers come from');
+      for (const s of view.sources) expect(text).not.toContain(s.id);
+      expect(text).not.toMatch(/over 99 %/);
+      expect(text).toMatch(/likely: met in about \d+ of 100/i);
+    });
+
     it(`${paper}: a bill running onto a new page repeats its column headings there`, async () => {
       const view = buildSheetView(brandtLikeSource(), 'metric');
       const line = view.billOfMaterials[0];
