@@ -1,7 +1,8 @@
 import 'server-only';
 import { SheetSend, Visit, getSequelize } from '@/lib/server/db';
 import type { PaperSize, SendSheetBody } from '@/lib/shared/schemas/sheet';
-import { buildSheetView } from '@/lib/shared/sheet/view-model';
+import { sheetEmail } from '@/lib/shared/sheet/email';
+import { buildSheetView, type SheetView } from '@/lib/shared/sheet/view-model';
 import type { SessionUser } from '../auth/permissions';
 import { recordAudit } from '../audit';
 import { loadSheet } from '../data/sheets';
@@ -31,14 +32,35 @@ export function sheetLink(visitId: string): string {
   return `${appEnv().NEXTAUTH_URL.replace(/\/$/, '')}/sheets/${visitId}`;
 }
 
+type SheetContext = Awaited<ReturnType<typeof loadSheet>>;
+
+function recipient(ctx: SheetContext, body: SendSheetBody): string {
+  const to = body.to ?? ctx.farmer?.email;
+  if (!to) throw invalid('This farm has no farmer with an e-mail address: enter one.', { to: ['Enter an e-mail address.'] });
+  return to;
+}
+
+function message(user: SessionUser, ctx: SheetContext, view: SheetView, visitId: string, note: string | undefined) {
+  return sheetEmail({ farmerName: ctx.farmer?.name ?? null, senderName: user.name, farmName: view.farmName, verdictWord: view.verdictWord,
+    summary: view.summary, link: sheetLink(visitId), note });
+}
+
+/** The e-mail as it would go out (to, subject, text), in the farmer's units, without sending it. */
+export async function previewSheetSend(user: SessionUser, visitId: string, body: SendSheetBody): Promise<{ to: string; subject: string; text: string }> {
+  const ctx = await loadSheet(user, visitId, 'sheet:send');
+  const to = recipient(ctx, body);
+  const view = buildSheetView(ctx.source, ctx.farmer?.units ?? 'metric');
+  return { to, ...message(user, ctx, view, visitId, body.note) };
+}
+
 /**
- * E-mails the visit's sheet (link + PDF in the farmer's units) to the farmer, or to `to`. Every
- * attempt is recorded; a refused message is kept as `failed` with the reason, so it can be retried.
+ * E-mails the visit's sheet (link + PDF in the farmer's units) to the farmer, or to `to`, with the
+ * sender's note if any. Every attempt is recorded; a refused message is kept as `failed` with the
+ * reason, so it can be retried.
  */
 export async function sendSheet(user: SessionUser, visitId: string, body: SendSheetBody): Promise<SheetSendView> {
   const ctx = await loadSheet(user, visitId, 'sheet:send');
-  const to = body.to ?? ctx.farmer?.email;
-  if (!to) throw invalid('This farm has no farmer with an e-mail address: enter one.', { to: ['Enter an e-mail address.'] });
+  const to = recipient(ctx, body);
   const units = ctx.farmer?.units ?? 'metric';
   const paper: PaperSize = body.paper ?? (units === 'us' ? 'letter' : 'a4');
   const view = buildSheetView(ctx.source, units);
@@ -47,15 +69,12 @@ export async function sendSheet(user: SessionUser, visitId: string, body: SendSh
     id: crypto.randomUUID(), visitId, screeningId: ctx.screeningId, sentById: user.id, toAddress: to, paper,
     status: 'sending', error: null, messageId: null,
   });
-  const link = sheetLink(visitId);
+  const mail = message(user, ctx, view, visitId, body.note);
   try {
     const { messageId } = await sendMail({
       to,
-      subject: `Your water sheet: ${view.farmName} – ${view.verdictWord}`,
-      text: [`Hello${ctx.farmer ? ` ${ctx.farmer.name}` : ''},`, '', `${user.name} sends you the sheet for ${view.farmName}.`, '',
-        view.verdictWord, ...view.summary, '', `Read it, acknowledge it or ask a question here: ${link}`,
-        'The sheet is also attached as a PDF to keep or print.', '',
-        'This is a first check from field readings, not an engineering design.'].join('\n'),
+      subject: mail.subject,
+      text: mail.text,
       attachments: [{ filename: sheetFileName(view.farmName), content: pdf, contentType: 'application/pdf' }],
     });
     await row.update({ status: 'sent', messageId });
