@@ -101,12 +101,12 @@ export function summarySentences(s: SheetSource, units: UnitSystem): [string, st
 
 /**
  * A probability as a likelihood, never a promise: a word, then how often it held in the simulated
- * runs ("Very likely: met in about 99 of 100 simulated runs"); never "100 of 100" or "0 of 100".
+ * runs ("Very likely (about 99 in 100)"); never "100 in 100" or "0 in 100".
  */
 export function chance(p: number): string {
   const inHundred = Math.min(Math.max(Math.round(p * 100), 1), 99);
   const word = p >= 0.95 ? 'Very likely' : p >= 0.75 ? 'Likely' : p >= 0.5 ? 'Uncertain' : p >= 0.2 ? 'Unlikely' : 'Very unlikely';
-  return `${word}: met in about ${inHundred} of 100 simulated runs`;
+  return `${word} (about ${inHundred} in 100)`;
 }
 
 function keyFigures(s: SheetSource, units: UnitSystem): SheetFigure[] {
@@ -124,7 +124,7 @@ function keyFigures(s: SheetSource, units: UnitSystem): SheetFigure[] {
   add('deliveryLpd', 'Delivery per day', (v) => perDay(v, units).text, 'Ram running day and night');
   add('demandLpd', 'Demand per day', (v) => perDay(v, units).text, 'What you told us you need');
   add('demandMarginLpd', 'Margin', (v) => (v >= 0 ? `${perDay(v, units).text} to spare` : `${perDay(-v, units).text} short`), 'Delivery minus demand');
-  add('probabilityMeetsDemand', 'Chance of meeting demand', chance, 'Readings varied within their measuring error; a dry season drier than the one measured is not covered');
+  add('probabilityMeetsDemand', 'Chance of meeting demand', chance, 'Share of simulated runs that met demand, with the readings varied within their measuring error; a season drier than the one measured is not covered');
   add('tankL', 'Tank', (v) => volume(v, units).text, 'Storage to size for');
   add('ramCount', 'Rams', (v) => `${v} side by side`, 'Each on its own drive pipe');
   add('gravityHeadM', 'Intake above the tank', (v) => length(v, units).text, 'The water runs down by itself');

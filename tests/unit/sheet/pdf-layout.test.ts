@@ -53,7 +53,8 @@ describe('PDF layout on A4 and US Letter', () => {
       expect(text).toContain('Where the numbers come from');
       for (const s of view.sources) expect(text).not.toContain(s.id);
       expect(text).not.toMatch(/over 99 %/);
-      expect(text).toMatch(/likely: met in about \d+ of 100/i);
+      expect(text).toMatch(/likely \(about \d+ in 100\)/i);
+      expect(text).toContain('a season drier than the one measured is not covered');
     });
 
     it(`${paper}: a bill running onto a new page repeats its column headings there`, async () => {

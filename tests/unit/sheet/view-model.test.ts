@@ -25,9 +25,9 @@ describe('rounding for the summary', () => {
   });
 
   it('words a chance as a likelihood with how often it held, never a promise', () => {
-    expect(chance(1)).toBe('Very likely: met in about 99 of 100 simulated runs');
-    expect(chance(0)).toBe('Very unlikely: met in about 1 of 100 simulated runs');
-    expect(chance(0.874)).toBe('Likely: met in about 87 of 100 simulated runs');
+    expect(chance(1)).toBe('Very likely (about 99 in 100)');
+    expect(chance(0)).toBe('Very unlikely (about 1 in 100)');
+    expect(chance(0.874)).toBe('Likely (about 87 in 100)');
     expect(chance(0.6)).toMatch(/^Uncertain/);
     expect(chance(0.999)).not.toMatch(/%|over|certain(?!ty)/i);
   });
