@@ -20,7 +20,7 @@ describe('rounding for the summary', () => {
 
   it('says the daily figures in words with the key figure\'s own number, gallons for US readers', () => {
     expect(dailyInWords(2284.4, 'metric')).toBe(`${perDay(2284.4, 'metric').number} litres`);
-    expect(dailyInWords(2284.4, 'metric')).toBe('2,284 litres');
+    expect(dailyInWords(2284.4, 'metric')).toBe('2,280 litres');
     expect(dailyInWords(3.785411784 * 612, 'us')).toBe('612 gallons');
   });
 
@@ -133,11 +133,20 @@ describe('figures said plainly', () => {
   it('a metric sheet leads with DN and kPa, explains Schedule 40, and shows no bare psi or inch size', () => {
     expect(plainTrade('Galvanized steel, Schedule 40, class 150 fittings (300 psi)', 'metric')).toBe('Galvanized steel, Schedule 40 (standard-wall steel), class 150 fittings (2,070 kPa, 300 psi)');
     expect(plainTrade('for 1¼″ (32 mm) drive pipe', 'metric')).toBe('for DN 32 (1¼″) drive pipe');
-    expect(plainTrade('PE SDR 17 (125 psi)', 'metric')).toBe('PE SDR 17 (860 kPa, 125 psi)');
+    expect(plainTrade('PE SDR 17 (125 psi)', 'metric')).toBe('PE SDR 17 (862 kPa, 125 psi)');
     const view = buildSheetView(source, 'metric');
     const bill = view.billOfMaterials.map((b) => `${b.item} ${b.size} ${b.note}`).join('\n');
     expect(bill).not.toMatch(/″ \(\d+ mm\)/);
     for (const line of bill.split('\n').filter((l) => l.includes('psi'))) expect(line).toMatch(/kPa, \d+ psi/);
+  });
+
+  it('one rounding per figure: the pressures read the same in the key figures and in the cautions', () => {
+    const view = buildSheetView(source, 'metric');
+    const surge = view.cautions.find((c) => c.code === 'SURGE_PRESSURE')?.text ?? '';
+    for (const key of ['workingPeakHeadM', 'blockedDeliveryHeadM']) {
+      const shown = view.figures.find((f) => f.key === key)?.value ?? '?';
+      expect(surge, key).toContain(shown);
+    }
   });
 
   it('a US sheet gives inch sizes as sold, without decimal inches', () => {
