@@ -118,3 +118,4 @@ export function heightOf(doc: Doc, face: Face, text: string, options: TextOption
   doc.font(runs.length === 1 ? (runs[0]?.font ?? CHAINS[face][0] ?? '') : CHAINS[face][1] ?? '');
   return doc.heightOfString(text, options);
 }
+

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { NOTE_SIZE, niceStep, nodeLabelAt, profileGeometry, profileLabelAt, textWidth } from '@/lib/shared/sheet/profile';
+import { profileSvg, siteMapSvg } from '@/lib/shared/sheet/drawing-svg';
 import { MAP_LABEL_SIZE, siteMapGeometry } from '@/lib/shared/sheet/site-map';
 
 describe('elevation profile geometry', () => {
@@ -112,5 +113,28 @@ describe('labels stay inside the frame', () => {
       expect(left + w).toBeLessThanOrEqual(g.width);
     }
     expect(g.points.find((p) => p.role === 'tank')?.anchor).toBe('end');
+  });
+});
+
+describe('the drawings as SVG markup (the page and the PDF draw the same)', () => {
+  it('escapes every label: hostile text stays text', () => {
+    const g = siteMapGeometry([
+      { role: 'intake', label: '<script>alert("x")</script>', lat: 52.4193, lon: -3.617 },
+      { role: 'tank', label: 'Tom & Jo\'s "tank"', lat: 52.4183, lon: -3.614 },
+    ], 'metric');
+    if (!g) throw new Error('two points make a map');
+    const svg = siteMapSvg(g);
+    expect(svg).not.toContain('<script>');
+    expect(svg).toContain('&lt;script&gt;alert(&quot;x&quot;)&lt;/script&gt;');
+    expect(svg).toContain('Tom &amp; Jo&#39;s &quot;tank&quot;');
+  });
+
+  it('draws the tank and every label of the profile, with the PDF\'s fonts per run when asked', () => {
+    const g = profileGeometry({ fallM: 4, staticLiftM: 30, driveLengthM: 24, deliveryLengthM: 420 }, 'metric', 360, 300);
+    const svg = profileSvg(g, { runsFor: (text) => (text === 'Tank' ? [{ font: 'a', text: 'Ta' }, { font: 'b', text: 'nk' }] : [{ font: 'a', text }]) });
+    expect(svg).toContain('data-node="tank"');
+    for (const node of g.nodes) expect(svg).toContain(node.height);
+    expect(svg).toContain('<tspan font-family="a">Ta</tspan><tspan font-family="b">nk</tspan>');
+    expect(svg).toMatch(/^<svg [^>]*viewBox="0 0 360 300"/);
   });
 });

@@ -29,9 +29,11 @@ describe('the PDF prints every name', () => {
   it('draws each hard name with real glyphs (a missing glyph reads back as U+0000 or "?")', async () => {
     const source = brandtLikeSource();
     source.farm = { name: HARD_NAMES[0] ?? '', area: HARD_NAMES.slice(1, 5).join(' · '), ownerName: HARD_NAMES.slice(5).join(' / ') };
+    // The map's labels go through the drawing's SVG: a mixed-script label there too.
+    source.points = source.points.map((p) => (p.role === 'tank' ? { ...p, label: 'Ŵyn 王家' } : p));
     const view = buildSheetView(source, 'metric');
     const text = (await textOf(await renderSheetPdf(view, 'a4'))).replace(/\s+/g, ' ');
-    for (const name of HARD_NAMES) expect(text).toContain(name);
+    for (const name of [...HARD_NAMES, 'Ŵyn 王家']) expect(text).toContain(name);
     expect(text).not.toContain('\u0000');
     expect(text).not.toMatch(/\?/);
   });
