@@ -1,6 +1,6 @@
 // The elevation profile as geometry: intake → drive pipe → ram → delivery pipe → tank, heights and
 // lengths to scale (each axis its own scale, the vertical exaggeration stated). Drawn by the page
-// (SVG) and by the PDF (pdfkit paths) from the same numbers.
+// and the PDF alike as the same SVG markup (drawing-svg.ts).
 import type { UnitSystem } from '../domain';
 import { mToFt } from '../units';
 import { length as lengthQ, pipeLength } from './quantities';
