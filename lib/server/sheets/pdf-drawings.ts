@@ -5,7 +5,7 @@ import SVGtoPDF from 'svg-to-pdfkit';
 import { DRAWING_COLOURS, profileSvg, siteMapSvg } from '@/lib/shared/sheet/drawing-svg';
 import type { ProfileGeometry } from '@/lib/shared/sheet/profile';
 import type { SiteMapGeometry } from '@/lib/shared/sheet/site-map';
-import { fontRuns } from './pdf-fonts';
+import { fontRuns, isRegisteredFont } from './pdf-fonts';
 
 type Doc = InstanceType<typeof PDFDocument>;
 
@@ -28,12 +28,13 @@ export function drawVerdictMark(doc: Doc, verdict: Verdict, x: number, y: number
 }
 
 // svg-to-pdfkit asks for a font by the family the markup names (fontRuns picked, for each run of a
-// label, a font that has its letters); a text with no family gets the sheet's own face.
+// label, a font that has its letters); any other family (svg-to-pdfkit's default is sans-serif)
+// gets the sheet's own face.
 const runsFor = (text: string, bold: boolean) => fontRuns(text, bold ? 'bold' : 'sans');
 function draw(doc: Doc, svg: string, x: number, y: number, width: number, height: number) {
   SVGtoPDF(doc as unknown as Parameters<typeof SVGtoPDF>[0], svg, x, y, {
     width, height, assumePt: true, preserveAspectRatio: 'xMinYMin meet',
-    fontCallback: (family, bold) => family || (bold ? 'atkinson-700' : 'atkinson-400'),
+    fontCallback: (family, bold) => (isRegisteredFont(family) ? family : bold ? 'atkinson-700' : 'atkinson-400'),
   });
 }
 

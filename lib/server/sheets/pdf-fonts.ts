@@ -48,6 +48,9 @@ function coverage(name: string): Coverage {
 
 const covers = (name: string, text: string) => Array.from(text).every((ch) => /\s/.test(ch) || coverage(name).hasGlyphForCodePoint(ch.codePointAt(0) ?? 0));
 
+/** Whether a name is one of the fonts registered with every document. */
+export const isRegisteredFont = (name: string): boolean => name in FILES;
+
 /** Registers every font of every chain with the document under its own name. */
 export function registerFonts(doc: Doc): void {
   for (const [name, file] of Object.entries(FILES)) doc.registerFont(name, file);
