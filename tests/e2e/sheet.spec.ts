@@ -47,7 +47,7 @@ test('a farmer opens their sheet, downloads the PDF and acknowledges it', async 
   await page.getByRole('link', { name: 'Read the sheet for Brandt Hollow' }).click();
   await expect(page.getByRole('heading', { level: 1, name: 'Brandt Hollow' })).toBeVisible();
   await expect(page.getByTestId('verdict')).toHaveText(/Go/);
-  await expect(page.getByText(/This site can deliver about [\d,]+ litres a day/)).toBeVisible();
+  await expect(page.getByText(/This site can deliver [\d,]+ litres a day/)).toBeVisible();
   await expect(page.getByRole('img', { name: /Elevation profile/ })).toBeVisible();
   await expect(page.getByRole('heading', { name: 'Cautions' })).toBeVisible();
   if (shots) {
@@ -90,4 +90,50 @@ test('the coordinator sends a demo sheet to the farmer and sees it recorded', as
   await expect(page.getByRole('heading', { level: 1, name: "Pryce's Upper Field" })).toBeVisible();
   await page.getByRole('button', { name: /Send to Gwen Pryce/ }).click();
   await expect(page.getByRole('list', { name: 'Sends of this sheet' })).toContainText('Sent to gwen@wenlow-water.test');
+});
+
+test('the drawings fit the screen from 320 to 1440 px: no sideways scroll, every label inside its frame, the tank in view', async ({ page }) => {
+  await signIn(page, 'gwen@wenlow-water.test');
+  const list = await (await page.request.get('/api/visits?pageSize=100')).json();
+  const visit = list.items.find((v: { farm: { name: string } }) => v.farm.name === "Pryce's Upper Field");
+  for (const width of [320, 412, 1440]) {
+    await page.setViewportSize({ width, height: 900 });
+    await page.goto(`/sheets/${visit.id}`);
+    await expect(page.getByRole('img', { name: /Elevation profile/ })).toBeVisible();
+    const measured = await page.evaluate(() => {
+      const out: string[] = [];
+      if (document.documentElement.scrollWidth > window.innerWidth + 1) out.push(`page scrolls sideways: ${document.documentElement.scrollWidth} > ${window.innerWidth}`);
+      const drawings = [...document.querySelectorAll<SVGSVGElement>('[data-testid="profile-drawing"], [data-testid="site-map-drawing"]')]
+        .filter((svg) => svg.getBoundingClientRect().width > 0);
+      for (const svg of drawings) {
+        const frame = svg.getBoundingClientRect();
+        if (frame.right > window.innerWidth + 1) out.push(`${svg.dataset.testid} runs past the screen`);
+        for (const text of svg.querySelectorAll('text')) {
+          const r = text.getBoundingClientRect();
+          if (r.left < frame.left - 1 || r.right > frame.right + 1 || r.top < frame.top - 1 || r.bottom > frame.bottom + 1) out.push(`"${text.textContent}" outside ${svg.dataset.testid}`);
+        }
+        const tank = svg.querySelector('[data-node="tank"] rect')?.getBoundingClientRect();
+        if (svg.dataset.testid === 'profile-drawing' && (!tank || tank.right > frame.right + 1 || tank.left < frame.left)) out.push('tank out of view');
+      }
+      return { problems: out, drawings: drawings.length };
+    });
+    expect(measured.drawings, `at ${width} px`).toBe(2);
+    expect(measured.problems, `at ${width} px`).toEqual([]);
+    if (shots) await page.screenshot({ path: `${shots}/sheet-${width}.png`, fullPage: true });
+  }
+});
+
+test('the coordinator previews the e-mail with a personal note before sending, from the link at the top', async ({ page }) => {
+  await signIn(page, 'maren@wenlow-water.test');
+  const list = await (await page.request.get('/api/visits?pageSize=100')).json();
+  const visit = list.items.find((v: { farm: { name: string } }) => v.farm.name === "Pryce's Upper Field");
+  await page.goto(`/sheets/${visit.id}`);
+  await page.getByRole('link', { name: 'Send this sheet' }).click();
+  await expect(page).toHaveURL(/#send-sheet$/);
+  await page.getByLabel('A personal note (optional)').fill('I will call round on Tuesday.');
+  await page.getByRole('button', { name: 'Preview the e-mail' }).click();
+  const preview = page.getByRole('region', { name: 'E-mail preview' });
+  await expect(preview).toContainText('To: gwen@wenlow-water.test');
+  await expect(preview).toContainText("Subject: Your water sheet: Pryce's Upper Field");
+  await expect(preview).toContainText('I will call round on Tuesday.');
 });

@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { POST as postSend } from '@/app/api/visits/[id]/sheet/send/route';
+import { POST as postPreview } from '@/app/api/visits/[id]/sheet/send/preview/route';
 import { GET as getSends } from '@/app/api/visits/[id]/sheet/sends/route';
 import { POST as postAck } from '@/app/api/visits/[id]/sheet/acknowledge/route';
 import { GET as getQuestions, POST as postQuestion } from '@/app/api/visits/[id]/sheet/questions/route';
@@ -36,9 +37,12 @@ describe('POST /api/visits/:id/sheet/send', () => {
 
   it('the coordinator can send to another address they give', async () => {
     const to = `neighbour-${randomUUID().slice(0, 8)}@fixtures.test`;
-    const res = await postSend(await request(`/api/visits/${id()}/sheet/send`, org.coordinator, { method: 'POST', body: { to } }), params({ id: id() }));
+    const res = await postSend(await request(`/api/visits/${id()}/sheet/send`, org.coordinator, { method: 'POST', body: { to, note: 'Bring the tank quote.' } }), params({ id: id() }));
     expect(res.status).toBe(201);
-    expect(await mailTo(to)).toHaveLength(1);
+    const caught = await mailTo(to);
+    expect(caught).toHaveLength(1);
+    // The personal note rides in the message, after the greeting.
+    expect(caught[0]?.raw).toContain('Bring the tank quote.');
   });
 
   it('a bad address is a 422 that says what is wrong, and nothing is sent or recorded', async () => {
@@ -50,6 +54,28 @@ describe('POST /api/visits/:id/sheet/send', () => {
     expect(body.error.fieldErrors.to).toHaveLength(1);
     const after = (await (await getSends(await request(`/api/visits/${id()}/sheet/sends`, org.advisor), params({ id: id() }))).json()).sends.length;
     expect(after).toBe(before);
+  });
+
+  it('a preview shows the e-mail as it will go, with the personal note, and sends or records nothing', async () => {
+    const sendsNow = async () => (await (await getSends(await request(`/api/visits/${id()}/sheet/sends`, org.advisor), params({ id: id() }))).json()).sends.length;
+    const before = await sendsNow();
+    const mailsBefore = (await mailTo(org.farmer.email)).length;
+    const note = 'I will be at the ford on Tuesday — bring the tank quote.';
+    const res = await postPreview(await request(`/api/visits/${id()}/sheet/send/preview`, org.advisor, { method: 'POST', body: { note } }), params({ id: id() }));
+    expect(res.status).toBe(200);
+    const { preview } = await res.json();
+    expect(preview.to).toBe(org.farmer.email);
+    expect(preview.subject).toMatch(/^Your water sheet: /);
+    expect(preview.text).toContain(note);
+    expect(preview.text).toContain(`/sheets/${id()}`);
+    expect(await sendsNow()).toBe(before);
+    expect((await mailTo(org.farmer.email)).length).toBe(mailsBefore);
+  });
+
+  it('a note that is too long is a 422 naming the note', async () => {
+    const res = await postPreview(await request(`/api/visits/${id()}/sheet/send/preview`, org.advisor, { method: 'POST', body: { note: 'x'.repeat(1001) } }), params({ id: id() }));
+    expect(res.status).toBe(422);
+    expect((await res.json()).error.message).toMatch(/note/i);
   });
 
   it('the list shows who sent to whom and when, newest first', async () => {

@@ -1,16 +1,17 @@
 import 'server-only';
 import type PDFDocument from 'pdfkit';
 import { VERDICT_COLOURS, type Verdict } from '@/lib/shared/domain';
-import { nodeLabelAt, profileLabelAt, type ProfileGeometry } from '@/lib/shared/sheet/profile';
+import SVGtoPDF from 'svg-to-pdfkit';
+import { DRAWING_COLOURS, profileSvg, siteMapSvg } from '@/lib/shared/sheet/drawing-svg';
+import type { ProfileGeometry } from '@/lib/shared/sheet/profile';
 import type { SiteMapGeometry } from '@/lib/shared/sheet/site-map';
+import { fontRuns, isRegisteredFont } from './pdf-fonts';
 
 type Doc = InstanceType<typeof PDFDocument>;
 
-// The palette of LOOK.md; drawings must also read in greyscale (dash patterns, shapes, labels).
-export const INK = '#15191C';
-export const STONE = '#4F555A';
-export const CREEK = '#184F69';
-export const RULE = '#C9C4B6';
+export const INK = DRAWING_COLOURS.ink;
+export const STONE = DRAWING_COLOURS.stone;
+export const RULE = DRAWING_COLOURS.rule;
 export { VERDICT_COLOURS };
 
 /** The verdict's level vial (same shape as the page's VerdictMark), `h` points high at (x, y). */
@@ -26,63 +27,27 @@ export function drawVerdictMark(doc: Doc, verdict: Verdict, x: number, y: number
   doc.restore();
 }
 
-/** The elevation profile, scaled from its geometry box to `width` points wide at (x, y). */
-export function drawProfile(doc: Doc, g: ProfileGeometry, x: number, y: number, width: number, font: { sans: string; bold: string }): number {
-  const s = width / g.width;
-  doc.save().translate(x, y).scale(s);
-  const { plot } = g;
-  doc.lineWidth(0.6).strokeColor(RULE);
-  for (const line of g.yGrid) {
-    doc.moveTo(plot.x, line.at).lineTo(plot.x + plot.w, line.at).stroke();
-    doc.font(font.sans).fontSize(10).fillColor(STONE).text(line.label, 0, line.at - 6, { width: plot.x - 6, align: 'right', lineBreak: false });
-  }
-  for (const line of g.xGrid) {
-    doc.moveTo(line.at, plot.y).lineTo(line.at, plot.y + plot.h).stroke(RULE);
-    doc.font(font.sans).fontSize(10).fillColor(STONE).text(line.label, line.at - 30, plot.y + plot.h + 6, { width: 60, align: 'center', lineBreak: false });
-  }
-  // Water path: drive pipe solid, delivery pipe dashed, so the two read apart in greyscale.
-  for (const pipe of g.pipes) {
-    doc.lineWidth(4).strokeColor(CREEK);
-    if (pipe.key === 'delivery') doc.dash(10, { space: 4 });
-    doc.moveTo(pipe.x1, pipe.y1).lineTo(pipe.x2, pipe.y2).stroke();
-    doc.undash();
-  }
-  for (const pipe of g.pipes) {
-    const label = profileLabelAt(g, pipe);
-    doc.font(font.bold).fontSize(11).fillColor(INK).text(pipe.label, label.x, label.y, { width: 160, align: label.align, lineBreak: false });
-  }
-  for (const node of g.nodes) {
-    if (node.key === 'tank') doc.lineWidth(2).rect(node.x - 14, node.y - 20, 16, 20).fillAndStroke('#FFFFFF', INK);
-    else if (node.key === 'pump') doc.lineWidth(2).rect(node.x - 7, node.y - 7, 14, 14).fillAndStroke(INK, INK);
-    else doc.lineWidth(2).circle(node.x, node.y, 6).fillAndStroke('#FFFFFF', INK);
-    const at = nodeLabelAt(g, node);
-    doc.font(font.bold).fontSize(11).fillColor(INK).text(node.label, at.x, at.y, { width: 180, align: at.align, lineBreak: false });
-    doc.font(font.sans).fontSize(10).fillColor(STONE).text(node.height, at.x, at.y + 13, { width: 180, align: at.align, lineBreak: false });
-  }
-  doc.restore();
-  return g.height * s;
+// svg-to-pdfkit asks for a font by the family the markup names (fontRuns picked, for each run of a
+// label, a font that has its letters); any other family (svg-to-pdfkit's default is sans-serif)
+// gets the sheet's own face.
+const runsFor = (text: string, bold: boolean) => fontRuns(text, bold ? 'bold' : 'sans');
+function draw(doc: Doc, svg: string, x: number, y: number, width: number, height: number) {
+  SVGtoPDF(doc as unknown as Parameters<typeof SVGtoPDF>[0], svg, x, y, {
+    width, height, assumePt: true, preserveAspectRatio: 'xMinYMin meet',
+    fontCallback: (family, bold) => (isRegisteredFont(family) ? family : bold ? 'atkinson-700' : 'atkinson-400'),
+  });
 }
 
-/** The point map with a scale bar and north arrow, scaled to `width` points wide at (x, y). */
-export function drawSiteMap(doc: Doc, g: SiteMapGeometry, x: number, y: number, width: number, font: { sans: string; bold: string }): number {
-  const s = width / g.width;
-  doc.save().translate(x, y).scale(s);
-  doc.lineWidth(1).rect(0, 0, g.width, g.height).stroke(RULE);
-  if (g.route.length > 1) {
-    doc.lineWidth(2.5).strokeColor(CREEK).moveTo(g.route[0]?.x ?? 0, g.route[0]?.y ?? 0);
-    for (const p of g.route.slice(1)) doc.lineTo(p.x, p.y);
-    doc.stroke();
-  }
-  for (const p of g.points) {
-    doc.lineWidth(1.5).circle(p.x, p.y, 5).fillAndStroke('#FFFFFF', INK);
-    doc.font(font.sans).fontSize(10).fillColor(INK).text(p.label, p.x + 8, p.y - 6, { width: 140, lineBreak: false });
-  }
-  const bar = g.scaleBar;
-  doc.lineWidth(2).moveTo(bar.x, bar.y).lineTo(bar.x + bar.length, bar.y).stroke(INK);
-  doc.moveTo(bar.x, bar.y - 4).lineTo(bar.x, bar.y + 4).stroke().moveTo(bar.x + bar.length, bar.y - 4).lineTo(bar.x + bar.length, bar.y + 4).stroke();
-  doc.font(font.sans).fontSize(10).fillColor(INK).text(bar.label, bar.x + bar.length + 6, bar.y - 6, { lineBreak: false });
-  doc.polygon([g.width - 20, 12], [g.width - 26, 28], [g.width - 14, 28]).fill(INK);
-  doc.font(font.bold).fontSize(10).text('N', g.width - 24, 30, { lineBreak: false });
-  doc.restore();
-  return g.height * s;
+/** The elevation profile, `width` points wide at (x, y): the page's own SVG. Returns its height. */
+export function drawProfile(doc: Doc, g: ProfileGeometry, x: number, y: number, width: number): number {
+  const height = g.height * (width / g.width);
+  draw(doc, profileSvg(g, { runsFor }), x, y, width, height);
+  return height;
+}
+
+/** The point map with its scale bar and north arrow, `width` points wide at (x, y): the page's own SVG. */
+export function drawSiteMap(doc: Doc, g: SiteMapGeometry, x: number, y: number, width: number): number {
+  const height = g.height * (width / g.width);
+  draw(doc, siteMapSvg(g, { runsFor }), x, y, width, height);
+  return height;
 }

@@ -1,7 +1,8 @@
 import 'server-only';
 import { SheetSend, Visit, getSequelize } from '@/lib/server/db';
 import type { PaperSize, SendSheetBody } from '@/lib/shared/schemas/sheet';
-import { buildSheetView } from '@/lib/shared/sheet/view-model';
+import { sheetEmail } from '@/lib/shared/sheet/email';
+import { buildSheetView, type SheetView } from '@/lib/shared/sheet/view-model';
 import { canMove } from '@/lib/shared/visit-states';
 import type { SessionUser } from '../auth/permissions';
 import { recordAudit } from '../audit';
@@ -10,6 +11,7 @@ import { moveVisit } from '../data/visit-moves';
 import { appEnv } from '../env';
 import { invalid } from '../errors';
 import { sendMail } from '../mail/transport';
+import { sheetFileName } from './file-name';
 import { assertMaySendSheet } from './send-limit';
 import { renderSheetPdf } from './pdf';
 
@@ -33,16 +35,36 @@ export function sheetLink(visitId: string): string {
   return `${appEnv().NEXTAUTH_URL.replace(/\/$/, '')}/sheets/${visitId}`;
 }
 
+type SheetContext = Awaited<ReturnType<typeof loadSheet>>;
+
+function recipient(ctx: SheetContext, body: SendSheetBody): string {
+  const to = body.to ?? ctx.farmer?.email;
+  if (!to) throw invalid('This farm has no farmer with an e-mail address: enter one.', { to: ['Enter an e-mail address.'] });
+  return to;
+}
+
+function message(user: SessionUser, ctx: SheetContext, view: SheetView, visitId: string, note: string | undefined) {
+  return sheetEmail({ farmerName: ctx.farmer?.name ?? null, senderName: user.name, farmName: view.farmName, verdictWord: view.verdictWord,
+    summary: view.summary, link: sheetLink(visitId), note });
+}
+
+/** The e-mail as it would go out (to, subject, text), in the farmer's units, without sending it. */
+export async function previewSheetSend(user: SessionUser, visitId: string, body: SendSheetBody): Promise<{ to: string; subject: string; text: string }> {
+  const ctx = await loadSheet(user, visitId, 'sheet:send');
+  const to = recipient(ctx, body);
+  const view = buildSheetView(ctx.source, ctx.farmer?.units ?? 'metric');
+  return { to, ...message(user, ctx, view, visitId, body.note) };
+}
+
 /**
- * E-mails the visit's sheet (link + PDF in the farmer's units) to the farmer, or to `to`, within
- * the sender's hourly limit. Every attempt is recorded and audited with its address; a refused
- * message is kept as `failed`, so it can be retried.
+ * E-mails the visit's sheet (link + PDF in the farmer's units) to the farmer, or to `to`, with the
+ * sender's note if any, within the sender's hourly limit. Every attempt is recorded and audited with
+ * its address; a refused message is kept as `failed`, so it can be retried.
  */
 export async function sendSheet(user: SessionUser, visitId: string, body: SendSheetBody): Promise<SheetSendView> {
   const ctx = await loadSheet(user, visitId, 'sheet:send');
   await assertMaySendSheet(user.id);
-  const to = body.to ?? ctx.farmer?.email;
-  if (!to) throw invalid('This farm has no farmer with an e-mail address: enter one.', { to: ['Enter an e-mail address.'] });
+  const to = recipient(ctx, body);
   const units = ctx.farmer?.units ?? 'metric';
   const paper: PaperSize = body.paper ?? (units === 'us' ? 'letter' : 'a4');
   const view = buildSheetView(ctx.source, units);
@@ -51,16 +73,13 @@ export async function sendSheet(user: SessionUser, visitId: string, body: SendSh
     id: crypto.randomUUID(), visitId, screeningId: ctx.screeningId, sentById: user.id, toAddress: to, paper,
     status: 'sending', error: null, messageId: null,
   });
-  const link = sheetLink(visitId);
+  const mail = message(user, ctx, view, visitId, body.note);
   try {
     const { messageId } = await sendMail({
       to,
-      subject: `Your water sheet: ${view.farmName} – ${view.verdictWord}`,
-      text: [`Hello${ctx.farmer ? ` ${ctx.farmer.name}` : ''},`, '', `${user.name} sends you the sheet for ${view.farmName}.`, '',
-        view.verdictWord, ...view.summary, '', `Read it, acknowledge it or ask a question here: ${link}`,
-        'The sheet is also attached as a PDF to keep or print.', '',
-        'This is a first check from field readings, not an engineering design.'].join('\n'),
-      attachments: [{ filename: `fallbook-sheet-${slug(view.farmName)}.pdf`, content: pdf, contentType: 'application/pdf' }],
+      subject: mail.subject,
+      text: mail.text,
+      attachments: [{ filename: sheetFileName(view.farmName), content: pdf, contentType: 'application/pdf' }],
     });
     await row.update({ status: 'sent', messageId });
   } catch (error) {
@@ -77,8 +96,4 @@ export async function sendSheet(user: SessionUser, visitId: string, body: SendSh
       action: row.status === 'sent' ? 'sheet_sent' : 'sheet_send_failed', changes: { to, paper, error: row.error } }, transaction);
   });
   return sendView(row);
-}
-
-function slug(name: string): string {
-  return name.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'site';
 }

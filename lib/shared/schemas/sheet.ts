@@ -1,5 +1,6 @@
 import { z } from '@/lib/shared/zod';
 import { DEMAND_CATALOGUE, type DemandKind } from '@/lib/engine/demand';
+import { NOTE_MAX } from '../sheet/email';
 import { ANSWER_TOO_LONG, ANSWER_TOO_SHORT, QUESTION_MAX, QUESTION_MIN, QUESTION_TOO_LONG, QUESTION_TOO_SHORT, REASON_MAX, REASON_NEEDED, REASON_TOO_LONG } from '../sheet/question-rules';
 import { parseFieldNumber } from '../units';
 
@@ -14,6 +15,7 @@ export const paperQuery = z.object({
 export const sendSheetBody = z.object({
   to: z.string().trim().email('Enter a valid e-mail address, like name@example.org.').max(254).optional(),
   paper: z.enum(PAPERS, { message: 'Paper must be a4 or letter.' }).optional(),
+  note: z.string().trim().max(NOTE_MAX, `Keep the note under ${NOTE_MAX.toLocaleString('en-US')} characters.`).optional(),
 });
 export type SendSheetBody = z.infer<typeof sendSheetBody>;
 

@@ -1,6 +1,6 @@
 // The elevation profile as geometry: intake → drive pipe → ram → delivery pipe → tank, heights and
 // lengths to scale (each axis its own scale, the vertical exaggeration stated). Drawn by the page
-// (SVG) and by the PDF (pdfkit paths) from the same numbers.
+// and the PDF alike as the same SVG markup (drawing-svg.ts).
 import type { UnitSystem } from '../domain';
 import { mToFt } from '../units';
 import { length as lengthQ, pipeLength } from './quantities';
@@ -87,22 +87,54 @@ export function profileGeometry(p: ProfileInput, units: UnitSystem, width = 640,
   return { width, height, plot, nodes, pipes, xGrid, yGrid, exaggeration, description };
 }
 
-export interface LabelAnchor { x: number; y: number; align: 'left' | 'right'; /** SVG text-anchor */ anchor: 'start' | 'end' }
-
-/** Where a point's two-line label goes (top-left corner of a 180-wide box): clear of the pipes. */
-export function nodeLabelAt(g: ProfileGeometry, node: ProfileNode): LabelAnchor {
-  if (node.key === 'tank') return { x: node.x - 204, y: node.y - 36, align: 'right', anchor: 'end' };
-  // The ram sits on the baseline: its label goes under the axis labels.
-  if (node.key === 'pump') return { x: Math.max(node.x - 10, 0), y: g.plot.y + g.plot.h + 22, align: 'left', anchor: 'start' };
-  return { x: Math.max(node.x - 10, 0), y: node.y - 38, align: 'left', anchor: 'start' };
+/** A text's width estimated from its length (about 0.58 em a character, 0.62 em bold): enough to keep labels inside the frame. */
+export function textWidth(text: string, size: number, bold = false): number {
+  return Array.from(text).length * size * (bold ? 0.62 : 0.58);
 }
 
-/** Where a pipe's length label goes (a 160-wide box): above the delivery line, beside the drive line. */
+export interface LabelAnchor {
+  /** Left edge and width of the label's box, kept inside the drawing. */
+  x: number;
+  y: number;
+  width: number;
+  align: 'left' | 'right';
+  /** SVG text-anchor; the text's x is `x` for start and `x + width` for end. */
+  anchor: 'start' | 'end';
+}
+
+// Label sizes in drawing units: the page and the PDF both draw them at these sizes.
+export const LABEL_SIZE = 13;
+export const NOTE_SIZE = 12;
+
+function inside(g: { width: number }, x: number, width: number): number {
+  return Math.min(Math.max(x, 2), Math.max(g.width - 2 - width, 2));
+}
+
+function box(g: ProfileGeometry, left: number, y: number, width: number, align: 'left' | 'right'): LabelAnchor {
+  return { x: inside(g, left, width), y: Math.max(y, 2), width, align, anchor: align === 'left' ? 'start' : 'end' };
+}
+
+/** Where a point's two-line label goes: clear of the pipes and inside the frame. */
+export function nodeLabelAt(g: ProfileGeometry, node: ProfileNode): LabelAnchor {
+  const width = Math.max(textWidth(node.label, LABEL_SIZE, true), textWidth(node.height, NOTE_SIZE));
+  // The tank's label ends left of the tank, so the tank and its height are always in view.
+  if (node.key === 'tank') return box(g, node.x - 24 - width, node.y - 36, width, 'right');
+  // The ram sits on the baseline: its label goes under the axis labels.
+  if (node.key === 'pump') return box(g, node.x - 10, g.plot.y + g.plot.h + 22, width, 'left');
+  return box(g, node.x - 10, node.y - 38, width, 'left');
+}
+
+/** Where a pipe's length label goes: above the delivery line, beside the drive line. */
 export function profileLabelAt(g: ProfileGeometry, pipe: ProfilePipe): LabelAnchor {
+  const width = textWidth(pipe.label, LABEL_SIZE, true);
   const mx = (pipe.x1 + pipe.x2) / 2;
   const my = (pipe.y1 + pipe.y2) / 2;
-  if (pipe.key === 'delivery') return { x: mx - 166, y: my - 22, align: 'right', anchor: 'end' };
+  if (pipe.key === 'delivery') return box(g, mx - 6 - width, my - 22, width, 'right');
   // A short drive pipe is labelled beside the ram's label, under the axis.
-  if (Math.abs(pipe.x2 - pipe.x1) < 170) return { x: Math.max(pipe.x2 + 90, 0), y: g.plot.y + g.plot.h + 22, align: 'left', anchor: 'start' };
-  return { x: mx + 8, y: my - 4, align: 'left', anchor: 'start' };
+  if (Math.abs(pipe.x2 - pipe.x1) < 170) {
+    const pump = g.nodes.find((n) => n.key === 'pump');
+    const pumpLabel = pump ? nodeLabelAt(g, pump) : null;
+    return box(g, pumpLabel ? pumpLabel.x + pumpLabel.width + 12 : pipe.x2 + 90, g.plot.y + g.plot.h + 22, width, 'left');
+  }
+  return box(g, mx + 8, my - 4, width, 'left');
 }

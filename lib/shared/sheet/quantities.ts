@@ -1,5 +1,6 @@
 // Quantities on the sheet in the reader's units (metric or US customary), as display strings.
 import type { UnitSystem } from '../domain';
+import { fmt } from '@/lib/engine/format';
 import { headMToPsi, lToUsGal, mmToIn, mToFt } from '../units';
 
 const group = (n: number): string => n.toLocaleString('en-US', { maximumFractionDigits: 0 });
@@ -12,12 +13,13 @@ export function roughly(value: number): number {
   return Math.round(value / step) * step;
 }
 
-/** A number with sensible precision for a figure: ≥ 100 whole, ≥ 10 one decimal, else two. */
+/**
+ * A number with sensible precision for a figure, the engine's own rule for its sentences (so a
+ * figure reads the same in the table and in the text): ≥ 1000 to tens, ≥ 100 whole, ≥ 10 one
+ * decimal, else two.
+ */
 export function figureNumber(value: number): string {
-  const abs = Math.abs(value);
-  if (abs >= 100) return group(Math.round(value));
-  if (abs >= 10) return value.toFixed(1);
-  return value.toFixed(2);
+  return fmt(value);
 }
 
 export interface Quantity {
@@ -41,9 +43,9 @@ export function pipeLength(m: number, units: UnitSystem): Quantity {
   return units === 'us' ? q(group(Math.ceil(mToFt(m))), 'ft') : q(group(Math.ceil(m)), 'm');
 }
 
-/** A daily volume (L/day in, L/day or gal/day out), whole numbers. */
+/** A daily volume (L/day in, L/day or gal/day out). */
 export function perDay(litres: number, units: UnitSystem): Quantity {
-  return units === 'us' ? q(group(lToUsGal(litres)), 'gal/day') : q(group(litres), 'L/day');
+  return units === 'us' ? q(figureNumber(lToUsGal(litres)), 'gal/day') : q(figureNumber(litres), 'L/day');
 }
 
 /** A flow per minute (L/min in, L/min or gal/min out). */
@@ -51,9 +53,9 @@ export function perMinute(lpm: number, units: UnitSystem): Quantity {
   return units === 'us' ? q(figureNumber(lToUsGal(lpm)), 'gal/min') : q(figureNumber(lpm), 'L/min');
 }
 
-/** A volume (L in, L or gal out), whole numbers. */
+/** A volume (L in, L or gal out). */
 export function volume(litres: number, units: UnitSystem): Quantity {
-  return units === 'us' ? q(group(lToUsGal(litres)), 'gal') : q(group(litres), 'L');
+  return units === 'us' ? q(figureNumber(lToUsGal(litres)), 'gal') : q(figureNumber(litres), 'L');
 }
 
 /** A pipe bore (mm in, mm or in out). */
@@ -63,17 +65,16 @@ export function bore(mm: number, units: UnitSystem): Quantity {
 
 /** A pressure given as head of water: "45.0 m of head" or "148 ft of head (64 psi)". */
 export function pressureHead(m: number, units: UnitSystem): string {
-  if (units === 'us') return `${figureNumber(mToFt(m))} ft of head (${group(headMToPsi(m))} psi)`;
-  return `${figureNumber(m)} m of head (${group(m * 9.80665)} kPa)`;
+  if (units === 'us') return `${figureNumber(mToFt(m))} ft of head (${figureNumber(headMToPsi(m))} psi)`;
+  return `${figureNumber(m)} m of head (${figureNumber(m * 9.80665)} kPa)`;
 }
 
-/** "about 2,300 litres" / "about 600 gallons" for the summary sentences. */
-export function aboutDaily(litres: number, units: UnitSystem): string {
-  if (units === 'us') return `about ${group(roughly(lToUsGal(litres)))} gallons`;
-  return `about ${group(roughly(litres))} litres`;
+/** A daily volume in words for the summary, with the same number as the key figure: "2,524 litres". */
+export function dailyInWords(litres: number, units: UnitSystem): string {
+  return `${perDay(litres, units).number} ${units === 'us' ? 'gallons' : 'litres'}`;
 }
 
-/** The short number alone, rounded like aboutDaily ("1,900"). */
-export function aboutNumber(litres: number, units: UnitSystem): string {
-  return group(roughly(units === 'us' ? lToUsGal(litres) : litres));
+/** A pressure as a metric reader reads a pipe rating: "300 psi" → "2,070 kPa (300 psi)". */
+export function psiAsKPa(psi: number): string {
+  return `${figureNumber(psi * 6.894757)} kPa (${group(psi)} psi)`;
 }

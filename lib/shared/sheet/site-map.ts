@@ -2,10 +2,21 @@
 // (equirectangular, fine over a few hundred metres), north up, with a scale bar.
 import type { UnitSystem } from '../domain';
 import { mToFt } from '../units';
-import { niceStep } from './profile';
+import { niceStep, textWidth } from './profile';
 
 export interface MapPointInput { role: string; label: string; lat: number; lon: number }
-export interface MapPoint { role: string; label: string; x: number; y: number }
+export interface MapPoint {
+  role: string;
+  label: string;
+  x: number;
+  y: number;
+  /** Where the label's text starts or ends (SVG text-anchor), kept inside the frame. */
+  labelX: number;
+  labelY: number;
+  anchor: 'start' | 'end';
+}
+
+export const MAP_LABEL_SIZE = 11;
 
 export interface SiteMapGeometry {
   width: number;
@@ -39,7 +50,15 @@ export function siteMapGeometry(input: MapPointInput[], units: UnitSystem, width
   const cy = (height - 20) / 2;
   const midE = (minE + maxE) / 2;
   const midN = (minN + maxN) / 2;
-  const points = local.map((p) => ({ role: p.role, label: p.label, x: cx + (p.e - midE) * scale, y: cy - (p.n - midN) * scale }));
+  const points = local.map((p) => {
+    const x = cx + (p.e - midE) * scale;
+    const y = cy - (p.n - midN) * scale;
+    // A label that would run past the right edge goes to the left of its point instead.
+    const w = textWidth(p.label, MAP_LABEL_SIZE);
+    const right = x + 8 + w <= width - 4;
+    const labelX = right ? x + 8 : Math.max(x - 8, w + 4);
+    return { role: p.role, label: p.label, x, y, labelX, labelY: Math.min(Math.max(y + 4, 14), height - 26), anchor: right ? 'start' as const : 'end' as const };
+  });
   const route = ROUTE_ORDER.map((role) => points.find((p) => p.role === role)).filter((p): p is MapPoint => !!p).map(({ x, y }) => ({ x, y }));
 
   const toUnits = (m: number) => (units === 'us' ? mToFt(m) : m);

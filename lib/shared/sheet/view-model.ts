@@ -4,7 +4,8 @@ import type { FigureKey, Screening } from '@/lib/engine/screening-types';
 import { VERDICT_WORDS, type UnitSystem, type Verdict } from '../domain';
 import { formatDay } from '../format';
 import { profileGeometry, type ProfileGeometry } from './profile';
-import { aboutDaily, aboutNumber, length, perDay, perMinute, pipeLength, pressureHead, volume } from './quantities';
+import { dailyInWords, length, perDay, perMinute, pipeLength, pressureHead, volume } from './quantities';
+import { plainTrade } from './trade-words';
 import { siteMapGeometry, type SiteMapGeometry } from './site-map';
 import { toUsText } from './us-text';
 
@@ -44,6 +45,8 @@ export interface SheetView {
   method: string[];
   sources: { id: string; citation: string }[];
   profile: ProfileGeometry | null;
+  /** The same profile laid out for a phone's width (under 640 px). */
+  profileNarrow: ProfileGeometry | null;
   map: SiteMapGeometry | null;
 }
 
@@ -78,11 +81,11 @@ export function summarySentences(s: SheetSource, units: UnitSystem): [string, st
   const demand = f.demandLpd?.value ?? 0;
   const tank = s.points.find((p) => p.role === 'tank')?.label.trim();
   const where = tank ? `the tank (${tank.charAt(0).toLowerCase()}${tank.slice(1)})` : 'the tank';
-  const first = `This site can deliver ${aboutDaily(delivery, units)} a day to ${where}; ${needPhrase(s.demandKinds)} about ${aboutNumber(demand, units)}.`;
+  const first = `This site can deliver ${dailyInWords(delivery, units)} a day to ${where}; ${needPhrase(s.demandKinds)} ${dailyInWords(demand, units)}.`;
   const verdict = s.screening.verdict;
   const rams = f.ramCount?.value ?? 1;
   if (verdict === 'gravity') {
-    const pipe = `This site can deliver ${aboutDaily(delivery, units)} a day to ${where} through a pipe; ${needPhrase(s.demandKinds)} about ${aboutNumber(demand, units)}.`;
+    const pipe = `This site can deliver ${dailyInWords(delivery, units)} a day to ${where} through a pipe; ${needPhrase(s.demandKinds)} ${dailyInWords(demand, units)}.`;
     return [pipe, 'The tank sits below the intake, so the water runs down to it by itself: no pump is needed. Read the cautions before anything is bought or built.'];
   }
   const second =
@@ -96,11 +99,14 @@ export function summarySentences(s: SheetSource, units: UnitSystem): [string, st
   return [first, second];
 }
 
-/** A probability in words a reader trusts: whole per cent, never a flat "100 %" or "0 %". */
+/**
+ * A probability as a likelihood, never a promise: a word, then how often it held in the simulated
+ * runs ("Very likely (about 99 in 100)"); never "100 in 100" or "0 in 100".
+ */
 export function chance(p: number): string {
-  if (p >= 0.995) return 'over 99 %';
-  if (p <= 0.005) return 'under 1 %';
-  return `${Math.round(p * 100)} %`;
+  const inHundred = Math.min(Math.max(Math.round(p * 100), 1), 99);
+  const word = p >= 0.95 ? 'Very likely' : p >= 0.75 ? 'Likely' : p >= 0.5 ? 'Uncertain' : p >= 0.2 ? 'Unlikely' : 'Very unlikely';
+  return `${word} (about ${inHundred} in 100)`;
 }
 
 function keyFigures(s: SheetSource, units: UnitSystem): SheetFigure[] {
@@ -118,7 +124,7 @@ function keyFigures(s: SheetSource, units: UnitSystem): SheetFigure[] {
   add('deliveryLpd', 'Delivery per day', (v) => perDay(v, units).text, 'Ram running day and night');
   add('demandLpd', 'Demand per day', (v) => perDay(v, units).text, 'What you told us you need');
   add('demandMarginLpd', 'Margin', (v) => (v >= 0 ? `${perDay(v, units).text} to spare` : `${perDay(-v, units).text} short`), 'Delivery minus demand');
-  add('probabilityMeetsDemand', 'Chance of meeting demand', chance, 'Allowing for measuring error and how rams vary');
+  add('probabilityMeetsDemand', 'Chance of meeting demand', chance, 'Share of simulated runs that met demand, with the readings and the ram\u2019s efficiency varied as they vary in practice; a season drier than the one measured is not covered');
   add('tankL', 'Tank', (v) => volume(v, units).text, 'Storage to size for');
   add('ramCount', 'Rams', (v) => `${v} side by side`, 'Each on its own drive pipe');
   add('gravityHeadM', 'Intake above the tank', (v) => length(v, units).text, 'The water runs down by itself');
@@ -135,7 +141,7 @@ function billOfMaterials(s: SheetSource, units: UnitSystem): SheetBomLine[] {
   return s.screening.billOfMaterials.map((line) => {
     const quantity = line.unit === 'm' ? pipeLength(line.quantity, units).text : `${line.quantity} ${line.unit}`;
     const size = line.item.startsWith('Storage tank') && tankL != null ? volume(tankL, units).text : line.size;
-    return { item: line.item, size, quantity, note: line.note };
+    return { item: plainTrade(line.item, units), size: plainTrade(size, units), quantity, note: line.note };
   });
 }
 
@@ -161,13 +167,15 @@ export function buildSheetView(s: SheetSource, units: UnitSystem): SheetView {
   const lift = fig('staticLiftM');
   const driveM = s.pipeLengthsM.drive ?? fig('driveLengthM');
   const deliveryM = s.pipeLengthsM.delivery;
-  const profile = fall !== null && lift !== null && driveM && deliveryM
-    ? profileGeometry({ fallM: fall, staticLiftM: lift, driveLengthM: driveM, deliveryLengthM: deliveryM, gravity: sc.verdict === 'gravity' }, units)
+  const profileInput = fall !== null && lift !== null && driveM && deliveryM
+    ? { fallM: fall, staticLiftM: lift, driveLengthM: driveM, deliveryLengthM: deliveryM, gravity: sc.verdict === 'gravity' }
     : null;
+  const profile = profileInput && profileGeometry(profileInput, units);
+  const profileNarrow = profileInput && profileGeometry(profileInput, units, 360, 300);
   const located = s.points.filter((p): p is typeof p & { lat: number; lon: number } => p.lat !== null && p.lon !== null);
   const visited = s.visitedAt ? formatDay(s.visitedAt) : 'a date not recorded';
   // The engine's sentences are metric; a US reader gets them in US customary units.
-  const say = (text: string) => (units === 'us' ? toUsText(text) : text);
+  const say = (text: string) => (units === 'us' ? toUsText(plainTrade(text, units)) : plainTrade(text, units));
   return {
     visitId: s.visitId,
     units,
@@ -185,8 +193,10 @@ export function buildSheetView(s: SheetSource, units: UnitSystem): SheetView {
     surveyed: `Surveyed by ${s.advisorName ?? 'an advisor'} on ${visited}; screened on ${formatDay(s.screenedAt)}.`,
     engineVersion: sc.engineVersion,
     method: methodNotes(s),
-    sources: sc.sources.map((src) => ({ id: src.id, citation: src.citation })),
+    // Sources by their names in words, each once, in the order the rules cite them.
+    sources: [...new Map(sc.sources.map((src) => [src.citation, { id: src.id, citation: src.citation }])).values()],
     profile,
+    profileNarrow,
     map: siteMapGeometry(located.map((p) => ({ role: p.role, label: p.label, lat: p.lat, lon: p.lon })), units),
   };
 }

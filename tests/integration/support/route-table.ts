@@ -229,6 +229,10 @@ export const ROUTES: RouteEntry[] = [
     build: async (u, r) => request(`/api/visits/${need(r).visitId}/sheet/send`, u, json('POST', { paper: 'a4' })),
   },
   {
+    file: 'app/api/visits/[id]/sheet/send/preview/route.ts', method: 'POST', load: () => import('@/app/api/visits/[id]/sheet/send/preview/route'), permissions: ['sheet:send'], target: 'visit', ok: 200,
+    build: async (u, r) => request(`/api/visits/${need(r).visitId}/sheet/send/preview`, u, json('POST', { note: 'See you on Tuesday.' })),
+  },
+  {
     file: 'app/api/visits/[id]/sheet/sends/route.ts', method: 'GET', load: () => import('@/app/api/visits/[id]/sheet/sends/route'), permissions: ['sheet:send'], target: 'visit', ok: 200,
     build: async (u, r) => request(`/api/visits/${need(r).visitId}/sheet/sends`, u),
   },

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { niceStep, profileGeometry } from '@/lib/shared/sheet/profile';
-import { siteMapGeometry } from '@/lib/shared/sheet/site-map';
+import { NOTE_SIZE, niceStep, nodeLabelAt, profileGeometry, profileLabelAt, textWidth } from '@/lib/shared/sheet/profile';
+import { profileSvg, siteMapSvg } from '@/lib/shared/sheet/drawing-svg';
+import { MAP_LABEL_SIZE, siteMapGeometry } from '@/lib/shared/sheet/site-map';
 
 describe('elevation profile geometry', () => {
   const p = { fallM: 4, staticLiftM: 30, driveLengthM: 24, deliveryLengthM: 420 };
@@ -69,5 +70,71 @@ describe('point map geometry', () => {
 
   it('needs two located points', () => {
     expect(siteMapGeometry(pts.slice(0, 1), 'metric')).toBeNull();
+  });
+});
+
+describe('labels stay inside the frame', () => {
+  const sites = [
+    { fallM: 4.18, staticLiftM: 29.5, driveLengthM: 24, deliveryLengthM: 420 },
+    { fallM: 12, staticLiftM: 3, driveLengthM: 160, deliveryLengthM: 40 },
+    { fallM: 1.2, staticLiftM: 95, driveLengthM: 8, deliveryLengthM: 2400 },
+  ];
+  for (const [w, h] of [[640, 320], [360, 300]] as const) {
+    for (const site of sites) {
+      it(`profile ${w}×${h}, fall ${site.fallM} m, lift ${site.staticLiftM} m: every label box and the tank are in view`, () => {
+        for (const units of ['metric', 'us'] as const) {
+          const g = profileGeometry(site, units, w, h);
+          const boxes = [...g.nodes.map((n) => nodeLabelAt(g, n)), ...g.pipes.map((p) => profileLabelAt(g, p))];
+          for (const b of boxes) {
+            expect(b.x).toBeGreaterThanOrEqual(0);
+            expect(b.x + b.width).toBeLessThanOrEqual(g.width);
+            expect(b.y).toBeGreaterThanOrEqual(0);
+            expect(b.y + 28).toBeLessThanOrEqual(g.height);
+          }
+          const tank = g.nodes.find((n) => n.key === 'tank');
+          expect(tank && tank.x - 14 >= 0 && tank.x + 2 <= g.width && tank.y - 20 >= 0).toBe(true);
+          const tankLabel = tank && nodeLabelAt(g, tank);
+          expect(tankLabel && textWidth(tank?.height ?? '', NOTE_SIZE) <= tankLabel.width).toBe(true);
+        }
+      });
+    }
+  }
+
+  it('a map label near the right edge turns to the left of its point', () => {
+    const g = siteMapGeometry([
+      { role: 'intake', label: 'Ridge by the old sheepfold', lat: 52.4193, lon: -3.617 },
+      { role: 'tank', label: 'Tank on the meadow bench', lat: 52.4183, lon: -3.614 },
+    ], 'metric');
+    if (!g) throw new Error('two points make a map');
+    for (const p of g.points) {
+      const w = textWidth(p.label, MAP_LABEL_SIZE);
+      const left = p.anchor === 'start' ? p.labelX : p.labelX - w;
+      expect(left).toBeGreaterThanOrEqual(0);
+      expect(left + w).toBeLessThanOrEqual(g.width);
+    }
+    expect(g.points.find((p) => p.role === 'tank')?.anchor).toBe('end');
+  });
+});
+
+describe('the drawings as SVG markup (the page and the PDF draw the same)', () => {
+  it('escapes every label: hostile text stays text', () => {
+    const g = siteMapGeometry([
+      { role: 'intake', label: '<script>alert("x")</script>', lat: 52.4193, lon: -3.617 },
+      { role: 'tank', label: 'Tom & Jo\'s "tank"', lat: 52.4183, lon: -3.614 },
+    ], 'metric');
+    if (!g) throw new Error('two points make a map');
+    const svg = siteMapSvg(g);
+    expect(svg).not.toContain('<script>');
+    expect(svg).toContain('&lt;script&gt;alert(&quot;x&quot;)&lt;/script&gt;');
+    expect(svg).toContain('Tom &amp; Jo&#39;s &quot;tank&quot;');
+  });
+
+  it('draws the tank and every label of the profile, with the PDF\'s fonts per run when asked', () => {
+    const g = profileGeometry({ fallM: 4, staticLiftM: 30, driveLengthM: 24, deliveryLengthM: 420 }, 'metric', 360, 300);
+    const svg = profileSvg(g, { runsFor: (text) => (text === 'Tank' ? [{ font: 'a', text: 'Ta' }, { font: 'b', text: 'nk' }] : [{ font: 'a', text }]) });
+    expect(svg).toContain('data-node="tank"');
+    for (const node of g.nodes) expect(svg).toContain(node.height);
+    expect(svg).toContain('<tspan font-family="a">Ta</tspan><tspan font-family="b">nk</tspan>');
+    expect(svg).toMatch(/^<svg [^>]*viewBox="0 0 360 300"/);
   });
 });

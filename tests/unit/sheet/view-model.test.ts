@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { buildSheetView, chance, needPhrase, summarySentences } from '@/lib/shared/sheet/view-model';
-import { aboutDaily, length, perDay, roughly } from '@/lib/shared/sheet/quantities';
+import { dailyInWords, length, perDay, roughly } from '@/lib/shared/sheet/quantities';
+import { plainTrade } from '@/lib/shared/sheet/trade-words';
 import { screenSite } from '@/lib/engine';
 import { siteReadingsSchema } from '@/lib/shared/schemas/site-readings';
 import { brandtLikeSource } from './fixture';
@@ -15,34 +16,39 @@ describe('rounding for the summary', () => {
     expect(roughly(1890)).toBe(1900);
     expect(roughly(456)).toBe(460);
     expect(roughly(95)).toBe(95);
-    expect(aboutDaily(2284, 'metric')).toBe('about 2,300 litres');
   });
 
-  it('says gallons for US readers (1 US gal = 3.785411784 L)', () => {
-    expect(aboutDaily(3.785411784 * 2, 'us')).toBe('about 2 gallons');
-    expect(aboutDaily(3.785411784 * 612, 'us')).toBe('about 610 gallons');
+  it('says the daily figures in words with the key figure\'s own number, gallons for US readers', () => {
+    expect(dailyInWords(2284.4, 'metric')).toBe(`${perDay(2284.4, 'metric').number} litres`);
+    expect(dailyInWords(2284.4, 'metric')).toBe('2,280 litres');
+    expect(dailyInWords(3.785411784 * 612, 'us')).toBe('612 gallons');
   });
 
-  it('never shows a flat 100 % or 0 % chance', () => {
-    expect(chance(1)).toBe('over 99 %');
-    expect(chance(0)).toBe('under 1 %');
-    expect(chance(0.874)).toBe('87 %');
+  it('words a chance as a likelihood with how often it held, never a promise', () => {
+    expect(chance(1)).toBe('Very likely (about 99 in 100)');
+    expect(chance(0)).toBe('Very unlikely (about 1 in 100)');
+    expect(chance(0.874)).toBe('Likely (about 87 in 100)');
+    expect(chance(0.6)).toMatch(/^Uncertain/);
+    expect(chance(0.999)).not.toMatch(/%|over|certain(?!ty)/i);
   });
 });
 
 describe('the two-sentence summary', () => {
   it('names delivery and demand, rounded from the engine figures, and the tank point', () => {
     const [first, second] = summarySentences(source, 'metric');
-    const match = first.match(/deliver about ([\d,]+) litres a day to the tank \(meadow bench\); your household and animals need about ([\d,]+)\./);
+    const match = first.match(/deliver ([\d,]+) litres a day to the tank \(meadow bench\); your household and animals need ([\d,]+) litres\./);
     expect(match, first).not.toBeNull();
-    expect(digits(match?.[1] ?? '')).toBe(roughly(figure('deliveryLpd')));
-    expect(digits(match?.[2] ?? '')).toBe(roughly(figure('demandLpd')));
+    // One rounding per figure: the summary says the very numbers of the key figures.
+    const view = buildSheetView(source, 'metric');
+    const shown = (key: string) => view.figures.find((f) => f.key === key)?.value;
+    expect(`${match?.[1]} L/day`).toBe(shown('deliveryLpd'));
+    expect(`${match?.[2]} L/day`).toBe(shown('demandLpd'));
     expect(second).toMatch(/ram pump/);
   });
 
   it('speaks of gallons in US units', () => {
     const [first] = summarySentences(source, 'us');
-    expect(first).toMatch(/about [\d,]+ gallons a day/);
+    expect(first).toMatch(/deliver [\d,]+ gallons a day/);
     expect(first).not.toMatch(/litres/);
   });
 
@@ -120,5 +126,39 @@ describe('the new figures and outcomes on the sheet', () => {
     expect(view.summary[1]).toMatch(/no pump is needed/);
     expect(view.billOfMaterials.map((b) => b.item).join(' ')).not.toMatch(/ram/i);
     expect(view.figures.map((f) => f.key)).toContain('gravityHeadM');
+  });
+});
+
+describe('figures said plainly', () => {
+  it('a metric sheet leads with DN and kPa, explains Schedule 40, and shows no bare psi or inch size', () => {
+    expect(plainTrade('Galvanized steel, Schedule 40, class 150 fittings (300 psi)', 'metric')).toBe('Galvanized steel, Schedule 40 (standard-wall steel), class 150 fittings (2,070 kPa, 300 psi)');
+    expect(plainTrade('for 1¼″ (32 mm) drive pipe', 'metric')).toBe('for DN 32 (1¼″) drive pipe');
+    expect(plainTrade('PE SDR 17 (125 psi)', 'metric')).toBe('PE SDR 17 (862 kPa, 125 psi)');
+    const view = buildSheetView(source, 'metric');
+    const bill = view.billOfMaterials.map((b) => `${b.item} ${b.size} ${b.note}`).join('\n');
+    expect(bill).not.toMatch(/″ \(\d+ mm\)/);
+    for (const line of bill.split('\n').filter((l) => l.includes('psi'))) expect(line).toMatch(/kPa, \d+ psi/);
+  });
+
+  it('one rounding per figure: the pressures read the same in the key figures and in the cautions', () => {
+    const view = buildSheetView(source, 'metric');
+    const surge = view.cautions.find((c) => c.code === 'SURGE_PRESSURE')?.text ?? '';
+    for (const key of ['workingPeakHeadM', 'blockedDeliveryHeadM']) {
+      const shown = view.figures.find((f) => f.key === key)?.value ?? '?';
+      expect(surge, key).toContain(shown);
+    }
+  });
+
+  it('a US sheet gives inch sizes as sold, without decimal inches', () => {
+    const view = buildSheetView(source, 'us');
+    const text = [...view.billOfMaterials.map((b) => `${b.item} ${b.size} ${b.note}`), ...view.cautions.map((c) => c.text)].join('\n');
+    expect(text).not.toMatch(/″ \([\d.]+ (mm|in)\)/);
+  });
+
+  it('"How we worked this out" names sources in words, never by their ids', () => {
+    const view = buildSheetView(source, 'metric');
+    expect(view.sources.length).toBeGreaterThan(5);
+    for (const s of view.sources) expect(s.citation).not.toMatch(/^[a-z0-9]+(-[a-z0-9]+)+$/);
+    expect(new Set(view.sources.map((s) => s.citation)).size).toBe(view.sources.length);
   });
 });

@@ -51,6 +51,11 @@ export default async function SheetPage({ params }: { params: Promise<{ visitId:
           className="inline-flex min-h-12 items-center rounded-md border-2 border-slate px-4 font-bold text-slate no-underline">
           {paper === 'a4' ? 'US Letter' : 'A4'} PDF
         </a>
+        {canSend && (
+          <a href="#send-sheet" className="inline-flex min-h-12 items-center rounded-md border-2 border-slate px-4 font-bold text-slate no-underline">
+            Send this sheet
+          </a>
+        )}
       </nav>
       <SheetBody v={view} />
       <ResponsesList visitId={visitId} responses={responses} canAnswer={canAnswer} />

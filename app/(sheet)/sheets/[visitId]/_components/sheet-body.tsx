@@ -36,7 +36,7 @@ export function SheetBody({ v }: { v: SheetView }) {
           ))}
         </dl>
       </Section>
-      {v.profile && <Section title="The water path, from intake to tank"><ProfileDrawing g={v.profile} /></Section>}
+      {v.profile && <Section title="The water path, from intake to tank"><ProfileDrawing g={v.profile} narrow={v.profileNarrow} /></Section>}
       {v.map && <Section title="Where the points are"><SiteMapDrawing g={v.map} /></Section>}
       <Section title={v.verdict === 'no-go' ? 'Why not' : v.verdict === 'gravity' ? 'What to check' : 'Conditions for a go'}>
         {v.conditions.length === 0 && v.verdict !== 'no-go' && <p>No extra conditions: follow the cautions below.</p>}
@@ -69,10 +69,9 @@ export function SheetBody({ v }: { v: SheetView }) {
       <Section title="How we worked this out">
         <p>{v.surveyed}</p>
         <ul className="space-y-1 text-base">{v.method.map((m) => <li key={m}>{m}</li>)}</ul>
-        <details className="text-base" open>
-          <summary className="cursor-pointer">Screening engine version <span className="figure">{v.engineVersion}</span>; the sources behind the rules</summary>
-          <ul className="mt-2 space-y-1 text-stone">{v.sources.map((s) => <li key={s.id}><span className="figure">{s.id}</span>: {s.citation}</li>)}</ul>
-        </details>
+        <h3 className="font-bold">Where the numbers come from</h3>
+        <ul className="space-y-1 text-base text-stone">{v.sources.map((s) => <li key={s.id}>{s.citation}</li>)}</ul>
+        <p className="text-base text-stone">Screening engine version <span className="figure">{v.engineVersion}</span>.</p>
       </Section>
     </article>
   );

@@ -1,0 +1,101 @@
+import { describe, expect, it } from 'vitest';
+import { PDFParse } from 'pdf-parse';
+import { renderSheetPdf, type Paper } from '@/lib/server/sheets/pdf';
+import { buildSheetView, type SheetView } from '@/lib/shared/sheet/view-model';
+import { screenSite } from '@/lib/engine';
+import { siteReadingsSchema } from '@/lib/shared/schemas/site-readings';
+import { brandtLikeSource } from './fixture';
+
+async function pagesOf(view: SheetView, paper: Paper): Promise<string[]> {
+  const parser = new PDFParse({ data: new Uint8Array(await renderSheetPdf(view, paper)) });
+  try {
+    return (await parser.getText()).pages.map((p) => p.text.replace(/[ \t]+/g, ' '));
+  } finally {
+    await parser.destroy();
+  }
+}
+
+const HEADINGS = ['Key figures', 'The water path, from intake to tank', 'Where the points are', 'Conditions for a go', 'Bill of materials', 'Cautions', 'How we worked this out'];
+
+// What a page says after a heading, without the footer line (the last line on every page).
+function after(page: string, heading: string): string {
+  const lines = page.split('\n').map((l) => l.trim()).filter(Boolean);
+  const at = lines.findIndex((l) => l.startsWith(heading));
+  return lines.slice(at + 1, -1).join(' ');
+}
+
+describe('PDF layout on A4 and US Letter', () => {
+  for (const paper of ['a4', 'letter'] as const) {
+    for (const units of ['metric', 'us'] as const) {
+      it(`${paper}, ${units}: page 1 holds the verdict, the key figures and the drawing`, async () => {
+        const pages = await pagesOf(buildSheetView(brandtLikeSource(), units), paper);
+        expect(pages[0]).toContain('Go');
+        expect(pages[0]).toContain('Key figures');
+        expect(pages[0]).toContain('The water path, from intake to tank');
+        // Five pages at most: the bill lists the ram's own parts line by line, each with its basis.
+        expect(pages.length).toBeLessThanOrEqual(5);
+      });
+
+      it(`${paper}, ${units}: no heading ends a page; the bill's heading sits with its column headings and first row`, async () => {
+        const view = buildSheetView(brandtLikeSource(), units);
+        const pages = await pagesOf(view, paper);
+        for (const heading of HEADINGS) {
+          const page = pages.find((p) => p.split('\n').some((l) => l.trim().startsWith(heading)));
+          expect(page, heading).toBeDefined();
+          expect(after(page ?? '', heading).length, heading).toBeGreaterThan(20);
+        }
+        const bill = pages.find((p) => p.includes('Bill of materials')) ?? '';
+        expect(after(bill, 'Bill of materials')).toMatch(/^Item Size Quantity Note/);
+        expect(after(bill, 'Bill of materials')).toContain(view.billOfMaterials[0]?.item ?? '?');
+      });
+    }
+
+    it(`${paper}: says each figure plainly: sources in words, chance as a likelihood, no raw source ids`, async () => {
+      const view = buildSheetView(brandtLikeSource(), 'metric');
+      const text = (await pagesOf(view, paper)).join('\n').replace(/\s+/g, ' ');
+      expect(text).toContain('Where the numbers come from');
+      for (const s of view.sources) expect(text).not.toContain(s.id);
+      expect(text).not.toMatch(/over 99 %/);
+      expect(text).toMatch(/likely \(about \d+ in 100\)/i);
+      expect(text).toContain('a season drier than the one measured is not covered');
+    });
+
+    it(`${paper}: a bill running onto a new page repeats its column headings there`, async () => {
+      const view = buildSheetView(brandtLikeSource(), 'metric');
+      const line = view.billOfMaterials[0];
+      if (!line) throw new Error('the fixture has a bill');
+      view.billOfMaterials = Array.from({ length: 40 }, (_, i) => ({ ...line, item: `Part number ${i + 1}` }));
+      const pages = await pagesOf(view, paper);
+      const withRows = pages.filter((p) => /Part number \d+/.test(p));
+      expect(withRows.length).toBeGreaterThan(1);
+      for (const page of withRows) {
+        const lines = page.split('\n').map((l) => l.trim());
+        const head = lines.findIndex((l) => l.startsWith('Item Size Quantity Note'));
+        const firstRow = lines.findIndex((l) => /Part number \d+/.test(l));
+        expect(head).toBeGreaterThanOrEqual(0);
+        expect(head).toBeLessThan(firstRow);
+      }
+    });
+  }
+
+  it('a gravity sheet ("No pump needed") keeps every heading with what follows, on A4 and Letter', async () => {
+    const screening = screenSite(siteReadingsSchema.parse({
+      flowMeasurements: [{ method: 'volumetric', season: 'dry', trials: [{ volumeL: 20, seconds: 10 }] }],
+      fallRuns: [{ method: 'hose', steps: [{ upperReadingM: 0, lowerReadingM: 4 }] }],
+      lift: { kind: 'direct', staticLiftM: 1.5, method: 'level' },
+      deliveryPipe: { lengthM: 300, material: 'hdpe' },
+      demand: [{ kind: 'person-tap-on-plot', count: 4 }],
+      monteCarlo: { samples: 500, seed: 1 },
+    }));
+    const view = buildSheetView({ ...brandtLikeSource(), screening }, 'metric');
+    expect(view.verdict).toBe('gravity');
+    for (const paper of ['a4', 'letter'] as const) {
+      const pages = await pagesOf(view, paper);
+      expect(pages[0]).toContain('No pump needed');
+      for (const heading of ['Key figures', 'What to check', 'Bill of materials', 'Cautions', 'How we worked this out']) {
+        const page = pages.find((p) => p.split('\n').some((l) => l.trim().startsWith(heading))) ?? '';
+        expect(after(page, heading).length, `${paper}: ${heading}`).toBeGreaterThan(20);
+      }
+    }
+  });
+});
