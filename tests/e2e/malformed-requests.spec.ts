@@ -18,7 +18,7 @@ test('well-formed addresses still reach the app (a signed-out API call is a 401,
   expect(office.headers().location).toMatch(/\/login/);
 });
 
-test('TRACE and TRACK are a 405 naming the method, never a 500', async ({ baseURL }) => {
+test('TRACE is a 405 naming the method, and TRACK a 400 from Node\u2019s parser: never a 500', async ({ baseURL }) => {
   const http = await import('node:http');
   for (const method of ['TRACE', 'TRACK']) {
     const { status, body } = await new Promise<{ status: number; body: string }>((resolve, reject) => {
@@ -30,6 +30,11 @@ test('TRACE and TRACK are a 405 naming the method, never a 500', async ({ baseUR
       req.on('error', reject);
       req.end();
     });
+    if (method === 'TRACK') {
+      // Node's HTTP parser does not know TRACK and answers 400 before any handler runs.
+      expect(status, method).toBe(400);
+      continue;
+    }
     expect(status, method).toBe(405);
     expect(JSON.parse(body).error.message).toBe(`${method} is not allowed here.`);
   }
