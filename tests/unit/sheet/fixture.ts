@@ -33,3 +33,16 @@ export function brandtLikeSource(demand = [{ kind: 'beef-cow-nursing', count: 14
     demandKinds: demand.map((d) => d.kind),
   };
 }
+
+/** The same farm where the tank stands 2.5 m below the intake: a gravity supply ("No pump needed"). */
+export function gravitySource(): SheetSource {
+  const screening = screenSite(siteReadingsSchema.parse({
+    flowMeasurements: [{ method: 'volumetric', season: 'dry', trials: [{ volumeL: 20, seconds: 10 }] }],
+    fallRuns: [{ method: 'hose', steps: [{ upperReadingM: 0, lowerReadingM: 4 }] }],
+    lift: { kind: 'direct', staticLiftM: 1.5, method: 'level' },
+    deliveryPipe: { lengthM: 300, material: 'hdpe' },
+    demand: [{ kind: 'person-tap-on-plot', count: 4 }],
+    monteCarlo: { samples: 500, seed: 1 },
+  }));
+  return { ...brandtLikeSource(), screening };
+}

@@ -2,9 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { PDFParse } from 'pdf-parse';
 import { renderSheetPdf, type Paper } from '@/lib/server/sheets/pdf';
 import { buildSheetView, type SheetView } from '@/lib/shared/sheet/view-model';
-import { screenSite } from '@/lib/engine';
-import { siteReadingsSchema } from '@/lib/shared/schemas/site-readings';
-import { brandtLikeSource } from './fixture';
+import { brandtLikeSource, gravitySource } from './fixture';
 
 async function pagesOf(view: SheetView, paper: Paper): Promise<string[]> {
   const parser = new PDFParse({ data: new Uint8Array(await renderSheetPdf(view, paper)) });
@@ -79,15 +77,7 @@ describe('PDF layout on A4 and US Letter', () => {
   }
 
   it('a gravity sheet ("No pump needed") keeps every heading with what follows, on A4 and Letter', async () => {
-    const screening = screenSite(siteReadingsSchema.parse({
-      flowMeasurements: [{ method: 'volumetric', season: 'dry', trials: [{ volumeL: 20, seconds: 10 }] }],
-      fallRuns: [{ method: 'hose', steps: [{ upperReadingM: 0, lowerReadingM: 4 }] }],
-      lift: { kind: 'direct', staticLiftM: 1.5, method: 'level' },
-      deliveryPipe: { lengthM: 300, material: 'hdpe' },
-      demand: [{ kind: 'person-tap-on-plot', count: 4 }],
-      monteCarlo: { samples: 500, seed: 1 },
-    }));
-    const view = buildSheetView({ ...brandtLikeSource(), screening }, 'metric');
+    const view = buildSheetView(gravitySource(), 'metric');
     expect(view.verdict).toBe('gravity');
     for (const paper of ['a4', 'letter'] as const) {
       const pages = await pagesOf(view, paper);

@@ -2,9 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { buildSheetView, chance, needPhrase, summarySentences } from '@/lib/shared/sheet/view-model';
 import { dailyInWords, length, perDay, roughly } from '@/lib/shared/sheet/quantities';
 import { plainTrade } from '@/lib/shared/sheet/trade-words';
-import { screenSite } from '@/lib/engine';
-import { siteReadingsSchema } from '@/lib/shared/schemas/site-readings';
-import { brandtLikeSource } from './fixture';
+import { brandtLikeSource, gravitySource } from './fixture';
 
 const source = brandtLikeSource();
 const figure = (key: 'deliveryLpd' | 'demandLpd' | 'fallM') => source.screening.figures[key]?.value ?? NaN;
@@ -111,16 +109,7 @@ describe('the new figures and outcomes on the sheet', () => {
   });
 
   it('a gravity site reads "No pump needed", with no ram in its summary or bill', () => {
-    const gravity = brandtLikeSource();
-    const screened = screenSite(siteReadingsSchema.parse({
-      flowMeasurements: [{ method: 'volumetric', season: 'dry', trials: [{ volumeL: 20, seconds: 10 }] }],
-      fallRuns: [{ method: 'hose', steps: [{ upperReadingM: 0, lowerReadingM: 4 }] }],
-      lift: { kind: 'direct', staticLiftM: 1.5, method: 'level' },
-      deliveryPipe: { lengthM: 300, material: 'hdpe' },
-      demand: [{ kind: 'person-tap-on-plot', count: 4 }],
-      monteCarlo: { samples: 500, seed: 1 },
-    }));
-    const view = buildSheetView({ ...gravity, screening: screened }, 'metric');
+    const view = buildSheetView(gravitySource(), 'metric');
     expect(view.verdict).toBe('gravity');
     expect(view.verdictWord).toBe('No pump needed');
     expect(view.summary[1]).toMatch(/no pump is needed/);
