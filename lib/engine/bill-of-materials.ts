@@ -41,6 +41,11 @@ function gaugeRangeBar(headM: number): number {
   return GAUGE_RANGES_BAR.find((r) => r >= bar) ?? (GAUGE_RANGES_BAR[GAUGE_RANGES_BAR.length - 1] as number);
 }
 
+/** A gauge range in bar with its psi (1 bar = 14.5038 psi), as gauges are sold with both scales. */
+function gaugeLabel(bar: number): string {
+  return `0–${bar} bar (0–${Math.round((bar * 14.5038) / 10) * 10} psi)`;
+}
+
 function sizeLabel(nominalIn: number): string {
   return (NOMINAL_SIZES.find((s) => s.nominalIn === nominalIn) as NominalSize | undefined)?.label ?? `${nominalIn}″`;
 }
@@ -81,7 +86,7 @@ export function billOfMaterials(b: BomInput): BillOfMaterialsLine[] {
     n > 1
       ? { item: 'Non-return valve and isolating valve on the delivery at each ram', size: b.delivery.size.label, quantity: n, unit: 'each', note: 'So one ram can be stopped while the others run' }
       : { item: 'Valve on the delivery pipe at the ram', size: b.delivery.size.label, quantity: 1, unit: 'each', note: 'For stopping the delivery while the ram is serviced; never shut while the ram runs without a relief valve' },
-    { item: 'Pressure gauge on the ram', size: `0–${gaugeRangeBar(b.drive.blockedDeliveryHeadM)} bar`, quantity: n, unit: 'each', note: 'For setting up and commissioning; its range covers the blocked-delivery pressure with a margin' },
+    { item: 'Pressure gauge on the ram', size: gaugeLabel(gaugeRangeBar(b.drive.blockedDeliveryHeadM)), quantity: n, unit: 'each', note: 'For setting up and commissioning; its range covers the blocked-delivery pressure with a margin' },
     ...ramParts({ driveIn: b.ramDriveIn, driveBoreMm: b.drive.boreMm, deliveryBoreMm: b.delivery.boreMm, deliveryLpm: b.deliveryLpm, blockedDeliveryHeadM: b.drive.blockedDeliveryHeadM })
       .map((part) => ({ item: part.item, size: part.size, quantity: n, unit: 'each', note: part.note })),
     ...commonLines(b.tankL, b.tankRuleLabel),

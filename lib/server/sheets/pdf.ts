@@ -169,7 +169,7 @@ export async function renderSheetPdf(v: SheetView, paper: Paper): Promise<Buffer
     drawProfile(doc, v.profile, left, y, drawWidth);
     doc.x = left;
     doc.y = y + h + 4;
-    body(doc, [v.profile.exaggeration, 'Drive pipe solid, delivery pipe dashed.'].filter(Boolean).join('. '), { size: 9, colour: STONE });
+    body(doc, [v.profile.exaggeration, v.profile.legend].filter(Boolean).join('. '), { size: 9, colour: STONE });
   }
   if (v.map) {
     const mw = Math.min(300, width);

@@ -30,6 +30,8 @@ export interface ProfileGeometry {
   exaggeration: string;
   /** Accessible description of the drawing in words. */
   description: string;
+  /** How the two pipes are told apart in the drawing. */
+  legend: string;
 }
 
 /** A "nice" grid step (1, 2 or 5 × 10ⁿ) giving about `target` divisions of `span`. */
@@ -84,7 +86,8 @@ export function profileGeometry(p: ProfileInput, units: UnitSystem, width = 640,
   const description = p.gravity
     ? `Elevation profile: the intake is ${nodes[0]?.height}; the water runs down ${pipeLength(p.driveLengthM, units).text} of pipe to the low point, then ${pipeLength(p.deliveryLengthM, units).text} on to the tank, ${tank.height} and below the intake.`
     : `Elevation profile: the intake is ${nodes[0]?.height}; the water runs down the ${driveLabel.toLowerCase()} to the ram pump, then up the ${deliveryLabel.toLowerCase()} to the tank, ${tank.height}.`;
-  return { width, height, plot, nodes, pipes, xGrid, yGrid, exaggeration, description };
+  const legend = p.gravity ? 'Pipe to the low point solid, on to the tank dashed.' : 'Drive pipe solid, delivery pipe dashed.';
+  return { width, height, plot, nodes, pipes, xGrid, yGrid, exaggeration, description, legend };
 }
 
 /** A text's width estimated from its length (about 0.58 em a character, 0.62 em bold): enough to keep labels inside the frame. */

@@ -117,11 +117,12 @@ function keyFigures(s: SheetSource, units: UnitSystem): SheetFigure[] {
     if (key === 'ramCount' && v === 1) return;
     if (v !== null && v !== undefined) out.push({ key, label, value: show(v), note });
   };
-  add('fallM', 'Fall (intake to ram)', (v) => length(v, units).text, 'Drives the ram');
+  const gravity = s.screening.verdict === 'gravity';
+  add('fallM', gravity ? 'Fall (intake to the low point)' : 'Fall (intake to ram)', (v) => length(v, units).text, gravity ? 'Where the pipe runs lowest' : 'Drives the ram');
   add('designFlowLpm', 'Design flow', (v) => perMinute(v, units).text, 'Part of the driest flow measured');
   add('totalLiftM', 'Lift (ram to tank)', (v) => length(v, units).text, 'Height plus pipe friction');
   add('liftRatio', 'Lift ratio', (v) => `${v.toFixed(1)} to 1`, 'Lift ÷ fall');
-  add('deliveryLpd', 'Delivery per day', (v) => perDay(v, units).text, 'Ram running day and night');
+  add('deliveryLpd', 'Delivery per day', (v) => perDay(v, units).text, gravity ? 'What the pipe carries, up to what the stream spares' : 'Ram running day and night');
   add('demandLpd', 'Demand per day', (v) => perDay(v, units).text, 'What you told us you need');
   add('demandMarginLpd', 'Margin', (v) => (v >= 0 ? `${perDay(v, units).text} to spare` : `${perDay(-v, units).text} short`), 'Delivery minus demand');
   add('probabilityMeetsDemand', 'Chance of meeting demand', chance, 'Share of simulated runs that met demand, with the readings and the ram\u2019s efficiency varied as they vary in practice; a season drier than the one measured is not covered');

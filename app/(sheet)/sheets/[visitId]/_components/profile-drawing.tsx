@@ -19,7 +19,7 @@ export function ProfileDrawing({ g, narrow }: { g: ProfileGeometry; narrow: Prof
         <div dangerouslySetInnerHTML={{ __html: wide }} />
       )}
       <figcaption className="text-stone">
-        {[g.exaggeration, 'Drive pipe solid, delivery pipe dashed.'].filter(Boolean).join('. ')}
+        {[g.exaggeration, g.legend].filter(Boolean).join('. ')}
       </figcaption>
     </figure>
   );
