@@ -41,9 +41,9 @@ function gaugeRangeBar(headM: number): number {
   return GAUGE_RANGES_BAR.find((r) => r >= bar) ?? (GAUGE_RANGES_BAR[GAUGE_RANGES_BAR.length - 1] as number);
 }
 
-/** A gauge range in bar with its psi (1 bar = 14.5038 psi), as gauges are sold with both scales. */
+/** A gauge range as sold (most dials carry bar and psi scales side by side). */
 function gaugeLabel(bar: number): string {
-  return `0–${bar} bar (0–${Math.round((bar * 14.5038) / 10) * 10} psi)`;
+  return `0–${bar} bar`;
 }
 
 function sizeLabel(nominalIn: number): string {
