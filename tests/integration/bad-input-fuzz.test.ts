@@ -59,6 +59,7 @@ const SCHEMAS: Record<string, Schemas> = {
   'GET app/api/visits/[id]/sheet/route.ts': {},
   'GET app/api/visits/[id]/sheet/pdf/route.ts': { query: paperQuery },
   'POST app/api/visits/[id]/sheet/send/route.ts': { body: sendSheetBody },
+  'POST app/api/visits/[id]/sheet/send/preview/route.ts': { body: sendSheetBody },
   'GET app/api/visits/[id]/sheet/sends/route.ts': {},
   'POST app/api/visits/[id]/sheet/acknowledge/route.ts': {},
   'GET app/api/visits/[id]/sheet/questions/route.ts': {},
