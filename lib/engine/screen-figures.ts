@@ -173,7 +173,7 @@ export function buildGravityFigures(c: GravityFigureContext): Partial<Record<Fig
     ...surveyFigures(c, c.deliveryLpd),
     gravityHeadM: fig(g.headM, 'm', 'Intake level above the tank water level: fall − static lift', 'gravity-flow', { fallM: round(c.fall.valueM), staticLiftM: round(c.lift.valueM) }),
     gravityPipeLengthM: fig(g.lengthM, 'm', 'Drive route plus delivery route, as walked', 'common-practice', { deliveryLengthM: c.r.deliveryPipe.lengthM, driveLengthM: c.r.drivePipe.lengthM ?? null }),
-    gravityPipeBoreMm: fig(g.boreMm, 'mm', g.size ? `Smallest size whose friction at the need stays within 90 % of the head: ${g.size.label}, ${g.cls.label}` : 'No size carries the need within the head', 'hazen-williams-epanet', { headM: round(g.headM), lengthM: round(g.lengthM), needLpd: round(c.demandLpd * (1 + c.r.settings.demandMarginFraction)) }),
+    gravityPipeBoreMm: fig(g.boreMm, 'mm', g.size ? `Smallest size whose friction at the need stays within 90 % of the head: ${g.size.label}, ${g.cls.label}` : 'No size carries the need within the head', 'hazen-williams-epanet', { headM: round(g.headM), lengthM: round(g.lengthM), needLpd: round(c.demandLpd * (1 + c.r.settings.demandMarginFraction)), nominalIn: g.size?.nominalIn ?? null }),
     gravityCapacityLpd: fig(g.capacityLpd, 'L/day', 'What the pipe carries with the whole difference in level', 'hazen-williams-epanet', { headM: round(g.headM), boreMm: g.boreMm === null ? null : round(g.boreMm) }),
     deliveryLpd: fig(c.deliveryLpd, 'L/day', 'What the pipe carries, up to the water the stream can spare', 'gravity-flow', { capacityLpd: g.capacityLpd === null ? null : round(g.capacityLpd), availableLpd: round(c.fraction * c.lowestLpm * 1440) }),
   };

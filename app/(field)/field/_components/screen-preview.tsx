@@ -47,7 +47,10 @@ type Figures = ReturnType<typeof screenSite>['figures'];
 /** What the screen would build, in a line: the rams and their size, or the gravity pipe. */
 function arrangement(f: Figures): string {
   const label = (inches: number | null | undefined) => NOMINAL_SIZES.find((s) => s.nominalIn === inches)?.label ?? `${inches}″`;
-  if (f.gravityHeadM) return f.gravityPipeBoreMm?.value ? `No pump: a pipe of ${fmt(f.gravityPipeBoreMm.value, 'mm')} bore fills the tank by gravity.` : 'No pump: the tank sits below the intake.';
+  if (f.gravityHeadM) {
+    const size = f.gravityPipeBoreMm?.inputs.nominalIn;
+    return typeof size === 'number' ? `No pump: a ${label(size)} pipe fills the tank by gravity.` : 'No pump: the tank sits below the intake.';
+  }
   const count = f.ramCount?.value;
   if (!count || !f.ramSizeIn?.value) return 'No ram size fits these readings.';
   return `${count === 1 ? 'One ram' : `${count} rams side by side`} for ${label(f.ramSizeIn.value)} drive pipe, taking ${fmt(f.driveFlowLpm?.value ?? 0, 'L/min')}${count > 1 ? ' each' : ''}.`;
