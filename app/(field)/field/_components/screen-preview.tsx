@@ -6,15 +6,24 @@ import { screenSite } from '@/lib/engine';
 import { fmt } from '@/lib/engine/format';
 import { NOMINAL_SIZES } from '@/lib/engine/materials';
 import { localSiteReadings } from '@/lib/client/site-readings';
+import Link from 'next/link';
+import { showQuantity } from '@/lib/shared/quantities';
+import { readingIssues } from '@/lib/shared/reading-issues';
 import { siteReadingsSchema } from '@/lib/shared/schemas/site-readings';
+import { plainTrade } from '@/lib/shared/sheet/trade-words';
+import { toUsText } from '@/lib/shared/sheet/us-text';
+import { useUnits } from './use-field-data';
 
 /** The feasibility screen computed on the phone from what is captured so far. */
 export function ScreenPreview({ visitId }: { visitId: string }) {
+  const units = useUnits();
+  // The engine writes metric sentences; a US advisor reads them in US customary units, as on the sheet.
+  const say = (text: string) => (units === 'us' ? toUsText(plainTrade(text, units)) : plainTrade(text, units));
   const preview = useLiveQuery(async () => {
     const input = await localSiteReadings(visitId);
     if (!input) return null;
     const parsed = siteReadingsSchema.safeParse(input);
-    if (!parsed.success) return { kind: 'missing' as const, missing: [...new Set(parsed.error.issues.map((i) => i.message))].slice(0, 4) };
+    if (!parsed.success) return { kind: 'missing' as const, missing: readingIssues(parsed.error.issues) };
     return { kind: 'screened' as const, screening: screenSite(parsed.data) };
   }, [visitId]);
   if (!preview) return null;
@@ -24,17 +33,23 @@ export function ScreenPreview({ visitId }: { visitId: string }) {
       {preview.kind === 'missing' && (
         <div className="mt-2">
           <p>Still needed before the screen can run:</p>
-          <ul className="ml-5 list-disc">{preview.missing.map((m) => <li key={m}>{m}</li>)}</ul>
+          <ul className="ml-5 list-disc" data-testid="preview-missing">
+            {preview.missing.map((m) => (
+              <li key={`${m.record}|${m.message}`}>
+                <Link href={`/field/visit/${m.page}?id=${visitId}`} className="font-bold">{m.record}</Link>: {m.message}
+              </li>
+            ))}
+          </ul>
         </div>
       )}
       {preview.kind === 'screened' && (
         <div className="mt-2 space-y-2" data-testid="preview-verdict">
           <VerdictMark verdict={preview.screening.verdict} />
           <p className="figure">
-            Delivery {fmt(preview.screening.figures.deliveryLpd?.value ?? 0, 'L/day')} · demand {fmt(preview.screening.figures.demandLpd?.value ?? 0, 'L/day')}
+            Delivery {showQuantity(preview.screening.figures.deliveryLpd?.value ?? 0, 'litresPerDay', units)} · demand {showQuantity(preview.screening.figures.demandLpd?.value ?? 0, 'litresPerDay', units)}
           </p>
-          <p data-testid="preview-ram">{arrangement(preview.screening.figures)}</p>
-          <ul className="ml-5 list-disc">{preview.screening.reasons.slice(0, 3).map((r) => <li key={r.code}>{r.text}</li>)}</ul>
+          <p data-testid="preview-ram">{say(arrangement(preview.screening.figures))}</p>
+          <ul className="ml-5 list-disc">{preview.screening.reasons.slice(0, 3).map((r) => <li key={r.code}>{say(r.text)}</li>)}</ul>
           <p className="text-stone">A first check, not an engineering design. The server stores the official screening after sync.</p>
         </div>
       )}
