@@ -116,7 +116,8 @@ function judgeSurvey(f: Pick<RamVerdictFacts, 'fallM' | 'fallSigmaM' | 'fallRuns
 
 function judgeDemand(f: RamVerdictFacts, add: Add): void {
   const needLpd = f.demandLpd * (1 + f.marginFraction);
-  if (f.demandLpd <= 0) {
+  // Compared at the litre the sheet shows: a need that rounds to 0 L/day is no need recorded.
+  if (Math.round(f.demandLpd) <= 0) {
     add('DEMAND_MISSING', 'conditional', 'No water need was recorded, so the ram could only be sized as the smallest that runs.', 'Record what the farm needs (people, animals, garden) and screen again.');
     return;
   }
@@ -263,7 +264,8 @@ export function judgeGravity(f: GravityVerdictFacts): Judgement {
   if (f.pipeLabel === null) {
     add('GRAVITY_HEAD_TOO_SMALL', 'no-go', `Over ${fmt(f.pipeLengthM, 'm')} of pipe, friction takes more than the ${fmt(f.headM, 'm')} difference in level in every pipe size at the ${fmt(needLpd, 'L/day')} needed. Set the tank lower or find a shorter route.`);
   }
-  if (f.demandLpd <= 0) {
+  // Compared at the litre the sheet shows: a need that rounds to 0 L/day is no need recorded.
+  if (Math.round(f.demandLpd) <= 0) {
     add('DEMAND_MISSING', 'conditional', 'No water need was recorded, so the pipe could not be sized for it.', 'Record what the farm needs (people, animals, garden) and screen again.');
   } else if (f.availableLpm * 1440 < f.demandLpd) {
     add('DEMAND_NOT_MET', 'no-go', `The stream can spare ${fmt(f.availableLpm * 1440, 'L/day')} (${pct(f.designFraction)} of the lowest flow), less than the ${fmt(f.demandLpd, 'L/day')} needed.`);
