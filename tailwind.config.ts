@@ -1,6 +1,6 @@
 import type { Config } from 'tailwindcss';
 
-// Palette from LOOK.md; contrast measured on the paper ground.
+// Fallbook's palette; each text colour's contrast is measured on the paper ground (7:1 or more for sunlight).
 export default {
   content: ['./app/**/*.{ts,tsx}', './components/**/*.{ts,tsx}'],
   theme: {

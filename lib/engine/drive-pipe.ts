@@ -55,6 +55,9 @@ export const RAM_SIZE_TABLE: readonly RamSizeRow[] = [
   { driveIn: 12, deliveryIn: 5, minLpm: 375 * GPM, maxLpm: 700 * GPM, minFallM: 2 * FT },
 ];
 
+/** The least fall any size of the table works on, m. */
+export const LEAST_RAM_FALL_M = Math.min(...RAM_SIZE_TABLE.map((r) => r.minFallM));
+
 /** The table row for a ram's drive pipe size, inches, or null. */
 export function ramRowFor(driveIn: number): RamSizeRow | null {
   return RAM_SIZE_TABLE.find((r) => r.driveIn === driveIn) ?? null;

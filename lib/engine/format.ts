@@ -21,6 +21,11 @@ export function pct(fraction: number): string {
   return `${Math.round(fraction * 100)} %`;
 }
 
+/** A length rounded to the millimetre, so a threshold compares what the text shows. */
+export function roundMm(m: number): number {
+  return Math.round(m * 1000) / 1000;
+}
+
 /** A length to the millimetre, for texts that compare a reading with a threshold ("0.499 m"). */
 export function fmtMm(valueM: number): string {
   return `${(Math.round(valueM * 1000) / 1000).toFixed(3)} m`;

@@ -1,5 +1,6 @@
 // Sizing from demand: the fewest, smallest rams whose delivery meets the need within the water the stream can spare.
-import { RAM_SIZE_TABLE, ramRowFor, type DriveLengthRuleId, type RamSizeRow } from './drive-pipe';
+import { LEAST_RAM_FALL_M, RAM_SIZE_TABLE, ramRowFor, type DriveLengthRuleId, type RamSizeRow } from './drive-pipe';
+import { roundMm } from './format';
 import { boreMm, materialOrThrow, NOMINAL_SIZES, pressureClassOrThrow, sizeForBore, type NominalSize } from './materials';
 import { hazenWilliamsCoefficient } from './pipes';
 import { operatingPoint, type OperatingPoint } from './operating-point';
@@ -68,7 +69,7 @@ export function designOption(input: RamPlanInput, row: RamSizeRow, count: number
   const asked = Math.min(row.maxLpm, input.availableLpm / count);
   if (asked < row.minLpm) return 'flow';
   // Compared to the millimetre, like every fall threshold, so a unit round trip never flips it.
-  if (Math.round(input.fallM * 1000) < Math.round(row.minFallM * 1000)) return 'fall';
+  if (roundMm(input.fallM) < roundMm(row.minFallM)) return 'fall';
   const driveFor = (totalLiftM: number) => designDrivePipe({
     fallM: input.fallM, totalLiftM: Math.max(totalLiftM, 1e-3), driveLpm: asked, ram: row, pipe: input.drivePipe, ruleId: input.driveLengthRule,
   });
@@ -121,8 +122,7 @@ function searchPlan(input: RamPlanInput, allowSoft: boolean): RamPlan {
   }
   if (best) return { status: 'short', option: best, forced: false };
   // The most telling cause: a fall too small for every size, one too slow to lift, one that cannot push, else too little water.
-  const leastFall = Math.min(...RAM_SIZE_TABLE.map((r) => r.minFallM));
-  const cause: NoRamCause = Math.round(input.fallM * 1000) < Math.round(leastFall * 1000) ? 'fall' : causes.has('soft') ? 'soft' : causes.has('push') ? 'push' : 'flow';
+  const cause: NoRamCause = roundMm(input.fallM) < roundMm(LEAST_RAM_FALL_M) ? 'fall' : causes.has('soft') ? 'soft' : causes.has('push') ? 'push' : 'flow';
   return { status: 'no-ram', cause, forced: false };
 }
 

@@ -3,7 +3,7 @@ import { siteReadingsSchema, type SiteReadings, type SiteReadingsInput } from '@
 import { billOfMaterials, gravityBillOfMaterials } from './bill-of-materials';
 import { cautionsFor } from './cautions';
 import { demandBreakdown } from './demand';
-import { DRIVE_LD_BAND, driveLengthBandM, RAM_SIZE_TABLE } from './drive-pipe';
+import { DRIVE_LD_BAND, driveLengthBandM, LEAST_RAM_FALL_M, RAM_SIZE_TABLE } from './drive-pipe';
 import { EngineInputError } from './errors';
 import { designGravityPipe } from './gravity';
 import { runMonteCarlo } from './monte-carlo';
@@ -175,7 +175,7 @@ export function screenSite(input: SiteReadingsInput): Screening {
     ...sv.facts,
     availableLpm: fraction * sv.lowestLpm, designFraction: s.designFractionOfLowest,
     plan: plan.status === 'no-ram' ? plan : { status: plan.status, count: plan.option.count, sizeLabel: plan.option.drive.size.label, forced: plan.forced },
-    smallestRamMinLpm: smallest.minLpm, leastRamFallM: Math.min(...RAM_SIZE_TABLE.map((x) => x.minFallM)),
+    smallestRamMinLpm: smallest.minLpm, leastRamFallM: LEAST_RAM_FALL_M,
     staticLiftM: sv.lift.valueM, totalLiftM: option?.op.totalLiftM ?? sv.lift.valueM,
     liftRatio: option?.op.liftRatio ?? (drivingFallM > 0 ? sv.lift.valueM / drivingFallM : Infinity),
     efficiencyStatus: option ? (option.op.liftRatio > curve.maxRatio ? 'above-range' : option.op.liftRatio < curve.minRatio ? 'below-range' : 'in-range') : 'in-range',

@@ -1,5 +1,7 @@
 // Verdict rules: each threshold is a named constant with its source; reasons carry the numbers in plain words.
-import { fmt, fmtMm, pct } from './format';
+import { fmt, fmtMm, pct, roundMm } from './format';
+
+export { roundMm };
 import type { Condition, Reason, Verdict } from './screening-types';
 
 /** Least usable fall, m (Water for the World RWS.4.D.5; found). */
@@ -20,11 +22,6 @@ export const MAX_FALL_RELATIVE_SIGMA = 0.1;
 export const MIN_PROBABILITY_MEETS = 0.8;
 /** Delivery pipe rated for at least this many times the total lift (common practice, no source). */
 export const DELIVERY_SAFETY_FACTOR = 1.25;
-
-/** A length rounded to the millimetre, so a threshold compares what the text shows. */
-export function roundMm(m: number): number {
-  return Math.round(m * 1000) / 1000;
-}
 
 export interface DriveFacts {
   lengthM: number; lengthGiven: boolean; bandMinM: number; bandMaxM: number; bandRule: string;

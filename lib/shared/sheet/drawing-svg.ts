@@ -3,7 +3,8 @@
 import { LABEL_SIZE, NOTE_SIZE, nodeLabelAt, profileLabelAt, type ProfileGeometry } from './profile';
 import { MAP_LABEL_SIZE, type SiteMapGeometry } from './site-map';
 
-// The palette of LOOK.md; drawings must also read in greyscale (dash patterns, shapes, labels).
+// Fallbook's palette (each ink at least 7:1 on the paper ground); drawings must also read in greyscale
+// (dash patterns, shapes, labels), since sheets are often printed in black and white.
 export const DRAWING_COLOURS = { ink: '#15191C', stone: '#4F555A', creek: '#184F69', rule: '#C9C4B6' } as const;
 const C = DRAWING_COLOURS;
 
