@@ -13,6 +13,7 @@ import * as m0013 from './0013-office-area-indexes';
 import * as m0014 from './0014-sheet-conversations';
 import * as m0015 from './0015-invitation-withdrawal';
 import * as m0016 from './0016-ended-sessions';
+import * as m0017 from './0017-demand-confirmations';
 
 export interface MigrationModule {
   up(params: { context: QueryInterface }): Promise<void>;
@@ -35,4 +36,5 @@ export const MIGRATIONS: { name: string; module: MigrationModule }[] = [
   { name: '0014-sheet-conversations.ts', module: m0014 },
   { name: '0015-invitation-withdrawal.ts', module: m0015 },
   { name: '0016-ended-sessions.ts', module: m0016 },
+  { name: '0017-demand-confirmations.ts', module: m0017 },
 ];

@@ -11,6 +11,8 @@ export class DemandLine extends SyncedModel<DemandLine> {
   // Where the per-head figure comes from (catalogue source id, or "farmer's own figure").
   declare figureSource: string;
   declare note: string;
+  /** Unusual values the advisor confirmed ("is this right?"), or null. */
+  declare confirmed: string[] | null;
 
   static initModel(sequelize: Sequelize) {
     DemandLine.init(
@@ -22,6 +24,7 @@ export class DemandLine extends SyncedModel<DemandLine> {
         litresPerHeadPerDay: { type: DataTypes.DOUBLE, allowNull: false },
         figureSource: { type: DataTypes.STRING(160), allowNull: false, defaultValue: '' },
         note: { type: DataTypes.STRING(300), allowNull: false, defaultValue: '' },
+        confirmed: { type: DataTypes.JSON, allowNull: true },
         ...syncedColumns,
       },
       { sequelize, modelName: 'DemandLine', tableName: 'demand_lines', underscored: true },

@@ -1,7 +1,10 @@
 // Saving on the phone: each save writes the record and its outbox op in one transaction, so a
 // change is never on the phone without being queued for the server, nor queued without being kept.
 import type { Table } from 'dexie';
-import type { EntityFields, SyncEntity, SyncOp } from '@/lib/shared/schemas/sync';
+import type { UnitSystem } from '@/lib/shared/domain';
+import { messagesByPath, plainIssueMessage } from '@/lib/shared/field-messages';
+import { unusualIn, type Unusual } from '@/lib/shared/plausibility';
+import { recordSchemas, type EntityFields, type SyncEntity, type SyncOp } from '@/lib/shared/schemas/sync';
 import { fieldDb, TABLE_OF, type LocalRecord, type OutboxEntry, type PhotoBlob } from './db';
 import { newId } from './ids';
 
@@ -10,6 +13,32 @@ export class QuotaError extends Error {
     super('The phone is out of storage space for Fallbook. Free some space (old photos, other apps), then save again — nothing you saved before is lost.');
     this.name = 'QuotaError';
   }
+}
+
+/**
+ * A save the phone refuses, as the server would: `messages` by field path (plain words, the advisor's
+ * units), and unusual values still to be confirmed. Nothing was written.
+ */
+export class RecordRefused extends Error {
+  constructor(readonly messages: Record<string, string>, readonly unusual: Unusual[]) {
+    super(Object.values(messages)[0] ?? unusual[0]?.message ?? 'This record cannot be saved.');
+    this.name = 'RecordRefused';
+  }
+}
+
+const LOCAL_ONLY = new Set(['id', 'rev', 'deletedAt', 'updatedAt']);
+const VISIT_WRITABLE = ['notes', 'status', 'visitedAt'];
+const changesOnly = (fields: Record<string, unknown>) => Object.fromEntries(Object.entries(fields).filter(([k]) => VISIT_WRITABLE.includes(k)));
+
+/** Checks the whole record the save would leave (the phone's copy with these fields over it). */
+export function checkRecord<E extends SyncEntity>(entity: E, record: Record<string, unknown>, units: UnitSystem = 'metric'): RecordRefused | null {
+  const fields = Object.fromEntries(Object.entries(record).filter(([k]) => !LOCAL_ONLY.has(k)));
+  // A visit's life is the office's (its pulled state may be any); the phone writes only notes, walked-on and surveyed.
+  const schema = entity === 'visit' ? recordSchemas.visit.partial() : recordSchemas[entity];
+  const parsed = schema.safeParse(entity === 'visit' ? changesOnly(fields) : fields, { error: (issue) => plainIssueMessage(issue, units) });
+  if (!parsed.success) return new RecordRefused(messagesByPath(parsed.error.issues, units), []);
+  const open = unusualIn(entity, parsed.data as EntityFields<E>, units).filter((u) => !u.confirmed);
+  return open.length ? new RecordRefused({}, open) : null;
 }
 
 function isQuotaError(error: unknown): boolean {
@@ -31,7 +60,7 @@ type AnyRecord = LocalRecord<SyncEntity> & Record<string, unknown>;
  * changed, the values they had before (for the server's conflict check) and the base revision.
  * Returns the queued op, or null when nothing changed.
  */
-export async function saveRecord<E extends SyncEntity>(entity: E, id: string, fields: Partial<EntityFields<E>>): Promise<SyncOp | null> {
+export async function saveRecord<E extends SyncEntity>(entity: E, id: string, fields: Partial<EntityFields<E>>, units: UnitSystem = 'metric'): Promise<SyncOp | null> {
   const db = fieldDb();
   const table = db.table(TABLE_OF[entity]) as Table<AnyRecord, string>;
   try {
@@ -48,6 +77,9 @@ export async function saveRecord<E extends SyncEntity>(entity: E, id: string, fi
       }
       if (existing && Object.keys(changes).length === 0) return null;
       const record = { ...(existing ?? { id, rev: 0, deletedAt: null }), ...changes, updatedAt: now } as AnyRecord;
+      // The same rules the server applies: what it would refuse never enters the outbox.
+      const refused = checkRecord(entity, entity === 'visit' ? changes : record, units);
+      if (refused) throw refused;
       await table.put(record);
       const op = {
         opId: newId(), entity, entityId: id, action: 'put', madeAt: now,

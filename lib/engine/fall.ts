@@ -52,6 +52,16 @@ export function levelRun(rows: readonly LevelRow[]): LevelRunResult {
   };
 }
 
+/** Staff readings a level run takes for a known drop: set-ups of at most `perSetupM` each (a staff reads to 5 m). */
+export function levelRowsDropping(dropM: number, perSetupM = 5): LevelRow[] {
+  const n = Math.max(1, Math.ceil(Math.abs(dropM) / perSetupM));
+  const step = dropM / n;
+  return Array.from({ length: n + 1 }, (_, i) => ({
+    ...(i > 0 ? { foresightM: Math.max(step, 0) } : {}),
+    ...(i < n ? { backsightM: Math.max(-step, 0) } : {}),
+  }));
+}
+
 export interface ClinometerLeg {
   slopeDistanceM: number;
   /** Positive when sighting downhill; negative for a rising leg. */

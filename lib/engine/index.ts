@@ -7,7 +7,7 @@ export {
   type VolumetricTrial, type RectangularWeirReading, type FloatReading,
 } from './flow';
 export {
-  levelRun, clinometerFallM, hoseLevelFallM, allowedMisclosureMm, altitudeFallM, barometricFallM,
+  levelRun, levelRowsDropping, clinometerFallM, hoseLevelFallM, allowedMisclosureMm, altitudeFallM, barometricFallM,
   MISCLOSURE_MM_PER_ROOT_KM,
   type LevelRow, type LevelRunResult, type ClinometerLeg, type HoseLevelStep, type LevellingOrder,
 } from './fall';

@@ -1,6 +1,7 @@
 // One (intake, pump site) pair of a surveyed creek profile: the pruning rules, the readings it would
 // be screened with, and a fast estimate that runs the same sums as screenSite with fewer draws.
 import { flowMeasurementSchema, settingsSchema, type ScreenSettings, type SiteReadingsInput } from '@/lib/shared/schemas/site-readings';
+import { levelRowsDropping } from './fall';
 import { DRIVE_LD_BAND, driveLengthBandM } from './drive-pipe';
 import { demandBreakdown } from './demand';
 import { runMonteCarlo } from './monte-carlo';
@@ -83,7 +84,7 @@ export interface SearchContext {
   ctxCurve: OperatingContext['curve'];
   demandLpd: number;
   flowAt: (station: ProfileStation) => { lowestLpm: number; relativeSigma: number; measurements: SiteReadingsInput['flowMeasurements'] } | null;
-  fallSigmaM: number;
+  fallSigmaFor: (fallM: number) => number;
   liftSigmaFor: (liftM: number) => number;
 }
 
@@ -112,10 +113,10 @@ export function prepareSearch(input: BestPositionsInput): SearchContext {
     return flow;
   };
   const demandLpd = demandBreakdown(input.demand.map((d) => ({ ...d })), settings.demandOverrides).reduce((s, l) => s + l.dailyL, 0);
-  // A single levelled set-up between intake and ram, as the synthesized readings below carry.
-  const fallSigmaM = combineRuns([{ method: 'level', rows: [{ backsightM: 0 }, { foresightM: 1 }] }]).sigmaM;
+  // As many levelled set-ups between intake and ram as the synthesized readings below carry.
+  const fallSigmaFor = (fallM: number) => combineRuns([{ method: 'level', rows: levelRowsDropping(fallM) }]).sigmaM;
   const liftSigmaFor = (liftM: number) => estimateLift({ kind: 'direct', staticLiftM: liftM, method: 'level', uncertaintyM: input.liftUncertaintyM }).sigmaM;
-  return { input, settings, ctxCurve: EFFICIENCY_CURVES[settings.efficiencyCurve], demandLpd, flowAt, fallSigmaM, liftSigmaFor };
+  return { input, settings, ctxCurve: EFFICIENCY_CURVES[settings.efficiencyCurve], demandLpd, flowAt, fallSigmaFor, liftSigmaFor };
 }
 
 // Math.hypot is several times slower than the plain sum of squares, and these run for every pair of a reach.
@@ -198,12 +199,12 @@ export function checkPair(s: SearchContext, intake: ProfileStation, pump: Profil
   return { code: null, plan, drivingFallM: fallM };
 }
 
-/** The raw readings screenSite gets for a pair: the profile's fall as one levelled set-up, the lift as levelled. */
+/** The raw readings screenSite gets for a pair: the profile's fall as levelled set-ups, the lift as levelled. */
 export function pairReadings(s: SearchContext, intake: ProfileStation, g: PairGeometry, samples: number): SiteReadingsInput {
   const flow = s.flowAt(intake);
   return {
     flowMeasurements: flow?.measurements ?? [],
-    fallRuns: [{ method: 'level', rows: [{ backsightM: 0 }, { foresightM: g.fallM }] }],
+    fallRuns: [{ method: 'level', rows: levelRowsDropping(g.fallM) }],
     lift: { kind: 'direct', staticLiftM: g.staticLiftM, method: 'level', ...(s.input.liftUncertaintyM ? { uncertaintyM: s.input.liftUncertaintyM } : {}) },
     drivePipe: { lengthM: g.driveLengthM, material: (s.input.drivePipeMaterial ?? 'galvanized-steel') as 'galvanized-steel' },
     ...(g.standPipe ? { feedPipe: { lengthM: g.feedLengthM, material: 'hdpe' as const } } : {}),
@@ -244,7 +245,7 @@ export function quickKey(s: SearchContext, intake: ProfileStation, g: PairGeomet
   const flow = s.flowAt(intake);
   const o = plan.option;
   const mc = runMonteCarlo({
-    ctx: { curve: s.ctxCurve, deliveryFrictionK: o.delivery.frictionK }, fallM: drivingFallM, fallSigmaM: s.fallSigmaM,
+    ctx: { curve: s.ctxCurve, deliveryFrictionK: o.delivery.frictionK }, fallM: drivingFallM, fallSigmaM: s.fallSigmaFor(drivingFallM),
     staticLiftM: g.staticLiftM, staticLiftSigmaM: s.liftSigmaFor(g.staticLiftM), lowestFlowLpm: flow?.lowestLpm ?? 0,
     lowestFlowRelativeSigma: flow?.relativeSigma ?? 0, designFraction: s.settings.designFractionOfLowest,
     ramMaxLpm: o.drive.driveLpm, ramMinLpm: o.row.minLpm, ramCount: o.count, demandLpd: s.demandLpd, samples, seed: s.input.seed ?? 1,

@@ -24,6 +24,23 @@ const FIELDS: Record<string, { label: string; quantity?: Quantity }> = {
   driveLpm: { label: 'Drive flow (L/min)' }, deliveredLpm: { label: 'Delivered flow (L/min)' }, beatsPerMinute: { label: 'Beats per minute' },
   liftM: { label: 'Measured lift', quantity: 'length' }, fallM: { label: 'Fall', quantity: 'length' }, drivePipeMaterial: { label: 'Drive pipe material' },
   material: { label: 'Material' }, pressureClass: { label: 'Pressure class' }, deletedAt: { label: 'Deleted on the server' },
+  // Readings inside a flow measurement or a fall run (the keys the shared schemas use).
+  volumeL: { label: 'Bucket volume', quantity: 'volume' }, seconds: { label: 'Seconds', quantity: 'time' },
+  headM: { label: 'Head over the notch', quantity: 'length' }, crestWidthM: { label: 'Crest width', quantity: 'length' },
+  distanceM: { label: 'Float run length', quantity: 'length' }, areaM2: { label: 'Cross-section area', quantity: 'area' },
+  notchAngleDeg: { label: 'Notch angle', quantity: 'angle' }, coefficient: { label: 'Float coefficient' }, trials: { label: 'Trials' },
+  backsightM: { label: 'Backsight', quantity: 'length' }, foresightM: { label: 'Foresight', quantity: 'length' },
+  rows: { label: 'Stations' }, returnRows: { label: 'Return stations' }, routeLengthM: { label: 'Route length', quantity: 'length' },
+  upperReadingM: { label: 'Reading at the upper end', quantity: 'length' }, lowerReadingM: { label: 'Reading at the lower end', quantity: 'length' },
+  steps: { label: 'Hose steps' }, legs: { label: 'Clinometer legs' },
+  slopeDistanceM: { label: 'Slope distance', quantity: 'length' }, angleBelowHorizontalDeg: { label: 'Angle', quantity: 'angle' },
+  startAltitudeM: { label: 'Altitude at the start', quantity: 'length' }, endAltitudeM: { label: 'Altitude at the end', quantity: 'length' },
+  horizontalAccuracyM: { label: 'Horizontal accuracy', quantity: 'length' }, verticalAccuracyM: { label: 'Vertical accuracy', quantity: 'length' },
+  startPressureHPa: { label: 'Pressure at the start', quantity: 'pressureHPa' }, endPressureHPa: { label: 'Pressure at the end', quantity: 'pressureHPa' },
+  airTemperatureC: { label: 'Air temperature' },
+  staticLiftM: { label: 'Height of the tank above the pump', quantity: 'length' }, uncertaintyM: { label: 'Uncertainty', quantity: 'length' },
+  liftMethod: { label: 'How the lift was found' }, method: { label: 'Method' }, season: { label: 'Season' },
+  width: { label: 'Photo width' }, height: { label: 'Photo height' }, bytes: { label: 'Photo size' }, mime: { label: 'Photo type' },
 };
 
 /** "a pipe run (delivery)", "a water source (Hafod spring)": which record the conflict is about. */
@@ -35,6 +52,11 @@ export function describeRecord(entity: SyncEntity, record: Record<string, unknow
 /** The form's label of a field (the field's key when unknown). */
 export function fieldLabel(field: string): string {
   return FIELDS[field]?.label ?? field;
+}
+
+/** A field's label and quantity, when the vocabulary knows it. */
+export function fieldWords(field: string): { label: string; quantity?: Quantity } | undefined {
+  return Object.hasOwn(FIELDS, field) ? FIELDS[field] : undefined;
 }
 
 /** A field's value as the advisor reads it: in their units with the unit, or plain text. */

@@ -1,6 +1,7 @@
 // What the screen still needs, in the advisor's words: each problem the shared readings schema finds
 // becomes the record it belongs to, the page where it is fixed, and the schema's own plain message.
 // Schema paths and codes never reach the screen.
+import { isSchemaText } from './field-messages';
 
 export interface ReadingIssue {
   /** The record, in words: "Flow measurement 2", "Delivery pipe". */
@@ -29,7 +30,8 @@ function whereOf(path: Path): Omit<ReadingIssue, 'message'> {
 
 /** A message a person can act on: the schema's own sentence, or a plain one where zod's default would show. */
 function plain(path: Path, message: string): string {
-  if (!/^Invalid input|expected .*, received/.test(message)) return message;
+  const wholeRecordMissing = path.length === 1 && / is needed\.?$/.test(message);
+  if (!isSchemaText(message) && !wholeRecordMissing) return message;
   if (path[0] === 'deliveryPipe') return 'Measure the delivery pipe from the ram to the tank.';
   if (path[0] === 'lift') return 'Book the lift from the ram to the tank water level.';
   return 'This reading is missing or incomplete.';

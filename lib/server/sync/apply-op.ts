@@ -2,7 +2,7 @@ import 'server-only';
 import { buildRow } from '@/lib/server/db';
 import { VISIT_STATUSES, type VisitStatus } from '@/lib/shared/domain';
 import { isClassOf } from '@/lib/shared/reading-limits';
-import { entityFields, type OpResult, type SyncOp } from '@/lib/shared/schemas/sync';
+import { entityFields, recordSchemas, type OpResult, type SyncOp } from '@/lib/shared/schemas/sync';
 import { canMove, moveRefusal } from '@/lib/shared/visit-states';
 import type { AuditInput } from '../audit';
 import { SYNC_OP_PERMISSIONS } from '../auth/permissions';
@@ -31,6 +31,18 @@ function pipeClassRefusal(op: SyncOp, fields: Json): OpResult | null {
   if (isClassOf(String(fields.material), String(fields.pressureClass))) return null;
   return rejected(op, 422, 'That pressure class is not one of this pipe material’s. Choose a class from the list.',
     { 'changes.pressureClass': ['Not a class of this material.'] });
+}
+
+/**
+ * The whole record (after a create, or an update merged onto the server's copy) must pass the rules
+ * across its fields, as the phone's save does: an uphill "fall" or a 5,000 m lift is refused here too.
+ */
+function recordRefusal(op: SyncOp, fields: Json): OpResult | null {
+  if (op.entity === 'visit' || op.entity === 'commissioning') return null;
+  const parsed = recordSchemas[op.entity].safeParse(fields);
+  if (parsed.success) return null;
+  const fieldErrors = Object.fromEntries(Object.entries(zodFieldErrors(parsed.error)).map(([k, v]) => [`changes.${k}`, v]));
+  return rejected(op, 422, parsed.error.issues[0]?.message ?? 'This record cannot be stored.', fieldErrors);
 }
 
 const statusRank = (status: unknown) => VISIT_STATUSES.indexOf(status as (typeof VISIT_STATUSES)[number]);
@@ -122,7 +134,7 @@ export async function planOp(op: SyncOp, access: SyncAccess, rows: Map<string, R
       const fieldErrors = Object.fromEntries(Object.entries(zodFieldErrors(parsed.error)).map(([k, v]) => [`changes.${k}`, v]));
       return done(rejected(op, 422, `A new ${op.entity} must carry every field.`, fieldErrors));
     }
-    const refusal = pipeClassRefusal(op, parsed.data as Json);
+    const refusal = pipeClassRefusal(op, parsed.data as Json) ?? recordRefusal(op, parsed.data as Json);
     if (refusal) return done(refusal);
     const now = new Date();
     const built = buildRow(spec.model, { id: op.entityId, ...spec.toRow(parsed.data as Json), createdById: access.user.id, createdAt: now, updatedAt: now });
@@ -172,7 +184,7 @@ export async function planOp(op: SyncOp, access: SyncAccess, rows: Map<string, R
     return done(rejected(op, 422, 'This photo is already uploaded; its bytes cannot change. Add it as a new photo.',
       { 'changes.sha256': ['Cannot change after upload.'] }));
   }
-  const classRefusal = pipeClassRefusal(op, merged);
+  const classRefusal = pipeClassRefusal(op, merged) ?? recordRefusal(op, merged);
   if (classRefusal) return done(classRefusal);
   const next = spec.toRow(merged);
   const differing = Object.keys(next).filter((k) => !sameValue(asIso(row.get(k)), asIso(next[k])));

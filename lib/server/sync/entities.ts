@@ -108,7 +108,7 @@ export const ENTITY_SPECS: Record<SyncEntity, EntitySpec> = {
     ['visitId', 'role', 'label', 'lat', 'lon', 'accuracyM', 'altitudeM', 'altitudeAccuracyM', 'chainageM', 'capturedAt', 'reducedLevelM', 'flags'], ['capturedAt']),
   photo: plain(Photo, 'visitId',
     ['visitId', 'pointId', 'caption', 'mime', 'bytes', 'sha256', 'width', 'height', 'lat', 'lon', 'takenAt'], ['takenAt']),
-  demandLine: plain(DemandLine, 'farmId', ['farmId', 'kind', 'count', 'litresPerHeadPerDay', 'figureSource', 'note']),
+  demandLine: plain(DemandLine, 'farmId', ['farmId', 'kind', 'count', 'litresPerHeadPerDay', 'figureSource', 'note', 'confirmed']),
   pipeRun: plain(PipeRun, 'visitId', ['visitId', 'purpose', 'lengthM', 'diameterMm', 'material', 'pressureClass']),
   // Push-only and create-only: applied by applyCommissioningOp, never pulled.
   commissioning: plain(Commissioning, 'visitId', ['visitId', 'driveLpm', 'deliveredLpm', 'beatsPerMinute', 'liftM', 'fallM', 'drivePipeMaterial', 'notes']),

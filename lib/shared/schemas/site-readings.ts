@@ -6,16 +6,21 @@ import { MAX_RAMS } from '@/lib/engine/ram-plan';
 import { PIPE_MATERIALS, type PipeMaterialId } from '@/lib/engine/materials';
 import { EFFICIENCY_CURVES, type EfficiencyCurveId } from '@/lib/engine/ram';
 import { TANK_RULES, type TankRuleId } from '@/lib/engine/tank';
+import { estimateRun } from '@/lib/engine/readings';
 import {
-  isClassOf, MAX_DEMAND_LINES, MAX_FALL_RUNS, MAX_FLOW_MEASUREMENTS, MAX_LEVEL_STATIONS, MAX_LIFT_RUNS, MAX_RUN_STEPS, MAX_TRIALS,
+  isClassOf, MAX_BUCKET_L, MAX_DEMAND_COUNT, MAX_DEMAND_LINES, MAX_FALL_M, MAX_FALL_RUNS, MAX_FLOW_MEASUREMENTS, MAX_LEG_M,
+  MAX_LEVEL_STATIONS, MAX_LIFT_M, MAX_LIFT_RUNS, MAX_LITRES_PER_HEAD, MAX_NOTCH_HEAD_M, MAX_PIPE_BORE_MM, MAX_PIPE_LENGTH_M,
+  MAX_RUN_STEPS, MAX_SECTION_M2, MAX_STAFF_READING_M, MAX_TRIAL_SECONDS, MAX_TRIALS, MAX_WEIR_CREST_M, MAX_WEIR_HEAD_M,
 } from '../reading-limits';
 
 function keysOf<K extends string>(record: Readonly<Record<K, unknown>>): [K, ...K[]] {
   return Object.keys(record) as [K, ...K[]];
 }
 
+// The label's own words for a missing or non-numeric value; limits fall through to the shared mapping,
+// which words them with the field's label in the reader's units.
 const num = (label: string) =>
-  z.number({ error: (issue) => (issue.input === undefined ? `${label} is needed` : `${label} must be a number`) });
+  z.number({ error: (issue) => (issue.code !== 'invalid_type' ? undefined : issue.input === undefined ? `${label} is needed` : `${label} must be a number`) });
 const positive = (label: string) => num(label).positive(`${label} must be more than 0`);
 const nonNegative = (label: string) => num(label).nonnegative(`${label} must not be negative`);
 const between = (label: string, min: number, max: number) =>
@@ -25,28 +30,32 @@ const oneOf = <K extends string>(label: string, values: [K, ...K[]]) =>
 
 const TOO_MANY_TRIALS = `At most ${MAX_TRIALS} trials in one measurement`;
 
+/** Unusual values the advisor confirmed on the phone ("is this right?"), kept with the record. */
+export const confirmedSchema = z.array(z.string().max(40)).max(20).optional();
+
 // ---- Flow --------------------------------------------------------------------------------------
 const flowCommon = {
   id: z.string().optional(),
   season: oneOf('Season', ['dry', 'wet', 'unknown']),
   takenAt: z.string().optional(),
+  confirmed: confirmedSchema,
 };
 
 const volumetricMeasurement = z.object({
   ...flowCommon,
   method: z.literal('volumetric'),
-  trials: z.array(z.object({ volumeL: positive('Volume'), seconds: positive('Seconds') })).min(1, 'Add at least one trial').max(MAX_TRIALS, TOO_MANY_TRIALS),
+  trials: z.array(z.object({ volumeL: positive('Bucket volume').max(MAX_BUCKET_L), seconds: positive('Seconds').max(MAX_TRIAL_SECONDS) })).min(1, 'Add at least one trial').max(MAX_TRIALS, TOO_MANY_TRIALS),
 });
 
 const vNotchMeasurement = z.object({
   ...flowCommon,
   method: z.literal('v-notch'),
   notchAngleDeg: between('Notch angle', 25, 100).default(90),
-  trials: z.array(z.object({ headM: positive('Head on the notch') })).min(1, 'Add at least one trial').max(MAX_TRIALS, TOO_MANY_TRIALS),
+  trials: z.array(z.object({ headM: positive('Head over the notch').max(MAX_NOTCH_HEAD_M) })).min(1, 'Add at least one trial').max(MAX_TRIALS, TOO_MANY_TRIALS),
 });
 
 const weirTrial = z
-  .object({ crestWidthM: positive('Crest width'), headM: positive('Head on the weir') })
+  .object({ crestWidthM: positive('Crest width').max(MAX_WEIR_CREST_M), headM: positive('Head over the weir').max(MAX_WEIR_HEAD_M) })
   .refine((t) => t.crestWidthM > 0.2 * t.headM, { message: 'Crest width must be more than a fifth of the head', path: ['crestWidthM'] });
 
 const weirMeasurement = z.object({
@@ -58,9 +67,9 @@ const weirMeasurement = z.object({
 const floatMeasurement = z.object({
   ...flowCommon,
   method: z.literal('float'),
-  areaM2: positive('Cross-section area'),
+  areaM2: positive('Cross-section area').max(MAX_SECTION_M2),
   coefficient: between('Float coefficient', 0.5, 1).default(0.85),
-  trials: z.array(z.object({ distanceM: positive('Float distance'), seconds: positive('Seconds') })).min(1, 'Add at least one trial').max(MAX_TRIALS, TOO_MANY_TRIALS),
+  trials: z.array(z.object({ distanceM: positive('Float run length').max(MAX_LEG_M), seconds: positive('Seconds').max(MAX_TRIAL_SECONDS) })).min(1, 'Add at least one trial').max(MAX_TRIALS, TOO_MANY_TRIALS),
 });
 
 export const flowMeasurementSchema = z.discriminatedUnion(
@@ -70,7 +79,8 @@ export const flowMeasurementSchema = z.discriminatedUnion(
 );
 
 // ---- Fall and lift runs ------------------------------------------------------------------------
-const levelRow = z.object({ backsightM: nonNegative('Backsight').optional(), foresightM: nonNegative('Foresight').optional() });
+const staffReading = (label: string) => nonNegative(label).max(MAX_STAFF_READING_M);
+const levelRow = z.object({ backsightM: staffReading('Backsight').optional(), foresightM: staffReading('Foresight').optional() });
 
 function checkBooking(rows: readonly z.infer<typeof levelRow>[], key: string, ctx: z.RefinementCtx): void {
   const last = rows.length - 1;
@@ -92,7 +102,8 @@ const levelRun = z
     rows: z.array(levelRow).min(2, 'A level run needs at least two stations').max(MAX_LEVEL_STATIONS, `At most ${MAX_LEVEL_STATIONS} stations in one run`),
     /** Optional return run from the last station back to the first, for the misclosure check. */
     returnRows: z.array(levelRow).min(2, 'A return run needs at least two stations').max(MAX_LEVEL_STATIONS, `At most ${MAX_LEVEL_STATIONS} stations in one run`).optional(),
-    routeLengthM: positive('Route length').optional(),
+    routeLengthM: positive('Route length').max(MAX_PIPE_LENGTH_M).optional(),
+    confirmed: confirmedSchema,
   })
   .superRefine((run, ctx) => {
     checkBooking(run.rows, 'rows', ctx);
@@ -101,27 +112,31 @@ const levelRun = z
 
 const hoseRun = z.object({
   method: z.literal('hose'),
-  steps: z.array(z.object({ upperReadingM: nonNegative('Upper reading'), lowerReadingM: nonNegative('Lower reading') })).min(1, 'Add at least one hose step').max(MAX_RUN_STEPS, `At most ${MAX_RUN_STEPS} steps in one run`),
+  confirmed: confirmedSchema,
+  steps: z.array(z.object({ upperReadingM: staffReading('Reading at the upper end'), lowerReadingM: staffReading('Reading at the lower end') })).min(1, 'Add at least one hose step').max(MAX_RUN_STEPS, `At most ${MAX_RUN_STEPS} steps in one run`),
 });
 
 const clinometerRun = z.object({
   method: z.literal('clinometer'),
+  confirmed: confirmedSchema,
   legs: z
-    .array(z.object({ slopeDistanceM: positive('Slope distance'), angleBelowHorizontalDeg: between('Angle', -89, 89) }))
+    .array(z.object({ slopeDistanceM: positive('Slope distance').max(MAX_LEG_M), angleBelowHorizontalDeg: between('Angle', -89, 89) }))
     .min(1, 'Add at least one leg')
     .max(MAX_RUN_STEPS, `At most ${MAX_RUN_STEPS} legs in one run`),
 });
 
 const gpsRun = z.object({
   method: z.literal('gps'),
-  startAltitudeM: num('Start altitude'),
-  endAltitudeM: num('End altitude'),
-  horizontalAccuracyM: positive('Horizontal accuracy'),
-  verticalAccuracyM: positive('Vertical accuracy').optional(),
+  confirmed: confirmedSchema,
+  startAltitudeM: between('Altitude at the start', -500, 9000),
+  endAltitudeM: between('Altitude at the end', -500, 9000),
+  horizontalAccuracyM: positive('Horizontal accuracy').max(1000),
+  verticalAccuracyM: positive('Vertical accuracy').max(1000).optional(),
 });
 
 const barometricRun = z.object({
   method: z.literal('barometric'),
+  confirmed: confirmedSchema,
   startPressureHPa: between('Start pressure', 300, 1100),
   endPressureHPa: between('End pressure', 300, 1100),
   airTemperatureC: between('Air temperature', -40, 60).default(15),
@@ -131,6 +146,29 @@ const barometricRun = z.object({
 export const fallRunSchema = z.discriminatedUnion('method', [levelRun, hoseRun, clinometerRun, gpsRun, barometricRun], {
   error: 'Fall method must be level, hose, clinometer, gps or barometric',
 });
+
+/** The height a run gives, positive downhill (null while its booking is incomplete). */
+export function runDropM(run: FallRun): number | null {
+  try {
+    const drop = estimateRun(run, 0).dropM;
+    return Number.isFinite(drop) ? drop : null;
+  } catch {
+    return null;
+  }
+}
+
+/**
+ * A fall must go down from the intake to the ram, a lift up from the ram to the tank, both within what a
+ * ram can use. The issue carries the height in SI (`params`), so each reader sees it in their units.
+ */
+export function checkRunHeight(run: FallRun, purpose: 'fall' | 'lift', bookedFrom: 'pump' | 'tank' | null, ctx: z.RefinementCtx, path: PropertyKey[]): void {
+  const drop = runDropM(run);
+  if (drop === null) return;
+  const heightM = purpose === 'fall' || bookedFrom === 'tank' ? drop : -drop;
+  const maxM = purpose === 'fall' ? MAX_FALL_M : MAX_LIFT_M;
+  if (heightM <= 0) ctx.addIssue({ code: 'custom', path, params: { kind: purpose === 'fall' ? 'uphill-fall' : 'downhill-lift', heightM: -heightM } });
+  else if (heightM > maxM) ctx.addIssue({ code: 'custom', path, params: { kind: purpose === 'fall' ? 'fall-too-high' : 'lift-too-high', heightM, maxM } });
+}
 
 export const LIFT_DIRECT_METHODS = ['level', 'hose', 'clinometer', 'gps', 'barometric', 'map'] as const;
 
@@ -145,9 +183,10 @@ export const liftSchema = z.discriminatedUnion(
     }),
     z.object({
       kind: z.literal('direct'),
-      staticLiftM: positive('Static lift'),
+      staticLiftM: positive('Height of the tank above the pump').max(MAX_LIFT_M),
       method: oneOf('Lift method', [...LIFT_DIRECT_METHODS]),
       uncertaintyM: positive('Lift uncertainty').optional(),
+      confirmed: confirmedSchema,
     }),
   ],
   { error: 'Lift must be given as runs or as a direct value' },
@@ -157,8 +196,8 @@ export const liftSchema = z.discriminatedUnion(
 const materialIds = keysOf<PipeMaterialId>(PIPE_MATERIALS);
 
 const drivePipe = z.object({
-  lengthM: positive('Drive pipe length').optional(),
-  diameterMm: positive('Drive pipe diameter').optional(),
+  lengthM: positive('Drive pipe length').max(MAX_PIPE_LENGTH_M).optional(),
+  diameterMm: positive('Drive pipe diameter').max(MAX_PIPE_BORE_MM).optional(),
   material: oneOf('Drive pipe material', materialIds).default('galvanized-steel'),
   pressureClass: z.string().optional(),
 }).refine((p) => p.pressureClass === undefined || isClassOf(p.material, p.pressureClass), {
@@ -167,14 +206,14 @@ const drivePipe = z.object({
 
 /** A feed pipe from the intake to an open stand pipe, where the drive pipe starts (gentle creeks). */
 const feedPipe = z.object({
-  lengthM: positive('Feed pipe length'),
-  diameterMm: positive('Feed pipe diameter').optional(),
+  lengthM: positive('Feed pipe length').max(MAX_PIPE_LENGTH_M),
+  diameterMm: positive('Feed pipe diameter').max(MAX_PIPE_BORE_MM).optional(),
   material: oneOf('Feed pipe material', materialIds).default('hdpe'),
 });
 
 const deliveryPipe = z.object({
-  lengthM: positive('Delivery pipe length'),
-  diameterMm: positive('Delivery pipe diameter').optional(),
+  lengthM: positive('Delivery pipe length').max(MAX_PIPE_LENGTH_M),
+  diameterMm: positive('Delivery pipe diameter').max(MAX_PIPE_BORE_MM).optional(),
   material: oneOf('Delivery pipe material', materialIds).default('hdpe'),
   pressureClass: z.string().optional(),
 }).refine((p) => p.pressureClass === undefined || isClassOf(p.material, p.pressureClass), {
@@ -185,8 +224,8 @@ const demandKinds = keysOf<DemandKind>(DEMAND_CATALOGUE);
 
 const demandLine = z.object({
   kind: oneOf('Demand kind', demandKinds),
-  count: nonNegative('Count'),
-  litresPerHeadPerDay: nonNegative('Litres per head per day').optional(),
+  count: nonNegative('How many').max(MAX_DEMAND_COUNT),
+  litresPerHeadPerDay: nonNegative('Water each per day').max(MAX_LITRES_PER_HEAD).optional(),
 });
 
 export const settingsSchema = z.object({
@@ -222,7 +261,8 @@ export const monteCarloSchema = z.object({
 export const siteReadingsSchema = z.object({
   flowMeasurements: z.array(flowMeasurementSchema).min(1, 'Add at least one flow measurement')
     .max(MAX_FLOW_MEASUREMENTS, `At most ${MAX_FLOW_MEASUREMENTS} flow measurements on one visit`),
-  fallRuns: z.array(fallRunSchema).min(1, 'Add at least one fall run').max(MAX_FALL_RUNS, `At most ${MAX_FALL_RUNS} fall runs on one visit`),
+  fallRuns: z.array(fallRunSchema).min(1, 'Add at least one fall run').max(MAX_FALL_RUNS, `At most ${MAX_FALL_RUNS} fall runs on one visit`)
+    .superRefine((runs, ctx) => runs.forEach((run, i) => checkRunHeight(run, 'fall', null, ctx, [i]))),
   lift: liftSchema,
   drivePipe: drivePipe.prefault({}),
   feedPipe: feedPipe.optional(),

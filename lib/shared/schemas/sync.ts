@@ -5,9 +5,11 @@ import { DEMAND_CATALOGUE, type DemandKind } from '@/lib/engine/demand';
 import { PIPE_MATERIALS, type PipeMaterialId } from '@/lib/engine/materials';
 import { POINT_ROLES, type VisitStatus } from '../domain';
 import { STATION_FLAGS } from '@/lib/engine/profile-pairs';
-import { fallRunSchema, flowMeasurementSchema, LIFT_DIRECT_METHODS } from './site-readings';
+import { checkRunHeight, confirmedSchema, fallRunSchema, flowMeasurementSchema, LIFT_DIRECT_METHODS } from './site-readings';
 import { isoDateTime, MAX_PHOTO_SIDE_PX } from './bounds';
-import { PRESSURE_CLASS_IDS } from '../reading-limits';
+import {
+  isClassOf, MAX_DEMAND_COUNT, MAX_LIFT_M, MAX_LITRES_PER_HEAD, MAX_PIPE_BORE_MM, MAX_PIPE_LENGTH_M, PRESSURE_CLASS_IDS,
+} from '../reading-limits';
 
 // A UUID names the same thing in either case: kept in lower case, so an upper-cased copy of an op
 // id is a replay and an upper-cased record id the same record.
@@ -26,9 +28,10 @@ export const PHOTO_MIME_TYPES = ['image/jpeg', 'image/png', 'image/webp'] as con
 /** A lift entered as one figure (e.g. read off a level run done another day). */
 const directLiftRun = z.object({
   method: z.literal('direct'),
-  staticLiftM: finite.positive('Static lift must be more than 0.'),
+  staticLiftM: finite.positive('Height of the tank above the pump must be more than 0.').max(MAX_LIFT_M),
   liftMethod: z.enum(LIFT_DIRECT_METHODS),
   uncertaintyM: finite.positive().optional(),
+  confirmed: confirmedSchema,
 });
 
 /** Writable fields of each synced entity, in SI. `put` sends a subset; a create sends them all. */
@@ -93,17 +96,19 @@ export const entityFields = {
   demandLine: z.object({
     farmId: uuid,
     kind: z.enum(keys<DemandKind>(DEMAND_CATALOGUE)),
-    count: z.number().int().min(0).max(1_000_000),
-    litresPerHeadPerDay: finite.min(0).max(10_000),
+    count: z.number().int().min(0).max(MAX_DEMAND_COUNT),
+    litresPerHeadPerDay: finite.min(0).max(MAX_LITRES_PER_HEAD),
     figureSource: text(160),
     note: text(300),
+    /** Unusual values the advisor confirmed; optional for older phones. */
+    confirmed: confirmedSchema.nullable(),
   }),
   pipeRun: z.object({
     visitId: uuid,
     // 'feed': intake to an open stand pipe where the drive pipe starts (gentle creeks).
     purpose: z.enum(['drive', 'delivery', 'feed']),
-    lengthM: finite.positive().max(100_000).nullable(),
-    diameterMm: finite.positive().max(2_000).nullable(),
+    lengthM: finite.positive().max(MAX_PIPE_LENGTH_M).nullable(),
+    diameterMm: finite.positive().max(MAX_PIPE_BORE_MM).nullable(),
     material: z.enum(keys<PipeMaterialId>(PIPE_MATERIALS)),
     pressureClass: z.enum(PRESSURE_CLASS_IDS, { message: 'Choose a pressure class from the list.' }).nullable(),
   }),
@@ -121,6 +126,18 @@ export const entityFields = {
     fallM: finite.nullable(),
     drivePipeMaterial: z.enum(keys<PipeMaterialId>(PIPE_MATERIALS)).nullable(),
     notes: text(5000),
+  }),
+} as const;
+
+/**
+ * A whole record as the phone saves it and the server stores it: the entity's fields plus the rules
+ * across them (a fall runs downhill, a lift up; a pipe's class is one its material is made in).
+ */
+export const recordSchemas = {
+  ...entityFields,
+  fallReading: entityFields.fallReading.superRefine((r, ctx) => checkRunHeight(r.run as Parameters<typeof checkRunHeight>[0], r.purpose, r.bookedFrom, ctx, ['run'])),
+  pipeRun: entityFields.pipeRun.refine((p) => p.pressureClass === null || isClassOf(p.material, p.pressureClass), {
+    message: 'That pressure class is not one of this pipe material’s. Choose a class from the list.', path: ['pressureClass'],
   }),
 } as const;
 

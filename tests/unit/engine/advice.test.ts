@@ -4,7 +4,7 @@ import { combineRuns, estimateFlow, FLOAT_RELATIVE_SIGMA } from '@/lib/engine/re
 import { attainableDriveVelocityMps, chooseDriveLength, designDeliveryPipe } from '@/lib/engine/pipe-design';
 import { judge, type RamVerdictFacts } from '@/lib/engine/verdict';
 import { G, minimumDriveVelocityMps, screenSite, type SiteReadingsInput } from '@/lib/engine';
-import { expectRelative, expectWithin } from './helpers';
+import { demandOf, expectRelative, expectWithin, hoseRunOf } from './helpers';
 
 interface Knobs {
   fallM: number;
@@ -20,7 +20,7 @@ interface Knobs {
 function site(k: Knobs): SiteReadingsInput {
   return {
     flowMeasurements: [{ method: 'volumetric', season: 'dry', trials: [{ volumeL: k.lowestLpm / 6, seconds: 10 }] }],
-    fallRuns: [{ method: 'hose', steps: [{ upperReadingM: 0, lowerReadingM: k.fallM }] }],
+    fallRuns: [hoseRunOf(k.fallM)],
     lift: { kind: 'direct', staticLiftM: k.liftM, method: 'level' },
     drivePipe: k.drivePipe ?? { material: 'galvanized-steel' },
     deliveryPipe: k.deliveryPipe ?? { lengthM: 300, material: 'hdpe' },
@@ -182,7 +182,7 @@ describe('gravity is its own outcome, judged on static levels', () => {
     const s = screenSite({
       ...site({ fallM: 14.6 + 1, liftM: 1, lowestLpm: 600, deliveryPipe: { lengthM: 300, diameterMm: 25, material: 'pvc' }, drivePipe: { material: 'galvanized-steel', lengthM: 0.001 } }),
       settings: { fittingsAllowanceFraction: 0 },
-      demand: [{ kind: 'person-basic', count: 1, litresPerHeadPerDay: 100 }],
+      demand: [demandOf(100)],
     });
     expectRelative(value(s, 'gravityCapacityLpd'), 43200, 0.01);
   });
@@ -243,7 +243,7 @@ describe('edges', () => {
 
   it('a conditional on more water names what is taken and what is left, and its figures meet the demand', () => {
     // 200 L/min at ratio 3: half the flow delivers ~26,000 L/day, short of 25,000 L + 20 %; 80 % of it is enough.
-    const s = screenSite(site({ fallM: 3, liftM: 9, lowestLpm: 200, demand: [{ kind: 'person-basic', count: 1, litresPerHeadPerDay: 25000 }] }));
+    const s = screenSite(site({ fallM: 3, liftM: 9, lowestLpm: 200, demand: [demandOf(25000)] }));
     expect(s.verdict).toBe('conditional');
     expect(s.conditions.find((c) => c.code === 'DEMAND_NEEDS_MORE_WATER')?.text).toMatch(/leaving .* L\/min in the stream/);
     expect(value(s, 'deliveryLpd')).toBeGreaterThanOrEqual(value(s, 'demandLpd'));

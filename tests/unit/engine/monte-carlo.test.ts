@@ -1,3 +1,4 @@
+import { demandOf, hoseRunOf } from './helpers';
 import { describe, expect, it } from 'vitest';
 import { mulberry32, normalSampler, screenSite } from '@/lib/engine';
 import { clearGo } from './fixtures/demo-sites';
@@ -68,7 +69,7 @@ describe('Monte Carlo in screenSite', () => {
     const held = { ...clearGo, ram: { driveIn: 1.25, count: 1 }, settings: { demandMarginFraction: 0 } };
     const base = screenSite(held);
     const delivered = base.figures.deliveryLpd?.value ?? 0;
-    const s = screenSite({ ...held, demand: [{ kind: 'person-basic', count: 1, litresPerHeadPerDay: delivered }] });
+    const s = screenSite({ ...held, demand: [demandOf(delivered)] });
     const p = s.figures.probabilityMeetsDemand?.value ?? NaN;
     expect(p).toBeGreaterThan(0.35);
     expect(p).toBeLessThan(0.65);
@@ -77,7 +78,7 @@ describe('Monte Carlo in screenSite', () => {
   it('a mean that meets demand with a probability under one half is conditional', () => {
     const base = screenSite({ ...clearGo, ram: { driveIn: 1.25, count: 1 }, settings: { demandMarginFraction: 0 } });
     const delivered = base.figures.deliveryLpd?.value ?? 0;
-    const s = screenSite({ ...clearGo, ram: { driveIn: 1.25, count: 1 }, fallRuns: [{ method: 'clinometer', legs: [{ slopeDistanceM: 300, angleBelowHorizontalDeg: 0.575 }] }], demand: [{ kind: 'person-basic', count: 1, litresPerHeadPerDay: delivered * 0.999 }], settings: { demandMarginFraction: 0 } });
+    const s = screenSite({ ...clearGo, ram: { driveIn: 1.25, count: 1 }, fallRuns: [{ method: 'clinometer', legs: [{ slopeDistanceM: 300, angleBelowHorizontalDeg: 0.575 }] }], demand: [demandOf(delivered * 0.999)], settings: { demandMarginFraction: 0 } });
     const p = s.figures.probabilityMeetsDemand?.value ?? NaN;
     expect(s.figures.deliveryLpd?.value ?? 0).toBeGreaterThanOrEqual(delivered * 0.999 - 1);
     if (p < 0.5) {

@@ -1,3 +1,4 @@
+import { demandOf, hoseRunOf } from './helpers';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { hazenWilliamsLossM, rectangularWeirFlowLps, ramDeliveryLpm, ramEfficiency, screenSite, type SiteReadingsInput, type Verdict } from '@/lib/engine';
@@ -17,11 +18,11 @@ interface SiteKnobs {
 function site(k: SiteKnobs): SiteReadingsInput {
   return {
     flowMeasurements: [{ method: 'volumetric', season: 'dry', trials: [{ volumeL: (k.lowestLpm / 60) * 10, seconds: 10 }] }],
-    fallRuns: [{ method: 'hose', steps: [{ upperReadingM: 0, lowerReadingM: k.fallM }] }],
+    fallRuns: [hoseRunOf(k.fallM)],
     lift: { kind: 'direct', staticLiftM: k.liftM, method: 'level' },
     deliveryPipe: { lengthM: k.deliveryLengthM, material: 'hdpe' },
     ...(k.driveLengthM ? { drivePipe: { lengthM: k.driveLengthM, material: 'galvanized-steel' as const } } : {}),
-    demand: [{ kind: 'person-basic', count: 1, litresPerHeadPerDay: k.demandLpd }],
+    demand: [demandOf(k.demandLpd)],
     monteCarlo: { samples: 200, seed: 7 },
   };
 }
@@ -147,10 +148,10 @@ describe('properties (fast-check)', () => {
       const fromUs = screenSite({
         ...site(k),
         flowMeasurements: [{ method: 'volumetric', season: 'dry', trials: [{ volumeL: usGalToL(us.gal10s), seconds: 10 }] }],
-        fallRuns: [{ method: 'hose', steps: [{ upperReadingM: 0, lowerReadingM: ftToM(us.fallFt) }] }],
+        fallRuns: [hoseRunOf(ftToM(us.fallFt))],
         lift: { kind: 'direct', staticLiftM: ftToM(us.liftFt), method: 'level' },
         deliveryPipe: { lengthM: ftToM(us.lengthFt), material: 'hdpe' },
-        demand: [{ kind: 'person-basic', count: 1, litresPerHeadPerDay: usGalToL(us.demandGal) }],
+        demand: [demandOf(usGalToL(us.demandGal))],
       });
       expect(fromUs.verdict).toBe(metric.verdict);
       const a = metric.figures.deliveryLpd?.value ?? 0;

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { screenSite, SOURCES, type Screening } from '@/lib/engine';
 import * as demo from './fixtures/demo-sites';
-import { expectRelative } from './helpers';
+import { expectRelative, hoseRunOf } from './helpers';
 
 const codes = (s: Screening) => s.reasons.map((r) => r.code);
 const value = (s: Screening, key: keyof Screening['figures']) => s.figures[key]?.value ?? NaN;
@@ -115,7 +115,7 @@ describe('whole-screen scenarios (invented demo readings)', () => {
     expect(value(s, 'blockedDeliveryHeadM')).toBeLessThan(value(s, 'drivePipeAllowedHeadM'));
   });
 
-  const highLift = { ...demo.clearGo, lift: { kind: 'direct' as const, staticLiftM: 180, method: 'level' as const }, fallRuns: [{ method: 'level' as const, rows: [{ backsightM: 0.2 }, { foresightM: 30.2 }] }], demand: [{ kind: 'beef-cow-dry' as const, count: 5 }] };
+  const highLift = { ...demo.clearGo, lift: { kind: 'direct' as const, staticLiftM: 180, method: 'level' as const }, fallRuns: [hoseRunOf(30)], demand: [{ kind: 'beef-cow-dry' as const, count: 5 }] };
 
   it('working pressure above class 150 steel (300 psi = 211 m) with a 180 m lift: conditional on class 300 fittings (made up to 3″)', () => {
     const s = screenSite(highLift);

@@ -20,7 +20,7 @@ describe('what the preview says is still needed', () => {
       flowMeasurements: [clearGo.flowMeasurements[0], { method: 'volumetric', season: 'dry', trials: [{ volumeL: -20, seconds: 10 }] }],
       fallRuns: [{ method: 'clinometer', legs: [{ slopeDistanceM: 10, angleBelowHorizontalDeg: 95 }] }],
     });
-    expect(issues).toContainEqual({ record: 'Flow measurement 2', page: 'flow', message: 'Volume must be more than 0' });
+    expect(issues).toContainEqual({ record: 'Flow measurement 2', page: 'flow', message: 'Bucket volume must be more than 0' });
     expect(issues).toContainEqual({ record: 'Fall run 1', page: 'fall', message: 'Angle must be at most 89' });
   });
 

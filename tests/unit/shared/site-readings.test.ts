@@ -21,8 +21,8 @@ describe('SiteReadings schema', () => {
 
   it.each<[string, Record<string, unknown>, string, string]>([
     ['zero seconds', { flowMeasurements: [{ method: 'volumetric', season: 'dry', trials: [{ volumeL: 20, seconds: 0 }] }] }, 'flowMeasurements.0.trials.0.seconds', 'Seconds must be more than 0'],
-    ['NaN volume', { flowMeasurements: [{ method: 'volumetric', season: 'dry', trials: [{ volumeL: Number.NaN, seconds: 3 }] }] }, 'flowMeasurements.0.trials.0.volumeL', 'Volume must be a number'],
-    ['missing head', { flowMeasurements: [{ method: 'v-notch', season: 'dry', trials: [{}] }] }, 'flowMeasurements.0.trials.0.headM', 'Head on the notch is needed'],
+    ['NaN volume', { flowMeasurements: [{ method: 'volumetric', season: 'dry', trials: [{ volumeL: Number.NaN, seconds: 3 }] }] }, 'flowMeasurements.0.trials.0.volumeL', 'Bucket volume must be a number'],
+    ['missing head', { flowMeasurements: [{ method: 'v-notch', season: 'dry', trials: [{}] }] }, 'flowMeasurements.0.trials.0.headM', 'Head over the notch is needed'],
     ['unknown flow method', { flowMeasurements: [{ method: 'guess', season: 'dry', trials: [] }] }, 'flowMeasurements.0.method', 'Flow method must be volumetric, v-notch, rectangular-weir or float'],
     ['negative delivery length', { deliveryPipe: { lengthM: -300, material: 'hdpe' } }, 'deliveryPipe.lengthM', 'Delivery pipe length must be more than 0'],
     ['no flow measurement', { flowMeasurements: [] }, 'flowMeasurements', 'Add at least one flow measurement'],

@@ -1,6 +1,6 @@
 'use client';
 
-import { useId, useState } from 'react';
+import { useId, useState, type ReactNode } from 'react';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { QUANTITIES, type Quantity } from '@/lib/shared/quantities';
 import { parseFieldNumber } from '@/lib/shared/units';
@@ -16,10 +16,12 @@ interface Props {
   /** A ± key: the phone's decimal pad has no minus. */
   signed?: boolean;
   name?: string;
+  /** The record check's message or question for this field (see record-check.tsx). */
+  children?: ReactNode;
 }
 
 /** A reading typed on a phone: decimal keypad, "." or ",", its unit beside it, stored in SI. */
-export function NumberField({ label, quantity, units, value, onChange, hint, signed, name }: Props) {
+export function NumberField({ label, quantity, units, value, onChange, hint, signed, name, children }: Props) {
   const id = useId();
   const display = QUANTITIES[quantity][units];
   const shown = (si: number | undefined) => (si === undefined ? '' : String(Number(display.fromSi(si).toFixed(6))));
@@ -63,6 +65,7 @@ export function NumberField({ label, quantity, units, value, onChange, hint, sig
         {display.unit && <span className="figure flex min-w-14 items-center text-xl text-stone">{display.unit}</span>}
       </div>
       <p id={`${id}-note`} className={error ? 'mt-1 font-bold text-clay' : 'mt-1 text-stone'}>{error ?? hint ?? ''}</p>
+      {children}
     </div>
   );
 }

@@ -1,0 +1,117 @@
+'use client';
+
+// Every capture form checks the record it is about to save with the shared schema the server uses
+// (react-hook-form with zodResolver), in the advisor's units, and asks "is this right?" about unusual
+// values before it saves. Messages sit at the field they are about; nothing is saved while any stands.
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
+import { get, useForm, type FieldValues, type Resolver } from 'react-hook-form';
+import { RecordRefused, saveRecord } from '@/lib/client/outbox';
+import type { UnitSystem } from '@/lib/shared/domain';
+import { plainIssueMessage } from '@/lib/shared/field-messages';
+import { unusualIn, withConfirmations, type Unusual } from '@/lib/shared/plausibility';
+import { recordSchemas, type EntityFields, type SyncEntity } from '@/lib/shared/schemas/sync';
+
+export interface RecordCheck {
+  /** The message for a path ("measurement.trials.2.seconds"), or for any path under it. */
+  errorAt: (path: string, under?: boolean) => string | undefined;
+  /** Unusual values still to confirm at a path (or under it). */
+  askAt: (path: string, under?: boolean) => Unusual[];
+  confirm: (code: string) => void;
+  /** Messages no field of the form shows (the form lists them above its save button). */
+  unplaced: (shown: readonly string[]) => string[];
+  clear: () => void;
+}
+
+function collect(errors: unknown, prefix = ''): Record<string, string> {
+  const out: Record<string, string> = {};
+  if (!errors || typeof errors !== 'object') return out;
+  for (const [key, value] of Object.entries(errors as Record<string, unknown>)) {
+    if (key === 'ref') continue;
+    const path = key === 'root' ? prefix : prefix ? `${prefix}.${key}` : key;
+    const v = value as { message?: unknown; type?: unknown };
+    if (typeof v?.message === 'string' && typeof v.type === 'string') out[path] = v.message;
+    else Object.assign(out, collect(value, path));
+  }
+  return out;
+}
+
+const isUnder = (path: string, prefix: string) => path === prefix || path.startsWith(`${prefix}.`);
+
+/**
+ * `save(id, fields)` checks and saves one record; true once saved. Failing checks leave their messages
+ * and questions for the form's fields to show.
+ */
+export function useRecordCheck<E extends SyncEntity>(entity: E, units: UnitSystem) {
+  const form = useForm<FieldValues>({
+    resolver: zodResolver(recordSchemas[entity] as never, { error: (issue) => plainIssueMessage(issue, units) }) as unknown as Resolver<FieldValues>,
+  });
+  const errors = form.formState.errors;
+  const [asks, setAsks] = useState<Unusual[]>([]);
+  const [confirmed, setConfirmed] = useState<string[]>([]);
+
+  const messages = collect(errors);
+  const check: RecordCheck = {
+    errorAt: (path, under = false) => {
+      const direct = (get(errors, path) as { message?: string } | undefined)?.message ?? messages[path];
+      if (direct || !under) return direct;
+      return Object.entries(messages).find(([p]) => isUnder(p, path))?.[1];
+    },
+    askAt: (path, under = false) => asks.filter((u) => (under ? isUnder(u.path, path) : u.path === path)),
+    confirm: (code) => {
+      setConfirmed((list) => [...list, code]);
+      setAsks((list) => list.filter((u) => u.code !== code));
+    },
+    unplaced: (shown) => Object.entries(messages).filter(([p]) => !shown.some((s) => isUnder(p, s))).map(([, m]) => m),
+    clear: () => {
+      form.clearErrors();
+      setAsks([]);
+      setConfirmed([]);
+    },
+  };
+
+  async function save(id: string, fields: EntityFields<E>): Promise<boolean> {
+    form.reset(fields as FieldValues);
+    if (!(await form.trigger())) {
+      setAsks([]);
+      return false;
+    }
+    const record = withConfirmations(entity, fields, confirmed);
+    const open = unusualIn(entity, record, units).filter((u) => !u.confirmed);
+    setAsks(open);
+    if (open.length > 0) return false;
+    try {
+      await saveRecord(entity, id, record as Partial<EntityFields<E>>, units);
+    } catch (error) {
+      if (!(error instanceof RecordRefused)) throw error;
+      for (const [path, message] of Object.entries(error.messages)) form.setError(path || 'root', { type: 'refused', message });
+      setAsks(error.unusual);
+      return false;
+    }
+    form.clearErrors();
+    setConfirmed([]);
+    return true;
+  }
+
+  return { check, save };
+}
+
+/** The message and any "is this right?" question for one field, shown under it. */
+export function FieldIssue({ check, path, under = false }: { check: RecordCheck; path: string; under?: boolean }) {
+  const message = check.errorAt(path, under);
+  const asks = check.askAt(path, under);
+  if (!message && asks.length === 0) return null;
+  return (
+    <div className="mt-1 space-y-2" data-field-issue={path}>
+      {message && <p role="alert" className="font-bold text-clay">{message}</p>}
+      {asks.map((u) => (
+        <div key={u.code} role="alert" className="rounded-md border-2 border-ochre bg-white p-3">
+          <p className="font-bold">{u.message}</p>
+          <button type="button" onClick={() => check.confirm(u.code)} className="mt-2 min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate">
+            Yes, this is right
+          </button>
+        </div>
+      ))}
+    </div>
+  );
+}
