@@ -110,6 +110,24 @@ export async function deleteRecord(entity: SyncEntity, id: string): Promise<void
   });
 }
 
+/**
+ * Takes back a delete the server has not been sent yet: the delete leaves the outbox and the record
+ * is shown again. False once the delete has gone (then the record is gone on the server too).
+ */
+export async function undoDelete(entity: SyncEntity, id: string): Promise<boolean> {
+  const db = fieldDb();
+  const table = db.table(TABLE_OF[entity]) as Table<AnyRecord, string>;
+  return db.transaction('rw', table, db.outbox, async () => {
+    const entries = await db.outbox.where('entityId').equals(id).toArray();
+    const pending = entries.filter((e) => e.entity === entity && e.op.action === 'delete' && e.status === 'pending');
+    const record = await table.get(id);
+    if (pending.length === 0 || !record) return false;
+    await db.outbox.bulkDelete(pending.map((e) => e.seq!));
+    await table.put({ ...record, deletedAt: null, updatedAt: new Date().toISOString() });
+    return true;
+  });
+}
+
 /** Saves a photo's metadata (queued like any record) and its bytes (uploaded after the metadata). */
 export async function savePhoto(id: string, fields: EntityFields<'photo'>, data: ArrayBuffer): Promise<void> {
   const db = fieldDb();

@@ -37,16 +37,32 @@ export async function retryParked(seq: number): Promise<void> {
   await fieldDb().outbox.update(seq, { status: 'pending', attempts: 0, nextAttemptAt: 0, result: undefined });
 }
 
-/** Gives up a refused change on purpose; the only way a change leaves the phone unsent. */
+/**
+ * Gives up a refused change on purpose; the only way a change leaves the phone unsent. The phone's
+ * copy goes back to what the server holds: a record the server never accepted is removed; an edit's
+ * fields return to the values the phone had before it (`base`, the server's as far as the phone knew),
+ * except where a later change still waiting rewrites them; a refused delete shows the record again.
+ */
 export async function discardParked(seq: number): Promise<void> {
   const db = fieldDb();
   const entry = await db.outbox.get(seq);
   if (!entry) return;
   await db.transaction('rw', db.outbox, db.table(TABLE_OF[entry.entity]), async () => {
     await db.outbox.delete(seq);
-    // A record the server never accepted has nothing behind it: remove the phone's copy too.
     const table = db.table(TABLE_OF[entry.entity]) as Table<AnyRecord, string>;
     const local = await table.get(entry.entityId);
-    if (local && local.rev === 0 && (await db.outbox.where('entityId').equals(entry.entityId).count()) === 0) await table.delete(entry.entityId);
+    if (!local) return;
+    const later = await db.outbox.where('entityId').equals(entry.entityId).toArray();
+    if (local.rev === 0 && entry.op.baseRev === null) {
+      if (later.length === 0) await table.delete(entry.entityId);
+      return;
+    }
+    if (entry.op.action === 'delete') {
+      await table.put({ ...local, deletedAt: null });
+      return;
+    }
+    const rewritten = new Set(later.flatMap((e) => Object.keys(e.op.changes ?? {})));
+    const restore = Object.fromEntries(Object.entries(entry.op.base ?? {}).filter(([k]) => !rewritten.has(k)));
+    await table.put({ ...local, ...restore });
   });
 }

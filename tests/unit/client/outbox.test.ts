@@ -1,5 +1,6 @@
 import { beforeEach, describe, expect, it } from 'vitest';
-import { deleteRecord, savePhoto, saveRecord } from '@/lib/client/outbox';
+import { deleteRecord, savePhoto, saveRecord, undoDelete } from '@/lib/client/outbox';
+import { discardParked } from '@/lib/client/sync/resolve';
 import type { FieldDatabase } from '@/lib/client/db';
 import { freshDb, VISIT } from './helpers';
 
@@ -63,5 +64,46 @@ describe('the outbox', () => {
     expect(new Uint8Array(blob?.data ?? new ArrayBuffer(0))).toEqual(new Uint8Array([0xff, 0xd8, 0xff, 1, 2, 3]));
     expect(blob?.uploadedAt).toBeNull();
     expect((await db.outbox.toArray()).filter((e) => e.entity === 'photo')).toHaveLength(1);
+  });
+});
+
+describe('the phone refuses what the server would, and takes back what it can', () => {
+  it('an impossible value is refused with its field message, and nothing is written', async () => {
+    await expect(saveRecord('point', POINT, { ...pointFields, chainageM: -20 })).rejects.toMatchObject({
+      name: 'RecordRefused', messages: { chainageM: 'Distance along the route must not be negative.' },
+    });
+    expect(await db.points.count()).toBe(0);
+    expect(await db.outbox.count()).toBe(0);
+  });
+
+  it('an unusual value is refused until confirmed, then saved with its confirmation', async () => {
+    const FARM = '33333333-3333-4333-8333-333333333333';
+    const line = { farmId: FARM, kind: 'person-tap-on-plot' as const, count: 450, litresPerHeadPerDay: 50, figureSource: '', note: '', confirmed: null };
+    await expect(saveRecord('demandLine', POINT, line)).rejects.toMatchObject({ unusual: [expect.objectContaining({ code: 'people-many' })] });
+    expect(await db.outbox.count()).toBe(0);
+    await saveRecord('demandLine', POINT, { ...line, confirmed: ['people-many'] });
+    expect((await db.demandLines.get(POINT))?.confirmed).toEqual(['people-many']);
+  });
+
+  it('a delete not yet sent can be undone: the record is back and no delete waits', async () => {
+    await saveRecord('point', POINT, pointFields);
+    await deleteRecord('point', POINT);
+    expect((await db.points.get(POINT))?.deletedAt).not.toBeNull();
+    expect(await undoDelete('point', POINT)).toBe(true);
+    expect((await db.points.get(POINT))?.deletedAt).toBeNull();
+    expect((await db.outbox.toArray()).map((e) => e.op.action)).toEqual(['put']);
+    expect(await undoDelete('point', POINT)).toBe(false);
+  });
+
+  it('giving up a refused edit puts the server\'s value back on the phone', async () => {
+    await saveRecord('point', POINT, pointFields);
+    await db.outbox.clear();
+    await db.points.update(POINT, { rev: 4 });
+    await saveRecord('point', POINT, { ...pointFields, label: 'Refused name' });
+    const entry = (await db.outbox.toArray())[0]!;
+    await db.outbox.update(entry.seq!, { status: 'rejected' });
+    await discardParked(entry.seq!);
+    expect((await db.points.get(POINT))?.label).toBe('Pool');
+    expect(await db.outbox.count()).toBe(0);
   });
 });

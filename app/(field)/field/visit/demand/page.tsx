@@ -6,13 +6,14 @@ import { DEMAND_CATALOGUE, type DemandKind } from '@/lib/engine/demand';
 import { SOURCES } from '@/lib/engine/sources';
 import { fieldDb } from '@/lib/client/db';
 import { newId } from '@/lib/client/ids';
-import { deleteRecord, saveRecord } from '@/lib/client/outbox';
+import { deleteRecord } from '@/lib/client/outbox';
 import { getMeta } from '@/lib/client/sync/meta';
 import { announceSave } from '@/lib/client/sync/triggers';
 import { showQuantity } from '@/lib/shared/quantities';
 import type { PullResponse } from '@/lib/shared/schemas/sync';
 import { PrimaryButton, SectionHeader } from '../../_components/choice';
 import { NumberField } from '../../_components/number-field';
+import { FieldIssue, useRecordCheck } from '../../_components/record-check';
 import { useUnits, useVisit, useVisitId } from '../../_components/use-field-data';
 
 const KINDS = Object.values(DEMAND_CATALOGUE);
@@ -34,22 +35,24 @@ function DemandPage() {
   const [count, setCount] = useState<number | undefined>();
   const [perHead, setPerHead] = useState<number | undefined>();
   const [message, setMessage] = useState<string | null>(null);
+  const { check, save } = useRecordCheck('demandLine', units);
   const entry = DEMAND_CATALOGUE[kind];
   const defaultFigure = overrides[kind] ?? entry.litresPerHeadPerDay;
   const total = (lines ?? []).reduce((sum, l) => sum + l.count * l.litresPerHeadPerDay, 0);
 
   async function add() {
     if (!farmId) return;
-    if (count === undefined || count < 0 || !Number.isInteger(count)) {
-      setMessage('Count must be a whole number, 0 or more.');
+    setMessage(null);
+    const figure = perHead ?? defaultFigure;
+    const saved = await save(newId(), {
+      farmId, kind, count: count as number, litresPerHeadPerDay: figure,
+      figureSource: perHead === undefined ? (overrides[kind] !== undefined ? 'organisation figure' : entry.sourceId) : 'advisor on site',
+      note: '', confirmed: null,
+    });
+    if (!saved) {
+      setMessage('Not saved yet: see the note at the field above.');
       return;
     }
-    const figure = perHead ?? defaultFigure;
-    await saveRecord('demandLine', newId(), {
-      farmId, kind, count, litresPerHeadPerDay: figure,
-      figureSource: perHead === undefined ? (overrides[kind] !== undefined ? 'organisation figure' : entry.sourceId) : 'advisor on site',
-      note: '',
-    });
     setCount(undefined);
     setPerHead(undefined);
     setMessage('Line saved on this phone.');
@@ -75,12 +78,16 @@ function DemandPage() {
       <section aria-labelledby="add-line" className="space-y-3 rounded-md border-2 border-rule bg-white p-3">
         <h2 id="add-line" className="text-xl font-bold">Add a line</h2>
         <label htmlFor="kind" className="block font-bold">Who or what drinks</label>
-        <select id="kind" value={kind} onChange={(e) => { setKind(e.target.value as DemandKind); setPerHead(undefined); }} className="min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-lg">
+        <select id="kind" value={kind} onChange={(e) => { setKind(e.target.value as DemandKind); setPerHead(undefined); check.clear(); }} className="min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-lg">
           {KINDS.map((k) => <option key={k.kind} value={k.kind}>{k.label}</option>)}
         </select>
-        <NumberField label={`How many (${entry.unit})`} quantity="count" units={units} value={count} onChange={setCount} />
-        <NumberField label={`Litres per ${entry.unit} per day`} quantity="volume" units={units} value={perHead ?? defaultFigure} onChange={setPerHead}
-          hint={`Default ${showQuantity(defaultFigure, 'volume', units)} — ${overrides[kind] !== undefined ? "your organisation's figure" : `${entry.basis} (${sourceName(entry.sourceId)})`}`} />
+        <NumberField label={`How many (${entry.unit})`} quantity="count" units={units} value={count} onChange={setCount}>
+          <FieldIssue check={check} path="count" />
+        </NumberField>
+        <NumberField label={`Water per ${entry.unit} per day`} quantity="volume" units={units} value={perHead ?? defaultFigure} onChange={setPerHead}
+          hint={`Default ${showQuantity(defaultFigure, 'volume', units)} — ${overrides[kind] !== undefined ? "your organisation's figure" : `${entry.basis} (${sourceName(entry.sourceId)})`}`}>
+          <FieldIssue check={check} path="litresPerHeadPerDay" />
+        </NumberField>
         {message && <p role="status" className="font-bold">{message}</p>}
         <PrimaryButton onClick={add}>Add line</PrimaryButton>
       </section>

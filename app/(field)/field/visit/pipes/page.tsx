@@ -12,6 +12,8 @@ import { newId } from '@/lib/client/ids';
 import { deleteRecord, saveRecord } from '@/lib/client/outbox';
 import { announceSave } from '@/lib/client/sync/triggers';
 import type { UnitSystem } from '@/lib/shared/domain';
+import { plainIssueMessage } from '@/lib/shared/field-messages';
+import { MAX_PIPE_BORE_MM, MAX_PIPE_LENGTH_M } from '@/lib/shared/reading-limits';
 import { entityFields } from '@/lib/shared/schemas/sync';
 import { PrimaryButton, SectionHeader } from '../../_components/choice';
 import { NumberField } from '../../_components/number-field';
@@ -19,8 +21,8 @@ import { useUnits, useVisitId } from '../../_components/use-field-data';
 
 const MATERIALS = Object.values(PIPE_MATERIALS);
 const pipe = entityFields.pipeRun.pick({ material: true }).extend({
-  lengthM: z.number({ error: 'Measure the length along the route.' }).positive('Length must be more than 0.'),
-  diameterMm: z.number().positive('Diameter must be more than 0.').optional(),
+  lengthM: z.number({ error: (issue) => (issue.code === 'invalid_type' ? 'Measure the length along the route.' : undefined) }).positive('Length must be more than 0.').max(MAX_PIPE_LENGTH_M),
+  diameterMm: z.number().positive('Diameter must be more than 0.').max(MAX_PIPE_BORE_MM).optional(),
 });
 const schema = z.object({ drive: pipe.partial({ lengthM: true }), delivery: pipe, feed: pipe.partial({ lengthM: true }) });
 type Values = z.infer<typeof schema>;
@@ -32,12 +34,15 @@ function PipeFields({ name, title, control, units, hint }: { name: 'drive' | 'de
       <p className="text-stone">{hint}</p>
       <Controller control={control} name={`${name}.lengthM`} render={({ field, fieldState }) => (
         <>
-          <NumberField label="Length along the route" quantity="length" units={units} value={field.value} onChange={field.onChange} />
-          {fieldState.error && <p className="font-bold text-clay">{fieldState.error.message}</p>}
+          <NumberField label="Length along the route" quantity="length" units={units} value={field.value} onChange={field.onChange}>
+            {fieldState.error && <p role="alert" className="font-bold text-clay">{fieldState.error.message}</p>}
+          </NumberField>
         </>
       )} />
-      <Controller control={control} name={`${name}.diameterMm`} render={({ field }) => (
-        <NumberField label="Inside diameter (leave empty: the screen proposes one)" quantity="diameter" units={units} value={field.value} onChange={field.onChange} />
+      <Controller control={control} name={`${name}.diameterMm`} render={({ field, fieldState }) => (
+        <NumberField label="Inside diameter (leave empty: the screen proposes one)" quantity="diameter" units={units} value={field.value} onChange={field.onChange}>
+          {fieldState.error && <p role="alert" className="font-bold text-clay">{fieldState.error.message}</p>}
+        </NumberField>
       )} />
       <Controller control={control} name={`${name}.material`} render={({ field }) => (
         <div>
@@ -55,7 +60,7 @@ function PipesForm({ visitId, existing, units }: { visitId: string; existing: Lo
   const find = (purpose: 'drive' | 'delivery' | 'feed') => existing.find((p) => p.purpose === purpose);
   const [message, setMessage] = useState<string | null>(null);
   const { control, handleSubmit, formState } = useForm<Values>({
-    resolver: zodResolver(schema),
+    resolver: zodResolver(schema, { error: (issue) => plainIssueMessage(issue, units) }),
     defaultValues: {
       drive: { lengthM: find('drive')?.lengthM ?? undefined, diameterMm: find('drive')?.diameterMm ?? undefined, material: find('drive')?.material ?? 'galvanized-steel' },
       delivery: { lengthM: find('delivery')?.lengthM ?? undefined, diameterMm: find('delivery')?.diameterMm ?? undefined, material: find('delivery')?.material ?? 'hdpe' },
@@ -78,7 +83,7 @@ function PipesForm({ visitId, existing, units }: { visitId: string; existing: Lo
       }
       await saveRecord('pipeRun', find(purpose)?.id ?? newId(), {
         visitId, purpose, lengthM: v.lengthM ?? null, diameterMm: v.diameterMm ?? null, material: v.material, pressureClass: find(purpose)?.pressureClass ?? null,
-      });
+      }, units);
     }
     setMessage('Pipe runs saved on this phone.');
     announceSave();

@@ -4,12 +4,12 @@ import { useEffect, useState } from 'react';
 import { fieldDb } from '@/lib/client/db';
 import { setDirty } from '@/lib/client/dirty';
 import { newId } from '@/lib/client/ids';
-import { saveRecord } from '@/lib/client/outbox';
 import { announceSave } from '@/lib/client/sync/triggers';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { showQuantity } from '@/lib/shared/quantities';
 import { Choice, PrimaryButton } from '../../../_components/choice';
 import { NumberField } from '../../../_components/number-field';
+import { FieldIssue, useRecordCheck } from '../../../_components/record-check';
 import { ProfileChart } from './profile-chart';
 import { RowEditor, type Column, type Row } from './row-editor';
 import { buildRun, liveResult, type RunMethod } from './run-builders';
@@ -33,6 +33,7 @@ export function FallForm({ visitId, purpose, units }: { visitId: string; purpose
   const [single, setSingle] = useState<Row>({});
   const [bookedFrom, setBookedFrom] = useState<'pump' | 'tank'>('pump');
   const [message, setMessage] = useState<string | null>(null);
+  const { check, save: saveChecked } = useRecordCheck('fallReading', units);
 
   const run = buildRun(method, rows, single, 'level');
   const live = liveResult(run);
@@ -43,14 +44,20 @@ export function FallForm({ visitId, purpose, units }: { visitId: string; purpose
   }, [typed, purpose]);
 
   async function save() {
+    setMessage(null);
     if (!run) {
       setMessage('Fill in every reading of the run first.');
       return;
     }
     const seq = await fieldDb().fallReadings.where('visitId').equals(visitId).count();
-    await saveRecord('fallReading', newId(), {
+    const saved = await saveChecked(newId(), {
       visitId, purpose, seq, takenAt: new Date().toISOString(), notes: '', bookedFrom: purpose === 'lift' ? bookedFrom : null, run,
     });
+    if (!saved) {
+      setMessage('Not saved yet: see the note at the reading above.');
+      return;
+    }
+    check.clear();
     setRows([{}, {}]);
     setSingle({});
     setMessage('Run saved on this phone.');
@@ -58,32 +65,34 @@ export function FallForm({ visitId, purpose, units }: { visitId: string; purpose
   }
 
   const setOne = (key: string) => (v: number | undefined) => setSingle((s) => ({ ...s, [key]: v }));
+  const rowIssue = (key: 'rows' | 'steps' | 'legs') => (i: number, column: string) => <FieldIssue check={check} path={`run.${key}.${i}.${column}`} />;
+  const single_ = (key: string) => <FieldIssue check={check} path={`run.${key}`} />;
   return (
     <div className="space-y-4">
-      <Choice label="Method" options={purpose === 'lift' ? LIFT_METHODS : METHODS} value={method} onChange={(m) => { setMethod(m); setRows(m === 'level' ? [{}, {}] : [{}]); setSingle({}); }} />
+      <Choice label="Method" options={purpose === 'lift' ? LIFT_METHODS : METHODS} value={method} onChange={(m) => { setMethod(m); setRows(m === 'level' ? [{}, {}] : [{}]); setSingle({}); check.clear(); }} />
       {purpose === 'lift' && method !== 'direct' && (
         <Choice label="Booked from" options={[{ value: 'pump', label: 'Pump, going up' }, { value: 'tank', label: 'Tank, going down' }] as const} value={bookedFrom} onChange={setBookedFrom} />
       )}
       {method === 'level' && (
-        <RowEditor rows={rows} columns={LEVEL} units={units} onChange={setRows} addLabel="Add a change point"
+        <RowEditor rows={rows} columns={LEVEL} units={units} onChange={setRows} addLabel="Add a change point" issueAt={rowIssue('rows')}
           title={(i, n) => (i === 0 ? 'First station (start)' : i === n - 1 ? `Station ${i + 1} (end)` : `Change point ${i}`)} />
       )}
-      {method === 'hose' && <RowEditor rows={rows} columns={() => HOSE} units={units} onChange={setRows} addLabel="Add a hose step" title={(i) => `Step ${i + 1}`} />}
-      {method === 'clinometer' && <RowEditor rows={rows} columns={() => CLINO} units={units} onChange={setRows} addLabel="Add a leg" title={(i) => `Leg ${i + 1}`} />}
+      {method === 'hose' && <RowEditor rows={rows} columns={() => HOSE} units={units} onChange={setRows} addLabel="Add a hose step" title={(i) => `Step ${i + 1}`} issueAt={rowIssue('steps')} />}
+      {method === 'clinometer' && <RowEditor rows={rows} columns={() => CLINO} units={units} onChange={setRows} addLabel="Add a leg" title={(i) => `Leg ${i + 1}`} issueAt={rowIssue('legs')} />}
       {method === 'gps' && (
         <div className="grid gap-3">
-          <NumberField label="Altitude at the start" quantity="length" units={units} value={single.startAltitudeM} onChange={setOne('startAltitudeM')} />
-          <NumberField label="Altitude at the end" quantity="length" units={units} value={single.endAltitudeM} onChange={setOne('endAltitudeM')} />
-          <NumberField label="Horizontal accuracy shown by the phone" quantity="length" units={units} value={single.horizontalAccuracyM} onChange={setOne('horizontalAccuracyM')} />
+          <NumberField label="Altitude at the start" quantity="length" units={units} value={single.startAltitudeM} onChange={setOne('startAltitudeM')}>{single_('startAltitudeM')}</NumberField>
+          <NumberField label="Altitude at the end" quantity="length" units={units} value={single.endAltitudeM} onChange={setOne('endAltitudeM')}>{single_('endAltitudeM')}</NumberField>
+          <NumberField label="Horizontal accuracy shown by the phone" quantity="length" units={units} value={single.horizontalAccuracyM} onChange={setOne('horizontalAccuracyM')}>{single_('horizontalAccuracyM')}</NumberField>
         </div>
       )}
       {method === 'barometric' && (
         <div className="grid gap-3">
-          <NumberField label="Pressure at the start" quantity="pressureHPa" units={units} value={single.startPressureHPa} onChange={setOne('startPressureHPa')} />
-          <NumberField label="Pressure at the end" quantity="pressureHPa" units={units} value={single.endPressureHPa} onChange={setOne('endPressureHPa')} />
+          <NumberField label="Pressure at the start" quantity="pressureHPa" units={units} value={single.startPressureHPa} onChange={setOne('startPressureHPa')}>{single_('startPressureHPa')}</NumberField>
+          <NumberField label="Pressure at the end" quantity="pressureHPa" units={units} value={single.endPressureHPa} onChange={setOne('endPressureHPa')}>{single_('endPressureHPa')}</NumberField>
         </div>
       )}
-      {method === 'direct' && <NumberField label="Height of the tank above the pump" quantity="length" units={units} value={single.staticLiftM} onChange={setOne('staticLiftM')} />}
+      {method === 'direct' && <NumberField label="Height of the tank above the pump" quantity="length" units={units} value={single.staticLiftM} onChange={setOne('staticLiftM')}>{single_('staticLiftM')}</NumberField>}
       {method !== 'direct' && (
         <div className="rounded-md border-2 border-creek bg-white p-3" aria-live="polite" data-testid="fall-live">
           <p className="text-lg font-bold">{purpose === 'fall' ? 'Fall' : 'Height change'} so far: <span className="figure">{showQuantity(live.dropM, 'length', units)}</span></p>
@@ -95,6 +104,7 @@ export function FallForm({ visitId, purpose, units }: { visitId: string; purpose
           {live.message && <p className="text-stone">{live.message}</p>}
         </div>
       )}
+      <FieldIssue check={check} path="run" />
       <ProfileChart levelsM={live.levelsM} units={units} />
       {message && <p role="status" className="font-bold">{message}</p>}
       <PrimaryButton onClick={save}>Save this run</PrimaryButton>

@@ -1,5 +1,6 @@
 'use client';
 
+import type { ReactNode } from 'react';
 import type { UnitSystem } from '@/lib/shared/domain';
 import type { Quantity } from '@/lib/shared/quantities';
 import { NumberField } from '../../../_components/number-field';
@@ -9,13 +10,15 @@ export type Row = Record<string, number | undefined>;
 export interface Column { key: string; label: string; quantity: Quantity; signed?: boolean }
 
 /** A list of readings rows (level set-ups, hose steps, clinometer legs) with add and remove. */
-export function RowEditor({ title, rows, columns, units, onChange, addLabel }: {
+export function RowEditor({ title, rows, columns, units, onChange, addLabel, issueAt }: {
   title: (index: number, count: number) => string;
   rows: Row[];
   columns: (index: number, count: number) => Column[];
   units: UnitSystem;
   onChange: (rows: Row[]) => void;
   addLabel: string;
+  /** The record check's note for a reading (row index, column key). */
+  issueAt?: (index: number, key: string) => ReactNode;
 }) {
   return (
     <div className="space-y-3">
@@ -25,7 +28,9 @@ export function RowEditor({ title, rows, columns, units, onChange, addLabel }: {
           <div className="grid gap-3 sm:grid-cols-2">
             {columns(i, rows.length).map((c) => (
               <NumberField key={c.key} label={c.label} quantity={c.quantity} units={units} signed={c.signed} value={row[c.key]}
-                onChange={(v) => onChange(rows.map((r, j) => (j === i ? { ...r, [c.key]: v } : r)))} />
+                onChange={(v) => onChange(rows.map((r, j) => (j === i ? { ...r, [c.key]: v } : r)))}>
+                {issueAt?.(i, c.key)}
+              </NumberField>
             ))}
           </div>
           {rows.length > 1 && (

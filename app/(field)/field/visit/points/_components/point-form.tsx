@@ -5,12 +5,12 @@ import { useEffect, useState } from 'react';
 import { setDirty } from '@/lib/client/dirty';
 import { GOOD_FIX_M, watchFix, type Fix } from '@/lib/client/geolocation';
 import { newId } from '@/lib/client/ids';
-import { saveRecord } from '@/lib/client/outbox';
 import { announceSave } from '@/lib/client/sync/triggers';
 import type { PointRole, UnitSystem } from '@/lib/shared/domain';
 import { showQuantity } from '@/lib/shared/quantities';
 import { Choice, PrimaryButton } from '../../../_components/choice';
 import { NumberField } from '../../../_components/number-field';
+import { FieldIssue, useRecordCheck } from '../../../_components/record-check';
 import type { MapPoint } from './point-map';
 
 const PointMap = dynamic(() => import('./point-map'), { ssr: false, loading: () => <p className="text-stone">Loading the map…</p> });
@@ -28,6 +28,7 @@ export function PointForm({ visitId, units, points }: { visitId: string; units: 
   const [fix, setFix] = useState<Fix | null>(null);
   const [watching, setWatching] = useState(false);
   const [message, setMessage] = useState<string | null>(null);
+  const { check, save: saveChecked } = useRecordCheck('point', units);
 
   useEffect(() => {
     if (!watching) return;
@@ -48,16 +49,21 @@ export function PointForm({ visitId, units, points }: { visitId: string; units: 
   }
 
   async function save() {
-    if (lat === undefined || lon === undefined || lat < -90 || lat > 90 || lon < -180 || lon > 180) {
-      setMessage('A point needs a latitude (−90 to 90) and a longitude (−180 to 180): use my location, drag the pin, or type them.');
+    if (lat === undefined || lon === undefined) {
+      setMessage('A point needs a latitude and a longitude: use my location, drag the pin, or type them.');
       return;
     }
+    setMessage(null);
     const fromFix = fix && fix.lat === lat && fix.lon === lon;
-    await saveRecord('point', newId(), {
+    const saved = await saveChecked(newId(), {
       visitId, role: role as PointRole, label: label.trim(), lat, lon,
       accuracyM: fromFix ? fix.accuracyM : null, altitudeM: altitudeM ?? null,
       altitudeAccuracyM: fromFix ? fix.altitudeAccuracyM : null, chainageM: null, capturedAt: new Date().toISOString(),
     });
+    if (!saved) {
+      setMessage('Not saved yet: see the note at the field above.');
+      return;
+    }
     setLat(undefined); setLon(undefined); setAltitudeM(undefined); setLabel(''); setFix(null);
     setMessage('Point saved on this phone.');
     announceSave();
@@ -83,9 +89,9 @@ export function PointForm({ visitId, units, points }: { visitId: string; units: 
       <PointMap points={points} draft={lat !== undefined && lon !== undefined ? { lat, lon } : null}
         onDraftMove={(a, b) => { setLat(Number(a.toFixed(6))); setLon(Number(b.toFixed(6))); }} />
       <div className="grid gap-3 sm:grid-cols-2">
-        <NumberField label="Latitude" quantity="angle" units="metric" signed value={lat} onChange={setLat} />
-        <NumberField label="Longitude" quantity="angle" units="metric" signed value={lon} onChange={setLon} />
-        <NumberField label="Altitude (GPS, rough)" quantity="length" units={units} value={altitudeM} onChange={setAltitudeM} />
+        <NumberField label="Latitude" quantity="angle" units="metric" signed value={lat} onChange={setLat}><FieldIssue check={check} path="lat" /></NumberField>
+        <NumberField label="Longitude" quantity="angle" units="metric" signed value={lon} onChange={setLon}><FieldIssue check={check} path="lon" /></NumberField>
+        <NumberField label="Altitude (GPS, rough)" quantity="length" units={units} value={altitudeM} onChange={setAltitudeM}><FieldIssue check={check} path="altitudeM" /></NumberField>
       </div>
       {message && <p role="status" className="font-bold">{message}</p>}
       <PrimaryButton onClick={save}>Save point</PrimaryButton>

@@ -3,12 +3,12 @@
 import { useEffect, useState } from 'react';
 import { fixFields, watchFix, type Fix } from '@/lib/client/geolocation';
 import { newId } from '@/lib/client/ids';
-import { saveRecord } from '@/lib/client/outbox';
 import { announceSave } from '@/lib/client/sync/triggers';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { showQuantity } from '@/lib/shared/quantities';
 import { PrimaryButton } from '../../../_components/choice';
 import { NumberField } from '../../../_components/number-field';
+import { FieldIssue, useRecordCheck } from '../../../_components/record-check';
 
 /**
  * Adds one profile station: distance along the bank, levelled reduced level, and whether it floods.
@@ -23,6 +23,7 @@ export function StationForm({ visitId, units }: { visitId: string; units: UnitSy
   const [message, setMessage] = useState<string | null>(null);
   const [fix, setFix] = useState<Fix | null>(null);
   const [fixProblem, setFixProblem] = useState<string | null>(null);
+  const { check, save: saveChecked } = useRecordCheck('point', units);
 
   useEffect(() => watchFix((f) => { setFix(f); setFixProblem(null); }, setFixProblem), []);
 
@@ -33,9 +34,13 @@ export function StationForm({ visitId, units }: { visitId: string; units: UnitSy
     }
     const flags = [...(noIntake ? ['no-intake' as const] : []), ...(floods ? ['no-pump-site' as const] : [])];
     const position = fixFields(fix);
-    await saveRecord('point', newId(), {
+    const saved = await saveChecked(newId(), {
       visitId, role: 'station', label: '', ...position, chainageM, reducedLevelM: levelM, flags, capturedAt: new Date().toISOString(),
     });
+    if (!saved) {
+      setMessage('Not saved yet: see the note at the field above.');
+      return;
+    }
     setChainageM(undefined); setLevelM(undefined); setFloods(false); setNoIntake(false);
     setMessage(position.lat === null ? 'Station saved on this phone, without a position (placed by chainage on the map).' : 'Station saved on this phone, with its position.');
     announceSave();
@@ -50,8 +55,12 @@ export function StationForm({ visitId, units }: { visitId: string; units: UnitSy
     <fieldset className="space-y-3 rounded-md border-2 border-rule bg-white p-3">
       <legend className="px-1 text-xl font-bold">Add a station</legend>
       <div className="grid gap-3 sm:grid-cols-2">
-        <NumberField label="Distance along the bank from the top" quantity="length" units={units} value={chainageM} onChange={setChainageM} />
-        <NumberField label="Level (reduced level)" quantity="length" units={units} signed value={levelM} onChange={setLevelM} />
+        <NumberField label="Distance along the bank from the top" quantity="length" units={units} value={chainageM} onChange={setChainageM}>
+          <FieldIssue check={check} path="chainageM" />
+        </NumberField>
+        <NumberField label="Level (reduced level)" quantity="length" units={units} signed value={levelM} onChange={setLevelM}>
+          <FieldIssue check={check} path="reducedLevelM" />
+        </NumberField>
       </div>
       <div className="flex flex-wrap gap-2">
         {toggle(floods, setFloods, 'Floods: no ram here')}
