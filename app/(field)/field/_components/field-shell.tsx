@@ -3,6 +3,7 @@
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { startTransition, useEffect, useState } from 'react';
+import { guardUnsavedInput } from '@/lib/client/dirty';
 import type { LocalSession } from '@/lib/client/session';
 import { FieldUserContext } from './field-session';
 import { StorageNote } from './storage-note';
@@ -17,6 +18,9 @@ import { SyncBar } from './sync-bar';
 export function FieldShell({ children }: { children: React.ReactNode }) {
   const [session, setSession] = useState<LocalSession | null>(null);
   const router = useRouter();
+
+  // Trials timed, rows booked and not saved yet are never lost to a stray tap on a link.
+  useEffect(() => guardUnsavedInput(), []);
 
   useEffect(() => {
     // Test builds only (the condition is compiled in): the fault tests drive the app's own modules.

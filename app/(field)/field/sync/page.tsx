@@ -8,6 +8,7 @@ import { requestSync } from '@/lib/client/sync/triggers';
 import { discardParked, resolveConflict, retryParked } from '@/lib/client/sync/resolve';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { describeRecord, fieldLabel, showFieldValue } from '@/lib/shared/conflict-fields';
+import { isSchemaText } from '@/lib/shared/field-messages';
 import { useUnits } from '../_components/use-field-data';
 
 function Conflict({ entry, units }: { entry: OutboxEntry; units: UnitSystem }) {
@@ -37,11 +38,20 @@ function Conflict({ entry, units }: { entry: OutboxEntry; units: UnitSystem }) {
   );
 }
 
+/** The server's reason in plain words: never a schema path or zod's own wording. */
+function refusalReason(entry: OutboxEntry): string {
+  const error = entry.result?.error;
+  const plain = (m: string) => m.replace(/^[\w.]+: /, '');
+  const candidates = [error?.message, ...Object.values(error?.fieldErrors ?? {}).flat()].filter((m): m is string => !!m).map(plain);
+  return candidates.find((m) => !isSchemaText(m) && !/^A new \w+ must carry/.test(m)) ?? 'The server could not use this change.';
+}
+
 function Refused({ entry }: { entry: OutboxEntry }) {
   return (
     <li className="space-y-2 rounded-md border-2 border-clay bg-white p-3">
-      <p className="font-bold">The server refused a change ({entry.entity})</p>
-      <p>{entry.result?.error?.message ?? 'No reason given.'}</p>
+      <p className="font-bold">The server refused a change to {describeRecord(entry.entity, (entry.op.changes ?? {}) as Record<string, unknown>)}</p>
+      <p>{refusalReason(entry)}</p>
+      <p className="text-stone">Give it up to put back what the server holds; send it again once the reason is fixed.</p>
       <div className="grid grid-cols-2 gap-2">
         <button type="button" className="min-h-12 rounded-md bg-slate font-bold text-white" onClick={() => retryParked(entry.seq!)}>Send again</button>
         <button type="button" className="min-h-12 rounded-md border-2 border-clay font-bold text-clay" onClick={() => discardParked(entry.seq!)}>Give it up</button>

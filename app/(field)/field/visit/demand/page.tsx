@@ -1,12 +1,13 @@
 'use client';
 
 import { useLiveQuery } from 'dexie-react-hooks';
-import { Suspense, useState } from 'react';
+import { Suspense, useEffect, useState } from 'react';
 import { DEMAND_CATALOGUE, type DemandKind } from '@/lib/engine/demand';
 import { SOURCES } from '@/lib/engine/sources';
 import { fieldDb } from '@/lib/client/db';
+import { setDirty } from '@/lib/client/dirty';
 import { newId } from '@/lib/client/ids';
-import { deleteRecord } from '@/lib/client/outbox';
+
 import { getMeta } from '@/lib/client/sync/meta';
 import { announceSave } from '@/lib/client/sync/triggers';
 import { showQuantity } from '@/lib/shared/quantities';
@@ -15,6 +16,7 @@ import { PrimaryButton, SectionHeader } from '../../_components/choice';
 import { NumberField } from '../../_components/number-field';
 import { FieldIssue, useRecordCheck } from '../../_components/record-check';
 import { useUnits, useVisit, useVisitId } from '../../_components/use-field-data';
+import { useUndoableDelete } from '../../_components/undo-delete';
 
 const KINDS = Object.values(DEMAND_CATALOGUE);
 
@@ -27,6 +29,7 @@ function sourceName(id: string): string {
 function DemandPage() {
   const visitId = useVisitId();
   const units = useUnits();
+  const { remove, bar } = useUndoableDelete();
   const data = useVisit(visitId);
   const farmId = data?.visit.farmId ?? '';
   const lines = useLiveQuery(async () => (farmId ? (await fieldDb().demandLines.where('farmId').equals(farmId).toArray()).filter((l) => !l.deletedAt) : []), [farmId]);
@@ -36,6 +39,11 @@ function DemandPage() {
   const [perHead, setPerHead] = useState<number | undefined>();
   const [message, setMessage] = useState<string | null>(null);
   const { check, save } = useRecordCheck('demandLine', units);
+  const typed = count !== undefined || perHead !== undefined;
+  useEffect(() => {
+    setDirty('demand', typed);
+    return () => setDirty('demand', false);
+  }, [typed]);
   const entry = DEMAND_CATALOGUE[kind];
   const defaultFigure = overrides[kind] ?? entry.litresPerHeadPerDay;
   const total = (lines ?? []).reduce((sum, l) => sum + l.count * l.litresPerHeadPerDay, 0);
@@ -71,10 +79,11 @@ function DemandPage() {
               <span className="figure block">{showQuantity(l.litresPerHeadPerDay, 'volume', units)} each a day · {sourceName(l.figureSource)}</span>
             </span>
             <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold"
-              onClick={async () => { await deleteRecord('demandLine', l.id); announceSave(); }}>Delete</button>
+              onClick={() => remove('demandLine', l.id, 'the line')}>Delete</button>
           </li>
         ))}
       </ul>
+      {bar}
       <section aria-labelledby="add-line" className="space-y-3 rounded-md border-2 border-rule bg-white p-3">
         <h2 id="add-line" className="text-xl font-bold">Add a line</h2>
         <label htmlFor="kind" className="block font-bold">Who or what drinks</label>

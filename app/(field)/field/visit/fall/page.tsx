@@ -3,17 +3,18 @@
 import { useLiveQuery } from 'dexie-react-hooks';
 import { Suspense, useState } from 'react';
 import { fieldDb } from '@/lib/client/db';
-import { deleteRecord } from '@/lib/client/outbox';
-import { announceSave } from '@/lib/client/sync/triggers';
+
 import { showQuantity } from '@/lib/shared/quantities';
 import { Choice, SectionHeader } from '../../_components/choice';
 import { useUnits, useVisitId } from '../../_components/use-field-data';
+import { useUndoableDelete } from '../../_components/undo-delete';
 import { FallForm } from './_components/fall-form';
 import { liveResult } from './_components/run-builders';
 
 function FallPage() {
   const visitId = useVisitId();
   const units = useUnits();
+  const { remove, bar } = useUndoableDelete();
   const [purpose, setPurpose] = useState<'fall' | 'lift'>('fall');
   const saved = useLiveQuery(async () => (await fieldDb().fallReadings.where('visitId').equals(visitId).toArray()).filter((r) => !r.deletedAt).sort((a, b) => a.seq - b.seq), [visitId]);
   return (
@@ -35,11 +36,12 @@ function FallPage() {
                   <span className="figure block">{showQuantity(drop === null ? null : Math.abs(drop), 'length', units)}</span>
                 </span>
                 <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold"
-                  onClick={async () => { await deleteRecord('fallReading', r.id); announceSave(); }}>Delete</button>
+                  onClick={() => remove('fallReading', r.id, r.purpose === 'fall' ? 'the fall run' : 'the lift run')}>Delete</button>
               </li>
             );
           })}
         </ul>
+      {bar}
       </section>
     </div>
   );

@@ -4,7 +4,7 @@ import { useLiveQuery } from 'dexie-react-hooks';
 import { Suspense, useState } from 'react';
 import { fieldDb } from '@/lib/client/db';
 import { newId } from '@/lib/client/ids';
-import { deleteRecord, saveRecord } from '@/lib/client/outbox';
+import { saveRecord } from '@/lib/client/outbox';
 import { announceSave } from '@/lib/client/sync/triggers';
 import { floatFlowLps, summarise, vNotchFlowLps, volumetricFlowLps } from '@/lib/engine/flow';
 import type { UnitSystem } from '@/lib/shared/domain';
@@ -12,6 +12,7 @@ import { showQuantity } from '@/lib/shared/quantities';
 import type { FlowMeasurement } from '@/lib/shared/schemas/site-readings';
 import { SectionHeader } from '../../_components/choice';
 import { useUnits, useVisitId } from '../../_components/use-field-data';
+import { useUndoableDelete } from '../../_components/undo-delete';
 import { FlowForm } from './_components/flow-form';
 
 function meanLps(m: FlowMeasurement): number | null {
@@ -54,6 +55,7 @@ function SourceName({ visitId, units }: { visitId: string; units: UnitSystem }) 
 function FlowPage() {
   const visitId = useVisitId();
   const units = useUnits();
+  const { remove, bar } = useUndoableDelete();
   const saved = useLiveQuery(async () => (await fieldDb().flowMeasurements.where('visitId').equals(visitId).toArray()).filter((m) => !m.deletedAt), [visitId]);
   return (
     <div className="space-y-5">
@@ -70,10 +72,11 @@ function FlowPage() {
                 <span className="figure block">{showQuantity(meanLps(m.measurement), 'flowLps', units)} mean of {m.measurement.trials.length}</span>
               </span>
               <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold"
-                onClick={async () => { await deleteRecord('flowMeasurement', m.id); announceSave(); }}>Delete</button>
+                onClick={() => remove('flowMeasurement', m.id, 'the flow measurement')}>Delete</button>
             </li>
           ))}
         </ul>
+      {bar}
       </section>
     </div>
   );

@@ -4,12 +4,13 @@ import { useLiveQuery } from 'dexie-react-hooks';
 import { Suspense, useEffect, useMemo, useState } from 'react';
 import { fieldDb } from '@/lib/client/db';
 import { newId } from '@/lib/client/ids';
-import { deleteRecord, savePhoto } from '@/lib/client/outbox';
+import { savePhoto } from '@/lib/client/outbox';
 import { waitingPhotoIds } from '@/lib/client/photo-queue';
 import { readPhoto } from '@/lib/client/photo-intake';
 import { announceSave } from '@/lib/client/sync/triggers';
 import { SectionHeader } from '../../_components/choice';
 import { useVisitId } from '../../_components/use-field-data';
+import { useUndoableDelete } from '../../_components/undo-delete';
 
 /** A photo shown from the phone's own bytes, or the server's thumbnail when it came from elsewhere. */
 function Thumb({ id, alt }: { id: string; alt: string }) {
@@ -25,6 +26,7 @@ function Thumb({ id, alt }: { id: string; alt: string }) {
 
 function PhotosPage() {
   const visitId = useVisitId();
+  const { remove, bar } = useUndoableDelete();
   const [busy, setBusy] = useState(false);
   const [message, setMessage] = useState<string | null>(null);
   const photos = useLiveQuery(async () => {
@@ -71,10 +73,11 @@ function PhotosPage() {
             <span className="mt-1 block text-sm">{p.lat !== null ? `${p.lat.toFixed(5)}, ${p.lon?.toFixed(5)}` : 'No position'}</span>
             <span className="block text-sm font-bold">{p.uploaded ? 'On the server' : 'Waiting to upload'}</span>
             <button type="button" className="mt-1 min-h-12 w-full rounded-md border-2 border-stone font-bold"
-              onClick={async () => { await deleteRecord('photo', p.id); announceSave(); }}>Delete</button>
+              onClick={() => remove('photo', p.id, 'the photo')}>Delete</button>
           </li>
         ))}
       </ul>
+      {bar}
     </div>
   );
 }

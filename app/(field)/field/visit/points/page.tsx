@@ -4,16 +4,17 @@ import { useLiveQuery } from 'dexie-react-hooks';
 import Link from 'next/link';
 import { Suspense } from 'react';
 import { fieldDb } from '@/lib/client/db';
-import { deleteRecord } from '@/lib/client/outbox';
-import { announceSave } from '@/lib/client/sync/triggers';
+
 import { showQuantity } from '@/lib/shared/quantities';
 import { SectionHeader } from '../../_components/choice';
 import { useUnits, useVisitId } from '../../_components/use-field-data';
+import { useUndoableDelete } from '../../_components/undo-delete';
 import { PointForm } from './_components/point-form';
 
 function PointsPage() {
   const visitId = useVisitId();
   const units = useUnits();
+  const { remove, bar } = useUndoableDelete();
   const all = useLiveQuery(async () => (await fieldDb().points.where('visitId').equals(visitId).toArray()).filter((p) => !p.deletedAt), [visitId]);
   // Creek-profile stations (booked along the bank) live on the profile page: dozens of them would bury the site points here.
   const isProfileStation = (p: NonNullable<typeof all>[number]) => p.role === 'station' && p.chainageM !== null;
@@ -39,10 +40,11 @@ function PointsPage() {
                 <span className="figure block">{p.lat !== null && p.lon !== null ? `${p.lat.toFixed(5)}, ${p.lon.toFixed(5)}` : 'no position'}{p.accuracyM !== null ? ` ± ${showQuantity(p.accuracyM, 'length', units)}` : ''}</span>
               </span>
               <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold"
-                onClick={async () => { await deleteRecord('point', p.id); announceSave(); }}>Delete</button>
+                onClick={() => remove('point', p.id, 'the point')}>Delete</button>
             </li>
           ))}
         </ul>
+      {bar}
       </section>
     </div>
   );

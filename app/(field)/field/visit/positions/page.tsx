@@ -6,13 +6,14 @@ import { VerdictMark } from '@/components/verdict-mark';
 import { bestPositions, EngineInputError, type BestPositionsResult, type ProfileTank } from '@/lib/engine';
 import { fieldDb } from '@/lib/client/db';
 import { newId } from '@/lib/client/ids';
-import { deleteRecord, saveRecord } from '@/lib/client/outbox';
+import { saveRecord } from '@/lib/client/outbox';
 import { adoptPair, levelOf, localProfile } from '@/lib/client/profile-positions';
 import { announceSave } from '@/lib/client/sync/triggers';
 import { showQuantity } from '@/lib/shared/quantities';
 import { PrimaryButton, SectionHeader } from '../../_components/choice';
 import { NumberField } from '../../_components/number-field';
 import { useUnits, useVisitId } from '../../_components/use-field-data';
+import { useUndoableDelete } from '../../_components/undo-delete';
 import { PositionsChart } from './_components/positions-chart';
 import { PositionsMapPanel } from './_components/positions-map-panel';
 import { StationForm } from './_components/station-form';
@@ -122,7 +123,8 @@ function PositionsPage() {
 
 function StationList({ visitId, units }: { visitId: string; units: ReturnType<typeof useUnits> }) {
   const rows = useLiveQuery(async () => (await fieldDb().points.where('visitId').equals(visitId).toArray()).filter((p) => !p.deletedAt && p.role === 'station').sort((a, b) => (a.chainageM ?? 0) - (b.chainageM ?? 0)), [visitId]);
-  if (!rows?.length) return null;
+  const { remove, bar } = useUndoableDelete();
+  if (!rows?.length) return bar;
   return (
     <details>
       <summary className="min-h-12 cursor-pointer font-bold">Saved stations ({rows.length})</summary>
@@ -130,10 +132,11 @@ function StationList({ visitId, units }: { visitId: string; units: ReturnType<ty
         {rows.map((p) => (
           <li key={p.id} className="flex items-center justify-between px-3 py-2">
             <span className="figure">{showQuantity(p.chainageM, 'length', units)} · level {showQuantity(levelOf(p), 'length', units)}{p.flags?.includes('no-pump-site') ? ' · floods' : ''}{p.flags?.includes('no-intake') ? ' · no intake' : ''}</span>
-            <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold" onClick={async () => { await deleteRecord('point', p.id); announceSave(); }}>Delete</button>
+            <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold" onClick={() => remove('point', p.id, 'the station')}>Delete</button>
           </li>
         ))}
       </ul>
+      {bar}
     </details>
   );
 }

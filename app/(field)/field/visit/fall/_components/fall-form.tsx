@@ -65,7 +65,9 @@ export function FallForm({ visitId, purpose, units }: { visitId: string; purpose
   }
 
   const setOne = (key: string) => (v: number | undefined) => setSingle((s) => ({ ...s, [key]: v }));
-  const rowIssue = (key: 'rows' | 'steps' | 'legs') => (i: number, column: string) => <FieldIssue check={check} path={`run.${key}.${i}.${column}`} />;
+  const rowIssue = (key: 'rows' | 'steps' | 'legs') => function RowIssue(i: number, column: string) {
+    return <FieldIssue check={check} path={`run.${key}.${i}.${column}`} />;
+  };
   const single_ = (key: string) => <FieldIssue check={check} path={`run.${key}`} />;
   return (
     <div className="space-y-4">

@@ -1,0 +1,62 @@
+'use client';
+
+// Deletes on the phone take one tap and can be taken back for a while: the delete waits a few seconds
+// before it is offered to the server, and "Undo" brings the record back as long as it has not gone.
+import { useEffect, useRef, useState } from 'react';
+import { deleteRecord, undoDelete } from '@/lib/client/outbox';
+import { announceSave } from '@/lib/client/sync/triggers';
+import type { SyncEntity } from '@/lib/shared/schemas/sync';
+
+/** How long the delete waits before the phone offers it to the server. */
+export const UNDO_WINDOW_MS = 10_000;
+
+interface Pending { entity: SyncEntity; id: string; what: string }
+
+export function useUndoableDelete() {
+  const [pending, setPending] = useState<Pending | null>(null);
+  const [note, setNote] = useState<string | null>(null);
+  const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
+
+  const settle = () => {
+    if (timer.current) clearTimeout(timer.current);
+    timer.current = null;
+  };
+  // Leaving the page sends what was deleted (the delete is already queued; this only wakes the sync).
+  useEffect(() => () => {
+    if (timer.current) {
+      clearTimeout(timer.current);
+      announceSave();
+    }
+  }, []);
+
+  async function remove(entity: SyncEntity, id: string, what: string) {
+    settle();
+    await deleteRecord(entity, id);
+    setNote(null);
+    setPending({ entity, id, what });
+    timer.current = setTimeout(() => {
+      timer.current = null;
+      setPending(null);
+      announceSave();
+    }, UNDO_WINDOW_MS);
+  }
+
+  async function undo() {
+    if (!pending) return;
+    settle();
+    const back = await undoDelete(pending.entity, pending.id);
+    setNote(back ? `${pending.what} is back.` : `${pending.what} had already gone to the server; add it again if you need it.`);
+    setPending(null);
+  }
+
+  const bar = pending || note ? (
+    <div role="status" className="flex items-center justify-between gap-3 rounded-md border-2 border-slate bg-white p-3" data-testid="undo-bar">
+      <p className="font-bold">{pending ? `Deleted: ${pending.what}.` : note}</p>
+      {pending && (
+        <button type="button" onClick={undo} className="min-h-12 min-w-24 rounded-md bg-slate px-4 font-bold text-white">Undo</button>
+      )}
+    </div>
+  ) : null;
+
+  return { remove, bar };
+}
