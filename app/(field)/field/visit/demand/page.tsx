@@ -7,7 +7,6 @@ import { SOURCES } from '@/lib/engine/sources';
 import { fieldDb } from '@/lib/client/db';
 import { setDirty } from '@/lib/client/dirty';
 import { newId } from '@/lib/client/ids';
-
 import { getMeta } from '@/lib/client/sync/meta';
 import { announceSave } from '@/lib/client/sync/triggers';
 import { showQuantity } from '@/lib/shared/quantities';

@@ -3,7 +3,6 @@
 import { useLiveQuery } from 'dexie-react-hooks';
 import { Suspense, useState } from 'react';
 import { fieldDb } from '@/lib/client/db';
-
 import { showQuantity } from '@/lib/shared/quantities';
 import { Choice, SectionHeader } from '../../_components/choice';
 import { useUnits, useVisitId } from '../../_components/use-field-data';

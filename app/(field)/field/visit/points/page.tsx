@@ -4,7 +4,6 @@ import { useLiveQuery } from 'dexie-react-hooks';
 import Link from 'next/link';
 import { Suspense } from 'react';
 import { fieldDb } from '@/lib/client/db';
-
 import { showQuantity } from '@/lib/shared/quantities';
 import { SectionHeader } from '../../_components/choice';
 import { useUnits, useVisitId } from '../../_components/use-field-data';
