@@ -39,7 +39,7 @@ const FIELDS: Record<string, { label: string; quantity?: Quantity }> = {
   startPressureHPa: { label: 'Pressure at the start', quantity: 'pressureHPa' }, endPressureHPa: { label: 'Pressure at the end', quantity: 'pressureHPa' },
   airTemperatureC: { label: 'Air temperature' },
   staticLiftM: { label: 'Height of the tank above the pump', quantity: 'length' }, uncertaintyM: { label: 'Uncertainty', quantity: 'length' },
-  liftMethod: { label: 'How the lift was found' }, method: { label: 'Method' }, season: { label: 'Season' },
+  liftMethod: { label: 'How the lift was found' }, result: { label: 'The run' }, method: { label: 'Method' }, season: { label: 'Season' },
   width: { label: 'Photo width' }, height: { label: 'Photo height' }, bytes: { label: 'Photo size' }, mime: { label: 'Photo type' },
 };
 

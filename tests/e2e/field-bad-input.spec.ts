@@ -3,7 +3,8 @@ import { signInAs, waitForWorker } from './support/sign-in';
 
 // Impossible readings get a message at the field where they were typed and are never saved; unusual
 // ones are saved only once confirmed; unsaved trials are not lost to a stray link; a delete can be
-// undone. On a 412 px phone (the Pixel 7 project). The messages must never be schema text.
+// undone. On a 412 px phone (the Pixel 7 project), as Ines, who works in US units (feet, gallons,
+// inches): limits are told in her units. The messages must never be schema text.
 const SCHEMA_TEXT = /Invalid input|expected .* received|Too (big|small)|\w+\.\d+\.\w+/;
 
 async function openVisit(page: Page): Promise<string> {
@@ -31,11 +32,11 @@ test('bad readings are refused at their field, unusual ones need a yes, nothing 
   await page.getByLabel('Backsight').fill('0');
   await page.getByLabel('Foresight').fill('500');
   await page.getByRole('button', { name: 'Save this run' }).click();
-  await expectFieldAlert(page, /Foresight must be at most 6/);
+  await expectFieldAlert(page, /Foresight must be at most 19\.69 ft/);
   await page.getByLabel('Backsight').fill('2.5');
   await page.getByLabel('Foresight').fill('0.5');
   await page.getByRole('button', { name: 'Save this run' }).click();
-  await expectFieldAlert(page, /climbs 2(\.0+)? m from the intake to the ram/);
+  await expectFieldAlert(page, /climbs 2\.00 ft from the intake to the ram/);
   await expect(page.getByRole('region', { name: 'Saved runs' }).getByText('None yet.')).toBeVisible();
 
   // Flow: a negative bucket, a zero-second trial, a negative notch head.
@@ -67,7 +68,7 @@ test('bad readings are refused at their field, unusual ones need a yes, nothing 
   await page.goto(`/field/visit/pipes?id=${id}`);
   await page.getByLabel(/Inside diameter/).first().fill('5000');
   await page.getByRole('button', { name: 'Save pipe runs' }).click();
-  await expectFieldAlert(page, /must be at most 600/);
+  await expectFieldAlert(page, /Inside diameter must be at most 23\.62 in/);
 
   // Water needed: 100,001 people is refused; 450 asks "is this right?" and saves once confirmed.
   await page.goto(`/field/visit/demand?id=${id}`);

@@ -166,8 +166,10 @@ export function checkRunHeight(run: FallRun, purpose: 'fall' | 'lift', bookedFro
   if (drop === null) return;
   const heightM = purpose === 'fall' || bookedFrom === 'tank' ? drop : -drop;
   const maxM = purpose === 'fall' ? MAX_FALL_M : MAX_LIFT_M;
-  if (heightM <= 0) ctx.addIssue({ code: 'custom', path, params: { kind: purpose === 'fall' ? 'uphill-fall' : 'downhill-lift', heightM: -heightM } });
-  else if (heightM > maxM) ctx.addIssue({ code: 'custom', path, params: { kind: purpose === 'fall' ? 'fall-too-high' : 'lift-too-high', heightM, maxM } });
+  // At the run's "result", never at the run itself: a message set on the run would hide those of its readings.
+  const at = [...path, 'result'];
+  if (heightM <= 0) ctx.addIssue({ code: 'custom', path: at, params: { kind: purpose === 'fall' ? 'uphill-fall' : 'downhill-lift', heightM: -heightM } });
+  else if (heightM > maxM) ctx.addIssue({ code: 'custom', path: at, params: { kind: purpose === 'fall' ? 'fall-too-high' : 'lift-too-high', heightM, maxM } });
 }
 
 export const LIFT_DIRECT_METHODS = ['level', 'hose', 'clinometer', 'gps', 'barometric', 'map'] as const;

@@ -26,10 +26,10 @@ describe('impossible readings are refused in plain words', () => {
   it('an uphill "fall" is refused with its climb, in the reader\'s units', () => {
     // Backsight 0.5, foresight 0: the far station is 0.5 m higher (height of instrument; surveying textbooks).
     const metric = refusal('fallReading', level([{ backsightM: 0.5 }, { foresightM: 0 }]));
-    expect(metric.run).toMatch(/^This run climbs 0\.500 m from the intake to the ram/);
+    expect(metric['run.result']).toMatch(/^This run climbs 0\.500 m from the intake to the ram/);
     const parsed = recordSchemas.fallReading.safeParse(level([{ backsightM: 2.5 }, { foresightM: 0.5 }]));
     const us = messagesByPath(parsed.error!.issues.map((i) => ({ ...i, message: undefined })), 'us');
-    expect(us.run).toMatch(/^This run climbs 6\.56 ft/);
+    expect(us['run.result']).toMatch(/^This run climbs 6\.56 ft/);
   });
 
   it('a lift of 5,000 m and one of −30 m are refused', () => {
@@ -64,7 +64,7 @@ describe('impossible readings are refused in plain words', () => {
   it('the engine\'s own input refuses an uphill fall run too', () => {
     const parsed = siteReadingsSchema.safeParse({ fallRuns: [{ method: 'hose', steps: [{ upperReadingM: 2, lowerReadingM: 0 }] }] });
     expect(parsed.success).toBe(false);
-    expect(parsed.error!.issues.some((i) => i.path.join('.') === 'fallRuns.0' && /climbs 2\.000 m/.test(i.message))).toBe(true);
+    expect(parsed.error!.issues.some((i) => i.path.join('.') === 'fallRuns.0.result' && /climbs 2\.000 m/.test(i.message))).toBe(true);
   });
 
   it('no message it gives is zod\'s own wording', () => {

@@ -59,7 +59,7 @@ function PipeFields({ name, title, control, units, hint }: { name: 'drive' | 'de
 function PipesForm({ visitId, existing, units }: { visitId: string; existing: LocalRecord<'pipeRun'>[]; units: UnitSystem }) {
   const find = (purpose: 'drive' | 'delivery' | 'feed') => existing.find((p) => p.purpose === purpose);
   const [message, setMessage] = useState<string | null>(null);
-  const { control, handleSubmit, formState } = useForm<Values>({
+  const { control, handleSubmit, formState, reset } = useForm<Values>({
     resolver: zodResolver(schema, { error: (issue) => plainIssueMessage(issue, units) }),
     defaultValues: {
       drive: { lengthM: find('drive')?.lengthM ?? undefined, diameterMm: find('drive')?.diameterMm ?? undefined, material: find('drive')?.material ?? 'galvanized-steel' },
@@ -85,6 +85,8 @@ function PipesForm({ visitId, existing, units }: { visitId: string; existing: Lo
         visitId, purpose, lengthM: v.lengthM ?? null, diameterMm: v.diameterMm ?? null, material: v.material, pressureClass: find(purpose)?.pressureClass ?? null,
       }, units);
     }
+    // What is saved is no longer unsaved input: leaving the page now asks nothing.
+    reset(values);
     setMessage('Pipe runs saved on this phone.');
     announceSave();
   }

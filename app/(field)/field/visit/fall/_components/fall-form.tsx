@@ -106,6 +106,7 @@ export function FallForm({ visitId, purpose, units }: { visitId: string; purpose
           {live.message && <p className="text-stone">{live.message}</p>}
         </div>
       )}
+      <FieldIssue check={check} path="run.result" />
       <FieldIssue check={check} path="run" />
       <ProfileChart levelsM={live.levelsM} units={units} />
       {message && <p role="status" className="font-bold">{message}</p>}
