@@ -1,11 +1,15 @@
 import 'server-only';
-import { knownDemandFigures } from '@/lib/shared/demand-kinds';
 import type { Transaction } from 'sequelize';
 import { DemandLine, FallReading, FlowMeasurement, Organisation, PipeRun, Visit } from '@/lib/server/db';
+import { knownDemandFigures } from '@/lib/shared/demand-kinds';
 import type { SiteReadingsInput } from '@/lib/shared/schemas/site-readings';
+import { buildSiteReadings } from '@/lib/shared/site-readings-input';
+import { ENTITY_SPECS, pulledRecord, type SyncedRow } from '../sync/entities';
 
-type Json = Record<string, unknown>;
-const asObject = (value: unknown): Json => (value && typeof value === 'object' && !Array.isArray(value) ? (value as Json) : {});
+/** Rows in the protocol's shape, the one the phone holds (the pull's own conversion). */
+function records<T>(entity: keyof typeof ENTITY_SPECS, rows: readonly unknown[]): T[] {
+  return rows.map((row) => pulledRecord(ENTITY_SPECS[entity], row as SyncedRow) as T);
+}
 
 /**
  * A visit's stored raw readings in the engine's input shape (not yet validated: the caller parses
@@ -15,49 +19,22 @@ export async function loadSiteReadings(visitId: string, transaction?: Transactio
   const visit = await Visit.findByPk(visitId, { transaction, rejectOnEmpty: true });
   const live = { visitId, deletedAt: null };
   const [flows, runs, pipes, demand, organisation] = await Promise.all([
-    FlowMeasurement.findAll({ where: live, order: [['takenAt', 'ASC'], ['id', 'ASC']], transaction }),
-    FallReading.findAll({ where: live, order: [['purpose', 'ASC'], ['seq', 'ASC'], ['id', 'ASC']], transaction }),
+    FlowMeasurement.findAll({ where: live, transaction }),
+    FallReading.findAll({ where: live, transaction }),
     PipeRun.findAll({ where: live, transaction }),
-    DemandLine.findAll({ where: { farmId: visit.farmId, deletedAt: null }, order: [['id', 'ASC']], transaction }),
+    DemandLine.findAll({ where: { farmId: visit.farmId, deletedAt: null }, transaction }),
     Organisation.findByPk(visit.organisationId, { transaction, rejectOnEmpty: true }),
   ]);
-
-  const fallRuns = runs.filter((r) => r.purpose === 'fall').map((r) => ({ method: r.method, ...asObject(r.bookings) }));
-  const liftRows = runs.filter((r) => r.purpose === 'lift');
-  const direct = liftRows.find((r) => r.method === 'direct');
-  const lift = direct
-    ? { kind: 'direct', ...asObject(direct.bookings) }
-    : { kind: 'runs', bookedFrom: asObject(liftRows[0]?.bookings).bookedFrom ?? 'pump',
-        runs: liftRows.map((r) => {
-          const { bookedFrom: _ignored, ...rest } = asObject(r.bookings);
-          return { method: r.method, ...rest };
-        }) };
-  const pipe = (purpose: string) => {
-    const row = pipes.find((p) => p.purpose === purpose);
-    if (!row) return undefined;
-    return {
-      lengthM: row.lengthM ?? undefined,
-      diameterMm: row.diameterMm ?? undefined,
-      material: row.material,
-      pressureClass: row.pressureClass ?? undefined,
-    };
-  };
-
-  return {
-    flowMeasurements: flows.map((f) => ({
-      id: f.id, method: f.method, season: f.season, takenAt: f.takenAt?.toISOString(), ...asObject(f.readings),
-    })),
-    fallRuns,
-    lift,
-    drivePipe: pipe('drive') ?? {},
-    ...(pipe('feed')?.lengthM ? { feedPipe: { lengthM: pipe('feed')?.lengthM, diameterMm: pipe('feed')?.diameterMm, material: pipe('feed')?.material } } : {}),
-    deliveryPipe: pipe('delivery'),
-    demand: demand.map((d) => ({ kind: d.kind, count: d.count, litresPerHeadPerDay: d.litresPerHeadPerDay })),
+  return buildSiteReadings({
+    flows: records('flowMeasurement', flows),
+    runs: records('fallReading', runs),
+    pipes: records('pipeRun', pipes),
+    demand: records('demandLine', demand),
+    samples: 10_000,
     settings: {
       designFractionOfLowest: organisation.settings.designFractionOfLowest,
-      ...(organisation.settings.minProbabilityForGo !== undefined ? { minProbabilityForGo: organisation.settings.minProbabilityForGo } : {}),
+      minProbabilityForGo: organisation.settings.minProbabilityForGo,
       demandOverrides: knownDemandFigures(organisation.settings.demandFigures),
     },
-    monteCarlo: { samples: 10_000, seed: 1 },
-  } as SiteReadingsInput;
+  });
 }
