@@ -41,6 +41,8 @@ test('bad readings are refused at their field, unusual ones need a yes, nothing 
 
   // Flow: a negative bucket, a zero-second trial, a negative notch head.
   await page.goto(`/field/visit/flow?id=${id}`);
+  await page.getByLabel('Name of the source (spring, creek…)').fill('Spinney brook');
+  await page.getByRole('button', { name: 'Start measuring this source' }).click();
   await page.getByLabel('Or type the seconds').fill('0');
   await page.getByRole('button', { name: 'Add typed trial' }).click();
   await expectFieldAlert(page, /Seconds must be more than 0/);
