@@ -1,10 +1,10 @@
 /// <reference lib="webworker" />
 // The service worker: precached app shell and field routes, runtime caching, the offline fallback
-// page, and the sync loop (the same module the page runs) on Background Sync and on request.
+// page, and the sync loop (the same module the page's sync worker runs) on Background Sync.
 import { defaultCache } from '@serwist/next/worker';
 import type { PrecacheEntry, SerwistGlobalConfig } from 'serwist';
 import { NetworkOnly, Serwist } from 'serwist';
-import { runSync } from '../lib/client/sync/runner';
+import { runSync, SYNC_NAME } from '../lib/client/sync/runner';
 
 declare global {
   interface WorkerGlobalScope extends SerwistGlobalConfig {
@@ -13,8 +13,6 @@ declare global {
 }
 
 declare const self: ServiceWorkerGlobalScope;
-
-const SYNC_TAG = 'fallbook-sync';
 
 const serwist = new Serwist({
   precacheEntries: self.__SW_MANIFEST,
@@ -40,15 +38,11 @@ interface SyncEvent extends ExtendableEvent { tag: string }
 
 self.addEventListener('sync', (event) => {
   const e = event as SyncEvent;
-  if (e.tag !== SYNC_TAG) return;
+  if (e.tag !== SYNC_NAME) return;
   // Reject when the run failed, so the browser schedules another attempt.
   e.waitUntil(runSync().then((outcome) => {
     if ('ok' in outcome && !outcome.ok) throw new Error(outcome.message ?? 'sync failed');
   }));
-});
-
-self.addEventListener('message', (event) => {
-  if ((event.data as { type?: string } | null)?.type === 'FALLBOOK_SYNC') event.waitUntil(runSync());
 });
 
 serwist.addEventListeners();

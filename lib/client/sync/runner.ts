@@ -1,6 +1,6 @@
 // One sync run: push the outbox, upload photos, pull changes. The same module runs in the service
-// worker (Background Sync, messages) and in the page where no worker controls it; a Web Lock
-// makes sure only one runs at a time, whichever context it is in.
+// worker (Background Sync) and in the page's sync worker; a Web Lock makes sure only one runs at a
+// time, whichever context it is in.
 import { fieldDb, type MetaEntry } from '../db';
 import { getMeta, type SyncRecord } from './meta';
 import { uploadPhotos, type UploadProgress } from './photos';
@@ -8,7 +8,9 @@ import { pullAll } from './pull';
 import { pushAll } from './push';
 import { OfflineError, SyncHttpError } from './transport';
 
-export const SYNC_LOCK = 'fallbook-sync';
+/** The one name of the sync: the Web Lock a run holds and the Background Sync tag that wakes one. */
+export const SYNC_NAME = 'fallbook-sync';
+export const SYNC_LOCK = SYNC_NAME;
 
 export type SyncOutcome = SyncRecord | { skipped: 'busy' };
 

@@ -4,9 +4,9 @@
 // service worker later, even with the page closed. A Web Lock keeps one run at a time.
 import { runSyncInWorker } from './in-worker';
 import type { UploadProgress } from './photos';
-import type { SyncOutcome } from './runner';
+import { SYNC_NAME, type SyncOutcome } from './runner';
 
-export const SYNC_TAG = 'fallbook-sync';
+export const SYNC_TAG = SYNC_NAME;
 const TIMER_MS = 60_000;
 
 type SyncRegistration = ServiceWorkerRegistration & { sync?: { register(tag: string): Promise<void> } };

@@ -2,22 +2,11 @@ import 'server-only';
 import { createHash } from 'node:crypto';
 import type { Transaction } from 'sequelize';
 import { ENGINE_VERSION, screenSite } from '@/lib/engine';
+import { canonicalJson } from '@/lib/shared/canonical-json';
 import { siteReadingsSchema } from '@/lib/shared/schemas/site-readings';
 import { Screening, Visit } from '@/lib/server/db';
 import { recordAudit } from '../audit';
 import { loadSiteReadings } from '../data/site-readings';
-
-/** JSON with keys in sorted order, so equal inputs always hash the same. */
-function canonicalJson(value: unknown): string {
-  if (Array.isArray(value)) return `[${value.map(canonicalJson).join(',')}]`;
-  if (value && typeof value === 'object') {
-    const entries = Object.entries(value as Record<string, unknown>)
-      .filter(([, v]) => v !== undefined)
-      .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
-    return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${canonicalJson(v)}`).join(',')}}`;
-  }
-  return JSON.stringify(value);
-}
 
 export type ScreenVisitOutcome =
   | { status: 'screened'; screeningId: string; verdict: string }

@@ -3,6 +3,7 @@ import type { Model, ModelStatic } from 'sequelize';
 import {
   Commissioning, DemandLine, FallReading, FlowMeasurement, Photo, PipeRun, Point, Visit, WaterSource,
 } from '@/lib/server/db';
+import { canonicalJson } from '@/lib/shared/canonical-json';
 import type { SyncEntity } from '@/lib/shared/schemas/sync';
 
 type Json = Record<string, unknown>;
@@ -119,19 +120,6 @@ export function pulledRecord(spec: EntitySpec, row: SyncedRow): Json {
   return { id: row.id, rev: Number(row.rev), deletedAt: iso(row.deletedAt), updatedAt: iso(row.updatedAt), ...spec.toFields(row) };
 }
 
-/** JSON with sorted keys (undefined dropped), so deep-equal values compare equal. */
-function canonical(value: unknown): string {
-  if (Array.isArray(value)) return `[${value.map(canonical).join(',')}]`;
-  if (value && typeof value === 'object') {
-    return `{${Object.entries(value as Json)
-      .filter(([, v]) => v !== undefined)
-      .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))
-      .map(([k, v]) => `${JSON.stringify(k)}:${canonical(v)}`)
-      .join(',')}}`;
-  }
-  return JSON.stringify(value ?? null);
-}
-
 const ISO_TIME = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/;
 
 /** Deep equality of two field values; date-times compare as instants (…+02:00 equals …Z). */
@@ -139,5 +127,5 @@ export function sameValue(a: unknown, b: unknown): boolean {
   if (typeof a === 'string' && typeof b === 'string' && ISO_TIME.test(a) && ISO_TIME.test(b)) {
     return Date.parse(a) === Date.parse(b);
   }
-  return canonical(a) === canonical(b);
+  return canonicalJson(a) === canonicalJson(b);
 }
