@@ -101,7 +101,7 @@ test('bad readings are refused at their field, unusual ones need a yes, nothing 
   // Stations: a station at −20 m along the bank.
   await page.goto(`/field/visit/positions?id=${id}`);
   await page.getByLabel('Distance along the bank from the top').fill('-20');
-  await page.getByLabel('Level (reduced level)').fill('10');
+  await page.getByLabel('Level (reduced level)', { exact: true }).fill('10');
   await page.getByRole('button', { name: 'Save station' }).click();
   await expectFieldAlert(page, /must not be negative/);
 });
