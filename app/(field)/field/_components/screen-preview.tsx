@@ -8,6 +8,7 @@ import { NOMINAL_SIZES } from '@/lib/engine/materials';
 import { localSiteReadings } from '@/lib/client/site-readings';
 import Link from 'next/link';
 import { showQuantity } from '@/lib/shared/quantities';
+import { plainIssueMessage } from '@/lib/shared/field-messages';
 import { readingIssues } from '@/lib/shared/reading-issues';
 import { siteReadingsSchema } from '@/lib/shared/schemas/site-readings';
 import { plainTrade } from '@/lib/shared/sheet/trade-words';
@@ -22,10 +23,10 @@ export function ScreenPreview({ visitId }: { visitId: string }) {
   const preview = useLiveQuery(async () => {
     const input = await localSiteReadings(visitId);
     if (!input) return null;
-    const parsed = siteReadingsSchema.safeParse(input);
+    const parsed = siteReadingsSchema.safeParse(input, { error: (issue) => plainIssueMessage(issue, units) });
     if (!parsed.success) return { kind: 'missing' as const, missing: readingIssues(parsed.error.issues) };
     return { kind: 'screened' as const, screening: screenSite(parsed.data) };
-  }, [visitId]);
+  }, [visitId, units]);
   if (!preview) return null;
   return (
     <section aria-labelledby="preview" className="rounded-md border-2 border-slate bg-white p-4">
