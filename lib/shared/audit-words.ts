@@ -1,7 +1,7 @@
 // The visit's history in plain words: each stored audit line (entity, action, changes) becomes a
 // sentence saying what changed. Old lines keep their stored shapes, so each shape is read here.
 import { VERDICT_WORDS as VERDICTS, VISIT_STATUS_LABELS, type Verdict, type VisitStatus } from './domain';
-import { formatDay } from './format';
+import { formatDay } from './display/dates';
 
 export interface AuditFacts { entity: string; action: string; changes: unknown }
 export interface AuditWords { title: string; detail: string }

@@ -1,6 +1,6 @@
 // Rules about a visit's state that the office pages and the server share.
 import type { VisitStatus } from './domain';
-import { formatDay } from './format';
+import { formatDay } from './display/dates';
 
 export interface VisitTiming {
   status: VisitStatus;

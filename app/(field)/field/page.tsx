@@ -2,7 +2,7 @@
 
 import Link from 'next/link';
 import { VISIT_STATUS_LABELS, type VisitStatus } from '@/lib/shared/domain';
-import { formatDay } from '@/lib/shared/format';
+import { formatDay } from '@/lib/shared/display/dates';
 import { FieldQuestions } from './_components/field-questions';
 import { useFieldUser } from './_components/field-session';
 import { useFrameQuery } from './_components/use-frame-query';

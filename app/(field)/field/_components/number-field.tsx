@@ -2,12 +2,12 @@
 
 import { useId, useState } from 'react';
 import type { UnitSystem } from '@/lib/shared/domain';
-import { QUANTITIES, type Quantity } from '@/lib/shared/quantities';
+import { QUANTITIES, type QuantityKind } from '@/lib/shared/display/quantities';
 import { parseFieldNumber } from '@/lib/shared/units';
 
 interface Props {
   label: string;
-  quantity: Quantity;
+  quantity: QuantityKind;
   units: UnitSystem;
   /** SI value, undefined when empty. */
   value: number | undefined;

@@ -4,7 +4,7 @@ import Link from 'next/link';
 import { useState } from 'react';
 import type { SyncRecord } from '@/lib/client/sync/meta';
 import type { UnitSystem } from '@/lib/shared/domain';
-import { formatClock } from '@/lib/shared/format';
+import { formatClock } from '@/lib/shared/display/dates';
 import { useFieldUser } from './field-session';
 import { useFrameQuery } from './use-frame-query';
 

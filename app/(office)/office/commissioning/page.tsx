@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { requirePageUser } from '@/lib/server/auth/page-guard';
 import { listCommissionings } from '@/lib/server/data/commissioning';
-import { showQuantity } from '@/lib/shared/quantities';
+import { showQuantity } from '@/lib/shared/display/quantities';
 import { PredictedMeasuredPlot } from './_components/PredictedMeasuredPlot';
 
 export const metadata: Metadata = { title: 'Installed rams: predicted and measured' };

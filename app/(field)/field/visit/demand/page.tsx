@@ -9,7 +9,7 @@ import { newId } from '@/lib/client/ids';
 import { deleteRecord, saveRecord } from '@/lib/client/outbox';
 import { getMeta } from '@/lib/client/sync/meta';
 import { announceSave } from '@/lib/client/sync/triggers';
-import { showQuantity } from '@/lib/shared/quantities';
+import { showQuantity } from '@/lib/shared/display/quantities';
 import type { PullResponse } from '@/lib/shared/schemas/sync';
 import { PrimaryButton, SectionHeader } from '../../_components/choice';
 import { NumberField } from '../../_components/number-field';

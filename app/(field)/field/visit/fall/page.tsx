@@ -5,7 +5,7 @@ import { Suspense, useState } from 'react';
 import { fieldDb } from '@/lib/client/db';
 import { deleteRecord } from '@/lib/client/outbox';
 import { announceSave } from '@/lib/client/sync/triggers';
-import { showQuantity } from '@/lib/shared/quantities';
+import { showQuantity } from '@/lib/shared/display/quantities';
 import { Choice, SectionHeader } from '../../_components/choice';
 import { useUnits, useVisitId } from '../../_components/use-field-data';
 import { FallForm } from './_components/fall-form';

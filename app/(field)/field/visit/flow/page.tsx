@@ -8,7 +8,7 @@ import { deleteRecord, saveRecord } from '@/lib/client/outbox';
 import { announceSave } from '@/lib/client/sync/triggers';
 import { floatFlowLps, summarise, vNotchFlowLps, volumetricFlowLps } from '@/lib/engine/flow';
 import type { UnitSystem } from '@/lib/shared/domain';
-import { showQuantity } from '@/lib/shared/quantities';
+import { showQuantity } from '@/lib/shared/display/quantities';
 import type { FlowMeasurement } from '@/lib/shared/schemas/site-readings';
 import { SectionHeader } from '../../_components/choice';
 import { useUnits, useVisitId } from '../../_components/use-field-data';

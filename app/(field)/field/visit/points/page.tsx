@@ -6,7 +6,7 @@ import { Suspense } from 'react';
 import { fieldDb } from '@/lib/client/db';
 import { deleteRecord } from '@/lib/client/outbox';
 import { announceSave } from '@/lib/client/sync/triggers';
-import { showQuantity } from '@/lib/shared/quantities';
+import { showQuantity } from '@/lib/shared/display/quantities';
 import { SectionHeader } from '../../_components/choice';
 import { useUnits, useVisitId } from '../../_components/use-field-data';
 import { PointForm } from './_components/point-form';

@@ -9,7 +9,7 @@ import { newId } from '@/lib/client/ids';
 import { deleteRecord, saveRecord } from '@/lib/client/outbox';
 import { adoptPair, levelOf, localProfile } from '@/lib/client/profile-positions';
 import { announceSave } from '@/lib/client/sync/triggers';
-import { showQuantity } from '@/lib/shared/quantities';
+import { showQuantity } from '@/lib/shared/display/quantities';
 import { PrimaryButton, SectionHeader } from '../../_components/choice';
 import { NumberField } from '../../_components/number-field';
 import { useUnits, useVisitId } from '../../_components/use-field-data';

@@ -1,6 +1,6 @@
 import type { CommissioningPoint } from '@/lib/server/data/commissioning';
 import type { UnitSystem } from '@/lib/shared/domain';
-import { QUANTITIES } from '@/lib/shared/quantities';
+import { QUANTITIES } from '@/lib/shared/display/quantities';
 
 const W = 640;
 const H = 440;

@@ -7,7 +7,7 @@ import { newId } from '@/lib/client/ids';
 import { saveRecord } from '@/lib/client/outbox';
 import { announceSave } from '@/lib/client/sync/triggers';
 import type { UnitSystem } from '@/lib/shared/domain';
-import { showQuantity } from '@/lib/shared/quantities';
+import { showQuantity } from '@/lib/shared/display/quantities';
 import { Choice, PrimaryButton } from '../../../_components/choice';
 import { NumberField } from '../../../_components/number-field';
 import { ProfileChart } from './profile-chart';

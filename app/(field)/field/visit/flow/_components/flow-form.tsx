@@ -7,7 +7,7 @@ import { saveRecord } from '@/lib/client/outbox';
 import { setDirty } from '@/lib/client/dirty';
 import { announceSave } from '@/lib/client/sync/triggers';
 import type { UnitSystem } from '@/lib/shared/domain';
-import { showQuantity } from '@/lib/shared/quantities';
+import { showQuantity } from '@/lib/shared/display/quantities';
 import type { FlowMeasurement } from '@/lib/shared/schemas/site-readings';
 import { Choice, PrimaryButton } from '../../../_components/choice';
 import { NumberField } from '../../../_components/number-field';
