@@ -63,7 +63,7 @@ test('two phones edit the same pipe length offline: the second sees a conflict a
   expect(await phoneState(b.page)).toMatchObject({ outbox: 1, parked: 1, pending: 0 });
   expect((await deliveryM(visitId))[0]?.lengthM).toBeCloseTo(950 * FT, 6);
   // The bar does not claim everything is on the server while a change waits for a decision.
-  await expect(b.page.getByTestId('sync-summary')).toHaveText('Not everything is on the server');
+  await expect(b.page.getByTestId('sync-summary')).toHaveText('Nothing waiting to send');
   await expect(b.page.getByText('Field advisor', { exact: true })).toBeVisible();
   const decision = b.page.getByRole('link', { name: '1 change needs your decision' });
   await expect(decision).toBeVisible();

@@ -7,7 +7,7 @@ import { formatFigure, formatNumber, formatTyped, formatWhole } from './numbers'
 
 export type QuantityKind =
   | 'length' | 'accuracy' | 'pipeLength' | 'diameter' | 'volume' | 'time' | 'flowLps' | 'flowLpm' | 'litresPerDay'
-  | 'litresPerHead' | 'angle' | 'area' | 'count' | 'pressureHPa' | 'speed' | 'misclosure' | 'level';
+  | 'litresPerHead' | 'litresPerArea' | 'angle' | 'area' | 'count' | 'pressureHPa' | 'speed' | 'misclosure' | 'level';
 
 /** How one quantity reads in one unit system. */
 export interface UnitDisplay {
@@ -42,8 +42,10 @@ export const QUANTITIES: Record<QuantityKind, Record<UnitSystem, UnitDisplay>> =
   flowLpm: { metric: d('L/min', same, same, 1, 'figure'), us: d('gal/min', lpmToGpm, gpmToLpm, 1, 'figure') },
   litresPerDay: { metric: d('L/day', same, same, 0, 'figure'), us: d('gal/day', lToUsGal, usGalToL, 0, 'figure') },
   litresPerHead: { metric: d('L/day', same, same, 1, 'figure'), us: d('gal/day', lToUsGal, usGalToL, 2, 'figure') },
+  // A garden's water per square metre (or foot) a day.
+  litresPerArea: { metric: d('L/m²/day', same, same, 1, 'figure'), us: d('gal/ft²/day', (l) => lToUsGal(l) / m2ToFt2(1), (g) => usGalToL(g) * m2ToFt2(1), 3, 'figure') },
   angle: { metric: d('°', same, same, 1, 1), us: d('°', same, same, 1, 1) },
-  area: { metric: d('m²', same, same, 1, 'figure'), us: d('ft²', m2ToFt2, ft2ToM2, 0, 'figure') },
+  area: { metric: d('m²', same, same, 3, 'figure'), us: d('ft²', m2ToFt2, ft2ToM2, 2, 'figure') },
   count: { metric: d('', same, same, 0, 0), us: d('', same, same, 0, 0) },
   pressureHPa: { metric: d('hPa', same, same, 1, 1), us: d('inHg', (h) => h / HPA_PER_INHG, (i) => i * HPA_PER_INHG, 2, 2) },
   speed: { metric: d('m/s', same, same, 2, 'figure'), us: d('ft/s', mToFt, ftToM, 2, 'figure') },

@@ -9,6 +9,7 @@ import { newId } from '@/lib/client/ids';
 import { deleteRecord, saveRecord } from '@/lib/client/outbox';
 import { adoptPair, levelOf, localProfile } from '@/lib/client/profile-positions';
 import { announceSave } from '@/lib/client/sync/triggers';
+import { formatCount, formatPercent } from '@/lib/shared/display/numbers';
 import { showQuantity } from '@/lib/shared/display/quantities';
 import { PrimaryButton, SectionHeader } from '../../_components/choice';
 import { NumberField } from '../../_components/number-field';
@@ -84,8 +85,9 @@ function PositionsPage() {
       </fieldset>
       <PositionsChart stations={profile.stations} tank={tank} pairs={result?.ranked ?? []} units={units} />
       <PositionsMapPanel stations={profile.stations} tankPoint={tp} pairs={result?.ranked ?? []} />
-      <p className="text-stone"><span className="figure">{profile.stations.length}</span> stations{profile.incomplete > 0 ? `, ${profile.incomplete} without distance or level (left out)` : ''}.</p>
-      <PrimaryButton onClick={search} disabled={busy || profile.stations.length < 2}>{busy ? 'Searching…' : 'Find the best positions'}</PrimaryButton>
+      <p className="text-stone"><span className="figure">{formatCount(profile.stations.length, 'station')}</span>{profile.incomplete > 0 ? `, ${formatCount(profile.incomplete, 'station')} without distance or level (left out)` : ''}.</p>
+      <PrimaryButton onClick={search} disabled={busy || profile.stations.length < 2}
+        why={busy ? undefined : `Book at least two stations with their distance along the bank and level first (${profile.stations.length} so far).`}>{busy ? 'Searching…' : 'Find the best positions'}</PrimaryButton>
       {message && <p role="status" className="font-bold">{message}</p>}
       {result && (
         <section aria-labelledby="best" className="space-y-3">
@@ -100,7 +102,7 @@ function PositionsPage() {
                 {p.standPipe && (
                   <p data-testid={`pair-${p.rank}-stand-pipe`}>Feed pipe <span className="figure">{showQuantity(p.feedLengthM, 'length', units)}</span> to an open stand pipe at <span className="figure">{showQuantity(p.standPipe.chainageM, 'length', units)}</span>, where the drive pipe starts</p>
                 )}
-                <p>Delivers about <span className="figure">{showQuantity(p.deliveryLpd, 'litresPerDay', units)}</span>; meets the need in <span className="figure">{Math.round(p.probabilityMeetsDemand * 100)} %</span> of draws</p>
+                <p>Delivers about <span className="figure">{showQuantity(p.deliveryLpd, 'litresPerDay', units)}</span>; meets the need in <span className="figure">{formatPercent(p.probabilityMeetsDemand)}</span> of draws</p>
                 <p>Screen: <VerdictMark verdict={p.screening.verdict} /></p>
                 <button type="button" onClick={() => adopt(p.rank)} className="mt-2 min-h-12 w-full rounded-md border-2 border-slate font-bold text-slate">Adopt pair {p.rank}</button>
               </li>
