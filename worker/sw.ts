@@ -32,7 +32,9 @@ async function fieldRsc(request: Request, url: URL): Promise<Response> {
     return fresh;
   } catch (error) {
     const kept = await cache.match(url.pathname);
-    if (kept) return kept;
+    // A copy, not the kept response itself: that one was redirected to another URL (the payload's own
+    // path), and the app would take that URL, dropping this page's query string (the visit's id).
+    if (kept) return new Response(kept.body, { status: kept.status, statusText: kept.statusText, headers: kept.headers });
     throw error;
   }
 }

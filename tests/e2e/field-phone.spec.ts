@@ -102,6 +102,8 @@ test('a US-units advisor sees only US units on every field screen and the previe
       await openField(page, path);
       if (path.startsWith('/field/visit?')) await expect(page.getByTestId('preview-verdict')).toBeVisible({ timeout: 15_000 });
       // Typed values too: what a field shows to edit.
+      // The map's scale bar is the map's own (Leaflet) and is left out here.
+      await page.locator('.leaflet-control-scale').evaluateAll((els) => els.forEach((e) => e.remove()));
       const text = `${await page.locator('main').innerText()}\n${(await page.locator('main input[type="text"]').evaluateAll((els) => els.map((e) => (e as HTMLInputElement).value))).join('\n')}`;
       for (const line of text.split('\n')) if (METRIC.test(line)) found.push(`${path}: ${line.trim()}`);
       // A prefilled figure is rounded for reading: never six decimals.

@@ -43,3 +43,9 @@ export function formatClock(date: Date, units: UnitSystem): string {
 export function isoDay(at: Date): string {
   return at.toISOString().slice(0, 10);
 }
+
+/** A moment as exported for spreadsheets: "2026-12-08 14:05" (UTC, named in the column header). */
+export function isoMinute(at: Date | string): string {
+  const iso = (typeof at === 'string' ? new Date(at) : at).toISOString();
+  return `${iso.slice(0, 10)} ${iso.slice(11, 16)}`;
+}
