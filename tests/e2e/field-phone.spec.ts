@@ -112,6 +112,15 @@ test('a US-units advisor sees only US units on every field screen and the previe
       }
       await page.screenshot({ path: `${shots}/phone-us${path.replace(/[/?=]/g, '_')}.png`, fullPage: true });
     }
+    // A conditional go: the preview lists the engine's reasons, rendered in US units.
+    await openField(page, '/field');
+    const conditional = await visitIdOf(page, /Pryce's Upper Field/);
+    await openField(page, `/field/visit?id=${conditional}`);
+    const reasons = page.getByTestId('preview-verdict').locator('li');
+    await expect(reasons.first()).toBeVisible({ timeout: 15_000 });
+    for (const line of await reasons.allInnerTexts()) if (METRIC.test(line)) found.push(`preview: ${line}`);
+    expect((await reasons.allInnerTexts()).join(' ')).toMatch(/\d (ft|gal\/day|gal\/min|gal|in|psi)\b/);
+    await page.screenshot({ path: `${shots}/phone-us-preview-conditional.png`, fullPage: true });
     await page.setViewportSize({ width: 1280, height: 900 });
     await openField(page, `/field/visit?id=${visitId}`);
     await page.screenshot({ path: `${shots}/desktop-us-visit.png`, fullPage: true });

@@ -73,8 +73,8 @@ test('two phones edit the same pipe length offline: the second sees a conflict a
   await expect(conflict).toHaveCount(1);
   await b.page.screenshot({ path: test.info().outputPath('conflict.png'), fullPage: true });
   // Both values, in the advisor's units (Ines works in feet).
-  await expect(conflict.getByRole('row', { name: /Length/ })).toContainText('1000.00 ft');
-  await expect(conflict.getByRole('row', { name: /Length/ })).toContainText('950.00 ft');
+  await expect(conflict.getByRole('row', { name: /Length/ })).toContainText('1,000 ft');
+  await expect(conflict.getByRole('row', { name: /Length/ })).toContainText('950 ft');
 
   // Keep mine, knowingly: it goes up on top of A's revision.
   await conflict.getByRole('button', { name: 'Keep mine' }).click();
