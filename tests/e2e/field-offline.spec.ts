@@ -90,7 +90,7 @@ test('capture a site walk offline, reopen offline, sync once online', async ({ b
 
   // Demand and pipes.
   await page.goto(`/field/visit/demand?id=${visitId}`);
-  await typeInto(page, 'How many (person)', '2');
+  await typeInto(page, 'How many people', '2');
   await page.getByRole('button', { name: 'Add line' }).click();
   await expect(page.getByText('Line saved on this phone.')).toBeVisible();
   await page.goto(`/field/visit/pipes?id=${visitId}`);

@@ -105,7 +105,9 @@ test('a US-units advisor sees only US units on every field screen and the previe
       // The map's scale bar is the map's own (Leaflet) and is left out here.
       await page.locator('.leaflet-control-scale').evaluateAll((els) => els.forEach((e) => e.remove()));
       const text = `${await page.locator('main').innerText()}\n${(await page.locator('main input[type="text"]').evaluateAll((els) => els.map((e) => (e as HTMLInputElement).value))).join('\n')}`;
-      for (const line of text.split('\n')) if (METRIC.test(line)) found.push(`${path}: ${line.trim()}`);
+      // A saved point's name is the advisor's own text (an adopted pair names its station in the units of whoever adopted it).
+      const ownText = /^(Intake|Pump site|Tank|Creek-profile station|Source|Other point) · /;
+      for (const line of text.split('\n')) if (METRIC.test(line) && !ownText.test(line.trim())) found.push(`${path}: ${line.trim()}`);
       // A prefilled figure is rounded for reading: never six decimals.
       for (const value of await page.locator('main input[inputmode="decimal"]').evaluateAll((els) => els.map((e) => (e as HTMLInputElement).value))) {
         expect(value, path).not.toMatch(/\.\d{4,}/);

@@ -7,7 +7,7 @@ import { formatFigure, formatNumber, formatTyped, formatWhole } from './numbers'
 
 export type QuantityKind =
   | 'length' | 'accuracy' | 'pipeLength' | 'diameter' | 'volume' | 'time' | 'flowLps' | 'flowLpm' | 'litresPerDay'
-  | 'litresPerHead' | 'litresPerArea' | 'angle' | 'area' | 'count' | 'pressureHPa' | 'speed' | 'misclosure' | 'level';
+  | 'litresPerHead' | 'litresPerArea' | 'angle' | 'area' | 'count' | 'pressureHPa' | 'speed' | 'misclosure' | 'level' | 'chainage';
 
 /** How one quantity reads in one unit system. */
 export interface UnitDisplay {
@@ -32,6 +32,8 @@ export const QUANTITIES: Record<QuantityKind, Record<UnitSystem, UnitDisplay>> =
   level: { metric: d('m', same, same, 3, 3), us: d('ft', mToFt, ftToM, 3, 3) },
   // A GPS fix's accuracy: whole metres or feet (a decimal would claim a precision the fix has not).
   accuracy: { metric: d('m', same, same, 0, 0), us: d('ft', mToFt, ftToM, 0, 0) },
+  // A distance along the bank, as a place is named by it: whole metres or feet.
+  chainage: { metric: d('m', same, same, 1, 0), us: d('ft', mToFt, ftToM, 1, 0) },
   pipeLength: { metric: d('m', same, same, 1, 'up'), us: d('ft', mToFt, ftToM, 0, 'up') },
   // A level run's misclosure, stored in mm.
   misclosure: { metric: d('mm', same, same, 0, 0), us: d('in', mmToIn, inToMm, 2, 2) },

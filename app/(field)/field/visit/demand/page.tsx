@@ -97,7 +97,7 @@ function DemandPage() {
         </select>
         {kind === GARDEN
           ? <NumberField label="Garden area" quantity="area" units={units} value={typedCount} onChange={setCount} />
-          : <NumberField label={`How many (${entry.unit === 'head' ? 'head' : `${entry.unit}s`})`} quantity="count" units={units} value={count} onChange={setCount} />}
+          : <NumberField label={entry.unit === 'person' ? 'How many people' : entry.unit === 'bird' ? 'How many birds' : 'How many head'} quantity="count" units={units} value={count} onChange={setCount} />}
         <NumberField label={kind === GARDEN ? `Water per ${units === 'us' ? 'square foot' : 'square metre'} a day` : `Water per ${entry.unit} a day`}
           quantity={kind === GARDEN ? 'litresPerArea' : 'litresPerHead'} units={units} value={perHead ?? defaultFigure} onChange={setPerHead}
           hint={`Default ${kind === GARDEN ? showQuantity(defaultFigure, 'litresPerArea', units) : showQuantity(defaultFigure, 'litresPerHead', units)} — ${overrides[kind] !== undefined ? "your organisation's figure" : sourceName(entry.sourceId)}`} />

@@ -65,7 +65,7 @@ function PositionsPage() {
     const pair = result?.ranked.find((p) => p.rank === rank);
     if (!pair || !tank || !profile) return;
     if (!window.confirm('Adopt this pair? The intake and ram points move to it, the pipe lengths follow, and the fall and lift readings are replaced by the profile\u2019s.')) return;
-    await adoptPair(visitId, pair, profile.stations, tank);
+    await adoptPair(visitId, pair, profile.stations, tank, units);
     announceSave();
     setMessage(`Pair ${rank} adopted on this phone; it syncs with the next connection and the screen uses it.`);
   }
