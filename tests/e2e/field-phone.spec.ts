@@ -131,3 +131,12 @@ test('a US-units advisor sees only US units on every field screen and the previe
     await query("UPDATE users SET units = 'metric' WHERE email = 'tobias@wenlow-water.test'");
   }
 });
+
+test('the phone home flags an overdue visit', async ({ page }) => {
+  await signInAs(page, 'ines@wenlow-water.test', /\/field$/);
+  // Lark Spinney is booked for a day that has passed; Otieno Orchard Croft is not.
+  const overdue = page.getByRole('link', { name: /Lark Spinney/ });
+  await expect(overdue).toBeVisible({ timeout: 15_000 });
+  await expect(overdue.getByTestId('overdue')).toHaveText(/Overdue/);
+  await expect(page.getByRole('link', { name: /Otieno Orchard Croft/ }).getByTestId('overdue')).toHaveCount(0);
+});
