@@ -1,6 +1,6 @@
 import Link from 'next/link';
 import type { OpenQuestion } from '@/lib/shared/conversation';
-import { formatDateTime } from '@/lib/shared/format';
+import { formatDateTime } from '@/lib/shared/display/dates';
 
 /** Farmers' questions still waiting for an answer, each linking to its sheet's conversation. */
 export function OpenQuestions({ questions, empty }: { questions: OpenQuestion[]; empty?: string }) {

@@ -1,7 +1,7 @@
 import { StatusChip } from '@/components/status-chip';
 import { VerdictMark } from '@/components/verdict-mark';
 import type { VisitStatus, Verdict } from '@/lib/shared/domain';
-import { formatDay } from '@/lib/shared/format';
+import { formatDay } from '@/lib/shared/display/dates';
 
 export interface VisitRowView {
   id: string;

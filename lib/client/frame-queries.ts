@@ -30,15 +30,21 @@ export async function homeVisits(db: FieldDatabase) {
   // Not orderBy('plannedOn'): an index leaves out the rows whose key is null, and a visit assigned
   // before its date is set must be on the list too. Dated ones first, by date; then the undated.
   const rows = (await db.visits.toArray()).sort((a, b) => (a.plannedOn ?? '9999').localeCompare(b.plannedOn ?? '9999'));
-  // The visit of each waiting change, from the index alone (no op is loaded).
+  // The visit of each change, from the indexes alone (no op is loaded), counted as the sync bar counts:
+  // waiting to send, or parked for the person's decision.
+  const pending = new Set(await db.outbox.where('status').equals('pending').primaryKeys());
   const waiting = new Map<string, number>();
-  for (const id of (await db.outbox.orderBy('visitId').keys()) as string[]) waiting.set(id, (waiting.get(id) ?? 0) + 1);
+  const parked = new Map<string, number>();
+  await db.outbox.orderBy('visitId').eachKey((key, cursor) => {
+    const counts = pending.has(cursor.primaryKey as number) ? waiting : parked;
+    counts.set(key as string, (counts.get(key as string) ?? 0) + 1);
+  });
   const farms = new Map((await db.farms.bulkGet(rows.map((v) => v.farmId))).flatMap((f) => (f ? [[f.id, f] as const] : [])));
   return {
     // Before the phone's first sync an empty list means "not fetched yet", not "none assigned".
     synced: (await db.meta.get('lastRun')) !== undefined,
-    rows: rows.map((v): LocalVisit & { farm: LocalFarm | undefined; waiting: number } => (
-      { ...v, farm: farms.get(v.farmId), waiting: waiting.get(v.id) ?? 0 })),
+    rows: rows.map((v): LocalVisit & { farm: LocalFarm | undefined; waiting: number; parked: number } => (
+      { ...v, farm: farms.get(v.farmId), waiting: waiting.get(v.id) ?? 0, parked: parked.get(v.id) ?? 0 })),
   };
 }
 

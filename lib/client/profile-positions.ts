@@ -4,6 +4,8 @@ import { fieldDb, type LocalRecord } from './db';
 import { newId } from './ids';
 import { deleteRecord, saveRecord } from './outbox';
 import { localSiteReadings } from './site-readings';
+import { showQuantity } from '@/lib/shared/display/quantities';
+import type { UnitSystem } from '@/lib/shared/domain';
 
 const live = <T extends { deletedAt: string | null }>(rows: T[]) => rows.filter((r) => !r.deletedAt);
 
@@ -37,10 +39,10 @@ export async function localProfile(visitId: string): Promise<LocalProfile> {
   return { stations, incomplete: rows.length - stations.length, tankPoint: points.find((p) => p.role === 'tank') ?? null, base };
 }
 
-async function upsertPoint(visitId: string, role: 'intake' | 'pump', station: ProfileStation & { point?: LocalRecord<'point'> }) {
+async function upsertPoint(visitId: string, role: 'intake' | 'pump', station: ProfileStation & { point?: LocalRecord<'point'> }, units: UnitSystem) {
   const existing = live(await fieldDb().points.where('visitId').equals(visitId).toArray()).find((p) => p.role === role);
   const fields = {
-    label: `Station at ${station.chainageM} m${station.label ? ` (${station.label})` : ''}`.slice(0, 120),
+    label: `Station at ${showQuantity(station.chainageM, 'chainage', units)}${station.label ? ` (${station.label})` : ''}`.slice(0, 120),
     chainageM: station.chainageM, reducedLevelM: station.levelM,
     lat: station.point?.lat ?? null, lon: station.point?.lon ?? null, accuracyM: station.point?.accuracyM ?? null,
     altitudeM: station.point?.altitudeM ?? null, altitudeAccuracyM: station.point?.altitudeAccuracyM ?? null,
@@ -66,10 +68,10 @@ async function dropFeedPipe(visitId: string) {
  * Adopts a pair: the intake and pump points move to its stations, the pipe lengths follow, and the
  * fall and lift readings are replaced by the profile's (the old ones described the old positions).
  */
-export async function adoptPair(visitId: string, pair: PositionPair, stations: LocalProfile['stations'], tank: ProfileTank): Promise<void> {
+export async function adoptPair(visitId: string, pair: PositionPair, stations: LocalProfile['stations'], tank: ProfileTank, units: UnitSystem): Promise<void> {
   const find = (id: string) => stations.find((s) => s.id === id) ?? pair.intake;
-  await upsertPoint(visitId, 'intake', find(pair.intake.id));
-  await upsertPoint(visitId, 'pump', find(pair.pump.id));
+  await upsertPoint(visitId, 'intake', find(pair.intake.id), units);
+  await upsertPoint(visitId, 'pump', find(pair.pump.id), units);
   await upsertPipe(visitId, 'drive', pair.driveLengthM);
   if (pair.standPipe) await upsertPipe(visitId, 'feed', pair.feedLengthM);
   else await dropFeedPipe(visitId);

@@ -1,5 +1,5 @@
 // Bill of materials from the screened design: rams, pipes by length and size, valves, intake and tank.
-import { fmt } from './format';
+import { amount, renderMessage, say, type Message } from '@/lib/shared/display/message';
 import { NOMINAL_SIZES, type NominalSize } from './materials';
 import type { DeliveryDesign, DriveDesign } from './pipe-design';
 import type { FeedDesign } from './ram-plan';
@@ -50,30 +50,42 @@ function sizeLabel(nominalIn: number): string {
   return (NOMINAL_SIZES.find((s) => s.nominalIn === nominalIn) as NominalSize | undefined)?.label ?? `${nominalIn}″`;
 }
 
-function commonLines(tankL: number, tankRuleLabel: string): BillOfMaterialsLine[] {
+/** A line as written here: its size and note may carry figures. */
+type Line = Omit<BillOfMaterialsLine, 'size' | 'note' | 'sizeMessage' | 'noteMessage'> & { size: Message | string; note: Message | string };
+
+/** The line with metric text, and its messages for each reader's units. */
+function finished(line: Line): BillOfMaterialsLine {
+  const { size, note, ...rest } = line;
+  const out: BillOfMaterialsLine = { ...rest, size: typeof size === 'string' ? size : renderMessage(size, 'metric'), note: typeof note === 'string' ? note : renderMessage(note, 'metric') };
+  if (typeof size !== 'string') out.sizeMessage = size;
+  if (typeof note !== 'string') out.noteMessage = note;
+  return out;
+}
+
+function commonLines(tankL: number, tankRuleLabel: string): Line[] {
   return [
     { item: 'Intake screen and settling drum or basin', size: '—', quantity: 1, unit: 'each', note: 'Keeps trash, sand and fish out; keep the inlet well under water' },
-    { item: 'Storage tank with a lid and an overflow', size: fmt(tankL, 'L'), quantity: 1, unit: 'each', note: `Sized by the rule: ${tankRuleLabel}` },
+    { item: 'Storage tank with a lid and an overflow', size: say`${amount('volume', tankL)}`, quantity: 1, unit: 'each', note: `Sized by the rule: ${tankRuleLabel}` },
   ];
 }
 
 /** Lines of the bill of materials for rams; pipe lengths rounded up to whole metres, one drive pipe per ram. */
 export function billOfMaterials(b: BomInput): BillOfMaterialsLine[] {
   const n = b.ramCount;
-  const lines: BillOfMaterialsLine[] = [
+  const lines: Line[] = [
     {
       item: 'Hydraulic ram',
       size: `for ${sizeLabel(b.ramDriveIn)} drive pipe`,
       quantity: n,
       unit: 'each',
-      note: `Drive flow ${fmt(b.ramMinLpm, 'L/min')}–${fmt(b.ramMaxLpm, 'L/min')} (Ogden 1911, Table XI); body rated for at least ${fmt(b.drive.blockedDeliveryHeadM, 'm')} of head`,
+      note: say`Drive flow ${amount('flowLpm', b.ramMinLpm)}–${amount('flowLpm', b.ramMaxLpm)} (Ogden 1911, Table XI); body rated for at least ${amount('length', b.drive.blockedDeliveryHeadM)} of head`,
     },
     {
       item: `Drive pipe, ${b.drive.material.label}, ${b.drive.cls.label}`,
       size: b.drive.size.label,
       quantity: n * Math.ceil(b.drive.lengthM),
       unit: 'm',
-      note: n > 1 ? `${Math.ceil(b.drive.lengthM)} m for each ram; rigid, one diameter, long sweeps only` : 'Rigid, one diameter, long sweeps only, no elbows',
+      note: n > 1 ? say`${amount('pipeLength', b.drive.lengthM)} for each ram; rigid, one diameter, long sweeps only` : 'Rigid, one diameter, long sweeps only, no elbows',
     },
     {
       item: `Delivery pipe, ${b.delivery.material.label}, ${b.delivery.cls.label}`,
@@ -92,7 +104,7 @@ export function billOfMaterials(b: BomInput): BillOfMaterialsLine[] {
     ...commonLines(b.tankL, b.tankRuleLabel),
   ];
   if (b.reliefValve) {
-    lines.push({ item: 'Pressure-relief valve at the ram', size: b.delivery.size.label, quantity: n, unit: 'each', note: `Set below ${fmt(b.drive.allowedHeadM, 'm')} of head (the drive pipe's usable rating)` });
+    lines.push({ item: 'Pressure-relief valve at the ram', size: b.delivery.size.label, quantity: n, unit: 'each', note: say`Set below ${amount('length', b.drive.allowedHeadM)} of head (the drive pipe's usable rating)` });
   }
   if (b.feed) {
     lines.push(
@@ -101,16 +113,17 @@ export function billOfMaterials(b: BomInput): BillOfMaterialsLine[] {
     );
   }
   if (b.standPipe) {
-    lines.push({ item: 'Open stand pipe or header tank on the drive line', size: b.drive.size.label, quantity: n, unit: 'each', note: `About ${fmt(Math.min(b.drive.bandMaxM, b.drive.lengthM), 'm')} up the drive pipe from the ram` });
+    lines.push({ item: 'Open stand pipe or header tank on the drive line', size: b.drive.size.label, quantity: n, unit: 'each', note: say`About ${amount('length', Math.min(b.drive.bandMaxM, b.drive.lengthM))} up the drive pipe from the ram` });
   }
-  return lines;
+  return lines.map(finished);
 }
 
 /** Lines of the bill of materials for a gravity supply. */
 export function gravityBillOfMaterials(b: GravityBomInput): BillOfMaterialsLine[] {
-  return [
+  const lines: Line[] = [
     { item: `Supply pipe, ${b.pipe.material}, ${b.pipe.classLabel}`, size: b.pipe.sizeLabel, quantity: Math.ceil(b.lengthM), unit: 'm', note: 'From the intake down to the tank; air valves at high points' },
     { item: 'Isolating valve at the intake and at the tank', size: b.pipe.sizeLabel, quantity: 2, unit: 'each', note: 'For flushing and repairs' },
     ...commonLines(b.tankL, b.tankRuleLabel),
   ];
+  return lines.map(finished);
 }

@@ -1,6 +1,5 @@
 // Cautions printed on every sheet: they defer to local codes and licensed practice.
-import { fmt } from './format';
-import { headToKPa } from './heads';
+import { amount, renderMessage, say, type Message } from '@/lib/shared/display/message';
 import type { Caution } from './screening-types';
 
 export interface CautionFacts {
@@ -10,13 +9,15 @@ export interface CautionFacts {
   deliveryLpd: number;
 }
 
-function head(m: number): string {
-  return `${fmt(m, 'm')} of head (${fmt(headToKPa(m), 'kPa')})`;
+/** A caution kept as a message (rendered per reader) and as its metric text. */
+function caution(code: string, text: Message | string): Caution {
+  const message = typeof text === 'string' ? { template: text, amounts: [] } : text;
+  return { code, text: renderMessage(message, 'metric'), message };
 }
 
 /** Safety, water quality, neighbour and permit cautions for a screening. */
 export function cautionsFor(f: CautionFacts): Caution[] {
-  const list: Caution[] = [
+  const list: { code: string; text: Message | string }[] = [
     {
       code: 'NOT_A_DESIGN',
       text: 'This is a screening from field readings, not an engineering design. Follow local codes and have a qualified, licensed practitioner check the design before anything is bought or built.',
@@ -26,8 +27,7 @@ export function cautionsFor(f: CautionFacts): Caution[] {
     list.push({
       code: 'SURGE_PRESSURE',
       text:
-        `In normal running the ram and the lower drive pipe see about ${head(f.pressures.workingPeakHeadM)}; if the delivery is blocked (a shut valve, a float valve, a waterlogged air vessel) they see up to ${head(f.pressures.blockedDeliveryHeadM)}. ` +
-        'Use pipe, fittings and a ram rated for the higher figure, start the ram with the delivery open or through a relief valve, put no float valve on the delivery unless it is rated for the blocked pressure, and never stand over the waste valve while adjusting it.',
+        say`In normal running the ram and the lower drive pipe see about ${amount('head', f.pressures.workingPeakHeadM)}; if the delivery is blocked (a shut valve, a float valve, a waterlogged air vessel) they see up to ${amount('head', f.pressures.blockedDeliveryHeadM)}. Use pipe, fittings and a ram rated for the higher figure, start the ram with the delivery open or through a relief valve, put no float valve on the delivery unless it is rated for the blocked pressure, and never stand over the waste valve while adjusting it.`,
     });
     list.push({
       code: 'NOISE',
@@ -46,7 +46,7 @@ export function cautionsFor(f: CautionFacts): Caution[] {
     },
     {
       code: 'PERMITS',
-      text: `Taking water from a stream or spring may need a permit; the ${fmt(f.deliveryLpd, 'L/day')} delivered is used up${f.pressures ? ', while the waste water returns to the stream' : ''}. Rules may also ask for a minimum flow left in the stream and a screen at the intake that keeps fish out. Check local water rights before building.`,
+      text: say`Taking water from a stream or spring may need a permit; the ${amount('litresPerDay', f.deliveryLpd)} delivered is used up${f.pressures ? ', while the waste water returns to the stream' : ''}. Rules may also ask for a minimum flow left in the stream and a screen at the intake that keeps fish out. Check local water rights before building.`,
     },
   );
   if (f.anyPeople) {
@@ -61,5 +61,5 @@ export function cautionsFor(f: CautionFacts): Caution[] {
       },
     );
   }
-  return list;
+  return list.map((c) => caution(c.code, c.text));
 }

@@ -1,4 +1,5 @@
 // The ram's own parts, sized from the chosen ram and its operating point, each with its basis.
+import { amount, say, type Message } from '@/lib/shared/display/message';
 import { G, WATER_DENSITY } from './physics';
 
 /** Beats per minute assumed for sizing per-beat volumes: the middle of the 40–90 quoted (CAT tipsheet; NITK notes give 40–120). */
@@ -33,21 +34,21 @@ export interface RamPartsInput {
 
 export interface RamPart {
   item: string;
-  size: string;
-  note: string;
+  size: Message | string;
+  note: Message | string;
 }
 
 /** The ram's parts for one ram: waste valve, delivery valve, air vessel, snifter, unions, base and anchoring. */
 export function ramParts(p: RamPartsInput): RamPart[] {
   const vessel = airVesselL(p.driveIn, p.deliveryLpm);
   const thrustKn = surgeThrustN(p.blockedDeliveryHeadM, p.driveBoreMm) / 1000;
-  const mm = (x: number) => `${Math.round(x)} mm`;
+  const mm = (x: number) => amount('diameter', x);
   return [
-    { item: 'Waste valve', size: `port at least ${mm(p.driveBoreMm)}`, note: 'Opening no smaller than the drive pipe\u2019s bore, stroke adjustable (about 10–25 mm) with a lock nut, weights to tune the beat (common practice, no source)' },
-    { item: 'Delivery (check) valve into the air vessel', size: `port at least ${mm(p.deliveryBoreMm)}`, note: 'A rubber flap or ball seat, replaceable (common practice, no source)' },
-    { item: 'Air vessel', size: `${Math.ceil(vessel)} L or more`, note: `Home-made sizes 5 L for 1¼″, 11 L for 3″ (Clemson, Smith), and at least ${AIR_VESSEL_BEATS} beats\u2019 delivery at ${ASSUMED_BEATS_PER_MINUTE} beats a minute (from memory)` },
-    { item: 'Snifter valve (air inlet just below the delivery valve)', size: 'about 1 mm hole', note: 'Keeps the air vessel charged; clear it if the ram knocks hard (NITK notes; hole size from memory)' },
-    { item: 'Unions on the drive and delivery pipes at the ram', size: `${mm(p.driveBoreMm)} and ${mm(p.deliveryBoreMm)}`, note: 'So the ram lifts out for service' },
+    { item: 'Waste valve', size: say`port at least ${mm(p.driveBoreMm)}`, note: say`Opening no smaller than the drive pipe\u2019s bore, stroke adjustable (about ${amount('diameter', 10)}–${amount('diameter', 25)}) with a lock nut, weights to tune the beat (common practice, no source)` },
+    { item: 'Delivery (check) valve into the air vessel', size: say`port at least ${mm(p.deliveryBoreMm)}`, note: 'A rubber flap or ball seat, replaceable (common practice, no source)' },
+    { item: 'Air vessel', size: say`${amount('volume', Math.ceil(vessel))} or more`, note: say`Home-made sizes ${amount('volume', 5)} for 1¼″, ${amount('volume', 11)} for 3″ (Clemson, Smith), and at least ${AIR_VESSEL_BEATS} beats\u2019 delivery at ${ASSUMED_BEATS_PER_MINUTE} beats a minute (from memory)` },
+    { item: 'Snifter valve (air inlet just below the delivery valve)', size: say`about ${amount('diameter', 1)} hole`, note: 'Keeps the air vessel charged; clear it if the ram knocks hard (NITK notes; hole size from memory)' },
+    { item: 'Unions on the drive and delivery pipes at the ram', size: say`${mm(p.driveBoreMm)} and ${mm(p.deliveryBoreMm)}`, note: 'So the ram lifts out for service' },
     { item: 'Concrete base and anchor for the ram and the lower drive pipe', size: `for ${thrustKn.toFixed(1)} kN`, note: 'Each beat and any blocked delivery push the ram along the pipe: fall plus surge on the bore\u2019s area (ρ·g·H·A)' },
   ];
 }

@@ -1,24 +1,28 @@
+import type { Message } from '@/lib/shared/display/message';
 import type { Source, SourceId } from './sources';
 
 /** 'gravity': the tank sits below the intake, so a pipe fills it and no pump is needed. */
 export type Verdict = 'go' | 'conditional' | 'no-go' | 'gravity';
 export type Severity = 'no-go' | 'conditional' | 'note';
 
-export interface Reason {
+/** A sentence's metric text, and (from engines that write it) the sentence with its figures as amounts, for each reader's units. */
+export interface Said {
+  text: string;
+  message?: Message;
+}
+
+export interface Reason extends Said {
   code: string;
   severity: Severity;
-  text: string;
 }
 
-export interface Condition {
+export interface Condition extends Said {
   /** The reason this condition answers. */
   code: string;
-  text: string;
 }
 
-export interface Caution {
+export interface Caution extends Said {
   code: string;
-  text: string;
 }
 
 export type FigureInputs = Record<string, number | string | boolean | null>;
@@ -50,6 +54,9 @@ export interface BillOfMaterialsLine {
   quantity: number;
   unit: string;
   note: string;
+  /** The size and note with their figures as amounts, for each reader's units. */
+  sizeMessage?: Message;
+  noteMessage?: Message;
 }
 
 /** The result of screening one site: plain JSON, stored with the visit and rendered on the farmer's sheet. */

@@ -1,7 +1,9 @@
 // The visit's history in plain words: each stored audit line (entity, action, changes) becomes a
 // sentence saying what changed. Old lines keep their stored shapes, so each shape is read here.
 import { VERDICT_WORDS as VERDICTS, VISIT_STATUS_LABELS, type Verdict, type VisitStatus } from './domain';
-import { formatDay } from './format';
+import { formatDay } from './display/dates';
+import { formatBytes } from './display/numbers';
+import { showQuantity } from './display/quantities';
 
 export interface AuditFacts { entity: string; action: string; changes: unknown }
 export interface AuditWords { title: string; detail: string }
@@ -85,12 +87,12 @@ export function describeAudit(line: AuditFacts, person: (id: string | null | und
     case 'sheet_response:sheet_answer':
       return { title: 'Question answered', detail: quote(c.text) };
     case 'commissioning:commission': {
-      const measured = typeof c.measuredLpd === 'number' ? `${Math.round(c.measuredLpd).toLocaleString('en-GB')} L/day measured` : '';
-      const predicted = typeof c.predictedLpd === 'number' ? `${Math.round(c.predictedLpd).toLocaleString('en-GB')} L/day predicted` : '';
+      const measured = typeof c.measuredLpd === 'number' ? `${showQuantity(c.measuredLpd, 'litresPerDay', 'metric')} measured` : '';
+      const predicted = typeof c.predictedLpd === 'number' ? `${showQuantity(c.predictedLpd, 'litresPerDay', 'metric')} predicted` : '';
       return { title: 'Ram checked after installation', detail: [measured, predicted].filter(Boolean).join(' against ') };
     }
     case 'photo:uploaded':
-      return { title: 'Photo received', detail: typeof c.bytes === 'number' ? `${Math.round(c.bytes / 1024).toLocaleString('en-GB')} kB` : '' };
+      return { title: 'Photo received', detail: typeof c.bytes === 'number' ? formatBytes(c.bytes) : '' };
     default:
       break;
   }

@@ -1,7 +1,7 @@
 // How a parked sync conflict is put to the advisor: the record in words, each field by its form
 // label, numbers converted to the advisor's units with the unit beside them (values are SI).
 import type { UnitSystem } from './domain';
-import { showQuantity, type Quantity } from './quantities';
+import { showQuantity, type QuantityKind } from './display/quantities';
 import type { SyncEntity } from './schemas/sync';
 
 const ENTITY_NAMES: Record<SyncEntity, string> = {
@@ -10,7 +10,7 @@ const ENTITY_NAMES: Record<SyncEntity, string> = {
   commissioning: 'a commissioning check',
 };
 
-const FIELDS: Record<string, { label: string; quantity?: Quantity }> = {
+const FIELDS: Record<string, { label: string; quantity?: QuantityKind }> = {
   notes: { label: 'Notes' }, status: { label: 'State' }, visitedAt: { label: 'Visited at' }, name: { label: 'Name' }, kind: { label: 'Kind' },
   sourceId: { label: 'Source' }, takenAt: { label: 'Taken at' }, measurement: { label: 'Method and trials' }, purpose: { label: 'Purpose' },
   seq: { label: 'Order' }, bookedFrom: { label: 'Booked from' }, run: { label: 'Readings of the run' }, role: { label: 'Role' },
@@ -55,7 +55,7 @@ export function fieldLabel(field: string): string {
 }
 
 /** A field's label and quantity, when the vocabulary knows it. */
-export function fieldWords(field: string): { label: string; quantity?: Quantity } | undefined {
+export function fieldWords(field: string): { label: string; quantity?: QuantityKind } | undefined {
   return Object.hasOwn(FIELDS, field) ? FIELDS[field] : undefined;
 }
 

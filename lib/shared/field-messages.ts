@@ -3,7 +3,8 @@
 // it in metric (so an API 4xx names the field in words); the phone in the advisor's units.
 import type { UnitSystem } from './domain';
 import { fieldWords } from './conflict-fields';
-import { showQuantity } from './quantities';
+import { formatWhole } from './display/numbers';
+import { showQuantity } from './display/quantities';
 
 type Path = readonly PropertyKey[];
 
@@ -33,7 +34,7 @@ export function plainIssueMessage(issue: IssueLike, units: UnitSystem = 'metric'
   const label = words?.label ?? 'This value';
   const limit = (n: number | bigint | undefined) => {
     const value = Number(n);
-    return words?.quantity ? showQuantity(value, words.quantity, units) : value.toLocaleString('en-GB');
+    return words?.quantity ? showQuantity(value, words.quantity, units) : formatWhole(value);
   };
   switch (issue.code) {
     case 'invalid_type':

@@ -4,7 +4,8 @@
 import { DEMAND_CATALOGUE, type DemandKind } from '@/lib/engine/demand';
 import { floatFlowLps, rectangularWeirFlowLps, vNotchFlowLps, volumetricFlowLps } from '@/lib/engine/flow';
 import type { UnitSystem } from './domain';
-import { showQuantity } from './quantities';
+import { formatWhole } from './display/numbers';
+import { showQuantity } from './display/quantities';
 import { NOTCH_HEAD_RANGE_M, UNUSUAL_FALL_M, UNUSUAL_HEAD, UNUSUAL_LIFT_M, UNUSUAL_PEOPLE, UNUSUAL_TRIAL_RATIO } from './reading-limits';
 import { runDropM, type FallRun, type FlowMeasurement } from './schemas/site-readings';
 import type { EntityFields, SyncEntity } from './schemas/sync';
@@ -69,7 +70,7 @@ function inRun(f: EntityFields<'fallReading'>, units: UnitSystem): Found[] {
   const drop = runDropM(run as FallRun);
   if (drop === null) return [];
   if (f.purpose === 'fall' && drop > UNUSUAL_FALL_M) {
-    return [{ code: 'fall-high', path: 'run', message: `A fall of ${showQuantity(drop, 'length', units)} is more than most rams work on (most use 1 to 20 m; few over ${showQuantity(UNUSUAL_FALL_M, 'length', units)}). Is this right?` }];
+    return [{ code: 'fall-high', path: 'run', message: `A fall of ${showQuantity(drop, 'length', units)} is more than most rams work on (most use ${showQuantity(1, 'length', units)} to ${showQuantity(20, 'length', units)}; few over ${showQuantity(UNUSUAL_FALL_M, 'length', units)}). Is this right?` }];
   }
   const lift = f.bookedFrom === 'tank' ? drop : -drop;
   if (f.purpose === 'lift' && lift > UNUSUAL_LIFT_M) return [{ code: 'lift-high', path: 'run', message: liftQuestion(lift, units) }];
@@ -82,10 +83,10 @@ const liftQuestion = (liftM: number, units: UnitSystem) =>
 function inDemand(d: EntityFields<'demandLine'>): Found[] {
   const entry = Object.hasOwn(DEMAND_CATALOGUE, d.kind) ? DEMAND_CATALOGUE[d.kind as DemandKind] : undefined;
   if (entry?.unit === 'person' && d.count > UNUSUAL_PEOPLE) {
-    return [{ code: 'people-many', path: 'count', message: `${d.count.toLocaleString('en-GB')} people is a village, not a farm (over ${UNUSUAL_PEOPLE}). Is this right?` }];
+    return [{ code: 'people-many', path: 'count', message: `${formatWhole(d.count)} people is a village, not a farm (over ${UNUSUAL_PEOPLE}). Is this right?` }];
   }
   if ((entry?.unit === 'head' || entry?.unit === 'bird') && d.count > UNUSUAL_HEAD) {
-    return [{ code: 'head-many', path: 'count', message: `${d.count.toLocaleString('en-GB')} of one kind is a large herd or flock for a small farm (over ${UNUSUAL_HEAD.toLocaleString('en-GB')}). Is this right?` }];
+    return [{ code: 'head-many', path: 'count', message: `${formatWhole(d.count)} of one kind is a large herd or flock for a small farm (over ${formatWhole(UNUSUAL_HEAD)}). Is this right?` }];
   }
   return [];
 }

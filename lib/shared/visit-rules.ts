@@ -1,6 +1,6 @@
 // Rules about a visit's state that the office pages and the server share.
 import type { VisitStatus } from './domain';
-import { formatDay } from './format';
+import { formatDay, isoDay } from './display/dates';
 
 export interface VisitTiming {
   status: VisitStatus;
@@ -11,7 +11,7 @@ export interface VisitTiming {
 
 /** Today as YYYY-MM-DD (UTC), the form planned dates are stored in. */
 export function todayIso(now = new Date()): string {
-  return now.toISOString().slice(0, 10);
+  return isoDay(now);
 }
 
 /** Overdue: still waiting for the walk (requested or booked) and the planned day has passed. */

@@ -31,8 +31,8 @@ test('find the best positions offline, adopt the best pair, the server screening
   await expect(best).toBeVisible({ timeout: 30_000 });
   // By construction of the demo reach: the slate step (100 → 130 m) is the most fall a drive pipe from the intake
   // may span; a feed pipe from the top of the reach to a stand pipe at 100 m adds the bed above it (6.6 m in all).
-  await expect(best).toContainText('Intake at 0.000 m, ram at 130.000 m');
-  await expect(page.getByTestId('pair-1-stand-pipe')).toContainText('stand pipe at 100.000 m');
+  await expect(best).toContainText('Intake at 0.00 m, ram at 130 m');
+  await expect(page.getByTestId('pair-1-stand-pipe')).toContainText('stand pipe at 100 m');
   await expect(page.getByTestId('pair-line-1')).toBeVisible();
   await expect(page.getByTestId('pair-3')).toBeVisible();
   // The same three pairs on the map, numbered as on the chart: intake ring, ram square, the run along the bank.
@@ -78,7 +78,7 @@ test('find the best positions offline, adopt the best pair, the server screening
   expect([station?.lat, station?.lon, station?.accuracyM]).toEqual([52.417301, -3.615702, 4]);
   await page.goto(`/field/visit/positions?id=${visitId}`);
   await page.getByText(/Saved stations/).click();
-  await page.getByRole('listitem').filter({ hasText: '295.000 m' }).getByRole('button', { name: 'Delete' }).click();
+  await page.getByRole('listitem').filter({ hasText: '295 m' }).getByRole('button', { name: 'Delete' }).click();
   await expect(page.getByText('30 stations')).toBeVisible();
   await context.close();
 });

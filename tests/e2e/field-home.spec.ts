@@ -50,6 +50,6 @@ test('a first open waits for the session, then for the first pull, without a fal
   await expect(page.locator('a[href^="/field/visit?id="]').first()).toBeVisible({ timeout: 15_000 });
   await expect(page.getByText('Fetching your visits from the server…')).toHaveCount(0);
   await expect(page.getByTestId('sync-summary')).toHaveText('Everything is on the server');
-  await expect(page.getByText(/^Stored on this phone: \d+ MB of \d+ MB$/)).toBeVisible();
+  await expect(page.getByText(/^Stored on this phone: [\d.,]+ [kMG]B of [\d.,]+ [kMG]B$/)).toBeVisible();
   await context.close();
 });

@@ -79,7 +79,7 @@ test('capture a site walk offline, reopen offline, sync once online', async ({ b
     await page.getByRole('button', { name: 'Save point' }).click();
     await expect(page.getByText('Point saved on this phone.')).toBeVisible();
   }
-  await expect(page.getByRole('listitem').filter({ hasText: /^intake/ })).toHaveCount(1);
+  await expect(page.getByRole('listitem').filter({ hasText: /^Intake/ })).toHaveCount(1);
 
   // Two photos with EXIF GPS made by the test.
   const photos = [await gpsJpeg(52.40612, -3.59901, '#6b8e23'), await gpsJpeg(52.40571, -3.59822, '#4682b4')];
@@ -90,7 +90,7 @@ test('capture a site walk offline, reopen offline, sync once online', async ({ b
 
   // Demand and pipes.
   await page.goto(`/field/visit/demand?id=${visitId}`);
-  await typeInto(page, 'How many (person)', '2');
+  await typeInto(page, 'How many people', '2');
   await page.getByRole('button', { name: 'Add line' }).click();
   await expect(page.getByText('Line saved on this phone.')).toBeVisible();
   await page.goto(`/field/visit/pipes?id=${visitId}`);

@@ -63,7 +63,7 @@ test('two phones edit the same pipe length offline: the second sees a conflict a
   expect(await phoneState(b.page)).toMatchObject({ outbox: 1, parked: 1, pending: 0 });
   expect((await deliveryM(visitId))[0]?.lengthM).toBeCloseTo(950 * FT, 6);
   // The bar does not claim everything is on the server while a change waits for a decision.
-  await expect(b.page.getByTestId('sync-summary')).toHaveText('Not everything is on the server');
+  await expect(b.page.getByTestId('sync-summary')).toHaveText('Nothing waiting to send');
   await expect(b.page.getByText('Field advisor', { exact: true })).toBeVisible();
   const decision = b.page.getByRole('link', { name: '1 change needs your decision' });
   await expect(decision).toBeVisible();
@@ -73,8 +73,8 @@ test('two phones edit the same pipe length offline: the second sees a conflict a
   await expect(conflict).toHaveCount(1);
   await b.page.screenshot({ path: test.info().outputPath('conflict.png'), fullPage: true });
   // Both values, in the advisor's units (Ines works in feet).
-  await expect(conflict.getByRole('row', { name: /Length/ })).toContainText('1000.00 ft');
-  await expect(conflict.getByRole('row', { name: /Length/ })).toContainText('950.00 ft');
+  await expect(conflict.getByRole('row', { name: /Length/ })).toContainText('1,000 ft');
+  await expect(conflict.getByRole('row', { name: /Length/ })).toContainText('950 ft');
 
   // Keep mine, knowingly: it goes up on top of A's revision.
   await conflict.getByRole('button', { name: 'Keep mine' }).click();

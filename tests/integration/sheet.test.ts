@@ -2,7 +2,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { PDFParse } from 'pdf-parse';
 import { GET as getSheet } from '@/app/api/visits/[id]/sheet/route';
 import { GET as getPdf } from '@/app/api/visits/[id]/sheet/pdf/route';
-import { fmt } from '@/lib/engine/format';
+import { showQuantity } from '@/lib/shared/display/quantities';
 import { Screening, User, Visit, getSequelize } from '@/lib/server/db';
 import { makeOrganisation, params, request, type TestUser } from './support/fixtures';
 import { screenFixtureVisit } from './support/screened';
@@ -34,7 +34,7 @@ describe('GET /api/visits/:id/sheet as each role', () => {
     const { sheet } = await res.json();
     expect(sheet.verdict).toBe(stored.verdict);
     expect(sheet.summary[0]).toMatch(/^This site can deliver [\d,]+ litres a day/);
-    expect(sheet.figures.find((f: { key: string }) => f.key === 'deliveryLpd').value).toBe(fmt(stored.deliveryLpd, 'L/day'));
+    expect(sheet.figures.find((f: { key: string }) => f.key === 'deliveryLpd').value).toBe(showQuantity(stored.deliveryLpd, 'litresPerDay', 'metric'));
   });
 
   it('the assigned advisor and the coordinator read it too', async () => {
@@ -86,8 +86,8 @@ describe('GET /api/visits/:id/sheet/pdf', () => {
     const text = (await pdfText(res)).replace(/\s+/g, ' ');
     const word = { go: 'Go', conditional: 'Go, with conditions', 'no-go': 'No-go' }[stored.verdict] ?? '?';
     expect(text).toContain(word);
-    expect(text).toContain(fmt(stored.deliveryLpd, 'L/day'));
-    expect(text).toContain(fmt(stored.demandLpd, 'L/day'));
+    expect(text).toContain(showQuantity(stored.deliveryLpd, 'litresPerDay', 'metric'));
+    expect(text).toContain(showQuantity(stored.demandLpd, 'litresPerDay', 'metric'));
     for (const caution of ['Pressure surges and pipe rating', 'Floods, working in water, frost', 'Water rights and permits', 'Drinking water', 'licensed']) {
       expect(text).toContain(caution);
     }

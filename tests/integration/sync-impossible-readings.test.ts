@@ -15,7 +15,7 @@ describe('the push refuses impossible readings in plain words', () => {
     const o = await makeOrganisation('impossible-fall');
     const cases = [
       { run: { method: 'level', rows: [{ backsightM: 0 }, { foresightM: 500 }] }, reason: /Foresight must be at most 6/ },
-      { run: { method: 'level', rows: [{ backsightM: 2.5 }, { foresightM: 0.5 }] }, reason: /climbs 2\.000 m from the intake to the ram/ },
+      { run: { method: 'level', rows: [{ backsightM: 2.5 }, { foresightM: 0.5 }] }, reason: /climbs 2\.00 m from the intake to the ram/ },
       { run: { method: 'direct', staticLiftM: 5000, liftMethod: 'level' }, purpose: 'lift' as const, reason: /at most 500/ },
     ];
     for (const c of cases) {
@@ -38,7 +38,7 @@ describe('the push refuses impossible readings in plain words', () => {
     expect(made.results[0]?.status).toBe('applied');
     const edit = await push(o.advisor, { ops: [putOp('fallReading', id, { run: { method: 'hose', steps: [{ upperReadingM: 1.7, lowerReadingM: 0.2 }] } }, { baseRev: made.results[0]?.rev as number })] });
     expect(edit.results[0]?.status).toBe('rejected');
-    expect(edit.results[0]?.error?.message).toMatch(/climbs 1\.500 m/);
+    expect(edit.results[0]?.error?.message).toMatch(/climbs 1\.50 m/);
     const stored = await FallReading.findByPk(id);
     expect((stored?.get('bookings') as { steps: { lowerReadingM: number }[] }).steps[0]?.lowerReadingM).toBe(1.7);
   });

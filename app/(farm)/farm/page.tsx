@@ -5,7 +5,7 @@ import { VisitTable } from '@/components/visit-table';
 import { requirePageUser } from '@/lib/server/auth/page-guard';
 import { listFarms } from '@/lib/server/data/farms';
 import { listVisits } from '@/lib/server/data/visits';
-import { formatLitresPerDay } from '@/lib/shared/format';
+import { showQuantity } from '@/lib/shared/display/quantities';
 
 export const metadata: Metadata = { title: 'My farm' };
 
@@ -27,7 +27,7 @@ export default async function FarmHome() {
               <span className="block text-lg font-bold">{farm.name}</span>
               <span className="block text-stone">{farm.area}</span>
               <span className="mt-1 block">
-                Daily need you told us: <strong className="figure">{formatLitresPerDay(farm.demandLpd)}</strong>
+                Daily need you told us: <strong className="figure">{showQuantity(farm.demandLpd, 'litresPerDay', user.units)}</strong>
               </span>
               <Link href={`/farm/farms/${farm.id}/needs`} className="mt-2 inline-flex min-h-12 items-center font-bold">
                 Water needs for {farm.name}

@@ -2,7 +2,9 @@
 
 import Link from 'next/link';
 import { VISIT_STATUS_LABELS, type VisitStatus } from '@/lib/shared/domain';
-import { formatDay } from '@/lib/shared/format';
+import { formatDay } from '@/lib/shared/display/dates';
+import { isOverdue } from '@/lib/shared/visit-rules';
+import { decisionWords, waitingWords } from './_components/sync-words';
 import { FieldQuestions } from './_components/field-questions';
 import { useFieldUser } from './_components/field-session';
 import { useFrameQuery } from './_components/use-frame-query';
@@ -27,9 +29,14 @@ export default function FieldHome() {
               <span className="block text-xl font-bold">{v.farm?.name ?? 'Farm'}</span>
               <span className="block text-stone">{v.farm?.area}</span>
               <span className="mt-1 block">
-                {v.plannedOn ? <span className="figure">{formatDay(v.plannedOn)}</span> : 'No date yet'} · {VISIT_STATUS_LABELS[v.status as VisitStatus] ?? v.status}
-                {v.waiting > 0 && <strong> · {v.waiting} waiting to send</strong>}
+                {v.plannedOn ? <span className="figure">{formatDay(v.plannedOn)}</span> : 'No date yet'} · {VISIT_STATUS_LABELS[v.status as VisitStatus] ?? 'Other'}
+                {isOverdue({ ...v, status: v.status as VisitStatus, lastSyncedAt: null }) && <strong className="text-clay" data-testid="overdue"> · ⚠ Overdue</strong>}
               </span>
+              {(v.waiting > 0 || v.parked > 0) && (
+                <span className="mt-1 block font-bold">
+                  {[v.waiting > 0 && waitingWords({ waiting: v.waiting, photos: 0, parked: 0 }), v.parked > 0 && decisionWords(v.parked)].filter(Boolean).join(' · ')}
+                </span>
+              )}
             </Link>
           </li>
         ))}

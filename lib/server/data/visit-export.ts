@@ -2,6 +2,7 @@ import 'server-only';
 import { QueryTypes } from 'sequelize';
 import { getSequelize } from '@/lib/server/db';
 import { csvRow } from '@/lib/shared/csv';
+import { isoMinute } from '@/lib/shared/display/dates';
 import { VERDICT_WORDS } from '@/lib/shared/sheet/view-model';
 import type { VisitFilters } from '@/lib/shared/schemas/list-query';
 import { authorize, type SessionUser } from '../auth/permissions';
@@ -36,7 +37,7 @@ export async function* visitsCsv(user: SessionUser, filters: VisitFilters): Asyn
       const margin = f?.deliveryLpd != null && f.demandLpd != null ? f.deliveryLpd - f.demandLpd : null;
       return csvRow([v.farm.name, v.farm.area, v.farmer?.name, v.advisor?.name ?? '', v.plannedOn, v.statusLabel, v.overdue ? 'yes' : 'no',
         v.verdict ? VERDICT_WORDS[v.verdict] : 'not screened', litres(f?.deliveryLpd), litres(f?.demandLpd), litres(margin),
-        v.lastSyncedAt ? `${v.lastSyncedAt.slice(0, 10)} ${v.lastSyncedAt.slice(11, 16)}` : 'never', v.id]);
+        v.lastSyncedAt ? isoMinute(v.lastSyncedAt) : 'never', v.id]);
     });
     yield rows.join('');
   }

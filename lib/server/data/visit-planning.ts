@@ -6,7 +6,7 @@ import { VISIT_STATUS_LABELS, type VisitStatus } from '@/lib/shared/domain';
 import type { visitAssignSchema, visitCreateSchema, bulkAssignSchema } from '@/lib/shared/schemas/office';
 import { mayHoldUnsyncedData, todayIso } from '@/lib/shared/visit-rules';
 import { ACTIVE_STATUSES, canMove, moveRefusal } from '@/lib/shared/visit-states';
-import { formatDay } from '@/lib/shared/format';
+import { formatDay } from '@/lib/shared/display/dates';
 import type { z } from 'zod';
 import { recordAudit } from '../audit';
 import { authorize, type SessionUser } from '../auth/permissions';

@@ -1,5 +1,5 @@
 import 'server-only';
-import { formatDateTime } from '@/lib/shared/format';
+import { formatDateTime } from '@/lib/shared/display/dates';
 import { sendMail } from './transport';
 import { appLink } from './notices';
 

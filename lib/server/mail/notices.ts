@@ -1,5 +1,5 @@
 import 'server-only';
-import { formatDay } from '@/lib/shared/format';
+import { formatDay } from '@/lib/shared/display/dates';
 import { appEnv } from '../env';
 import { sendMail } from './transport';
 

@@ -1,4 +1,5 @@
 import { z } from '@/lib/shared/zod';
+import { formatWhole } from '../display/numbers';
 import { DEMAND_CATALOGUE, type DemandKind } from '@/lib/engine/demand';
 import { NOTE_MAX } from '../sheet/email';
 import { ANSWER_TOO_LONG, ANSWER_TOO_SHORT, QUESTION_MAX, QUESTION_MIN, QUESTION_TOO_LONG, QUESTION_TOO_SHORT, REASON_MAX, REASON_NEEDED, REASON_TOO_LONG } from '../sheet/question-rules';
@@ -15,7 +16,7 @@ export const paperQuery = z.object({
 export const sendSheetBody = z.object({
   to: z.string().trim().email('Enter a valid e-mail address, like name@example.org.').max(254).optional(),
   paper: z.enum(PAPERS, { message: 'Paper must be a4 or letter.' }).optional(),
-  note: z.string().trim().max(NOTE_MAX, `Keep the note under ${NOTE_MAX.toLocaleString('en-US')} characters.`).optional(),
+  note: z.string().trim().max(NOTE_MAX, `Keep the note under ${formatWhole(NOTE_MAX)} characters.`).optional(),
 });
 export type SendSheetBody = z.infer<typeof sendSheetBody>;
 
@@ -47,7 +48,7 @@ const fieldNumber = (value: unknown): unknown => {
 };
 
 const wholeCount = (what: string, max: number) =>
-  z.preprocess(fieldNumber, z.number({ message: `Enter how many ${what}, as a number.` }).int(`The number of ${what} must be a whole number.`).min(0, `The number of ${what} cannot be negative.`).max(max, `At most ${max.toLocaleString('en-US')} ${what}.`));
+  z.preprocess(fieldNumber, z.number({ message: `Enter how many ${what}, as a number.` }).int(`The number of ${what} must be a whole number.`).min(0, `The number of ${what} cannot be negative.`).max(max, `At most ${formatWhole(max)} ${what}.`));
 
 export const farmNeedsBody = z.object({
   people: wholeCount('people', 500),

@@ -3,7 +3,7 @@
 // and the PDF alike as the same SVG markup (drawing-svg.ts).
 import type { UnitSystem } from '../domain';
 import { mToFt } from '../units';
-import { length as lengthQ, pipeLength } from './quantities';
+import { quantity } from '../display/quantities';
 
 export interface ProfileInput {
   fallM: number;
@@ -70,13 +70,13 @@ export function profileGeometry(p: ProfileInput, units: UnitSystem, width = 640,
   for (let v = 0; v <= toUnits(spanX) + 1e-9; v += stepX) xGrid.push({ at: X(fromUnits(v)), label: `${+v.toFixed(3)} ${unit}` });
 
   const nodes: ProfileNode[] = [
-    { key: 'intake', x: X(0), y: Y(p.fallM), label: 'Intake', height: `${lengthQ(p.fallM, units).text} above the ${p.gravity ? 'low point' : 'ram'}` },
+    { key: 'intake', x: X(0), y: Y(p.fallM), label: 'Intake', height: `${quantity(p.fallM, 'length', units).text} above the ${p.gravity ? 'low point' : 'ram'}` },
     { key: 'pump', x: X(driveRun), y: Y(0), label: p.gravity ? 'Low point' : 'Ram pump', height: 'height 0' },
-    { key: 'tank', x: X(spanX), y: Y(p.staticLiftM), label: 'Tank', height: `${lengthQ(p.staticLiftM, units).text} above the ${p.gravity ? 'low point' : 'ram'}` },
+    { key: 'tank', x: X(spanX), y: Y(p.staticLiftM), label: 'Tank', height: `${quantity(p.staticLiftM, 'length', units).text} above the ${p.gravity ? 'low point' : 'ram'}` },
   ];
   const [intake, pump, tank] = nodes as [ProfileNode, ProfileNode, ProfileNode];
-  const driveLabel = `${p.gravity ? 'Pipe' : 'Drive pipe'} ${pipeLength(p.driveLengthM, units).text}`;
-  const deliveryLabel = `${p.gravity ? 'Pipe' : 'Delivery pipe'} ${pipeLength(p.deliveryLengthM, units).text}`;
+  const driveLabel = `${p.gravity ? 'Pipe' : 'Drive pipe'} ${quantity(p.driveLengthM, 'pipeLength', units).text}`;
+  const deliveryLabel = `${p.gravity ? 'Pipe' : 'Delivery pipe'} ${quantity(p.deliveryLengthM, 'pipeLength', units).text}`;
   const pipes: ProfilePipe[] = [
     { key: 'drive', x1: intake.x, y1: intake.y, x2: pump.x, y2: pump.y, label: driveLabel },
     { key: 'delivery', x1: pump.x, y1: pump.y, x2: tank.x, y2: tank.y, label: deliveryLabel },
@@ -84,7 +84,7 @@ export function profileGeometry(p: ProfileInput, units: UnitSystem, width = 640,
   const ratio = sy / sx;
   const exaggeration = ratio > 1.5 ? `Heights drawn ${Math.round(ratio)} × larger than lengths` : ratio < 0.67 ? `Lengths drawn ${Math.round(1 / ratio)} × larger than heights` : '';
   const description = p.gravity
-    ? `Elevation profile: the intake is ${nodes[0]?.height}; the water runs down ${pipeLength(p.driveLengthM, units).text} of pipe to the low point, then ${pipeLength(p.deliveryLengthM, units).text} on to the tank, ${tank.height} and below the intake.`
+    ? `Elevation profile: the intake is ${nodes[0]?.height}; the water runs down ${quantity(p.driveLengthM, 'pipeLength', units).text} of pipe to the low point, then ${quantity(p.deliveryLengthM, 'pipeLength', units).text} on to the tank, ${tank.height} and below the intake.`
     : `Elevation profile: the intake is ${nodes[0]?.height}; the water runs down the ${driveLabel.toLowerCase()} to the ram pump, then up the ${deliveryLabel.toLowerCase()} to the tank, ${tank.height}.`;
   const legend = p.gravity ? 'Pipe to the low point solid, on to the tank dashed.' : 'Drive pipe solid, delivery pipe dashed.';
   return { width, height, plot, nodes, pipes, xGrid, yGrid, exaggeration, description, legend };

@@ -2,7 +2,7 @@
 // ("1¼″ (32 mm)", "Schedule 40", "300 psi"); a metric reader gets the metric name first with the
 // imperial one in brackets, and "Schedule 40" says what it is.
 import type { UnitSystem } from '../domain';
-import { psiAsKPa } from './quantities';
+import { psiAsKPa } from '../display/quantities';
 
 const SIZE = /((?:\d+)?[¼½¾]?)″ \((\d+) mm\)/g;
 

@@ -1,13 +1,15 @@
 // The farmer's sheet as display strings: one pure function feeds both the page and the PDF, so
 // they always say the same thing. Every number comes from the stored screening (the engine).
-import type { FigureKey, Screening } from '@/lib/engine/screening-types';
+import type { FigureKey, Said, Screening } from '@/lib/engine/screening-types';
 import { VERDICT_WORDS, type UnitSystem, type Verdict } from '../domain';
-import { formatDay } from '../format';
+import { formatDay } from '../display/dates';
 import { profileGeometry, type ProfileGeometry } from './profile';
-import { dailyInWords, length, perDay, perMinute, pipeLength, pressureHead, volume } from './quantities';
+import { formatFigure, formatWhole } from '../display/numbers';
+import { renderMessage } from '../display/message';
+import { sentence } from './sentence';
+import { dailyInWords, pressureHead, quantity, type QuantityKind } from '../display/quantities';
 import { plainTrade } from './trade-words';
 import { siteMapGeometry, type SiteMapGeometry } from './site-map';
-import { toUsText } from './us-text';
 
 /** What the server hands over for one sheet: the stored screening and who/where/when. */
 export interface SheetSource {
@@ -112,24 +114,25 @@ export function chance(p: number): string {
 function keyFigures(s: SheetSource, units: UnitSystem): SheetFigure[] {
   const f = s.screening.figures;
   const out: SheetFigure[] = [];
+  const q = (kind: QuantityKind) => (v: number) => quantity(v, kind, units).text;
   const add = (key: FigureKey, label: string, show: (v: number) => string, note = '') => {
     const v = f[key]?.value;
     if (key === 'ramCount' && v === 1) return;
     if (v !== null && v !== undefined) out.push({ key, label, value: show(v), note });
   };
   const gravity = s.screening.verdict === 'gravity';
-  add('fallM', gravity ? 'Fall (intake to the low point)' : 'Fall (intake to ram)', (v) => length(v, units).text, gravity ? 'Where the pipe runs lowest' : 'Drives the ram');
-  add('designFlowLpm', 'Design flow', (v) => perMinute(v, units).text, 'Part of the driest flow measured');
-  add('totalLiftM', 'Lift (ram to tank)', (v) => length(v, units).text, 'Height plus pipe friction');
-  add('liftRatio', 'Lift ratio', (v) => `${v.toFixed(1)} to 1`, 'Lift ÷ fall');
-  add('deliveryLpd', 'Delivery per day', (v) => perDay(v, units).text, gravity ? 'What the pipe carries, up to what the stream spares' : 'Ram running day and night');
-  add('demandLpd', 'Demand per day', (v) => perDay(v, units).text, 'What you told us you need');
-  add('demandMarginLpd', 'Margin', (v) => (v >= 0 ? `${perDay(v, units).text} to spare` : `${perDay(-v, units).text} short`), 'Delivery minus demand');
+  add('fallM', gravity ? 'Fall (intake to the low point)' : 'Fall (intake to ram)', q('length'), gravity ? 'Where the pipe runs lowest' : 'Drives the ram');
+  add('designFlowLpm', 'Design flow', q('flowLpm'), 'Part of the driest flow measured');
+  add('totalLiftM', 'Lift (ram to tank)', q('length'), 'Height plus pipe friction');
+  add('liftRatio', 'Lift ratio', (v) => `${formatFigure(v)} to 1`, 'Lift ÷ fall');
+  add('deliveryLpd', 'Delivery per day', q('litresPerDay'), gravity ? 'What the pipe carries, up to what the stream spares' : 'Ram running day and night');
+  add('demandLpd', 'Demand per day', q('litresPerDay'), 'What you told us you need');
+  add('demandMarginLpd', 'Margin', (v) => (v >= 0 ? `${q('litresPerDay')(v)} to spare` : `${q('litresPerDay')(-v)} short`), 'Delivery minus demand');
   add('probabilityMeetsDemand', 'Chance of meeting demand', chance, 'Share of simulated runs that met demand, with the readings and the ram\u2019s efficiency varied as they vary in practice; a season drier than the one measured is not covered');
-  add('tankL', 'Tank', (v) => volume(v, units).text, 'Storage to size for');
+  add('tankL', 'Tank', q('volume'), 'Storage to size for');
   add('ramCount', 'Rams', (v) => `${v} side by side`, 'Each on its own drive pipe');
-  add('gravityHeadM', 'Intake above the tank', (v) => length(v, units).text, 'The water runs down by itself');
-  add('gravityPipeLengthM', 'Pipe from intake to tank', (v) => length(v, units).text);
+  add('gravityHeadM', 'Intake above the tank', q('length'), 'The water runs down by itself');
+  add('gravityPipeLengthM', 'Pipe from intake to tank', q('length'));
   add('workingPeakHeadM', 'Pressure at the ram in normal running', (v) => pressureHead(v, units), 'About the lift');
   add('blockedDeliveryHeadM', 'Pressure at the ram if the delivery is blocked', (v) => pressureHead(v, units), 'Fall plus surge: rate pipe and ram for it');
   add('peakPressureHeadM', 'Pressure at the ram', (v) => pressureHead(v, units), 'Lift plus surge: rate pipe and ram for it');
@@ -138,11 +141,11 @@ function keyFigures(s: SheetSource, units: UnitSystem): SheetFigure[] {
 }
 
 function billOfMaterials(s: SheetSource, units: UnitSystem): SheetBomLine[] {
-  const tankL = s.screening.figures.tankL?.value;
   return s.screening.billOfMaterials.map((line) => {
-    const quantity = line.unit === 'm' ? pipeLength(line.quantity, units).text : `${line.quantity} ${line.unit}`;
-    const size = line.item.startsWith('Storage tank') && tankL != null ? volume(tankL, units).text : line.size;
-    return { item: plainTrade(line.item, units), size: plainTrade(size, units), quantity, note: line.note };
+    const amount = line.unit === 'm' ? quantity(line.quantity, 'pipeLength', units).text : `${formatWhole(line.quantity)} ${line.unit}`;
+    const size = line.sizeMessage ? renderMessage(line.sizeMessage, units) : line.size;
+    const note = line.noteMessage ? renderMessage(line.noteMessage, units) : line.note;
+    return { item: plainTrade(line.item, units), size: plainTrade(size, units), quantity: amount, note: plainTrade(note, units) };
   });
 }
 
@@ -156,7 +159,7 @@ function methodNotes(s: SheetSource): string[] {
     rule('staticLiftM') && `Lift — ${rule('staticLiftM')}; then ${rule('totalLiftM')?.toLowerCase()}.`,
     rule('deliveryLpm') && `Delivery — ${rule('deliveryLpm')}, the ram's efficiency from a published curve (${rule('efficiency')}).`,
     rule('demandLpd') && `Demand — ${rule('demandLpd')}, from published daily figures.`,
-    `Chance of meeting demand — the readings were varied within their measuring error ${mc.samples.toLocaleString('en-US')} times; the share of those runs that met demand is shown.`,
+    `Chance of meeting demand — the readings were varied within their measuring error ${formatWhole(mc.samples)} times; the share of those runs that met demand is shown.`,
   ].filter((line): line is string => typeof line === 'string' && line.length > 0);
 }
 
@@ -175,8 +178,7 @@ export function buildSheetView(s: SheetSource, units: UnitSystem): SheetView {
   const profileNarrow = profileInput && profileGeometry(profileInput, units, 360, 300);
   const located = s.points.filter((p): p is typeof p & { lat: number; lon: number } => p.lat !== null && p.lon !== null);
   const visited = s.visitedAt ? formatDay(s.visitedAt) : 'a date not recorded';
-  // The engine's sentences are metric; a US reader gets them in US customary units.
-  const say = (text: string) => (units === 'us' ? toUsText(plainTrade(text, units)) : plainTrade(text, units));
+  const say = (said: Said) => sentence(said, units);
   return {
     visitId: s.visitId,
     units,
@@ -187,10 +189,10 @@ export function buildSheetView(s: SheetSource, units: UnitSystem): SheetView {
     verdictWord: VERDICT_WORDS[sc.verdict],
     summary: summarySentences(s, units),
     figures: keyFigures(s, units),
-    reasons: sc.reasons.map((r) => say(r.text)),
-    conditions: sc.conditions.map((c) => say(c.text)),
-    billOfMaterials: billOfMaterials(s, units).map((line) => ({ ...line, note: say(line.note) })),
-    cautions: sc.cautions.map((c) => ({ code: c.code, title: CAUTION_TITLES[c.code] ?? 'Caution', text: say(c.text) })),
+    reasons: sc.reasons.map(say),
+    conditions: sc.conditions.map(say),
+    billOfMaterials: billOfMaterials(s, units),
+    cautions: sc.cautions.map((c) => ({ code: c.code, title: CAUTION_TITLES[c.code] ?? 'Caution', text: say(c) })),
     surveyed: `Surveyed by ${s.advisorName ?? 'an advisor'} on ${visited}; screened on ${formatDay(s.screenedAt)}.`,
     engineVersion: sc.engineVersion,
     method: methodNotes(s),

@@ -1,4 +1,4 @@
-import { demandOf, hoseRunOf } from './helpers';
+import { demandOf } from './helpers';
 import { describe, expect, it } from 'vitest';
 import { mulberry32, normalSampler, screenSite } from '@/lib/engine';
 import { clearGo } from './fixtures/demo-sites';

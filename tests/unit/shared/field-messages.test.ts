@@ -20,13 +20,13 @@ const demand = (count: number, litresPerHeadPerDay: number) => ({ farmId: FARM, 
 describe('impossible readings are refused in plain words', () => {
   it('a foresight of 500 m is no staff reading (a staff reads to 5 m; common practice, no source)', () => {
     const m = refusal('fallReading', level([{ backsightM: 0 }, { foresightM: 500 }]));
-    expect(m['run.rows.1.foresightM']).toBe('Foresight must be at most 6.000 m.');
+    expect(m['run.rows.1.foresightM']).toBe('Foresight must be at most 6.00 m.');
   });
 
   it('an uphill "fall" is refused with its climb, in the reader\'s units', () => {
     // Backsight 0.5, foresight 0: the far station is 0.5 m higher (height of instrument; surveying textbooks).
     const metric = refusal('fallReading', level([{ backsightM: 0.5 }, { foresightM: 0 }]));
-    expect(metric['run.result']).toMatch(/^This run climbs 0\.500 m from the intake to the ram/);
+    expect(metric['run.result']).toMatch(/^This run climbs 0\.50 m from the intake to the ram/);
     const parsed = recordSchemas.fallReading.safeParse(level([{ backsightM: 2.5 }, { foresightM: 0.5 }]));
     const us = messagesByPath(parsed.error!.issues.map((i) => ({ ...i, message: undefined })), 'us');
     expect(us['run.result']).toMatch(/^This run climbs 6\.56 ft/);
@@ -34,7 +34,7 @@ describe('impossible readings are refused in plain words', () => {
 
   it('a lift of 5,000 m and one of −30 m are refused', () => {
     const direct = (staticLiftM: number) => ({ visitId: VISIT, purpose: 'lift', seq: 1, takenAt: null, notes: '', bookedFrom: null, run: { method: 'direct', staticLiftM, liftMethod: 'level' } });
-    expect(refusal('fallReading', direct(5000))['run.staticLiftM']).toBe('Height of the tank above the pump must be at most 500.000 m.');
+    expect(refusal('fallReading', direct(5000))['run.staticLiftM']).toBe('Height of the tank above the pump must be at most 500 m.');
     expect(refusal('fallReading', direct(-30))['run.staticLiftM']).toBe('Height of the tank above the pump must be more than 0.');
   });
 
@@ -58,13 +58,13 @@ describe('impossible readings are refused in plain words', () => {
   it('a bucket of −20 L and a bucket of 5,000 L are refused at the bucket', () => {
     const flow = (volumeL: number) => ({ visitId: VISIT, sourceId: null, takenAt: null, notes: '', measurement: { method: 'volumetric', season: 'dry', trials: [{ volumeL, seconds: 10 }] } });
     expect(refusal('flowMeasurement', flow(-20))['measurement.trials.0.volumeL']).toBe('Bucket volume must be more than 0');
-    expect(refusal('flowMeasurement', flow(5000))['measurement.trials.0.volumeL']).toBe('Bucket volume must be at most 1000.0 L.');
+    expect(refusal('flowMeasurement', flow(5000))['measurement.trials.0.volumeL']).toBe('Bucket volume must be at most 1,000 L.');
   });
 
   it('the engine\'s own input refuses an uphill fall run too', () => {
     const parsed = siteReadingsSchema.safeParse({ fallRuns: [{ method: 'hose', steps: [{ upperReadingM: 2, lowerReadingM: 0 }] }] });
     expect(parsed.success).toBe(false);
-    expect(parsed.error!.issues.some((i) => i.path.join('.') === 'fallRuns.0.result' && /climbs 2\.000 m/.test(i.message))).toBe(true);
+    expect(parsed.error!.issues.some((i) => i.path.join('.') === 'fallRuns.0.result' && /climbs 2\.00 m/.test(i.message))).toBe(true);
   });
 
   it('no message it gives is zod\'s own wording', () => {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { buildSheetView, chance, needPhrase, summarySentences } from '@/lib/shared/sheet/view-model';
-import { dailyInWords, length, perDay, roughly } from '@/lib/shared/sheet/quantities';
+import { dailyInWords, quantity, roughly } from '@/lib/shared/display/quantities';
 import { plainTrade } from '@/lib/shared/sheet/trade-words';
 import { brandtLikeSource, gravitySource } from './fixture';
 
@@ -17,7 +17,7 @@ describe('rounding for the summary', () => {
   });
 
   it('says the daily figures in words with the key figure\'s own number, gallons for US readers', () => {
-    expect(dailyInWords(2284.4, 'metric')).toBe(`${perDay(2284.4, 'metric').number} litres`);
+    expect(dailyInWords(2284.4, 'metric')).toBe(`${quantity(2284.4, 'litresPerDay', 'metric').number} litres`);
     expect(dailyInWords(2284.4, 'metric')).toBe('2,280 litres');
     expect(dailyInWords(3.785411784 * 612, 'us')).toBe('612 gallons');
   });
@@ -60,7 +60,7 @@ describe('the sheet view', () => {
   it('shows metric figures with units for a metric reader', () => {
     const view = buildSheetView(source, 'metric');
     const byKey = Object.fromEntries(view.figures.map((f) => [f.key, f.value]));
-    expect(byKey.fallM).toBe(length(figure('fallM'), 'metric').text);
+    expect(byKey.fallM).toBe(quantity(figure('fallM'), 'length', 'metric').text);
     expect(byKey.fallM).toMatch(/ m$/);
     expect(byKey.deliveryLpd).toMatch(/ L\/day$/);
     expect(view.figures.map((f) => f.key)).toEqual(expect.arrayContaining(
@@ -72,7 +72,7 @@ describe('the sheet view', () => {
     const byKey = Object.fromEntries(view.figures.map((f) => [f.key, f.value]));
     expect(byKey.fallM).toMatch(/ ft$/);
     expect(digits(byKey.fallM ?? '')).toBeCloseTo(figure('fallM') / 0.3048, 1);
-    expect(byKey.deliveryLpd).toBe(perDay(figure('deliveryLpd'), 'us').text);
+    expect(byKey.deliveryLpd).toBe(quantity(figure('deliveryLpd'), 'litresPerDay', 'us').text);
     expect(byKey.deliveryLpd).toMatch(/gal\/day$/);
     expect(view.billOfMaterials.find((l) => l.item.startsWith('Drive pipe'))?.quantity).toMatch(/ ft$/);
   });

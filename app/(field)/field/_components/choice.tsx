@@ -1,6 +1,7 @@
 'use client';
 
 import Link from 'next/link';
+import { useId } from 'react';
 
 /** A row of large toggle buttons for a small set of choices (methods, seasons, roles). */
 export function Choice<T extends string>({ label, options, value, onChange }: {
@@ -25,14 +26,22 @@ export function Choice<T extends string>({ label, options, value, onChange }: {
 }
 
 /** The full-width primary action at thumb height. */
-export function PrimaryButton({ children, onClick, disabled, type = 'button' }: {
-  children: React.ReactNode; onClick?: () => void; disabled?: boolean; type?: 'button' | 'submit';
+export function PrimaryButton({ children, onClick, disabled, why, type = 'button' }: {
+  children: React.ReactNode; onClick?: () => void; disabled?: boolean;
+  /** Why the button cannot be used yet, shown under it while it is disabled: a greyed button never stands unexplained. */
+  why?: string;
+  type?: 'button' | 'submit';
 }) {
+  const id = useId();
+  const note = disabled && why ? why : null;
   return (
-    <button type={type} onClick={onClick} disabled={disabled}
-      className="min-h-14 w-full rounded-md bg-slate px-4 text-xl font-bold text-white disabled:opacity-50">
-      {children}
-    </button>
+    <div>
+      <button type={type} onClick={onClick} disabled={disabled} aria-describedby={note ? id : undefined}
+        className="min-h-14 w-full rounded-md bg-slate px-4 text-xl font-bold text-white disabled:opacity-50">
+        {children}
+      </button>
+      {note && <p id={id} className="mt-1 text-stone" data-testid="disabled-why">{note}</p>}
+    </div>
   );
 }
 

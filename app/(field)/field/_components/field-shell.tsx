@@ -93,7 +93,7 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
   // never push it about. Before the session is known, the name lines hold their place with a blank.
   return (
     <FieldUserContext.Provider value={user}>
-      <div className="flex min-h-dvh flex-col">
+      <div className="field-frame flex min-h-dvh flex-col">
         <header className="border-b border-rule">
           <div className="mx-auto flex w-full max-w-3xl items-center justify-between px-4 py-3">
             <Link href="/field" prefetch={false} className="text-2xl font-bold text-slate no-underline">Fallbook</Link>

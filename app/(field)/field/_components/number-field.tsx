@@ -2,12 +2,12 @@
 
 import { useId, useState, type ReactNode } from 'react';
 import type { UnitSystem } from '@/lib/shared/domain';
-import { QUANTITIES, type Quantity } from '@/lib/shared/quantities';
+import { QUANTITIES, typedQuantity, type QuantityKind } from '@/lib/shared/display/quantities';
 import { parseFieldNumber } from '@/lib/shared/units';
 
 interface Props {
   label: string;
-  quantity: Quantity;
+  quantity: QuantityKind;
   units: UnitSystem;
   /** SI value, undefined when empty. */
   value: number | undefined;
@@ -24,8 +24,10 @@ interface Props {
 export function NumberField({ label, quantity, units, value, onChange, hint, signed, name, children }: Props) {
   const id = useId();
   const display = QUANTITIES[quantity][units];
-  const shown = (si: number | undefined) => (si === undefined ? '' : String(Number(display.fromSi(si).toFixed(6))));
+  // A stored value is shown rounded ("5.28" gal, not "5.283441"); left as shown it keeps its exact SI value.
+  const shown = (si: number | undefined) => typedQuantity(si, quantity, units);
   const [text, setText] = useState(shown(value));
+  const [prefill, setPrefill] = useState({ text: shown(value), si: value });
   const [error, setError] = useState<string | null>(null);
 
   // Follow outside changes (a reset, a unit switch) without fighting the person's typing:
@@ -35,8 +37,11 @@ export function NumberField({ label, quantity, units, value, onChange, hint, sig
     setSeen({ value, units });
     const parsed = parseFieldNumber(text);
     const typed = parsed.ok ? display.toSi(parsed.value) : undefined;
-    const agrees = value === undefined ? !parsed.ok : typed !== undefined && Math.abs(typed - value) <= 1e-9;
-    if (!agrees || seen.units !== units) setText(shown(value));
+    const agrees = value === undefined ? !parsed.ok : text === prefill.text ? prefill.si === value : typed !== undefined && Math.abs(typed - value) <= 1e-9;
+    if (!agrees || seen.units !== units) {
+      setText(shown(value));
+      setPrefill({ text: shown(value), si: value });
+    }
   }
 
   function update(next: string) {
@@ -44,7 +49,8 @@ export function NumberField({ label, quantity, units, value, onChange, hint, sig
     const parsed = parseFieldNumber(next);
     if (parsed.ok) {
       setError(null);
-      onChange(display.toSi(parsed.value));
+      // Typed back to what was shown: the stored value, not its rounding.
+      onChange(next.trim() === prefill.text && prefill.si !== undefined ? prefill.si : display.toSi(parsed.value));
     } else {
       setError(parsed.error === 'empty' ? null : 'Type a number, like 1.25 or 1,25.');
       onChange(undefined);

@@ -3,23 +3,21 @@
 import { useLiveQuery } from 'dexie-react-hooks';
 import { VerdictMark } from '@/components/verdict-mark';
 import { screenSite } from '@/lib/engine';
-import { fmt } from '@/lib/engine/format';
 import { NOMINAL_SIZES } from '@/lib/engine/materials';
 import { localSiteReadings } from '@/lib/client/site-readings';
 import Link from 'next/link';
-import { showQuantity } from '@/lib/shared/quantities';
+import { showQuantity } from '@/lib/shared/display/quantities';
 import { plainIssueMessage } from '@/lib/shared/field-messages';
 import { readingIssues } from '@/lib/shared/reading-issues';
 import { siteReadingsSchema } from '@/lib/shared/schemas/site-readings';
 import { plainTrade } from '@/lib/shared/sheet/trade-words';
-import { toUsText } from '@/lib/shared/sheet/us-text';
+import { sentence } from '@/lib/shared/sheet/sentence';
+import type { UnitSystem } from '@/lib/shared/domain';
 import { useUnits } from './use-field-data';
 
 /** The feasibility screen computed on the phone from what is captured so far. */
 export function ScreenPreview({ visitId }: { visitId: string }) {
   const units = useUnits();
-  // The engine writes metric sentences; a US advisor reads them in US customary units, as on the sheet.
-  const say = (text: string) => (units === 'us' ? toUsText(plainTrade(text, units)) : plainTrade(text, units));
   const preview = useLiveQuery(async () => {
     const input = await localSiteReadings(visitId);
     if (!input) return null;
@@ -49,8 +47,8 @@ export function ScreenPreview({ visitId }: { visitId: string }) {
           <p className="figure">
             Delivery {showQuantity(preview.screening.figures.deliveryLpd?.value ?? 0, 'litresPerDay', units)} · demand {showQuantity(preview.screening.figures.demandLpd?.value ?? 0, 'litresPerDay', units)}
           </p>
-          <p data-testid="preview-ram">{say(arrangement(preview.screening.figures))}</p>
-          <ul className="ml-5 list-disc">{preview.screening.reasons.slice(0, 3).map((r) => <li key={r.code}>{say(r.text)}</li>)}</ul>
+          <p data-testid="preview-ram">{arrangement(preview.screening.figures, units)}</p>
+          <ul className="ml-5 list-disc">{preview.screening.reasons.slice(0, 3).map((r) => <li key={r.code}>{sentence(r, units)}</li>)}</ul>
           <p className="text-stone">A first check, not an engineering design. The server stores the official screening after sync.</p>
         </div>
       )}
@@ -61,13 +59,13 @@ export function ScreenPreview({ visitId }: { visitId: string }) {
 type Figures = ReturnType<typeof screenSite>['figures'];
 
 /** What the screen would build, in a line: the rams and their size, or the gravity pipe. */
-function arrangement(f: Figures): string {
-  const label = (inches: number | null | undefined) => NOMINAL_SIZES.find((s) => s.nominalIn === inches)?.label ?? `${inches}″`;
+function arrangement(f: Figures, units: UnitSystem): string {
+  const label = (inches: number | null | undefined) => plainTrade(NOMINAL_SIZES.find((s) => s.nominalIn === inches)?.label ?? `${inches}″`, units);
   if (f.gravityHeadM) {
     const size = f.gravityPipeBoreMm?.inputs.nominalIn;
     return typeof size === 'number' ? `No pump: a ${label(size)} pipe fills the tank by gravity.` : 'No pump: the tank sits below the intake.';
   }
   const count = f.ramCount?.value;
   if (!count || !f.ramSizeIn?.value) return 'No ram size fits these readings.';
-  return `${count === 1 ? 'One ram' : `${count} rams side by side`} for ${label(f.ramSizeIn.value)} drive pipe, taking ${fmt(f.driveFlowLpm?.value ?? 0, 'L/min')}${count > 1 ? ' each' : ''}.`;
+  return `${count === 1 ? 'One ram' : `${count} rams side by side`} for ${label(f.ramSizeIn.value)} drive pipe, taking ${showQuantity(f.driveFlowLpm?.value ?? 0, 'flowLpm', units)}${count > 1 ? ' each' : ''}.`;
 }

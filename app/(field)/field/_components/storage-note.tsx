@@ -1,6 +1,7 @@
 'use client';
 
 import { startTransition, useEffect, useState } from 'react';
+import { formatBytes } from '@/lib/shared/display/numbers';
 
 type Storage = { usage: number; quota: number; persisted: boolean };
 
@@ -20,12 +21,10 @@ export function StorageNote() {
       startTransition(() => setStorage({ usage: estimate.usage ?? 0, quota, persisted }));
     })();
   }, []);
-  // Plain digits: toLocaleString would build a number formatter (locale data) on a busy phone.
-  const mb = (n: number) => `${Math.round(n / 1024 / 1024)} MB`;
   // At the foot of the screen-high column (mt-auto): the figures' line keeps its place (blank until known).
   return (
     <footer className="mx-auto mt-auto w-full max-w-3xl px-4 pb-6 text-stone">
-      <p>{storage ? `Stored on this phone: ${mb(storage.usage)} of ${mb(storage.quota)}` : '\u00a0'}</p>
+      <p>{storage ? `Stored on this phone: ${formatBytes(storage.usage)} of ${formatBytes(storage.quota)}` : '\u00a0'}</p>
       <p>{storage?.persisted
         ? 'The browser keeps it: it will not clear it to free space.'
         : 'The browser may clear what the field book keeps on this phone if space runs low; install the app to keep it.'}</p>

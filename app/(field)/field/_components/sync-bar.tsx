@@ -4,15 +4,16 @@ import Link from 'next/link';
 import { useState } from 'react';
 import type { SyncRecord } from '@/lib/client/sync/meta';
 import type { UnitSystem } from '@/lib/shared/domain';
-import { formatClock } from '@/lib/shared/format';
+import { formatClock } from '@/lib/shared/display/dates';
+import { formatCount } from '@/lib/shared/display/numbers';
 import { useFieldUser } from './field-session';
+import { decisionWords, waitingWords } from './sync-words';
 import { useFrameQuery } from './use-frame-query';
 
 function timeOf(iso: string | undefined, units: UnitSystem): string {
   return iso ? formatClock(new Date(iso), units) : 'never';
 }
 
-const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
 
 /**
  * What waits on the phone, in words and counts, always in the same place (never an icon alone).
@@ -38,13 +39,7 @@ export function SyncBar() {
   }
 
   // A change parked for a decision is not on the server either: never claim everything is.
-  const summary = !ready || !state
-    ? 'Checking the phone…'
-    : state.waiting + state.photos + state.parked === 0
-      ? 'Everything is on the server'
-      : state.waiting + state.photos === 0
-        ? 'Not everything is on the server'
-        : `${plural(state.waiting, 'change', 'changes')}, ${plural(state.photos, 'photo', 'photos')} waiting`;
+  const summary = !ready || !state ? 'Checking the phone…' : waitingWords(state);
   return (
     <section aria-label="Sync status" className="border-b border-rule bg-white">
       <div className="mx-auto flex max-w-3xl flex-wrap items-center justify-between gap-2 px-4 py-2">
@@ -77,10 +72,10 @@ function Notices({ state }: { state: BarState }) {
         <a href="/login?callbackUrl=/field" className="block font-bold text-clay">Sign in again to send what is waiting</a>
       )}
       {state.parked > 0 && (
-        <Link href="/field/sync" className="block font-bold text-clay">{plural(state.parked, 'change needs', 'changes need')} your decision</Link>
+        <Link href="/field/sync" className="block font-bold text-clay">{decisionWords(state.parked)}</Link>
       )}
       {state.refusedPhotos > 0 && (
-        <Link href="/field/sync" className="block font-bold text-clay">The server did not take {plural(state.refusedPhotos, 'photo', 'photos')}: see why</Link>
+        <Link href="/field/sync" className="block font-bold text-clay">The server did not take {formatCount(state.refusedPhotos, 'photo')}: see why</Link>
       )}
       {!state.lastRun?.ok && state.lastRun?.message && !state.paused && <span className="block text-stone">{state.lastRun.message}</span>}
     </>

@@ -9,6 +9,9 @@ import { discardParked, resolveConflict, retryParked } from '@/lib/client/sync/r
 import type { UnitSystem } from '@/lib/shared/domain';
 import { describeRecord, fieldLabel, showFieldValue } from '@/lib/shared/conflict-fields';
 import { isSchemaText } from '@/lib/shared/field-messages';
+import { useFieldUser } from '../_components/field-session';
+import { decisionWords, waitingWords } from '../_components/sync-words';
+import { useFrameQuery } from '../_components/use-frame-query';
 import { useUnits } from '../_components/use-field-data';
 
 function Conflict({ entry, units }: { entry: OutboxEntry; units: UnitSystem }) {
@@ -93,13 +96,14 @@ export default function SyncPage() {
   const entries = useLiveQuery(() => fieldDb().outbox.orderBy('seq').toArray());
   const units = useUnits();
   const parked = entries?.filter((e) => e.status !== 'pending') ?? [];
-  const waiting = entries?.filter((e) => e.status === 'pending') ?? [];
+  // The same counts as the sync bar and the home (changes and photos), from the same query.
+  const counts = useFrameQuery('syncSummary', useFieldUser() !== null);
   return (
     <div className="space-y-5">
       <Link href="/field">← My visits</Link>
       <h1 className="text-3xl font-bold text-slate">Waiting to send</h1>
-      <p className="text-lg">{waiting.length} change{waiting.length === 1 ? '' : 's'} queued. Nothing leaves this phone before the server has it.</p>
-      <h2 className="text-xl font-bold">Needs your decision</h2>
+      <p className="text-lg" data-testid="sync-page-summary">{counts ? `${waitingWords(counts)}.` : 'Checking the phone…'} Nothing leaves this phone before the server has it.</p>
+      <h2 className="text-xl font-bold">{parked.length > 0 ? decisionWords(parked.length) : 'Needs your decision'}</h2>
       {parked.length === 0 && <p className="text-stone">Nothing to decide.</p>}
       <ul className="space-y-3">
         {parked.map((e) => (e.status === 'conflict' ? <Conflict key={e.seq} entry={e} units={units} /> : <Refused key={e.seq} entry={e} />))}

@@ -5,7 +5,7 @@ import dynamic from 'next/dynamic';
 import Link from 'next/link';
 import { Suspense } from 'react';
 import { fieldDb } from '@/lib/client/db';
-import { formatDay } from '@/lib/shared/format';
+import { formatDay } from '@/lib/shared/display/dates';
 
 // The engine loads only when the preview shows (its chunk is precached, so this works offline too).
 const ScreenPreview = dynamic(() => import('../_components/screen-preview').then((m) => m.ScreenPreview), {

@@ -3,7 +3,7 @@
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { apiJson } from '@/lib/client/api';
-import { formatDay } from '@/lib/shared/format';
+import { formatDay } from '@/lib/shared/display/dates';
 
 export interface DeletedVisit { id: string; farmName: string; advisorName: string | null; deletedAt: string }
 

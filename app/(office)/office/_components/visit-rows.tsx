@@ -4,7 +4,7 @@ import Link from 'next/link';
 import { StatusChip } from '@/components/status-chip';
 import { VerdictMark } from '@/components/verdict-mark';
 import type { VisitStatus, Verdict } from '@/lib/shared/domain';
-import { formatDateTime, formatDay } from '@/lib/shared/format';
+import { formatDateTime, formatDay } from '@/lib/shared/display/dates';
 
 export interface VisitItem {
   id: string;

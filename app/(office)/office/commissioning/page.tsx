@@ -2,7 +2,8 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { requirePageUser } from '@/lib/server/auth/page-guard';
 import { listCommissionings } from '@/lib/server/data/commissioning';
-import { showQuantity } from '@/lib/shared/quantities';
+import { formatPercent } from '@/lib/shared/display/numbers';
+import { showQuantity } from '@/lib/shared/display/quantities';
 import { PredictedMeasuredPlot } from './_components/PredictedMeasuredPlot';
 
 export const metadata: Metadata = { title: 'Installed rams: predicted and measured' };
@@ -17,7 +18,6 @@ const OUTCOME_WORDS: Record<string, string> = {
 export default async function CommissioningPage() {
   const user = await requirePageUser(['coordinator'], '/office/commissioning');
   const points = await listCommissionings(user);
-  const pct = (v: number) => `${Math.round(v * 100)} %`;
   return (
     <div className="space-y-4">
       <h1 className="text-3xl font-bold text-slate">Installed rams: predicted and measured</h1>
@@ -43,7 +43,7 @@ export default async function CommissioningPage() {
                   <td className="py-2"><Link href={`/office/visits/${p.visitId}`}>{p.farmName}</Link></td>
                   <td className="font-mono">{showQuantity(p.predictedLpd, 'litresPerDay', user.units)}</td>
                   <td className="font-mono">{showQuantity(p.measuredLpd, 'litresPerDay', user.units)}</td>
-                  <td className="font-mono">{pct(p.daubuissonEfficiency)}</td>
+                  <td className="font-mono">{formatPercent(p.daubuissonEfficiency)}</td>
                   <td>{p.outcome ? OUTCOME_WORDS[p.outcome] ?? p.outcome : 'No prediction to compare'}</td>
                 </tr>
               ))}

@@ -3,7 +3,7 @@ import Link from 'next/link';
 import { StatusChip } from '@/components/status-chip';
 import { requirePageUser } from '@/lib/server/auth/page-guard';
 import { FARM_SORTS, listFarms } from '@/lib/server/data/farms';
-import { formatLitresPerDay } from '@/lib/shared/format';
+import { showQuantity } from '@/lib/shared/display/quantities';
 
 export const metadata: Metadata = { title: 'Farms' };
 
@@ -46,7 +46,7 @@ export default async function FarmsPage({ searchParams }: { searchParams: Promis
               <td className="py-3 pr-3"><Link href={`/office/farms/${f.id}`} className="block font-bold">{f.name}</Link><span className="block text-stone">{f.area}</span></td>
               <td className="py-3 pr-3">{f.owner?.name ?? <em>No account</em>}</td>
               <td className="py-3 pr-3">{f.stage ? <StatusChip status={f.stage} /> : <span className="text-stone">No visit yet</span>}</td>
-              <td className="figure py-3 pr-3">{f.demandLpd > 0 ? formatLitresPerDay(f.demandLpd) : '—'}</td>
+              <td className="figure py-3 pr-3">{f.demandLpd > 0 ? showQuantity(f.demandLpd, 'litresPerDay', user.units) : '—'}</td>
               <td className="py-3"><Link href={`/office/visits/new?farm=${f.id}`} className="inline-flex min-h-12 items-center font-bold">Plan a visit</Link></td>
             </tr>
           ))}

@@ -1,6 +1,7 @@
 // GET /api/visits/export.csv – the filtered visits (same filters as GET /api/visits) as a CSV download.
 import { visitsCsv } from '@/lib/server/data/visit-export';
 import { withAuth } from '@/lib/server/http/with-auth';
+import { isoDay } from '@/lib/shared/display/dates';
 import { searchParamsObject, visitFilters } from '@/lib/shared/schemas/list-query';
 
 export const GET = withAuth('visit:export', async ({ req, user }) => {
@@ -19,7 +20,7 @@ export const GET = withAuth('visit:export', async ({ req, user }) => {
       else controller.enqueue(encoder.encode(next.value));
     },
   });
-  const day = new Date().toISOString().slice(0, 10);
+  const day = isoDay(new Date());
   return new Response(body, {
     headers: {
       'content-type': 'text/csv; charset=utf-8',

@@ -9,7 +9,9 @@ import { setDirty } from '@/lib/client/dirty';
 import { newId } from '@/lib/client/ids';
 import { getMeta } from '@/lib/client/sync/meta';
 import { announceSave } from '@/lib/client/sync/triggers';
-import { showQuantity } from '@/lib/shared/quantities';
+import { formatWhole } from '@/lib/shared/display/numbers';
+import { showQuantity } from '@/lib/shared/display/quantities';
+import type { UnitSystem } from '@/lib/shared/domain';
 import type { PullResponse } from '@/lib/shared/schemas/sync';
 import { PrimaryButton, SectionHeader } from '../../_components/choice';
 import { NumberField } from '../../_components/number-field';
@@ -25,6 +27,19 @@ function sourceName(id: string): string {
   return source ? source.citation.split(/[,(]/)[0]!.trim() : id;
 }
 
+const GARDEN = 'garden-m2';
+
+/** A line as read: "4 × Person, tap on the plot", or a garden by its area in the reader's units. */
+function lineName(kind: string, count: number, units: UnitSystem): string {
+  if (kind === GARDEN) return `Garden, ${showQuantity(count, 'area', units)}`;
+  return `${formatWhole(count)} × ${DEMAND_CATALOGUE[kind as DemandKind]?.label ?? 'Other need'}`;
+}
+
+/** What one head (or one square metre of garden) needs a day, in the reader's units. */
+function perHeadText(kind: string, litres: number, units: UnitSystem): string {
+  return kind === GARDEN ? showQuantity(litres, 'litresPerArea', units) : `${showQuantity(litres, 'litresPerHead', units)} each`;
+}
+
 function DemandPage() {
   const visitId = useVisitId();
   const units = useUnits();
@@ -34,7 +49,9 @@ function DemandPage() {
   const lines = useLiveQuery(async () => (farmId ? (await fieldDb().demandLines.where('farmId').equals(farmId).toArray()).filter((l) => !l.deletedAt) : []), [farmId]);
   const overrides = useLiveQuery(async () => (await getMeta<PullResponse['settings']>('settings'))?.demandFigures ?? {}, [], {} as Record<string, number>);
   const [kind, setKind] = useState<DemandKind>('person-tap-on-plot');
-  const [count, setCount] = useState<number | undefined>();
+  const [typedCount, setCount] = useState<number | undefined>();
+  // A garden's area is kept in whole square metres, whatever unit it was typed in.
+  const count = kind === GARDEN && typedCount !== undefined ? Math.round(typedCount) : typedCount;
   const [perHead, setPerHead] = useState<number | undefined>();
   const [message, setMessage] = useState<string | null>(null);
   const { check, save } = useRecordCheck('demandLine', units);
@@ -74,8 +91,8 @@ function DemandPage() {
         {lines?.map((l) => (
           <li key={l.id} className="flex items-center justify-between px-3 py-2">
             <span>
-              <span className="block font-bold">{l.count} × {DEMAND_CATALOGUE[l.kind]?.label ?? l.kind}</span>
-              <span className="figure block">{showQuantity(l.litresPerHeadPerDay, 'volume', units)} each a day · {sourceName(l.figureSource)}</span>
+              <span className="block font-bold">{lineName(l.kind, l.count, units)}</span>
+              <span className="figure block">{perHeadText(l.kind, l.litresPerHeadPerDay, units)} · {sourceName(l.figureSource)}</span>
             </span>
             <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold"
               onClick={() => remove('demandLine', l.id, 'the line')}>Delete</button>
@@ -87,13 +104,14 @@ function DemandPage() {
         <h2 id="add-line" className="text-xl font-bold">Add a line</h2>
         <label htmlFor="kind" className="block font-bold">Who or what drinks</label>
         <select id="kind" value={kind} onChange={(e) => { setKind(e.target.value as DemandKind); setPerHead(undefined); check.clear(); }} className="min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-lg">
-          {KINDS.map((k) => <option key={k.kind} value={k.kind}>{k.label}</option>)}
+          {KINDS.map((k) => <option key={k.kind} value={k.kind}>{k.kind === GARDEN ? 'Garden' : k.label}</option>)}
         </select>
-        <NumberField label={`How many (${entry.unit})`} quantity="count" units={units} value={count} onChange={setCount}>
-          <FieldIssue check={check} path="count" />
-        </NumberField>
-        <NumberField label={`Water per ${entry.unit} per day`} quantity="volume" units={units} value={perHead ?? defaultFigure} onChange={setPerHead}
-          hint={`Default ${showQuantity(defaultFigure, 'volume', units)} — ${overrides[kind] !== undefined ? "your organisation's figure" : `${entry.basis} (${sourceName(entry.sourceId)})`}`}>
+        {kind === GARDEN
+          ? <NumberField label="Garden area" quantity="area" units={units} value={typedCount} onChange={setCount}><FieldIssue check={check} path="count" /></NumberField>
+          : <NumberField label={entry.unit === 'person' ? 'How many people' : entry.unit === 'bird' ? 'How many birds' : 'How many head'} quantity="count" units={units} value={count} onChange={setCount}><FieldIssue check={check} path="count" /></NumberField>}
+        <NumberField label={kind === GARDEN ? `Water per ${units === 'us' ? 'square foot' : 'square metre'} a day` : `Water per ${entry.unit} a day`}
+          quantity={kind === GARDEN ? 'litresPerArea' : 'litresPerHead'} units={units} value={perHead ?? defaultFigure} onChange={setPerHead}
+          hint={`Default ${kind === GARDEN ? showQuantity(defaultFigure, 'litresPerArea', units) : showQuantity(defaultFigure, 'litresPerHead', units)} — ${overrides[kind] !== undefined ? "your organisation's figure" : sourceName(entry.sourceId)}`}>
           <FieldIssue check={check} path="litresPerHeadPerDay" />
         </NumberField>
         {message && <p role="status" className="font-bold">{message}</p>}

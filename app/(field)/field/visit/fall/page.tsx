@@ -3,7 +3,8 @@
 import { useLiveQuery } from 'dexie-react-hooks';
 import { Suspense, useState } from 'react';
 import { fieldDb } from '@/lib/client/db';
-import { showQuantity } from '@/lib/shared/quantities';
+import { showQuantity } from '@/lib/shared/display/quantities';
+import { FALL_METHOD_WORDS, wordFor } from '@/lib/shared/reading-words';
 import { Choice, SectionHeader } from '../../_components/choice';
 import { useUnits, useVisitId } from '../../_components/use-field-data';
 import { useUndoableDelete } from '../../_components/undo-delete';
@@ -31,7 +32,7 @@ function FallPage() {
             return (
               <li key={r.id} className="flex items-center justify-between px-3 py-2">
                 <span>
-                  <span className="block font-bold">{r.purpose === 'fall' ? 'Fall' : `Lift (from the ${r.bookedFrom ?? 'pump'})`} · {r.run.method}</span>
+                  <span className="block font-bold">{r.purpose === 'fall' ? 'Fall' : r.bookedFrom === 'tank' ? 'Lift, booked down from the tank' : 'Lift'} · {wordFor(FALL_METHOD_WORDS, r.run.method)}</span>
                   <span className="figure block">{showQuantity(drop === null ? null : Math.abs(drop), 'length', units)}</span>
                 </span>
                 <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold"

@@ -8,7 +8,9 @@ import { saveRecord } from '@/lib/client/outbox';
 import { announceSave } from '@/lib/client/sync/triggers';
 import { floatFlowLps, summarise, vNotchFlowLps, volumetricFlowLps } from '@/lib/engine/flow';
 import type { UnitSystem } from '@/lib/shared/domain';
-import { showQuantity } from '@/lib/shared/quantities';
+import { formatCount } from '@/lib/shared/display/numbers';
+import { showQuantity } from '@/lib/shared/display/quantities';
+import { FLOW_METHOD_WORDS, SEASON_WORDS, wordFor } from '@/lib/shared/reading-words';
 import type { FlowMeasurement } from '@/lib/shared/schemas/site-readings';
 import { SectionHeader } from '../../_components/choice';
 import { useUnits, useVisitId } from '../../_components/use-field-data';
@@ -68,8 +70,8 @@ function FlowPage() {
           {saved?.map((m) => (
             <li key={m.id} className="flex items-center justify-between px-3 py-2">
               <span>
-                <span className="block font-bold">{m.measurement.method} · {m.measurement.season} season</span>
-                <span className="figure block">{showQuantity(meanLps(m.measurement), 'flowLps', units)} mean of {m.measurement.trials.length}</span>
+                <span className="block font-bold">{wordFor(FLOW_METHOD_WORDS, m.measurement.method)} · {wordFor(SEASON_WORDS, m.measurement.season)}</span>
+                <span className="figure block">{showQuantity(meanLps(m.measurement), 'flowLps', units)} mean of {formatCount(m.measurement.trials.length, 'trial')}</span>
               </span>
               <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold"
                 onClick={() => remove('flowMeasurement', m.id, 'the flow measurement')}>Delete</button>

@@ -4,7 +4,9 @@ import { useLiveQuery } from 'dexie-react-hooks';
 import Link from 'next/link';
 import { Suspense } from 'react';
 import { fieldDb } from '@/lib/client/db';
-import { showQuantity } from '@/lib/shared/quantities';
+import { formatCount } from '@/lib/shared/display/numbers';
+import { POINT_ROLE_WORDS } from '@/lib/shared/reading-words';
+import { showQuantity } from '@/lib/shared/display/quantities';
 import { SectionHeader } from '../../_components/choice';
 import { useUnits, useVisitId } from '../../_components/use-field-data';
 import { useUndoableDelete } from '../../_components/undo-delete';
@@ -28,15 +30,15 @@ function PointsPage() {
         <h2 id="saved-points" className="text-xl font-bold">Saved points</h2>
         {points?.length === 0 && <p className="text-stone">None yet.</p>}
         {profileStations > 0 && (
-          <p className="text-stone"><span className="figure">{profileStations}</span> creek-profile stations are on{' '}
+          <p className="text-stone"><span className="figure">{formatCount(profileStations, 'creek-profile station')}</span> {profileStations === 1 ? 'is' : 'are'} on{' '}
             <Link href={`/field/visit/positions?id=${visitId}`} className="font-bold text-slate underline">Creek profile, best positions</Link>.</p>
         )}
         <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
           {points?.map((p) => (
             <li key={p.id} className="flex items-center justify-between px-3 py-2">
               <span>
-                <span className="block font-bold">{p.role}{p.label ? ` · ${p.label}` : ''}</span>
-                <span className="figure block">{p.lat !== null && p.lon !== null ? `${p.lat.toFixed(5)}, ${p.lon.toFixed(5)}` : 'no position'}{p.accuracyM !== null ? ` ± ${showQuantity(p.accuracyM, 'length', units)}` : ''}</span>
+                <span className="block font-bold">{POINT_ROLE_WORDS[p.role] ?? 'Other point'}{p.label ? ` · ${p.label}` : ''}</span>
+                <span className="figure block">{p.lat !== null && p.lon !== null ? `${p.lat.toFixed(5)}, ${p.lon.toFixed(5)}` : 'no position'}{p.accuracyM !== null ? ` ± ${showQuantity(p.accuracyM, 'accuracy', units)}` : ''}</span>
               </span>
               <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold"
                 onClick={() => remove('point', p.id, 'the point')}>Delete</button>

@@ -9,7 +9,8 @@ import { newId } from '@/lib/client/ids';
 import { saveRecord } from '@/lib/client/outbox';
 import { adoptPair, levelOf, localProfile } from '@/lib/client/profile-positions';
 import { announceSave } from '@/lib/client/sync/triggers';
-import { showQuantity } from '@/lib/shared/quantities';
+import { formatCount, formatPercent } from '@/lib/shared/display/numbers';
+import { showQuantity } from '@/lib/shared/display/quantities';
 import { PrimaryButton, SectionHeader } from '../../_components/choice';
 import { NumberField } from '../../_components/number-field';
 import { useUnits, useVisitId } from '../../_components/use-field-data';
@@ -65,7 +66,7 @@ function PositionsPage() {
     const pair = result?.ranked.find((p) => p.rank === rank);
     if (!pair || !tank || !profile) return;
     if (!window.confirm('Adopt this pair? The intake and ram points move to it, the pipe lengths follow, and the fall and lift readings are replaced by the profile\u2019s.')) return;
-    await adoptPair(visitId, pair, profile.stations, tank);
+    await adoptPair(visitId, pair, profile.stations, tank, units);
     announceSave();
     setMessage(`Pair ${rank} adopted on this phone; it syncs with the next connection and the screen uses it.`);
   }
@@ -85,8 +86,9 @@ function PositionsPage() {
       </fieldset>
       <PositionsChart stations={profile.stations} tank={tank} pairs={result?.ranked ?? []} units={units} />
       <PositionsMapPanel stations={profile.stations} tankPoint={tp} pairs={result?.ranked ?? []} />
-      <p className="text-stone"><span className="figure">{profile.stations.length}</span> stations{profile.incomplete > 0 ? `, ${profile.incomplete} without distance or level (left out)` : ''}.</p>
-      <PrimaryButton onClick={search} disabled={busy || profile.stations.length < 2}>{busy ? 'Searching…' : 'Find the best positions'}</PrimaryButton>
+      <p className="text-stone"><span className="figure">{formatCount(profile.stations.length, 'station')}</span>{profile.incomplete > 0 ? `, ${formatCount(profile.incomplete, 'station')} without distance or level (left out)` : ''}.</p>
+      <PrimaryButton onClick={search} disabled={busy || profile.stations.length < 2}
+        why={busy ? undefined : `Book at least two stations with their distance along the bank and level first (${profile.stations.length} so far).`}>{busy ? 'Searching…' : 'Find the best positions'}</PrimaryButton>
       {message && <p role="status" className="font-bold">{message}</p>}
       {result && (
         <section aria-labelledby="best" className="space-y-3">
@@ -101,7 +103,7 @@ function PositionsPage() {
                 {p.standPipe && (
                   <p data-testid={`pair-${p.rank}-stand-pipe`}>Feed pipe <span className="figure">{showQuantity(p.feedLengthM, 'length', units)}</span> to an open stand pipe at <span className="figure">{showQuantity(p.standPipe.chainageM, 'length', units)}</span>, where the drive pipe starts</p>
                 )}
-                <p>Delivers about <span className="figure">{showQuantity(p.deliveryLpd, 'litresPerDay', units)}</span>; meets the need in <span className="figure">{Math.round(p.probabilityMeetsDemand * 100)} %</span> of draws</p>
+                <p>Delivers about <span className="figure">{showQuantity(p.deliveryLpd, 'litresPerDay', units)}</span>; meets the need in <span className="figure">{formatPercent(p.probabilityMeetsDemand)}</span> of draws</p>
                 <p>Screen: <VerdictMark verdict={p.screening.verdict} /></p>
                 <button type="button" onClick={() => adopt(p.rank)} className="mt-2 min-h-12 w-full rounded-md border-2 border-slate font-bold text-slate">Adopt pair {p.rank}</button>
               </li>

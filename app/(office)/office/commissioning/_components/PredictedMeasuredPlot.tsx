@@ -1,6 +1,7 @@
 import type { CommissioningPoint } from '@/lib/server/data/commissioning';
 import type { UnitSystem } from '@/lib/shared/domain';
-import { QUANTITIES } from '@/lib/shared/quantities';
+import { formatFigure } from '@/lib/shared/display/numbers';
+import { QUANTITIES } from '@/lib/shared/display/quantities';
 
 const W = 640;
 const H = 440;
@@ -14,7 +15,7 @@ export function PredictedMeasuredPlot({ points, units }: { points: Commissioning
   const x = (v: number) => PAD.left + (v / max) * (W - PAD.left - PAD.right);
   const y = (v: number) => H - PAD.bottom - (v / max) * (H - PAD.top - PAD.bottom);
   const ticks = [0, 0.25, 0.5, 0.75, 1].map((f) => f * max);
-  const label = (v: number) => Math.round(d.fromSi(v)).toLocaleString('en-GB');
+  const label = (v: number) => formatFigure(d.fromSi(v));
   return (
     <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-labelledby="pm-title" className="w-full max-w-3xl bg-white">
       <title id="pm-title">Predicted against measured delivery, {d.unit}, for {shown.length} commissioned rams</title>

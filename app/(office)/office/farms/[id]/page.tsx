@@ -8,7 +8,9 @@ import { getFarmForEdit } from '@/lib/server/data/farm-editing';
 import { getFarmNeeds } from '@/lib/server/data/farm-needs';
 import { farmVisitSummaries } from '@/lib/server/data/farm-visits';
 import { listPeople } from '@/lib/server/data/people';
-import { formatDay, formatLitresPerDay } from '@/lib/shared/format';
+import { formatDay } from '@/lib/shared/display/dates';
+import { formatWhole } from '@/lib/shared/display/numbers';
+import { showQuantity } from '@/lib/shared/display/quantities';
 import { idParam } from '@/lib/shared/schemas/list-query';
 import { ACTIVE_STATUSES } from '@/lib/shared/visit-states';
 import { FarmForm } from './_components/farm-form';
@@ -62,10 +64,10 @@ export default async function FarmPage({ params }: { params: Promise<{ id: strin
           <>
             <ul className="space-y-1" aria-label="Water needs">
               {needs.lines.map((l) => (
-                <li key={l.id}><span className="figure">{l.count.toLocaleString('en-GB')}</span> × {l.label} <span className="figure text-stone">({l.litresPerHeadPerDay} L each a day)</span></li>
+                <li key={l.id}><span className="figure">{formatWhole(l.count)}</span> × {l.label} <span className="figure text-stone">({showQuantity(l.litresPerHeadPerDay, 'litresPerHead', user.units)} each)</span></li>
               ))}
             </ul>
-            <p>In all about <strong className="figure">{formatLitresPerDay(dailyNeed)}</strong>.</p>
+            <p>In all about <strong className="figure">{showQuantity(dailyNeed, 'litresPerDay', user.units)}</strong>.</p>
           </>
         )}
       </section>

@@ -7,7 +7,7 @@ import { visitAuditTrail } from '@/lib/server/data/audit-trail';
 import { listPeople } from '@/lib/server/data/people';
 import { screeningBlockers } from '@/lib/server/services/screening';
 import { getVisitOrThrow } from '@/lib/server/data/visits';
-import { formatDateTime, formatDay } from '@/lib/shared/format';
+import { formatDateTime, formatDay } from '@/lib/shared/display/dates';
 import { idParam } from '@/lib/shared/schemas/list-query';
 import { mayHoldUnsyncedData } from '@/lib/shared/visit-rules';
 import { notFound } from 'next/navigation';

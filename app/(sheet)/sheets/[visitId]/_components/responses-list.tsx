@@ -1,5 +1,5 @@
 import type { SheetResponseView } from '@/lib/server/data/sheet-responses';
-import { formatDateTime } from '@/lib/shared/format';
+import { formatDateTime } from '@/lib/shared/display/dates';
 import { AnswerForm } from './answer-form';
 
 const ROLE_WORD = { farmer: 'farmer', advisor: 'advisor', coordinator: 'office' } as const;

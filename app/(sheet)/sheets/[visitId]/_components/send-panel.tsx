@@ -4,11 +4,11 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { QueryProvider } from '@/components/query-provider';
+import { formatDateTime } from '@/lib/shared/display/dates';
 import { NOTE_MAX } from '@/lib/shared/sheet/email';
 
 interface SendRow { id: string; to: string; paper: string; status: string; error: string | null; at: string }
 
-const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
 
 interface Preview { to: string; subject: string; text: string }
 
@@ -91,7 +91,7 @@ export function SendPanel({ visitId, farmerName, farmerEmail }: { visitId: strin
           <li key={s.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
             <span>
               <strong className={s.status === 'sent' ? 'text-moss' : 'text-clay'}>{s.status === 'sent' ? 'Sent' : 'Not sent'}</strong>{' '}
-              to {s.to} · <span className="figure">{when(s.at)}</span> · {s.paper.toUpperCase()}
+              to {s.to} · <span className="figure">{formatDateTime(s.at)}</span> · {s.paper.toUpperCase()}
               {s.error && <span className="block text-clay">{s.error}</span>}
             </span>
             {s.status === 'failed' && (

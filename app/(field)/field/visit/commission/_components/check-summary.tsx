@@ -2,7 +2,7 @@
 
 import type { CommissioningResult } from '@/lib/engine';
 import type { UnitSystem } from '@/lib/shared/domain';
-import { showQuantity } from '@/lib/shared/quantities';
+import { showQuantity } from '@/lib/shared/display/quantities';
 
 const OUTCOMES: Record<string, string> = {
   'as-predicted': 'Within the range the screen predicted.',

@@ -4,6 +4,7 @@ import { useLiveQuery } from 'dexie-react-hooks';
 import { commissioningCheck, type CommissioningResult } from '@/lib/engine';
 import { fieldDb, type LocalRecord, type OutboxEntry } from '@/lib/client/db';
 import type { UnitSystem } from '@/lib/shared/domain';
+import { formatDateTime } from '@/lib/shared/display/dates';
 import { CheckSummary } from './check-summary';
 
 type Sending = { state: 'waiting' } | { state: 'sent' } | { state: 'refused'; message: string };
@@ -49,7 +50,7 @@ export function RecordedChecks({ visitId, units }: { visitId: string; units: Uni
                 <span data-testid="send-state" className={`rounded-full border-2 px-3 py-1 font-bold ${sending.state === 'sent' ? 'border-slate text-slate' : sending.state === 'refused' ? 'border-clay text-clay' : 'border-stone text-ink'}`}>
                   {sending.state === 'sent' ? '✓ ' : sending.state === 'refused' ? '✕ ' : '… '}{LABEL[sending.state]}
                 </span>
-                <span className="text-stone">{new Date(r.updatedAt).toLocaleString()}</span>
+                <span className="text-stone">{formatDateTime(r.updatedAt)}</span>
               </p>
               {sending.state === 'refused' && <p className="font-bold text-clay">{sending.message} On the sync page: send it again once the reason is fixed, or give it up.</p>}
               {check ? <CheckSummary check={check} units={units} /> : <p>The fall is the screening&rsquo;s: the server works the efficiencies out when it arrives.</p>}

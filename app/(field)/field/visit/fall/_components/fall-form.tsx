@@ -6,7 +6,7 @@ import { setDirty } from '@/lib/client/dirty';
 import { newId } from '@/lib/client/ids';
 import { announceSave } from '@/lib/client/sync/triggers';
 import type { UnitSystem } from '@/lib/shared/domain';
-import { showQuantity } from '@/lib/shared/quantities';
+import { showQuantity } from '@/lib/shared/display/quantities';
 import { Choice, PrimaryButton } from '../../../_components/choice';
 import { NumberField } from '../../../_components/number-field';
 import { FieldIssue, useRecordCheck } from '../../../_components/record-check';

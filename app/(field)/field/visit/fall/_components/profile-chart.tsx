@@ -1,7 +1,7 @@
 'use client';
 
 import type { UnitSystem } from '@/lib/shared/domain';
-import { showQuantity } from '@/lib/shared/quantities';
+import { showQuantity } from '@/lib/shared/display/quantities';
 
 /** Stations of a run drawn as they are booked: reduced level against station number. */
 export function ProfileChart({ levelsM, units }: { levelsM: number[]; units: UnitSystem }) {

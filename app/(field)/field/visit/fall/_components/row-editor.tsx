@@ -2,12 +2,12 @@
 
 import type { ReactNode } from 'react';
 import type { UnitSystem } from '@/lib/shared/domain';
-import type { Quantity } from '@/lib/shared/quantities';
+import type { QuantityKind } from '@/lib/shared/display/quantities';
 import { NumberField } from '../../../_components/number-field';
 
 export type Row = Record<string, number | undefined>;
 
-export interface Column { key: string; label: string; quantity: Quantity; signed?: boolean }
+export interface Column { key: string; label: string; quantity: QuantityKind; signed?: boolean }
 
 /** A list of readings rows (level set-ups, hose steps, clinometer legs) with add and remove. */
 export function RowEditor({ title, rows, columns, units, onChange, addLabel, issueAt }: {

@@ -6,7 +6,7 @@ import { newId } from '@/lib/client/ids';
 import { setDirty } from '@/lib/client/dirty';
 import { announceSave } from '@/lib/client/sync/triggers';
 import type { UnitSystem } from '@/lib/shared/domain';
-import { showQuantity } from '@/lib/shared/quantities';
+import { showQuantity } from '@/lib/shared/display/quantities';
 import { messagesByPath } from '@/lib/shared/field-messages';
 import { flowMeasurementSchema, type FlowMeasurement } from '@/lib/shared/schemas/site-readings';
 import { Choice, PrimaryButton } from '../../../_components/choice';

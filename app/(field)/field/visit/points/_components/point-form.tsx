@@ -7,7 +7,7 @@ import { GOOD_FIX_M, watchFix, type Fix } from '@/lib/client/geolocation';
 import { newId } from '@/lib/client/ids';
 import { announceSave } from '@/lib/client/sync/triggers';
 import type { PointRole, UnitSystem } from '@/lib/shared/domain';
-import { showQuantity } from '@/lib/shared/quantities';
+import { showQuantity } from '@/lib/shared/display/quantities';
 import { Choice, PrimaryButton } from '../../../_components/choice';
 import { NumberField } from '../../../_components/number-field';
 import { FieldIssue, useRecordCheck } from '../../../_components/record-check';
@@ -80,7 +80,7 @@ export function PointForm({ visitId, units, points }: { visitId: string; units: 
         {!watching && <button type="button" onClick={() => { setFix(null); setWatching(true); setMessage(null); }} className="min-h-14 w-full rounded-md border-2 border-slate text-xl font-bold text-slate">Use my location</button>}
         {watching && (
           <div className="space-y-2">
-            <p className="text-lg">{fix ? <>Accuracy <span className="figure font-bold">± {showQuantity(fix.accuracyM, 'length', units)}</span>{fix.accuracyM <= GOOD_FIX_M ? ' — good fix' : ' — waiting for a better fix…'}</> : 'Waiting for a fix…'}</p>
+            <p className="text-lg">{fix ? <>Accuracy <span className="figure font-bold">± {showQuantity(fix.accuracyM, 'accuracy', units)}</span>{fix.accuracyM <= GOOD_FIX_M ? ' — good fix' : ' — waiting for a better fix…'}</> : 'Waiting for a fix…'}</p>
             {fix && <PrimaryButton onClick={() => takeFix(fix)}>Use this fix</PrimaryButton>}
             <button type="button" onClick={() => setWatching(false)} className="min-h-12 w-full rounded-md border-2 border-stone font-bold">Stop</button>
           </div>

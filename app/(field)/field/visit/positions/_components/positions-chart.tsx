@@ -2,7 +2,7 @@
 
 import type { PositionPair, ProfileStation, ProfileTank } from '@/lib/engine';
 import type { UnitSystem } from '@/lib/shared/domain';
-import { showQuantity } from '@/lib/shared/quantities';
+import { showQuantity } from '@/lib/shared/display/quantities';
 
 /** Colour of ranked pair 1, 2, 3: the chart and the map use the same. */
 export const PAIR_COLOURS = ['#1E3A4C', '#184F69', '#6F4700'];

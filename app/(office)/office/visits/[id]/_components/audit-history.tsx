@@ -1,5 +1,5 @@
 import { describeAudit } from '@/lib/shared/audit-words';
-import { formatDateTime } from '@/lib/shared/format';
+import { formatDateTime } from '@/lib/shared/display/dates';
 
 export interface AuditLineView { id: number; at: string; entity: string; action: string; actor: { name: string } | null; changes: unknown }
 

@@ -1,0 +1,36 @@
+import { describe, expect, it } from 'vitest';
+import { formatClock, formatDateTime, formatDay, isoDay } from '@/lib/shared/display/dates';
+
+describe('one date style', () => {
+  it('a day with its weekday and year, read in UTC so no zone moves it', () => {
+    expect(formatDay('2026-12-08')).toBe('Tue, 8 Dec 2026');
+    expect(formatDay('2026-12-08T23:30:00Z')).toBe('Tue, 8 Dec 2026');
+    expect(formatDay('2027-01-01')).toBe('Fri, 1 Jan 2027');
+  });
+
+  it('a dash for no day or nonsense', () => {
+    expect(formatDay(null)).toBe('—');
+    expect(formatDay('')).toBe('—');
+    expect(formatDay('not a day')).toBe('—');
+    expect(formatDateTime(undefined)).toBe('—');
+    expect(formatDateTime('not a time')).toBe('—');
+  });
+
+  it('a moment says the day, the time and the zone (UTC), from a Date or an ISO string', () => {
+    expect(formatDateTime(new Date('2026-12-04T19:05:42Z'))).toBe('Fri, 4 Dec 2026, 19:05 UTC');
+    expect(formatDateTime('2027-01-01T00:00:00.000Z')).toBe('Fri, 1 Jan 2027, 00:00 UTC');
+  });
+
+  it('a clock: 24-hour for metric users, AM/PM for US customary users', () => {
+    const at = (h: number, m: number) => new Date(2026, 11, 2, h, m);
+    expect(formatClock(at(4, 5), 'metric')).toBe('04:05');
+    expect(formatClock(at(14, 30), 'metric')).toBe('14:30');
+    expect(formatClock(at(0, 7), 'us')).toBe('12:07 AM');
+    expect(formatClock(at(12, 0), 'us')).toBe('12:00 PM');
+    expect(formatClock(at(23, 59), 'us')).toBe('11:59 PM');
+  });
+
+  it('files and machines get the ISO day', () => {
+    expect(isoDay(new Date('2026-12-04T23:59:59Z'))).toBe('2026-12-04');
+  });
+});
