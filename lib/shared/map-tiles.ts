@@ -65,18 +65,23 @@ export function tilesInBbox(box: Bbox, z: number): Tile[] {
 
 export const tileKey = (t: Tile) => `${t.z}/${t.x}/${t.y}`;
 
-/** The tiles kept for one visit's places (its points, or the farm), overview zooms first, no repeats. */
+/**
+ * The tiles kept for one visit's places (its points, or the farm), overview zooms first, no repeats.
+ * Each place gets its own ring (a stray point far away adds its own few tiles, never the land
+ * between); places within ~100 m of each other count once.
+ */
 export function visitTiles(places: readonly LatLon[], rings = OFFLINE_RINGS): Tile[] {
+  const distinct = [...new Map(places.map((p) => [`${p.lat.toFixed(3)},${p.lon.toFixed(3)}`, p])).values()];
   const seen = new Set<string>();
   const out: Tile[] = [];
   for (const ring of rings) {
-    const box = bboxAround(places, ring.radiusM);
-    if (!box) return [];
     for (const z of ring.zooms) {
-      for (const t of tilesInBbox(box, z)) {
-        if (seen.has(tileKey(t))) continue;
-        seen.add(tileKey(t));
-        out.push(t);
+      for (const place of distinct) {
+        for (const t of tilesInBbox(bboxAround([place], ring.radiusM)!, z)) {
+          if (seen.has(tileKey(t))) continue;
+          seen.add(tileKey(t));
+          out.push(t);
+        }
       }
     }
   }

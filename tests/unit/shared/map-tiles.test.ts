@@ -81,6 +81,15 @@ describe('the ground around a visit', () => {
     expect(across).toBeLessThanOrEqual(Math.ceil((2 * OFFLINE_RINGS[2].radiusM) / 185) + 1);
     expect(visitTiles([])).toEqual([]);
   });
+
+  it('gives a far-off stray point its own ring, never the land between', () => {
+    const one = visitTiles([BRANDT]).length;
+    const both = visitTiles([BRANDT, { lat: 0.5, lon: 30 }]);
+    expect(both.length).toBeGreaterThan(one);
+    expect(both.length).toBeLessThanOrEqual(2 * one + 10);
+    // Points a few metres apart (stations along a bank) add nothing.
+    expect(visitTiles([BRANDT, { lat: BRANDT.lat + 0.00002, lon: BRANDT.lon }])).toHaveLength(one);
+  });
 });
 
 describe('the plan for a phone', () => {
