@@ -4,7 +4,9 @@
 import { defaultCache } from '@serwist/next/worker';
 import type { PrecacheEntry, SerwistGlobalConfig } from 'serwist';
 import { NetworkOnly, Serwist } from 'serwist';
+import { TILE_CACHE, TILE_TEMPLATE } from '../lib/client/offline-tiles';
 import { runSync } from '../lib/client/sync/runner';
+import { tileMatcher, tileUrl } from '../lib/shared/map-tiles';
 
 declare global {
   interface WorkerGlobalScope extends SerwistGlobalConfig {
@@ -15,6 +17,7 @@ declare global {
 declare const self: ServiceWorkerGlobalScope;
 
 const SYNC_TAG = 'fallbook-sync';
+const tileOf = tileMatcher(TILE_TEMPLATE);
 
 const serwist = new Serwist({
   precacheEntries: self.__SW_MANIFEST,
@@ -29,6 +32,16 @@ const serwist = new Serwist({
   // and session checks must reach the server. Pages and assets follow the defaults.
   runtimeCaching: [
     { matcher: ({ sameOrigin, url }) => sameOrigin && url.pathname.startsWith('/api/'), handler: new NetworkOnly() },
+    // Map tiles: the ones kept for the phone's visits (lib/client/offline-tiles.ts) come from their
+    // cache whatever the signal, under any sub-domain or retina address; others from the network,
+    // not kept, so browsing never grows the offline set past its cap.
+    {
+      matcher: ({ url }) => tileOf(url.href) !== null,
+      handler: async ({ request, url }) => {
+        const kept = await caches.match(tileUrl(TILE_TEMPLATE, tileOf(url.href)!), { cacheName: TILE_CACHE });
+        return kept ?? fetch(request);
+      },
+    },
     ...defaultCache,
   ],
   fallbacks: {

@@ -74,7 +74,7 @@ export function loadEnv(profile = 'local') {
     if (existsSync(envPath)) process.loadEnvFile(envPath);
   }
   process.env.NEXT_TELEMETRY_DISABLED = '1';
-  useFakeTilesUnlessSet();
+  defaultToFakeTiles();
   return dbSettings();
 }
 
@@ -86,7 +86,7 @@ export const fakeTilesPort = () => Number(process.env.FAKE_TILES_PORT || 3090);
  * other services); `none` means no tiles at all. Set here, before the build reads it: the value is
  * compiled into the pages and the service worker, and the build stamp includes it.
  */
-function useFakeTilesUnlessSet() {
+function defaultToFakeTiles() {
   const env = process.env;
   if (env.NEXT_PUBLIC_TILE_URL === 'none') {
     env.NEXT_PUBLIC_TILE_URL = '';

@@ -55,8 +55,8 @@ describe('the ground around a visit', () => {
   it('covers a box with every tile it touches at that zoom, and only those', () => {
     const box = { south: 52.40, west: -3.64, north: 52.44, east: -3.59 };
     const tiles = tilesInBbox(box, 14);
-    const xs = [lonToTileX(box.west, 14), lonToTileX(box.east, 14)];
-    const ys = [latToTileY(box.north, 14), latToTileY(box.south, 14)];
+    const xs = [lonToTileX(box.west, 14), lonToTileX(box.east, 14)] as const;
+    const ys = [latToTileY(box.north, 14), latToTileY(box.south, 14)] as const;
     expect(tiles).toHaveLength((xs[1] - xs[0] + 1) * (ys[1] - ys[0] + 1));
     for (const t of tiles) {
       expect(westEdge(t.x, 14)).toBeLessThanOrEqual(box.east);
@@ -78,7 +78,7 @@ describe('the ground around a visit', () => {
     // Nothing further than the ring's radius (plus one tile) at z17.
     const z17 = tiles.filter((t) => t.z === 17);
     const across = Math.max(...z17.map((t) => t.x)) - Math.min(...z17.map((t) => t.x)) + 1;
-    expect(across).toBeLessThanOrEqual(Math.ceil((2 * OFFLINE_RINGS[2].radiusM) / 185) + 1);
+    expect(across).toBeLessThanOrEqual(Math.ceil((2 * OFFLINE_RINGS[2]!.radiusM) / 185) + 1);
     expect(visitTiles([])).toEqual([]);
   });
 
@@ -114,8 +114,8 @@ describe('the plan for a phone', () => {
     const first = visitTiles([BRANDT]).length;
     const plan = planOfflineTiles(visits, first + 10);
     expect(plan.tiles).toHaveLength(first + 10);
-    expect(plan.visits.brandt.complete).toBe(true);
-    expect(plan.visits.pryce.complete).toBe(false);
+    expect(plan.visits.brandt!.complete).toBe(true);
+    expect(plan.visits.pryce!.complete).toBe(false);
     const small = planOfflineTiles(visits, 20);
     expect(small.tiles).toHaveLength(20);
     expect(small.visits.brandt).toEqual({ tiles: 20, complete: false });
