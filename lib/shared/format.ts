@@ -38,3 +38,10 @@ export function formatClock(date: Date, units: UnitSystem): string {
 export function formatLitresPerDay(litres: number): string {
   return `${Math.round(litres).toLocaleString('en-GB')} L/day`;
 }
+
+/** A size on the phone: "640 kB" below a megabyte, "4.1 MB" above (1 MB = 1024 × 1024 bytes). */
+export function formatBytes(bytes: number): string {
+  const mb = bytes / 1024 / 1024;
+  if (mb < 1) return `${Math.max(bytes > 0 ? 1 : 0, Math.round(bytes / 1024))} kB`;
+  return `${mb < 100 ? mb.toFixed(1) : Math.round(mb)} MB`;
+}

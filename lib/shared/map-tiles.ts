@@ -21,6 +21,9 @@ export const OFFLINE_RINGS: readonly { zooms: readonly number[]; radiusM: number
   { zooms: [17], radiusM: 500 },
 ];
 
+/** The closest zoom kept on the phone: the map enlarges these tiles beyond it. */
+export const OFFLINE_MAX_ZOOM = Math.max(...OFFLINE_RINGS.flatMap((r) => r.zooms));
+
 /** At most this many tiles are kept on a phone for all its visits together. */
 export const OFFLINE_TILE_CAP = 2500;
 

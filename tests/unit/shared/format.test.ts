@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatClock, formatDateTime, formatDay } from '@/lib/shared/format';
+import { formatClock, formatDateTime, formatDay, formatBytes } from '@/lib/shared/format';
 
 // formatDay is written out by hand (no Intl formatter on the phone's hot path): it must say what the
 // en-GB formatter says, for every weekday and month.
@@ -40,5 +40,15 @@ describe('formatDateTime', () => {
     expect(formatDateTime('2027-01-01T00:00:00.000Z')).toBe('Fri, 1 Jan 2027, 00:00 UTC');
     expect(formatDateTime(null)).toBe('—');
     expect(formatDateTime('not a time')).toBe('—');
+  });
+});
+
+describe('formatBytes', () => {
+  it('gives kB below a megabyte and MB with one decimal above', () => {
+    expect(formatBytes(0)).toBe('0 kB');
+    expect(formatBytes(300)).toBe('1 kB');
+    expect(formatBytes(655_360)).toBe('640 kB');
+    expect(formatBytes(4.1 * 1024 * 1024)).toBe('4.1 MB');
+    expect(formatBytes(250 * 1024 * 1024)).toBe('250 MB');
   });
 });
