@@ -18,6 +18,7 @@ declare const self: ServiceWorkerGlobalScope;
 
 const SYNC_TAG = 'fallbook-sync';
 const tileOf = tileMatcher(TILE_TEMPLATE);
+const BLANK_TILE = '<svg xmlns="http://www.w3.org/2000/svg" width="1" height="1"/>';
 
 const serwist = new Serwist({
   precacheEntries: self.__SW_MANIFEST,
@@ -34,12 +35,18 @@ const serwist = new Serwist({
     { matcher: ({ sameOrigin, url }) => sameOrigin && url.pathname.startsWith('/api/'), handler: new NetworkOnly() },
     // Map tiles: the ones kept for the phone's visits (lib/client/offline-tiles.ts) come from their
     // cache whatever the signal, under any sub-domain or retina address; others from the network,
-    // not kept, so browsing never grows the offline set past its cap.
+    // not kept, so browsing never grows the offline set past its cap. Beyond the kept area with no
+    // signal the map shows its plain background (an empty picture, not a failed load).
     {
       matcher: ({ url }) => tileOf(url.href) !== null,
       handler: async ({ request, url }) => {
         const kept = await caches.match(tileUrl(TILE_TEMPLATE, tileOf(url.href)!), { cacheName: TILE_CACHE });
-        return kept ?? fetch(request);
+        if (kept) return kept;
+        try {
+          return await fetch(request);
+        } catch {
+          return new Response(BLANK_TILE, { headers: { 'content-type': 'image/svg+xml', 'cache-control': 'no-store' } });
+        }
       },
     },
     ...defaultCache,

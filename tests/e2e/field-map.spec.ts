@@ -13,12 +13,12 @@ test.setTimeout(180_000);
 const FARM = { lat: 52.47, lon: -3.7 };
 const FIX = { latitude: 52.4708, longitude: -3.6989, accuracy: 4 };
 
-/** The tiles the map drew: zoom from the address, and whether the picture arrived. */
+/** The tiles the map drew: zoom from the address, and whether the 256 px picture arrived (offline, past the kept area, the worker answers a 1 px blank). */
 async function drawnTiles(page: Page) {
   return page.locator('.field-map img.leaflet-tile').evaluateAll((imgs) => imgs.map((img) => {
     const el = img as HTMLImageElement;
     const m = /\/(\d+)\/(\d+)\/(\d+)\.png/.exec(el.src);
-    return { z: Number(m?.[1] ?? -1), loaded: el.complete && el.naturalWidth > 0, src: el.src };
+    return { z: Number(m?.[1] ?? -1), loaded: el.complete && el.naturalWidth === 256, src: el.src };
   }));
 }
 
