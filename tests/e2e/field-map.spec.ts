@@ -85,9 +85,14 @@ test('the map opens on the farm, follows a fix, shows a saved point at once, and
   const kept = Number(/(\d+) tiles/.exec(summary)?.[1]);
   expect(kept).toBeGreaterThan(100);
   expect(kept).toBeLessThan(400);
-  await page.screenshot({ path: test.info().outputPath('map-online-412.png') });
+  await page.screenshot({ path: test.info().outputPath('map-online-412.png'), fullPage: true });
 
   // No signal, the page opened afresh: every tile the map draws comes from the phone's cache.
+  // A tile that failed to load would say so on the console; none may.
+  const tileErrors: string[] = [];
+  page.on('console', (message) => {
+    if (message.type() === 'error' && /\/\d+\/\d+\/\d+\.png/.test(message.location().url)) tileErrors.push(`${message.location().url}: ${message.text()}`);
+  });
   await context.setOffline(true);
   await page.reload();
   await expect(page.getByTestId('map-point')).toHaveCount(1, { timeout: 20_000 });
@@ -98,8 +103,8 @@ test('the map opens on the farm, follows a fix, shows a saved point at once, and
   const offlineTiles = await drawnTiles(page);
   expect(offlineTiles.every((t) => t.z >= 14 && t.z <= 17)).toBe(true);
   await expect.poll(() => inViewClearOfControls(page, 'map-point')).toBe(true);
-  await page.screenshot({ path: test.info().outputPath('map-offline-412.png') });
-  await page.screenshot({ path: '/tmp/fallbook-map-offline-412.png' });
+  await page.screenshot({ path: test.info().outputPath('map-offline-412.png'), fullPage: true });
+  await page.screenshot({ path: '/tmp/fallbook-map-offline-412.png', fullPage: true });
   // The visit page says the same, offline.
   await page.goto(`/field/visit?id=${visitId}`);
   await expect(page.getByTestId('offline-map')).toHaveText(summary);
@@ -112,9 +117,19 @@ test('the map opens on the farm, follows a fix, shows a saved point at once, and
     return tiles.length > 0 && tiles.every((t) => t.loaded);
   }, { timeout: 20_000 }).toBe(true);
   await expect.poll(() => inViewClearOfControls(page, 'map-point')).toBe(true);
-  await page.screenshot({ path: test.info().outputPath('map-offline-1280.png') });
-  await page.screenshot({ path: '/tmp/fallbook-map-offline-1280.png' });
+  await page.screenshot({ path: test.info().outputPath('map-offline-1280.png'), fullPage: true });
+  await page.screenshot({ path: '/tmp/fallbook-map-offline-1280.png', fullPage: true });
   await page.setViewportSize({ width: 412, height: 839 });
+
+  // Zoomed out past the kept zooms with no signal: plain background, still no failed loads.
+  await page.getByRole('button', { name: 'Zoom out' }).click();
+  await page.getByRole('button', { name: 'Zoom out' }).click();
+  await page.getByRole('button', { name: 'Zoom out' }).click();
+  await page.getByRole('button', { name: 'Zoom out' }).click();
+  await page.getByRole('button', { name: 'Zoom out' }).click();
+  await expect.poll(async () => (await drawnTiles(page)).some((t) => t.z < 12), { timeout: 10_000 }).toBe(true);
+  await page.waitForTimeout(500);
+  expect(tileErrors).toEqual([]);
 
   // The visit goes to another advisor: the next sync takes it off this phone, and its tiles with it.
   await context.setOffline(false);
