@@ -9,13 +9,12 @@ import { announceSave } from '@/lib/client/sync/triggers';
 import { showQuantity } from '@/lib/shared/quantities';
 import { SectionHeader } from '../../_components/choice';
 import { OfflineMapNote } from '../../_components/offline-map-note';
-import { useUnits, useVisit, useVisitId } from '../../_components/use-field-data';
+import { useUnits, useVisitId } from '../../_components/use-field-data';
 import { PointForm } from './_components/point-form';
 
 function PointsPage() {
   const visitId = useVisitId();
   const units = useUnits();
-  const farm = useVisit(visitId)?.farm;
   const all = useLiveQuery(async () => (await fieldDb().points.where('visitId').equals(visitId).toArray()).filter((p) => !p.deletedAt), [visitId]);
   // Creek-profile stations (booked along the bank) live on the profile page: dozens of them would bury the site points here.
   const isProfileStation = (p: NonNullable<typeof all>[number]) => p.role === 'station' && p.chainageM !== null;
@@ -25,7 +24,7 @@ function PointsPage() {
   return (
     <div className="space-y-5">
       <SectionHeader visitId={visitId} title="Points" />
-      <PointForm visitId={visitId} units={units} points={mapPoints} home={farm?.lat != null && farm.lon != null ? [farm.lat, farm.lon] : null} />
+      <PointForm visitId={visitId} units={units} points={mapPoints} />
       <OfflineMapNote visitId={visitId} />
       <section aria-labelledby="saved-points" className="space-y-2">
         <h2 id="saved-points" className="text-xl font-bold">Saved points</h2>

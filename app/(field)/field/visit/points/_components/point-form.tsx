@@ -11,7 +11,6 @@ import type { PointRole, UnitSystem } from '@/lib/shared/domain';
 import { showQuantity } from '@/lib/shared/quantities';
 import { Choice, PrimaryButton } from '../../../_components/choice';
 import { NumberField } from '../../../_components/number-field';
-import type { Place } from '../../../_components/field-map';
 import type { MapPoint } from './point-map';
 
 const PointMap = dynamic(() => import('./point-map'), { ssr: false, loading: () => <p className="text-stone">Loading the map…</p> });
@@ -20,7 +19,7 @@ const ROLES = [
   { value: 'intake', label: 'Intake' }, { value: 'pump', label: 'Pump site' }, { value: 'tank', label: 'Tank' }, { value: 'station', label: 'Station' },
 ] as const;
 
-export function PointForm({ visitId, units, points, home }: { visitId: string; units: UnitSystem; points: MapPoint[]; home: Place | null }) {
+export function PointForm({ visitId, units, points }: { visitId: string; units: UnitSystem; points: MapPoint[] }) {
   const [role, setRole] = useState<(typeof ROLES)[number]['value']>('intake');
   const [label, setLabel] = useState('');
   const [lat, setLat] = useState<number | undefined>();
@@ -81,7 +80,7 @@ export function PointForm({ visitId, units, points, home }: { visitId: string; u
           </div>
         )}
       </div>
-      <PointMap points={points} home={home} fix={watching ? fix : null} draft={lat !== undefined && lon !== undefined ? { lat, lon } : null}
+      <PointMap points={points} draft={lat !== undefined && lon !== undefined ? { lat, lon } : null}
         onDraftMove={(a, b) => { setLat(Number(a.toFixed(6))); setLon(Number(b.toFixed(6))); }} />
       <div className="grid gap-3 sm:grid-cols-2">
         <NumberField label="Latitude" quantity="angle" units="metric" signed value={lat} onChange={setLat} />

@@ -1,8 +1,9 @@
 'use client';
 
 import L from 'leaflet';
-import { Circle, Marker, Polyline, Tooltip } from 'react-leaflet';
+import { Marker, Polyline, Tooltip } from 'react-leaflet';
 import { FieldMap, type Place } from '../../../_components/field-map';
+import { useVisit, useVisitId } from '../../../_components/use-field-data';
 
 export interface MapPoint { id: string; lat: number; lon: number; label: string; role: string }
 
@@ -16,18 +17,17 @@ const icon = (role: string, draft = false) => L.divIcon({
 
 /**
  * Points and the route between them, fitted to the saved points (or the farm before there are any);
- * the pin being placed and the phone's live fix are kept in view. Works with no tiles at all.
+ * the pin being placed (a fix taken, typed coordinates) is kept in view. Works with no tiles at all.
  */
-export default function PointMap({ points, draft, fix, home, onDraftMove }: {
+export default function PointMap({ points, draft, onDraftMove }: {
   points: MapPoint[];
   draft: { lat: number; lon: number } | null;
-  /** The phone's position while it is being watched, drawn with its accuracy. */
-  fix: { lat: number; lon: number; accuracyM: number } | null;
-  home: Place | null;
   onDraftMove: (lat: number, lon: number) => void;
 }) {
+  const farm = useVisit(useVisitId())?.farm;
+  const home: Place | null = farm?.lat != null && farm.lon != null ? [farm.lat, farm.lon] : null;
   const places = points.map((p) => [p.lat, p.lon] as Place);
-  const follow: Place | null = draft ? [draft.lat, draft.lon] : fix ? [fix.lat, fix.lon] : null;
+  const follow: Place | null = draft ? [draft.lat, draft.lon] : null;
   return (
     <FieldMap places={places} home={home} follow={follow} label="Map of the visit's points">
       {points.length > 1 && <Polyline positions={places} pathOptions={{ color: '#184F69', weight: 4 }} />}
@@ -36,7 +36,6 @@ export default function PointMap({ points, draft, fix, home, onDraftMove }: {
           <Tooltip>{p.label || p.role}</Tooltip>
         </Marker>
       ))}
-      {fix && <Circle center={[fix.lat, fix.lon]} radius={fix.accuracyM} pathOptions={{ color: '#184F69', weight: 2, fillOpacity: 0.12 }} />}
       {draft && (
         <Marker position={[draft.lat, draft.lon]} icon={icon('+', true)} draggable
           eventHandlers={{ dragend: (e) => { const ll = (e.target as L.Marker).getLatLng(); onDraftMove(ll.lat, ll.lng); } }}>
