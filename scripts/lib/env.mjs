@@ -94,7 +94,7 @@ function defaultToFakeTiles() {
   }
   if (env.NEXT_PUBLIC_TILE_URL) return;
   env.NEXT_PUBLIC_TILE_URL = `http://127.0.0.1:${fakeTilesPort()}/{z}/{x}/{y}.png`;
-  env.NEXT_PUBLIC_TILE_ATTRIBUTION ||= 'Demo tiles drawn by Fallbook, not a real map';
+  env.NEXT_PUBLIC_TILE_ATTRIBUTION ||= 'Demo tiles: not a real map';
 }
 
 /** Whether the tile template is the local fake's, so the stack must start it. */
