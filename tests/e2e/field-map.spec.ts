@@ -148,6 +148,7 @@ test('the map opens on the farm, follows a fix, shows a saved point at once, and
   await pressSync(page);
   await expect.poll(async () => (await cached()).visits.includes(visitId), { timeout: 30_000 }).toBe(false);
   const after = await cached();
+  console.log(`[map-e2e] this visit: ${summary}; the phone's offline map: ${before.total} tiles for ${before.visits.length} visits, then ${after.total} for ${after.visits.length}`);
   // Its own tiles are gone (7 km from the other farms, it shares at most a few overview tiles); the other visits' stay.
   expect(after.total).toBeLessThan(before.total - kept / 2);
   expect(after.total).toBeGreaterThan(0);
