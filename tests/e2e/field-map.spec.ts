@@ -108,6 +108,7 @@ test('the map opens on the farm, follows a fix, shows a saved point at once, and
   // The visit page says the same, offline.
   await page.goto(`/field/visit?id=${visitId}`);
   await expect(page.getByTestId('offline-map')).toHaveText(summary);
+  await page.screenshot({ path: test.info().outputPath('visit-offline-412.png'), fullPage: true });
 
   // Wide screen, still offline.
   await page.setViewportSize({ width: 1280, height: 900 });
