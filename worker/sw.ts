@@ -3,10 +3,9 @@
 // page, and the sync loop (the same module the page runs) on Background Sync and on request.
 import { defaultCache } from '@serwist/next/worker';
 import type { PrecacheEntry, SerwistGlobalConfig } from 'serwist';
+import { tileRoute } from './tile-route';
 import { NetworkOnly, Serwist } from 'serwist';
-import { TILE_CACHE, TILE_TEMPLATE } from '../lib/client/offline-tiles';
 import { runSync } from '../lib/client/sync/runner';
-import { tileMatcher, tileUrl } from '../lib/shared/map-tiles';
 
 declare global {
   interface WorkerGlobalScope extends SerwistGlobalConfig {
@@ -17,8 +16,6 @@ declare global {
 declare const self: ServiceWorkerGlobalScope;
 
 const SYNC_TAG = 'fallbook-sync';
-const tileOf = tileMatcher(TILE_TEMPLATE);
-const BLANK_TILE = '<svg xmlns="http://www.w3.org/2000/svg" width="1" height="1"/>';
 
 const serwist = new Serwist({
   precacheEntries: self.__SW_MANIFEST,
@@ -33,22 +30,8 @@ const serwist = new Serwist({
   // and session checks must reach the server. Pages and assets follow the defaults.
   runtimeCaching: [
     { matcher: ({ sameOrigin, url }) => sameOrigin && url.pathname.startsWith('/api/'), handler: new NetworkOnly() },
-    // Map tiles: the ones kept for the phone's visits (lib/client/offline-tiles.ts) come from their
-    // cache whatever the signal, under any sub-domain or retina address; others from the network,
-    // not kept, so browsing never grows the offline set past its cap. Beyond the kept area with no
-    // signal the map shows its plain background (an empty picture, not a failed load).
-    {
-      matcher: ({ url }) => tileOf(url.href) !== null,
-      handler: async ({ request, url }) => {
-        const kept = await caches.match(tileUrl(TILE_TEMPLATE, tileOf(url.href)!), { cacheName: TILE_CACHE });
-        if (kept) return kept;
-        try {
-          return await fetch(request);
-        } catch {
-          return new Response(BLANK_TILE, { headers: { 'content-type': 'image/svg+xml', 'cache-control': 'no-store' } });
-        }
-      },
-    },
+    // Map tiles: the phone's kept ones first (tile-route.ts).
+    tileRoute,
     ...defaultCache,
   ],
   fallbacks: {
