@@ -44,7 +44,7 @@ function runStreaming(args, env) {
   });
 }
 
-const { db, startedDb, mail } = await bringUpServices({ freshDatabase: true });
+const { db, startedDb, mail, tiles } = await bringUpServices({ freshDatabase: true });
 const servers = [];
 const results = [];
 let failed = 0;
@@ -72,6 +72,7 @@ try {
 } finally {
   for (const server of servers.reverse()) await server.stop();
   await mail.close().catch(() => {});
+  await tiles.close().catch(() => {});
   if (startedDb || process.env.CI) await stopDatabase(db);
 }
 

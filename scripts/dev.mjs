@@ -10,7 +10,7 @@ const { bringUpServices } = await import('./lib/stack.mjs');
 const { stopDatabase } = await import('./lib/mariadb.mjs');
 const { nodeBin } = await import('./lib/proc.mjs');
 
-const { db, mail } = await bringUpServices();
+const { db, mail, tiles } = await bringUpServices();
 const next = spawn(process.execPath, [nodeBin('next/dist/bin/next'), 'dev', '-H', process.env.HOST || '127.0.0.1', '-p', process.env.PORT || '3000'], {
   stdio: 'inherit',
   env: { ...process.env, NODE_ENV: 'development' },
@@ -19,6 +19,7 @@ const next = spawn(process.execPath, [nodeBin('next/dist/bin/next'), 'dev', '-H'
 async function stop() {
   next.kill('SIGTERM');
   await mail.close().catch(() => {});
+  await tiles.close().catch(() => {});
   await stopDatabase(db);
   process.exit(0);
 }

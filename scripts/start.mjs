@@ -18,7 +18,7 @@ const { stopDatabase } = await import('./lib/mariadb.mjs');
 const { DEMO_ACCOUNTS_TEXT } = await import('./lib/demo-accounts.mjs');
 const { nodeBin } = await import('./lib/proc.mjs');
 
-const { db, mail } = await bringUpServices();
+const { db, mail, tiles } = await bringUpServices();
 ensureBuild();
 
 const port = process.env.PORT || '3000';
@@ -52,6 +52,7 @@ async function stop(code = 0) {
   log('stopping…');
   next.kill('SIGTERM');
   await mail.close().catch(() => {});
+  await tiles.close().catch(() => {});
   await stopDatabase(db);
   log('stopped');
   process.exit(code);

@@ -26,7 +26,7 @@ const results = path.join(root, '.data', 'test-results');
 rmSync(results, { recursive: true, force: true });
 mkdirSync(results, { recursive: true });
 
-const { db, startedDb, mail } = await bringUpServices({ freshDatabase: true });
+const { db, startedDb, mail, tiles } = await bringUpServices({ freshDatabase: true });
 const totals = { passed: 0, failed: 0 };
 
 function readJson(file) {
@@ -76,6 +76,7 @@ try {
   // Counted above; fall through to the summary line.
 } finally {
   await mail.close().catch(() => {});
+  await tiles.close().catch(() => {});
   if (startedDb || process.env.CI) await stopDatabase(db);
 }
 

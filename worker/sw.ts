@@ -3,6 +3,7 @@
 // page, and the sync loop (the same module the page's sync worker runs) on Background Sync.
 import { defaultCache } from '@serwist/next/worker';
 import type { PrecacheEntry, SerwistGlobalConfig } from 'serwist';
+import { tileRoute } from './tile-route';
 import { NetworkOnly, Serwist } from 'serwist';
 import { runSync, SYNC_NAME } from '../lib/client/sync/runner';
 
@@ -70,6 +71,8 @@ const serwist = new Serwist({
   // and session checks must reach the server. Pages and assets follow the defaults.
   runtimeCaching: [
     { matcher: ({ sameOrigin, url }) => sameOrigin && url.pathname.startsWith('/api/'), handler: new NetworkOnly() },
+    // Map tiles: the phone's kept ones first (tile-route.ts).
+    tileRoute,
     ...defaultCache,
   ],
   fallbacks: {

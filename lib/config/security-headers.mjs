@@ -30,7 +30,8 @@ export function contentSecurityPolicy({ dev = false, tileUrl = '' } = {}) {
     // Photo thumbnails are made from local bytes (blob:); Leaflet's default icons are data: URIs.
     'img-src': ["'self'", 'data:', 'blob:', ...(tiles ? [tiles] : [])],
     'font-src': ["'self'"],
-    'connect-src': ["'self'"],
+    // The tile host too: the phone's workers fetch the tiles around its visits to keep them offline.
+    'connect-src': ["'self'", ...(tiles ? [tiles] : [])],
     'worker-src': ["'self'"],
     'manifest-src': ["'self'"],
     'frame-ancestors': ["'none'"],

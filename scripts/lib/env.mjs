@@ -42,6 +42,8 @@ export const testProfile = {
   DB_READ_HOSTS: '',
   AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: 'true',
   SEED_DEMO: '1',
+  // The fake tile server (scripts/lib/fake-tiles.mjs) draws the map unless NEXT_PUBLIC_TILE_URL is set.
+  FAKE_TILES_PORT: '4700',
   // Compiled into the test build: the field pages expose the app's save/sync modules to the e2e fault tests.
   NEXT_PUBLIC_FALLBOOK_TEST_HOOKS: '1',
 };
@@ -62,7 +64,7 @@ export function loadEnv(profile = 'local') {
     // FALLBOOK_PORT_OFFSET lets several checkouts (git worktrees) run their tests side by side.
     const offset = Number(process.env.FALLBOOK_PORT_OFFSET || 0);
     for (const [key, value] of Object.entries(testProfile)) process.env[key] = value;
-    for (const key of ['PORT', 'DB_PORT', 'SMTP_PORT', 'MAIL_INBOX_PORT', 'S3_PORT']) {
+    for (const key of ['PORT', 'DB_PORT', 'SMTP_PORT', 'MAIL_INBOX_PORT', 'S3_PORT', 'FAKE_TILES_PORT']) {
       process.env[key] = String(Number(testProfile[key]) + offset);
     }
     process.env.NEXTAUTH_URL = `http://127.0.0.1:${process.env.PORT}`;
@@ -72,8 +74,31 @@ export function loadEnv(profile = 'local') {
     if (existsSync(envPath)) process.loadEnvFile(envPath);
   }
   process.env.NEXT_TELEMETRY_DISABLED = '1';
+  defaultToFakeTiles();
   return dbSettings();
 }
+
+/** The fake tile server's port (FAKE_TILES_PORT, 3090 by default). */
+export const fakeTilesPort = () => Number(process.env.FAKE_TILES_PORT || 3090);
+
+/**
+ * With no NEXT_PUBLIC_TILE_URL the map draws from the local fake tile server (started with the
+ * other services); `none` means no tiles at all. Set here, before the build reads it: the value is
+ * compiled into the pages and the service worker, and the build stamp includes it.
+ */
+function defaultToFakeTiles() {
+  const env = process.env;
+  if (env.NEXT_PUBLIC_TILE_URL === 'none') {
+    env.NEXT_PUBLIC_TILE_URL = '';
+    return;
+  }
+  if (env.NEXT_PUBLIC_TILE_URL) return;
+  env.NEXT_PUBLIC_TILE_URL = `http://127.0.0.1:${fakeTilesPort()}/{z}/{x}/{y}.png`;
+  env.NEXT_PUBLIC_TILE_ATTRIBUTION ||= 'Demo tiles: not a real map';
+}
+
+/** Whether the tile template is the local fake's, so the stack must start it. */
+export const usesFakeTiles = () => process.env.NEXT_PUBLIC_TILE_URL === `http://127.0.0.1:${fakeTilesPort()}/{z}/{x}/{y}.png`;
 
 /** Database settings read from process.env, with the socket path derived when empty. */
 export function dbSettings() {

@@ -2,6 +2,7 @@
 // worker (Background Sync) and in the page's sync worker; a Web Lock makes sure only one runs at a
 // time, whichever context it is in.
 import { fieldDb, type MetaEntry } from '../db';
+import { keepTilesForVisits } from '../offline-tiles';
 import { getMeta, type SyncRecord } from './meta';
 import { uploadPhotos, type UploadProgress } from './photos';
 import { pullAll } from './pull';
@@ -48,9 +49,16 @@ async function runOnce(onProgress?: UploadProgress, force = false): Promise<Sync
  */
 export async function runSync(onProgress?: UploadProgress, force = false): Promise<SyncOutcome> {
   const locks = typeof navigator !== 'undefined' ? navigator.locks : undefined;
-  if (!locks) return runOnce(onProgress, force);
+  if (!locks) {
+    const record = await runOnce(onProgress, force);
+    if (record.ok) void keepTilesForVisits();
+    return record;
+  }
   // A pressed button waits for a running sync to finish, then runs; automatic triggers skip.
   const outcome = await locks.request(SYNC_LOCK, force ? {} : { ifAvailable: true }, async (lock) => (lock ? runOnce(onProgress, force) : null));
+  // With a signal, the map around the phone's visits is kept for offline use; after the run, so the
+  // outcome never waits on tiles.
+  if (outcome?.ok) void keepTilesForVisits();
   return outcome ?? { skipped: 'busy' };
 }
 

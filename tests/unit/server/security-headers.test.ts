@@ -26,14 +26,17 @@ describe('Content-Security-Policy', () => {
     expect(directives(contentSecurityPolicy({ dev: true })).get('script-src')).toContain("'unsafe-eval'");
   });
 
-  it('adds the map tile host to img-src when tiles are configured, and nothing else', () => {
+  it('adds the map tile host to img-src and connect-src when tiles are configured, and nothing else', () => {
     expect(tileOrigin('https://tiles.example.org/{z}/{x}/{y}.png')).toBe('https://tiles.example.org');
     expect(tileOrigin('https://{s}.tile.example.net/{z}/{x}/{y}.png')).toBe('https://*.tile.example.net');
     expect(tileOrigin('javascript:alert(1)')).toBeNull();
     expect(tileOrigin('')).toBeNull();
     const csp = directives(contentSecurityPolicy({ tileUrl: 'https://tiles.example.org:8443/{z}/{x}/{y}.png' }));
     expect(csp.get('img-src')).toEqual(["'self'", 'data:', 'blob:', 'https://tiles.example.org:8443']);
-    expect(csp.get('connect-src')).toEqual(["'self'"]);
+    // The workers fetch tiles to keep them for offline use.
+    expect(csp.get('connect-src')).toEqual(["'self'", 'https://tiles.example.org:8443']);
+    expect(csp.get('script-src')).not.toContain('https://tiles.example.org:8443');
+    expect(directives(contentSecurityPolicy({})).get('connect-src')).toEqual(["'self'"]);
   });
 });
 

@@ -6,6 +6,7 @@ import Link from 'next/link';
 import { Suspense } from 'react';
 import { fieldDb } from '@/lib/client/db';
 import { formatDay } from '@/lib/shared/display/dates';
+import { OfflineMapNote } from '../_components/offline-map-note';
 
 // The engine loads only when the preview shows (its chunk is precached, so this works offline too).
 const ScreenPreview = dynamic(() => import('../_components/screen-preview').then((m) => m.ScreenPreview), {
@@ -45,6 +46,7 @@ function VisitOverview() {
         <Link href="/field">← My visits</Link>
         <h1 className="mt-2 text-3xl font-bold text-slate">{data.farm?.name ?? 'Visit'}</h1>
         <p className="text-stone">{data.farm?.area} · planned <span className="figure">{formatDay(data.visit.plannedOn)}</span></p>
+        <OfflineMapNote visitId={id} />
       </div>
       <ul className="grid gap-3 sm:grid-cols-2">
         {[...SECTIONS, { href: 'demand', title: 'Water needed' }, { href: 'positions', title: 'Creek profile, best positions' }, { href: 'commission', title: 'Commissioning check' }].map((s) => (

@@ -8,6 +8,7 @@ import { formatCount } from '@/lib/shared/display/numbers';
 import { POINT_ROLE_WORDS } from '@/lib/shared/reading-words';
 import { showQuantity } from '@/lib/shared/display/quantities';
 import { SectionHeader } from '../../_components/choice';
+import { OfflineMapNote } from '../../_components/offline-map-note';
 import { useUnits, useVisitId } from '../../_components/use-field-data';
 import { useUndoableDelete } from '../../_components/undo-delete';
 import { PointForm } from './_components/point-form';
@@ -26,6 +27,7 @@ function PointsPage() {
     <div className="space-y-5">
       <SectionHeader visitId={visitId} title="Points" />
       <PointForm visitId={visitId} units={units} points={mapPoints} />
+      <OfflineMapNote visitId={visitId} />
       <section aria-labelledby="saved-points" className="space-y-2">
         <h2 id="saved-points" className="text-xl font-bold">Saved points</h2>
         {points?.length === 0 && <p className="text-stone">None yet.</p>}

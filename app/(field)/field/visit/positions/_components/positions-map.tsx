@@ -1,8 +1,8 @@
 'use client';
 
 import L from 'leaflet';
-import { Fragment, useEffect } from 'react';
-import { CircleMarker, Marker, Polyline, Tooltip, useMap } from 'react-leaflet';
+import { Fragment } from 'react';
+import { CircleMarker, Marker, Polyline, Tooltip } from 'react-leaflet';
 import type { PositionPair } from '@/lib/engine';
 import type { PlacedStation } from '@/lib/shared/station-places';
 import { FieldMap } from '../../../_components/field-map';
@@ -34,17 +34,6 @@ const tankIcon = L.divIcon({
   iconAnchor: [13, 13],
 });
 
-/** Zooms to the given points whenever they change (the whole reach, then the ranked pairs once found). */
-function FitTo({ points }: { points: [number, number][] }) {
-  const map = useMap();
-  const key = JSON.stringify(points);
-  useEffect(() => {
-    const list = JSON.parse(key) as [number, number][];
-    if (list.length > 0) map.fitBounds(L.latLngBounds(list), { padding: [115, 30], maxZoom: 19 });
-  }, [map, key]);
-  return null;
-}
-
 /** The creek stations on the map, the tank, and the ranked pairs as numbered intake → ram runs along the bank. */
 export default function PositionsMap({ placed, tank, pairs }: {
   placed: PlacedStation[];
@@ -55,8 +44,8 @@ export default function PositionsMap({ placed, tank, pairs }: {
   const byId = new Map(placed.map((s) => [s.id, s]));
   const pairPoints = pairs.flatMap((p) => [byId.get(p.intake.id), byId.get(p.pump.id)]).filter((s): s is PlacedStation => !!s).map((s) => [s.lat, s.lon] as [number, number]);
   return (
-    <FieldMap bounds={L.latLngBounds(all)} label="Map of the creek stations and the best pairs">
-      <FitTo points={pairPoints.length > 0 ? pairPoints : all} />
+    // Fitted to the whole reach, then to the ranked pairs once found; wide side margins for the pair symbols beside their stations.
+    <FieldMap places={pairPoints.length > 0 ? pairPoints : all} padding={[115, 30]} maxZoom={19} label="Map of the creek stations and the best pairs">
       <Polyline positions={placed.map((s) => [s.lat, s.lon] as [number, number])} className="map-creek" pathOptions={{ color: CREEK, weight: 3 }} />
       {placed.map((s) => (
         <CircleMarker key={s.id} center={[s.lat, s.lon]} radius={4}
