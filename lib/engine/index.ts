@@ -42,3 +42,8 @@ export {
   commissioningCheck, predictionFromFigures, BEATS_PER_MINUTE_BAND,
   type CommissioningReadings, type CommissioningPrediction, type CommissioningResult, type CommissioningOutcome, type LikelyCause,
 } from './commissioning';
+export {
+  ramCycle, closureVelocityMps, valveWeightForClosureN, closureForBeats, wasteValveLossK, WASTE_VALVE_CLOSING_S,
+  type RamCycle, type RamCycleInput,
+} from './ram-cycle';
+export { wasteValveAdvice, designPointFromFigures, type DesignPoint, type WasteValveAdvice, type ValveMove } from './waste-valve-advice';
