@@ -4,8 +4,9 @@ import { daubuissonEfficiency, rankineEfficiency } from './ram';
 import { finite, positive } from './validate';
 import { wasteValveAdvice, type DesignPoint, type WasteValveAdvice } from './waste-valve-advice';
 
-/** Beat rate band, beats per minute (NITK lab notes 40–120; the CAT tipsheet gives 40–90). */
-export const BEATS_PER_MINUTE_BAND = { min: 40, max: 120 } as const;
+import { BEATS_PER_MINUTE_BAND } from './ram-cycle';
+
+export { BEATS_PER_MINUTE_BAND };
 /** Measured drive flow below this share of the screened drive flow points at the intake (common practice, no source). */
 export const LOW_DRIVE_SHARE = 0.85;
 /** Efficiency below this share of the predicted one points at the ram or its pipes (common practice, no source). */

@@ -21,6 +21,9 @@ export const WASTE_VALVE_CLOSING_S = 0.035;
 /** Wave speed, m/s, used when none is given: a steel drive pipe (Korteweg with the engine's steel figures gives 1,250–1,350). */
 export const DEFAULT_WAVE_SPEED_MPS = 1300;
 
+/** Beat rate band, beats per minute (NITK lab notes 40–120; the CAT tipsheet gives 40–90). */
+export const BEATS_PER_MINUTE_BAND = { min: 40, max: 120 } as const;
+
 export interface RamCycleInput {
   /** Fall H from the intake (or stand pipe) water level to the ram, m. */
   fallM: number;

@@ -1,5 +1,5 @@
 // Waste-valve tuning at commissioning: the cycle model at the measured fall and lift, set to the measured beats, against the design point.
-import { closureForBeats, ramCycle, type RamCycle, type RamCycleInput } from './ram-cycle';
+import { BEATS_PER_MINUTE_BAND, closureForBeats, ramCycle, type RamCycle, type RamCycleInput } from './ram-cycle';
 import { positive } from './validate';
 
 /** Beats within this share of the design point's need no valve change (common practice, no source). */
@@ -48,7 +48,8 @@ const round = (x: number) => Math.round(x);
 
 /**
  * Which way to move the waste valve: the model (Iversen 1975 / Young 1996 cycle, ram-cycle.ts) is set once to beat as
- * measured and once to take the design drive flow, both at the measured fall and lift. Beating faster than the design
+ * measured and once to take the design drive flow (held within the quoted 40–120 beats a minute), both at the measured
+ * fall and lift. Beating faster than the design
  * point means the valve shuts too early (lengthen the stroke or add weight); slower means it shuts too late (shorten
  * the stroke or take weight off). Null when the model cannot beat at the measured rate on this pipe and fall.
  */
@@ -66,7 +67,11 @@ export function wasteValveAdvice(
   const vMeasured = closureForBeats(p, measured.beatsPerMinute);
   if (vMeasured === null) return null;
   const now = ramCycle(p, vMeasured);
-  const target = ramCycle(p, closureForDriveFlow(p, design.driveLpm));
+  let target = ramCycle(p, closureForDriveFlow(p, design.driveLpm));
+  // A design flow the pipe passes only at a crawl (or a trickle at a flutter) is held to the quoted beat band.
+  const edge = target.beatsPerMinute < BEATS_PER_MINUTE_BAND.min ? BEATS_PER_MINUTE_BAND.min : target.beatsPerMinute > BEATS_PER_MINUTE_BAND.max ? BEATS_PER_MINUTE_BAND.max : null;
+  const edgeClosure = edge === null ? null : closureForBeats(p, edge);
+  if (edgeClosure !== null) target = ramCycle(p, edgeClosure);
   const ratio = measured.beatsPerMinute / target.beatsPerMinute;
   const designWords = `the design point (about ${round(target.beatsPerMinute)} beats a minute taking ${target.driveLpm.toFixed(0)} L/min of drive water)`;
   let move: ValveMove = 'leave';

@@ -43,3 +43,11 @@ describe('wasteValveAdvice', () => {
     expect(designPointFromFigures({ ...f, driveBoreMm: { value: null } })).toBeNull();
   });
 });
+
+describe('wasteValveAdvice design beat', () => {
+  it('a design flow the pipe passes only at a crawl is held to the 40 beats a minute the notes quote', () => {
+    const a = wasteValveAdvice(measured(200), { driveLengthM: 24, driveBoreMm: 40.9, waveSpeedMps: 1300, driveLpm: 120 });
+    expect(a?.atDesign.beatsPerMinute).toBeCloseTo(40, 1);
+    expect(a?.move).toBe('slow-down');
+  });
+});
