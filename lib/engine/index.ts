@@ -32,7 +32,7 @@ export { screenSite, parseReadingsOrThrow } from './screen';
 export { runMonteCarlo, type MonteCarloInput, type MonteCarloResult } from './monte-carlo';
 export { mulberry32, normalSampler, quantileSorted } from './random';
 export { judge, MIN_FALL_M, MAX_LIFT_RATIO, WARN_LIFT_RATIO, MIN_SUPPLY_MULTIPLE, MIN_DELIVERY_HEAD_M, MIN_PROBABILITY_MEETS } from './verdict';
-export type { Screening, Figure, FigureKey, Reason, Condition, Caution, Verdict, Severity, BillOfMaterialsLine } from './screening-types';
+export type { Screening, Figure, FigureKey, Reason, Condition, Caution, Verdict, Severity, BillOfMaterialsLine, PriceKey } from './screening-types';
 export { siteReadingsSchema, type SiteReadings, type SiteReadingsInput } from '@/lib/shared/schemas/site-readings';
 export {
   bestPositions, bestPositionsBruteForce, STATION_FLAGS, REJECT_TEXT,
