@@ -6,7 +6,7 @@ export interface PipePrice { material: string; diameterMm: number; pricePerM: nu
 
 export type PriceBasis =
   | { kind: 'pipe-list'; perM: number; diameterMm: number }
-  | { kind: 'pipe-estimate'; perMmM: number; boreMm: number; steel: boolean }
+  | { kind: 'pipe-estimate'; perM: number; perMmM: number; boreMm: number; steel: boolean }
   | { kind: 'ram'; perInch: number; driveIn: number }
   | { kind: 'tank'; perL: number; litres: number }
   | { kind: 'each'; each: number }
@@ -48,7 +48,7 @@ function priceLine(line: BillOfMaterialsLine, list: PriceList, pipes: readonly P
       const steel = isSteel(line.pipe.material);
       const perMmM = steel ? list.steelPipePerMmM : list.plasticPipePerMmM;
       const perM = perMmM * line.pipe.boreMm;
-      return { line, unitPrice: perM, total: perM * line.quantity, basis: { kind: 'pipe-estimate', perMmM, boreMm: line.pipe.boreMm, steel } };
+      return { line, unitPrice: perM, total: perM * line.quantity, basis: { kind: 'pipe-estimate', perM, perMmM, boreMm: line.pipe.boreMm, steel } };
     }
     case 'ram': {
       const unit = list.ramPerInch * (line.driveIn ?? 0);
