@@ -26,10 +26,15 @@ function unitFormatter(currency: string, locale: string): (x: number) => string 
   return (x: number) => f.format(x);
 }
 
-function basisWords(b: PriceBasis, unit: (x: number) => string): string {
+/** A price per metre as the reader measures pipe: a metre, or a foot (0.3048 m) for US readers. */
+function perLength(perM: number, unit: (x: number) => string, us: boolean): string {
+  return us ? `${unit(perM * 0.3048)} a foot` : `${unit(perM)} a metre`;
+}
+
+function basisWords(b: PriceBasis, unit: (x: number) => string, us: boolean): string {
   switch (b.kind) {
-    case 'pipe-list': return `${unit(b.perM)} a metre (your pipe prices, ${Math.round(b.diameterMm)} mm)`;
-    case 'pipe-estimate': return `${unit(b.perM)} a metre (estimate: ${unit(b.perMmM)} per mm of bore, ${b.steel ? 'steel' : 'plastic'})`;
+    case 'pipe-list': return `${perLength(b.perM, unit, us)} (your pipe prices, ${Math.round(b.diameterMm)} mm)`;
+    case 'pipe-estimate': return `${perLength(b.perM, unit, us)} (estimate from the bore, ${b.steel ? 'steel' : 'plastic'})`;
     case 'ram': return `${unit(b.perInch)} per inch of drive pipe × ${b.driveIn}″`;
     case 'tank': return `${unit(b.perL)} a litre`;
     case 'each': return `${unit(b.each)} each`;
@@ -52,7 +57,7 @@ export function sheetCosts(
   const unit = unitFormatter(list.currency, locale);
   const priced = priceBill(bill, list, pipes);
   const lines = priced.lines.map((p) => ({
-    basis: basisWords(p.basis, unit),
+    basis: basisWords(p.basis, unit, locale === 'en-US'),
     price: p.basis.kind === 'not-priced' ? '—' : money(p.total),
   }));
   const extras = [

@@ -8,6 +8,9 @@ import { dailyInWords, length, perDay, perMinute, pipeLength, pressureHead, volu
 import { plainTrade } from './trade-words';
 import { siteMapGeometry, type SiteMapGeometry } from './site-map';
 import { toUsText } from './us-text';
+import type { PipePrice } from '../costs/bill-prices';
+import { sheetCosts, type SheetCosts } from '../costs/cost-view';
+import { priceListOf, type PriceList } from '../costs/price-list';
 
 /** What the server hands over for one sheet: the stored screening and who/where/when. */
 export interface SheetSource {
@@ -20,11 +23,13 @@ export interface SheetSource {
   points: { role: string; label: string; lat: number | null; lon: number | null }[];
   pipeLengthsM: { drive: number | null; delivery: number | null };
   demandKinds: string[];
+  /** The organisation's price list and pipe prices; the invented defaults when absent. */
+  prices?: { list: Partial<PriceList>; pipes: PipePrice[] };
 }
 
 export interface SheetFigure { key: string; label: string; value: string; note: string }
 export interface SheetCaution { code: string; title: string; text: string }
-export interface SheetBomLine { item: string; size: string; quantity: string; note: string }
+export interface SheetBomLine { item: string; size: string; quantity: string; note: string; basis: string; price: string }
 
 export interface SheetView {
   visitId: string;
@@ -39,6 +44,8 @@ export interface SheetView {
   reasons: string[];
   conditions: string[];
   billOfMaterials: SheetBomLine[];
+  /** Fittings, labour, the bill's total, the ten-year comparison and its assumptions; null with an empty bill. */
+  costs: Omit<SheetCosts, 'lines'> | null;
   cautions: SheetCaution[];
   surveyed: string;
   engineVersion: string;
@@ -137,12 +144,22 @@ function keyFigures(s: SheetSource, units: UnitSystem): SheetFigure[] {
   return out;
 }
 
-function billOfMaterials(s: SheetSource, units: UnitSystem): SheetBomLine[] {
+/** The bill priced from the organisation's list, in its currency (US readers get US number formatting). */
+function costsOf(s: SheetSource, units: UnitSystem): SheetCosts | null {
+  const sc = s.screening;
+  if (sc.billOfMaterials.length === 0) return null;
+  const f = sc.figures;
+  const water = { dailyL: f.demandLpd?.value ?? null, liftM: f.totalLiftM?.value ?? null, pumped: sc.verdict === 'go' || sc.verdict === 'conditional' };
+  return sheetCosts(sc.billOfMaterials, priceListOf(s.prices?.list), s.prices?.pipes ?? [], water, units === 'us' ? 'en-US' : 'en-GB');
+}
+
+function billOfMaterials(s: SheetSource, units: UnitSystem, costs: SheetCosts | null): SheetBomLine[] {
   const tankL = s.screening.figures.tankL?.value;
-  return s.screening.billOfMaterials.map((line) => {
+  return s.screening.billOfMaterials.map((line, i) => {
     const quantity = line.unit === 'm' ? pipeLength(line.quantity, units).text : `${line.quantity} ${line.unit}`;
     const size = line.item.startsWith('Storage tank') && tankL != null ? volume(tankL, units).text : line.size;
-    return { item: plainTrade(line.item, units), size: plainTrade(size, units), quantity, note: line.note };
+    const priced = costs?.lines[i];
+    return { item: plainTrade(line.item, units), size: plainTrade(size, units), quantity, note: line.note, basis: priced?.basis ?? '', price: priced?.price ?? '—' };
   });
 }
 
@@ -177,6 +194,7 @@ export function buildSheetView(s: SheetSource, units: UnitSystem): SheetView {
   const visited = s.visitedAt ? formatDay(s.visitedAt) : 'a date not recorded';
   // The engine's sentences are metric; a US reader gets them in US customary units.
   const say = (text: string) => (units === 'us' ? toUsText(plainTrade(text, units)) : plainTrade(text, units));
+  const costs = costsOf(s, units);
   return {
     visitId: s.visitId,
     units,
@@ -189,7 +207,8 @@ export function buildSheetView(s: SheetSource, units: UnitSystem): SheetView {
     figures: keyFigures(s, units),
     reasons: sc.reasons.map((r) => say(r.text)),
     conditions: sc.conditions.map((c) => say(c.text)),
-    billOfMaterials: billOfMaterials(s, units).map((line) => ({ ...line, note: say(line.note) })),
+    billOfMaterials: billOfMaterials(s, units, costs).map((line) => ({ ...line, note: say(line.note), basis: say(line.basis) })),
+    costs: costs && { currency: costs.currency, extras: costs.extras.map((e) => ({ ...e, basis: say(e.basis) })), total: costs.total, comparison: costs.comparison, assumptions: costs.assumptions.map(say) },
     cautions: sc.cautions.map((c) => ({ code: c.code, title: CAUTION_TITLES[c.code] ?? 'Caution', text: say(c.text) })),
     surveyed: `Surveyed by ${s.advisorName ?? 'an advisor'} on ${visited}; screened on ${formatDay(s.screenedAt)}.`,
     engineVersion: sc.engineVersion,

@@ -65,7 +65,10 @@ describe('sheetCosts', () => {
   it('money in the organisation\u2019s currency, with the basis in words and the assumptions shown', () => {
     const v = sheetCosts(bill, DEFAULT_PRICE_LIST, pipes, { dailyL: 2000, liftM: 30, pumped: true });
     expect(v.total).toBe('£3,542');
-    expect(v.lines[1]).toEqual({ basis: '£18.38 a metre (estimate: £0.35 per mm of bore, steel)', price: '£441' });
+    expect(v.lines[1]).toEqual({ basis: '£18.38 a metre (estimate from the bore, steel)', price: '£441' });
+    expect(v.lines[2]?.basis).toBe('£1.50 a metre (your pipe prices, 32 mm)');
+    // A US reader buys pipe by the foot: £18.375 × 0.3048 = £5.60.
+    expect(sheetCosts(bill, DEFAULT_PRICE_LIST, pipes, { dailyL: 2000, liftM: 30, pumped: true }, 'en-US').lines[1]?.basis).toBe('£5.60 a foot (estimate from the bore, steel)');
     expect(v.lines[5]?.basis).toBe('Comes with a bought ram');
     expect(v.comparison?.map((o) => o.total)).toEqual(['£3,842', '£4,336', '£5,560']);
     expect(v.assumptions.join(' ')).toMatch(/156 W of panels/);
