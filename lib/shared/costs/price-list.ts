@@ -9,9 +9,15 @@ const number = (what: string, min: number, max: number) =>
   );
 const money = (what: string) => number(what, 0, 10_000_000);
 
+/** ISO 4217 codes the runtime formats (Intl accepts any three letters, so the list is asked; kept when it cannot be). */
+function knownCurrency(code: string): boolean {
+  const supported = (Intl as { supportedValuesOf?: (key: 'currency') => string[] }).supportedValuesOf;
+  return supported ? supported('currency').includes(code) : true;
+}
+
 export const priceListSchema = z.object({
   currency: z.string().trim().toUpperCase().regex(/^[A-Z]{3}$/, 'Give a three-letter currency code such as GBP, EUR, USD or KES.')
-    .refine((c) => { try { new Intl.NumberFormat('en', { style: 'currency', currency: c }); return true; } catch { return false; } }, 'Not a currency code this app knows.'),
+    .refine(knownCurrency, 'Not a currency code this app knows.'),
   ramPerInch: money('Ram price per inch of drive pipe'),
   steelPipePerMmM: money('Steel pipe price per mm of bore per metre'),
   plasticPipePerMmM: money('Plastic pipe price per mm of bore per metre'),

@@ -79,10 +79,11 @@ describe('sheetCosts', () => {
     expect(sheetCosts(bill, DEFAULT_PRICE_LIST, pipes, { dailyL: 2000, liftM: 30, pumped: false }).comparison).toBeNull();
   });
   it('the price list refuses a made-up currency and a negative price with a plain message', () => {
-    const bad = priceListSchema.safeParse({ ...DEFAULT_PRICE_LIST, currency: 'pounds', valve: -3 });
+    const bad = priceListSchema.safeParse({ ...DEFAULT_PRICE_LIST, currency: 'XQZ', valve: -3 });
     expect(bad.success).toBe(false);
     const messages = bad.success ? [] : bad.error.issues.map((i) => i.message);
-    expect(messages).toContain('Give a three-letter currency code such as GBP, EUR, USD or KES.');
+    expect(messages).toContain('Not a currency code this app knows.');
+    expect(priceListSchema.safeParse({ ...DEFAULT_PRICE_LIST, currency: 'pounds' }).error?.issues[0]?.message).toBe('Give a three-letter currency code such as GBP, EUR, USD or KES.');
     expect(messages).toContain('Valve price: at least 0.');
   });
 });
