@@ -211,7 +211,9 @@ export async function renderSheetPdf(v: SheetView, paper: Paper): Promise<Buffer
       { title: 'Ten years', share: 0.17, face: 'mono' },
     ];
     const tenRows: Cell[][] = v.costs.comparison.map((o) => [{ text: o.option }, { text: o.capital }, { text: o.replacements }, { text: o.running }, { text: o.total }]);
-    heading(doc, 'Ten years: a ram, a solar pump or a petrol pump', tableStart(doc, tenColumns, tenRows[0]));
+    // Three rows: the whole table stays on one page with its heading.
+    const whole = tenRows.reduce((h, row) => h + tableStart(doc, tenColumns, row) - 18, 18);
+    heading(doc, 'Ten years: a ram, a solar pump or a petrol pump', whole);
     table(doc, tenColumns, tenRows);
     body(doc, 'What these figures assume', { face: 'bold' });
     list(doc, v.costs.assumptions);

@@ -101,3 +101,13 @@ describe('the PDF costs', () => {
     expect(gravity).not.toContain('Ten years: a ram');
   });
 });
+
+describe('the PDF ten-year table', () => {
+  it.each(['a4', 'letter'] as const)('%s: the three options print on one page with the heading', async (paper) => {
+    for (const units of ['metric', 'us'] as const) {
+      const pages = await pagesOf(buildSheetView(brandtLikeSource(), units), paper);
+      const page = pages.find((p) => p.includes('Ten years: a ram')) ?? '';
+      for (const option of ['Ram (this design)', 'Small solar pump with panels', 'Petrol pump']) expect(page, `${units}: ${option}`).toContain(option);
+    }
+  });
+});
