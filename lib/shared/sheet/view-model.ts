@@ -147,7 +147,8 @@ function keyFigures(s: SheetSource, units: UnitSystem): SheetFigure[] {
 /** The bill priced from the organisation's list, in its currency (US readers get US number formatting). */
 function costsOf(s: SheetSource, units: UnitSystem): SheetCosts | null {
   const sc = s.screening;
-  if (sc.billOfMaterials.length === 0) return null;
+  // A screening made before lines were priced has nothing to price: no costs rather than a total of nothing.
+  if (!sc.billOfMaterials.some((line) => line.priceKey)) return null;
   const f = sc.figures;
   const water = { dailyL: f.demandLpd?.value ?? null, liftM: f.totalLiftM?.value ?? null, pumped: sc.verdict === 'go' || sc.verdict === 'conditional' };
   return sheetCosts(sc.billOfMaterials, priceListOf(s.prices?.list), s.prices?.pipes ?? [], water, units === 'us' ? 'en-US' : 'en-GB');
