@@ -42,3 +42,36 @@ test('the sheet shows the priced bill and the ten-year comparison, fitting a 412
   writeFileSync(test.info().outputPath('sheet-costs.pdf'), bytes);
   expect((await readFile(test.info().outputPath('sheet-costs.pdf'))).length).toBeGreaterThan(1000);
 });
+
+test('the coordinator sets the currency and a price in the settings, and the sheet reprices at once', async ({ page }) => {
+  await signInAs(page, 'maren@wenlow-water.test', /\/office$/);
+  await page.setViewportSize({ width: 1280, height: 900 });
+  const list = await (await page.request.get('/api/visits?pageSize=100')).json();
+  const visit = list.items.find((v: { farm: { name: string } }) => v.farm.name === 'Brandt Hollow');
+  await page.goto('/office/settings');
+  const form = page.getByRole('form', { name: 'Organisation settings' });
+  const currency = form.getByLabel(/^Currency/);
+  await expect(currency).toHaveValue('GBP');
+  const save = async () => {
+    await form.getByRole('button', { name: 'Save settings' }).click();
+    await expect(form.getByRole('status')).toHaveText('Settings saved. New screenings use them.');
+  };
+  try {
+    await currency.fill('XQZ');
+    await form.getByRole('button', { name: 'Save settings' }).click();
+    await expect(form.getByText('Not a currency code this app knows.')).toBeVisible();
+    await currency.fill('eur');
+    await form.getByLabel('Tank, per litre').fill('1');
+    await save();
+    await page.screenshot({ path: test.info().outputPath('settings-prices.png'), fullPage: true });
+    await page.goto(`/sheets/${visit.id}`);
+    const tank = page.getByTestId('bill-table').getByRole('row', { name: /Storage tank/ });
+    await expect(tank).toContainText('€1.00 a litre');
+    await expect(page.getByTestId('bill-total')).toHaveText(/^€[\d,]+$/);
+  } finally {
+    await page.goto('/office/settings');
+    await currency.fill('GBP');
+    await form.getByLabel('Tank, per litre').fill('0.2');
+    await save();
+  }
+});
