@@ -2,6 +2,7 @@ import {
   DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize,
 } from 'sequelize';
 import type { UnitSystem } from '@/lib/shared/domain';
+import type { PriceList } from '@/lib/shared/costs/price-list';
 
 /** Organisation-wide choices; the engine and the sheet read them. */
 export interface OrganisationSettings {
@@ -11,6 +12,8 @@ export interface OrganisationSettings {
   minProbabilityForGo?: number;
   demandFigures: Record<string, number>;
   pipePrices: { material: string; diameterMm: number; pricePerM: number; currency: string }[];
+  /** Prices for costing the sheet; absent on older rows (the invented defaults then). */
+  priceList?: Partial<PriceList>;
 }
 
 export class Organisation extends Model<InferAttributes<Organisation>, InferCreationAttributes<Organisation>> {

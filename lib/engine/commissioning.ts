@@ -2,9 +2,11 @@
 import { EngineInputError } from './errors';
 import { daubuissonEfficiency, rankineEfficiency } from './ram';
 import { finite, positive } from './validate';
+import { wasteValveAdvice, type DesignPoint, type WasteValveAdvice } from './waste-valve-advice';
 
-/** Beat rate band, beats per minute (NITK lab notes 40–120; the CAT tipsheet gives 40–90). */
-export const BEATS_PER_MINUTE_BAND = { min: 40, max: 120 } as const;
+import { BEATS_PER_MINUTE_BAND } from './ram-cycle';
+
+export { BEATS_PER_MINUTE_BAND };
 /** Measured drive flow below this share of the screened drive flow points at the intake (common practice, no source). */
 export const LOW_DRIVE_SHARE = 0.85;
 /** Efficiency below this share of the predicted one points at the ram or its pipes (common practice, no source). */
@@ -55,6 +57,8 @@ export interface CommissioningResult {
   outcome: CommissioningOutcome | null;
   beatsInBand: boolean;
   causes: LikelyCause[];
+  /** Which way to move the waste valve, from the cycle model at the measured fall and lift; null without the drive pipe's figures. */
+  valve: WasteValveAdvice | null;
 }
 
 const PLASTIC = ['hdpe', 'pvc', 'pe', 'polyethylene'];
@@ -91,7 +95,7 @@ function causesFor(r: CommissioningReadings, p: CommissioningPrediction | null, 
  * Measured D'Aubuisson and Rankine efficiencies (NITK notes), delivery against the screening's prediction
  * and its 10–90 % band, and likely causes when it falls short.
  */
-export function commissioningCheck(r: CommissioningReadings, prediction: CommissioningPrediction | null = null): CommissioningResult {
+export function commissioningCheck(r: CommissioningReadings, prediction: CommissioningPrediction | null = null, design: DesignPoint | null = null): CommissioningResult {
   positive(r.driveLpm, 'driveLpm');
   positive(r.deliveredLpm, 'deliveredLpm');
   positive(r.beatsPerMinute, 'beatsPerMinute');
@@ -125,6 +129,8 @@ export function commissioningCheck(r: CommissioningReadings, prediction: Commiss
     outcome,
     beatsInBand: r.beatsPerMinute >= BEATS_PER_MINUTE_BAND.min && r.beatsPerMinute <= BEATS_PER_MINUTE_BAND.max,
     causes: causesFor(r, prediction, etaD, short),
+    // Readings that make energy have no valve setting worth suggesting.
+    valve: design && etaD <= 1 ? wasteValveAdvice(r, design) : null,
   };
 }
 

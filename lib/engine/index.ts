@@ -32,7 +32,7 @@ export { screenSite, parseReadingsOrThrow } from './screen';
 export { runMonteCarlo, type MonteCarloInput, type MonteCarloResult } from './monte-carlo';
 export { mulberry32, normalSampler, quantileSorted } from './random';
 export { judge, MIN_FALL_M, MAX_LIFT_RATIO, WARN_LIFT_RATIO, MIN_SUPPLY_MULTIPLE, MIN_DELIVERY_HEAD_M, MIN_PROBABILITY_MEETS } from './verdict';
-export type { Screening, Figure, FigureKey, Reason, Condition, Caution, Verdict, Severity, BillOfMaterialsLine } from './screening-types';
+export type { Screening, Figure, FigureKey, Reason, Condition, Caution, Verdict, Severity, BillOfMaterialsLine, PriceKey } from './screening-types';
 export { siteReadingsSchema, type SiteReadings, type SiteReadingsInput } from '@/lib/shared/schemas/site-readings';
 export {
   bestPositions, bestPositionsBruteForce, STATION_FLAGS, REJECT_TEXT,
@@ -42,3 +42,8 @@ export {
   commissioningCheck, predictionFromFigures, BEATS_PER_MINUTE_BAND,
   type CommissioningReadings, type CommissioningPrediction, type CommissioningResult, type CommissioningOutcome, type LikelyCause,
 } from './commissioning';
+export {
+  ramCycle, closureVelocityMps, valveWeightForClosureN, closureForBeats, wasteValveLossK, WASTE_VALVE_CLOSING_S,
+  type RamCycle, type RamCycleInput,
+} from './ram-cycle';
+export { wasteValveAdvice, designPointFromFigures, type DesignPoint, type WasteValveAdvice, type ValveMove } from './waste-valve-advice';

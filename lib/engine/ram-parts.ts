@@ -36,6 +36,7 @@ export interface RamPart {
   item: string;
   size: Message | string;
   note: Message | string;
+  priceKey: 'with-ram' | 'unions' | 'base';
 }
 
 /** The ram's parts for one ram: waste valve, delivery valve, air vessel, snifter, unions, base and anchoring. */
@@ -44,11 +45,11 @@ export function ramParts(p: RamPartsInput): RamPart[] {
   const thrustKn = surgeThrustN(p.blockedDeliveryHeadM, p.driveBoreMm) / 1000;
   const mm = (x: number) => amount('diameter', x);
   return [
-    { item: 'Waste valve', size: say`port at least ${mm(p.driveBoreMm)}`, note: say`Opening no smaller than the drive pipe\u2019s bore, stroke adjustable (about ${amount('diameter', 10)}–${amount('diameter', 25)}) with a lock nut, weights to tune the beat (common practice, no source)` },
-    { item: 'Delivery (check) valve into the air vessel', size: say`port at least ${mm(p.deliveryBoreMm)}`, note: 'A rubber flap or ball seat, replaceable (common practice, no source)' },
-    { item: 'Air vessel', size: say`${amount('volume', Math.ceil(vessel))} or more`, note: say`Home-made sizes ${amount('volume', 5)} for 1¼″, ${amount('volume', 11)} for 3″ (Clemson, Smith), and at least ${AIR_VESSEL_BEATS} beats\u2019 delivery at ${ASSUMED_BEATS_PER_MINUTE} beats a minute (from memory)` },
-    { item: 'Snifter valve (air inlet just below the delivery valve)', size: say`about ${amount('diameter', 1)} hole`, note: 'Keeps the air vessel charged; clear it if the ram knocks hard (NITK notes; hole size from memory)' },
-    { item: 'Unions on the drive and delivery pipes at the ram', size: say`${mm(p.driveBoreMm)} and ${mm(p.deliveryBoreMm)}`, note: 'So the ram lifts out for service' },
-    { item: 'Concrete base and anchor for the ram and the lower drive pipe', size: `for ${thrustKn.toFixed(1)} kN`, note: 'Each beat and any blocked delivery push the ram along the pipe: fall plus surge on the bore\u2019s area (ρ·g·H·A)' },
+    { item: 'Waste valve', size: say`port at least ${mm(p.driveBoreMm)}`, note: say`Opening no smaller than the drive pipe\u2019s bore, stroke adjustable (about ${amount('diameter', 10)}–${amount('diameter', 25)}) with a lock nut, weights to tune the beat (common practice, no source)`, priceKey: 'with-ram' },
+    { item: 'Delivery (check) valve into the air vessel', size: say`port at least ${mm(p.deliveryBoreMm)}`, note: 'A rubber flap or ball seat, replaceable (common practice, no source)', priceKey: 'with-ram' },
+    { item: 'Air vessel', size: say`${amount('volume', Math.ceil(vessel))} or more`, note: say`Home-made sizes ${amount('volume', 5)} for 1¼″, ${amount('volume', 11)} for 3″ (Clemson, Smith), and at least ${AIR_VESSEL_BEATS} beats\u2019 delivery at ${ASSUMED_BEATS_PER_MINUTE} beats a minute (from memory)`, priceKey: 'with-ram' },
+    { item: 'Snifter valve (air inlet just below the delivery valve)', size: say`about ${amount('diameter', 1)} hole`, note: 'Keeps the air vessel charged; clear it if the ram knocks hard (NITK notes; hole size from memory)', priceKey: 'with-ram' },
+    { item: 'Unions on the drive and delivery pipes at the ram', size: say`${mm(p.driveBoreMm)} and ${mm(p.deliveryBoreMm)}`, note: 'So the ram lifts out for service', priceKey: 'unions' },
+    { item: 'Concrete base and anchor for the ram and the lower drive pipe', size: `for ${thrustKn.toFixed(1)} kN`, note: 'Each beat and any blocked delivery push the ram along the pipe: fall plus surge on the bore\u2019s area (ρ·g·H·A)', priceKey: 'base' },
   ];
 }

@@ -103,7 +103,7 @@ function screenGravity(sv: Survey): Screening {
   });
   const figures = buildGravityFigures({ ...sv.ctx, fraction: s.designFractionOfLowest, gravity, deliveryLpd });
   const bom = judgement.verdict === 'no-go' || !gravity.size ? [] : gravityBillOfMaterials({
-    pipe: { material: gravity.material.label, classLabel: gravity.cls.label, sizeLabel: gravity.size.label }, lengthM: routeM,
+    pipe: { material: gravity.material.label, classLabel: gravity.cls.label, sizeLabel: gravity.size.label, materialId: gravity.material.id, boreMm: gravity.boreMm ?? 0 }, lengthM: routeM,
     tankL: sv.ctx.tank.sizeL, tankRuleLabel: sv.ctx.tank.rule.label,
   });
   const sourceIds: SourceId[] = [...Object.values(figures).map((f) => f.sourceId), ...sv.ctx.demandLines.map((l) => l.sourceId), 'gravity-flow'];

@@ -48,6 +48,9 @@ export type FigureKey =
   | 'gravityHeadM' | 'gravityPipeBoreMm' | 'gravityPipeLengthM' | 'gravityCapacityLpd'
   | 'feedPipeLengthM' | 'feedPipeBoreMm' | 'feedFrictionM' | 'drivingFallM';
 
+/** What a line is priced as from the organisation's price list ('with-ram': comes with a bought ram). */
+export type PriceKey = 'ram' | 'pipe' | 'valve' | 'gauge' | 'with-ram' | 'unions' | 'base' | 'intake' | 'tank' | 'relief-valve' | 'stand-pipe';
+
 export interface BillOfMaterialsLine {
   item: string;
   size: string;
@@ -57,6 +60,16 @@ export interface BillOfMaterialsLine {
   /** The size and note with their figures as amounts, for each reader's units. */
   sizeMessage?: Message;
   noteMessage?: Message;
+  /** Absent on screenings made before lines were priced. */
+  priceKey?: PriceKey;
+  /** Pipes: material (engine id or label) and bore, to find the price per metre. */
+  pipe?: { material: string; boreMm: number };
+  /** Rams: drive pipe size, inches (a ram's price goes with its size). */
+  driveIn?: number;
+  /** Tanks: litres. */
+  litres?: number;
+  /** Needed whatever lifts the water (a pump would use it too): delivery pipe and valve, intake, tank. */
+  shared?: boolean;
 }
 
 /** The result of screening one site: plain JSON, stored with the visit and rendered on the farmer's sheet. */

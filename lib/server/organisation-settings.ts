@@ -1,5 +1,6 @@
 import 'server-only';
 import type { OrganisationSettings } from '@/models';
+import { DEFAULT_PRICE_LIST } from '@/lib/shared/costs/price-list';
 
 /** A new organisation's settings: metric, half of the lowest flow, catalogue demand figures. */
 export function defaultOrganisationSettings(): OrganisationSettings {
@@ -11,5 +12,6 @@ export function defaultOrganisationSettings(): OrganisationSettings {
     minProbabilityForGo: 0.8,
     demandFigures: {},
     pipePrices: [],
+    priceList: { ...DEFAULT_PRICE_LIST },
   };
 }

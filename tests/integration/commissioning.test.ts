@@ -59,6 +59,10 @@ describe('POST /api/visits/:id/commissioning by role', () => {
     const screening = await Screening.findOne({ where: { visitId: org.visit.id }, order: [['createdAt', 'DESC']], rejectOnEmpty: true });
     expect(commissioning.check.prediction.deliveryLpd).toBe(screening.deliveryLpd);
     expect(['as-predicted', 'above-band', 'short', 'well-short']).toContain(commissioning.check.outcome);
+    // The waste-valve advice from the cycle model at the measured fall and lift, on the screening's drive pipe.
+    expect(['slow-down', 'speed-up', 'leave']).toContain(commissioning.check.valve.move);
+    expect(commissioning.check.valve.text).toMatch(/waste valve/);
+    expect(commissioning.check.valve.atDesign.driveLpm).toBeCloseTo((screening.result as { figures: { driveFlowLpm: { value: number } } }).figures.driveFlowLpm.value, 0);
     const visit = await Visit.findByPk(org.visit.id, { rejectOnEmpty: true });
     expect(visit.status).toBe('commissioned');
     const audit = await getAudit(await request(`/api/visits/${org.visit.id}/audit`, org.coordinator), params({ id: org.visit.id }));

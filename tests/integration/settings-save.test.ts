@@ -31,3 +31,33 @@ describe('PUT /api/organisation/settings', () => {
     expect(org.settings.unitsDefault).toBe('metric');
   });
 });
+
+describe('PUT /api/organisation/settings: the price list', () => {
+  it('reads the invented defaults before anything is saved, saves typed prices, and keeps them when a later save leaves the list out', async () => {
+    const o = await makeOrganisation('settings-prices');
+    const first = await (await GET(await request('/api/organisation/settings', o.coordinator), params({}))).json();
+    expect(first.settings.priceList.currency).toBe('GBP');
+    expect(first.settings.priceList.ramPerInch).toBe(300);
+    const priceList = { ...first.settings.priceList, currency: 'kes', ramPerInch: '21000', fuelPricePerL: '180,5' };
+    const res = await PUT(await request('/api/organisation/settings', o.coordinator, { method: 'PUT', body: { ...body({}), priceList } }), params({}));
+    expect(res.status).toBe(200);
+    const org = await Organisation.findByPk(o.organisationId, { rejectOnEmpty: true });
+    expect(org.settings.priceList).toMatchObject({ currency: 'KES', ramPerInch: 21000, fuelPricePerL: 180.5 });
+    await PUT(await request('/api/organisation/settings', o.coordinator, { method: 'PUT', body: body({}) }), params({}));
+    const read = await (await GET(await request('/api/organisation/settings', o.coordinator), params({}))).json();
+    expect(read.settings.priceList).toMatchObject({ currency: 'KES', ramPerInch: 21000 });
+  });
+
+  it('refuses an unknown currency and a negative price, naming the box, and changes nothing', async () => {
+    const o = await makeOrganisation('settings-prices-bad');
+    const first = await (await GET(await request('/api/organisation/settings', o.coordinator), params({}))).json();
+    const priceList = { ...first.settings.priceList, currency: 'XQZ', valve: '-5' };
+    const res = await PUT(await request('/api/organisation/settings', o.coordinator, { method: 'PUT', body: { ...body({}), priceList } }), params({}));
+    expect(res.status).toBe(422);
+    const json = await res.json();
+    expect(json.error.fieldErrors['priceList.currency']).toContain('Not a currency code this app knows.');
+    expect(json.error.fieldErrors['priceList.valve']).toContain('Valve price: at least 0.');
+    const org = await Organisation.findByPk(o.organisationId, { rejectOnEmpty: true });
+    expect(org.settings.priceList?.currency ?? 'GBP').toBe('GBP');
+  });
+});

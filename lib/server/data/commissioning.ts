@@ -1,7 +1,7 @@
 import 'server-only';
 import { randomUUID } from 'node:crypto';
 import type { Transaction } from 'sequelize';
-import { commissioningCheck, predictionFromFigures, type CommissioningResult, type Screening as EngineScreening } from '@/lib/engine';
+import { commissioningCheck, designPointFromFigures, predictionFromFigures, type CommissioningResult, type Screening as EngineScreening } from '@/lib/engine';
 import { Commissioning, Farm, Screening, Visit, getSequelize } from '@/lib/server/db';
 import { VISIT_STATUS_LABELS } from '@/lib/shared/domain';
 import { canMove } from '@/lib/shared/visit-states';
@@ -48,7 +48,7 @@ export async function commissionVisit(user: SessionUser, visitId: string, input:
   const fallM = input.fallM ?? result.figures.fallM?.value ?? null;
   if (fallM === null || !(fallM > 0)) throw invalid('fallM: The screening has no fall; enter the measured fall.', { fallM: ['Enter the measured fall.'] });
   if (input.liftM <= fallM) throw invalid('liftM: Lift must be more than the fall.', { liftM: ['Lift must be more than the fall.'] });
-  const check: CommissioningResult = commissioningCheck({ ...input, fallM }, predictionFromFigures(result.figures));
+  const check: CommissioningResult = commissioningCheck({ ...input, fallM }, predictionFromFigures(result.figures), designPointFromFigures(result.figures));
   const row = await Commissioning.create({
     id, organisationId: visit.organisationId, visitId, screeningId: screening.id, recordedById: user.id,
     driveLpm: input.driveLpm, deliveredLpm: input.deliveredLpm, beatsPerMinute: input.beatsPerMinute, liftM: input.liftM, fallM,

@@ -6,13 +6,14 @@ import type { z } from 'zod';
 import { recordAudit } from '../audit';
 import { authorize, type SessionUser } from '../auth/permissions';
 import { invalid } from '../errors';
+import { priceListOf } from '@/lib/shared/costs/price-list';
 import { defaultOrganisationSettings } from '../organisation-settings';
 
 /** The organisation's settings, with defaults for anything never set. */
 export async function getSettings(user: SessionUser) {
   authorize(user, 'organisation:settings');
   const org = await Organisation.findByPk(user.organisationId, { rejectOnEmpty: true });
-  return { ...defaultOrganisationSettings(), ...org.settings };
+  return { ...defaultOrganisationSettings(), ...org.settings, priceList: priceListOf(org.settings.priceList) };
 }
 
 /** Replaces the settings (the schema has checked the per-head kinds against the catalogue). Audited with before/after. */

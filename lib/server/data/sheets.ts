@@ -1,6 +1,6 @@
 import 'server-only';
 import type { Screening as EngineScreening } from '@/lib/engine/screening-types';
-import { DemandLine, Farm, PipeRun, Point, Screening, User, Visit } from '@/lib/server/db';
+import { DemandLine, Farm, Organisation, PipeRun, Point, Screening, User, Visit } from '@/lib/server/db';
 import type { SheetSource } from '@/lib/shared/sheet/view-model';
 import { SHEET_RELEASED } from '@/lib/shared/visit-states';
 import { authorize, type Permission, type SessionUser } from '../auth/permissions';
@@ -42,10 +42,11 @@ export async function loadSheet(user: SessionUser, visitId: string, permission: 
   const screening = await Screening.findOne({ where: { visitId }, order: [['createdAt', 'DESC']] });
   if (!screening) throw notFound('sheet: this visit has not been screened yet');
   const live = { visitId, deletedAt: null };
-  const [points, pipes, demand] = await Promise.all([
+  const [points, pipes, demand, organisation] = await Promise.all([
     Point.findAll({ where: { ...live }, order: [['createdAt', 'ASC'], ['id', 'ASC']] }),
     PipeRun.findAll({ where: live }),
     DemandLine.findAll({ where: { farmId: visit.farmId, deletedAt: null }, attributes: ['kind'] }),
+    Organisation.findByPk(visit.organisationId, { attributes: ['settings'] }),
   ]);
   const inputs = screening.inputs as { demand?: { kind: string }[] } | null;
   const owner = visit.Farm?.owner ?? null;
@@ -68,6 +69,7 @@ export async function loadSheet(user: SessionUser, visitId: string, permission: 
       pipeLengthsM: { drive: pipeLength('drive'), delivery: pipeLength('delivery') },
       // The screened demand is what the figures rest on; the farm's lines now may have moved on.
       demandKinds: inputs?.demand?.map((d) => d.kind) ?? demand.map((d) => d.kind),
+      prices: { list: organisation?.settings.priceList ?? {}, pipes: organisation?.settings.pipePrices ?? [] },
     },
   };
 }

@@ -33,7 +33,7 @@ function body(doc: Doc, text: string, opts: { size?: number; colour?: string; fa
 const bodyHeight = (doc: Doc, text: string, size = 11, face: Face = 'sans') => heightOf(doc.fontSize(size), face, text, { lineGap: 2, width: contentWidth(doc) });
 
 export interface Column { title: string; share: number; face?: Face }
-interface Cell { text: string; sub?: string }
+export interface Cell { text: string; sub?: string }
 
 const CELL_GAP = 8;
 
@@ -188,14 +188,38 @@ export async function renderSheetPdf(v: SheetView, paper: Paper): Promise<Buffer
   if (v.reasons.length) list(doc, v.reasons);
 
   const billColumns: Column[] = [
-    { title: 'Item', share: 0.3 },
-    { title: 'Size', share: 0.24 },
-    { title: 'Quantity', share: 0.14, face: 'mono' },
-    { title: 'Note', share: 0.32 },
+    { title: 'Item', share: 0.31 },
+    { title: 'Size', share: 0.16 },
+    { title: 'Quantity', share: 0.12, face: 'mono' },
+    { title: 'Basis', share: 0.26 },
+    { title: 'Price', share: 0.15, face: 'mono' },
   ];
-  const billRows = v.billOfMaterials.map((b) => [{ text: b.item }, { text: b.size }, { text: b.quantity }, { text: b.note }]);
+  const billRows: Cell[][] = [
+    ...v.billOfMaterials.map((b) => [{ text: b.item, sub: b.note }, { text: b.size }, { text: b.quantity }, { text: b.basis }, { text: b.price }]),
+    ...(v.costs ? v.costs.extras.map((e) => [{ text: e.item }, { text: '' }, { text: '' }, { text: e.basis }, { text: e.price }]) : []),
+    ...(v.costs ? [[{ text: 'Total' }, { text: '' }, { text: '' }, { text: '' }, { text: v.costs.total }]] : []),
+  ];
   heading(doc, 'Bill of materials', tableStart(doc, billColumns, billRows[0]));
   table(doc, billColumns, billRows);
+
+  if (v.costs?.comparison) {
+    const tenColumns: Column[] = [
+      { title: 'Option', share: 0.32 },
+      { title: 'To buy and fit', share: 0.17, face: 'mono' },
+      { title: 'Bought again', share: 0.17, face: 'mono' },
+      { title: 'Upkeep and fuel', share: 0.17, face: 'mono' },
+      { title: 'Ten years', share: 0.17, face: 'mono' },
+    ];
+    const tenRows: Cell[][] = v.costs.comparison.map((o) => [{ text: o.option }, { text: o.capital }, { text: o.replacements }, { text: o.running }, { text: o.total }]);
+    // Three rows: the whole table stays on one page with its heading.
+    const whole = tenRows.reduce((h, row) => h + tableStart(doc, tenColumns, row) - 18, 18);
+    heading(doc, 'Ten years: a ram, a solar pump or a petrol pump', whole);
+    table(doc, tenColumns, tenRows);
+    body(doc, 'What these figures assume', { face: 'bold' });
+    list(doc, v.costs.assumptions);
+  } else if (v.costs) {
+    body(doc, v.costs.assumptions[0] ?? '', { colour: STONE });
+  }
 
   const first = v.cautions[0];
   heading(doc, 'Cautions', first ? bodyHeight(doc, first.title, 11, 'bold') + bodyHeight(doc, first.text) : 0);

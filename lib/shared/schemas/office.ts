@@ -1,4 +1,5 @@
 import { DEMAND_CATALOGUE } from '@/lib/engine/demand';
+import { priceListSchema } from '@/lib/shared/costs/price-list';
 import { z } from '@/lib/shared/zod';
 import { ROLES, UNIT_SYSTEMS, VISIT_STATUSES } from '../domain';
 import { JUMP_REASON_MIN } from '../visit-states';
@@ -136,5 +137,7 @@ export const settingsSchema = z.object({
     pricePerM: positive('Price per metre'),
     currency: z.string().trim().min(1, 'Give a currency.').max(8),
   })).max(100, 'At most 100 pipe prices.'),
+  // Prices for costing the sheet; absent keeps the stored list (or the invented defaults).
+  priceList: priceListSchema.optional(),
 });
 export type SettingsInput = z.input<typeof settingsSchema>;

@@ -10,6 +10,9 @@ import { sentence } from './sentence';
 import { dailyInWords, pressureHead, quantity, type QuantityKind } from '../display/quantities';
 import { plainTrade } from './trade-words';
 import { siteMapGeometry, type SiteMapGeometry } from './site-map';
+import type { PipePrice } from '../costs/bill-prices';
+import { sheetCosts, type SheetCosts } from '../costs/cost-view';
+import { priceListOf, type PriceList } from '../costs/price-list';
 
 /** What the server hands over for one sheet: the stored screening and who/where/when. */
 export interface SheetSource {
@@ -22,11 +25,13 @@ export interface SheetSource {
   points: { role: string; label: string; lat: number | null; lon: number | null }[];
   pipeLengthsM: { drive: number | null; delivery: number | null };
   demandKinds: string[];
+  /** The organisation's price list and pipe prices; the invented defaults when absent. */
+  prices?: { list: Partial<PriceList>; pipes: PipePrice[] };
 }
 
 export interface SheetFigure { key: string; label: string; value: string; note: string }
 export interface SheetCaution { code: string; title: string; text: string }
-export interface SheetBomLine { item: string; size: string; quantity: string; note: string }
+export interface SheetBomLine { item: string; size: string; quantity: string; note: string; basis: string; price: string }
 
 export interface SheetView {
   visitId: string;
@@ -41,6 +46,8 @@ export interface SheetView {
   reasons: string[];
   conditions: string[];
   billOfMaterials: SheetBomLine[];
+  /** Fittings, labour, the bill's total, the ten-year comparison and its assumptions; null with an empty bill. */
+  costs: Omit<SheetCosts, 'lines'> | null;
   cautions: SheetCaution[];
   surveyed: string;
   engineVersion: string;
@@ -140,12 +147,26 @@ function keyFigures(s: SheetSource, units: UnitSystem): SheetFigure[] {
   return out;
 }
 
-function billOfMaterials(s: SheetSource, units: UnitSystem): SheetBomLine[] {
-  return s.screening.billOfMaterials.map((line) => {
+/** The bill priced from the organisation's list, in its currency (US readers get US number formatting). */
+function costsOf(s: SheetSource, units: UnitSystem): SheetCosts | null {
+  const sc = s.screening;
+  // A screening made before lines were priced has nothing to price: no costs rather than a total of nothing.
+  if (!sc.billOfMaterials.some((line) => line.priceKey)) return null;
+  const f = sc.figures;
+  const water = { dailyL: f.demandLpd?.value ?? null, liftM: f.totalLiftM?.value ?? null, pumped: sc.verdict === 'go' || sc.verdict === 'conditional' };
+  return sheetCosts(sc.billOfMaterials, priceListOf(s.prices?.list), s.prices?.pipes ?? [], water, units === 'us' ? 'en-US' : 'en-GB');
+}
+
+function billOfMaterials(s: SheetSource, units: UnitSystem, costs: SheetCosts | null): SheetBomLine[] {
+  return s.screening.billOfMaterials.map((line, i) => {
     const amount = line.unit === 'm' ? quantity(line.quantity, 'pipeLength', units).text : `${formatWhole(line.quantity)} ${line.unit}`;
     const size = line.sizeMessage ? renderMessage(line.sizeMessage, units) : line.size;
     const note = line.noteMessage ? renderMessage(line.noteMessage, units) : line.note;
-    return { item: plainTrade(line.item, units), size: plainTrade(size, units), quantity: amount, note: plainTrade(note, units) };
+    const priced = costs?.lines[i];
+    return {
+      item: plainTrade(line.item, units), size: plainTrade(size, units), quantity: amount, note: plainTrade(note, units),
+      basis: plainTrade(priced?.basis ?? '', units), price: priced?.price ?? '—',
+    };
   });
 }
 
@@ -179,6 +200,7 @@ export function buildSheetView(s: SheetSource, units: UnitSystem): SheetView {
   const located = s.points.filter((p): p is typeof p & { lat: number; lon: number } => p.lat !== null && p.lon !== null);
   const visited = s.visitedAt ? formatDay(s.visitedAt) : 'a date not recorded';
   const say = (said: Said) => sentence(said, units);
+  const costs = costsOf(s, units);
   return {
     visitId: s.visitId,
     units,
@@ -191,7 +213,8 @@ export function buildSheetView(s: SheetSource, units: UnitSystem): SheetView {
     figures: keyFigures(s, units),
     reasons: sc.reasons.map(say),
     conditions: sc.conditions.map(say),
-    billOfMaterials: billOfMaterials(s, units),
+    billOfMaterials: billOfMaterials(s, units, costs),
+    costs: costs && { currency: costs.currency, extras: costs.extras.map((e) => ({ ...e, basis: plainTrade(e.basis, units) })), total: costs.total, comparison: costs.comparison, assumptions: costs.assumptions.map((a) => plainTrade(a, units)) },
     cautions: sc.cautions.map((c) => ({ code: c.code, title: CAUTION_TITLES[c.code] ?? 'Caution', text: say(c) })),
     surveyed: `Surveyed by ${s.advisorName ?? 'an advisor'} on ${visited}; screened on ${formatDay(s.screenedAt)}.`,
     engineVersion: sc.engineVersion,

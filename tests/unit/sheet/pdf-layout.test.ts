@@ -13,7 +13,7 @@ async function pagesOf(view: SheetView, paper: Paper): Promise<string[]> {
   }
 }
 
-const HEADINGS = ['Key figures', 'The water path, from intake to tank', 'Where the points are', 'Conditions for a go', 'Bill of materials', 'Cautions', 'How we worked this out'];
+const HEADINGS = ['Key figures', 'The water path, from intake to tank', 'Where the points are', 'Conditions for a go', 'Bill of materials', 'Ten years: a ram, a solar pump or a petrol pump', 'Cautions', 'How we worked this out'];
 
 // What a page says after a heading, without the footer line (the last line on every page).
 function after(page: string, heading: string): string {
@@ -30,8 +30,9 @@ describe('PDF layout on A4 and US Letter', () => {
         expect(pages[0]).toContain('Go');
         expect(pages[0]).toContain('Key figures');
         expect(pages[0]).toContain('The water path, from intake to tank');
-        // Five pages at most: the bill lists the ram's own parts line by line, each with its basis.
-        expect(pages.length).toBeLessThanOrEqual(5);
+        // Six pages at most: the bill lists the ram's own parts line by line, each with its basis and price, then
+        // the ten-year comparison with its assumptions.
+        expect(pages.length).toBeLessThanOrEqual(6);
       });
 
       it(`${paper}, ${units}: no heading ends a page; the bill's heading sits with its column headings and first row`, async () => {
@@ -43,7 +44,7 @@ describe('PDF layout on A4 and US Letter', () => {
           expect(after(page ?? '', heading).length, heading).toBeGreaterThan(20);
         }
         const bill = pages.find((p) => p.includes('Bill of materials')) ?? '';
-        expect(after(bill, 'Bill of materials')).toMatch(/^Item Size Quantity Note/);
+        expect(after(bill, 'Bill of materials')).toMatch(/^Item Size Quantity Basis Price/);
         expect(after(bill, 'Bill of materials')).toContain(view.billOfMaterials[0]?.item ?? '?');
       });
     }
@@ -68,7 +69,7 @@ describe('PDF layout on A4 and US Letter', () => {
       expect(withRows.length).toBeGreaterThan(1);
       for (const page of withRows) {
         const lines = page.split('\n').map((l) => l.trim());
-        const head = lines.findIndex((l) => l.startsWith('Item Size Quantity Note'));
+        const head = lines.findIndex((l) => l.startsWith('Item Size Quantity Basis Price'));
         const firstRow = lines.findIndex((l) => /Part number \d+/.test(l));
         expect(head).toBeGreaterThanOrEqual(0);
         expect(head).toBeLessThan(firstRow);
@@ -86,6 +87,27 @@ describe('PDF layout on A4 and US Letter', () => {
         const page = pages.find((p) => p.split('\n').some((l) => l.trim().startsWith(heading))) ?? '';
         expect(after(page, heading).length, `${paper}: ${heading}`).toBeGreaterThan(20);
       }
+    }
+  });
+});
+
+describe('the PDF costs', () => {
+  it('a pumped sheet prints the priced bill with its total and the ten-year table; a gravity sheet has no comparison', async () => {
+    const pumped = (await pagesOf(buildSheetView(brandtLikeSource(), 'metric'), 'a4')).join('\n').replace(/\s+/g, ' ');
+    expect(pumped).toMatch(/Total £[\d,]+/);
+    expect(pumped).toContain('Small solar pump with panels');
+    expect(pumped).toContain('What these figures assume');
+    const gravity = (await pagesOf(buildSheetView(gravitySource(), 'metric'), 'a4')).join('\n');
+    expect(gravity).not.toContain('Ten years: a ram');
+  });
+});
+
+describe('the PDF ten-year table', () => {
+  it.each(['a4', 'letter'] as const)('%s: the three options print on one page with the heading', async (paper) => {
+    for (const units of ['metric', 'us'] as const) {
+      const pages = await pagesOf(buildSheetView(brandtLikeSource(), units), paper);
+      const page = pages.find((p) => p.includes('Ten years: a ram')) ?? '';
+      for (const option of ['Ram (this design)', 'Small solar pump with panels', 'Petrol pump']) expect(page, `${units}: ${option}`).toContain(option);
     }
   });
 });

@@ -151,3 +151,21 @@ describe('figures said plainly', () => {
     expect(new Set(view.sources.map((s) => s.citation)).size).toBe(view.sources.length);
   });
 });
+
+describe('buildSheetView costs', () => {
+  it('prices a current screening and shows no costs for one made before lines were priced', () => {
+    const priced = buildSheetView(brandtLikeSource(), 'metric');
+    expect(priced.costs?.total).toMatch(/^£[\d,]+$/);
+    expect(priced.billOfMaterials[0]?.price).toMatch(/^£[\d,]+$/);
+    const old = brandtLikeSource();
+    old.screening = { ...old.screening, billOfMaterials: old.screening.billOfMaterials.map(({ priceKey: _k, pipe: _p, driveIn: _d, litres: _l, shared: _s, ...line }) => line) };
+    const view = buildSheetView(old, 'metric');
+    expect(view.costs).toBeNull();
+    expect(view.billOfMaterials.every((line) => line.price === '—')).toBe(true);
+  });
+  it('uses the organisation\u2019s currency and pipe prices', () => {
+    const s = brandtLikeSource();
+    s.prices = { list: { currency: 'EUR' }, pipes: [] };
+    expect(buildSheetView(s, 'metric').costs?.total).toMatch(/^€[\d,]+$/);
+  });
+});

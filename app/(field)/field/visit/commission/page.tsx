@@ -1,7 +1,10 @@
 'use client';
 
 import { Suspense, useEffect, useState } from 'react';
-import { commissioningCheck, EngineInputError, type CommissioningResult } from '@/lib/engine';
+import { useLiveQuery } from 'dexie-react-hooks';
+import { commissioningCheck, designPointFromFigures, EngineInputError, screenSite, type CommissioningResult, type DesignPoint } from '@/lib/engine';
+import { localSiteReadings } from '@/lib/client/site-readings';
+import { siteReadingsSchema } from '@/lib/shared/schemas/site-readings';
 import { setDirty } from '@/lib/client/dirty';
 import { newId } from '@/lib/client/ids';
 import { QuotaError, saveRecord } from '@/lib/client/outbox';
@@ -26,6 +29,17 @@ function CommissionPage() {
   const [liftM, setLiftM] = useState<number | undefined>();
   const [fallM, setFallM] = useState<number | undefined>();
   const [message, setMessage] = useState<string | null>(null);
+  // The drive pipe and design drive flow from the phone's own screen of the visit, so the valve advice needs no signal.
+  const design = useLiveQuery(async (): Promise<DesignPoint | null> => {
+    const input = await localSiteReadings(visitId);
+    const parsed = input ? siteReadingsSchema.safeParse(input) : null;
+    if (!parsed?.success) return null;
+    try {
+      return designPointFromFigures(screenSite(parsed.data).figures);
+    } catch {
+      return null;
+    }
+  }, [visitId]);
 
   const typed = [driveLps, deliveredLps, beats, liftM, fallM].some((v) => v !== undefined);
   useEffect(() => {
@@ -37,7 +51,7 @@ function CommissionPage() {
   let problem: string | null = null;
   if (driveLps && deliveredLps && beats && liftM && fallM) {
     try {
-      local = commissioningCheck({ driveLpm: driveLps * 60, deliveredLpm: deliveredLps * 60, beatsPerMinute: beats, liftM, fallM });
+      local = commissioningCheck({ driveLpm: driveLps * 60, deliveredLpm: deliveredLps * 60, beatsPerMinute: beats, liftM, fallM }, null, design ?? null);
     } catch (error) {
       problem = error instanceof EngineInputError ? error.message : 'These readings cannot be checked.';
     }

@@ -4,12 +4,36 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useFieldArray, useForm } from 'react-hook-form';
 import { apiJson, applyFieldErrors } from '@/lib/client/api';
+import type { PriceList } from '@/lib/shared/costs/price-list';
 import { settingsSchema, type SettingsInput } from '@/lib/shared/schemas/office';
 
 const field = 'mt-1 block min-h-12 w-full rounded-md border-2 border-stone bg-white px-2 text-lg';
+
+// The price list's boxes, grouped as a coordinator thinks of them; every default is invented (common practice, no source).
+const PRICE_GROUPS: { title: string; fields: { key: keyof PriceList; label: string }[] }[] = [
+  { title: 'Ram and parts', fields: [
+    { key: 'ramPerInch', label: 'Ram, per inch of drive pipe' }, { key: 'valve', label: 'Valve (gate or ball), each' }, { key: 'gauge', label: 'Pressure gauge' },
+    { key: 'unions', label: 'Pair of unions' }, { key: 'base', label: 'Concrete base and anchor' }, { key: 'reliefValve', label: 'Pressure-relief valve' },
+    { key: 'standPipe', label: 'Stand pipe' }, { key: 'intake', label: 'Intake screen and drum' }, { key: 'tankPerL', label: 'Tank, per litre' },
+  ] },
+  { title: 'Pipe not on the pipe list, fittings and labour', fields: [
+    { key: 'steelPipePerMmM', label: 'Steel pipe, per mm of bore per metre' }, { key: 'plasticPipePerMmM', label: 'Plastic pipe, per mm of bore per metre' },
+    { key: 'fittingsShare', label: 'Fittings, share of the pipe cost (0–1)' }, { key: 'labourDayRate', label: 'Labour, per day' },
+    { key: 'labourDaysPerPump', label: 'Days to set up a ram or pump' }, { key: 'pipeMetresPerDay', label: 'Metres of pipe laid a day' },
+  ] },
+  { title: 'Ten-year comparison', fields: [
+    { key: 'ramMaintenancePerYear', label: 'Ram upkeep a year' }, { key: 'ramLifeYears', label: 'Ram life, years' },
+    { key: 'solarPumpCapital', label: 'Solar pump and controller' }, { key: 'solarPanelPerW', label: 'Solar panel, per watt' },
+    { key: 'solarSunHours', label: 'Full-sun hours a day' }, { key: 'solarWireToWater', label: 'Solar, panel-to-water efficiency (0–1)' },
+    { key: 'solarLifeYears', label: 'Solar pump life, years' }, { key: 'solarMaintenancePerYear', label: 'Solar upkeep a year' },
+    { key: 'fuelPumpCapital', label: 'Petrol pump' }, { key: 'fuelPumpLifeYears', label: 'Petrol pump life, years' },
+    { key: 'fuelPricePerL', label: 'Petrol, per litre' }, { key: 'fuelLitresPerHour', label: 'Petrol burnt, litres an hour' },
+    { key: 'fuelPumpLpm', label: 'Petrol pump delivery at the lift, L/min' }, { key: 'fuelMaintenancePerYear', label: 'Petrol pump upkeep a year' },
+  ] },
+];
 export interface DemandKindView { kind: string; label: string; unit: string; catalogue: number }
 
-/** The organisation's settings: units, design fraction, per-head demand overrides, pipe prices. */
+/** The organisation's settings: units, design fraction, per-head demand overrides, pipe prices, the price list for costs. */
 export function SettingsForm({ initial, kinds }: { initial: SettingsInput; kinds: DemandKindView[] }) {
   const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
   const { register, handleSubmit, formState, setError, control } = useForm<SettingsInput>({ resolver: zodResolver(settingsSchema), defaultValues: initial });
@@ -64,6 +88,26 @@ export function SettingsForm({ initial, kinds }: { initial: SettingsInput; kinds
           </div>
         ))}
         <button type="button" onClick={() => prices.append({ material: '', diameterMm: '', pricePerM: '', currency: 'GBP' } as never)} className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate">Add a pipe price</button>
+      </fieldset>
+      <fieldset className="space-y-3" aria-describedby="prices-help">
+        <legend className="text-lg font-bold">Prices for the sheet&rsquo;s costs</legend>
+        <p id="prices-help" className="max-w-prose text-stone">The farmer&rsquo;s sheet prices the bill of materials from these and compares ten years of a ram with a small solar pump and a petrol pump. The figures filled in at the start are invented (common practice, no source): put in your suppliers&rsquo; prices.</p>
+        <label className="block max-w-xs">Currency (three letters, such as GBP, EUR, USD, KES)
+          <input className={`${field} uppercase`} {...register('priceList.currency')} />
+          {errors.priceList?.currency && <span className="font-bold text-clay">{errors.priceList.currency.message}</span>}</label>
+        {PRICE_GROUPS.map((g) => (
+          <div key={g.title}>
+            <h3 className="font-bold">{g.title}</h3>
+            <div className="grid gap-2 sm:grid-cols-2 lg:grid-cols-3">
+              {g.fields.map((f) => (
+                <label key={f.key} className="block">{f.label}
+                  <input type="text" inputMode="decimal" className={`${field} figure`} {...register(`priceList.${f.key}` as const)} />
+                  {errors.priceList?.[f.key] && <span className="font-bold text-clay">{errors.priceList[f.key]?.message}</span>}
+                </label>
+              ))}
+            </div>
+          </div>
+        ))}
       </fieldset>
       {message && <p role={message.ok ? 'status' : 'alert'} className={`font-bold ${message.ok ? 'text-moss' : 'text-clay'}`}>{message.text}</p>}
       <button type="submit" disabled={isSubmitting} className="min-h-12 rounded-md bg-slate px-5 text-lg font-bold text-white disabled:opacity-70">{isSubmitting ? 'Saving…' : 'Save settings'}</button>
