@@ -32,7 +32,8 @@ export interface DistrictFarm {
   name: string;
   area: string;
   demand: { kind: DemandKind; count: number }[];
-  status: VisitStatus;
+  /** Null: the farm is on the books with no visit yet. */
+  status: VisitStatus | null;
   /** Days from today of the planned visit; null when not yet agreed. */
   plannedInDays: number | null;
   advisor: 'user:dilys' | 'user:rafael' | null;
@@ -98,6 +99,9 @@ export const DISTRICT_FARMS: DistrictFarm[] = [
   { name: 'Tŷ Isaf', area: 'Pengarth ridge', demand: [{ kind: 'goat', count: 15 }], status: 'requested', plannedInDays: null, advisor: null,
     notes: 'Position typed from the farmer’s letter: check it.', strayPosition: { lat: 51.0412, lon: -0.5127 } },
   { name: 'Foxhole Cottage', area: 'Nant Gwern valley', demand: [HOUSE(4), { kind: 'garden-m2', count: 120 }], status: 'requested', plannedInDays: 30, advisor: 'user:rafael' },
+  // On the books, no visit asked for yet.
+  { name: 'Clawdd Coch', area: 'Upper Wenlow', demand: [{ kind: 'sheep', count: 45 }], status: null, plannedInDays: null, advisor: null },
+  { name: 'Yew Tree Fold', area: 'Rhosfach common', demand: [], status: null, plannedInDays: null, advisor: null },
   // Called off: the farm went onto the mains.
   { name: 'Quarry Bank', area: 'Wenlow mouth', demand: [{ kind: 'sheep', count: 30 }], status: 'cancelled', plannedInDays: -66, advisor: 'user:dilys', notes: 'Connected to the mains in the summer.' },
 ];

@@ -57,7 +57,7 @@ function levelRows(totalM: number) {
 type Rows = { model: Parameters<typeof writeSyncedRows>[0]; values: Record<string, unknown>[] }[];
 
 /**
- * Adds the rest of Wenlow Vale: two advisors, the farmers, 35 farms with their needs and visits in
+ * Adds the rest of Wenlow Vale: two advisors, the farmers, 37 farms (two with no visit yet) with their needs and visits in
  * every state, the walked sites' readings (screened by the engine), sends, the farmers' readings,
  * decisions and questions, and two commissioned rams. Rows go in bulk; only the screenings and the
  * commissionings go one by one, through the same code a sync uses.
@@ -87,6 +87,7 @@ export async function seedDemoDistrict(orgId: string, passwordHash: string, tran
       add(DemandLine, { id: demoId(`${key}:demand:${j}`), farmId, kind: line.kind, count: line.count, litresPerHeadPerDay: entry.litresPerHeadPerDay,
         figureSource: entry.sourceId, note: '', createdById: ownerId });
     });
+    if (!farm.status) return;
     const visitId = demoId(`${key}:visit`);
     const planned = farm.plannedInDays === null ? null : dayOf(farm.plannedInDays, now);
     const walked = planned && !['requested', 'scheduled', 'cancelled'].includes(farm.status) ? new Date(planned.getTime() + 10 * 3600_000) : null;
@@ -137,7 +138,7 @@ async function seedDistrictOutcomes(orgId: string, coordinatorId: string, transa
   const responses: Record<string, unknown>[] = [];
   const commissioned: { visitId: string; advisorId: string; screeningId: string; i: number }[] = [];
   for (const [i, farm] of DISTRICT_FARMS.entries()) {
-    if (!farm.site || !SITE_WALKED.includes(farm.status) || farm.plannedInDays === null) continue;
+    if (!farm.site || !farm.status || !SITE_WALKED.includes(farm.status) || farm.plannedInDays === null) continue;
     const key = `district:${i}`;
     const visitId = demoId(`${key}:visit`);
     const advisorId = demoId(farm.advisor ?? 'user:maren');
