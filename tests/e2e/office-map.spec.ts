@@ -4,7 +4,7 @@
 import { expect, test, type Page } from '@playwright/test';
 import { signInAs } from './support/sign-in';
 
-const shots = '/tmp/loop-shots';
+const shots = '/tmp/office-map-shots';
 
 async function openMap(page: Page) {
   await signInAs(page, 'maren@wenlow-water.test', /\/office$/);

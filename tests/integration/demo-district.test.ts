@@ -3,6 +3,7 @@
 import { Op } from 'sequelize';
 import { describe, expect, it } from 'vitest';
 import { Commissioning, Farm, Screening, SheetResponse, SheetSend, User, Visit } from '@/lib/server/db';
+import { buildDigests } from '@/lib/server/digest/daily-digest';
 import { demoId } from '@/lib/server/demo/ids';
 import { seedDemo } from '@/lib/server/demo/seed';
 import { VISIT_STATUSES } from '@/lib/shared/domain';
@@ -33,6 +34,18 @@ describe('the demo district', () => {
     const answered = new Set(responses.flatMap((r) => (r.replyToId ? [r.replyToId] : [])));
     expect(kinds.filter((k) => k === 'question').length).toBeGreaterThan(answered.size);
     expect(await Commissioning.count({ where: { organisationId } })).toBe(2);
+  });
+
+  it("gives the coordinator's morning digest something in every list, and each advisor only their own", async () => {
+    const digests = await buildDigests(organisationId);
+    const maren = digests.find((d) => d.to.email === 'maren@wenlow-water.test');
+    expect(maren?.counts.overdue).toBeGreaterThanOrEqual(4);
+    expect(maren?.counts.questions).toBe(2);
+    expect(maren?.counts.unread).toBeGreaterThanOrEqual(2);
+    expect(maren?.counts.failed).toBe(1);
+    const dilys = digests.find((d) => d.to.email === 'dilys@wenlow-water.test');
+    expect(dilys?.text).toContain('Rowan Leys');
+    expect(dilys?.text).not.toContain('Glanrhos');
   });
 
   it('is loaded once: a second seed changes nothing', async () => {

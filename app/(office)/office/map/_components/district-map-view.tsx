@@ -88,12 +88,16 @@ function ClusteredMarks({ sites, farms }: { sites: MapSiteView[]; farms: MapFarm
   return null;
 }
 
-/** The district's sites and unvisited farms on a Leaflet map, fitted to `fit`; tiles only if NEXT_PUBLIC_TILE_URL is set. */
+/**
+ * The district's sites and unvisited farms on a Leaflet map, fitted to `fit`; tiles only if
+ * NEXT_PUBLIC_TILE_URL is set. The map names its own deepest zoom: the clusters need one, and
+ * without tiles no layer gives it.
+ */
 export default function DistrictMapView({ sites, farms, fit }: { sites: MapSiteView[]; farms: MapFarmView[]; fit: [[number, number], [number, number]] | null }) {
   const tileUrl = process.env.NEXT_PUBLIC_TILE_URL;
   const bounds = fit ? L.latLngBounds(fit).pad(0.1) : undefined;
   return (
-    <MapContainer bounds={bounds} center={bounds ? undefined : [52.4, -3.6]} zoom={bounds ? undefined : 11} scrollWheelZoom
+    <MapContainer bounds={bounds} center={bounds ? undefined : [52.4, -3.6]} zoom={bounds ? undefined : 11} maxZoom={19} scrollWheelZoom
       style={{ height: '60vh', minHeight: 360, background: '#EDEAE0' }} aria-label="Map of the district's sites">
       {tileUrl && <TileLayer url={tileUrl} attribution={process.env.NEXT_PUBLIC_TILE_ATTRIBUTION ?? ''} />}
       <ScaleControl position="bottomleft" />
