@@ -50,9 +50,9 @@ export default async function MapPage() {
       )}
       <DistrictMap sites={sites.filter((s) => !stray.has(`visit:${s.visitId}`))} farms={allFarms.filter((f) => !stray.has(`farm:${f.farmId}`))} fit={fit} />
       <p className="text-stone">
-        Each mark is a located point of a site walk (intake, pump site, tank), or the farm itself where no points were taken yet; the
-        farm&apos;s name labels one mark of each site. Marks close together gather into a numbered circle: select it to zoom in. Select a
-        mark to open the visit.
+        Each site is one mark, labelled with its farm: at the pump site where the advisor took one, otherwise another point of the
+        walk, or the farm itself before any. Marks close together gather into a numbered circle (how many farms): select it to zoom
+        in. Select a mark to open the visit.
       </p>
       <details>
         <summary className="min-h-12 cursor-pointer font-bold">The same sites as a list</summary>

@@ -19,7 +19,7 @@ export interface MapSiteView {
 
 export interface MapFarmView { farmId: string; farmName: string; area: string; lat: number; lon: number }
 
-const ROLE_WORDS: Record<string, string> = { intake: 'intake', pump: 'pump site', tank: 'tank', station: 'station', source: 'source', other: 'point', farm: 'farm (no site points yet)' };
+const ROLE_WORDS: Record<string, string> = { intake: 'at the intake', pump: 'at the pump site', tank: 'at the tank', source: 'at the source', other: 'at a point taken', farm: 'at the farm (no site points yet)' };
 
 // Popup content built as elements (names are people's own text, never markup).
 function popup(lines: (string | { href: string; text: string })[], title: string): HTMLElement {
@@ -45,7 +45,7 @@ const clusterIcon = (cluster: L.MarkerCluster) => L.divIcon({
   html: `<span>${cluster.getChildCount()}</span>`, className: 'fallbook-cluster', iconSize: [40, 40],
 });
 
-/** The marks in Leaflet.markercluster groups: near marks gather, each site's name labels one of its marks. */
+/** The marks in Leaflet.markercluster groups: near marks gather into a count, each mark is labelled with its farm. */
 function ClusteredMarks({ sites, farms }: { sites: MapSiteView[]; farms: MapFarmView[] }) {
   const map = useMap();
   useEffect(() => {
@@ -62,16 +62,16 @@ function ClusteredMarks({ sites, farms }: { sites: MapSiteView[]; farms: MapFarm
         return icon;
       };
       const farmIcon = L.divIcon({ html: NO_VISIT_MARK, className: 'fallbook-marker', iconSize: [24, 24], iconAnchor: [12, 12] });
-      group = L.markerClusterGroup({ iconCreateFunction: clusterIcon, showCoverageOnHover: false, maxClusterRadius: 40, spiderfyOnMaxZoom: true });
+      group = L.markerClusterGroup({ iconCreateFunction: clusterIcon, showCoverageOnHover: false, maxClusterRadius: 36, spiderfyOnMaxZoom: true });
       for (const s of sites) {
+        // One mark per site, at the ram's place when it was taken: the district view wants farms, not every point.
+        const p = s.points.find((q) => q.role === 'pump') ?? s.points[0];
+        if (!p) continue;
         const verdict = VERDICT_WORDS[s.verdict ?? 'none'];
-        s.points.forEach((p, i) => {
-          const role = ROLE_WORDS[p.role] ?? p.role;
-          const marker = L.marker([p.lat, p.lon], { icon: iconFor(s.verdict ?? 'none'), title: `${s.farmName}: ${verdict}, ${role}`, alt: `${s.farmName}: ${verdict}, ${role}` })
-            .bindPopup(popup([`${verdict} · ${s.statusLabel}`, role, { href: `/office/visits/${s.visitId}`, text: 'Open the visit' }], s.farmName));
-          if (i === 0) marker.bindTooltip(s.farmName, { permanent: true, direction: 'right', offset: [18, 0], className: 'fallbook-label' });
-          group?.addLayer(marker);
-        });
+        const where = s.points.length > 1 ? `${s.points.length} points taken` : ROLE_WORDS[p.role] ?? p.role;
+        group.addLayer(L.marker([p.lat, p.lon], { icon: iconFor(s.verdict ?? 'none'), title: `${s.farmName}: ${verdict}`, alt: `${s.farmName}: ${verdict}` })
+          .bindPopup(popup([`${verdict} · ${s.statusLabel}`, where, { href: `/office/visits/${s.visitId}`, text: 'Open the visit' }], s.farmName))
+          .bindTooltip(s.farmName, { permanent: true, direction: 'right', offset: [18, 0], className: 'fallbook-label' }));
       }
       for (const f of farms) {
         group.addLayer(L.marker([f.lat, f.lon], { icon: farmIcon, title: `${f.farmName}: no visit yet`, alt: `${f.farmName}: no visit yet` })
@@ -97,7 +97,7 @@ export default function DistrictMapView({ sites, farms, fit }: { sites: MapSiteV
   const tileUrl = process.env.NEXT_PUBLIC_TILE_URL;
   const bounds = fit ? L.latLngBounds(fit).pad(0.1) : undefined;
   return (
-    <MapContainer bounds={bounds} center={bounds ? undefined : [52.4, -3.6]} zoom={bounds ? undefined : 11} maxZoom={19} scrollWheelZoom
+    <MapContainer bounds={bounds} center={bounds ? undefined : [52.4, -3.6]} zoom={bounds ? undefined : 11} maxZoom={19} zoomSnap={0.5} scrollWheelZoom
       style={{ height: '60vh', minHeight: 360, background: '#EDEAE0' }} aria-label="Map of the district's sites">
       {tileUrl && <TileLayer url={tileUrl} attribution={process.env.NEXT_PUBLIC_TILE_ATTRIBUTION ?? ''} />}
       <ScaleControl position="bottomleft" />
