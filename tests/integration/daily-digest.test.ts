@@ -6,7 +6,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { POST as postQuestion } from '@/app/api/visits/[id]/sheet/questions/route';
 import { POST as postSend } from '@/app/api/visits/[id]/sheet/send/route';
 import { buildDigests, sendDailyDigests } from '@/lib/server/digest/daily-digest';
-import { digestHourSchema, digestPattern } from '@/lib/server/digest/schedule';
+import { digestHourSchema, digestPattern, scheduleDailyDigest } from '@/lib/server/digest/schedule';
 import { Screening, SheetSend, Visit, getSequelize } from '@/lib/server/db';
 import { makeOrganisation, params, request } from './support/fixtures';
 import { mailTo } from './support/mailbox';
@@ -88,5 +88,18 @@ describe('the daily digest', () => {
     expect(digestHourSchema.parse(undefined)).toBe(6);
     expect(digestHourSchema.parse('off')).toBeNull();
     expect(() => digestHourSchema.parse('25')).toThrow(/DIGEST_HOUR must be an hour from 0 to 23/);
+  });
+
+  it('is scheduled with croner for the next such hour, and not at all when off', () => {
+    const job = scheduleDailyDigest('7', () => {});
+    try {
+      const next = job?.nextRun();
+      expect(next?.getUTCHours()).toBe(7);
+      expect(next?.getUTCMinutes()).toBe(0);
+      expect((next?.getTime() ?? 0) - Date.now()).toBeLessThanOrEqual(86_400_000);
+    } finally {
+      job?.stop();
+    }
+    expect(scheduleDailyDigest('off')).toBeNull();
   });
 });
