@@ -54,8 +54,8 @@ describe('the daily digest', () => {
     expect(text).toContain(`/sheets/${o.visit.id}#conversation`);
     expect(text).toContain('Sheets sent more than 3 days ago and not read yet (1)');
     expect(text).toContain(`digest farm: sent to ${o.farmer.email}`);
-    expect(text).toContain('Sheets whose e-mail failed (send them again from the sheet) (1)');
-    expect(text).toContain('digest farm 2: the e-mail to digest-farmer-2@fixtures.test');
+    expect(text).toContain('Sheet e-mails that did not go out (1)');
+    expect(text).toMatch(/digest farm 2: the e-mail to digest-farmer-2@fixtures\.test on .+ UTC failed; send it again from the sheet/);
     expect(text).toContain(`/office/visits/${o.otherVisit.id}`);
     expect(text).not.toMatch(/sheet_sent|undefined|null|NaN/);
   });

@@ -78,7 +78,7 @@ export async function digestSections(organisationId: string, now = new Date()): 
     unread: unread.map((r) => ({ visitId: r.visitId, advisorId: r.advisorId, farmName: r.farmName,
       text: `${r.farmName}: sent to ${r.toAddress} on ${formatDateTime(r.sentAt)}, not read yet` })),
     failed: failed.map((r) => ({ visitId: r.visitId, advisorId: r.advisorId, farmName: r.farmName,
-      text: `${r.farmName}: the e-mail to ${r.toAddress} on ${formatDateTime(r.at)} did not go out` })),
+      text: `${r.farmName}: the e-mail to ${r.toAddress} on ${formatDateTime(r.at)} failed; send it again from the sheet` })),
   };
 }
 
@@ -92,7 +92,7 @@ const HEADINGS: Record<keyof DigestSections, string> = {
   overdue: 'Visits past their planned day',
   questions: 'Questions waiting for an answer',
   unread: `Sheets sent more than ${UNREAD_AFTER_DAYS} days ago and not read yet`,
-  failed: 'Sheets whose e-mail failed (send them again from the sheet)',
+  failed: 'Sheet e-mails that did not go out',
 };
 
 // Where each line leads: the office's visit page for a coordinator; for an advisor the sheet (where
