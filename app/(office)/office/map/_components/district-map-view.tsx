@@ -62,7 +62,8 @@ function ClusteredMarks({ sites, farms }: { sites: MapSiteView[]; farms: MapFarm
         return icon;
       };
       const farmIcon = L.divIcon({ html: NO_VISIT_MARK, className: 'fallbook-marker', iconSize: [24, 24], iconAnchor: [12, 12] });
-      group = L.markerClusterGroup({ iconCreateFunction: clusterIcon, showCoverageOnHover: false, maxClusterRadius: 36, spiderfyOnMaxZoom: true });
+      // Wide groups keep the farms' labels apart at the district's zoom; zooming in opens them.
+      group = L.markerClusterGroup({ iconCreateFunction: clusterIcon, showCoverageOnHover: false, maxClusterRadius: 60, spiderfyOnMaxZoom: true });
       for (const s of sites) {
         // One mark per site, at the ram's place when it was taken: the district view wants farms, not every point.
         const p = s.points.find((q) => q.role === 'pump') ?? s.points[0];
