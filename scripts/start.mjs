@@ -28,6 +28,17 @@ const next = spawn(process.execPath, ['--import', pathToFileURL(path.join(root, 
   env: { ...process.env, NODE_ENV: 'production' },
 });
 
+// The scheduled jobs (the daily digest) run in a process of their own beside the app: one per start,
+// however many app servers share the database.
+const jobs = spawn(process.execPath, [nodeBin('tsx/dist/cli.mjs'), '--conditions=react-server', 'scripts/digest-job.ts'], {
+  cwd: root,
+  stdio: 'inherit',
+  env: { ...process.env, NODE_ENV: 'production' },
+});
+jobs.on('exit', (code) => {
+  if (code && !stopping) log(`the scheduled jobs stopped (exit ${code}); the app keeps running without the daily digest`);
+});
+
 if (await waitForHealth(`http://127.0.0.1:${port}/api/health`)) {
   log(`ready in ${((Date.now() - started) / 1000).toFixed(1)} s: open ${process.env.NEXTAUTH_URL || `http://localhost:${port}`}`);
   process.stdout.write(DEMO_ACCOUNTS_TEXT);
@@ -51,6 +62,7 @@ async function stop(code = 0) {
   stopping = true;
   log('stopping…');
   next.kill('SIGTERM');
+  jobs.kill('SIGTERM');
   await mail.close().catch(() => {});
   await tiles.close().catch(() => {});
   await stopDatabase(db);

@@ -39,7 +39,7 @@ test('a coordinator restores a deleted visit from the office home', async ({ pag
   await expect(page).toHaveURL(/\/office$/);
   const farms = await (await page.request.get('/api/farms?page=1&pageSize=10')).json() as { items: { id: string; name: string }[] };
   const farm = farms.items[0]!;
-  const created = await page.request.post('/api/visits', { data: { farmId: farm.id, notes: 'to be deleted and restored' }, headers: { origin: new URL(page.url()).origin } });
+  const created = await page.request.post('/api/visits', { data: { farmId: farm.id, notes: 'to be deleted and restored', confirmDuplicate: true }, headers: { origin: new URL(page.url()).origin } });
   expect(created.status()).toBe(201);
   const visitId = (await created.json()).visit.id as string;
   await query('UPDATE visits SET deleted_at = NOW(3) WHERE id = ?', [visitId]);

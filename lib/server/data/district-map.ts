@@ -1,11 +1,12 @@
 import 'server-only';
-import { Op } from 'sequelize';
+import { Op, literal } from 'sequelize';
 import { Farm, Point, Screening, Visit } from '@/lib/server/db';
 import type { PointRole, Verdict, VisitStatus } from '@/lib/shared/domain';
 import { authorize, type SessionUser } from '../auth/permissions';
 
 export interface MapSite {
   visitId: string;
+  farmId: string;
   farmName: string;
   status: VisitStatus;
   verdict: Verdict | null;
@@ -21,7 +22,7 @@ export async function districtSites(user: SessionUser): Promise<MapSite[]> {
   const visits = await Visit.findAll({
     where: { organisationId: user.organisationId, deletedAt: null, status: { [Op.ne]: 'cancelled' } },
     include: [{ model: Farm, attributes: ['name', 'lat', 'lon'] }],
-    attributes: ['id', 'status'],
+    attributes: ['id', 'farmId', 'status'],
     limit: 5000,
   }) as (Visit & { Farm?: Farm })[];
   const ids = visits.map((v) => v.id);
@@ -40,6 +41,23 @@ export async function districtSites(user: SessionUser): Promise<MapSite[]> {
   return visits.flatMap((v) => {
     const own = byVisit.get(v.id);
     const points = own?.length ? own : v.Farm?.lat != null && v.Farm?.lon != null ? [{ role: 'farm' as const, lat: v.Farm.lat, lon: v.Farm.lon }] : [];
-    return points.length ? [{ visitId: v.id, farmName: v.Farm?.name ?? '', status: v.status, verdict: verdicts.get(v.id) ?? null, points }] : [];
+    return points.length ? [{ visitId: v.id, farmId: v.farmId, farmName: v.Farm?.name ?? '', status: v.status, verdict: verdicts.get(v.id) ?? null, points }] : [];
   });
+}
+
+export interface MapFarm { farmId: string; farmName: string; area: string; lat: number; lon: number }
+
+/** The organisation's located farms with no visit under way or done (none, or only cancelled or deleted ones). */
+export async function farmsWithoutVisits(user: SessionUser): Promise<MapFarm[]> {
+  authorize(user, 'visit:plan');
+  const farms = await Farm.findAll({
+    where: {
+      organisationId: user.organisationId, deletedAt: null, lat: { [Op.ne]: null }, lon: { [Op.ne]: null },
+      [Op.and]: [literal(`NOT EXISTS (SELECT 1 FROM visits v WHERE v.farm_id = \`Farm\`.\`id\` AND v.deleted_at IS NULL AND v.status <> 'cancelled')`)],
+    },
+    attributes: ['id', 'name', 'area', 'lat', 'lon'],
+    order: [['name', 'ASC']],
+    limit: 5000,
+  });
+  return farms.flatMap((f) => (f.lat === null || f.lon === null ? [] : [{ farmId: f.id, farmName: f.name, area: f.area, lat: f.lat, lon: f.lon }]));
 }

@@ -6,6 +6,7 @@ import { defaultOrganisationSettings } from '../organisation-settings';
 import { demoId } from './ids';
 import { DEMO_FARMS, DEMO_ORGANISATION, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_VISITS } from './scenario';
 import { seedDemoReadings } from './readings';
+import { seedDemoDistrict } from './district';
 
 function dayOffset(days: number, from = new Date()): string {
   const date = new Date(Date.UTC(from.getUTCFullYear(), from.getUTCMonth(), from.getUTCDate() + days));
@@ -64,6 +65,7 @@ export async function seedDemo(): Promise<'created' | 'present'> {
       );
     }
     await seedDemoReadings(transaction);
+    await seedDemoDistrict(orgId, passwordHash, transaction);
   });
   return 'created';
 }

@@ -13,8 +13,9 @@ const NPM = path.join(process.cwd(), 'node_modules', '@expo-google-fonts');
 
 // Each face is a chain: the sheet's own type first (Latin), then Noto Sans (Latin Extended for
 // Welsh, Polish, Turkish, Vietnamese; Greek; Cyrillic), then Noto Sans SC (Chinese, Japanese kana,
-// arrows and maths signs). A word is set in the first font that has every one of its letters, so a
-// name never changes typeface halfway through.
+// arrows and maths signs), Noto Sans KR (Hangul) and Noto Sans Tamil (the Tamil subset, unpacked
+// from its WOFF by scripts/woff-to-ttf.mjs). A word is set in the first font that has every one of
+// its letters, so a name never changes typeface halfway through.
 const FILES: Record<string, string> = {
   'atkinson-400': path.join(FONT_DIR, 'atkinson-hyperlegible-latin-400-normal.ttf'),
   'atkinson-700': path.join(FONT_DIR, 'atkinson-hyperlegible-latin-700-normal.ttf'),
@@ -23,12 +24,16 @@ const FILES: Record<string, string> = {
   'noto-700': path.join(NPM, 'noto-sans', '700Bold', 'NotoSans_700Bold.ttf'),
   'noto-sc-400': path.join(NPM, 'noto-sans-sc', '400Regular', 'NotoSansSC_400Regular.ttf'),
   'noto-sc-700': path.join(NPM, 'noto-sans-sc', '700Bold', 'NotoSansSC_700Bold.ttf'),
+  'noto-kr-400': path.join(NPM, 'noto-sans-kr', '400Regular', 'NotoSansKR_400Regular.ttf'),
+  'noto-kr-700': path.join(NPM, 'noto-sans-kr', '700Bold', 'NotoSansKR_700Bold.ttf'),
+  'noto-tamil-400': path.join(FONT_DIR, 'noto-sans-tamil-tamil-400-normal.ttf'),
+  'noto-tamil-700': path.join(FONT_DIR, 'noto-sans-tamil-tamil-700-normal.ttf'),
 };
 
 const CHAINS: Record<Face, string[]> = {
-  sans: ['atkinson-400', 'noto-400', 'noto-sc-400'],
-  bold: ['atkinson-700', 'noto-700', 'noto-sc-700'],
-  mono: ['plex-mono-400', 'noto-400', 'noto-sc-400'],
+  sans: ['atkinson-400', 'noto-400', 'noto-sc-400', 'noto-kr-400', 'noto-tamil-400'],
+  bold: ['atkinson-700', 'noto-700', 'noto-sc-700', 'noto-kr-700', 'noto-tamil-700'],
+  mono: ['plex-mono-400', 'noto-400', 'noto-sc-400', 'noto-kr-400', 'noto-tamil-400'],
 };
 
 // What no font in the chain draws is spelled out rather than printed as an empty box.

@@ -5,7 +5,8 @@ import { renderSheetPdf } from '@/lib/server/sheets/pdf';
 import { buildSheetView } from '@/lib/shared/sheet/view-model';
 import { brandtLikeSource } from './fixture';
 
-// Names the district's farms really carry: Welsh, Polish, Turkish, Vietnamese, Greek, Chinese, Japanese.
+// Names the district's farms really carry: Welsh, Polish, Turkish, Vietnamese, Greek, Chinese, Japanese,
+// Korean, Tamil.
 const HARD_NAMES = [
   'Tŷ Gwyn, Llŵyn-y-Ŵyn',
   'Żółć Łąka, Gęślą',
@@ -14,7 +15,12 @@ const HARD_NAMES = [
   'Ρέμα Αγίου',
   '王家牧场',
   '山田の農場',
+  '김씨네 목장',
+  'முருகன் தோட்டம்',
 ];
+
+const TAMIL = /[\u0B80-\u0BFF]/;
+const tamilLetters = (text: string) => Array.from(text.normalize('NFD')).filter((ch) => TAMIL.test(ch)).sort();
 
 async function textOf(pdf: Buffer): Promise<string> {
   const parser = new PDFParse({ data: new Uint8Array(pdf) });
@@ -33,7 +39,11 @@ describe('the PDF prints every name', () => {
     source.points = source.points.map((p) => (p.role === 'tank' ? { ...p, label: 'Ŵyn 王家' } : p));
     const view = buildSheetView(source, 'metric');
     const text = (await textOf(await renderSheetPdf(view, 'a4'))).replace(/\s+/g, ' ');
-    for (const name of [...HARD_NAMES, 'Ŵyn 王家']) expect(text).toContain(name);
+    for (const name of [...HARD_NAMES.filter((n) => !TAMIL.test(n)), 'Ŵyn 王家']) expect(text).toContain(name);
+    // Tamil's two-part vowels are drawn on both sides of their consonant, so the text reads back in
+    // drawing order: the same letters (decomposed), not the same sequence.
+    expect(tamilLetters(text)).toEqual(tamilLetters(HARD_NAMES.filter((n) => TAMIL.test(n)).join(' ')));
+    expect(tamilLetters(text).length).toBeGreaterThan(10);
     expect(text).not.toContain('\u0000');
     expect(text).not.toMatch(/\?/);
   });
