@@ -2,7 +2,7 @@ import 'server-only';
 import { QueryTypes } from 'sequelize';
 import { Organisation, User, getSequelize } from '@/lib/server/db';
 import type { Role } from '@/lib/shared/domain';
-import { formatDateTime, formatDay } from '@/lib/shared/format';
+import { formatDateTime, formatDay } from '@/lib/shared/display/dates';
 import { todayIso } from '@/lib/shared/visit-rules';
 import { appLink } from '../mail/notices';
 import { sendMail } from '../mail/transport';
