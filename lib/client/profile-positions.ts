@@ -1,4 +1,5 @@
 // The phone's profile stations and tank in the engine's shape, and adopting a ranked pair as normal synced changes.
+import { levelRowsDropping } from '@/lib/engine/fall';
 import type { BestPositionsInput, PositionPair, ProfileStation, ProfileTank } from '@/lib/engine';
 import { fieldDb, type LocalRecord } from './db';
 import { newId } from './ids';
@@ -83,6 +84,6 @@ export async function adoptPair(visitId: string, pair: PositionPair, stations: L
   const note = `From the creek profile: intake at ${pair.intake.chainageM} m${stand}, ram at ${pair.pump.chainageM} m, tank at level ${tank.levelM} m.`;
   const takenAt = new Date().toISOString();
   const fall = Math.round(pair.fallM * 1000) / 1000;
-  await saveRecord('fallReading', newId(), { visitId, purpose: 'fall', seq, takenAt, notes: note, bookedFrom: null, run: { method: 'level', rows: [{ backsightM: 0 }, { foresightM: fall }] } });
+  await saveRecord('fallReading', newId(), { visitId, purpose: 'fall', seq, takenAt, notes: note, bookedFrom: null, run: { method: 'level', rows: levelRowsDropping(fall) } });
   await saveRecord('fallReading', newId(), { visitId, purpose: 'lift', seq: seq + 1, takenAt, notes: note, bookedFrom: null, run: { method: 'direct', staticLiftM: Math.round(pair.staticLiftM * 1000) / 1000, liftMethod: 'level' } });
 }
