@@ -16,13 +16,19 @@ export default defineConfig({
     trace: 'retain-on-failure',
     launchOptions: {
       executablePath: '/usr/bin/chromium',
-      args: ['--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage', '--disable-background-networking',
-        '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic'],
+      args: [
+        '--no-sandbox',
+        '--disable-gpu',
+        '--disable-dev-shm-usage',
+        '--disable-background-networking',
+        '--disable-component-update',
+        '--disable-sync',
+        '--no-first-run',
+        '--disable-quic',
+      ],
     },
   },
-  projects: [
-    { name: 'phone', use: { ...devices['Pixel 7'], browserName: 'chromium' } },
-  ],
+  projects: [{ name: 'phone', use: { ...devices['Pixel 7'], browserName: 'chromium' } }],
   webServer: {
     command: `node --import ./scripts/lib/refuse-trace.mjs node_modules/next/dist/bin/next start -H 127.0.0.1 -p ${port}`,
     url: `${baseURL}/api/health`,

@@ -6,16 +6,22 @@ import { formatDateTime } from '@/lib/shared/display/dates';
 export function OpenQuestions({ questions, empty }: { questions: OpenQuestion[]; empty?: string }) {
   return (
     <section aria-labelledby="open-questions" className="space-y-3">
-      <h2 id="open-questions" className="text-xl font-bold">Open questions{questions.length > 0 && <span className="figure"> ({questions.length})</span>}</h2>
+      <h2 id="open-questions" className="text-xl font-bold">
+        Open questions{questions.length > 0 && <span className="figure"> ({questions.length})</span>}
+      </h2>
       {questions.length === 0 ? (
         <p className="text-stone">{empty ?? 'No question is waiting for an answer.'}</p>
       ) : (
         <ul className="space-y-2" aria-label="Questions waiting for an answer">
           {questions.map((q) => (
             <li key={q.id} className="rounded-md border-2 border-ochre bg-white p-3">
-              <span className="block text-stone"><span className="figure">{formatDateTime(q.at)}</span> · {q.farmerName} · {q.farmName}</span>
+              <span className="block text-stone">
+                <span className="figure">{formatDateTime(q.at)}</span> · {q.farmerName} · {q.farmName}
+              </span>
               <span className="block line-clamp-3 whitespace-pre-line">{q.text}</span>
-              <Link href={`/sheets/${q.visitId}#conversation`} className="mt-1 inline-flex min-h-12 items-center font-bold">Answer on the sheet for {q.farmName}</Link>
+              <Link href={`/sheets/${q.visitId}#conversation`} className="mt-1 inline-flex min-h-12 items-center font-bold">
+                Answer on the sheet for {q.farmName}
+              </Link>
             </li>
           ))}
         </ul>

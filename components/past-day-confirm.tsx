@@ -7,7 +7,12 @@ import { isPastDay } from '@/lib/shared/visit-rules';
  * The tick box a past planned date needs ("Yes, the date is in the past"), drawn only when the
  * chosen day has passed; the schema refuses a past day without it.
  */
-export function PastDayConfirm({ day, field, checked, onChange }: {
+export function PastDayConfirm({
+  day,
+  field,
+  checked,
+  onChange,
+}: {
   day: string | null | undefined;
   field?: UseFormRegisterReturn;
   checked?: boolean;

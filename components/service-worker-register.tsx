@@ -17,17 +17,18 @@ export function ServiceWorkerRegister() {
   useEffect(() => {
     if (process.env.NODE_ENV !== 'production' || !('serviceWorker' in navigator)) return;
     let idle = 0;
-    const register = () => void import('workbox-window').then(({ Workbox }) => {
-      const wb = new Workbox('/sw.js', { scope: '/' });
-      wb.addEventListener('waiting', () => setWaiting(true));
-      // Reload only for an update the person accepted: the first install also takes control
-      // (clientsClaim), and reloading then would throw away whatever they were typing.
-      wb.addEventListener('controlling', () => {
-        if (updateAccepted.current) window.location.reload();
+    const register = () =>
+      void import('workbox-window').then(({ Workbox }) => {
+        const wb = new Workbox('/sw.js', { scope: '/' });
+        wb.addEventListener('waiting', () => setWaiting(true));
+        // Reload only for an update the person accepted: the first install also takes control
+        // (clientsClaim), and reloading then would throw away whatever they were typing.
+        wb.addEventListener('controlling', () => {
+          if (updateAccepted.current) window.location.reload();
+        });
+        workbox.current = wb;
+        void wb.register();
       });
-      workbox.current = wb;
-      void wb.register();
-    });
     // Once the page has loaded and the main thread is free: the first install downloads the whole
     // app for offline use, which must not compete with the page's own first requests and rendering.
     const afterLoad = () => {
@@ -48,12 +49,15 @@ export function ServiceWorkerRegister() {
     <div role="status" className="fixed inset-x-0 bottom-0 z-[1000] border-t-2 border-slate bg-white p-3">
       <div className="mx-auto flex max-w-3xl flex-wrap items-center justify-between gap-2">
         <p className="font-bold">{blocked ? 'Save or finish the reading you are typing first, then update.' : 'A new version of Fallbook is ready.'}</p>
-        <button type="button" className="min-h-12 rounded-md bg-slate px-4 font-bold text-white"
+        <button
+          type="button"
+          className="min-h-12 rounded-md bg-slate px-4 font-bold text-white"
           onClick={() => {
             if (hasUnsavedInput()) return setBlocked(true);
             updateAccepted.current = true;
             workbox.current?.messageSkipWaiting();
-          }}>
+          }}
+        >
           Update now
         </button>
       </div>

@@ -8,7 +8,12 @@ export function SignOutEverywhereButton() {
   const [failed, setFailed] = useState(false);
   async function endAll() {
     setFailed(false);
-    const res = await fetch('/api/me/sessions', { method: 'POST', credentials: 'same-origin', headers: { 'content-type': 'application/json' }, body: '{}' }).catch(() => null);
+    const res = await fetch('/api/me/sessions', {
+      method: 'POST',
+      credentials: 'same-origin',
+      headers: { 'content-type': 'application/json' },
+      body: '{}',
+    }).catch(() => null);
     if (!res || (!res.ok && res.status !== 401)) {
       setFailed(true);
       return;
@@ -20,7 +25,11 @@ export function SignOutEverywhereButton() {
       <button type="button" onClick={() => void endAll()} className="min-h-12 whitespace-nowrap px-1 text-sm font-bold text-slate underline">
         Sign out everywhere
       </button>
-      {failed && <span role="alert" className="text-sm font-bold text-clay">Not done: check the connection and try again.</span>}
+      {failed && (
+        <span role="alert" className="text-sm font-bold text-clay">
+          Not done: check the connection and try again.
+        </span>
+      )}
     </span>
   );
 }

@@ -21,11 +21,23 @@ export function VisitTable({ visits, showAdvisor = true, caption }: { visits: Vi
         <caption className="sr-only">{caption}</caption>
         <thead>
           <tr className="border-b-2 border-ink">
-            <th scope="col" className="py-2 pr-4">Farm</th>
-            <th scope="col" className="py-2 pr-4">Planned</th>
-            {showAdvisor && <th scope="col" className="py-2 pr-4">Advisor</th>}
-            <th scope="col" className="py-2 pr-4">State</th>
-            <th scope="col" className="py-2">Screening</th>
+            <th scope="col" className="py-2 pr-4">
+              Farm
+            </th>
+            <th scope="col" className="py-2 pr-4">
+              Planned
+            </th>
+            {showAdvisor && (
+              <th scope="col" className="py-2 pr-4">
+                Advisor
+              </th>
+            )}
+            <th scope="col" className="py-2 pr-4">
+              State
+            </th>
+            <th scope="col" className="py-2">
+              Screening
+            </th>
           </tr>
         </thead>
         <tbody>
@@ -37,7 +49,9 @@ export function VisitTable({ visits, showAdvisor = true, caption }: { visits: Vi
               </td>
               <td className="figure py-3 pr-4">{formatDay(v.plannedOn)}</td>
               {showAdvisor && <td className="py-3 pr-4">{v.advisor?.name ?? <em>Not assigned</em>}</td>}
-              <td className="py-3 pr-4"><StatusChip status={v.status} /></td>
+              <td className="py-3 pr-4">
+                <StatusChip status={v.status} />
+              </td>
               <td className="py-3">{v.verdict ? <VerdictMark verdict={v.verdict} size={18} /> : <span className="text-stone">Not screened</span>}</td>
             </tr>
           ))}

@@ -35,7 +35,10 @@ export async function up({ context: qi }: Ctx) {
     id,
     organisation_id: ownedBy('organisations'),
     owner_id: {
-      type: DataTypes.UUID, allowNull: true, references: { model: 'users', key: 'id' }, onDelete: 'SET NULL',
+      type: DataTypes.UUID,
+      allowNull: true,
+      references: { model: 'users', key: 'id' },
+      onDelete: 'SET NULL',
     },
     name: { type: DataTypes.STRING(160), allowNull: false },
     area: { type: DataTypes.STRING(160), allowNull: false, defaultValue: '' },
@@ -53,7 +56,10 @@ export async function up({ context: qi }: Ctx) {
     organisation_id: ownedBy('organisations'),
     farm_id: ownedBy('farms'),
     advisor_id: {
-      type: DataTypes.UUID, allowNull: true, references: { model: 'users', key: 'id' }, onDelete: 'SET NULL',
+      type: DataTypes.UUID,
+      allowNull: true,
+      references: { model: 'users', key: 'id' },
+      onDelete: 'SET NULL',
     },
     planned_on: { type: DataTypes.DATEONLY, allowNull: true },
     status: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'requested' },

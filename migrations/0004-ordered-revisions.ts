@@ -20,7 +20,8 @@ export async function up({ context: qi }: Ctx) {
   // gone (deleted, or their tables reverted), and a counter that went back would hand out numbers
   // below a phone's pull cursor, so the phone would never see those changes.
   const [seq] = await qi.sequelize.query(
-    "SELECT COUNT(*) AS n FROM information_schema.tables WHERE table_schema = DATABASE() AND table_name = 'change_rev' AND table_type = 'SEQUENCE'");
+    "SELECT COUNT(*) AS n FROM information_schema.tables WHERE table_schema = DATABASE() AND table_name = 'change_rev' AND table_type = 'SEQUENCE'",
+  );
   let issued = 0;
   if (Number((seq as { n: number | string }[])[0]?.n ?? 0) > 0) {
     const [next] = await qi.sequelize.query('SELECT next_not_cached_value AS n FROM change_rev');

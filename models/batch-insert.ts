@@ -4,7 +4,13 @@ import type { Model, ModelStatic, Transaction } from 'sequelize';
 // every value into one SQL string) cost more than the database's own work. These go through the
 // transaction's own connection as one prepared statement executed in bulk (the connector's batch).
 
-export interface Column { attribute: string; field: string; json: boolean; date: boolean; decimal: boolean }
+export interface Column {
+  attribute: string;
+  field: string;
+  json: boolean;
+  date: boolean;
+  decimal: boolean;
+}
 
 const columnCache = new WeakMap<ModelStatic<Model>, Column[]>();
 
@@ -64,7 +70,9 @@ let observer: StatementObserver | null = null;
  */
 export function observeStatements(fn: StatementObserver): () => void {
   observer = fn;
-  return () => { observer = null; };
+  return () => {
+    observer = null;
+  };
 }
 
 /** The connection a transaction runs on; only mariadb connections carry `batch`. */
@@ -74,8 +82,14 @@ export function txConnection(transaction: Transaction): TxConnection {
   if (!observer) return connection;
   const seen = observer;
   return {
-    query: (sql, values) => { seen(sql, values); return connection.query(sql, values); },
-    batch: (sql, values) => { seen(sql, values[0]); return connection.batch(sql, values); },
+    query: (sql, values) => {
+      seen(sql, values);
+      return connection.query(sql, values);
+    },
+    batch: (sql, values) => {
+      seen(sql, values[0]);
+      return connection.batch(sql, values);
+    },
   };
 }
 
@@ -87,12 +101,19 @@ export const quote = (name: string) => `\`${name.replace(/`/g, '``')}\``;
  * Timestamps are the caller's: nothing here fills them in.
  */
 export async function batchInsert(
-  model: ModelStatic<Model>, rows: Record<string, unknown>[], transaction: Transaction, updateOnDuplicate: string[] = [],
+  model: ModelStatic<Model>,
+  rows: Record<string, unknown>[],
+  transaction: Transaction,
+  updateOnDuplicate: string[] = [],
 ): Promise<void> {
   if (rows.length === 0) return;
   const columns = columnsOf(model).filter((c) => rows.some((r) => r[c.attribute] !== undefined));
   const updates = columns.filter((c) => updateOnDuplicate.includes(c.attribute));
-  const sql = `INSERT INTO ${quote(model.getTableName() as string)} (${columns.map((c) => quote(c.field)).join(', ')}) VALUES (${columns.map(() => '?').join(', ')})`
-    + (updates.length ? ` ON DUPLICATE KEY UPDATE ${updates.map((c) => `${quote(c.field)} = VALUES(${quote(c.field)})`).join(', ')}` : '');
-  await txConnection(transaction).batch(sql, rows.map((r) => columns.map((c) => cell(c, r[c.attribute]))));
+  const sql =
+    `INSERT INTO ${quote(model.getTableName() as string)} (${columns.map((c) => quote(c.field)).join(', ')}) VALUES (${columns.map(() => '?').join(', ')})` +
+    (updates.length ? ` ON DUPLICATE KEY UPDATE ${updates.map((c) => `${quote(c.field)} = VALUES(${quote(c.field)})`).join(', ')}` : '');
+  await txConnection(transaction).batch(
+    sql,
+    rows.map((r) => columns.map((c) => cell(c, r[c.attribute]))),
+  );
 }

@@ -1,6 +1,4 @@
-import {
-  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize,
-} from 'sequelize';
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
 /** What an installed ram measured at commissioning, with the engine's check against its screening. */
 export class Commissioning extends Model<InferAttributes<Commissioning>, InferCreationAttributes<Commissioning>> {

@@ -1,6 +1,4 @@
-import {
-  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize,
-} from 'sequelize';
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
 /** What the farmer said before the visit that is not a demand line: where the tank should go. */
 export class FarmNeed extends Model<InferAttributes<FarmNeed>, InferCreationAttributes<FarmNeed>> {

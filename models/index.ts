@@ -25,8 +25,22 @@ import { Visit } from './visit';
 import { WaterSource } from './water-source';
 
 export {
-  AuditEntry, DemandLine, FallReading, Farm, FlowMeasurement, Invitation, Organisation, Photo, PipeRun, Point,
-  Screening, SignInAttempt, SyncOp, User, Visit, WaterSource,
+  AuditEntry,
+  DemandLine,
+  FallReading,
+  Farm,
+  FlowMeasurement,
+  Invitation,
+  Organisation,
+  Photo,
+  PipeRun,
+  Point,
+  Screening,
+  SignInAttempt,
+  SyncOp,
+  User,
+  Visit,
+  WaterSource,
 };
 export { Commissioning, EndedSession, FarmNeed, SheetResponse, SheetSend };
 export { batchInsert, buildRow, observeStatements, PlainRow, selectRows, txConnection };
@@ -68,7 +82,9 @@ export async function reserveRevs(transaction: Transaction | null | undefined, c
   reserved.set(transaction, blocks);
   let cursor = first;
   return {
-    first, last, take() {
+    first,
+    last,
+    take() {
       if (cursor > last) throw new Error('revision block used up');
       return cursor++;
     },
@@ -80,7 +96,9 @@ const reserved = new WeakMap<Transaction, [number, number][]>();
 // The statement's own answer carries the value LAST_INSERT_ID(expr) set (the OK packet's insert
 // id, as mysql_insert_id() reports it): one round trip under the lock instead of two.
 async function takeRevs(transaction: Transaction, count: number): Promise<number> {
-  const ok = await txConnection(transaction).query<{ insertId?: number | bigint }>('UPDATE rev_counter SET value = LAST_INSERT_ID(value + ?) WHERE id = 1', [count]);
+  const ok = await txConnection(transaction).query<{ insertId?: number | bigint }>('UPDATE rev_counter SET value = LAST_INSERT_ID(value + ?) WHERE id = 1', [
+    count,
+  ]);
   const top = Number(ok.insertId);
   if (!Number.isSafeInteger(top) || top < count) throw new Error(`rev_counter answered ${String(ok.insertId)}`);
   return top;
@@ -96,7 +114,10 @@ type RowValues = { get(key: string): unknown; get(options: { plain: true }): unk
  * block this transaction reserved (so the counter lock is held until the commit).
  */
 export async function writeSyncedRows(
-  model: ModelStatic<Model>, rows: { created: RowValues[]; updated: RowValues[] }, fields: string[], transaction: Transaction,
+  model: ModelStatic<Model>,
+  rows: { created: RowValues[]; updated: RowValues[] },
+  fields: string[],
+  transaction: Transaction,
 ): Promise<void> {
   if (!syncedModels.includes(model as never)) throw new Error(`${model.name} is not a synced model`);
   const blocks = reserved.get(transaction) ?? [];
@@ -107,10 +128,11 @@ export async function writeSyncedRows(
     }
   }
   const now = new Date();
-  const values = (list: RowValues[], created: boolean) => list.map((row) => {
-    const plain = row.get({ plain: true }) as Record<string, unknown>;
-    return { ...plain, ...(created ? { createdAt: now } : {}), updatedAt: now };
-  });
+  const values = (list: RowValues[], created: boolean) =>
+    list.map((row) => {
+      const plain = row.get({ plain: true }) as Record<string, unknown>;
+      return { ...plain, ...(created ? { createdAt: now } : {}), updatedAt: now };
+    });
   // A duplicate id among the new rows fails the insert (the batch retries into a conflict).
   await Promise.all([
     batchInsert(model, values(rows.created, true), transaction),
@@ -137,10 +159,29 @@ export function initModels(sequelize: Sequelize) {
   if (initialised === sequelize) return;
   initialised = sequelize;
   for (const model of [
-    Organisation, User, Farm, Visit, WaterSource, FlowMeasurement, FallReading, Point, Photo,
-    DemandLine, PipeRun, Screening, AuditEntry, SyncOp, SignInAttempt, Invitation,
-    SheetSend, SheetResponse, FarmNeed, Commissioning, EndedSession,
-  ]) model.initModel(sequelize);
+    Organisation,
+    User,
+    Farm,
+    Visit,
+    WaterSource,
+    FlowMeasurement,
+    FallReading,
+    Point,
+    Photo,
+    DemandLine,
+    PipeRun,
+    Screening,
+    AuditEntry,
+    SyncOp,
+    SignInAttempt,
+    Invitation,
+    SheetSend,
+    SheetResponse,
+    FarmNeed,
+    Commissioning,
+    EndedSession,
+  ])
+    model.initModel(sequelize);
 
   Organisation.hasMany(User, { foreignKey: 'organisationId' });
   User.belongsTo(Organisation, { foreignKey: 'organisationId' });
@@ -165,8 +206,7 @@ export function initModels(sequelize: Sequelize) {
 function addExposureHook() {
   Visit.addHook('beforeSave', (visit: Visit) => {
     const previous = visit.previous('status');
-    const intoField = visit.changed('status') && FIELD_VISIT_STATUSES.includes(visit.status)
-      && !(previous && FIELD_VISIT_STATUSES.includes(previous));
+    const intoField = visit.changed('status') && FIELD_VISIT_STATUSES.includes(visit.status) && !(previous && FIELD_VISIT_STATUSES.includes(previous));
     if (visit.isNewRecord || visit.changed('advisorId') || visit.changed('deletedAt') || intoField) visit.exposedRev = visit.rev;
   });
 }

@@ -20,10 +20,18 @@ export class PlainRow {
     else Object.assign(this.values, key);
   }
 
-  get id(): string { return this.values.id as string; }
-  get rev(): number { return Number(this.values.rev); }
-  get deletedAt(): Date | null { return (this.values.deletedAt as Date | null | undefined) ?? null; }
-  get updatedAt(): Date { return this.values.updatedAt as Date; }
+  get id(): string {
+    return this.values.id as string;
+  }
+  get rev(): number {
+    return Number(this.values.rev);
+  }
+  get deletedAt(): Date | null {
+    return (this.values.deletedAt as Date | null | undefined) ?? null;
+  }
+  get updatedAt(): Date {
+    return this.values.updatedAt as Date;
+  }
 }
 
 const staticDefaults = new WeakMap<ModelStatic<Model>, Values>();
@@ -90,7 +98,7 @@ export async function selectRows(sequelize: Sequelize, model: ModelStatic<Model>
   const { list, json } = selectOf(model);
   const sql = `SELECT ${list} FROM ${quote(model.getTableName() as string)} WHERE ${options.where}${options.lock ? ' FOR UPDATE' : ''}`;
   const rows = options.transaction
-    ? [...await txConnection(options.transaction).query<Values[]>(sql, options.replacements)]
+    ? [...(await txConnection(options.transaction).query<Values[]>(sql, options.replacements))]
     : await sequelize.query<Values>(sql, { type: QueryTypes.SELECT, raw: true, replacements: options.replacements });
   return rows.map((row) => {
     for (const key of json) {

@@ -1,6 +1,4 @@
-import {
-  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize,
-} from 'sequelize';
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
 /** acknowledged: "I have read it"; go-ahead / not-now: the farmer's decision; question; answer (staff). */
 export type SheetResponseKind = 'acknowledged' | 'go-ahead' | 'not-now' | 'question' | 'answer';

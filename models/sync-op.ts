@@ -1,6 +1,4 @@
-import {
-  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize,
-} from 'sequelize';
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
 /** An operation id the server has applied: replaying the same op returns the stored outcome. */
 export class SyncOp extends Model<InferAttributes<SyncOp>, InferCreationAttributes<SyncOp>> {

@@ -28,8 +28,10 @@ const { stopDatabase } = await import('./lib/mariadb.mjs');
 const wanted = process.argv.slice(2).filter((a) => !a.startsWith('-'));
 const benchDir = path.join(root, 'tests', 'bench');
 const tsx = path.join(root, 'node_modules', 'tsx', 'dist', 'cli.mjs');
-const files = readdirSync(benchDir).filter((f) => f.endsWith('.bench.ts'))
-  .filter((f) => wanted.length === 0 || wanted.some((w) => f.startsWith(w))).sort();
+const files = readdirSync(benchDir)
+  .filter((f) => f.endsWith('.bench.ts'))
+  .filter((f) => wanted.length === 0 || wanted.some((w) => f.startsWith(w)))
+  .sort();
 
 /** Runs a bench with its output shown as it comes; resolves with its exit status and stdout. */
 function runStreaming(args, env) {
@@ -91,6 +93,10 @@ writeFileSync(resultsFile, `${JSON.stringify(out, null, 2)}\n`);
 console.log('\nfigures');
 console.table(results.flatMap((r) => (r.rows ?? []).map((row) => ({ bench: r.bench, ...row }))));
 console.log('budgets');
-console.table(budgets.map((b) => ({ bench: b.bench, budget: b.name, value: b.value, limit: `${b.op} ${b.limit}`, unit: b.unit ?? '', met: b.met ? 'yes' : 'MISSED' })));
-log(`wrote bench/results.json (${results.length} bench result(s), ${failed} failed, ${budgets.length - missed.length}/${budgets.length} budgets met) in ${((Date.now() - started) / 1000).toFixed(0)} s`);
+console.table(
+  budgets.map((b) => ({ bench: b.bench, budget: b.name, value: b.value, limit: `${b.op} ${b.limit}`, unit: b.unit ?? '', met: b.met ? 'yes' : 'MISSED' })),
+);
+log(
+  `wrote bench/results.json (${results.length} bench result(s), ${failed} failed, ${budgets.length - missed.length}/${budgets.length} budgets met) in ${((Date.now() - started) / 1000).toFixed(0)} s`,
+);
 process.exit(failed > 0 || missed.length > 0 ? 1 : 0);

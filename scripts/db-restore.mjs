@@ -27,8 +27,10 @@ try {
   await ensureDatabase(db);
   const present = await listTables(db);
   if (present.length && !values.force) {
-    fail(`database ${db.name} is not empty (${present.length} tables); nothing was changed. ` +
-      'Restoring replaces everything in it: run again with --force to do so (take a backup first).');
+    fail(
+      `database ${db.name} is not empty (${present.length} tables); nothing was changed. ` +
+        'Restoring replaces everything in it: run again with --force to do so (take a backup first).',
+    );
   }
   const started = Date.now();
   if (present.length) await emptyDatabase(db);

@@ -10,6 +10,8 @@ for (const size of [192, 512]) {
 // Maskable: the drawing inside the central 80 % safe zone, on the slate ground.
 const inner = await sharp(svg, { density: 300 }).resize(400, 400).png().toBuffer();
 await sharp({ create: { width: 512, height: 512, channels: 4, background: '#1E3A4C' } })
-  .composite([{ input: inner, gravity: 'center' }]).png().toFile('public/icons/maskable-512.png');
+  .composite([{ input: inner, gravity: 'center' }])
+  .png()
+  .toFile('public/icons/maskable-512.png');
 await sharp(svg, { density: 300 }).resize(180, 180).png().toFile('public/icons/apple-touch-icon.png');
 console.log('icons written to public/icons/');

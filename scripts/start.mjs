@@ -23,10 +23,14 @@ ensureBuild();
 
 const port = process.env.PORT || '3000';
 const host = process.env.HOST || '127.0.0.1';
-const next = spawn(process.execPath, ['--import', pathToFileURL(path.join(root, 'scripts/lib/refuse-trace.mjs')).href, nodeBin('next/dist/bin/next'), 'start', '-H', host, '-p', port], {
-  stdio: 'inherit',
-  env: { ...process.env, NODE_ENV: 'production' },
-});
+const next = spawn(
+  process.execPath,
+  ['--import', pathToFileURL(path.join(root, 'scripts/lib/refuse-trace.mjs')).href, nodeBin('next/dist/bin/next'), 'start', '-H', host, '-p', port],
+  {
+    stdio: 'inherit',
+    env: { ...process.env, NODE_ENV: 'production' },
+  },
+);
 
 // The scheduled jobs (the daily digest) run in a process of their own beside the app: one per start,
 // however many app servers share the database.

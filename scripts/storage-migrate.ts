@@ -13,7 +13,10 @@ async function main(args: string[]) {
   if (settings.bucket.length < 3) throw new Error('Set S3_BUCKET (and S3_ENDPOINT, S3_REGION, keys) in .env first.');
   console.log(`[fallbook] copying photos from ${process.env.PHOTO_DIR ?? '.data/photos'} to bucket ${settings.bucket}…`);
   const report = await copyPhotos(localPhotoStorage(), s3Storage(settings), {
-    limit, onPhoto: (n) => { if (n % 100 === 0) console.log(`[fallbook] ${n} photos done`); },
+    limit,
+    onPhoto: (n) => {
+      if (n % 100 === 0) console.log(`[fallbook] ${n} photos done`);
+    },
   });
   console.log(`[fallbook] ${report.photos} photos: ${report.copied} objects copied, ${report.present} already there`);
   for (const problem of report.problems) console.warn(`[fallbook] not copied: ${problem}`);

@@ -34,12 +34,24 @@ function readJson(file) {
 }
 
 try {
+  if (wants('unit') && filters.length === 0) {
+    // One formatter for the code: a file Prettier would change is a failure.
+    const code = await runAsync(process.execPath, [nodeBin('prettier/bin/prettier.cjs'), '--check', '--log-level', 'warn', '.']);
+    if (code === 0) totals.passed += 1;
+    else totals.failed += 1;
+    log(`format: ${code === 0 ? 'every file as Prettier writes it' : 'files above differ from Prettier (npm run format fixes them)'}`);
+  }
   const projects = ['unit', 'integration'].filter(wants);
   if (projects.length) {
     const out = path.join(results, 'vitest.json');
     const code = await runAsync(process.execPath, [
-      nodeBin('vitest/vitest.mjs'), 'run', ...projects.flatMap((p) => ['--project', p]),
-      '--reporter=default', '--reporter=json', `--outputFile.json=${out}`, ...filters,
+      nodeBin('vitest/vitest.mjs'),
+      'run',
+      ...projects.flatMap((p) => ['--project', p]),
+      '--reporter=default',
+      '--reporter=json',
+      `--outputFile.json=${out}`,
+      ...filters,
     ]);
     const report = readJson(out);
     const passed = report?.numPassedTests ?? 0;

@@ -17,10 +17,19 @@ declare const self: ServiceWorkerGlobalScope;
 
 // The field pages' payloads for in-app navigation (RSC), kept by path: a field page is the same static
 // page whatever its query string, so one payload serves every visit, online or not.
-const FIELD_PAGES = ['/field', '/field/sync', '/field/visit', ...['commission', 'demand', 'fall', 'flow', 'photos', 'pipes', 'points', 'positions'].map((p) => `/field/visit/${p}`)];
+const FIELD_PAGES = [
+  '/field',
+  '/field/sync',
+  '/field/visit',
+  ...['commission', 'demand', 'fall', 'flow', 'photos', 'pipes', 'points', 'positions'].map((p) => `/field/visit/${p}`),
+];
 const FIELD_RSC_CACHE = 'fallbook-field-rsc';
 const isFieldRsc = (request: Request, url: URL) =>
-  request.method === 'GET' && url.origin === self.location.origin && request.headers.get('RSC') === '1' && request.headers.get('Next-Router-Prefetch') !== '1' && FIELD_PAGES.includes(url.pathname);
+  request.method === 'GET' &&
+  url.origin === self.location.origin &&
+  request.headers.get('RSC') === '1' &&
+  request.headers.get('Next-Router-Prefetch') !== '1' &&
+  FIELD_PAGES.includes(url.pathname);
 
 /** A field page's payload from the network (kept for later), else the one kept: a phone with no signal still navigates in the app. */
 async function fieldRsc(request: Request, url: URL): Promise<Response> {
@@ -41,10 +50,12 @@ async function fieldRsc(request: Request, url: URL): Promise<Response> {
 /** Fetches every field page's payload once, so navigation works offline even to a page not yet opened. */
 async function keepFieldPayloads(): Promise<void> {
   const cache = await caches.open(FIELD_RSC_CACHE);
-  await Promise.all(FIELD_PAGES.map(async (path) => {
-    const res = await fetch(path, { headers: { RSC: '1' } }).catch(() => null);
-    if (res?.ok && (res.headers.get('content-type') ?? '').includes('text/x-component')) await cache.put(path, res);
-  }));
+  await Promise.all(
+    FIELD_PAGES.map(async (path) => {
+      const res = await fetch(path, { headers: { RSC: '1' } }).catch(() => null);
+      if (res?.ok && (res.headers.get('content-type') ?? '').includes('text/x-component')) await cache.put(path, res);
+    }),
+  );
 }
 
 // Registered before Serwist's listeners, so a navigation payload is never answered with the precached HTML page.
@@ -80,15 +91,19 @@ const serwist = new Serwist({
   },
 });
 
-interface SyncEvent extends ExtendableEvent { tag: string }
+interface SyncEvent extends ExtendableEvent {
+  tag: string;
+}
 
 self.addEventListener('sync', (event) => {
   const e = event as SyncEvent;
   if (e.tag !== SYNC_NAME) return;
   // Reject when the run failed, so the browser schedules another attempt.
-  e.waitUntil(runSync().then((outcome) => {
-    if ('ok' in outcome && !outcome.ok) throw new Error(outcome.message ?? 'sync failed');
-  }));
+  e.waitUntil(
+    runSync().then((outcome) => {
+      if ('ok' in outcome && !outcome.ok) throw new Error(outcome.message ?? 'sync failed');
+    }),
+  );
 });
 
 // The sync worker's script is precached without its query string, but Turbopack's worker bootstrap

@@ -2,7 +2,12 @@
 
 /** An error answer from an API route: status, code, message and per-field messages. */
 export class ApiError extends Error {
-  constructor(readonly status: number, readonly code: string, message: string, readonly fieldErrors: Record<string, string[]> = {}) {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly fieldErrors: Record<string, string[]> = {},
+  ) {
     super(message);
     this.name = 'ApiError';
   }

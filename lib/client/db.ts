@@ -14,7 +14,16 @@ export type LocalRecord<E extends SyncEntity> = EntityFields<E> & {
 };
 
 export type LocalVisit = LocalRecord<'visit'> & { farmId: string; plannedOn: string | null; advisorId: string | null };
-export interface LocalFarm { id: string; rev: number; name: string; area: string; lat: number | null; lon: number | null; notes: string; ownerName: string | null }
+export interface LocalFarm {
+  id: string;
+  rev: number;
+  name: string;
+  area: string;
+  lat: number | null;
+  lon: number | null;
+  notes: string;
+  ownerName: string | null;
+}
 
 export type OutboxStatus = 'pending' | 'conflict' | 'rejected';
 
@@ -45,7 +54,10 @@ export interface PhotoBlob {
   lastError?: { status: number; message: string } | null;
 }
 
-export interface MetaEntry { key: string; value: unknown }
+export interface MetaEntry {
+  key: string;
+  value: unknown;
+}
 
 export type StoredUser = SessionUser;
 

@@ -43,8 +43,12 @@ export async function homeVisits(db: FieldDatabase) {
   return {
     // Before the phone's first sync an empty list means "not fetched yet", not "none assigned".
     synced: (await db.meta.get('lastRun')) !== undefined,
-    rows: rows.map((v): LocalVisit & { farm: LocalFarm | undefined; waiting: number; parked: number } => (
-      { ...v, farm: farms.get(v.farmId), waiting: waiting.get(v.id) ?? 0, parked: parked.get(v.id) ?? 0 })),
+    rows: rows.map((v): LocalVisit & { farm: LocalFarm | undefined; waiting: number; parked: number } => ({
+      ...v,
+      farm: farms.get(v.farmId),
+      waiting: waiting.get(v.id) ?? 0,
+      parked: parked.get(v.id) ?? 0,
+    })),
   };
 }
 

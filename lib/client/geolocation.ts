@@ -1,5 +1,12 @@
 // Position fixes from the phone: watch until the accuracy is good enough or the person accepts.
-export interface Fix { lat: number; lon: number; accuracyM: number; altitudeM: number | null; altitudeAccuracyM: number | null; at: string }
+export interface Fix {
+  lat: number;
+  lon: number;
+  accuracyM: number;
+  altitudeM: number | null;
+  altitudeAccuracyM: number | null;
+  at: string;
+}
 
 export const GOOD_FIX_M = 10;
 
@@ -10,11 +17,21 @@ export function watchFix(onFix: (fix: Fix) => void, onError: (message: string) =
     return () => undefined;
   }
   const id = navigator.geolocation.watchPosition(
-    (p) => onFix({
-      lat: p.coords.latitude, lon: p.coords.longitude, accuracyM: p.coords.accuracy,
-      altitudeM: p.coords.altitude, altitudeAccuracyM: p.coords.altitudeAccuracy, at: new Date(p.timestamp).toISOString(),
-    }),
-    (e) => onError(e.code === e.PERMISSION_DENIED ? 'Location is blocked for this site: allow it in the browser, or type the coordinates.' : 'No location fix yet: keep the phone in the open sky, or type the coordinates.'),
+    (p) =>
+      onFix({
+        lat: p.coords.latitude,
+        lon: p.coords.longitude,
+        accuracyM: p.coords.accuracy,
+        altitudeM: p.coords.altitude,
+        altitudeAccuracyM: p.coords.altitudeAccuracy,
+        at: new Date(p.timestamp).toISOString(),
+      }),
+    (e) =>
+      onError(
+        e.code === e.PERMISSION_DENIED
+          ? 'Location is blocked for this site: allow it in the browser, or type the coordinates.'
+          : 'No location fix yet: keep the phone in the open sky, or type the coordinates.',
+      ),
     { enableHighAccuracy: true, maximumAge: 0, timeout: 60_000 },
   );
   return () => navigator.geolocation.clearWatch(id);
@@ -23,7 +40,13 @@ export function watchFix(onFix: (fix: Fix) => void, onError: (message: string) =
 /** A fix older than this is not taken for a new booking (the advisor has walked on). */
 export const FRESH_FIX_MS = 2 * 60_000;
 
-export interface FixFields { lat: number | null; lon: number | null; accuracyM: number | null; altitudeM: number | null; altitudeAccuracyM: number | null }
+export interface FixFields {
+  lat: number | null;
+  lon: number | null;
+  accuracyM: number | null;
+  altitudeM: number | null;
+  altitudeAccuracyM: number | null;
+}
 
 /** The position fields of a record booked now: the latest fix when fresh, otherwise none (never a stale place). */
 export function fixFields(fix: Fix | null, now: number = Date.now()): FixFields {

@@ -105,19 +105,21 @@ async function keepOnce(db: FieldDatabase): Promise<OfflineTiles> {
   const missing = [...wanted].filter(([url]) => !cachedUrls.has(url));
   let offline = false;
   let next = 0;
-  await Promise.all(Array.from({ length: Math.min(PARALLEL, missing.length) }, async () => {
-    while (!offline && next < missing.length) {
-      const [url, key] = missing[next++]!;
-      const res = await fetchTile(url);
-      if (!res) {
-        if (typeof navigator !== 'undefined' && navigator.onLine === false) offline = true;
-        continue;
+  await Promise.all(
+    Array.from({ length: Math.min(PARALLEL, missing.length) }, async () => {
+      while (!offline && next < missing.length) {
+        const [url, key] = missing[next++]!;
+        const res = await fetchTile(url);
+        if (!res) {
+          if (typeof navigator !== 'undefined' && navigator.onLine === false) offline = true;
+          continue;
+        }
+        const bytes = (await res.clone().blob()).size;
+        await cache.put(url, res);
+        sizes[key] = bytes;
       }
-      const bytes = (await res.clone().blob()).size;
-      await cache.put(url, res);
-      sizes[key] = bytes;
-    }
-  }));
+    }),
+  );
 
   const manifest: OfflineTiles = { template: TILE_TEMPLATE, at: new Date().toISOString(), visits: {}, total: { tiles: 0, bytes: 0 }, sizes };
   for (const key of Object.keys(sizes)) {
@@ -126,7 +128,9 @@ async function keepOnce(db: FieldDatabase): Promise<OfflineTiles> {
   }
   const kept = new Set(plan.tiles.map(tileKey));
   for (const visit of visits) {
-    const mine = visitTiles(visit.places).map(tileKey).filter((k) => kept.has(k));
+    const mine = visitTiles(visit.places)
+      .map(tileKey)
+      .filter((k) => kept.has(k));
     manifest.visits[visit.id] = {
       planned: mine.length,
       kept: mine.filter((k) => k in sizes).length,

@@ -20,7 +20,10 @@ export class QuotaError extends Error {
  * units), and unusual values still to be confirmed. Nothing was written.
  */
 export class RecordRefused extends Error {
-  constructor(readonly messages: Record<string, string>, readonly unusual: Unusual[]) {
+  constructor(
+    readonly messages: Record<string, string>,
+    readonly unusual: Unusual[],
+  ) {
     super(Object.values(messages)[0] ?? unusual[0]?.message ?? 'This record cannot be saved.');
     this.name = 'RecordRefused';
   }
@@ -60,7 +63,12 @@ type AnyRecord = LocalRecord<SyncEntity> & Record<string, unknown>;
  * changed, the values they had before (for the server's conflict check) and the base revision.
  * Returns the queued op, or null when nothing changed.
  */
-export async function saveRecord<E extends SyncEntity>(entity: E, id: string, fields: Partial<EntityFields<E>>, units: UnitSystem = 'metric'): Promise<SyncOp | null> {
+export async function saveRecord<E extends SyncEntity>(
+  entity: E,
+  id: string,
+  fields: Partial<EntityFields<E>>,
+  units: UnitSystem = 'metric',
+): Promise<SyncOp | null> {
   const db = fieldDb();
   const table = db.table(TABLE_OF[entity]) as Table<AnyRecord, string>;
   try {
@@ -82,10 +90,15 @@ export async function saveRecord<E extends SyncEntity>(entity: E, id: string, fi
       if (refused) throw refused;
       await table.put(record);
       const op = {
-        opId: newId(), entity, entityId: id, action: 'put', madeAt: now,
+        opId: newId(),
+        entity,
+        entityId: id,
+        action: 'put',
+        madeAt: now,
         // A phone-made record not yet acknowledged has rev 0: later edits are updates on top of it.
         baseRev: existing ? existing.rev : null,
-        changes, base,
+        changes,
+        base,
       } as SyncOp;
       await db.outbox.add(entryFor(op, visitIdOf(entity, record, id)));
       return op;

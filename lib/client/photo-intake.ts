@@ -25,7 +25,9 @@ function currentFix(timeoutMs = 5000): Promise<{ lat: number; lon: number } | nu
 /** Reads a picked file; throws an Error with a plain message when it cannot be used. */
 export async function readPhoto(file: File): Promise<PhotoIntake> {
   if (!(PHOTO_MIME_TYPES as readonly string[]).includes(file.type)) {
-    throw new Error(`${file.name}: only JPEG, PNG or WebP photos can be kept (this is ${file.type || 'an unknown type'}). On an iPhone, set the camera to "Most compatible".`);
+    throw new Error(
+      `${file.name}: only JPEG, PNG or WebP photos can be kept (this is ${file.type || 'an unknown type'}). On an iPhone, set the camera to "Most compatible".`,
+    );
   }
   if (file.size > MAX_PHOTO_BYTES) throw new Error(`${file.name} is larger than ${MAX_PHOTO_BYTES / 1024 / 1024} MB.`);
   const data = await file.arrayBuffer();
@@ -50,8 +52,14 @@ export async function readPhoto(file: File): Promise<PhotoIntake> {
   return {
     data,
     fields: {
-      mime: file.type as EntityFields<'photo'>['mime'], bytes: data.byteLength, sha256: await sha256Hex(data),
-      width: null, height: null, lat, lon, takenAt: takenAt ?? new Date(file.lastModified || Date.now()).toISOString(),
+      mime: file.type as EntityFields<'photo'>['mime'],
+      bytes: data.byteLength,
+      sha256: await sha256Hex(data),
+      width: null,
+      height: null,
+      lat,
+      lon,
+      takenAt: takenAt ?? new Date(file.lastModified || Date.now()).toISOString(),
     },
   };
 }

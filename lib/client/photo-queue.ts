@@ -8,10 +8,7 @@ import type { FieldDatabase, PhotoBlob } from './db';
  * value is not a key (null is not), so the `uploadedAt` index holds exactly the uploaded photos.
  */
 export async function waitingPhotoIds(db: FieldDatabase): Promise<string[]> {
-  const [all, uploaded] = await Promise.all([
-    db.photoBlobs.toCollection().primaryKeys(),
-    db.photoBlobs.where('uploadedAt').aboveOrEqual('').primaryKeys(),
-  ]);
+  const [all, uploaded] = await Promise.all([db.photoBlobs.toCollection().primaryKeys(), db.photoBlobs.where('uploadedAt').aboveOrEqual('').primaryKeys()]);
   const sent = new Set(uploaded);
   return all.filter((id) => !sent.has(id));
 }

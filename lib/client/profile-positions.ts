@@ -25,18 +25,26 @@ export const levelOf = (p: LocalRecord<'point'>): number | null => p.reducedLeve
 export async function localProfile(visitId: string): Promise<LocalProfile> {
   const points = live(await fieldDb().points.where('visitId').equals(visitId).toArray());
   const rows = points.filter((p) => p.role === 'station');
-  const stations = rows.flatMap((p) => {
-    const level = levelOf(p);
-    return p.chainageM !== null && level !== null
-      ? [{ id: p.id, label: p.label, chainageM: p.chainageM, levelM: level, flags: p.flags ?? [], point: p }]
-      : [];
-  }).sort((a, b) => a.chainageM - b.chainageM);
+  const stations = rows
+    .flatMap((p) => {
+      const level = levelOf(p);
+      return p.chainageM !== null && level !== null
+        ? [{ id: p.id, label: p.label, chainageM: p.chainageM, levelM: level, flags: p.flags ?? [], point: p }]
+        : [];
+    })
+    .sort((a, b) => a.chainageM - b.chainageM);
   const readings = await localSiteReadings(visitId);
-  const base = readings ? {
-    flowMeasurements: readings.flowMeasurements, demand: readings.demand, settings: readings.settings,
-    drivePipeMaterial: readings.drivePipe?.material, deliveryPipe: readings.deliveryPipe ? { material: readings.deliveryPipe.material } : undefined,
-    samples: 2000, rankingSamples: 200,
-  } : null;
+  const base = readings
+    ? {
+        flowMeasurements: readings.flowMeasurements,
+        demand: readings.demand,
+        settings: readings.settings,
+        drivePipeMaterial: readings.drivePipe?.material,
+        deliveryPipe: readings.deliveryPipe ? { material: readings.deliveryPipe.material } : undefined,
+        samples: 2000,
+        rankingSamples: 200,
+      }
+    : null;
   return { stations, incomplete: rows.length - stations.length, tankPoint: points.find((p) => p.role === 'tank') ?? null, base };
 }
 
@@ -44,9 +52,13 @@ async function upsertPoint(visitId: string, role: 'intake' | 'pump', station: Pr
   const existing = live(await fieldDb().points.where('visitId').equals(visitId).toArray()).find((p) => p.role === role);
   const fields = {
     label: `Station at ${showQuantity(station.chainageM, 'chainage', units)}${station.label ? ` (${station.label})` : ''}`.slice(0, 120),
-    chainageM: station.chainageM, reducedLevelM: station.levelM,
-    lat: station.point?.lat ?? null, lon: station.point?.lon ?? null, accuracyM: station.point?.accuracyM ?? null,
-    altitudeM: station.point?.altitudeM ?? null, altitudeAccuracyM: station.point?.altitudeAccuracyM ?? null,
+    chainageM: station.chainageM,
+    reducedLevelM: station.levelM,
+    lat: station.point?.lat ?? null,
+    lon: station.point?.lon ?? null,
+    accuracyM: station.point?.accuracyM ?? null,
+    altitudeM: station.point?.altitudeM ?? null,
+    altitudeAccuracyM: station.point?.altitudeAccuracyM ?? null,
   };
   if (existing) await saveRecord('point', existing.id, fields);
   else await saveRecord('point', newId(), { visitId, role, capturedAt: new Date().toISOString(), flags: null, ...fields });
@@ -56,7 +68,15 @@ async function upsertPipe(visitId: string, purpose: 'drive' | 'delivery' | 'feed
   const existing = live(await fieldDb().pipeRuns.where('visitId').equals(visitId).toArray()).find((p) => p.purpose === purpose);
   const rounded = Math.round(lengthM * 10) / 10;
   if (existing) await saveRecord('pipeRun', existing.id, { lengthM: rounded });
-  else await saveRecord('pipeRun', newId(), { visitId, purpose, lengthM: rounded, diameterMm: null, material: purpose === 'drive' ? 'galvanized-steel' : 'hdpe', pressureClass: null });
+  else
+    await saveRecord('pipeRun', newId(), {
+      visitId,
+      purpose,
+      lengthM: rounded,
+      diameterMm: null,
+      material: purpose === 'drive' ? 'galvanized-steel' : 'hdpe',
+      pressureClass: null,
+    });
 }
 
 /** A pair without a stand pipe has no feed pipe: one left from an earlier arrangement goes. */
@@ -84,6 +104,22 @@ export async function adoptPair(visitId: string, pair: PositionPair, stations: L
   const note = `From the creek profile: intake at ${pair.intake.chainageM} m${stand}, ram at ${pair.pump.chainageM} m, tank at level ${tank.levelM} m.`;
   const takenAt = new Date().toISOString();
   const fall = Math.round(pair.fallM * 1000) / 1000;
-  await saveRecord('fallReading', newId(), { visitId, purpose: 'fall', seq, takenAt, notes: note, bookedFrom: null, run: { method: 'level', rows: levelRowsDropping(fall) } });
-  await saveRecord('fallReading', newId(), { visitId, purpose: 'lift', seq: seq + 1, takenAt, notes: note, bookedFrom: null, run: { method: 'direct', staticLiftM: Math.round(pair.staticLiftM * 1000) / 1000, liftMethod: 'level' } });
+  await saveRecord('fallReading', newId(), {
+    visitId,
+    purpose: 'fall',
+    seq,
+    takenAt,
+    notes: note,
+    bookedFrom: null,
+    run: { method: 'level', rows: levelRowsDropping(fall) },
+  });
+  await saveRecord('fallReading', newId(), {
+    visitId,
+    purpose: 'lift',
+    seq: seq + 1,
+    takenAt,
+    notes: note,
+    bookedFrom: null,
+    run: { method: 'direct', staticLiftM: Math.round(pair.staticLiftM * 1000) / 1000, liftMethod: 'level' },
+  });
 }

@@ -21,7 +21,13 @@ export async function localSiteReadings(visitId: string): Promise<SiteReadingsIn
     getMeta<PullResponse['settings']>('settings'),
   ]);
   return buildSiteReadings({
-    flows, runs, pipes, demand, samples: PHONE_SAMPLES,
-    settings: settings ? { designFractionOfLowest: settings.designFractionOfLowest, minProbabilityForGo: settings.minProbabilityForGo, demandOverrides: settings.demandFigures } : {},
+    flows,
+    runs,
+    pipes,
+    demand,
+    samples: PHONE_SAMPLES,
+    settings: settings
+      ? { designFractionOfLowest: settings.designFractionOfLowest, minProbabilityForGo: settings.minProbabilityForGo, demandOverrides: settings.demandFigures }
+      : {},
   });
 }

@@ -13,7 +13,9 @@ export interface FallbookTestHooks {
 }
 
 declare global {
-  interface Window { __fallbookTest?: FallbookTestHooks }
+  interface Window {
+    __fallbookTest?: FallbookTestHooks;
+  }
 }
 
 /** Puts the hooks on `window.__fallbookTest`. */

@@ -1,5 +1,8 @@
 // Types for security-headers.mjs (plain JS so next.config.mjs can import it).
-export interface HeaderPair { key: string; value: string }
+export interface HeaderPair {
+  key: string;
+  value: string;
+}
 /** The origin of the map tile template, or null. */
 export function tileOrigin(tileUrl: string | undefined): string | null;
 /** The Content-Security-Policy value. */

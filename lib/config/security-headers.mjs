@@ -39,7 +39,9 @@ export function contentSecurityPolicy({ dev = false, tileUrl = '' } = {}) {
     'form-action': ["'self'"],
     'object-src': ["'none'"],
   };
-  return Object.entries(directives).map(([name, values]) => `${name} ${values.join(' ')}`).join('; ');
+  return Object.entries(directives)
+    .map(([name, values]) => `${name} ${values.join(' ')}`)
+    .join('; ');
 }
 
 /** Every security header as Next's `headers()` wants them; HSTS only in production behind https. */

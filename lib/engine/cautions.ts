@@ -26,8 +26,7 @@ export function cautionsFor(f: CautionFacts): Caution[] {
   if (f.pressures) {
     list.push({
       code: 'SURGE_PRESSURE',
-      text:
-        say`In normal running the ram and the lower drive pipe see about ${amount('head', f.pressures.workingPeakHeadM)}; if the delivery is blocked (a shut valve, a float valve, a waterlogged air vessel) they see up to ${amount('head', f.pressures.blockedDeliveryHeadM)}. Use pipe, fittings and a ram rated for the higher figure, start the ram with the delivery open or through a relief valve, put no float valve on the delivery unless it is rated for the blocked pressure, and never stand over the waste valve while adjusting it.`,
+      text: say`In normal running the ram and the lower drive pipe see about ${amount('head', f.pressures.workingPeakHeadM)}; if the delivery is blocked (a shut valve, a float valve, a waterlogged air vessel) they see up to ${amount('head', f.pressures.blockedDeliveryHeadM)}. Use pipe, fittings and a ram rated for the higher figure, start the ram with the delivery open or through a relief valve, put no float valve on the delivery unless it is rated for the blocked pressure, and never stand over the waste valve while adjusting it.`,
     });
     list.push({
       code: 'NOISE',
@@ -37,7 +36,8 @@ export function cautionsFor(f: CautionFacts): Caution[] {
   list.push(
     {
       code: 'WORKING_IN_WATER',
-      text: 'Streams flood, sometimes suddenly: work in and near water only in settled weather and never alone. Keep the intake and pipes clear of flood debris; protect pipes from frost. Steel pipe is heavy; slopes are slippery.' +
+      text:
+        'Streams flood, sometimes suddenly: work in and near water only in settled weather and never alone. Keep the intake and pipes clear of flood debris; protect pipes from frost. Steel pipe is heavy; slopes are slippery.' +
         (f.pressures ? ' The ram must not sit under water; lead its waste water back to the stream.' : ''),
     },
     {

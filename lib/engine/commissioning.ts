@@ -66,26 +66,50 @@ const PLASTIC = ['hdpe', 'pvc', 'pe', 'polyethylene'];
 function causesFor(r: CommissioningReadings, p: CommissioningPrediction | null, etaD: number, short: boolean): LikelyCause[] {
   const out: LikelyCause[] = [];
   // η_D above 1 would mean the ram made energy: a reading is wrong, so no other cause is worth offering.
-  if (etaD > 1) return [{ code: 'readings-impossible', text: 'These readings give more energy out than in (efficiency above 100 %): measure the flows, fall and lift again.' }];
+  if (etaD > 1)
+    return [
+      { code: 'readings-impossible', text: 'These readings give more energy out than in (efficiency above 100 %): measure the flows, fall and lift again.' },
+    ];
   if (r.beatsPerMinute > BEATS_PER_MINUTE_BAND.max) {
-    out.push({ code: 'beats-fast', text: `The ram beats ${r.beatsPerMinute}/min, above ${BEATS_PER_MINUTE_BAND.max}/min: the waste valve stroke is likely too short (lengthen it or add weight) so the drive water never gets up to speed.` });
+    out.push({
+      code: 'beats-fast',
+      text: `The ram beats ${r.beatsPerMinute}/min, above ${BEATS_PER_MINUTE_BAND.max}/min: the waste valve stroke is likely too short (lengthen it or add weight) so the drive water never gets up to speed.`,
+    });
   } else if (r.beatsPerMinute < BEATS_PER_MINUTE_BAND.min) {
-    out.push({ code: 'beats-slow', text: `The ram beats ${r.beatsPerMinute}/min, below ${BEATS_PER_MINUTE_BAND.min}/min: the waste valve stroke is likely too long or too heavy, wasting drive water.` });
+    out.push({
+      code: 'beats-slow',
+      text: `The ram beats ${r.beatsPerMinute}/min, below ${BEATS_PER_MINUTE_BAND.min}/min: the waste valve stroke is likely too long or too heavy, wasting drive water.`,
+    });
   }
   if (!p || !short) return out;
   if (r.driveLpm < LOW_DRIVE_SHARE * p.driveLpm) {
-    out.push({ code: 'drive-low', text: 'Less drive flow than screened: check the intake screen for trash or sand, the water depth over the drive pipe inlet, and whether the creek is lower than when it was measured.' });
+    out.push({
+      code: 'drive-low',
+      text: 'Less drive flow than screened: check the intake screen for trash or sand, the water depth over the drive pipe inlet, and whether the creek is lower than when it was measured.',
+    });
   }
   if (r.liftM > (1 + HIGH_LIFT_SHARE) * p.totalLiftM) {
-    out.push({ code: 'lift-high', text: 'The measured lift is higher than screened: check the tank height and for a partly closed valve or kinked delivery pipe.' });
+    out.push({
+      code: 'lift-high',
+      text: 'The measured lift is higher than screened: check the tank height and for a partly closed valve or kinked delivery pipe.',
+    });
   }
   if (etaD < LOW_EFFICIENCY_SHARE * p.efficiency) {
-    out.push({ code: 'air-in-drive', text: 'Air in the drive pipe (a gurgling intake, a high point, or a leaking joint drawing air) cushions the surge: bleed it and keep the inlet well under water.' });
+    out.push({
+      code: 'air-in-drive',
+      text: 'Air in the drive pipe (a gurgling intake, a high point, or a leaking joint drawing air) cushions the surge: bleed it and keep the inlet well under water.',
+    });
     out.push({ code: 'waste-valve', text: 'The waste valve stroke and weight may need tuning for this fall.' });
-    out.push({ code: 'leaks', text: 'Leaks at the delivery valve, the air vessel or along the delivery pipe lose pumped water: walk the line, check the tank inlet.' });
+    out.push({
+      code: 'leaks',
+      text: 'Leaks at the delivery valve, the air vessel or along the delivery pipe lose pumped water: walk the line, check the tank inlet.',
+    });
     out.push({ code: 'air-vessel', text: 'A waterlogged air vessel (snifter blocked) makes the ram knock and deliver less: clear the snifter hole.' });
     if (r.drivePipeMaterial && PLASTIC.some((m) => r.drivePipeMaterial?.toLowerCase().includes(m))) {
-      out.push({ code: 'flexible-drive', text: 'A plastic drive pipe stretches with each beat and lowers the surge (a lower wave speed): a rigid steel drive pipe delivers more.' });
+      out.push({
+        code: 'flexible-drive',
+        text: 'A plastic drive pipe stretches with each beat and lowers the surge (a lower wave speed): a rigid steel drive pipe delivers more.',
+      });
     }
   }
   return out;
@@ -95,7 +119,11 @@ function causesFor(r: CommissioningReadings, p: CommissioningPrediction | null, 
  * Measured D'Aubuisson and Rankine efficiencies (NITK notes), delivery against the screening's prediction
  * and its 10–90 % band, and likely causes when it falls short.
  */
-export function commissioningCheck(r: CommissioningReadings, prediction: CommissioningPrediction | null = null, design: DesignPoint | null = null): CommissioningResult {
+export function commissioningCheck(
+  r: CommissioningReadings,
+  prediction: CommissioningPrediction | null = null,
+  design: DesignPoint | null = null,
+): CommissioningResult {
   positive(r.driveLpm, 'driveLpm');
   positive(r.deliveredLpm, 'deliveredLpm');
   positive(r.beatsPerMinute, 'beatsPerMinute');
@@ -139,6 +167,13 @@ export function predictionFromFigures(figures: Partial<Record<string, { value: n
   const v = (k: string) => figures[k]?.value ?? null;
   const n = v('ramCount') ?? 1;
   const perRam = (x: number | null) => (x === null ? null : x / n);
-  const p = { deliveryLpd: perRam(v('deliveryLpd')), p10Lpd: perRam(v('deliveryP10Lpd')), p90Lpd: perRam(v('deliveryP90Lpd')), efficiency: v('efficiency'), driveLpm: v('driveFlowLpm'), totalLiftM: v('totalLiftM') };
+  const p = {
+    deliveryLpd: perRam(v('deliveryLpd')),
+    p10Lpd: perRam(v('deliveryP10Lpd')),
+    p90Lpd: perRam(v('deliveryP90Lpd')),
+    efficiency: v('efficiency'),
+    driveLpm: v('driveFlowLpm'),
+    totalLiftM: v('totalLiftM'),
+  };
   return Object.values(p).every((x) => typeof x === 'number') ? (p as CommissioningPrediction) : null;
 }

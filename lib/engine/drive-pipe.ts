@@ -17,7 +17,13 @@ export interface DriveLengthRule {
 export const DRIVE_LENGTH_RULES: Readonly<Record<DriveLengthRuleId, DriveLengthRule>> = {
   'perkin-3-7': { id: 'perkin-3-7', label: '3–7 × fall (Perkin, via Wikipedia)', minTimesFall: 3, maxTimesFall: 7, sourceId: 'wikipedia-hydraulic-ram' },
   'watt-5-10': { id: 'watt-5-10', label: '5–10 × fall (Watt 1975)', minTimesFall: 5, maxTimesFall: 10, sourceId: 'drive-length-other-rules' },
-  'peace-corps-6-12': { id: 'peace-corps-6-12', label: '6–12 × fall (Peace Corps 1981)', minTimesFall: 6, maxTimesFall: 12, sourceId: 'drive-length-other-rules' },
+  'peace-corps-6-12': {
+    id: 'peace-corps-6-12',
+    label: '6–12 × fall (Peace Corps 1981)',
+    minTimesFall: 6,
+    maxTimesFall: 12,
+    sourceId: 'drive-length-other-rules',
+  },
   'dtu-2-4': { id: 'dtu-2-4', label: '2–4 × fall (Jeffery et al. 1992)', minTimesFall: 2, maxTimesFall: 4, sourceId: 'drive-length-other-rules' },
 };
 

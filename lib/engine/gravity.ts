@@ -1,6 +1,15 @@
 // Gravity supply: when the tank sits below the intake a pipe fills it; size the pipe for the need.
 import { hazenWilliamsCoefficient } from './pipes';
-import { boreMm, materialOrThrow, NOMINAL_SIZES, pressureClassOrThrow, sizeForBore, type NominalSize, type PipeMaterial, type PressureClass } from './materials';
+import {
+  boreMm,
+  materialOrThrow,
+  NOMINAL_SIZES,
+  pressureClassOrThrow,
+  sizeForBore,
+  type NominalSize,
+  type PipeMaterial,
+  type PressureClass,
+} from './materials';
 
 /** Friction may take at most this share of the difference in level, leaving the rest as a reserve (common practice, no source). */
 export const GRAVITY_FRICTION_SHARE = 0.9;
@@ -39,10 +48,24 @@ export function designGravityPipe(input: GravityInput): GravityDesign {
   const recommended = { size, boreMm: size ? boreMm(size, cls) : null };
   const given = input.pipe.diameterMm;
   if (given && fits(given)) {
-    return { material, cls, size: sizeForBore(given, cls), boreMm: given, lengthM: input.lengthM, headM: input.headM, capacityLpd: capacity(given), givenShortLpd: null };
+    return {
+      material,
+      cls,
+      size: sizeForBore(given, cls),
+      boreMm: given,
+      lengthM: input.lengthM,
+      headM: input.headM,
+      capacityLpd: capacity(given),
+      givenShortLpd: null,
+    };
   }
   return {
-    material, cls, size: recommended.size, boreMm: recommended.boreMm, lengthM: input.lengthM, headM: input.headM,
+    material,
+    cls,
+    size: recommended.size,
+    boreMm: recommended.boreMm,
+    lengthM: input.lengthM,
+    headM: input.headM,
     capacityLpd: recommended.boreMm ? capacity(recommended.boreMm) : null,
     givenShortLpd: given ? capacity(given) : null,
   };

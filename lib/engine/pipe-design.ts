@@ -2,8 +2,18 @@
 import { driveLengthBandM, DRIVE_LD_BAND, minimumDriveVelocityMps, type DriveLengthRuleId, type RamSizeRow } from './drive-pipe';
 import { pressureHeadM } from './heads';
 import {
-  boreMm, classMadeIn, isPlastic, materialOrThrow, NOMINAL_SIZES, PLASTIC_CYCLIC_RATING_FACTOR, pressureClassOrThrow, sizeForBore, wallMm,
-  type NominalSize, type PipeMaterial, type PressureClass,
+  boreMm,
+  classMadeIn,
+  isPlastic,
+  materialOrThrow,
+  NOMINAL_SIZES,
+  PLASTIC_CYCLIC_RATING_FACTOR,
+  pressureClassOrThrow,
+  sizeForBore,
+  wallMm,
+  type NominalSize,
+  type PipeMaterial,
+  type PressureClass,
 } from './materials';
 import { G, waterDensityKgM3, waterViscosityPaS } from './physics';
 import { hazenWilliamsCoefficient, joukowskySurgeM, pipeVelocityMps, waveSpeedMps } from './pipes';
@@ -133,7 +143,7 @@ export function designDrivePipe(input: DriveDesignInput): DriveDesign {
   const lengthM = input.pipe.lengthM ?? chosen.lengthM;
   const attainable = attainableDriveVelocityMps(input.fallM, lengthM, bore, material.roughnessMm);
   const area = (Math.PI * (bore / 1000) ** 2) / 4;
-  const capLpm = ((attainable / CLOSURE_TO_MEAN_VELOCITY) * area) * 60000;
+  const capLpm = (attainable / CLOSURE_TO_MEAN_VELOCITY) * area * 60000;
   const driveLpm = Math.min(input.driveLpm, capLpm);
   const velocity = pipeVelocityMps(driveLpm / 60, bore);
   const closure = CLOSURE_TO_MEAN_VELOCITY * velocity;
@@ -150,20 +160,37 @@ export function designDrivePipe(input: DriveDesignInput): DriveDesign {
     const q = pressuresFor(c);
     return Math.max(q.working, q.blocked) <= allowedHeadFor(material, c);
   };
-  const higherClass = Math.max(p.working, p.blocked) > allowed
-    ? (material.classes.find((c) => c.ratingKPa > cls.ratingKPa && classMadeIn(c, size) && holds(c)) ?? null)
-    : null;
+  const higherClass =
+    Math.max(p.working, p.blocked) > allowed ? (material.classes.find((c) => c.ratingKPa > cls.ratingKPa && classMadeIn(c, size) && holds(c)) ?? null) : null;
 
   return {
-    material, cls, size, boreMm: bore, wallMm: wallMm(size, cls), lengthM, lengthGiven: input.pipe.lengthM !== undefined,
-    bandMinM: band.minM, bandMaxM: band.maxM, bandRuleLabel: band.rule.label, bandSourceId: band.rule.sourceId,
+    material,
+    cls,
+    size,
+    boreMm: bore,
+    wallMm: wallMm(size, cls),
+    lengthM,
+    lengthGiven: input.pipe.lengthM !== undefined,
+    bandMinM: band.minM,
+    bandMaxM: band.maxM,
+    bandRuleLabel: band.rule.label,
+    bandSourceId: band.rule.sourceId,
     lengthConflict: input.pipe.lengthM !== undefined ? null : chosen.conflict,
     lengthToDiameter: lengthM / (bore / 1000),
-    driveLpm, limitedByFall: capLpm < input.driveLpm, attainableVelocityMps: attainable,
-    velocityMps: velocity, closureVelocityMps: closure,
+    driveLpm,
+    limitedByFall: capLpm < input.driveLpm,
+    attainableVelocityMps: attainable,
+    velocityMps: velocity,
+    closureVelocityMps: closure,
     minimumClosureVelocityMps: minimumDriveVelocityMps(input.totalLiftM, p.a, input.fallM),
-    waveSpeedMps: p.a, surgeHeadM: p.surge, workingPeakHeadM: p.working, blockedDeliveryHeadM: p.blocked,
-    ratingM: ratingHeadM(cls), allowedHeadM: allowed, cyclicDerated: isPlastic(material), higherClass,
+    waveSpeedMps: p.a,
+    surgeHeadM: p.surge,
+    workingPeakHeadM: p.working,
+    blockedDeliveryHeadM: p.blocked,
+    ratingM: ratingHeadM(cls),
+    allowedHeadM: allowed,
+    cyclicDerated: isPlastic(material),
+    higherClass,
     fittingsMade: classMadeIn(cls, size),
     smallerThanRam: size.nominalIn < input.ram.driveIn,
   };
@@ -207,7 +234,17 @@ export function designDeliveryPipe(input: DeliveryDesignInput): DeliveryDesign {
   const limit = DELIVERY_FRICTION_LIMIT * input.staticLiftM;
   if (input.pipe.diameterMm) {
     const bore = input.pipe.diameterMm;
-    return { material, cls, size: sizeForBore(bore, cls), boreMm: bore, diameterGiven: true, frictionK: k(bore), ratingM: ratingHeadM(cls), classGiven: given, frictionOverLimit: input.frictionFor(k(bore)) > limit };
+    return {
+      material,
+      cls,
+      size: sizeForBore(bore, cls),
+      boreMm: bore,
+      diameterGiven: true,
+      frictionK: k(bore),
+      ratingM: ratingHeadM(cls),
+      classGiven: given,
+      frictionOverLimit: input.frictionFor(k(bore)) > limit,
+    };
   }
   // Every size from the ram's delivery size up: a ram row above the largest listed size starts at the largest.
   const start = NOMINAL_SIZES.findIndex((s) => s.nominalIn >= input.ramDeliveryIn);
@@ -222,5 +259,15 @@ export function designDeliveryPipe(input: DeliveryDesignInput): DeliveryDesign {
     }
   }
   const bore = boreMm(chosen, cls);
-  return { material, cls, size: chosen, boreMm: bore, diameterGiven: false, frictionK: k(bore), ratingM: ratingHeadM(cls), classGiven: given, frictionOverLimit: over };
+  return {
+    material,
+    cls,
+    size: chosen,
+    boreMm: bore,
+    diameterGiven: false,
+    frictionK: k(bore),
+    ratingM: ratingHeadM(cls),
+    classGiven: given,
+    frictionOverLimit: over,
+  };
 }

@@ -50,8 +50,7 @@ export interface BestPositionsInput {
   seed?: number;
 }
 
-export type RejectCode =
-  | 'flag-intake' | 'flag-pump' | 'little-fall' | 'drive-short' | 'drive-long' | 'gravity' | 'lift-ratio' | 'little-flow' | 'drive-ld';
+export type RejectCode = 'flag-intake' | 'flag-pump' | 'little-fall' | 'drive-short' | 'drive-long' | 'gravity' | 'lift-ratio' | 'little-flow' | 'drive-ld';
 
 export const REJECT_TEXT: Record<RejectCode, string> = {
   'flag-intake': 'The intake station is marked as no place for an intake.',
@@ -112,7 +111,10 @@ export function prepareSearch(input: BestPositionsInput): SearchContext {
     cache.set(station.flowLpm, flow);
     return flow;
   };
-  const demandLpd = demandBreakdown(input.demand.map((d) => ({ ...d })), settings.demandOverrides).reduce((s, l) => s + l.dailyL, 0);
+  const demandLpd = demandBreakdown(
+    input.demand.map((d) => ({ ...d })),
+    settings.demandOverrides,
+  ).reduce((s, l) => s + l.dailyL, 0);
   // As many levelled set-ups between intake and ram as the synthesized readings below carry.
   const fallSigmaFor = (fallM: number) => combineRuns([{ method: 'level', rows: levelRowsDropping(fallM) }]).sigmaM;
   const liftSigmaFor = (liftM: number) => estimateLift({ kind: 'direct', staticLiftM: liftM, method: 'level', uncertaintyM: input.liftUncertaintyM }).sigmaM;
@@ -171,19 +173,30 @@ export function arrangementGeometry(s: SearchContext, stations: readonly Profile
 /** The rams screenSite would size for a pair (the same sizing from demand, feed pipe friction off the fall, without the fixes a conditional names). */
 export function pairPlan(s: SearchContext, intake: ProfileStation, g: PairGeometry): { plan: RamPlan; fallM: number } {
   const flow = s.flowAt(intake);
-  const { plan, fallM } = planWithFeed({
-    fallM: g.fallM, staticLiftM: g.staticLiftM, availableLpm: s.settings.designFractionOfLowest * (flow?.lowestLpm ?? 0),
-    needLpd: s.demandLpd * (1 + s.settings.demandMarginFraction), curve: s.ctxCurve, driveLengthRule: s.settings.driveLengthRule,
-    fittingsAllowance: s.settings.fittingsAllowanceFraction,
-    drivePipe: { lengthM: g.driveLengthM, material: s.input.drivePipeMaterial ?? 'galvanized-steel' },
-    deliveryPipe: { lengthM: g.deliveryLengthM, material: s.input.deliveryPipe?.material ?? 'hdpe', diameterMm: s.input.deliveryPipe?.diameterMm },
-  }, g.standPipe ? { lengthM: g.feedLengthM, material: 'hdpe' } : undefined);
+  const { plan, fallM } = planWithFeed(
+    {
+      fallM: g.fallM,
+      staticLiftM: g.staticLiftM,
+      availableLpm: s.settings.designFractionOfLowest * (flow?.lowestLpm ?? 0),
+      needLpd: s.demandLpd * (1 + s.settings.demandMarginFraction),
+      curve: s.ctxCurve,
+      driveLengthRule: s.settings.driveLengthRule,
+      fittingsAllowance: s.settings.fittingsAllowanceFraction,
+      drivePipe: { lengthM: g.driveLengthM, material: s.input.drivePipeMaterial ?? 'galvanized-steel' },
+      deliveryPipe: { lengthM: g.deliveryLengthM, material: s.input.deliveryPipe?.material ?? 'hdpe', diameterMm: s.input.deliveryPipe?.diameterMm },
+    },
+    g.standPipe ? { lengthM: g.feedLengthM, material: 'hdpe' } : undefined,
+  );
   return { plan, fallM };
 }
 
 /** The cheap rules, cheapest first; the reject code, or null with the pair's ram plan when it passes them all. */
-export function checkPair(s: SearchContext, intake: ProfileStation, pump: ProfileStation, g: PairGeometry = pairGeometry(intake, pump, s.input.tank)):
-  { code: RejectCode; plan?: undefined } | { code: null; plan: RamPlan & { status: 'meets' | 'short' }; drivingFallM: number } {
+export function checkPair(
+  s: SearchContext,
+  intake: ProfileStation,
+  pump: ProfileStation,
+  g: PairGeometry = pairGeometry(intake, pump, s.input.tank),
+): { code: RejectCode; plan?: undefined } | { code: null; plan: RamPlan & { status: 'meets' | 'short' }; drivingFallM: number } {
   if (intake.flags?.includes('no-intake')) return { code: 'flag-intake' };
   if (pump.flags?.includes('no-pump-site')) return { code: 'flag-pump' };
   if (g.fallM < MIN_FALL_M) return { code: 'little-fall' };
@@ -208,7 +221,11 @@ export function pairReadings(s: SearchContext, intake: ProfileStation, g: PairGe
     lift: { kind: 'direct', staticLiftM: g.staticLiftM, method: 'level', ...(s.input.liftUncertaintyM ? { uncertaintyM: s.input.liftUncertaintyM } : {}) },
     drivePipe: { lengthM: g.driveLengthM, material: (s.input.drivePipeMaterial ?? 'galvanized-steel') as 'galvanized-steel' },
     ...(g.standPipe ? { feedPipe: { lengthM: g.feedLengthM, material: 'hdpe' as const } } : {}),
-    deliveryPipe: { lengthM: g.deliveryLengthM, material: (s.input.deliveryPipe?.material ?? 'hdpe') as 'hdpe', ...(s.input.deliveryPipe?.diameterMm ? { diameterMm: s.input.deliveryPipe.diameterMm } : {}) },
+    deliveryPipe: {
+      lengthM: g.deliveryLengthM,
+      material: (s.input.deliveryPipe?.material ?? 'hdpe') as 'hdpe',
+      ...(s.input.deliveryPipe?.diameterMm ? { diameterMm: s.input.deliveryPipe.diameterMm } : {}),
+    },
     demand: s.input.demand,
     settings: s.input.settings ?? {},
     monteCarlo: { samples, seed: s.input.seed ?? 1 },
@@ -241,17 +258,36 @@ export function compareKeys(a: RankKey, b: RankKey): number {
  * The same sizing, delivery and Monte Carlo as screenSite, with fewer draws: the draws are a prefix of the full
  * run's, so a pair certain in full is certain here.
  */
-export function quickKey(s: SearchContext, intake: ProfileStation, g: PairGeometry, samples: number, plan: RamPlan & { status: 'meets' | 'short' }, drivingFallM: number): RankKey {
+export function quickKey(
+  s: SearchContext,
+  intake: ProfileStation,
+  g: PairGeometry,
+  samples: number,
+  plan: RamPlan & { status: 'meets' | 'short' },
+  drivingFallM: number,
+): RankKey {
   const flow = s.flowAt(intake);
   const o = plan.option;
   const mc = runMonteCarlo({
-    ctx: { curve: s.ctxCurve, deliveryFrictionK: o.delivery.frictionK }, fallM: drivingFallM, fallSigmaM: s.fallSigmaFor(drivingFallM),
-    staticLiftM: g.staticLiftM, staticLiftSigmaM: s.liftSigmaFor(g.staticLiftM), lowestFlowLpm: flow?.lowestLpm ?? 0,
-    lowestFlowRelativeSigma: flow?.relativeSigma ?? 0, designFraction: s.settings.designFractionOfLowest,
-    ramMaxLpm: o.drive.driveLpm, ramMinLpm: o.row.minLpm, ramCount: o.count, demandLpd: s.demandLpd, samples, seed: s.input.seed ?? 1,
+    ctx: { curve: s.ctxCurve, deliveryFrictionK: o.delivery.frictionK },
+    fallM: drivingFallM,
+    fallSigmaM: s.fallSigmaFor(drivingFallM),
+    staticLiftM: g.staticLiftM,
+    staticLiftSigmaM: s.liftSigmaFor(g.staticLiftM),
+    lowestFlowLpm: flow?.lowestLpm ?? 0,
+    lowestFlowRelativeSigma: flow?.relativeSigma ?? 0,
+    designFraction: s.settings.designFractionOfLowest,
+    ramMaxLpm: o.drive.driveLpm,
+    ramMinLpm: o.row.minLpm,
+    ramCount: o.count,
+    demandLpd: s.demandLpd,
+    samples,
+    seed: s.input.seed ?? 1,
   });
   return {
-    verdictRank: plan.status === 'meets' ? 2 : 1, probabilityMeetsDemand: mc.probabilityMeetsDemand, deliveryLpd: o.deliveryLpd,
+    verdictRank: plan.status === 'meets' ? 2 : 1,
+    probabilityMeetsDemand: mc.probabilityMeetsDemand,
+    deliveryLpd: o.deliveryLpd,
     totalPipeM: g.feedLengthM + g.driveLengthM + g.deliveryLengthM,
   };
 }

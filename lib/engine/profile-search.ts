@@ -2,8 +2,19 @@
 // probability of meeting demand, then delivery, then total pipe; the short list screened in full by screenSite.
 import { EngineInputError } from './errors';
 import {
-  arrangementGeometry, checkPair, compareKeys, pairReadings, prepareSearch, quickKey, REJECT_TEXT, verdictRank,
-  type BestPositionsInput, type PairGeometry, type ProfileStation, type RankKey, type RejectCode,
+  arrangementGeometry,
+  checkPair,
+  compareKeys,
+  pairReadings,
+  prepareSearch,
+  quickKey,
+  REJECT_TEXT,
+  verdictRank,
+  type BestPositionsInput,
+  type PairGeometry,
+  type ProfileStation,
+  type RankKey,
+  type RejectCode,
 } from './profile-pairs';
 import { screenSite } from './screen';
 import type { Screening } from './screening-types';
@@ -135,10 +146,13 @@ export function bestPositionsBruteForce(input: BestPositionsInput): { intakeId: 
       if (pump.chainageM <= intake.chainageM || checkPair(s, intake, pump, g).code) continue;
       const sc = screenSite(pairReadings(s, intake, g, input.samples ?? 10_000));
       out.push({
-        intakeId: intake.id, pumpId: pump.id,
+        intakeId: intake.id,
+        pumpId: pump.id,
         key: {
-          verdictRank: verdictRank(sc.verdict), probabilityMeetsDemand: sc.figures.probabilityMeetsDemand?.value ?? 0,
-          deliveryLpd: sc.figures.deliveryLpd?.value ?? 0, totalPipeM: g.feedLengthM + g.driveLengthM + g.deliveryLengthM,
+          verdictRank: verdictRank(sc.verdict),
+          probabilityMeetsDemand: sc.figures.probabilityMeetsDemand?.value ?? 0,
+          deliveryLpd: sc.figures.deliveryLpd?.value ?? 0,
+          totalPipeM: g.feedLengthM + g.driveLengthM + g.deliveryLengthM,
         },
       });
     }

@@ -87,8 +87,16 @@ export function valveWeightForClosureN(driveBoreMm: number, strokeMm: number, cl
 }
 
 const STALLED: Omit<RamCycle, 'steadyVelocityMps' | 'closureVelocityMps'> = {
-  closes: false, beatsPerMinute: 0, wastePerBeatL: 0, deliveryPerBeatL: 0, drivePerBeatL: 0, driveLpm: 0, deliveryLpm: 0, efficiency: 0,
-  surgeHeadM: 0, phasesS: { accelerate: Infinity, close: 0, deliver: 0, recoil: 0, reopen: 0 },
+  closes: false,
+  beatsPerMinute: 0,
+  wastePerBeatL: 0,
+  deliveryPerBeatL: 0,
+  drivePerBeatL: 0,
+  driveLpm: 0,
+  deliveryLpm: 0,
+  efficiency: 0,
+  surgeHeadM: 0,
+  phasesS: { accelerate: Infinity, close: 0, deliver: 0, recoil: 0, reopen: 0 },
 };
 
 /**

@@ -8,7 +8,10 @@ export const ASSUMED_BEATS_PER_MINUTE = 60;
 export const AIR_VESSEL_BEATS = 20;
 
 // Air vessels of home-made rams (Clemson, Smith): 1¼″ ram 4″ × 24″ chamber ≈ 5.0 L; 3″ ram 6″ × 24″ ≈ 11 L (found).
-const CLEMSON_AIR_VESSELS: readonly (readonly [driveIn: number, litres: number])[] = [[1.25, 5.0], [3, 11.1]];
+const CLEMSON_AIR_VESSELS: readonly (readonly [driveIn: number, litres: number])[] = [
+  [1.25, 5.0],
+  [3, 11.1],
+];
 
 /** Air vessel volume, L: the Clemson home-made sizes by drive size (linear between, by drive area beyond 3″), never under 20 beats' delivery. */
 export function airVesselL(driveIn: number, deliveryLpm: number, beatsPerMinute = ASSUMED_BEATS_PER_MINUTE): number {
@@ -45,11 +48,41 @@ export function ramParts(p: RamPartsInput): RamPart[] {
   const thrustKn = surgeThrustN(p.blockedDeliveryHeadM, p.driveBoreMm) / 1000;
   const mm = (x: number) => amount('diameter', x);
   return [
-    { item: 'Waste valve', size: say`port at least ${mm(p.driveBoreMm)}`, note: say`Opening no smaller than the drive pipe\u2019s bore, stroke adjustable (about ${amount('diameter', 10)}–${amount('diameter', 25)}) with a lock nut, weights to tune the beat (common practice, no source)`, priceKey: 'with-ram' },
-    { item: 'Delivery (check) valve into the air vessel', size: say`port at least ${mm(p.deliveryBoreMm)}`, note: 'A rubber flap or ball seat, replaceable (common practice, no source)', priceKey: 'with-ram' },
-    { item: 'Air vessel', size: say`${amount('volume', Math.ceil(vessel))} or more`, note: say`Home-made sizes ${amount('volume', 5)} for 1¼″, ${amount('volume', 11)} for 3″ (Clemson, Smith), and at least ${AIR_VESSEL_BEATS} beats\u2019 delivery at ${ASSUMED_BEATS_PER_MINUTE} beats a minute (from memory)`, priceKey: 'with-ram' },
-    { item: 'Snifter valve (air inlet just below the delivery valve)', size: say`about ${amount('diameter', 1)} hole`, note: 'Keeps the air vessel charged; clear it if the ram knocks hard (NITK notes; hole size from memory)', priceKey: 'with-ram' },
-    { item: 'Unions on the drive and delivery pipes at the ram', size: say`${mm(p.driveBoreMm)} and ${mm(p.deliveryBoreMm)}`, note: 'So the ram lifts out for service', priceKey: 'unions' },
-    { item: 'Concrete base and anchor for the ram and the lower drive pipe', size: `for ${thrustKn.toFixed(1)} kN`, note: 'Each beat and any blocked delivery push the ram along the pipe: fall plus surge on the bore\u2019s area (ρ·g·H·A)', priceKey: 'base' },
+    {
+      item: 'Waste valve',
+      size: say`port at least ${mm(p.driveBoreMm)}`,
+      note: say`Opening no smaller than the drive pipe\u2019s bore, stroke adjustable (about ${amount('diameter', 10)}–${amount('diameter', 25)}) with a lock nut, weights to tune the beat (common practice, no source)`,
+      priceKey: 'with-ram',
+    },
+    {
+      item: 'Delivery (check) valve into the air vessel',
+      size: say`port at least ${mm(p.deliveryBoreMm)}`,
+      note: 'A rubber flap or ball seat, replaceable (common practice, no source)',
+      priceKey: 'with-ram',
+    },
+    {
+      item: 'Air vessel',
+      size: say`${amount('volume', Math.ceil(vessel))} or more`,
+      note: say`Home-made sizes ${amount('volume', 5)} for 1¼″, ${amount('volume', 11)} for 3″ (Clemson, Smith), and at least ${AIR_VESSEL_BEATS} beats\u2019 delivery at ${ASSUMED_BEATS_PER_MINUTE} beats a minute (from memory)`,
+      priceKey: 'with-ram',
+    },
+    {
+      item: 'Snifter valve (air inlet just below the delivery valve)',
+      size: say`about ${amount('diameter', 1)} hole`,
+      note: 'Keeps the air vessel charged; clear it if the ram knocks hard (NITK notes; hole size from memory)',
+      priceKey: 'with-ram',
+    },
+    {
+      item: 'Unions on the drive and delivery pipes at the ram',
+      size: say`${mm(p.driveBoreMm)} and ${mm(p.deliveryBoreMm)}`,
+      note: 'So the ram lifts out for service',
+      priceKey: 'unions',
+    },
+    {
+      item: 'Concrete base and anchor for the ram and the lower drive pipe',
+      size: `for ${thrustKn.toFixed(1)} kN`,
+      note: 'Each beat and any blocked delivery push the ram along the pipe: fall plus surge on the bore\u2019s area (ρ·g·H·A)',
+      priceKey: 'base',
+    },
   ];
 }

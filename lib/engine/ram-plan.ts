@@ -51,9 +51,7 @@ export interface RamOption {
  */
 export type NoRamCause = 'flow' | 'fall' | 'push' | 'soft';
 
-export type RamPlan =
-  | { status: 'meets' | 'short'; option: RamOption; forced: boolean }
-  | { status: 'no-ram'; cause: NoRamCause; forced: boolean };
+export type RamPlan = { status: 'meets' | 'short'; option: RamOption; forced: boolean } | { status: 'no-ram'; cause: NoRamCause; forced: boolean };
 
 /** The table rows whose inlet matches a given drive pipe's nominal size; every row when none does. */
 function rowsForBore(pipe: PipeEntry): readonly RamSizeRow[] {
@@ -70,14 +68,23 @@ export function designOption(input: RamPlanInput, row: RamSizeRow, count: number
   if (asked < row.minLpm) return 'flow';
   // Compared to the millimetre, like every fall threshold, so a unit round trip never flips it.
   if (roundMm(input.fallM) < roundMm(row.minFallM)) return 'fall';
-  const driveFor = (totalLiftM: number) => designDrivePipe({
-    fallM: input.fallM, totalLiftM: Math.max(totalLiftM, 1e-3), driveLpm: asked, ram: row, pipe: input.drivePipe, ruleId: input.driveLengthRule,
-  });
+  const driveFor = (totalLiftM: number) =>
+    designDrivePipe({
+      fallM: input.fallM,
+      totalLiftM: Math.max(totalLiftM, 1e-3),
+      driveLpm: asked,
+      ram: row,
+      pipe: input.drivePipe,
+      ruleId: input.driveLengthRule,
+    });
   const first = driveFor(input.staticLiftM);
   if (first.driveLpm < row.minLpm) return 'push';
   const at = (k: number) => operatingPoint({ curve: input.curve, deliveryFrictionK: k, ramCount: count }, input.fallM, input.staticLiftM, first.driveLpm);
   const delivery = designDeliveryPipe({
-    pipe: input.deliveryPipe, fittingsAllowance: input.fittingsAllowance, ramDeliveryIn: row.deliveryIn, staticLiftM: input.staticLiftM,
+    pipe: input.deliveryPipe,
+    fittingsAllowance: input.fittingsAllowance,
+    ramDeliveryIn: row.deliveryIn,
+    staticLiftM: input.staticLiftM,
     frictionFor: (k) => at(k).frictionM,
   });
   const op = at(delivery.frictionK);
@@ -147,7 +154,9 @@ export function designFeedPipe(feed: FeedEntry, ramDriveIn: number, totalDriveLp
   const material = materialOrThrow(feed.material, 'feedPipe.material');
   const cls = pressureClassOrThrow(material, undefined, 'feedPipe.pressureClass');
   const driveAt = NOMINAL_SIZES.findIndex((s) => s.nominalIn >= ramDriveIn);
-  const size = feed.diameterMm ? sizeForBore(feed.diameterMm, cls) : (NOMINAL_SIZES[Math.min(NOMINAL_SIZES.length - 1, Math.max(0, driveAt) + 1)] as NominalSize);
+  const size = feed.diameterMm
+    ? sizeForBore(feed.diameterMm, cls)
+    : (NOMINAL_SIZES[Math.min(NOMINAL_SIZES.length - 1, Math.max(0, driveAt) + 1)] as NominalSize);
   const bore = feed.diameterMm ?? boreMm(size, cls);
   const k = hazenWilliamsCoefficient(feed.lengthM * (1 + fittingsAllowance), bore, material.hazenC);
   return { lengthM: feed.lengthM, size, boreMm: bore, materialLabel: material.label, classLabel: cls.label, frictionM: k * (totalDriveLpm / 60000) ** 1.852 };

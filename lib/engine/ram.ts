@@ -18,8 +18,18 @@ export interface EfficiencyCurve {
 
 // Building Trades Pocketbook, "The Hydraulic Ram": efficiency vs lift/fall (found; OCR "10" read as 16).
 const BUILDING_TRADES: readonly (readonly [ratio: number, efficiency: number])[] = [
-  [4, 0.72], [6, 0.61], [8, 0.52], [10, 0.44], [12, 0.37], [14, 0.31],
-  [16, 0.25], [18, 0.19], [20, 0.14], [22, 0.09], [24, 0.04], [26, 0],
+  [4, 0.72],
+  [6, 0.61],
+  [8, 0.52],
+  [10, 0.44],
+  [12, 0.37],
+  [14, 0.31],
+  [16, 0.25],
+  [18, 0.19],
+  [20, 0.14],
+  [22, 0.09],
+  [24, 0.04],
+  [26, 0],
 ];
 
 function interpolateTable(table: readonly (readonly [number, number])[], x: number): number {

@@ -89,11 +89,15 @@ export function combineRuns(runs: readonly FallRun[], sign = 1): CombinedEstimat
     wx += w * e.dropM;
   }
   const best = estimates.reduce((a, b) => (b.sigmaM < a.sigmaM ? b : a));
-  const disagreeing = estimates
-    .filter((e) => e !== best && Math.abs(e.dropM - best.dropM) > 3 * Math.hypot(e.sigmaM, best.sigmaM))
-    .map((e) => e.index);
+  const disagreeing = estimates.filter((e) => e !== best && Math.abs(e.dropM - best.dropM) > 3 * Math.hypot(e.sigmaM, best.sigmaM)).map((e) => e.index);
   const mean = wx / wSum;
-  return { valueM: mean, sigmaM: birgeRatio(estimates, mean) / Math.sqrt(wSum), runs: estimates, disagreeing, methods: [...new Set(estimates.map((e) => e.method))].join('+') };
+  return {
+    valueM: mean,
+    sigmaM: birgeRatio(estimates, mean) / Math.sqrt(wSum),
+    runs: estimates,
+    disagreeing,
+    methods: [...new Set(estimates.map((e) => e.method))].join('+'),
+  };
 }
 
 /**
@@ -178,8 +182,15 @@ export function estimateFlow(m: FlowMeasurement, index: number): FlowEstimate {
   const s = summarise(trials, `flowMeasurements.${index}.trials`);
   const sem = s.sd / Math.sqrt(trials.length);
   return {
-    index, method: m.method, season: m.season, trialsLps: trials,
-    meanLps: s.mean, sdLps: s.sd, minLps: s.min, maxLps: s.max,
-    relativeSigma: Math.hypot(methodRel, sem / s.mean), lowHead,
+    index,
+    method: m.method,
+    season: m.season,
+    trialsLps: trials,
+    meanLps: s.mean,
+    sdLps: s.sd,
+    minLps: s.min,
+    maxLps: s.max,
+    relativeSigma: Math.hypot(methodRel, sem / s.mean),
+    lowHead,
   };
 }

@@ -35,7 +35,19 @@ interface Survey {
   lowest: FlowEstimate;
   lowestLpm: number;
   ctx: Omit<SurveyContext, 'fraction'>;
-  facts: Pick<RamVerdictFacts, 'fallM' | 'fallSigmaM' | 'fallRunsDisagree' | 'misclosures' | 'bookingFailed' | 'anyDrySeason' | 'lowHeadMeasurements' | 'lowestLpm' | 'demandLpd' | 'marginFraction'>;
+  facts: Pick<
+    RamVerdictFacts,
+    | 'fallM'
+    | 'fallSigmaM'
+    | 'fallRunsDisagree'
+    | 'misclosures'
+    | 'bookingFailed'
+    | 'anyDrySeason'
+    | 'lowHeadMeasurements'
+    | 'lowestLpm'
+    | 'demandLpd'
+    | 'marginFraction'
+  >;
 }
 
 /** Fall, lift, flows, demand and tank from the readings: what every outcome is judged on. */
@@ -57,12 +69,22 @@ function survey(r: SiteReadings): Survey {
   const demandLpd = demandLines.reduce((sum, l) => sum + l.dailyL, 0);
   const tank = tankSizeL(demandLpd, s.tankRule, demandLpd * s.peakHourFraction);
   const ctx = {
-    r, fall, lift, flows, lowest, lowestLpm, demandLines, demandLpd, tank,
+    r,
+    fall,
+    lift,
+    flows,
+    lowest,
+    lowestLpm,
+    demandLines,
+    demandLpd,
+    tank,
     supplyMeanLpm: (flows.reduce((sum, f) => sum + f.meanLps, 0) / flows.length) * 60,
     supplySpreadLpm: (hi - lo) * 60,
   };
   const facts = {
-    fallM: fall.valueM, fallSigmaM: fall.sigmaM, fallRunsDisagree: fall.disagreeing,
+    fallM: fall.valueM,
+    fallSigmaM: fall.sigmaM,
+    fallRunsDisagree: fall.disagreeing,
     misclosures: fall.runs.flatMap((e) => {
       // Third-order allowance, but never tighter than 1 % of the fall: a screening, not a control survey.
       const allowedMm = Math.max(e.allowedMisclosureMm ?? 0, 10 * Math.abs(e.dropM));
@@ -71,7 +93,9 @@ function survey(r: SiteReadings): Survey {
     bookingFailed: fall.runs.filter((e) => e.arithmeticCheckOk === false).map((e) => e.index),
     anyDrySeason: flows.some((f) => f.season === 'dry'),
     lowHeadMeasurements: flows.filter((f) => f.lowHead).map((f) => f.index),
-    lowestLpm, demandLpd, marginFraction: s.demandMarginFraction,
+    lowestLpm,
+    demandLpd,
+    marginFraction: s.demandMarginFraction,
   };
   return { r, fall, lift, flows, lowest, lowestLpm, ctx, facts };
 }
@@ -81,9 +105,15 @@ const SHARED_SOURCES: SourceId[] = ['min-fall-wftw', 'lift-ratio-limit', 'wftw-r
 function settingsOf(r: SiteReadings): Screening['settings'] {
   const s = r.settings;
   return {
-    designFractionOfLowest: s.designFractionOfLowest, maxDesignFractionOfLowest: s.maxDesignFractionOfLowest, efficiencyCurve: s.efficiencyCurve,
-    demandMarginFraction: s.demandMarginFraction, tankRule: s.tankRule, driveLengthRule: s.driveLengthRule,
-    fittingsAllowanceFraction: s.fittingsAllowanceFraction, peakHourFraction: s.peakHourFraction, minProbabilityForGo: s.minProbabilityForGo,
+    designFractionOfLowest: s.designFractionOfLowest,
+    maxDesignFractionOfLowest: s.maxDesignFractionOfLowest,
+    efficiencyCurve: s.efficiencyCurve,
+    demandMarginFraction: s.demandMarginFraction,
+    tankRule: s.tankRule,
+    driveLengthRule: s.driveLengthRule,
+    fittingsAllowanceFraction: s.fittingsAllowanceFraction,
+    peakHourFraction: s.peakHourFraction,
+    minProbabilityForGo: s.minProbabilityForGo,
   };
 }
 
@@ -98,19 +128,42 @@ function screenGravity(sv: Survey): Screening {
   const availableLpm = s.designFractionOfLowest * sv.lowestLpm;
   const deliveryLpd = Math.min(gravity.capacityLpd ?? 0, availableLpm * 1440);
   const judgement = judgeGravity({
-    ...sv.facts, availableLpm, designFraction: s.designFractionOfLowest, staticLiftM: sv.lift.valueM, headM,
-    pipeLabel: gravity.size?.label ?? null, pipeLengthM: routeM, capacityLpd: gravity.capacityLpd, givenShortLpd: gravity.givenShortLpd,
+    ...sv.facts,
+    availableLpm,
+    designFraction: s.designFractionOfLowest,
+    staticLiftM: sv.lift.valueM,
+    headM,
+    pipeLabel: gravity.size?.label ?? null,
+    pipeLengthM: routeM,
+    capacityLpd: gravity.capacityLpd,
+    givenShortLpd: gravity.givenShortLpd,
   });
   const figures = buildGravityFigures({ ...sv.ctx, fraction: s.designFractionOfLowest, gravity, deliveryLpd });
-  const bom = judgement.verdict === 'no-go' || !gravity.size ? [] : gravityBillOfMaterials({
-    pipe: { material: gravity.material.label, classLabel: gravity.cls.label, sizeLabel: gravity.size.label, materialId: gravity.material.id, boreMm: gravity.boreMm ?? 0 }, lengthM: routeM,
-    tankL: sv.ctx.tank.sizeL, tankRuleLabel: sv.ctx.tank.rule.label,
-  });
+  const bom =
+    judgement.verdict === 'no-go' || !gravity.size
+      ? []
+      : gravityBillOfMaterials({
+          pipe: {
+            material: gravity.material.label,
+            classLabel: gravity.cls.label,
+            sizeLabel: gravity.size.label,
+            materialId: gravity.material.id,
+            boreMm: gravity.boreMm ?? 0,
+          },
+          lengthM: routeM,
+          tankL: sv.ctx.tank.sizeL,
+          tankRuleLabel: sv.ctx.tank.rule.label,
+        });
   const sourceIds: SourceId[] = [...Object.values(figures).map((f) => f.sourceId), ...sv.ctx.demandLines.map((l) => l.sourceId), 'gravity-flow'];
   return {
-    engineVersion: ENGINE_VERSION, verdict: judgement.verdict, reasons: judgement.reasons, conditions: judgement.conditions,
+    engineVersion: ENGINE_VERSION,
+    verdict: judgement.verdict,
+    reasons: judgement.reasons,
+    conditions: judgement.conditions,
     cautions: cautionsFor({ pressures: null, anyPeople: sv.ctx.demandLines.some((l) => l.kind.startsWith('person') && l.count > 0), deliveryLpd }),
-    figures, billOfMaterials: bom, settings: settingsOf(r),
+    figures,
+    billOfMaterials: bom,
+    settings: settingsOf(r),
     monteCarlo: { samples: r.monteCarlo.samples, seed: r.monteCarlo.seed, generator: 'mulberry32 + Box–Muller' },
     sources: sourcesFor(sourceIds),
   };
@@ -137,7 +190,11 @@ function planWithFix(sv: Survey, input: RamPlanInput): { plan: RamPlan; fix: Fix
     const p = plan({ ...input, availableLpm: s.maxDesignFractionOfLowest * sv.lowestLpm });
     if (p.plan.status === 'meets') {
       const takeLpm = p.plan.option.count * p.plan.option.drive.driveLpm;
-      return { ...p, fix: { kind: 'more-water', fraction: takeLpm / sv.lowestLpm, takeLpm, leaveLpm: sv.lowestLpm - takeLpm, shortLpd }, fraction: s.maxDesignFractionOfLowest };
+      return {
+        ...p,
+        fix: { kind: 'more-water', fraction: takeLpm / sv.lowestLpm, takeLpm, leaveLpm: sv.lowestLpm - takeLpm, shortLpd },
+        fraction: s.maxDesignFractionOfLowest,
+      };
     }
   }
   return { ...base, fix: null, fraction };
@@ -154,58 +211,129 @@ export function screenSite(input: SiteReadingsInput): Screening {
   const curve = EFFICIENCY_CURVES[s.efficiencyCurve];
   const needLpd = sv.facts.demandLpd * (1 + s.demandMarginFraction);
   const planInput: RamPlanInput = {
-    fallM: Math.max(sv.fall.valueM, 1e-3), staticLiftM: Math.max(sv.lift.valueM, 1e-3), availableLpm: s.designFractionOfLowest * sv.lowestLpm,
-    needLpd, curve, driveLengthRule: s.driveLengthRule, fittingsAllowance: s.fittingsAllowanceFraction,
-    drivePipe: r.drivePipe, deliveryPipe: r.deliveryPipe, forced: r.ram,
+    fallM: Math.max(sv.fall.valueM, 1e-3),
+    staticLiftM: Math.max(sv.lift.valueM, 1e-3),
+    availableLpm: s.designFractionOfLowest * sv.lowestLpm,
+    needLpd,
+    curve,
+    driveLengthRule: s.driveLengthRule,
+    fittingsAllowance: s.fittingsAllowanceFraction,
+    drivePipe: r.drivePipe,
+    deliveryPipe: r.deliveryPipe,
+    forced: r.ram,
   };
   const { plan, fix, fraction, feed, fallM: drivingFallM } = planWithFix(sv, planInput);
   const option = plan.status === 'no-ram' ? null : plan.option;
   const smallest = RAM_SIZE_TABLE[0] as (typeof RAM_SIZE_TABLE)[number];
 
-  const mc = option ? runMonteCarlo({
-    // Behind a feed pipe the ram works on the fall that its friction leaves.
-    ctx: { curve, deliveryFrictionK: option.delivery.frictionK }, fallM: drivingFallM, fallSigmaM: sv.fall.sigmaM,
-    staticLiftM: sv.lift.valueM, staticLiftSigmaM: sv.lift.sigmaM, lowestFlowLpm: sv.lowestLpm, lowestFlowRelativeSigma: sv.lowest.relativeSigma,
-    designFraction: fraction, ramMaxLpm: option.drive.driveLpm, ramMinLpm: option.row.minLpm, ramCount: option.count,
-    demandLpd: sv.facts.demandLpd, samples: r.monteCarlo.samples, seed: r.monteCarlo.seed,
-  }) : null;
+  const mc = option
+    ? runMonteCarlo({
+        // Behind a feed pipe the ram works on the fall that its friction leaves.
+        ctx: { curve, deliveryFrictionK: option.delivery.frictionK },
+        fallM: drivingFallM,
+        fallSigmaM: sv.fall.sigmaM,
+        staticLiftM: sv.lift.valueM,
+        staticLiftSigmaM: sv.lift.sigmaM,
+        lowestFlowLpm: sv.lowestLpm,
+        lowestFlowRelativeSigma: sv.lowest.relativeSigma,
+        designFraction: fraction,
+        ramMaxLpm: option.drive.driveLpm,
+        ramMinLpm: option.row.minLpm,
+        ramCount: option.count,
+        demandLpd: sv.facts.demandLpd,
+        samples: r.monteCarlo.samples,
+        seed: r.monteCarlo.seed,
+      })
+    : null;
 
   const d = option?.drive;
   const judgement = judge({
     ...sv.facts,
-    availableLpm: fraction * sv.lowestLpm, designFraction: s.designFractionOfLowest,
+    availableLpm: fraction * sv.lowestLpm,
+    designFraction: s.designFractionOfLowest,
     plan: plan.status === 'no-ram' ? plan : { status: plan.status, count: plan.option.count, sizeLabel: plan.option.drive.size.label, forced: plan.forced },
-    smallestRamMinLpm: smallest.minLpm, leastRamFallM: LEAST_RAM_FALL_M,
-    staticLiftM: sv.lift.valueM, totalLiftM: option?.op.totalLiftM ?? sv.lift.valueM,
+    smallestRamMinLpm: smallest.minLpm,
+    leastRamFallM: LEAST_RAM_FALL_M,
+    staticLiftM: sv.lift.valueM,
+    totalLiftM: option?.op.totalLiftM ?? sv.lift.valueM,
     liftRatio: option?.op.liftRatio ?? (drivingFallM > 0 ? sv.lift.valueM / drivingFallM : Infinity),
-    efficiencyStatus: option ? (option.op.liftRatio > curve.maxRatio ? 'above-range' : option.op.liftRatio < curve.minRatio ? 'below-range' : 'in-range') : 'in-range',
-    curveLabel: curve.label, curveRange: [curve.minRatio, curve.maxRatio], curveStatedUpTo: curve.statedUpToRatio,
+    efficiencyStatus: option
+      ? option.op.liftRatio > curve.maxRatio
+        ? 'above-range'
+        : option.op.liftRatio < curve.minRatio
+          ? 'below-range'
+          : 'in-range'
+      : 'in-range',
+    curveLabel: curve.label,
+    curveRange: [curve.minRatio, curve.maxRatio],
+    curveStatedUpTo: curve.statedUpToRatio,
     deliveryLpd: option?.deliveryLpd ?? 0,
-    probabilityMeets: mc?.probabilityMeetsDemand ?? null, minProbabilityForGo: s.minProbabilityForGo,
+    probabilityMeets: mc?.probabilityMeetsDemand ?? null,
+    minProbabilityForGo: s.minProbabilityForGo,
     fix,
-    drive: d ? {
-      lengthM: d.lengthM, lengthGiven: d.lengthGiven, bandMinM: d.bandMinM, bandMaxM: d.bandMaxM, bandRule: d.bandRuleLabel,
-      lengthConflict: d.lengthConflict, ldMinM: (DRIVE_LD_BAND.min * d.boreMm) / 1000, ldMaxM: (DRIVE_LD_BAND.max * d.boreMm) / 1000,
-      lengthToDiameter: d.lengthToDiameter, closureVelocityMps: d.closureVelocityMps, minimumClosureVelocityMps: d.minimumClosureVelocityMps,
-      limitedByFall: d.limitedByFall, attainableVelocityMps: d.attainableVelocityMps, driveLpm: d.driveLpm,
-      workingPeakHeadM: d.workingPeakHeadM, blockedDeliveryHeadM: d.blockedDeliveryHeadM, allowedHeadM: d.allowedHeadM, ratingM: d.ratingM,
-      cyclicDerated: d.cyclicDerated, classLabel: d.cls.label, higherClassLabel: d.higherClass?.label ?? null, materialLabel: d.material.label,
-      rigid: d.material.id === 'galvanized-steel', sizeLabel: d.size.label, fittingsMade: d.fittingsMade, smallerThanRam: d.smallerThanRam,
-    } : null,
+    drive: d
+      ? {
+          lengthM: d.lengthM,
+          lengthGiven: d.lengthGiven,
+          bandMinM: d.bandMinM,
+          bandMaxM: d.bandMaxM,
+          bandRule: d.bandRuleLabel,
+          lengthConflict: d.lengthConflict,
+          ldMinM: (DRIVE_LD_BAND.min * d.boreMm) / 1000,
+          ldMaxM: (DRIVE_LD_BAND.max * d.boreMm) / 1000,
+          lengthToDiameter: d.lengthToDiameter,
+          closureVelocityMps: d.closureVelocityMps,
+          minimumClosureVelocityMps: d.minimumClosureVelocityMps,
+          limitedByFall: d.limitedByFall,
+          attainableVelocityMps: d.attainableVelocityMps,
+          driveLpm: d.driveLpm,
+          workingPeakHeadM: d.workingPeakHeadM,
+          blockedDeliveryHeadM: d.blockedDeliveryHeadM,
+          allowedHeadM: d.allowedHeadM,
+          ratingM: d.ratingM,
+          cyclicDerated: d.cyclicDerated,
+          classLabel: d.cls.label,
+          higherClassLabel: d.higherClass?.label ?? null,
+          materialLabel: d.material.label,
+          rigid: d.material.id === 'galvanized-steel',
+          sizeLabel: d.size.label,
+          fittingsMade: d.fittingsMade,
+          smallerThanRam: d.smallerThanRam,
+        }
+      : null,
     delivery: option
-      ? { frictionM: option.op.frictionM, frictionOverLimit: option.delivery.frictionOverLimit, ratingM: option.delivery.ratingM, classLabel: option.delivery.cls.label, diameterGiven: option.delivery.diameterGiven }
+      ? {
+          frictionM: option.op.frictionM,
+          frictionOverLimit: option.delivery.frictionOverLimit,
+          ratingM: option.delivery.ratingM,
+          classLabel: option.delivery.cls.label,
+          diameterGiven: option.delivery.diameterGiven,
+        }
       : { frictionM: 0, frictionOverLimit: false, ratingM: Infinity, classLabel: '', diameterGiven: false },
   });
 
   const surveyCtx = { ...sv.ctx, fraction };
   const figures = option && mc ? buildFigures({ ...surveyCtx, option, forced: plan.forced, curve, mc, feed, drivingFallM }) : buildSurveyFigures(surveyCtx);
   const relief = judgement.conditions.some((c) => c.code === 'BLOCKED_PRESSURE_ABOVE_RATING' && /relief valve/.test(c.text));
-  const bom = judgement.verdict === 'no-go' || !option ? [] : billOfMaterials({
-    drive: option.drive, delivery: option.delivery, deliveryLengthM: r.deliveryPipe.lengthM, ramDriveIn: option.row.driveIn, ramCount: option.count,
-    ramMinLpm: option.row.minLpm, ramMaxLpm: option.row.maxLpm, tankL: sv.ctx.tank.sizeL, tankRuleLabel: sv.ctx.tank.rule.label,
-    standPipe: !feed && ((option.drive.lengthGiven && option.drive.lengthM > option.drive.bandMaxM) || option.drive.lengthConflict === 'fall-band-above-ld'),
-    reliefValve: relief, feed, deliveryLpm: option.op.deliveryLpm,
-  });
+  const bom =
+    judgement.verdict === 'no-go' || !option
+      ? []
+      : billOfMaterials({
+          drive: option.drive,
+          delivery: option.delivery,
+          deliveryLengthM: r.deliveryPipe.lengthM,
+          ramDriveIn: option.row.driveIn,
+          ramCount: option.count,
+          ramMinLpm: option.row.minLpm,
+          ramMaxLpm: option.row.maxLpm,
+          tankL: sv.ctx.tank.sizeL,
+          tankRuleLabel: sv.ctx.tank.rule.label,
+          standPipe:
+            !feed && ((option.drive.lengthGiven && option.drive.lengthM > option.drive.bandMaxM) || option.drive.lengthConflict === 'fall-band-above-ld'),
+          reliefValve: relief,
+          feed,
+          deliveryLpm: option.op.deliveryLpm,
+        });
   const sourceIds: SourceId[] = [...Object.values(figures).map((f) => f.sourceId), ...sv.ctx.demandLines.map((l) => l.sourceId), ...SHARED_SOURCES];
   if (option) sourceIds.push('ogden-1911-least-fall', 'efficiency-spread', 'minor-loss-coefficients');
 

@@ -21,7 +21,12 @@ export const TANK_RULES: Readonly<Record<TankRuleId, TankRule>> = {
     sourceId: 'low-yield-storage',
     volumeL: (d, peak) => Math.max(2 * d, 6 * peak),
   },
-  'group-watering-quarter-day': { id: 'group-watering-quarter-day', label: '25 % of the daily herd need (group watering)', sourceId: 'osu-anr-12', volumeL: (d) => 0.25 * d },
+  'group-watering-quarter-day': {
+    id: 'group-watering-quarter-day',
+    label: '25 % of the daily herd need (group watering)',
+    sourceId: 'osu-anr-12',
+    volumeL: (d) => 0.25 * d,
+  },
 };
 
 // Common tank sizes sold for farms, L (common practice, no source).

@@ -25,13 +25,32 @@ export const MIN_PROBABILITY_MEETS = 0.8;
 export const DELIVERY_SAFETY_FACTOR = 1.25;
 
 export interface DriveFacts {
-  lengthM: number; lengthGiven: boolean; bandMinM: number; bandMaxM: number; bandRule: string;
-  lengthConflict: null | 'fall-band-above-ld' | 'fall-band-below-ld'; ldMinM: number; ldMaxM: number;
-  lengthToDiameter: number; closureVelocityMps: number; minimumClosureVelocityMps: number; limitedByFall: boolean;
-  attainableVelocityMps: number; driveLpm: number;
-  workingPeakHeadM: number; blockedDeliveryHeadM: number; allowedHeadM: number; ratingM: number; cyclicDerated: boolean;
-  classLabel: string; higherClassLabel: string | null; materialLabel: string; rigid: boolean; sizeLabel: string;
-  fittingsMade: boolean; smallerThanRam: boolean;
+  lengthM: number;
+  lengthGiven: boolean;
+  bandMinM: number;
+  bandMaxM: number;
+  bandRule: string;
+  lengthConflict: null | 'fall-band-above-ld' | 'fall-band-below-ld';
+  ldMinM: number;
+  ldMaxM: number;
+  lengthToDiameter: number;
+  closureVelocityMps: number;
+  minimumClosureVelocityMps: number;
+  limitedByFall: boolean;
+  attainableVelocityMps: number;
+  driveLpm: number;
+  workingPeakHeadM: number;
+  blockedDeliveryHeadM: number;
+  allowedHeadM: number;
+  ratingM: number;
+  cyclicDerated: boolean;
+  classLabel: string;
+  higherClassLabel: string | null;
+  materialLabel: string;
+  rigid: boolean;
+  sizeLabel: string;
+  fittingsMade: boolean;
+  smallerThanRam: boolean;
 }
 
 export interface RamVerdictFacts {
@@ -46,7 +65,9 @@ export interface RamVerdictFacts {
   availableLpm: number;
   designFraction: number;
   /** The plan: how many rams of which size, or why none can run. */
-  plan: { status: 'meets' | 'short'; count: number; sizeLabel: string; forced: boolean } | { status: 'no-ram'; cause: 'flow' | 'fall' | 'push' | 'soft'; forced: boolean };
+  plan:
+    | { status: 'meets' | 'short'; count: number; sizeLabel: string; forced: boolean }
+    | { status: 'no-ram'; cause: 'flow' | 'fall' | 'push' | 'soft'; forced: boolean };
   smallestRamMinLpm: number;
   leastRamFallM: number;
   staticLiftM: number;
@@ -63,7 +84,10 @@ export interface RamVerdictFacts {
   probabilityMeets: number | null;
   minProbabilityForGo: number;
   /** The fix the figures already assume, when the readings as taken fall short. */
-  fix: null | { kind: 'delivery-pipe'; label: string; shortLpd: number } | { kind: 'more-water'; fraction: number; takeLpm: number; leaveLpm: number; shortLpd: number };
+  fix:
+    | null
+    | { kind: 'delivery-pipe'; label: string; shortLpd: number }
+    | { kind: 'more-water'; fraction: number; takeLpm: number; leaveLpm: number; shortLpd: number };
   drive: DriveFacts | null;
   delivery: { frictionM: number; frictionOverLimit: boolean; ratingM: number; classLabel: string; diameterGiven: boolean };
 }
@@ -103,87 +127,191 @@ function finish(reasons: Reason[], conditions: Condition[], outcome: 'ram' | 'gr
 }
 
 /** Fall survey checks, shared by the ram and the gravity outcomes. */
-function judgeSurvey(f: Pick<RamVerdictFacts, 'fallM' | 'fallSigmaM' | 'fallRunsDisagree' | 'misclosures' | 'bookingFailed' | 'anyDrySeason' | 'lowHeadMeasurements' | 'lowestLpm'>, add: Add): void {
+function judgeSurvey(
+  f: Pick<
+    RamVerdictFacts,
+    'fallM' | 'fallSigmaM' | 'fallRunsDisagree' | 'misclosures' | 'bookingFailed' | 'anyDrySeason' | 'lowHeadMeasurements' | 'lowestLpm'
+  >,
+  add: Add,
+): void {
   if (f.fallSigmaM > MAX_FALL_RELATIVE_SIGMA * Math.max(f.fallM, MIN_FALL_M)) {
-    add('FALL_UNCERTAIN', 'conditional', say`The fall of ${amount('length', f.fallM)} is known only to ±${amount('length', f.fallSigmaM)}.`, 'Measure the fall again with a level and staff or a hose level before buying pipe.');
+    add(
+      'FALL_UNCERTAIN',
+      'conditional',
+      say`The fall of ${amount('length', f.fallM)} is known only to ±${amount('length', f.fallSigmaM)}.`,
+      'Measure the fall again with a level and staff or a hose level before buying pipe.',
+    );
   }
   if (f.fallRunsDisagree.length > 0) {
-    add('FALL_RUNS_DISAGREE', 'conditional', say`Fall run(s) ${f.fallRunsDisagree.map((i) => i + 1).join(', ')} disagree with the most precise run by more than their uncertainty allows; the screen widens the fall's uncertainty by their spread.`, 'Walk the drive pipe route again and repeat the fall measurement.');
+    add(
+      'FALL_RUNS_DISAGREE',
+      'conditional',
+      say`Fall run(s) ${f.fallRunsDisagree.map((i) => i + 1).join(', ')} disagree with the most precise run by more than their uncertainty allows; the screen widens the fall's uncertainty by their spread.`,
+      'Walk the drive pipe route again and repeat the fall measurement.',
+    );
   }
   for (const m of f.misclosures) {
-    add('FALL_MISCLOSURE', 'conditional', say`Level run ${m.index + 1} closes to ${amount('misclosure', Math.abs(m.misclosureMm))}, more than the ${amount('misclosure', m.allowedMm)} allowed.`, 'Repeat the level run out and back until it closes.');
+    add(
+      'FALL_MISCLOSURE',
+      'conditional',
+      say`Level run ${m.index + 1} closes to ${amount('misclosure', Math.abs(m.misclosureMm))}, more than the ${amount('misclosure', m.allowedMm)} allowed.`,
+      'Repeat the level run out and back until it closes.',
+    );
   }
-  for (const i of f.bookingFailed) add('FALL_BOOKING_CHECK', 'conditional', say`Level run ${i + 1} fails the arithmetic check of its booking.`, 'Check the booking of the level run.');
+  for (const i of f.bookingFailed)
+    add('FALL_BOOKING_CHECK', 'conditional', say`Level run ${i + 1} fails the arithmetic check of its booking.`, 'Check the booking of the level run.');
   if (!f.anyDrySeason) {
-    add('FLOW_NOT_DRY_SEASON', 'conditional', say`No flow was measured in the dry season; the lowest measured flow is ${amount('flowLpm', f.lowestLpm)}.`, 'Measure the flow again at the end of the dry season, or check local records, before building.');
+    add(
+      'FLOW_NOT_DRY_SEASON',
+      'conditional',
+      say`No flow was measured in the dry season; the lowest measured flow is ${amount('flowLpm', f.lowestLpm)}.`,
+      'Measure the flow again at the end of the dry season, or check local records, before building.',
+    );
   }
-  for (const i of f.lowHeadMeasurements) add('FLOW_HEAD_BELOW_RANGE', 'note', say`Flow measurement ${i + 1} read less than ${amount('length', 0.06)} on the weir, below its reliable range.`);
+  for (const i of f.lowHeadMeasurements)
+    add('FLOW_HEAD_BELOW_RANGE', 'note', say`Flow measurement ${i + 1} read less than ${amount('length', 0.06)} on the weir, below its reliable range.`);
 }
 
 function judgeDemand(f: RamVerdictFacts, add: Add): void {
   const needLpd = f.demandLpd * (1 + f.marginFraction);
   // Compared at the litre the sheet shows: a need that rounds to 0 L/day is no need recorded.
   if (Math.round(f.demandLpd) <= 0) {
-    add('DEMAND_MISSING', 'conditional', 'No water need was recorded, so the ram could only be sized as the smallest that runs.', 'Record what the farm needs (people, animals, garden) and screen again.');
+    add(
+      'DEMAND_MISSING',
+      'conditional',
+      'No water need was recorded, so the ram could only be sized as the smallest that runs.',
+      'Record what the farm needs (people, animals, garden) and screen again.',
+    );
     return;
   }
   const multiple = f.deliveryLpd > 0 ? (f.lowestLpm * 1440) / f.deliveryLpd : Infinity;
   if (multiple < MIN_SUPPLY_MULTIPLE) {
-    add('SUPPLY_MULTIPLE_LOW', 'conditional', say`The source gives ${amount('ratio', multiple)} times the pumped water; at least ${MIN_SUPPLY_MULTIPLE} times is advised.`, 'Confirm the source can spare the water, or take less.');
+    add(
+      'SUPPLY_MULTIPLE_LOW',
+      'conditional',
+      say`The source gives ${amount('ratio', multiple)} times the pumped water; at least ${MIN_SUPPLY_MULTIPLE} times is advised.`,
+      'Confirm the source can spare the water, or take less.',
+    );
   }
   if (f.fix?.kind === 'delivery-pipe') {
-    add('DELIVERY_PIPE_TOO_SMALL', 'conditional', say`With the delivery pipe as recorded the ram would deliver ${amount('litresPerDay', f.fix.shortLpd)}, less than the ${amount('litresPerDay', f.demandLpd)} needed: the pipe loses too much lift to friction. The figures here assume a ${f.fix.label} delivery pipe.`, say`Use a ${f.fix.label} delivery pipe (or a shorter run).`);
+    add(
+      'DELIVERY_PIPE_TOO_SMALL',
+      'conditional',
+      say`With the delivery pipe as recorded the ram would deliver ${amount('litresPerDay', f.fix.shortLpd)}, less than the ${amount('litresPerDay', f.demandLpd)} needed: the pipe loses too much lift to friction. The figures here assume a ${f.fix.label} delivery pipe.`,
+      say`Use a ${f.fix.label} delivery pipe (or a shorter run).`,
+    );
   } else if (f.fix?.kind === 'more-water') {
-    add('DEMAND_NEEDS_MORE_WATER', 'conditional', say`Taking ${amount('percent', f.designFraction)} of the lowest flow the ram would deliver ${amount('litresPerDay', f.fix.shortLpd)}, less than the ${amount('litresPerDay', f.demandLpd)} needed. The figures here assume it takes ${amount('flowLpm', f.fix.takeLpm)} (${amount('percent', f.fix.fraction)}), leaving ${amount('flowLpm', f.fix.leaveLpm)} in the stream in the dry season.`, say`Agree with the water authority and neighbours downstream that the ram may take ${amount('flowLpm', f.fix.takeLpm)}, leaving ${amount('flowLpm', f.fix.leaveLpm)} in the stream in the dry season.`);
+    add(
+      'DEMAND_NEEDS_MORE_WATER',
+      'conditional',
+      say`Taking ${amount('percent', f.designFraction)} of the lowest flow the ram would deliver ${amount('litresPerDay', f.fix.shortLpd)}, less than the ${amount('litresPerDay', f.demandLpd)} needed. The figures here assume it takes ${amount('flowLpm', f.fix.takeLpm)} (${amount('percent', f.fix.fraction)}), leaving ${amount('flowLpm', f.fix.leaveLpm)} in the stream in the dry season.`,
+      say`Agree with the water authority and neighbours downstream that the ram may take ${amount('flowLpm', f.fix.takeLpm)}, leaving ${amount('flowLpm', f.fix.leaveLpm)} in the stream in the dry season.`,
+    );
   }
   if (f.deliveryLpd < f.demandLpd) {
-    add('DEMAND_NOT_MET', 'no-go', say`The ram${f.plan.status !== 'no-ram' && f.plan.count > 1 ? 's' : ''} would deliver ${amount('litresPerDay', f.deliveryLpd)} against a demand of ${amount('litresPerDay', f.demandLpd)}.`);
+    add(
+      'DEMAND_NOT_MET',
+      'no-go',
+      say`The ram${f.plan.status !== 'no-ram' && f.plan.count > 1 ? 's' : ''} would deliver ${amount('litresPerDay', f.deliveryLpd)} against a demand of ${amount('litresPerDay', f.demandLpd)}.`,
+    );
   } else if (f.deliveryLpd < needLpd) {
-    add('DEMAND_MARGIN_THIN', 'conditional', say`The ram would deliver ${amount('litresPerDay', f.deliveryLpd)}, within the ${amount('percent', f.marginFraction)} margin over the ${amount('litresPerDay', f.demandLpd)} demand.`, 'Agree a smaller demand, or a larger tank to ride through dry spells.');
+    add(
+      'DEMAND_MARGIN_THIN',
+      'conditional',
+      say`The ram would deliver ${amount('litresPerDay', f.deliveryLpd)}, within the ${amount('percent', f.marginFraction)} margin over the ${amount('litresPerDay', f.demandLpd)} demand.`,
+      'Agree a smaller demand, or a larger tank to ride through dry spells.',
+    );
   } else if (f.probabilityMeets !== null && f.probabilityMeets < f.minProbabilityForGo) {
-    add('DEMAND_UNCERTAIN', 'conditional', say`Given what is uncertain in the readings and in how well a ram performs, the chance of meeting the demand is about ${amount('percent', f.probabilityMeets)} (a plain go needs ${amount('percent', f.minProbabilityForGo)}).`, 'Measure the fall and the dry-season flow more precisely, or fit the next larger ram.');
+    add(
+      'DEMAND_UNCERTAIN',
+      'conditional',
+      say`Given what is uncertain in the readings and in how well a ram performs, the chance of meeting the demand is about ${amount('percent', f.probabilityMeets)} (a plain go needs ${amount('percent', f.minProbabilityForGo)}).`,
+      'Measure the fall and the dry-season flow more precisely, or fit the next larger ram.',
+    );
   }
 }
 
 function judgeDrive(f: RamVerdictFacts, d: DriveFacts, add: Add): void {
   if (d.limitedByFall) {
-    add('DRIVE_FLOW_LIMITED_BY_FALL', 'note', say`The fall can push about ${amount('flowLpm', d.driveLpm)} through the drive pipe and open waste valve (closure at ${amount('speed', d.closureVelocityMps)}, never above the ${amount('speed', d.attainableVelocityMps)} steady flow); the figures use that, not the ram's full size.`);
+    add(
+      'DRIVE_FLOW_LIMITED_BY_FALL',
+      'note',
+      say`The fall can push about ${amount('flowLpm', d.driveLpm)} through the drive pipe and open waste valve (closure at ${amount('speed', d.closureVelocityMps)}, never above the ${amount('speed', d.attainableVelocityMps)} steady flow); the figures use that, not the ram's full size.`,
+    );
   }
   const over = Math.max(d.workingPeakHeadM, d.blockedDeliveryHeadM) > d.allowedHeadM;
   const soft = d.closureVelocityMps < d.minimumClosureVelocityMps;
   const rated = say`${d.rigid ? `${d.materialLabel}, ${d.classLabel}` : d.classLabel} (used to ${amount('length', d.allowedHeadM)}${d.cyclicDerated ? say`, half its ${amount('length', d.ratingM)} rating for the ram's pressure cycles` : ''})`;
   if (over && d.workingPeakHeadM > d.allowedHeadM) {
     const text = say`In normal running the ram and drive pipe see about ${amount('length', d.workingPeakHeadM)} of head, more than ${rated} holds.`;
-    if (d.higherClassLabel && !(soft && !d.rigid)) add('WORKING_PRESSURE_ABOVE_RATING', 'conditional', text, say`Use ${d.higherClassLabel} for the drive pipe and ram fittings.`);
-    else if (!d.rigid) add('WORKING_PRESSURE_ABOVE_RATING', 'conditional', text, 'Use a galvanized steel drive pipe, rated for the working and blocked-delivery pressures.');
+    if (d.higherClassLabel && !(soft && !d.rigid))
+      add('WORKING_PRESSURE_ABOVE_RATING', 'conditional', text, say`Use ${d.higherClassLabel} for the drive pipe and ram fittings.`);
+    else if (!d.rigid)
+      add('WORKING_PRESSURE_ABOVE_RATING', 'conditional', text, 'Use a galvanized steel drive pipe, rated for the working and blocked-delivery pressures.');
     else add('WORKING_PRESSURE_ABOVE_RATING', 'no-go', say`${text} No class of it made in ${d.sizeLabel} holds it.`);
   } else if (over) {
     const text = say`If the delivery is blocked (a shut valve, a float valve, a waterlogged air vessel) the ram and drive pipe see up to ${amount('length', d.blockedDeliveryHeadM)} (fall plus surge), more than ${rated} holds; in normal running they see about ${amount('length', d.workingPeakHeadM)}.`;
     if (d.higherClassLabel) add('BLOCKED_PRESSURE_ABOVE_RATING', 'conditional', text, say`Use ${d.higherClassLabel} for the drive pipe and ram fittings.`);
-    else add('BLOCKED_PRESSURE_ABOVE_RATING', 'conditional', text, say`Never let the delivery be shut while the ram runs: fit a pressure-relief valve at the ram set below ${amount('length', d.allowedHeadM)} of head, no float valve on the delivery, and keep the air vessel charged.`);
+    else
+      add(
+        'BLOCKED_PRESSURE_ABOVE_RATING',
+        'conditional',
+        text,
+        say`Never let the delivery be shut while the ram runs: fit a pressure-relief valve at the ram set below ${amount('length', d.allowedHeadM)} of head, no float valve on the delivery, and keep the air vessel charged.`,
+      );
   }
-  if (!d.fittingsMade) add('FITTINGS_NOT_MADE', 'note', say`Threaded fittings of the class chosen (${d.classLabel}) are not made in ${d.sizeLabel}: use flanged or welded joints of the same rating.`);
-  if (d.cyclicDerated) add('PLASTIC_DRIVE_PIPE', 'note', say`A plastic drive pipe is counted at half its pressure class because a ram cycles it ten to a hundred million times a year, and its give weakens the pulse; a rigid galvanized steel drive pipe is the usual choice.`);
+  if (!d.fittingsMade)
+    add(
+      'FITTINGS_NOT_MADE',
+      'note',
+      say`Threaded fittings of the class chosen (${d.classLabel}) are not made in ${d.sizeLabel}: use flanged or welded joints of the same rating.`,
+    );
+  if (d.cyclicDerated)
+    add(
+      'PLASTIC_DRIVE_PIPE',
+      'note',
+      say`A plastic drive pipe is counted at half its pressure class because a ram cycles it ten to a hundred million times a year, and its give weakens the pulse; a rigid galvanized steel drive pipe is the usual choice.`,
+    );
   if (soft) {
     const text = say`The drive flow (about ${amount('speed', d.closureVelocityMps)} at valve closure) is too slow to raise the ${amount('length', f.totalLiftM)} lift above the fall in this pipe (needs ${amount('speed', d.minimumClosureVelocityMps)}).`;
     if (d.rigid) add('DRIVE_TOO_SOFT', 'no-go', say`${text} Find more fall or a lower tank.`);
     else add('DRIVE_TOO_SOFT', 'conditional', text, 'Use a rigid (galvanized steel) drive pipe.');
   }
   if (d.lengthGiven && (d.lengthM < d.bandMinM || d.lengthM > d.bandMaxM)) {
-    const fix = d.lengthM > d.bandMaxM
-      ? say`Build an open stand pipe or tank about ${amount('length', d.bandMaxM)} up the drive pipe from the ram, fed from the intake.`
-      : say`Lengthen the drive pipe to ${amount('length', d.bandMinM)}–${amount('length', d.bandMaxM)}.`;
-    add('DRIVE_LENGTH_OUT_OF_BAND', 'conditional', say`The drive pipe is ${amount('length', d.lengthM)}; the ${d.bandRule} rule gives ${amount('length', d.bandMinM)}–${amount('length', d.bandMaxM)}.`, fix);
+    const fix =
+      d.lengthM > d.bandMaxM
+        ? say`Build an open stand pipe or tank about ${amount('length', d.bandMaxM)} up the drive pipe from the ram, fed from the intake.`
+        : say`Lengthen the drive pipe to ${amount('length', d.bandMinM)}–${amount('length', d.bandMaxM)}.`;
+    add(
+      'DRIVE_LENGTH_OUT_OF_BAND',
+      'conditional',
+      say`The drive pipe is ${amount('length', d.lengthM)}; the ${d.bandRule} rule gives ${amount('length', d.bandMinM)}–${amount('length', d.bandMaxM)}.`,
+      fix,
+    );
   }
   if (d.lengthConflict === 'fall-band-above-ld') {
-    add('DRIVE_BANDS_CONFLICT', 'note', say`The ${d.bandRule} rule asks for ${amount('length', d.bandMinM)}–${amount('length', d.bandMaxM)} of drive pipe, but more than ${amount('length', d.ldMaxM)} is over 1,000 times its bore; the screen uses ${amount('length', d.lengthM)}. Where the intake is farther from the ram, feed an open stand pipe that far up the line and start the drive pipe there.`);
+    add(
+      'DRIVE_BANDS_CONFLICT',
+      'note',
+      say`The ${d.bandRule} rule asks for ${amount('length', d.bandMinM)}–${amount('length', d.bandMaxM)} of drive pipe, but more than ${amount('length', d.ldMaxM)} is over 1,000 times its bore; the screen uses ${amount('length', d.lengthM)}. Where the intake is farther from the ram, feed an open stand pipe that far up the line and start the drive pipe there.`,
+    );
   } else if (d.lengthConflict === 'fall-band-below-ld') {
-    add('DRIVE_BANDS_CONFLICT', 'note', say`The ${d.bandRule} rule gives at most ${amount('length', d.bandMaxM)} of drive pipe, but it needs at least ${amount('length', d.ldMinM)} (150 times its bore) to beat steadily; the screen uses ${amount('length', d.lengthM)}, laid at a gentle slope.`);
+    add(
+      'DRIVE_BANDS_CONFLICT',
+      'note',
+      say`The ${d.bandRule} rule gives at most ${amount('length', d.bandMaxM)} of drive pipe, but it needs at least ${amount('length', d.ldMinM)} (150 times its bore) to beat steadily; the screen uses ${amount('length', d.lengthM)}, laid at a gentle slope.`,
+    );
   }
   if (d.lengthToDiameter < 150 || d.lengthToDiameter > 1000) {
-    add('DRIVE_LD_OUT_OF_BAND', 'conditional', say`The drive pipe's length is ${amount('ratio', d.lengthToDiameter)} times its bore; 150–1,000 is advised.`, say`Make the drive pipe ${amount('length', d.ldMinM)}–${amount('length', d.ldMaxM)} long, or change its size.`);
+    add(
+      'DRIVE_LD_OUT_OF_BAND',
+      'conditional',
+      say`The drive pipe's length is ${amount('ratio', d.lengthToDiameter)} times its bore; 150–1,000 is advised.`,
+      say`Make the drive pipe ${amount('length', d.ldMinM)}–${amount('length', d.ldMaxM)} long, or change its size.`,
+    );
   }
-  if (d.smallerThanRam) add('DRIVE_SMALLER_THAN_RAM', 'conditional', 'The drive pipe is smaller than the ram size the screen chose.', 'Use a drive pipe of the ram inlet size.');
+  if (d.smallerThanRam)
+    add('DRIVE_SMALLER_THAN_RAM', 'conditional', 'The drive pipe is smaller than the ram size the screen chose.', 'Use a drive pipe of the ram inlet size.');
 }
 
 /** Applies the verdict rules for a ram to the computed facts. */
@@ -195,39 +323,85 @@ export function judge(f: RamVerdictFacts): Judgement {
   if (fallMm < MIN_FALL_M) {
     add('FALL_TOO_SMALL', 'no-go', say`The fall is ${amount('level', fallMm)}; a ram needs at least ${amount('level', MIN_FALL_M)}.`);
   } else if (f.plan.status === 'no-ram' && f.plan.cause === 'fall') {
-    add('FALL_BELOW_RAM_SIZES', 'no-go', say`The fall is ${amount('level', fallMm)}; the rams of the size table need at least ${amount('level', f.leastRamFallM)} (Ogden 1911).`);
+    add(
+      'FALL_BELOW_RAM_SIZES',
+      'no-go',
+      say`The fall is ${amount('level', fallMm)}; the rams of the size table need at least ${amount('level', f.leastRamFallM)} (Ogden 1911).`,
+    );
   }
   judgeSurvey(f, add);
 
   // Water and ram size
   if (f.plan.status === 'no-ram' && f.plan.cause === 'flow') {
-    add('FLOW_TOO_SMALL', 'no-go', say`The ram may take ${amount('flowLpm', f.availableLpm)} (${amount('percent', f.designFraction)} of the lowest flow); the smallest ram in the size table needs ${amount('flowLpm', f.smallestRamMinLpm)}.`);
+    add(
+      'FLOW_TOO_SMALL',
+      'no-go',
+      say`The ram may take ${amount('flowLpm', f.availableLpm)} (${amount('percent', f.designFraction)} of the lowest flow); the smallest ram in the size table needs ${amount('flowLpm', f.smallestRamMinLpm)}.`,
+    );
   } else if (f.plan.status === 'no-ram' && (f.plan.cause === 'push' || f.plan.cause === 'soft')) {
-    add('FALL_CANNOT_PUSH', 'no-go', say`A fall of ${amount('length', f.fallM)} cannot push the least drive flow of any ram that fits the water through its drive pipe.`);
+    add(
+      'FALL_CANNOT_PUSH',
+      'no-go',
+      say`A fall of ${amount('length', f.fallM)} cannot push the least drive flow of any ram that fits the water through its drive pipe.`,
+    );
   } else if (f.plan.status !== 'no-ram' && f.plan.count > 1) {
-    add('RAMS_IN_PARALLEL', 'note', say`One ram cannot use the water needed: ${f.plan.count} rams of ${f.plan.sizeLabel}, each on its own drive pipe, share one delivery pipe.`);
+    add(
+      'RAMS_IN_PARALLEL',
+      'note',
+      say`One ram cannot use the water needed: ${f.plan.count} rams of ${f.plan.sizeLabel}, each on its own drive pipe, share one delivery pipe.`,
+    );
   }
 
   // Lift
   if (f.plan.status !== 'no-ram' && fallMm >= MIN_FALL_M) {
     if (roundMm(f.liftRatio) > MAX_LIFT_RATIO) {
-      add('LIFT_RATIO_TOO_HIGH', 'no-go', say`The lift is ${amount('ratio', f.liftRatio)} times the fall (${amount('length', f.totalLiftM)} over ${amount('length', f.fallM)}); rams are offered up to about ${MAX_LIFT_RATIO} times.`);
+      add(
+        'LIFT_RATIO_TOO_HIGH',
+        'no-go',
+        say`The lift is ${amount('ratio', f.liftRatio)} times the fall (${amount('length', f.totalLiftM)} over ${amount('length', f.fallM)}); rams are offered up to about ${MAX_LIFT_RATIO} times.`,
+      );
     } else if (f.efficiencyStatus === 'above-range') {
-      add('LIFT_RATIO_BEYOND_CURVE', 'no-go', say`The lift ratio ${amount('ratio', f.liftRatio)} is beyond the ${f.curveLabel} (up to ${f.curveRange[1]}); no efficiency can be stated.`);
+      add(
+        'LIFT_RATIO_BEYOND_CURVE',
+        'no-go',
+        say`The lift ratio ${amount('ratio', f.liftRatio)} is beyond the ${f.curveLabel} (up to ${f.curveRange[1]}); no efficiency can be stated.`,
+      );
     } else if (f.liftRatio > WARN_LIFT_RATIO) {
-      add('LIFT_RATIO_HIGH', 'conditional', say`The lift is ${amount('ratio', f.liftRatio)} times the fall; efficiency is low and uncertain above ${WARN_LIFT_RATIO}.`, "Confirm the delivery with the ram maker's data for this lift ratio, or find more fall.");
+      add(
+        'LIFT_RATIO_HIGH',
+        'conditional',
+        say`The lift is ${amount('ratio', f.liftRatio)} times the fall; efficiency is low and uncertain above ${WARN_LIFT_RATIO}.`,
+        "Confirm the delivery with the ram maker's data for this lift ratio, or find more fall.",
+      );
     }
     if (f.liftRatio > f.curveStatedUpTo && f.liftRatio <= f.curveRange[1]) {
-      add('LIFT_RATIO_BEYOND_STATED', 'note', say`The ${f.curveLabel} is stated up to a lift ratio of ${f.curveStatedUpTo}; at ${amount('ratio', f.liftRatio)} it likely overstates the delivery.`);
+      add(
+        'LIFT_RATIO_BEYOND_STATED',
+        'note',
+        say`The ${f.curveLabel} is stated up to a lift ratio of ${f.curveStatedUpTo}; at ${amount('ratio', f.liftRatio)} it likely overstates the delivery.`,
+      );
     }
     if (f.efficiencyStatus === 'below-range') {
-      add('LIFT_RATIO_BELOW_CURVE', 'note', say`The lift ratio ${amount('ratio', f.liftRatio)} is below the ${f.curveLabel} (from ${f.curveRange[0]}); the share of the drive water delivered is held at its first value, not extended.`);
+      add(
+        'LIFT_RATIO_BELOW_CURVE',
+        'note',
+        say`The lift ratio ${amount('ratio', f.liftRatio)} is below the ${f.curveLabel} (from ${f.curveRange[0]}); the share of the drive water delivered is held at its first value, not extended.`,
+      );
     }
     if (f.liftRatio < LOW_LIFT_RATIO) {
-      add('LIFT_RATIO_LOW', 'note', say`The tank is only ${amount('ratio', f.liftRatio)} times the fall above the ram; a ram does little below about ${LOW_LIFT_RATIO}. A site with more fall, or the tank set a little lower so it fills by gravity, may serve better.`);
+      add(
+        'LIFT_RATIO_LOW',
+        'note',
+        say`The tank is only ${amount('ratio', f.liftRatio)} times the fall above the ram; a ram does little below about ${LOW_LIFT_RATIO}. A site with more fall, or the tank set a little lower so it fills by gravity, may serve better.`,
+      );
     }
     if (roundMm(f.totalLiftM) < MIN_DELIVERY_HEAD_M) {
-      add('LIFT_BELOW_START_HEAD', 'conditional', say`The total lift of ${amount('length', f.totalLiftM)} is below the ~${amount('length', MIN_DELIVERY_HEAD_M)} a ram needs to cycle.`, say`Raise the tank or lead the delivery pipe up a rise so the ram sees at least ${amount('length', MIN_DELIVERY_HEAD_M)} of back-pressure.`);
+      add(
+        'LIFT_BELOW_START_HEAD',
+        'conditional',
+        say`The total lift of ${amount('length', f.totalLiftM)} is below the ~${amount('length', MIN_DELIVERY_HEAD_M)} a ram needs to cycle.`,
+        say`Raise the tank or lead the delivery pipe up a rise so the ram sees at least ${amount('length', MIN_DELIVERY_HEAD_M)} of back-pressure.`,
+      );
     }
   }
   const blocked = reasons.some((r) => r.severity === 'no-go');
@@ -236,16 +410,39 @@ export function judge(f: RamVerdictFacts): Judgement {
     judgeDemand(f, add);
     if (f.drive) judgeDrive(f, f.drive, add);
     if (f.delivery.ratingM < f.totalLiftM * DELIVERY_SAFETY_FACTOR) {
-      add('DELIVERY_PIPE_RATING_LOW', 'conditional', say`The delivery pipe (${f.delivery.classLabel}) is rated for ${amount('length', f.delivery.ratingM)}, less than ${DELIVERY_SAFETY_FACTOR} × the ${amount('length', f.totalLiftM)} lift.`, say`Use delivery pipe rated for at least ${amount('length', f.totalLiftM * DELIVERY_SAFETY_FACTOR)} of head near the ram (a higher class, or steel for the first lengths).`);
+      add(
+        'DELIVERY_PIPE_RATING_LOW',
+        'conditional',
+        say`The delivery pipe (${f.delivery.classLabel}) is rated for ${amount('length', f.delivery.ratingM)}, less than ${DELIVERY_SAFETY_FACTOR} × the ${amount('length', f.totalLiftM)} lift.`,
+        say`Use delivery pipe rated for at least ${amount('length', f.totalLiftM * DELIVERY_SAFETY_FACTOR)} of head near the ram (a higher class, or steel for the first lengths).`,
+      );
     }
     if (f.delivery.frictionOverLimit && f.fix?.kind !== 'delivery-pipe' && !reasons.some((r) => r.code === 'DEMAND_NOT_MET')) {
-      add('DELIVERY_FRICTION_HIGH', 'note', say`Friction in the delivery pipe takes ${amount('length', f.delivery.frictionM)}, more than 10 % of the ${amount('length', f.staticLiftM)} static lift${f.delivery.diameterGiven ? '' : ' even in the largest size'}.`);
+      add(
+        'DELIVERY_FRICTION_HIGH',
+        'note',
+        say`Friction in the delivery pipe takes ${amount('length', f.delivery.frictionM)}, more than 10 % of the ${amount('length', f.staticLiftM)} static lift${f.delivery.diameterGiven ? '' : ' even in the largest size'}.`,
+      );
     }
   }
   return finish(reasons, conditions);
 }
 
-export interface GravityVerdictFacts extends Pick<RamVerdictFacts, 'fallM' | 'fallSigmaM' | 'fallRunsDisagree' | 'misclosures' | 'bookingFailed' | 'anyDrySeason' | 'lowHeadMeasurements' | 'lowestLpm' | 'availableLpm' | 'designFraction' | 'demandLpd' | 'marginFraction'> {
+export interface GravityVerdictFacts extends Pick<
+  RamVerdictFacts,
+  | 'fallM'
+  | 'fallSigmaM'
+  | 'fallRunsDisagree'
+  | 'misclosures'
+  | 'bookingFailed'
+  | 'anyDrySeason'
+  | 'lowHeadMeasurements'
+  | 'lowestLpm'
+  | 'availableLpm'
+  | 'designFraction'
+  | 'demandLpd'
+  | 'marginFraction'
+> {
   staticLiftM: number;
   headM: number;
   pipeLabel: string | null;
@@ -259,24 +456,56 @@ export interface GravityVerdictFacts extends Pick<RamVerdictFacts, 'fallM' | 'fa
 export function judgeGravity(f: GravityVerdictFacts): Judgement {
   const { add, reasons, conditions } = collector();
   const needLpd = f.demandLpd * (1 + f.marginFraction);
-  add('GRAVITY_SUPPLY', 'note', say`The tank's water level is ${amount('length', f.headM)} below the intake: a pipe fills it by gravity and no pump is needed.`);
+  add(
+    'GRAVITY_SUPPLY',
+    'note',
+    say`The tank's water level is ${amount('length', f.headM)} below the intake: a pipe fills it by gravity and no pump is needed.`,
+  );
   judgeSurvey(f, add);
   if (f.fallSigmaM > 0 && f.headM < 2 * f.fallSigmaM) {
-    add('GRAVITY_HEAD_UNCERTAIN', 'conditional', say`The ${amount('length', f.headM)} difference in level is within the survey's uncertainty (±${amount('length', f.fallSigmaM)}).`, 'Level the intake and the tank site against each other before laying pipe.');
+    add(
+      'GRAVITY_HEAD_UNCERTAIN',
+      'conditional',
+      say`The ${amount('length', f.headM)} difference in level is within the survey's uncertainty (±${amount('length', f.fallSigmaM)}).`,
+      'Level the intake and the tank site against each other before laying pipe.',
+    );
   }
   if (f.pipeLabel !== null && f.givenShortLpd !== null) {
-    add('GRAVITY_PIPE_TOO_SMALL', 'conditional', say`The pipe as recorded carries only about ${amount('litresPerDay', f.givenShortLpd)} over ${amount('length', f.pipeLengthM)} with ${amount('length', f.headM)} of fall; the figures here assume a ${f.pipeLabel} pipe.`, say`Use a ${f.pipeLabel} pipe from the intake to the tank.`);
+    add(
+      'GRAVITY_PIPE_TOO_SMALL',
+      'conditional',
+      say`The pipe as recorded carries only about ${amount('litresPerDay', f.givenShortLpd)} over ${amount('length', f.pipeLengthM)} with ${amount('length', f.headM)} of fall; the figures here assume a ${f.pipeLabel} pipe.`,
+      say`Use a ${f.pipeLabel} pipe from the intake to the tank.`,
+    );
   }
   if (f.pipeLabel === null) {
-    add('GRAVITY_HEAD_TOO_SMALL', 'no-go', say`Over ${amount('length', f.pipeLengthM)} of pipe, friction takes more than the ${amount('length', f.headM)} difference in level in every pipe size at the ${amount('litresPerDay', needLpd)} needed. Set the tank lower or find a shorter route.`);
+    add(
+      'GRAVITY_HEAD_TOO_SMALL',
+      'no-go',
+      say`Over ${amount('length', f.pipeLengthM)} of pipe, friction takes more than the ${amount('length', f.headM)} difference in level in every pipe size at the ${amount('litresPerDay', needLpd)} needed. Set the tank lower or find a shorter route.`,
+    );
   }
   // Compared at the litre the sheet shows: a need that rounds to 0 L/day is no need recorded.
   if (Math.round(f.demandLpd) <= 0) {
-    add('DEMAND_MISSING', 'conditional', 'No water need was recorded, so the pipe could not be sized for it.', 'Record what the farm needs (people, animals, garden) and screen again.');
+    add(
+      'DEMAND_MISSING',
+      'conditional',
+      'No water need was recorded, so the pipe could not be sized for it.',
+      'Record what the farm needs (people, animals, garden) and screen again.',
+    );
   } else if (f.availableLpm * 1440 < f.demandLpd) {
-    add('DEMAND_NOT_MET', 'no-go', say`The stream can spare ${amount('litresPerDay', f.availableLpm * 1440)} (${amount('percent', f.designFraction)} of the lowest flow), less than the ${amount('litresPerDay', f.demandLpd)} needed.`);
+    add(
+      'DEMAND_NOT_MET',
+      'no-go',
+      say`The stream can spare ${amount('litresPerDay', f.availableLpm * 1440)} (${amount('percent', f.designFraction)} of the lowest flow), less than the ${amount('litresPerDay', f.demandLpd)} needed.`,
+    );
   } else if (f.availableLpm * 1440 < needLpd) {
-    add('DEMAND_MARGIN_THIN', 'conditional', say`The stream can spare ${amount('litresPerDay', f.availableLpm * 1440)}, within the ${amount('percent', f.marginFraction)} margin over the ${amount('litresPerDay', f.demandLpd)} demand.`, 'Agree a smaller demand, or a larger tank to ride through dry spells.');
+    add(
+      'DEMAND_MARGIN_THIN',
+      'conditional',
+      say`The stream can spare ${amount('litresPerDay', f.availableLpm * 1440)}, within the ${amount('percent', f.marginFraction)} margin over the ${amount('litresPerDay', f.demandLpd)} demand.`,
+      'Agree a smaller demand, or a larger tank to ride through dry spells.',
+    );
   }
   return finish(reasons, conditions, 'gravity');
 }

@@ -63,16 +63,26 @@ export function wasteValveAdvice(
 ): WasteValveAdvice | null {
   positive(design.driveLpm, 'design.driveLpm');
   const p: RamCycleInput = {
-    fallM: measured.fallM, liftM: measured.liftM, driveLengthM: design.driveLengthM, driveBoreMm: design.driveBoreMm,
-    ...(design.waveSpeedMps ? { waveSpeedMps: design.waveSpeedMps } : {}), ...(design.darcyF ? { darcyF: design.darcyF } : {}),
-    strokeMm, valveWeightN: 1,
+    fallM: measured.fallM,
+    liftM: measured.liftM,
+    driveLengthM: design.driveLengthM,
+    driveBoreMm: design.driveBoreMm,
+    ...(design.waveSpeedMps ? { waveSpeedMps: design.waveSpeedMps } : {}),
+    ...(design.darcyF ? { darcyF: design.darcyF } : {}),
+    strokeMm,
+    valveWeightN: 1,
   };
   const vMeasured = closureForBeats(p, measured.beatsPerMinute);
   if (vMeasured === null) return null;
   const now = ramCycle(p, vMeasured);
   let target = ramCycle(p, closureForDriveFlow(p, design.driveLpm));
   // A design flow the pipe passes only at a crawl (or a trickle at a flutter) is held to the quoted beat band.
-  const edge = target.beatsPerMinute < BEATS_PER_MINUTE_BAND.min ? BEATS_PER_MINUTE_BAND.min : target.beatsPerMinute > BEATS_PER_MINUTE_BAND.max ? BEATS_PER_MINUTE_BAND.max : null;
+  const edge =
+    target.beatsPerMinute < BEATS_PER_MINUTE_BAND.min
+      ? BEATS_PER_MINUTE_BAND.min
+      : target.beatsPerMinute > BEATS_PER_MINUTE_BAND.max
+        ? BEATS_PER_MINUTE_BAND.max
+        : null;
   const edgeClosure = edge === null ? null : closureForBeats(p, edge);
   if (edgeClosure !== null) target = ramCycle(p, edgeClosure);
   const ratio = measured.beatsPerMinute / target.beatsPerMinute;

@@ -14,15 +14,16 @@ export interface AuditInput {
 
 /** Appends one line to the audit log (who changed what, and when); in the caller's transaction. */
 export async function recordAudit(entry: AuditInput, transaction?: Transaction): Promise<void> {
-  await AuditEntry.create(
-    { ...entry, visitId: entry.visitId ?? null, changes: entry.changes ?? null },
-    { transaction },
-  );
+  await AuditEntry.create({ ...entry, visitId: entry.visitId ?? null, changes: entry.changes ?? null }, { transaction });
 }
 
 /** Appends many audit lines in one statement (a push batch's applied ops); in the caller's transaction. */
 export async function recordAudits(entries: AuditInput[], transaction: Transaction): Promise<void> {
   if (entries.length === 0) return;
   const createdAt = new Date();
-  await batchInsert(AuditEntry, entries.map((entry) => ({ ...entry, visitId: entry.visitId ?? null, changes: entry.changes ?? null, createdAt })), transaction);
+  await batchInsert(
+    AuditEntry,
+    entries.map((entry) => ({ ...entry, visitId: entry.visitId ?? null, changes: entry.changes ?? null, createdAt })),
+    transaction,
+  );
 }

@@ -25,27 +25,36 @@ const appSchema = z.object({
   MAIL_FROM: z.string().default('Fallbook <no-reply@fallbook.test>'),
 });
 
-const flag = z.enum(['0', '1', 'true', 'false', '']).default('').transform((v) => v === '1' || v === 'true');
+const flag = z
+  .enum(['0', '1', 'true', 'false', ''])
+  .default('')
+  .transform((v) => v === '1' || v === 'true');
 
-const storageSchema = z.object({
-  /** `local` keeps photos in PHOTO_DIR; `s3` in an S3-compatible bucket. */
-  STORAGE_DRIVER: z.enum(['local', 's3']).default('local'),
-  /** Folder for photo originals and thumbnails (relative to the app's folder, or absolute). */
-  PHOTO_DIR: z.string().min(1).default('.data/photos'),
-  S3_ENDPOINT: z.string().url().optional().or(z.literal('')),
-  S3_BUCKET: z.string().default(''),
-  S3_REGION: z.string().min(1).default('us-east-1'),
-  S3_ACCESS_KEY_ID: z.string().optional(),
-  S3_SECRET_ACCESS_KEY: z.string().optional(),
-  S3_FORCE_PATH_STYLE: flag,
-  S3_PREFIX: z.string().regex(/^([a-z0-9][a-z0-9._-]*\/)*$/, 'S3_PREFIX must be empty or end with /, e.g. fallbook/').default(''),
-  /** With the S3 driver: answer photo downloads (after the access check) with a presigned URL. */
-  S3_SIGNED_URLS: flag,
-  /** How long such a URL is valid, in seconds. */
-  S3_SIGNED_URL_SECONDS: z.coerce.number().int().min(1).max(3600).default(60),
-}).refine((env) => env.STORAGE_DRIVER !== 's3' || env.S3_BUCKET.length >= 3, {
-  message: 'STORAGE_DRIVER=s3 needs S3_BUCKET (3 to 63 characters)', path: ['S3_BUCKET'],
-});
+const storageSchema = z
+  .object({
+    /** `local` keeps photos in PHOTO_DIR; `s3` in an S3-compatible bucket. */
+    STORAGE_DRIVER: z.enum(['local', 's3']).default('local'),
+    /** Folder for photo originals and thumbnails (relative to the app's folder, or absolute). */
+    PHOTO_DIR: z.string().min(1).default('.data/photos'),
+    S3_ENDPOINT: z.string().url().optional().or(z.literal('')),
+    S3_BUCKET: z.string().default(''),
+    S3_REGION: z.string().min(1).default('us-east-1'),
+    S3_ACCESS_KEY_ID: z.string().optional(),
+    S3_SECRET_ACCESS_KEY: z.string().optional(),
+    S3_FORCE_PATH_STYLE: flag,
+    S3_PREFIX: z
+      .string()
+      .regex(/^([a-z0-9][a-z0-9._-]*\/)*$/, 'S3_PREFIX must be empty or end with /, e.g. fallbook/')
+      .default(''),
+    /** With the S3 driver: answer photo downloads (after the access check) with a presigned URL. */
+    S3_SIGNED_URLS: flag,
+    /** How long such a URL is valid, in seconds. */
+    S3_SIGNED_URL_SECONDS: z.coerce.number().int().min(1).max(3600).default(60),
+  })
+  .refine((env) => env.STORAGE_DRIVER !== 's3' || env.S3_BUCKET.length >= 3, {
+    message: 'STORAGE_DRIVER=s3 needs S3_BUCKET (3 to 63 characters)',
+    path: ['S3_BUCKET'],
+  });
 
 let storageEnvCache: z.infer<typeof storageSchema> | undefined;
 let dbEnvCache: z.infer<typeof dbSchema> | undefined;

@@ -18,8 +18,7 @@ export const unauthorized = (message = 'Sign in to continue.') => new AppError(4
 export const forbidden = (message = 'You do not have access to this.') => new AppError(403, 'forbidden', message);
 export const notFound = (what = 'record') => new AppError(404, 'not_found', `No such ${what}.`);
 export const conflict = (message: string) => new AppError(409, 'conflict', message);
-export const invalid = (message: string, fieldErrors?: Record<string, string[]>) =>
-  new AppError(422, 'invalid', message, fieldErrors);
+export const invalid = (message: string, fieldErrors?: Record<string, string[]>) => new AppError(422, 'invalid', message, fieldErrors);
 export const tooLarge = (message: string) => new AppError(413, 'too_large', message);
 export const unsupportedType = (message: string) => new AppError(415, 'unsupported_type', message);
 export const rateLimited = (message: string) => new AppError(429, 'rate_limited', message);
@@ -40,16 +39,10 @@ export function toHttpResponse(error: unknown): Response {
     const fieldErrors = zodFieldErrors(error);
     const first = error.issues[0];
     const where = first?.path.length ? `${first.path.join('.')}: ` : '';
-    return Response.json(
-      { error: { code: 'invalid', message: `${where}${first?.message ?? 'Invalid input.'}`, fieldErrors } },
-      { status: 422 },
-    );
+    return Response.json({ error: { code: 'invalid', message: `${where}${first?.message ?? 'Invalid input.'}`, fieldErrors } }, { status: 422 });
   }
   if (error instanceof AppError) {
-    return Response.json(
-      { error: { code: error.code, message: error.message, fieldErrors: error.fieldErrors } },
-      { status: error.status },
-    );
+    return Response.json({ error: { code: error.code, message: error.message, fieldErrors: error.fieldErrors } }, { status: error.status });
   }
   console.error('[fallbook] unexpected error', error);
   return Response.json({ error: { code: 'server_error', message: 'Something went wrong on the server.' } }, { status: 500 });

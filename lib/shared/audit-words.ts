@@ -5,8 +5,15 @@ import { formatDay } from './display/dates';
 import { formatBytes } from './display/numbers';
 import { showQuantity } from './display/quantities';
 
-export interface AuditFacts { entity: string; action: string; changes: unknown }
-export interface AuditWords { title: string; detail: string }
+export interface AuditFacts {
+  entity: string;
+  action: string;
+  changes: unknown;
+}
+export interface AuditWords {
+  title: string;
+  detail: string;
+}
 
 type Json = Record<string, unknown>;
 
@@ -21,7 +28,14 @@ const RECORDS: Record<string, { a: string; name?: (c: Json) => string | null }> 
   demandLine: { a: 'a water need', name: (c) => (typeof c.count === 'number' && c.kind ? `${c.count} × ${String(c.kind).replace(/-/g, ' ')}` : null) },
   pipeRun: { a: 'a pipe run', name: (c) => (c.purpose ? `${String(c.purpose)} pipe${typeof c.lengthM === 'number' ? `, ${c.lengthM} m` : ''}` : null) },
 };
-const POINT_ROLES: Record<string, string> = { intake: 'intake', pump: 'ram site', tank: 'tank', station: 'creek-profile station', source: 'source', other: 'other point' };
+const POINT_ROLES: Record<string, string> = {
+  intake: 'intake',
+  pump: 'ram site',
+  tank: 'tank',
+  station: 'creek-profile station',
+  source: 'source',
+  other: 'other point',
+};
 
 const str = (v: unknown): string | null => (typeof v === 'string' && v.trim() ? v.trim() : null);
 const state = (v: unknown): string => VISIT_STATUS_LABELS[v as VisitStatus] ?? 'an unknown state';
@@ -29,8 +43,24 @@ const quote = (v: unknown, max = 160): string => {
   const s = str(v);
   return s ? `“${s.length > max ? `${s.slice(0, max)}…` : s}”` : '';
 };
-const field = (name: string): string => ({ notes: 'notes', status: 'state', visitedAt: 'visit time', lengthM: 'length', diameterMm: 'diameter',
-  label: 'label', caption: 'caption', count: 'number', lat: 'position', lon: 'position', measurement: 'trials', run: 'readings', material: 'material' } as Record<string, string>)[name] ?? name.replace(/([A-Z])/g, ' $1').toLowerCase();
+const field = (name: string): string =>
+  (
+    ({
+      notes: 'notes',
+      status: 'state',
+      visitedAt: 'visit time',
+      lengthM: 'length',
+      diameterMm: 'diameter',
+      label: 'label',
+      caption: 'caption',
+      count: 'number',
+      lat: 'position',
+      lon: 'position',
+      measurement: 'trials',
+      run: 'readings',
+      material: 'material',
+    }) as Record<string, string>
+  )[name] ?? name.replace(/([A-Z])/g, ' $1').toLowerCase();
 
 /** The move between two states, from either stored shape ({from, to} or {before: {status}, after: {status}}). */
 function move(c: Json): { from?: unknown; to?: unknown } {
@@ -45,14 +75,33 @@ export function describeAudit(line: AuditFacts, person: (id: string | null | und
   const after = (c.after ?? {}) as Json;
   switch (`${line.entity}:${line.action}`) {
     case 'visit:create':
-      return { title: 'Visit planned', detail: [c.farm ? `for ${String(c.farm)}` : '', c.advisorId ? `advisor ${person(c.advisorId as string)}` : 'no advisor yet',
-        c.plannedOn ? `on ${formatDay(c.plannedOn as string)}` : 'no date yet', c.status ? `state “${state(c.status)}”` : ''].filter(Boolean).join(', ') };
+      return {
+        title: 'Visit planned',
+        detail: [
+          c.farm ? `for ${String(c.farm)}` : '',
+          c.advisorId ? `advisor ${person(c.advisorId as string)}` : 'no advisor yet',
+          c.plannedOn ? `on ${formatDay(c.plannedOn as string)}` : 'no date yet',
+          c.status ? `state “${state(c.status)}”` : '',
+        ]
+          .filter(Boolean)
+          .join(', '),
+      };
     case 'visit:assign':
     case 'visit:reassign':
     case 'visit:replan': {
       const parts: string[] = [];
-      if (before.advisorId !== after.advisorId) parts.push(before.advisorId ? `advisor ${person(before.advisorId as string)} → ${person(after.advisorId as string)}` : `advisor ${person(after.advisorId as string)}`);
-      if (before.plannedOn !== after.plannedOn) parts.push(before.plannedOn ? `date ${formatDay(before.plannedOn as string)} → ${formatDay(after.plannedOn as string)}` : `date ${formatDay(after.plannedOn as string)}`);
+      if (before.advisorId !== after.advisorId)
+        parts.push(
+          before.advisorId
+            ? `advisor ${person(before.advisorId as string)} → ${person(after.advisorId as string)}`
+            : `advisor ${person(after.advisorId as string)}`,
+        );
+      if (before.plannedOn !== after.plannedOn)
+        parts.push(
+          before.plannedOn
+            ? `date ${formatDay(before.plannedOn as string)} → ${formatDay(after.plannedOn as string)}`
+            : `date ${formatDay(after.plannedOn as string)}`,
+        );
       if (after.status && before.status !== after.status) parts.push(`state “${state(before.status)}” → “${state(after.status)}”`);
       const title = line.action === 'reassign' ? 'Given to another advisor' : line.action === 'assign' ? 'Advisor assigned' : 'Planned date changed';
       return { title, detail: parts.join('; ') };

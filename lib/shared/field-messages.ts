@@ -42,7 +42,8 @@ export function plainIssueMessage(issue: IssueLike, units: UnitSystem = 'metric'
       return issue.expected === 'number' ? `${label} must be a number.` : `${label} is not in a form the app can use.`;
     case 'too_small':
       if (issue.origin === 'array' || issue.origin === 'set') return `${label}: add at least ${Number(issue.minimum)}.`;
-      if (issue.origin === 'string') return Number(issue.minimum) <= 1 ? `${label} is needed.` : `${label} must be at least ${Number(issue.minimum)} characters.`;
+      if (issue.origin === 'string')
+        return Number(issue.minimum) <= 1 ? `${label} is needed.` : `${label} must be at least ${Number(issue.minimum)} characters.`;
       if (Number(issue.minimum) === 0) return issue.inclusive ? `${label} must not be negative.` : `${label} must be more than 0.`;
       return `${label} must be at least ${limit(issue.minimum)}.`;
     case 'too_big':

@@ -1,7 +1,10 @@
 // Fitting a map to a district that one mistyped position must not blow up to a continent: marks far
 // from the district's middle are left out of the fit and named instead.
 
-export interface Located { lat: number; lon: number }
+export interface Located {
+  lat: number;
+  lon: number;
+}
 
 /** Mean Earth radius (IUGG), km. */
 const EARTH_KM = 6371.0088;
@@ -51,5 +54,8 @@ export function boundsOf(marks: Located[]): [[number, number], [number, number]]
   if (!marks.length) return null;
   const lats = marks.map((m) => m.lat);
   const lons = marks.map((m) => m.lon);
-  return [[Math.min(...lats), Math.min(...lons)], [Math.max(...lats), Math.max(...lons)]];
+  return [
+    [Math.min(...lats), Math.min(...lons)],
+    [Math.max(...lats), Math.max(...lons)],
+  ];
 }

@@ -3,9 +3,21 @@
 // address of each under the organisation's tile template. Pure: the phone, the worker and the tests
 // share it.
 
-export interface Tile { z: number; x: number; y: number }
-export interface Bbox { south: number; west: number; north: number; east: number }
-export interface LatLon { lat: number; lon: number }
+export interface Tile {
+  z: number;
+  x: number;
+  y: number;
+}
+export interface Bbox {
+  south: number;
+  west: number;
+  north: number;
+  east: number;
+}
+export interface LatLon {
+  lat: number;
+  lon: number;
+}
 
 /** The spherical-Mercator projection is undefined at the poles; web maps stop here. */
 const MAX_LAT = 85.0511287798;
@@ -50,8 +62,10 @@ export function bboxAround(points: readonly LatLon[], radiusM: number): Bbox | n
   for (const p of points) {
     const dLon = dLat / Math.max(0.01, Math.cos((p.lat * Math.PI) / 180));
     box = {
-      south: Math.min(box.south, clampLat(p.lat - dLat)), north: Math.max(box.north, clampLat(p.lat + dLat)),
-      west: Math.min(box.west, Math.max(-180, p.lon - dLon)), east: Math.max(box.east, Math.min(180, p.lon + dLon)),
+      south: Math.min(box.south, clampLat(p.lat - dLat)),
+      north: Math.max(box.north, clampLat(p.lat + dLat)),
+      west: Math.min(box.west, Math.max(-180, p.lon - dLon)),
+      east: Math.max(box.east, Math.min(180, p.lon + dLon)),
     };
   }
   return box;
@@ -134,21 +148,26 @@ export function tileUrl(template: string, t: Tile): string {
 export function tileMatcher(template: string): (url: string) => Tile | null {
   if (!template) return () => null;
   const order: ('z' | 'x' | 'y')[] = [];
-  const source = template.split(/(\{[a-z]+\})/).map((part) => {
-    if (part === '{z}' || part === '{x}' || part === '{y}') {
-      order.push(part[1] as 'z' | 'x' | 'y');
-      return '(\\d+)';
-    }
-    if (part === '{s}') return '[a-z0-9-]+';
-    if (part === '{r}') return '(?:@2x)?';
-    return part.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
-  }).join('');
+  const source = template
+    .split(/(\{[a-z]+\})/)
+    .map((part) => {
+      if (part === '{z}' || part === '{x}' || part === '{y}') {
+        order.push(part[1] as 'z' | 'x' | 'y');
+        return '(\\d+)';
+      }
+      if (part === '{s}') return '[a-z0-9-]+';
+      if (part === '{r}') return '(?:@2x)?';
+      return part.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+    })
+    .join('');
   const pattern = new RegExp(`^${source}(?:\\?.*)?$`);
   return (url) => {
     const m = pattern.exec(url);
     if (!m || order.length !== 3) return null;
     const t = { z: 0, x: 0, y: 0 };
-    order.forEach((k, i) => { t[k] = Number(m[i + 1]); });
+    order.forEach((k, i) => {
+      t[k] = Number(m[i + 1]);
+    });
     return t;
   };
 }

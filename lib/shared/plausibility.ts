@@ -25,10 +25,14 @@ type Found = Omit<Unusual, 'confirmed'>;
 function trialFlowsLps(m: FlowMeasurement): number[] {
   try {
     switch (m.method) {
-      case 'volumetric': return m.trials.map((t) => volumetricFlowLps([t]));
-      case 'v-notch': return m.trials.map((t) => vNotchFlowLps(t.headM, m.notchAngleDeg));
-      case 'rectangular-weir': return m.trials.map((t) => rectangularWeirFlowLps(t));
-      case 'float': return m.trials.map((t) => floatFlowLps({ ...t, areaM2: m.areaM2, coefficient: m.coefficient }));
+      case 'volumetric':
+        return m.trials.map((t) => volumetricFlowLps([t]));
+      case 'v-notch':
+        return m.trials.map((t) => vNotchFlowLps(t.headM, m.notchAngleDeg));
+      case 'rectangular-weir':
+        return m.trials.map((t) => rectangularWeirFlowLps(t));
+      case 'float':
+        return m.trials.map((t) => floatFlowLps({ ...t, areaM2: m.areaM2, coefficient: m.coefficient }));
     }
   } catch {
     return [];
@@ -42,7 +46,8 @@ function inFlow(m: FlowMeasurement, units: UnitSystem): Found[] {
     const i = m.trials.findIndex((t) => t.headM < low || t.headM > high);
     if (i >= 0) {
       out.push({
-        code: 'notch-head-range', path: `measurement.trials.${i}.headM`,
+        code: 'notch-head-range',
+        path: `measurement.trials.${i}.headM`,
         message: `A head of ${showQuantity(m.trials[i]!.headM, 'length', units)} is outside the range a 90° notch is calibrated for (${showQuantity(low, 'length', units)} to ${showQuantity(high, 'length', units)}); the flow from it is a guess. Is this right?`,
       });
     }
@@ -52,7 +57,8 @@ function inFlow(m: FlowMeasurement, units: UnitSystem): Found[] {
     const ratio = Math.max(...flows) / Math.min(...flows);
     if (ratio >= UNUSUAL_TRIAL_RATIO) {
       out.push({
-        code: 'trial-spread', path: 'measurement.trials',
+        code: 'trial-spread',
+        path: 'measurement.trials',
         message: `The trials differ ${Math.round(ratio)}-fold (${showQuantity(Math.min(...flows), 'flowLps', units)} to ${showQuantity(Math.max(...flows), 'flowLps', units)}). A slipped stopwatch, or did the creek change? Is this right?`,
       });
     }
@@ -63,14 +69,18 @@ function inFlow(m: FlowMeasurement, units: UnitSystem): Found[] {
 function inRun(f: EntityFields<'fallReading'>, units: UnitSystem): Found[] {
   const run = f.run;
   if (run.method === 'direct') {
-    return run.staticLiftM > UNUSUAL_LIFT_M
-      ? [{ code: 'lift-high', path: 'run.staticLiftM', message: liftQuestion(run.staticLiftM, units) }]
-      : [];
+    return run.staticLiftM > UNUSUAL_LIFT_M ? [{ code: 'lift-high', path: 'run.staticLiftM', message: liftQuestion(run.staticLiftM, units) }] : [];
   }
   const drop = runDropM(run as FallRun);
   if (drop === null) return [];
   if (f.purpose === 'fall' && drop > UNUSUAL_FALL_M) {
-    return [{ code: 'fall-high', path: 'run', message: `A fall of ${showQuantity(drop, 'length', units)} is more than most rams work on (most use ${showQuantity(1, 'length', units)} to ${showQuantity(20, 'length', units)}; few over ${showQuantity(UNUSUAL_FALL_M, 'length', units)}). Is this right?` }];
+    return [
+      {
+        code: 'fall-high',
+        path: 'run',
+        message: `A fall of ${showQuantity(drop, 'length', units)} is more than most rams work on (most use ${showQuantity(1, 'length', units)} to ${showQuantity(20, 'length', units)}; few over ${showQuantity(UNUSUAL_FALL_M, 'length', units)}). Is this right?`,
+      },
+    ];
   }
   const lift = f.bookedFrom === 'tank' ? drop : -drop;
   if (f.purpose === 'lift' && lift > UNUSUAL_LIFT_M) return [{ code: 'lift-high', path: 'run', message: liftQuestion(lift, units) }];
@@ -83,20 +93,32 @@ const liftQuestion = (liftM: number, units: UnitSystem) =>
 function inDemand(d: EntityFields<'demandLine'>): Found[] {
   const entry = Object.hasOwn(DEMAND_CATALOGUE, d.kind) ? DEMAND_CATALOGUE[d.kind as DemandKind] : undefined;
   if (entry?.unit === 'person' && d.count > UNUSUAL_PEOPLE) {
-    return [{ code: 'people-many', path: 'count', message: `${formatWhole(d.count)} people is a village, not a farm (over ${UNUSUAL_PEOPLE}). Is this right?` }];
+    return [
+      { code: 'people-many', path: 'count', message: `${formatWhole(d.count)} people is a village, not a farm (over ${UNUSUAL_PEOPLE}). Is this right?` },
+    ];
   }
   if ((entry?.unit === 'head' || entry?.unit === 'bird') && d.count > UNUSUAL_HEAD) {
-    return [{ code: 'head-many', path: 'count', message: `${formatWhole(d.count)} of one kind is a large herd or flock for a small farm (over ${formatWhole(UNUSUAL_HEAD)}). Is this right?` }];
+    return [
+      {
+        code: 'head-many',
+        path: 'count',
+        message: `${formatWhole(d.count)} of one kind is a large herd or flock for a small farm (over ${formatWhole(UNUSUAL_HEAD)}). Is this right?`,
+      },
+    ];
   }
   return [];
 }
 
 /** The confirmations a record carries (where each entity keeps them). */
 export function confirmationsOf(entity: SyncEntity, fields: Record<string, unknown>): string[] {
-  const list = entity === 'flowMeasurement' ? (fields.measurement as { confirmed?: string[] } | undefined)?.confirmed
-    : entity === 'fallReading' ? (fields.run as { confirmed?: string[] } | undefined)?.confirmed
-      : entity === 'demandLine' ? (fields.confirmed as string[] | null | undefined)
-        : undefined;
+  const list =
+    entity === 'flowMeasurement'
+      ? (fields.measurement as { confirmed?: string[] } | undefined)?.confirmed
+      : entity === 'fallReading'
+        ? (fields.run as { confirmed?: string[] } | undefined)?.confirmed
+        : entity === 'demandLine'
+          ? (fields.confirmed as string[] | null | undefined)
+          : undefined;
   return Array.isArray(list) ? list : [];
 }
 

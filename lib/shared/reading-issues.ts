@@ -17,14 +17,22 @@ const nth = (path: Path) => (typeof path[1] === 'number' ? ` ${path[1] + 1}` : '
 
 function whereOf(path: Path): Omit<ReadingIssue, 'message'> {
   switch (path[0]) {
-    case 'flowMeasurements': return { record: `Flow measurement${nth(path)}`, page: 'flow' };
-    case 'fallRuns': return { record: `Fall run${nth(path)}`, page: 'fall' };
-    case 'lift': return { record: 'Lift to the tank', page: 'fall' };
-    case 'drivePipe': return { record: 'Drive pipe', page: 'pipes' };
-    case 'feedPipe': return { record: 'Feed pipe', page: 'pipes' };
-    case 'deliveryPipe': return { record: 'Delivery pipe', page: 'pipes' };
-    case 'demand': return { record: 'Water needed', page: 'demand' };
-    default: return { record: 'The readings', page: 'flow' };
+    case 'flowMeasurements':
+      return { record: `Flow measurement${nth(path)}`, page: 'flow' };
+    case 'fallRuns':
+      return { record: `Fall run${nth(path)}`, page: 'fall' };
+    case 'lift':
+      return { record: 'Lift to the tank', page: 'fall' };
+    case 'drivePipe':
+      return { record: 'Drive pipe', page: 'pipes' };
+    case 'feedPipe':
+      return { record: 'Feed pipe', page: 'pipes' };
+    case 'deliveryPipe':
+      return { record: 'Delivery pipe', page: 'pipes' };
+    case 'demand':
+      return { record: 'Water needed', page: 'demand' };
+    default:
+      return { record: 'The readings', page: 'flow' };
   }
 }
 

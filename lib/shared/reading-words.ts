@@ -3,7 +3,12 @@
 export const FLOW_METHOD_WORDS: Record<string, string> = { volumetric: 'Bucket', 'v-notch': 'V-notch weir', float: 'Float' };
 
 export const FALL_METHOD_WORDS: Record<string, string> = {
-  level: 'Level and staff', hose: 'Hose level', clinometer: 'Clinometer', gps: 'GPS (rough)', barometric: 'Barometer (rough)', direct: 'One figure',
+  level: 'Level and staff',
+  hose: 'Hose level',
+  clinometer: 'Clinometer',
+  gps: 'GPS (rough)',
+  barometric: 'Barometer (rough)',
+  direct: 'One figure',
 };
 
 export const SEASON_WORDS: Record<string, string> = { dry: 'dry season', wet: 'wet season', unknown: 'season not known' };
@@ -14,5 +19,10 @@ export function wordFor(words: Record<string, string>, code: string | null | und
 }
 
 export const POINT_ROLE_WORDS: Record<string, string> = {
-  intake: 'Intake', pump: 'Pump site', tank: 'Tank', station: 'Creek-profile station', source: 'Source', other: 'Other point',
+  intake: 'Intake',
+  pump: 'Pump site',
+  tank: 'Tank',
+  station: 'Creek-profile station',
+  source: 'Source',
+  other: 'Other point',
 };

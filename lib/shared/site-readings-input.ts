@@ -25,12 +25,15 @@ export function buildSiteReadings(r: VisitRecords): SiteReadingsInput {
   const runs = live(r.runs).sort((a, b) => a.seq - b.seq || byId(a, b));
   const liftRuns = runs.filter((x) => x.purpose === 'lift');
   const direct = liftRuns.find((x) => x.run.method === 'direct');
-  const lift = direct && direct.run.method === 'direct'
-    ? { kind: 'direct' as const, staticLiftM: direct.run.staticLiftM, method: direct.run.liftMethod, uncertaintyM: direct.run.uncertaintyM }
-    : { kind: 'runs' as const, bookedFrom: liftRuns[0]?.bookedFrom ?? 'pump', runs: liftRuns.map((x) => x.run) };
+  const lift =
+    direct && direct.run.method === 'direct'
+      ? { kind: 'direct' as const, staticLiftM: direct.run.staticLiftM, method: direct.run.liftMethod, uncertaintyM: direct.run.uncertaintyM }
+      : { kind: 'runs' as const, bookedFrom: liftRuns[0]?.bookedFrom ?? 'pump', runs: liftRuns.map((x) => x.run) };
   const pipe = (purpose: 'drive' | 'delivery' | 'feed') => {
     const row = live(r.pipes).find((p) => p.purpose === purpose);
-    return row ? { lengthM: row.lengthM ?? undefined, diameterMm: row.diameterMm ?? undefined, material: row.material, pressureClass: row.pressureClass ?? undefined } : undefined;
+    return row
+      ? { lengthM: row.lengthM ?? undefined, diameterMm: row.diameterMm ?? undefined, material: row.material, pressureClass: row.pressureClass ?? undefined }
+      : undefined;
   };
   const feed = pipe('feed');
   return {
@@ -40,7 +43,9 @@ export function buildSiteReadings(r: VisitRecords): SiteReadingsInput {
     drivePipe: pipe('drive') ?? {},
     ...(feed?.lengthM ? { feedPipe: { lengthM: feed.lengthM, diameterMm: feed.diameterMm, material: feed.material } } : {}),
     deliveryPipe: pipe('delivery'),
-    demand: live(r.demand).sort(byId).map((d) => ({ kind: d.kind, count: d.count, litresPerHeadPerDay: d.litresPerHeadPerDay })),
+    demand: live(r.demand)
+      .sort(byId)
+      .map((d) => ({ kind: d.kind, count: d.count, litresPerHeadPerDay: d.litresPerHeadPerDay })),
     settings: {
       ...(r.settings.designFractionOfLowest !== undefined ? { designFractionOfLowest: r.settings.designFractionOfLowest } : {}),
       ...(r.settings.minProbabilityForGo !== undefined ? { minProbabilityForGo: r.settings.minProbabilityForGo } : {}),

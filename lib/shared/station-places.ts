@@ -51,7 +51,9 @@ export function placeStations(stations: readonly StationOnBank[]): StationPlaces
     const span = after.chainageM - before.chainageM;
     const t = span === 0 ? 0 : (s.chainageM - before.chainageM) / span;
     placed.push({
-      id: s.id, chainageM: s.chainageM, placed: 'chainage',
+      id: s.id,
+      chainageM: s.chainageM,
+      placed: 'chainage',
       lat: before.lat + t * (after.lat - before.lat),
       lon: before.lon + t * (after.lon - before.lon),
     });

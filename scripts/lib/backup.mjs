@@ -17,14 +17,19 @@ const clientEnv = (db) => ({ ...process.env, MYSQL_PWD: db.password });
 
 /** The default backup file: .data/backups/<database>-<UTC timestamp>.sql.gz */
 export function defaultBackupFile(db, now = new Date()) {
-  const stamp = now.toISOString().replace(/[-:]/g, '').replace(/\.\d+Z$/, 'Z');
+  const stamp = now
+    .toISOString()
+    .replace(/[-:]/g, '')
+    .replace(/\.\d+Z$/, 'Z');
   return path.join(root, '.data', 'backups', `${safeName(db.name)}-${stamp}.sql.gz`);
 }
 
 /** Waits for a child process; rejects with its stderr when it fails. */
 function finished(child, what) {
   let stderr = '';
-  child.stderr.on('data', (chunk) => { stderr += chunk; });
+  child.stderr.on('data', (chunk) => {
+    stderr += chunk;
+  });
   return new Promise((resolve, reject) => {
     child.on('error', reject);
     child.on('close', (code) => (code === 0 ? resolve() : reject(new Error(`${what} exited with ${code}: ${stderr.trim()}`))));
@@ -37,10 +42,22 @@ function finished(child, what) {
  */
 export async function dumpDatabase(db, file) {
   mkdirSync(path.dirname(file), { recursive: true });
-  const child = spawn('mariadb-dump', [
-    ...connectionArgs(db), '--single-transaction', '--routines', '--triggers', '--events',
-    '--hex-blob', '--skip-dump-date', '--add-drop-table', '--net-buffer-length=1048576', safeName(db.name),
-  ], { env: clientEnv(db), stdio: ['ignore', 'pipe', 'pipe'] });
+  const child = spawn(
+    'mariadb-dump',
+    [
+      ...connectionArgs(db),
+      '--single-transaction',
+      '--routines',
+      '--triggers',
+      '--events',
+      '--hex-blob',
+      '--skip-dump-date',
+      '--add-drop-table',
+      '--net-buffer-length=1048576',
+      safeName(db.name),
+    ],
+    { env: clientEnv(db), stdio: ['ignore', 'pipe', 'pipe'] },
+  );
   const done = finished(child, 'mariadb-dump');
   const out = createWriteStream(file, { mode: 0o600 });
   try {
@@ -81,7 +98,8 @@ export async function emptyDatabase(db) {
 /** Loads a dump made by dumpDatabase (plain or .gz) into the database. */
 export async function loadDump(db, file) {
   const child = spawn('mariadb', [...connectionArgs(db), '--binary-mode', safeName(db.name)], {
-    env: clientEnv(db), stdio: ['pipe', 'ignore', 'pipe'],
+    env: clientEnv(db),
+    stdio: ['pipe', 'ignore', 'pipe'],
   });
   const done = finished(child, 'mariadb');
   const input = createReadStream(file);

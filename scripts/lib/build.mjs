@@ -5,8 +5,21 @@ import path from 'node:path';
 import { root } from './env.mjs';
 import { log, nodeBin, run } from './proc.mjs';
 
-const INPUTS = ['app', 'components', 'lib', 'models', 'public', 'fonts', 'worker', 'proxy.ts',
-  'next.config.mjs', 'tailwind.config.ts', 'postcss.config.mjs', 'tsconfig.json', 'package-lock.json'];
+const INPUTS = [
+  'app',
+  'components',
+  'lib',
+  'models',
+  'public',
+  'fonts',
+  'worker',
+  'proxy.ts',
+  'next.config.mjs',
+  'tailwind.config.ts',
+  'postcss.config.mjs',
+  'tsconfig.json',
+  'package-lock.json',
+];
 const STAMP = path.join(root, '.next', 'fallbook-build-stamp');
 const SKIP = new Set(['sw.js', 'sw.js.map']);
 
@@ -24,7 +37,10 @@ function walk(dir, hash) {
 export function sourceHash() {
   const hash = createHash('sha256');
   // NEXT_PUBLIC_* values are compiled into the pages: a change must rebuild.
-  for (const [key, value] of Object.entries(process.env).filter(([k, v]) => k.startsWith('NEXT_PUBLIC_') && v).sort()) hash.update(`${key}=${value}`);
+  for (const [key, value] of Object.entries(process.env)
+    .filter(([k, v]) => k.startsWith('NEXT_PUBLIC_') && v)
+    .sort())
+    hash.update(`${key}=${value}`);
   // The security headers are fixed at build time, and HSTS is sent only when NEXTAUTH_URL is https.
   hash.update(`https=${(process.env.NEXTAUTH_URL ?? '').startsWith('https://')}`);
   for (const input of INPUTS) {

@@ -8,7 +8,11 @@ export async function startFakeS3({ port, bucket, dir = path.join(root, '.data',
   const { default: S3rver } = await import('s3rver');
   mkdirSync(dir, { recursive: true });
   const server = new S3rver({
-    address: '127.0.0.1', port, silent: true, directory: dir, resetOnClose: true,
+    address: '127.0.0.1',
+    port,
+    silent: true,
+    directory: dir,
+    resetOnClose: true,
     configureBuckets: [{ name: bucket }],
   });
   await server.run();

@@ -1,5 +1,9 @@
 // Types for fake-tiles.mjs (plain JS: the bootstrap scripts run it without a build step).
-export interface TileAddress { z: number; x: number; y: number }
+export interface TileAddress {
+  z: number;
+  x: number;
+  y: number;
+}
 /** The PNG bytes of tile z/x/y: deterministic, 256 × 256. */
 export function renderTile(z: number, x: number, y: number): Buffer;
 /** z/x/y from a request path `/z/x/y.png`, or null when it is not a tile of the world. */

@@ -17,11 +17,13 @@ const KM_PER_WORLD = 40_075 * Math.cos((52 * Math.PI) / 180);
 
 /** An invented height (m) at ground position (u, v) in km: a few long swells and a ridge. */
 function height(u, v) {
-  return 260
-    + 70 * Math.sin(0.55 * u + 0.25 * v)
-    + 45 * Math.sin(0.42 * v - 0.61 * u + 1.3)
-    + 18 * Math.sin(1.7 * u + 0.4) * Math.cos(1.3 * v - 0.2)
-    + 6 * Math.sin(4.1 * u - 3.3 * v);
+  return (
+    260 +
+    70 * Math.sin(0.55 * u + 0.25 * v) +
+    45 * Math.sin(0.42 * v - 0.61 * u + 1.3) +
+    18 * Math.sin(1.7 * u + 0.4) * Math.cos(1.3 * v - 0.2) +
+    6 * Math.sin(4.1 * u - 3.3 * v)
+  );
 }
 
 /** A creek runs where this is near zero: meandering lines roughly north–south, a couple of km apart. */
@@ -39,13 +41,23 @@ function hedge(u, v, kmPerPixel) {
 
 // 3×5 pixel digits and the slash, for the tile's own address in its corner.
 const GLYPHS = {
-  0: ['111', '101', '101', '101', '111'], 1: ['010', '110', '010', '010', '111'], 2: ['111', '001', '111', '100', '111'],
-  3: ['111', '001', '111', '001', '111'], 4: ['101', '101', '111', '001', '001'], 5: ['111', '100', '111', '001', '111'],
-  6: ['111', '100', '111', '101', '111'], 7: ['111', '001', '010', '010', '010'], 8: ['111', '101', '111', '101', '111'],
-  9: ['111', '101', '111', '001', '111'], '/': ['001', '001', '010', '100', '100'],
+  0: ['111', '101', '101', '101', '111'],
+  1: ['010', '110', '010', '010', '111'],
+  2: ['111', '001', '111', '100', '111'],
+  3: ['111', '001', '111', '001', '111'],
+  4: ['101', '101', '111', '001', '001'],
+  5: ['111', '100', '111', '001', '111'],
+  6: ['111', '100', '111', '101', '111'],
+  7: ['111', '001', '010', '010', '010'],
+  8: ['111', '101', '111', '101', '111'],
+  9: ['111', '101', '111', '001', '111'],
+  '/': ['001', '001', '010', '100', '100'],
 };
 
-const LAND = [[226, 232, 205], [214, 224, 192]];
+const LAND = [
+  [226, 232, 205],
+  [214, 224, 192],
+];
 const CONTOUR = [168, 150, 112];
 const WATER = [74, 132, 176];
 const GRID = [190, 196, 178];
@@ -55,7 +67,10 @@ const LABEL = [244, 244, 234];
 
 function put(data, px, py, [r, g, b]) {
   const i = (py * SIZE + px) * 4;
-  data[i] = r; data[i + 1] = g; data[i + 2] = b; data[i + 3] = 255;
+  data[i] = r;
+  data[i + 1] = g;
+  data[i + 2] = b;
+  data[i + 3] = 255;
 }
 
 function writeText(data, text, left, top, scale = 2) {
@@ -65,10 +80,12 @@ function writeText(data, text, left, top, scale = 2) {
   for (const ch of text) {
     const glyph = GLYPHS[ch];
     if (glyph) {
-      glyph.forEach((row, gy) => [...row].forEach((on, gx) => {
-        if (on !== '1') return;
-        for (let sy = 0; sy < scale; sy++) for (let sx = 0; sx < scale; sx++) put(data, x + gx * scale + sx, top + gy * scale + sy, INK);
-      }));
+      glyph.forEach((row, gy) =>
+        [...row].forEach((on, gx) => {
+          if (on !== '1') return;
+          for (let sy = 0; sy < scale; sy++) for (let sx = 0; sx < scale; sx++) put(data, x + gx * scale + sx, top + gy * scale + sy, INK);
+        }),
+      );
     }
     x += 4 * scale;
   }
@@ -141,6 +158,10 @@ export async function startFakeTiles({ port }) {
   });
   return {
     port: server.address().port,
-    close: () => new Promise((resolve) => { server.closeAllConnections(); server.close(() => resolve()); }),
+    close: () =>
+      new Promise((resolve) => {
+        server.closeAllConnections();
+        server.close(() => resolve());
+      }),
   };
 }

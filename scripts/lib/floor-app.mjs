@@ -12,15 +12,17 @@ const FILES = {
   'package.json': '{ "name": "fallbook-bench-floor", "private": true }\n',
   // Same bundler root as the app, so the symlinked node_modules stays inside it.
   'next.config.mjs': `export default { poweredByHeader: false, turbopack: { root: ${JSON.stringify(root)} } };\n`,
-  'app/layout.jsx': 'export const metadata = { title: "Empty" };\n'
-    + 'export default function RootLayout({ children }) {\n  return <html lang="en"><body>{children}</body></html>;\n}\n',
+  'app/layout.jsx':
+    'export const metadata = { title: "Empty" };\n' +
+    'export default function RootLayout({ children }) {\n  return <html lang="en"><body>{children}</body></html>;\n}\n',
   'app/page.jsx': 'export default function Page() {\n  return <main><h1>Empty page</h1></main>;\n}\n',
   // The bare framework's sync: a route handler that reads the pushed JSON and answers one outcome
   // per op (POST), or an empty page of changes (GET), with no session, database or validation.
-  'app/api/echo/route.js': 'export const dynamic = "force-dynamic";\n'
-    + 'export async function POST(request) {\n  const { ops } = await request.json();\n'
-    + '  return Response.json({ results: ops.map((op) => ({ opId: op.opId, status: "applied" })) });\n}\n'
-    + 'export function GET() {\n  return Response.json({ changes: [], cursor: 0 });\n}\n',
+  'app/api/echo/route.js':
+    'export const dynamic = "force-dynamic";\n' +
+    'export async function POST(request) {\n  const { ops } = await request.json();\n' +
+    '  return Response.json({ results: ops.map((op) => ({ opId: op.opId, status: "applied" })) });\n}\n' +
+    'export function GET() {\n  return Response.json({ changes: [], cursor: 0 });\n}\n',
 };
 
 function nextVersion() {

@@ -32,7 +32,9 @@ export async function startMailServer({ host = '127.0.0.1', smtpPort, inboxPort,
   });
 
   const inbox = createServer((req, res) => {
-    const files = readdirSync(dir).filter((f) => f.endsWith('.eml')).sort();
+    const files = readdirSync(dir)
+      .filter((f) => f.endsWith('.eml'))
+      .sort();
     const messages = files.map((file) => {
       const raw = readFileSync(path.join(dir, file), 'utf8');
       return { id: file, to: headerOf(raw, 'To'), from: headerOf(raw, 'From'), subject: headerOf(raw, 'Subject'), raw };

@@ -8,8 +8,7 @@ import { ensureDebianPackages, fail, log } from './proc.mjs';
 const pidFile = (db) => path.join(db.dataDir, 'mariadbd.pid');
 
 function initialised(db) {
-  return existsSync(path.join(db.dataDir, 'mysql', 'user.frm')) ||
-    existsSync(path.join(db.dataDir, 'mysql', 'global_priv.frm'));
+  return existsSync(path.join(db.dataDir, 'mysql', 'user.frm')) || existsSync(path.join(db.dataDir, 'mysql', 'global_priv.frm'));
 }
 
 function readPid(db) {
@@ -53,10 +52,11 @@ export async function startDatabase(db) {
     log(`initialising a private MariaDB data folder in ${path.relative(process.cwd(), db.dataDir) || db.dataDir}…`);
     rmSync(db.dataDir, { recursive: true, force: true });
     mkdirSync(db.dataDir, { recursive: true });
-    const init = spawnSync('mariadb-install-db', [
-      '--no-defaults', `--datadir=${db.dataDir}`, `--user=${user}`,
-      '--auth-root-authentication-method=normal', '--skip-test-db',
-    ], { encoding: 'utf8' });
+    const init = spawnSync(
+      'mariadb-install-db',
+      ['--no-defaults', `--datadir=${db.dataDir}`, `--user=${user}`, '--auth-root-authentication-method=normal', '--skip-test-db'],
+      { encoding: 'utf8' },
+    );
     if (init.status !== 0) fail(`mariadb-install-db failed:\n${init.stdout}\n${init.stderr}`);
   }
   if (readPid(db)) {
@@ -67,14 +67,27 @@ export async function startDatabase(db) {
   // Its own folder for on-disk temporary tables (large sorts), not the machine's shared /tmp.
   const tmp = `${db.dataDir}-tmp`;
   mkdirSync(tmp, { recursive: true });
-  const child = spawn('mariadbd', [
-    '--no-defaults', `--datadir=${db.dataDir}`, `--user=${user}`,
-    `--bind-address=${db.host}`, `--port=${db.port}`, `--socket=${db.socket}`,
-    `--pid-file=${pidFile(db)}`, '--skip-name-resolve', '--skip-log-bin',
-    '--character-set-server=utf8mb4', '--collation-server=utf8mb4_unicode_ci',
-    '--innodb-buffer-pool-size=256M', '--innodb-flush-log-at-trx-commit=2',
-    '--max-connections=200', `--tmpdir=${tmp}`,
-  ], { detached: true, stdio: ['ignore', err, err] });
+  const child = spawn(
+    'mariadbd',
+    [
+      '--no-defaults',
+      `--datadir=${db.dataDir}`,
+      `--user=${user}`,
+      `--bind-address=${db.host}`,
+      `--port=${db.port}`,
+      `--socket=${db.socket}`,
+      `--pid-file=${pidFile(db)}`,
+      '--skip-name-resolve',
+      '--skip-log-bin',
+      '--character-set-server=utf8mb4',
+      '--collation-server=utf8mb4_unicode_ci',
+      '--innodb-buffer-pool-size=256M',
+      '--innodb-flush-log-at-trx-commit=2',
+      '--max-connections=200',
+      `--tmpdir=${tmp}`,
+    ],
+    { detached: true, stdio: ['ignore', err, err] },
+  );
   child.unref();
   await waitUntilReady(db);
   log(`MariaDB listening on ${db.host}:${db.port}`);

@@ -21,15 +21,35 @@ async function waitFor(url, timeoutMs) {
 
 /** Serves the built app in `cwd` on 127.0.0.1:port; `probe` is a path that answers once it is up. */
 export async function startNext({ cwd, port, probe = '/', label = 'app' }) {
-  const child = spawn(process.execPath, [...(process.env.BENCH_CPU_PROF ? ['--cpu-prof', '--cpu-prof-dir=' + process.env.BENCH_CPU_PROF] : []), '--import', pathToFileURL(path.join(root, 'scripts/lib/refuse-trace.mjs')).href, nodeBin('next/dist/bin/next'), 'start', '-H', '127.0.0.1', '-p', String(port)], {
-    cwd, env: { ...process.env, NODE_ENV: 'production' }, stdio: ['ignore', 'pipe', 'pipe'],
-  });
+  const child = spawn(
+    process.execPath,
+    [
+      ...(process.env.BENCH_CPU_PROF ? ['--cpu-prof', '--cpu-prof-dir=' + process.env.BENCH_CPU_PROF] : []),
+      '--import',
+      pathToFileURL(path.join(root, 'scripts/lib/refuse-trace.mjs')).href,
+      nodeBin('next/dist/bin/next'),
+      'start',
+      '-H',
+      '127.0.0.1',
+      '-p',
+      String(port),
+    ],
+    {
+      cwd,
+      env: { ...process.env, NODE_ENV: 'production' },
+      stdio: ['ignore', 'pipe', 'pipe'],
+    },
+  );
   // Server errors stay visible in the bench output.
   child.stderr.on('data', (chunk) => process.stderr.write(`[${label}] ${chunk}`));
   child.stdout.on('data', () => {});
   const exited = new Promise((resolve) => child.on('exit', resolve));
-  await Promise.race([waitFor(`http://127.0.0.1:${port}${probe}`, 60_000),
-    exited.then((code) => { throw new Error(`${label} server exited with ${code}`); })]);
+  await Promise.race([
+    waitFor(`http://127.0.0.1:${port}${probe}`, 60_000),
+    exited.then((code) => {
+      throw new Error(`${label} server exited with ${code}`);
+    }),
+  ]);
   return {
     url: `http://127.0.0.1:${port}`,
     pid: child.pid,

@@ -11,7 +11,8 @@ test.setTimeout(120_000);
 test('find the best positions offline, adopt the best pair, the server screening uses it', async ({ browser }) => {
   const context = await browser.newContext({
     baseURL: test.info().project.use.baseURL,
-    geolocation: { latitude: 52.417301, longitude: -3.615702, accuracy: 4 }, permissions: ['geolocation'],
+    geolocation: { latitude: 52.417301, longitude: -3.615702, accuracy: 4 },
+    permissions: ['geolocation'],
   });
   const page = await context.newPage();
   await signInAs(page, 'tobias@wenlow-water.test', /\/field$/);
@@ -55,13 +56,22 @@ test('find the best positions offline, adopt the best pair, the server screening
   await page.getByRole('button', { name: 'Sync now' }).click();
   await expect(page.getByTestId('sync-summary')).toHaveText('Everything is on the server', { timeout: 30_000 });
 
-  const [pump] = await query<{ chainageM: number; level: number }>("SELECT chainage_m AS chainageM, reduced_level_m AS level FROM points WHERE visit_id = ? AND role = 'pump' AND deleted_at IS NULL", [visitId]);
+  const [pump] = await query<{ chainageM: number; level: number }>(
+    "SELECT chainage_m AS chainageM, reduced_level_m AS level FROM points WHERE visit_id = ? AND role = 'pump' AND deleted_at IS NULL",
+    [visitId],
+  );
   expect(pump?.chainageM).toBe(130);
-  await expect.poll(async () => {
-    const [s] = await query<{ result: string }>('SELECT result FROM screenings WHERE visit_id = ? ORDER BY created_at DESC LIMIT 1', [visitId]);
-    const r = (typeof s?.result === 'string' ? JSON.parse(s.result) : s?.result) as { figures: { fallM: { value: number }; feedPipeLengthM?: { value: number } } } | undefined;
-    return [r?.figures.fallM.value, r?.figures.feedPipeLengthM?.value];
-  }, { timeout: 15_000 }).toEqual([6.6, 100]);
+  await expect
+    .poll(
+      async () => {
+        const [s] = await query<{ result: string }>('SELECT result FROM screenings WHERE visit_id = ? ORDER BY created_at DESC LIMIT 1', [visitId]);
+        const r = (typeof s?.result === 'string' ? JSON.parse(s.result) : s?.result) as
+          { figures: { fallM: { value: number }; feedPipeLengthM?: { value: number } } } | undefined;
+        return [r?.figures.fallM.value, r?.figures.feedPipeLengthM?.value];
+      },
+      { timeout: 15_000 },
+    )
+    .toEqual([6.6, 100]);
 
   // A station booked now takes the phone's fix (and its accuracy) along; removed again after, to keep the demo reach.
   await page.goto(`/field/visit/positions?id=${visitId}`);
@@ -74,7 +84,9 @@ test('find the best positions offline, adopt the best pair, the server screening
   await page.getByRole('button', { name: 'Sync now' }).click();
   await expect(page.getByTestId('sync-summary')).toHaveText('Everything is on the server', { timeout: 30_000 });
   const [station] = await query<{ id: string; lat: number; lon: number; accuracyM: number }>(
-    "SELECT id, lat, lon, accuracy_m AS accuracyM FROM points WHERE visit_id = ? AND role = 'station' AND chainage_m = 295 AND deleted_at IS NULL", [visitId]);
+    "SELECT id, lat, lon, accuracy_m AS accuracyM FROM points WHERE visit_id = ? AND role = 'station' AND chainage_m = 295 AND deleted_at IS NULL",
+    [visitId],
+  );
   expect([station?.lat, station?.lon, station?.accuracyM]).toEqual([52.417301, -3.615702, 4]);
   await page.goto(`/field/visit/positions?id=${visitId}`);
   await page.getByText(/Saved stations/).click();

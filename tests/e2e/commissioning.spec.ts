@@ -48,7 +48,9 @@ test('an advisor records a commissioning check offline; after the sync the coord
   const [visit] = await query<{ status: string }>('SELECT status FROM visits WHERE id = ?', [visitId]);
   expect(visit?.status).toBe('commissioned');
   const [row] = await query<{ lift: number; beats: number; recordedBy: string }>(
-    'SELECT c.lift_m AS lift, c.beats_per_minute AS beats, u.email AS recordedBy FROM commissionings c JOIN users u ON u.id = c.recorded_by_id WHERE c.visit_id = ? ORDER BY c.created_at DESC LIMIT 1', [visitId]);
+    'SELECT c.lift_m AS lift, c.beats_per_minute AS beats, u.email AS recordedBy FROM commissionings c JOIN users u ON u.id = c.recorded_by_id WHERE c.visit_id = ? ORDER BY c.created_at DESC LIMIT 1',
+    [visitId],
+  );
   expect([row?.lift, row?.beats, row?.recordedBy]).toEqual([25, 150, 'tobias@wenlow-water.test']);
   await page.goto(`/field/visit/commission?id=${visitId}`);
   await expect(page.getByTestId('recorded-check').first().getByTestId('send-state')).toContainText('Sent');

@@ -5,7 +5,10 @@ import { signInAs } from './support/sign-in';
 
 const shots = '/tmp/office-map-shots';
 
-for (const [label, viewport] of [['desktop', { width: 1280, height: 900 }], ['phone', { width: 412, height: 915 }]] as const) {
+for (const [label, viewport] of [
+  ['desktop', { width: 1280, height: 900 }],
+  ['phone', { width: 412, height: 915 }],
+] as const) {
   test(`the office home shows the district's morning (${label})`, async ({ page }) => {
     await page.setViewportSize(viewport);
     await signInAs(page, 'maren@wenlow-water.test', /\/office$/);

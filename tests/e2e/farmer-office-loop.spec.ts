@@ -19,12 +19,21 @@ async function person(browser: Browser, email: string, home: RegExp): Promise<Pa
 /** The text of the newest caught message to `to` whose subject starts with `subject` (soft line breaks joined). */
 async function mailFor(request: APIRequestContext, to: string, subject: string): Promise<string> {
   let found = '';
-  await expect.poll(async () => {
-    const inbox = await request.get(`http://127.0.0.1:${process.env.MAIL_INBOX_PORT}/messages`);
-    const messages = (await inbox.json()).messages as { to: string; subject: string; raw: string }[];
-    found = messages.filter((m) => m.to.includes(to) && m.subject.startsWith(subject)).at(-1)?.raw.replace(/=\r?\n/g, '') ?? '';
-    return found;
-  }, { timeout: 10_000 }).not.toBe('');
+  await expect
+    .poll(
+      async () => {
+        const inbox = await request.get(`http://127.0.0.1:${process.env.MAIL_INBOX_PORT}/messages`);
+        const messages = (await inbox.json()).messages as { to: string; subject: string; raw: string }[];
+        found =
+          messages
+            .filter((m) => m.to.includes(to) && m.subject.startsWith(subject))
+            .at(-1)
+            ?.raw.replace(/=\r?\n/g, '') ?? '';
+        return found;
+      },
+      { timeout: 10_000 },
+    )
+    .not.toBe('');
   return found;
 }
 
@@ -129,11 +138,17 @@ test('the office is offered only allowed state moves; a jump needs a reason; the
   const jump = maren.getByRole('form', { name: 'Move outside the usual order' });
   await jump.getByLabel('Move to').selectOption({ label: 'Running, checked' });
   await jump.getByRole('button', { name: 'Move with this reason' }).click();
-  await expect(maren.getByRole('alert').filter({ hasText: 'Say in a few words' })).toHaveText('Say in a few words why the visit moves outside the usual order.');
+  await expect(maren.getByRole('alert').filter({ hasText: 'Say in a few words' })).toHaveText(
+    'Say in a few words why the visit moves outside the usual order.',
+  );
   await maren.screenshot({ path: `${shots}/office-state-moves-phone.png`, fullPage: true });
 
   const refused = await maren.evaluate(async (id) => {
-    const res = await fetch(`/api/visits/${id}`, { method: 'PATCH', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ status: 'commissioned' }) });
+    const res = await fetch(`/api/visits/${id}`, {
+      method: 'PATCH',
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify({ status: 'commissioned' }),
+    });
     return { status: res.status, message: (await res.json()).error.message as string };
   }, visitId);
   expect(refused.status).toBe(409);

@@ -59,7 +59,10 @@ test('bad readings are refused at their field, unusual ones need a yes, nothing 
 
   // The unsaved trial is not lost to "← Back to the visit": the phone asks, and staying keeps it.
   let asked = '';
-  page.once('dialog', (dialog) => { asked = dialog.message(); void dialog.dismiss(); });
+  page.once('dialog', (dialog) => {
+    asked = dialog.message();
+    void dialog.dismiss();
+  });
   await page.getByRole('link', { name: '← Back to the visit' }).click();
   await expect.poll(() => asked).toMatch(/not saved yet/);
   await expect(page).toHaveURL(/\/field\/visit\/flow\?/);
@@ -72,7 +75,10 @@ test('bad readings are refused at their field, unusual ones need a yes, nothing 
 
   // Pipes: a 5,000 mm bore.
   await page.goto(`/field/visit/pipes?id=${id}`);
-  await page.getByLabel(/Inside diameter/).first().fill('5000');
+  await page
+    .getByLabel(/Inside diameter/)
+    .first()
+    .fill('5000');
   await page.getByRole('button', { name: 'Save pipe runs' }).click();
   await expectFieldAlert(page, /Inside diameter must be at most 23\.6\d? in/);
 

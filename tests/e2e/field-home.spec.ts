@@ -5,7 +5,7 @@ import { demoSession } from './support/session';
 // them before any script runs); the advisor's name, counts and visits follow once the session is known,
 // and the first sync is waited for rather than announced as "no visits".
 
-test('the static field home holds the frame and nobody\'s data', async ({ request }) => {
+test("the static field home holds the frame and nobody's data", async ({ request }) => {
   const res = await request.get('/field');
   expect(res.status()).toBe(200);
   const html = await res.text();
@@ -27,10 +27,20 @@ test('a first open waits for the session, then for the first pull, without a fal
   const page = await context.newPage();
   let releaseMe: () => void = () => {};
   let releasePull: () => void = () => {};
-  const meHeld = new Promise<void>((resolve) => { releaseMe = resolve; });
-  const pullHeld = new Promise<void>((resolve) => { releasePull = resolve; });
-  await page.route('**/api/me', async (route) => { await meHeld; await route.continue(); });
-  await page.route('**/api/sync/pull**', async (route) => { await pullHeld; await route.continue(); });
+  const meHeld = new Promise<void>((resolve) => {
+    releaseMe = resolve;
+  });
+  const pullHeld = new Promise<void>((resolve) => {
+    releasePull = resolve;
+  });
+  await page.route('**/api/me', async (route) => {
+    await meHeld;
+    await route.continue();
+  });
+  await page.route('**/api/sync/pull**', async (route) => {
+    await pullHeld;
+    await route.continue();
+  });
   await page.goto('/field');
 
   // Before the server answers: the frame and heading, no name, and sync waits.

@@ -15,11 +15,13 @@ const FIX = { latitude: 52.4708, longitude: -3.6989, accuracy: 4 };
 
 /** The tiles the map drew: zoom from the address, and whether the 256 px picture arrived (offline, past the kept area, the worker answers a 1 px blank). */
 async function drawnTiles(page: Page) {
-  return page.locator('.field-map img.leaflet-tile').evaluateAll((imgs) => imgs.map((img) => {
-    const el = img as HTMLImageElement;
-    const m = /\/(\d+)\/(\d+)\/(\d+)\.png/.exec(el.src);
-    return { z: Number(m?.[1] ?? -1), loaded: el.complete && el.naturalWidth === 256, src: el.src };
-  }));
+  return page.locator('.field-map img.leaflet-tile').evaluateAll((imgs) =>
+    imgs.map((img) => {
+      const el = img as HTMLImageElement;
+      const m = /\/(\d+)\/(\d+)\/(\d+)\.png/.exec(el.src);
+      return { z: Number(m?.[1] ?? -1), loaded: el.complete && el.naturalWidth === 256, src: el.src };
+    }),
+  );
 }
 
 /** Whether the element sits wholly inside the map, and clear of the zoom buttons. */
@@ -29,7 +31,8 @@ async function inViewClearOfControls(page: Page, testId: string) {
   const marker = await page.getByTestId(testId).first().boundingBox();
   if (!map || !zoom || !marker) return false;
   const inside = marker.x >= map.x && marker.y >= map.y && marker.x + marker.width <= map.x + map.width && marker.y + marker.height <= map.y + map.height;
-  const overlapsZoom = marker.x < zoom.x + zoom.width && marker.x + marker.width > zoom.x && marker.y < zoom.y + zoom.height && marker.y + marker.height > zoom.y;
+  const overlapsZoom =
+    marker.x < zoom.x + zoom.width && marker.x + marker.width > zoom.x && marker.y < zoom.y + zoom.height && marker.y + marker.height > zoom.y;
   return inside && !overlapsZoom;
 }
 
@@ -96,10 +99,15 @@ test('the map opens on the farm, follows a fix, shows a saved point at once, and
   await context.setOffline(true);
   await page.reload();
   await expect(page.getByTestId('map-point')).toHaveCount(1, { timeout: 20_000 });
-  await expect.poll(async () => {
-    const tiles = await drawnTiles(page);
-    return tiles.length > 0 && tiles.every((t) => t.loaded);
-  }, { timeout: 20_000 }).toBe(true);
+  await expect
+    .poll(
+      async () => {
+        const tiles = await drawnTiles(page);
+        return tiles.length > 0 && tiles.every((t) => t.loaded);
+      },
+      { timeout: 20_000 },
+    )
+    .toBe(true);
   const offlineTiles = await drawnTiles(page);
   expect(offlineTiles.every((t) => t.z >= 14 && t.z <= 17)).toBe(true);
   await expect.poll(() => inViewClearOfControls(page, 'map-point')).toBe(true);
@@ -113,10 +121,15 @@ test('the map opens on the farm, follows a fix, shows a saved point at once, and
   // Wide screen, still offline.
   await page.setViewportSize({ width: 1280, height: 900 });
   await page.goto(`/field/visit/points?id=${visitId}`);
-  await expect.poll(async () => {
-    const tiles = await drawnTiles(page);
-    return tiles.length > 0 && tiles.every((t) => t.loaded);
-  }, { timeout: 20_000 }).toBe(true);
+  await expect
+    .poll(
+      async () => {
+        const tiles = await drawnTiles(page);
+        return tiles.length > 0 && tiles.every((t) => t.loaded);
+      },
+      { timeout: 20_000 },
+    )
+    .toBe(true);
   await expect.poll(() => inViewClearOfControls(page, 'map-point')).toBe(true);
   await page.screenshot({ path: test.info().outputPath('map-offline-1280.png'), fullPage: true });
   await page.screenshot({ path: '/tmp/fallbook-map-offline-1280.png', fullPage: true });
@@ -124,10 +137,15 @@ test('the map opens on the farm, follows a fix, shows a saved point at once, and
 
   // Zoomed out past the kept zooms with no signal: plain background, still no failed loads.
   // (One step at a time: Leaflet ignores a press while the last zoom still animates.)
-  await expect.poll(async () => {
-    await page.getByRole('button', { name: 'Zoom out' }).click();
-    return (await drawnTiles(page)).some((t) => t.z < 12);
-  }, { timeout: 20_000, intervals: [600] }).toBe(true);
+  await expect
+    .poll(
+      async () => {
+        await page.getByRole('button', { name: 'Zoom out' }).click();
+        return (await drawnTiles(page)).some((t) => t.z < 12);
+      },
+      { timeout: 20_000, intervals: [600] },
+    )
+    .toBe(true);
   await page.waitForTimeout(500);
   expect(tileErrors).toEqual([]);
 
@@ -138,18 +156,21 @@ test('the map opens on the farm, follows a fix, shows a saved point at once, and
   });
   expect(moved.status(), await moved.text()).toBe(200);
   await office.dispose();
-  const cached = () => page.evaluate(async () => {
-    const cache = await caches.open('fallbook-tiles');
-    const manifest = await (await cache.match('/~offline-tiles.json'))?.json() as { visits: Record<string, unknown>; total: { tiles: number } } | undefined;
-    return { keys: (await cache.keys()).length, visits: Object.keys(manifest?.visits ?? {}), total: manifest?.total.tiles ?? 0 };
-  });
+  const cached = () =>
+    page.evaluate(async () => {
+      const cache = await caches.open('fallbook-tiles');
+      const manifest = (await (await cache.match('/~offline-tiles.json'))?.json()) as { visits: Record<string, unknown>; total: { tiles: number } } | undefined;
+      return { keys: (await cache.keys()).length, visits: Object.keys(manifest?.visits ?? {}), total: manifest?.total.tiles ?? 0 };
+    });
   const before = await cached();
   expect(before.visits).toContain(visitId);
   await page.goto('/field');
   await pressSync(page);
   await expect.poll(async () => (await cached()).visits.includes(visitId), { timeout: 30_000 }).toBe(false);
   const after = await cached();
-  console.log(`[map-e2e] this visit: ${summary}; the phone's offline map: ${before.total} tiles for ${before.visits.length} visits, then ${after.total} for ${after.visits.length}`);
+  console.log(
+    `[map-e2e] this visit: ${summary}; the phone's offline map: ${before.total} tiles for ${before.visits.length} visits, then ${after.total} for ${after.visits.length}`,
+  );
   // Its own tiles are gone (7 km from the other farms, it shares at most a few overview tiles); the other visits' stay.
   expect(after.total).toBeLessThan(before.total - kept / 2);
   expect(after.total).toBeGreaterThan(0);

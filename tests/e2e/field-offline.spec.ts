@@ -72,7 +72,11 @@ test('capture a site walk offline, reopen offline, sync once online', async ({ b
 
   // Three points, typed coordinates.
   await page.goto(`/field/visit/points?id=${visitId}`);
-  for (const [role, lat, lon] of [['Intake', '52.40612', '-3.59901'], ['Pump site', '52.40598', '-3.59880'], ['Tank', '52.40571', '-3.59822']] as const) {
+  for (const [role, lat, lon] of [
+    ['Intake', '52.40612', '-3.59901'],
+    ['Pump site', '52.40598', '-3.59880'],
+    ['Tank', '52.40571', '-3.59822'],
+  ] as const) {
     await page.getByRole('button', { name: role, exact: true }).click();
     await typeInto(page, 'Latitude', lat);
     await typeInto(page, 'Longitude', lon);
@@ -116,13 +120,17 @@ test('capture a site walk offline, reopen offline, sync once online', async ({ b
   await page.getByRole('button', { name: 'Sync now' }).click();
   await expect(page.getByTestId('sync-summary')).toHaveText('Everything is on the server', { timeout: 30_000 });
 
-  const count = async (table: string) => (await query<{ n: number }>(`SELECT COUNT(*) AS n FROM ${table} WHERE visit_id = ? AND deleted_at IS NULL`, [visitId]))[0]?.n;
+  const count = async (table: string) =>
+    (await query<{ n: number }>(`SELECT COUNT(*) AS n FROM ${table} WHERE visit_id = ? AND deleted_at IS NULL`, [visitId]))[0]?.n;
   expect(await count('water_sources')).toBe(1);
   expect(await count('flow_measurements')).toBe(1);
   expect(await count('fall_readings')).toBe(2);
   expect(await count('points')).toBe(3);
   expect(await count('pipe_runs')).toBe(2);
-  const stored = await query<{ sha256: string; uploaded: number }>('SELECT sha256, uploaded_at IS NOT NULL AS uploaded FROM photos WHERE visit_id = ? ORDER BY sha256', [visitId]);
+  const stored = await query<{ sha256: string; uploaded: number }>(
+    'SELECT sha256, uploaded_at IS NOT NULL AS uploaded FROM photos WHERE visit_id = ? ORDER BY sha256',
+    [visitId],
+  );
   expect(stored.map((p) => p.sha256)).toEqual(photos.map((p) => p.sha256).sort());
   expect(stored.every((p) => Number(p.uploaded) === 1)).toBe(true);
   const demandAfter = (await query<{ n: number }>('SELECT COUNT(*) AS n FROM demand_lines WHERE farm_id = ?', [farmId]))[0]?.n ?? 0;
@@ -131,7 +139,8 @@ test('capture a site walk offline, reopen offline, sync once online', async ({ b
   const [delivery] = await query<{ lengthM: number }>("SELECT length_m AS lengthM FROM pipe_runs WHERE visit_id = ? AND purpose = 'delivery'", [visitId]);
   expect(delivery?.lengthM).toBeCloseTo(274.32, 6);
   // The server screens the visit just after answering the push.
-  await expect.poll(async () => (await query<{ n: number }>('SELECT COUNT(*) AS n FROM screenings WHERE visit_id = ?', [visitId]))[0]?.n, { timeout: 15_000 })
+  await expect
+    .poll(async () => (await query<{ n: number }>('SELECT COUNT(*) AS n FROM screenings WHERE visit_id = ?', [visitId]))[0]?.n, { timeout: 15_000 })
     .toBeGreaterThanOrEqual(1);
 
   // A reload in the middle of a sync loses nothing and doubles nothing.

@@ -46,7 +46,9 @@ async function smallTargets(page: Page): Promise<string[]> {
 test('every field page: tap targets of 44 px or more and no console errors, at 412 px', async ({ page }) => {
   test.setTimeout(120_000);
   const errors: string[] = [];
-  page.on('console', (m) => { if (m.type() === 'error') errors.push(`${page.url()}: ${m.text()}`); });
+  page.on('console', (m) => {
+    if (m.type() === 'error') errors.push(`${page.url()}: ${m.text()}`);
+  });
   page.on('pageerror', (e) => errors.push(`${page.url()}: ${e.message}`));
   await signInAs(page, 'tobias@wenlow-water.test', /\/field$/);
   await waitForWorker(page);
@@ -68,7 +70,9 @@ test('every field page: tap targets of 44 px or more and no console errors, at 4
 test('with no signal, in-app links move between field pages without a full reload or an error', async ({ page, context }) => {
   test.setTimeout(90_000);
   const messages: string[] = [];
-  page.on('console', (m) => { if (m.type() === 'error' || m.type() === 'warning') messages.push(m.text()); });
+  page.on('console', (m) => {
+    if (m.type() === 'error' || m.type() === 'warning') messages.push(m.text());
+  });
   page.on('pageerror', (e) => messages.push(e.message));
   await signInAs(page, 'tobias@wenlow-water.test', /\/field$/);
   await waitForWorker(page);
@@ -76,9 +80,20 @@ test('with no signal, in-app links move between field pages without a full reloa
   await openField(page, `/field/visit?id=${visitId}`);
   await context.setOffline(true);
   // A mark on the window survives client-side navigation and is gone after a full reload.
-  await page.evaluate(() => { (window as unknown as { stayed?: boolean }).stayed = true; });
-  for (const [link, heading] of [['Source and flow', 'Source and flow'], ['Back to the visit', 'Brandt Hollow'], ['Water needed', 'Water needed'], ['Back to the visit', 'Brandt Hollow'], ['My visits', 'My site visits']] as const) {
-    await page.getByRole('link', { name: new RegExp(link) }).first().click();
+  await page.evaluate(() => {
+    (window as unknown as { stayed?: boolean }).stayed = true;
+  });
+  for (const [link, heading] of [
+    ['Source and flow', 'Source and flow'],
+    ['Back to the visit', 'Brandt Hollow'],
+    ['Water needed', 'Water needed'],
+    ['Back to the visit', 'Brandt Hollow'],
+    ['My visits', 'My site visits'],
+  ] as const) {
+    await page
+      .getByRole('link', { name: new RegExp(link) })
+      .first()
+      .click();
     await expect(page.getByRole('heading', { level: 1, name: new RegExp(heading) })).toBeVisible({ timeout: 15_000 });
   }
   expect(await page.evaluate(() => (window as unknown as { stayed?: boolean }).stayed === true)).toBe(true);

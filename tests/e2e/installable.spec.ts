@@ -4,7 +4,12 @@ import { expect, test } from '@playwright/test';
 // phone needs to install the app, its icons exist as PNGs of the stated sizes, and a service worker
 // whose scope covers the start URL takes control of the page.
 
-interface ManifestIcon { src: string; sizes: string; type?: string; purpose?: string }
+interface ManifestIcon {
+  src: string;
+  sizes: string;
+  type?: string;
+  purpose?: string;
+}
 
 /** Width and height from a PNG's IHDR chunk. */
 function pngSize(bytes: Buffer): { width: number; height: number } {
@@ -30,9 +35,15 @@ test('the manifest, its icons and a controlling service worker make the app inst
 
   const icons = manifest.icons as ManifestIcon[];
   for (const wanted of ['192x192', '512x512']) {
-    expect(icons.some((i) => i.sizes === wanted && (i.purpose ?? 'any').includes('any')), `an "any" icon of ${wanted}`).toBe(true);
+    expect(
+      icons.some((i) => i.sizes === wanted && (i.purpose ?? 'any').includes('any')),
+      `an "any" icon of ${wanted}`,
+    ).toBe(true);
   }
-  expect(icons.some((i) => i.purpose?.includes('maskable')), 'a maskable icon').toBe(true);
+  expect(
+    icons.some((i) => i.purpose?.includes('maskable')),
+    'a maskable icon',
+  ).toBe(true);
   for (const icon of icons) {
     const got = await request.get(icon.src);
     expect(got.status(), icon.src).toBe(200);
@@ -42,11 +53,11 @@ test('the manifest, its icons and a controlling service worker make the app inst
   }
 
   // The worker registers on any page; after it activates, a navigation is under its control.
-  await expect.poll(() => page.evaluate(async () => (await navigator.serviceWorker.getRegistration())?.active?.state ?? null), { timeout: 20_000 })
+  await expect
+    .poll(() => page.evaluate(async () => (await navigator.serviceWorker.getRegistration())?.active?.state ?? null), { timeout: 20_000 })
     .toBe('activated');
   await page.reload();
-  await expect.poll(() => page.evaluate(() => navigator.serviceWorker.controller?.scriptURL ?? null), { timeout: 20_000 })
-    .toMatch(/\/sw\.js$/);
+  await expect.poll(() => page.evaluate(() => navigator.serviceWorker.controller?.scriptURL ?? null), { timeout: 20_000 }).toMatch(/\/sw\.js$/);
   const scope = await page.evaluate(async () => (await navigator.serviceWorker.getRegistration())?.scope ?? '');
   expect(new URL(manifest.start_url, scope).href.startsWith(scope)).toBe(true);
 });

@@ -24,7 +24,9 @@ test('TRACE is a 405 naming the method, and TRACK a 400 from Node\u2019s parser:
     const { status, body } = await new Promise<{ status: number; body: string }>((resolve, reject) => {
       const req = http.request(new URL('/api/health', baseURL), { method }, (res) => {
         let text = '';
-        res.on('data', (c) => { text += c; });
+        res.on('data', (c) => {
+          text += c;
+        });
         res.on('end', () => resolve({ status: res.statusCode ?? 0, body: text }));
       });
       req.on('error', reject);

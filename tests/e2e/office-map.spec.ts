@@ -19,7 +19,10 @@ async function scaleKm(page: Page): Promise<number> {
   return unit === 'km' ? Number(n) : Number(n) / 1000;
 }
 
-for (const [label, viewport] of [['desktop', { width: 1280, height: 900 }], ['phone', { width: 412, height: 915 }]] as const) {
+for (const [label, viewport] of [
+  ['desktop', { width: 1280, height: 900 }],
+  ['phone', { width: 412, height: 915 }],
+] as const) {
   test(`the district map fits the valley and names the far stray (${label})`, async ({ page }) => {
     await page.setViewportSize(viewport);
     await openMap(page);
@@ -42,11 +45,11 @@ test('every site and farm is on the map, alone or counted in a group; zoomed in,
   // Two farms never had a visit; Quarry Bank's only one was cancelled.
   expect(items.filter((t) => t.includes('no visit yet'))).toHaveLength(3);
   // The list keeps the stray the map leaves off.
-  const expected = items.length - await page.getByRole('note', { name: 'Left off the map' }).getByRole('listitem').count();
+  const expected = items.length - (await page.getByRole('note', { name: 'Left off the map' }).getByRole('listitem').count());
   expect(expected).toBeGreaterThanOrEqual(38);
   const count = async () => {
     const groups = await page.locator('.fallbook-cluster').allTextContents();
-    return groups.reduce((n, t) => n + Number(t), 0) + await page.locator('.leaflet-marker-icon.fallbook-marker').count();
+    return groups.reduce((n, t) => n + Number(t), 0) + (await page.locator('.leaflet-marker-icon.fallbook-marker').count());
   };
   await expect.poll(count).toBe(expected);
   for (let i = 0; i < 3; i++) {

@@ -28,9 +28,11 @@ test('a refused photo shows the reason, stays on the phone, and goes up when tri
   // The server refuses the bytes (as it would a file it cannot read) for as long as this route stands:
   // set before the photo is taken, since saving it starts a sync at once.
   const refuse = /\/api\/photos\/[0-9a-f-]{36}$/;
-  await context.route(refuse, (route) => (route.request().method() === 'PUT'
-    ? route.fulfill({ status: 415, contentType: 'application/json', body: JSON.stringify({ error: { code: 'unsupported', message: REASON } }) })
-    : route.continue()));
+  await context.route(refuse, (route) =>
+    route.request().method() === 'PUT'
+      ? route.fulfill({ status: 415, contentType: 'application/json', body: JSON.stringify({ error: { code: 'unsupported', message: REASON } }) })
+      : route.continue(),
+  );
   const photo = await gpsJpeg(52.41, -3.61, '#6a8caf');
   await page.goto(`/field/visit/photos?id=${visitId}`);
   await page.getByTestId('photo-input').setInputFiles([{ name: 'pool.jpg', mimeType: 'image/jpeg', buffer: photo.buffer }]);
@@ -57,7 +59,9 @@ test('a refused photo shows the reason, stays on the phone, and goes up when tri
   await refused.getByRole('button', { name: 'Try again now' }).click();
   await expect.poll(async () => (await phoneState(page)).photosWaiting, { timeout: 30_000 }).toBe(0);
   await expect(page.getByRole('listitem').filter({ hasText: REASON })).toHaveCount(0);
-  const [stored] = await query<{ sha256: string; uploadedAt: Date | null }>('SELECT sha256, uploaded_at AS uploadedAt FROM photos WHERE visit_id = ?', [visitId]);
+  const [stored] = await query<{ sha256: string; uploadedAt: Date | null }>('SELECT sha256, uploaded_at AS uploadedAt FROM photos WHERE visit_id = ?', [
+    visitId,
+  ]);
   expect(stored?.sha256).toBe(photo.sha256);
   expect(stored?.uploadedAt).not.toBeNull();
   await page.goto(`/field/visit/photos?id=${visitId}`);

@@ -11,7 +11,13 @@ import { query } from './support/db';
 import { OwnServer } from './support/own-server';
 import { demoSession } from './support/session';
 
-const db = { host: '127.0.0.1', port: Number(process.env.DB_PORT), user: process.env.DB_USER as string, password: process.env.DB_PASSWORD as string, name: process.env.DB_NAME as string };
+const db = {
+  host: '127.0.0.1',
+  port: Number(process.env.DB_PORT),
+  user: process.env.DB_USER as string,
+  password: process.env.DB_PASSWORD as string,
+  name: process.env.DB_NAME as string,
+};
 const port = Number(process.env.PORT || 3100) + 1001;
 const base = `http://127.0.0.1:${port}`;
 let pair: ReplicaPair | undefined;
@@ -28,8 +34,12 @@ test.beforeAll(async () => {
   await pair.catchUp();
   const maren = await demoSession('maren@wenlow-water.test');
   session = maren.cookie;
-  const [farm] = await query<{ id: string }>('SELECT id FROM farms WHERE organisation_id = ? AND deleted_at IS NULL ORDER BY name LIMIT 1', [maren.user.organisation_id]);
-  const [advisor] = await query<{ id: string }>("SELECT id FROM users WHERE organisation_id = ? AND role = 'advisor' AND active = 1 ORDER BY email LIMIT 1", [maren.user.organisation_id]);
+  const [farm] = await query<{ id: string }>('SELECT id FROM farms WHERE organisation_id = ? AND deleted_at IS NULL ORDER BY name LIMIT 1', [
+    maren.user.organisation_id,
+  ]);
+  const [advisor] = await query<{ id: string }>("SELECT id FROM users WHERE organisation_id = ? AND role = 'advisor' AND active = 1 ORDER BY email LIMIT 1", [
+    maren.user.organisation_id,
+  ]);
   farmId = farm?.id ?? '';
   advisorId = advisor?.id ?? '';
   server = new OwnServer(port, { DB_HOST: '127.0.0.1', DB_PORT: String(pair.primary.port), DB_READ_HOSTS: `127.0.0.1:${pair.replica.port}` });
@@ -54,7 +64,8 @@ test('the page right after a save reads the primary; without the mark it reads t
   try {
     const notes = `Replica check ${randomUUID().slice(0, 8)}`;
     const res = await fetch(`${base}/api/visits`, {
-      method: 'POST', headers: { cookie: session, origin: base, 'content-type': 'application/json' },
+      method: 'POST',
+      headers: { cookie: session, origin: base, 'content-type': 'application/json' },
       body: JSON.stringify({ farmId, advisorId, plannedOn: '2027-03-01', confirmDuplicate: true, notes }),
     });
     expect(res.status).toBe(201);

@@ -11,7 +11,8 @@ async function watchCsp(context: BrowserContext): Promise<string[]> {
   await context.addInitScript(() => {
     document.addEventListener('securitypolicyviolation', (e) => {
       (window as unknown as { __reportCspViolation: (t: string) => void }).__reportCspViolation(
-        `${e.violatedDirective} blocked ${e.blockedURI || 'inline'} on ${location.pathname}`);
+        `${e.violatedDirective} blocked ${e.blockedURI || 'inline'} on ${location.pathname}`,
+      );
     });
   });
   context.on('console', (message) => {

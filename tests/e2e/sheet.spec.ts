@@ -102,15 +102,18 @@ test('the drawings fit the screen from 320 to 1440 px: no sideways scroll, every
     await expect(page.getByRole('img', { name: /Elevation profile/ })).toBeVisible();
     const measured = await page.evaluate(() => {
       const out: string[] = [];
-      if (document.documentElement.scrollWidth > window.innerWidth + 1) out.push(`page scrolls sideways: ${document.documentElement.scrollWidth} > ${window.innerWidth}`);
-      const drawings = [...document.querySelectorAll<SVGSVGElement>('[data-testid="profile-drawing"], [data-testid="site-map-drawing"]')]
-        .filter((svg) => svg.getBoundingClientRect().width > 0);
+      if (document.documentElement.scrollWidth > window.innerWidth + 1)
+        out.push(`page scrolls sideways: ${document.documentElement.scrollWidth} > ${window.innerWidth}`);
+      const drawings = [...document.querySelectorAll<SVGSVGElement>('[data-testid="profile-drawing"], [data-testid="site-map-drawing"]')].filter(
+        (svg) => svg.getBoundingClientRect().width > 0,
+      );
       for (const svg of drawings) {
         const frame = svg.getBoundingClientRect();
         if (frame.right > window.innerWidth + 1) out.push(`${svg.dataset.testid} runs past the screen`);
         for (const text of svg.querySelectorAll('text')) {
           const r = text.getBoundingClientRect();
-          if (r.left < frame.left - 1 || r.right > frame.right + 1 || r.top < frame.top - 1 || r.bottom > frame.bottom + 1) out.push(`"${text.textContent}" outside ${svg.dataset.testid}`);
+          if (r.left < frame.left - 1 || r.right > frame.right + 1 || r.top < frame.top - 1 || r.bottom > frame.bottom + 1)
+            out.push(`"${text.textContent}" outside ${svg.dataset.testid}`);
         }
         const tank = svg.querySelector('[data-node="tank"] rect')?.getBoundingClientRect();
         if (svg.dataset.testid === 'profile-drawing' && (!tank || tank.right > frame.right + 1 || tank.left < frame.left)) out.push('tank out of view');

@@ -26,7 +26,7 @@ async function setDelivery(page: Page, visitId: string, feet: string) {
 }
 
 const deliveryM = async (visitId: string) =>
-  (await query<{ lengthM: number }>("SELECT length_m AS lengthM FROM pipe_runs WHERE visit_id = ? AND purpose = 'delivery' AND deleted_at IS NULL", [visitId]));
+  await query<{ lengthM: number }>("SELECT length_m AS lengthM FROM pipe_runs WHERE visit_id = ? AND purpose = 'delivery' AND deleted_at IS NULL", [visitId]);
 
 test('two phones edit the same pipe length offline: the second sees a conflict and decides', async ({ browser }) => {
   const baseURL = test.info().project.use.baseURL ?? '';
@@ -92,8 +92,10 @@ test('two phones edit the same pipe length offline: the second sees a conflict a
   await pressSync(a.page);
   await a.page.goto(`/field/visit/pipes?id=${visitId}`);
   await expect(a.page.getByLabel('Length along the route', { exact: true }).nth(1)).toHaveValue('1000');
-  const parked = await query<{ n: number }>("SELECT COUNT(*) AS n FROM pipe_runs WHERE visit_id = ?", [visitId]);
-  console.log(`[conflict-e2e] 2 phones edited one pipe length offline: 1 conflict surfaced and decided on the screen; ${Number(parked[0]?.n)} pipe runs on the visit, delivery ${final[0]?.lengthM} m`);
+  const parked = await query<{ n: number }>('SELECT COUNT(*) AS n FROM pipe_runs WHERE visit_id = ?', [visitId]);
+  console.log(
+    `[conflict-e2e] 2 phones edited one pipe length offline: 1 conflict surfaced and decided on the screen; ${Number(parked[0]?.n)} pipe runs on the visit, delivery ${final[0]?.lengthM} m`,
+  );
   await a.context.close();
   await b.context.close();
 });

@@ -63,7 +63,9 @@ test('(a) 30 % of sync requests aborted at random (seeded): everything arrives e
   await assertExactlyOnce(captured);
   expect(counts.lostBefore).toBeGreaterThan(0);
   expect(counts.lostAfter).toBeGreaterThan(0);
-  figures.push(`(a) captured ${captured.seconds.records.toFixed(1)} + ${captured.seconds.photos.toFixed(1)} s; synced in ${runs} runs, ${secs(started)}; ${counts.requests} requests (${JSON.stringify(counts.byPath)}), ${counts.lostBefore} aborted before the server, ${counts.lostAfter} after it answered`);
+  figures.push(
+    `(a) captured ${captured.seconds.records.toFixed(1)} + ${captured.seconds.photos.toFixed(1)} s; synced in ${runs} runs, ${secs(started)}; ${counts.requests} requests (${JSON.stringify(counts.byPath)}), ${counts.lostBefore} aborted before the server, ${counts.lostAfter} after it answered`,
+  );
 });
 
 test('(b) server killed mid-push and mid-upload, a gateway answering 502 while it is down: nothing lost, nothing doubled', async () => {
@@ -99,7 +101,9 @@ test('(b) server killed mid-push and mid-upload, a gateway answering 502 while i
         down = true;
         await server.kill('SIGKILL');
         await blocker.release();
-        const committed = Number((await query<{ n: number }>(`SELECT COUNT(*) AS n FROM sync_ops WHERE entity_id IN (${all.map(() => '?').join(',')})`, all))[0]?.n);
+        const committed = Number(
+          (await query<{ n: number }>(`SELECT COUNT(*) AS n FROM sync_ops WHERE entity_id IN (${all.map(() => '?').join(',')})`, all))[0]?.n,
+        );
         return { open, committed };
       })();
       await answer;
@@ -143,7 +147,9 @@ test('(b) server killed mid-push and mid-upload, a gateway answering 502 while i
   await phone.unrouteAll({ behavior: 'wait' });
   await assertExactlyOnce(captured);
   expect(runs).toBe(1);
-  figures.push(`(b) killed while the push transaction held the revision lock (${at.committed} ops committed) and again during upload 3; ${gateway} requests answered 502 while down; ${counts.requests} requests; ${secs(started)} in all`);
+  figures.push(
+    `(b) killed while the push transaction held the revision lock (${at.committed} ops committed) and again during upload 3; ${gateway} requests answered 502 while down; ${counts.requests} requests; ${secs(started)} in all`,
+  );
 });
 
 test('(c) page reloaded in the middle of the photo uploads: every photo once, intact', async () => {
@@ -172,7 +178,9 @@ test('(c) page reloaded in the middle of the photo uploads: every photo once, in
   const runs = await syncUntilDone(page);
   await phone.unrouteAll({ behavior: 'wait' });
   await assertExactlyOnce(captured);
-  figures.push(`(c) reloaded during upload 5 of 20; ${photoPuts} photo uploads in all, ${counts.requests} requests (${workerRequests} from the worker), ${runs} runs after the reload; ${secs(started)}`);
+  figures.push(
+    `(c) reloaded during upload 5 of 20; ${photoPuts} photo uploads in all, ${counts.requests} requests (${workerRequests} from the worker), ${runs} runs after the reload; ${secs(started)}`,
+  );
 });
 
 test('(d) the same push batch and photo delivered 4 times and replayed twice more: applied once', async () => {
@@ -217,5 +225,7 @@ test('(d) the same push batch and photo delivered 4 times and replayed twice mor
   }
   await api.dispose();
   await assertExactlyOnce(captured);
-  figures.push(`(d) first batch of 100 ops delivered 4 times by the phone + 2 replays, first photo 4 times; ${counts.requests} requests, ${runs} runs; ${secs(started)}`);
+  figures.push(
+    `(d) first batch of 100 ops delivered 4 times by the phone + 2 replays, first photo 4 times; ${counts.requests} requests, ${runs} runs; ${secs(started)}`,
+  );
 });

@@ -22,7 +22,10 @@ test.beforeAll(async () => {
   const headers = { cookie: ines.cookie };
   a = await httpRequest.newContext({ baseURL: `http://127.0.0.1:${portA}`, extraHTTPHeaders: headers });
   b = await httpRequest.newContext({ baseURL: `http://127.0.0.1:${portB}`, extraHTTPHeaders: headers });
-  const [visit] = await query<{ id: string }>("SELECT id FROM visits WHERE advisor_id = ? AND deleted_at IS NULL AND status IN ('scheduled', 'surveyed') ORDER BY planned_on LIMIT 1", [ines.user.id]);
+  const [visit] = await query<{ id: string }>(
+    "SELECT id FROM visits WHERE advisor_id = ? AND deleted_at IS NULL AND status IN ('scheduled', 'surveyed') ORDER BY planned_on LIMIT 1",
+    [ines.user.id],
+  );
   visitId = visit?.id ?? '';
 });
 
@@ -49,9 +52,24 @@ async function pullAll(api: APIRequestContext, cursor: number) {
 
 function pointOps(n: number) {
   return Array.from({ length: n }, (_, i) => ({
-    opId: randomUUID(), entity: 'point', entityId: randomUUID(), action: 'put', baseRev: null, madeAt: new Date().toISOString(),
-    changes: { visitId, role: 'station', label: `Station ${i + 1}`, lat: 52.41 + i / 10_000, lon: -3.61, accuracyM: 5, altitudeM: 230 - i,
-      altitudeAccuracyM: 8, chainageM: i * 10, capturedAt: new Date().toISOString() },
+    opId: randomUUID(),
+    entity: 'point',
+    entityId: randomUUID(),
+    action: 'put',
+    baseRev: null,
+    madeAt: new Date().toISOString(),
+    changes: {
+      visitId,
+      role: 'station',
+      label: `Station ${i + 1}`,
+      lat: 52.41 + i / 10_000,
+      lon: -3.61,
+      accuracyM: 5,
+      altitudeM: 230 - i,
+      altitudeAccuracyM: 8,
+      chainageM: i * 10,
+      capturedAt: new Date().toISOString(),
+    },
   }));
 }
 
@@ -89,20 +107,51 @@ test('a phone syncing through two app servers in turn loses and doubles nothing'
   expect(new Set(received).size).toBe(received.length);
   const rows = await query<{ n: number }>(`SELECT COUNT(*) AS n FROM points WHERE id IN (${pushed.map(() => '?').join(',')})`, pushed);
   expect(Number(rows[0]?.n)).toBe(pushed.length);
-  const revs = await query<{ n: number; d: number }>(`SELECT COUNT(*) AS n, COUNT(DISTINCT rev) AS d FROM points WHERE id IN (${pushed.map(() => '?').join(',')})`, pushed);
+  const revs = await query<{ n: number; d: number }>(
+    `SELECT COUNT(*) AS n, COUNT(DISTINCT rev) AS d FROM points WHERE id IN (${pushed.map(() => '?').join(',')})`,
+    pushed,
+  );
   expect(Number(revs[0]?.d)).toBe(Number(revs[0]?.n));
 });
 
 test('a photo uploaded through one server is served by the other, byte for byte', async () => {
-  const data = await sharp({ create: { width: 640, height: 480, channels: 3, background: '#5a7d8f' } }).jpeg().toBuffer();
+  const data = await sharp({ create: { width: 640, height: 480, channels: 3, background: '#5a7d8f' } })
+    .jpeg()
+    .toBuffer();
   const sha256 = createHash('sha256').update(data).digest('hex');
   const id = randomUUID();
-  expect(await push(b, [{ opId: randomUUID(), entity: 'photo', entityId: id, action: 'put', baseRev: null, madeAt: new Date().toISOString(),
-    changes: { visitId, pointId: null, caption: 'Weir from the bank', mime: 'image/jpeg', bytes: data.length, sha256, width: null, height: null, lat: null, lon: null, takenAt: null } }]))
-    .toEqual(['applied']);
+  expect(
+    await push(b, [
+      {
+        opId: randomUUID(),
+        entity: 'photo',
+        entityId: id,
+        action: 'put',
+        baseRev: null,
+        madeAt: new Date().toISOString(),
+        changes: {
+          visitId,
+          pointId: null,
+          caption: 'Weir from the bank',
+          mime: 'image/jpeg',
+          bytes: data.length,
+          sha256,
+          width: null,
+          height: null,
+          lat: null,
+          lon: null,
+          takenAt: null,
+        },
+      },
+    ]),
+  ).toEqual(['applied']);
   const put = await a.put(`/api/photos/${id}`, { data, headers: { 'content-type': 'application/octet-stream' } });
   expect(put.status()).toBe(200);
   const got = await b.get(`/api/photos/${id}`);
   expect(got.status()).toBe(200);
-  expect(createHash('sha256').update(await got.body()).digest('hex')).toBe(sha256);
+  expect(
+    createHash('sha256')
+      .update(await got.body())
+      .digest('hex'),
+  ).toBe(sha256);
 });

@@ -91,7 +91,7 @@ for (const route of guarded) {
         // in a body is a field error.
         const outOfReach = !ok && allowed(role, route.permissions, 'own');
         const inBody = outOfReach ? route.refusedInBody : undefined;
-        const expected = ok ? route.ok : inBody?.status ?? (outOfReach ? 404 : 403);
+        const expected = ok ? route.ok : (inBody?.status ?? (outOfReach ? 404 : 403));
         it(`${role} on ${route.target === 'none' ? 'the collection' : `a ${route.target} (${reach})`} is ${expected}`, async () => {
           const { res, status } = await call(role, reach);
           const body = res.headers.get('content-type')?.includes('json') ? await res.clone().json() : null;
@@ -105,5 +105,7 @@ for (const route of guarded) {
 }
 
 afterAll(() => {
-  console.log(`[matrix] ${cells} cells checked over ${guarded.length} guarded route methods × ${ROLES.length} roles (+ ${ROUTES.length - guarded.length} public)`);
+  console.log(
+    `[matrix] ${cells} cells checked over ${guarded.length} guarded route methods × ${ROLES.length} roles (+ ${ROUTES.length - guarded.length} public)`,
+  );
 });

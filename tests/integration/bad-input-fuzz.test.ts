@@ -10,14 +10,35 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { POST as acceptInvitation } from '@/app/api/invitations/[token]/accept/route';
 import { scopeOf } from '@/lib/server/auth/permissions';
 import { ROLES } from '@/lib/shared/domain';
-import { farmSchema, bulkAssignSchema, invitationSchema, personUpdateSchema, settingsSchema, visitAssignSchema, visitCreateSchema, visitStatusSchema, visitJumpSchema, acceptInvitationSchema } from '@/lib/shared/schemas/office';
+import {
+  farmSchema,
+  bulkAssignSchema,
+  invitationSchema,
+  personUpdateSchema,
+  settingsSchema,
+  visitAssignSchema,
+  visitCreateSchema,
+  visitStatusSchema,
+  visitJumpSchema,
+  acceptInvitationSchema,
+} from '@/lib/shared/schemas/office';
 import { idParam, pageQuery, visitFilters, visitListQuery } from '@/lib/shared/schemas/list-query';
 import { answerBody, decisionBody, farmNeedsBody, paperQuery, questionBody, sendSheetBody } from '@/lib/shared/schemas/sheet';
 import { pullQuerySchema, pushRequestSchema } from '@/lib/shared/schemas/sync';
 import { commissioningInputSchema } from '@/lib/shared/schemas/commissioning';
 import { params } from './support/fixtures';
 import {
-  DELETE, PROTOTYPE_KEYS, databaseFingerprint, extremeDate, extremeInteger, hostileRawBody, hostileString, hostileValue, loneSurrogateString, pathsOf, withAt,
+  DELETE,
+  PROTOTYPE_KEYS,
+  databaseFingerprint,
+  extremeDate,
+  extremeInteger,
+  hostileRawBody,
+  hostileString,
+  hostileValue,
+  loneSurrogateString,
+  pathsOf,
+  withAt,
 } from './support/hostile';
 import { ROUTES, handlerOf, routeParams, type GuardedRoute } from './support/route-table';
 import { callerOf, makeWorld, resourceFor, type World } from './support/world';
@@ -118,21 +139,40 @@ describe('bad input, route by route', () => {
     const hasParam = route.file.includes('[id]');
     const valid = async () => {
       const req = await route.build(callerFor(route), resourceFor(world, route.target, 'own'));
-      const body: unknown = route.method === 'GET' || route.file.includes('photos') ? undefined : await req.clone().json().catch(() => undefined);
+      const body: unknown =
+        route.method === 'GET' || route.file.includes('photos')
+          ? undefined
+          : await req
+              .clone()
+              .json()
+              .catch(() => undefined);
       return { req, body };
     };
 
     if (hasParam) {
       it(`${key}: hostile ids are refused`, async () => {
         const { req } = await valid();
-        await fc.assert(fc.asyncProperty(fc.oneof(hostileString, fc.uuid().map((u) => u.toUpperCase() + 'x')), async (id) => {
-          fc.pre(!idParam.safeParse({ id }).success);
-          let encoded = '';
-          try { encoded = encodeURIComponent(id); } catch { /* a lone surrogate cannot be in a URL at all */ }
-          fc.pre(encoded !== '');
-          const url = new URL(req.nextUrl.pathname.replace(/[0-9a-f-]{36}/, encoded) + req.nextUrl.search, req.nextUrl.origin);
-          await expectRefused(route, rebuilt(req, url, req.method === 'GET' ? undefined : await req.clone().text()), 'params', id);
-        }), { seed: SEED, numRuns: RUNS });
+        await fc.assert(
+          fc.asyncProperty(
+            fc.oneof(
+              hostileString,
+              fc.uuid().map((u) => u.toUpperCase() + 'x'),
+            ),
+            async (id) => {
+              fc.pre(!idParam.safeParse({ id }).success);
+              let encoded = '';
+              try {
+                encoded = encodeURIComponent(id);
+              } catch {
+                /* a lone surrogate cannot be in a URL at all */
+              }
+              fc.pre(encoded !== '');
+              const url = new URL(req.nextUrl.pathname.replace(/[0-9a-f-]{36}/, encoded) + req.nextUrl.search, req.nextUrl.origin);
+              await expectRefused(route, rebuilt(req, url, req.method === 'GET' ? undefined : await req.clone().text()), 'params', id);
+            },
+          ),
+          { seed: SEED, numRuns: RUNS },
+        );
         // An id that is well-formed but names nothing: 404, never a 500.
         const missing = new URL(req.nextUrl.pathname.replace(/[0-9a-f-]{36}/, randomUUID()), req.nextUrl.origin);
         await expectRefused(route, rebuilt(req, missing, req.method === 'GET' ? undefined : await req.clone().text()), 'params', 'unknown uuid');
@@ -143,13 +183,28 @@ describe('bad input, route by route', () => {
       const querySchema = schemas.query;
       it(`${key}: hostile query strings are refused`, async () => {
         const { req } = await valid();
-        const keys = Object.keys((querySchema as unknown as { shape?: object }).shape ?? {}).concat(['page', 'pageSize', 'status', 'advisor', 'plannedFrom', 'q', 'sort', 'dir', 'cursor', 'limit', 'paper']);
-        await fc.assert(fc.asyncProperty(fc.dictionary(fc.constantFrom(...keys), hostileString, { minKeys: 1, maxKeys: 3 }), async (query) => {
-          fc.pre(!querySchema.safeParse(query).success);
-          const url = new URL(req.nextUrl.pathname, req.nextUrl.origin);
-          for (const [k, v] of Object.entries(query)) url.searchParams.set(k, v);
-          await expectRefused(route, rebuilt(req, url), 'query', url.search);
-        }), { seed: SEED, numRuns: RUNS });
+        const keys = Object.keys((querySchema as unknown as { shape?: object }).shape ?? {}).concat([
+          'page',
+          'pageSize',
+          'status',
+          'advisor',
+          'plannedFrom',
+          'q',
+          'sort',
+          'dir',
+          'cursor',
+          'limit',
+          'paper',
+        ]);
+        await fc.assert(
+          fc.asyncProperty(fc.dictionary(fc.constantFrom(...keys), hostileString, { minKeys: 1, maxKeys: 3 }), async (query) => {
+            fc.pre(!querySchema.safeParse(query).success);
+            const url = new URL(req.nextUrl.pathname, req.nextUrl.origin);
+            for (const [k, v] of Object.entries(query)) url.searchParams.set(k, v);
+            await expectRefused(route, rebuilt(req, url), 'query', url.search);
+          }),
+          { seed: SEED, numRuns: RUNS },
+        );
       });
     }
 
@@ -162,11 +217,19 @@ describe('bad input, route by route', () => {
           { weight: 4, arbitrary: fc.tuple(fc.constantFrom(...paths), fc.oneof(hostileValue, fc.constant(DELETE))) },
           { weight: 1, arbitrary: fc.tuple(fc.constant([] as (string | number)[]), hostileValue) },
         );
-        await fc.assert(fc.asyncProperty(mutation, async ([path, value]) => {
-          const mutated = withAt(body, path, value);
-          fc.pre(!bodySchema.safeParse(mutated).success);
-          await expectRefused(route, rebuilt(req, req.nextUrl, JSON.stringify(mutated) ?? ''), 'body', `${path.join('.')}=${String(JSON.stringify(value)).slice(0, 200)}`);
-        }), { seed: SEED, numRuns: RUNS });
+        await fc.assert(
+          fc.asyncProperty(mutation, async ([path, value]) => {
+            const mutated = withAt(body, path, value);
+            fc.pre(!bodySchema.safeParse(mutated).success);
+            await expectRefused(
+              route,
+              rebuilt(req, req.nextUrl, JSON.stringify(mutated) ?? ''),
+              'body',
+              `${path.join('.')}=${String(JSON.stringify(value)).slice(0, 200)}`,
+            );
+          }),
+          { seed: SEED, numRuns: RUNS },
+        );
       });
 
       it(`${key}: lone surrogates, extreme dates and integers, and prototype keys in an otherwise valid body are refused`, async () => {
@@ -175,26 +238,44 @@ describe('bad input, route by route', () => {
         const paths = pathsOf(body);
         const strings = paths.filter((p) => typeof at(p) === 'string');
         const numbers = paths.filter((p) => typeof at(p) === 'number');
-        const objects = [[], ...paths].filter((p) => { const v = at(p); return !!v && typeof v === 'object' && !Array.isArray(v); });
+        const objects = [[], ...paths].filter((p) => {
+          const v = at(p);
+          return !!v && typeof v === 'object' && !Array.isArray(v);
+        });
         type Case = { kind: string; path: (string | number)[]; value: unknown; alwaysInvalid: boolean };
         const arbitraries: fc.Arbitrary<Case>[] = [
-          fc.tuple(fc.constantFrom(...objects), fc.constantFrom(...PROTOTYPE_KEYS), fc.oneof(fc.integer(), fc.string({ maxLength: 5 }), fc.constant({})))
+          fc
+            .tuple(fc.constantFrom(...objects), fc.constantFrom(...PROTOTYPE_KEYS), fc.oneof(fc.integer(), fc.string({ maxLength: 5 }), fc.constant({})))
             .map(([p, k, v]) => ({ kind: 'prototype key', path: [...p, k], value: v, alwaysInvalid: false })),
         ];
         if (strings.length > 0) {
-          arbitraries.push(fc.tuple(fc.constantFrom(...strings), loneSurrogateString).map(([p, v]) => ({ kind: 'lone surrogate', path: p, value: v, alwaysInvalid: true })));
-          arbitraries.push(fc.tuple(fc.constantFrom(...strings), extremeDate).map(([p, v]) => ({ kind: 'extreme date', path: p, value: v, alwaysInvalid: false })));
+          arbitraries.push(
+            fc.tuple(fc.constantFrom(...strings), loneSurrogateString).map(([p, v]) => ({ kind: 'lone surrogate', path: p, value: v, alwaysInvalid: true })),
+          );
+          arbitraries.push(
+            fc.tuple(fc.constantFrom(...strings), extremeDate).map(([p, v]) => ({ kind: 'extreme date', path: p, value: v, alwaysInvalid: false })),
+          );
         }
         if (numbers.length > 0) {
-          arbitraries.push(fc.tuple(fc.constantFrom(...numbers), extremeInteger).map(([p, v]) => ({ kind: 'extreme integer', path: p, value: v, alwaysInvalid: false })));
+          arbitraries.push(
+            fc.tuple(fc.constantFrom(...numbers), extremeInteger).map(([p, v]) => ({ kind: 'extreme integer', path: p, value: v, alwaysInvalid: false })),
+          );
         }
-        await fc.assert(fc.asyncProperty(fc.oneof(...arbitraries), async ({ kind, path, value, alwaysInvalid }) => {
-          const mutated = withAt(body, path, value);
-          // A lone surrogate is refused at the boundary whatever the schema says; the rest by the schema
-          // (a key the schema strips, or a value it allows, is a valid request and not sent here).
-          if (!alwaysInvalid && bodySchema.safeParse(mutated).success) return;
-          await expectRefused(route, rebuilt(req, req.nextUrl, JSON.stringify(mutated) ?? ''), 'body', `${kind} ${path.join('.')}=${String(JSON.stringify(value)).slice(0, 120)}`);
-        }), { seed: SEED, numRuns: RUNS });
+        await fc.assert(
+          fc.asyncProperty(fc.oneof(...arbitraries), async ({ kind, path, value, alwaysInvalid }) => {
+            const mutated = withAt(body, path, value);
+            // A lone surrogate is refused at the boundary whatever the schema says; the rest by the schema
+            // (a key the schema strips, or a value it allows, is a valid request and not sent here).
+            if (!alwaysInvalid && bodySchema.safeParse(mutated).success) return;
+            await expectRefused(
+              route,
+              rebuilt(req, req.nextUrl, JSON.stringify(mutated) ?? ''),
+              'body',
+              `${kind} ${path.join('.')}=${String(JSON.stringify(value)).slice(0, 120)}`,
+            );
+          }),
+          { seed: SEED, numRuns: RUNS },
+        );
       });
 
       it(`${key}: bodies that are not JSON, truncated, deeply nested or oversized are refused`, async () => {
@@ -202,33 +283,52 @@ describe('bad input, route by route', () => {
         const text = JSON.stringify(body);
         // Past the route's cap (8 MB for a sync push, 1 MB for the rest): valid fields or not, a 413.
         const oversize = route.file.includes('sync/push') ? 9 * 1024 * 1024 : 2 * 1024 * 1024;
-        const raw = fc.oneof(hostileRawBody, fc.nat({ max: text.length - 1 }).map((n) => text.slice(0, n)),
-          fc.constant(JSON.stringify({ ...(body as object), padding: 'x'.repeat(oversize) })));
-        await fc.assert(fc.asyncProperty(raw, async (rawText) => {
-          let parsed: unknown = Symbol('not json');
-          try { parsed = JSON.parse(rawText); } catch { /* not JSON: invalid */ }
-          fc.pre(!bodySchema.safeParse(parsed).success || rawText.length > oversize);
-          await expectRefused(route, rebuilt(req, req.nextUrl, rawText), 'raw', rawText.slice(0, 120));
-        }), { seed: SEED, numRuns: Math.max(10, Math.round(RUNS / 2)) });
+        const raw = fc.oneof(
+          hostileRawBody,
+          fc.nat({ max: text.length - 1 }).map((n) => text.slice(0, n)),
+          fc.constant(JSON.stringify({ ...(body as object), padding: 'x'.repeat(oversize) })),
+        );
+        await fc.assert(
+          fc.asyncProperty(raw, async (rawText) => {
+            let parsed: unknown = Symbol('not json');
+            try {
+              parsed = JSON.parse(rawText);
+            } catch {
+              /* not JSON: invalid */
+            }
+            fc.pre(!bodySchema.safeParse(parsed).success || rawText.length > oversize);
+            await expectRefused(route, rebuilt(req, req.nextUrl, rawText), 'raw', rawText.slice(0, 120));
+          }),
+          { seed: SEED, numRuns: Math.max(10, Math.round(RUNS / 2)) },
+        );
       });
     }
   }
 
   it('POST /api/invitations/:token/accept: hostile tokens and bodies are refused', async () => {
-    await fc.assert(fc.asyncProperty(hostileString, hostileValue, async (token, body) => {
-      fc.pre(!acceptInvitationSchema.safeParse(body).success || token.length > 0);
-      let encoded = '';
-      try { encoded = encodeURIComponent(token); } catch { /* a lone surrogate cannot be in a URL at all */ }
-      fc.pre(encoded !== '' || token === '');
-      const req = new NextRequest(new URL(`/api/invitations/${encoded}/accept`, 'http://127.0.0.1:3100'), {
-        method: 'POST', body: JSON.stringify(body) ?? '', headers: { 'content-type': 'application/json' },
-      });
-      const res = await acceptInvitation(req, params({ token }));
-      tally.cases += 1;
-      tally.byKind.params += 1;
-      expect(res.status, await res.clone().text()).toBeGreaterThanOrEqual(400);
-      expect(res.status).toBeLessThan(500);
-    }), { seed: SEED, numRuns: RUNS });
+    await fc.assert(
+      fc.asyncProperty(hostileString, hostileValue, async (token, body) => {
+        fc.pre(!acceptInvitationSchema.safeParse(body).success || token.length > 0);
+        let encoded = '';
+        try {
+          encoded = encodeURIComponent(token);
+        } catch {
+          /* a lone surrogate cannot be in a URL at all */
+        }
+        fc.pre(encoded !== '' || token === '');
+        const req = new NextRequest(new URL(`/api/invitations/${encoded}/accept`, 'http://127.0.0.1:3100'), {
+          method: 'POST',
+          body: JSON.stringify(body) ?? '',
+          headers: { 'content-type': 'application/json' },
+        });
+        const res = await acceptInvitation(req, params({ token }));
+        tally.cases += 1;
+        tally.byKind.params += 1;
+        expect(res.status, await res.clone().text()).toBeGreaterThanOrEqual(400);
+        expect(res.status).toBeLessThan(500);
+      }),
+      { seed: SEED, numRuns: RUNS },
+    );
   });
 
   it('the database is exactly as before: row counts and CHECKSUM TABLE of every table (but the log of refused tries)', async () => {
@@ -240,5 +340,7 @@ describe('bad input, route by route', () => {
 });
 
 afterAll(() => {
-  console.log(`[fuzz] ${tally.cases} bad inputs over ${guarded.length + 1} route methods (params ${tally.byKind.params}, query ${tally.byKind.query}, body ${tally.byKind.body}, raw ${tally.byKind.raw}); server errors: ${tally.serverErrors}; seed ${SEED}, ${RUNS} runs per property`);
+  console.log(
+    `[fuzz] ${tally.cases} bad inputs over ${guarded.length + 1} route methods (params ${tally.byKind.params}, query ${tally.byKind.query}, body ${tally.byKind.body}, raw ${tally.byKind.raw}); server errors: ${tally.serverErrors}; seed ${SEED}, ${RUNS} runs per property`,
+  );
 });

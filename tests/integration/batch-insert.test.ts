@@ -17,8 +17,15 @@ describe('batchInsert', () => {
     const altitudes = [230, 230.01, 0.1 + 0.2, -5, 1e-7, 123456789.123, 231, 52.400001, 1e21, 0];
     const now = new Date();
     const rows = altitudes.map((altitudeM, i) => ({
-      id: randomUUID(), visitId: o.visit.id, role: 'station', label: `S${i}`, altitudeM, chainageM: i % 2 === 0 ? i : i + 0.5,
-      rev: 0, createdAt: now, updatedAt: now,
+      id: randomUUID(),
+      visitId: o.visit.id,
+      role: 'station',
+      label: `S${i}`,
+      altitudeM,
+      chainageM: i % 2 === 0 ? i : i + 0.5,
+      rev: 0,
+      createdAt: now,
+      updatedAt: now,
     }));
     const statements = await getSequelize().transaction(async (transaction) => {
       const before = await executes(transaction);

@@ -18,7 +18,15 @@ beforeAll(async () => {
   await screenFixtureVisit(org.otherVisit.id, org.otherFarm.id, org.otherAdvisor.id);
 });
 
-const reading = { driveLpm: 55, deliveredLpm: 4, beatsPerMinute: 70, liftM: 20, fallM: 3, drivePipeMaterial: 'galvanized-steel', notes: 'bucket at the tank, three fills' };
+const reading = {
+  driveLpm: 55,
+  deliveredLpm: 4,
+  beatsPerMinute: 70,
+  liftM: 20,
+  fallM: 3,
+  drivePipeMaterial: 'galvanized-steel',
+  notes: 'bucket at the tank, three fills',
+};
 const post = async (visitId: string, user: TestUser | undefined, body: unknown) =>
   postCommissioning(await request(`/api/visits/${visitId}/commissioning`, user, { method: 'POST', body }), params({ id: visitId }));
 
@@ -62,7 +70,10 @@ describe('POST /api/visits/:id/commissioning by role', () => {
     // The waste-valve advice from the cycle model at the measured fall and lift, on the screening's drive pipe.
     expect(['slow-down', 'speed-up', 'leave']).toContain(commissioning.check.valve.move);
     expect(commissioning.check.valve.text).toMatch(/waste valve/);
-    expect(commissioning.check.valve.atDesign.driveLpm).toBeCloseTo((screening.result as { figures: { driveFlowLpm: { value: number } } }).figures.driveFlowLpm.value, 0);
+    expect(commissioning.check.valve.atDesign.driveLpm).toBeCloseTo(
+      (screening.result as { figures: { driveFlowLpm: { value: number } } }).figures.driveFlowLpm.value,
+      0,
+    );
     const visit = await Visit.findByPk(org.visit.id, { rejectOnEmpty: true });
     expect(visit.status).toBe('commissioned');
     const audit = await getAudit(await request(`/api/visits/${org.visit.id}/audit`, org.coordinator), params({ id: org.visit.id }));

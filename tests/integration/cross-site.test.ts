@@ -88,9 +88,13 @@ describe('public routes that write refuse cross-site requests too', () => {
     for (const [name, headers] of Object.entries(DISGUISES)) {
       it(`${route.method} ${route.file}, ${name}: 403, nothing stored`, async () => {
         // A made-up value for each [param]: the origin check comes before anything is looked up.
-        const url = route.file.replace(/^app/, '').replace(/\/route\.ts$/, '').replace(/\[(\w+)\]/g, 'cross-site-$1');
+        const url = route.file
+          .replace(/^app/, '')
+          .replace(/\/route\.ts$/, '')
+          .replace(/\[(\w+)\]/g, 'cross-site-$1');
         const req = new NextRequest(new URL(url, 'http://127.0.0.1:3100'), {
-          method: route.method, body: JSON.stringify({ password: 'a-long-enough-password', name: 'Cross Site' }),
+          method: route.method,
+          body: JSON.stringify({ password: 'a-long-enough-password', name: 'Cross Site' }),
           headers: { 'content-type': 'application/json', host: '127.0.0.1:3100', ...headers },
         });
         const mod: object = await import(/* @vite-ignore */ path.join(root, route.file));
@@ -116,5 +120,7 @@ describe('the check is not a blanket refusal', () => {
 });
 
 afterAll(() => {
-  console.log(`[cross-site] ${refused} refused: (${mutating.length} guarded + ${publicWrites.length} public) mutating route methods × ${Object.keys(DISGUISES).length} disguises`);
+  console.log(
+    `[cross-site] ${refused} refused: (${mutating.length} guarded + ${publicWrites.length} public) mutating route methods × ${Object.keys(DISGUISES).length} disguises`,
+  );
 });

@@ -19,23 +19,59 @@ const DAY = 86_400_000;
 const isoDay = (t: number) => new Date(t).toISOString().slice(0, 10);
 // The message's text with quoted-printable soft line breaks and escapes undone.
 const digestsTo = async (address: string) => (await mailTo(address)).filter((m) => m.subject.startsWith('Fallbook this morning'));
-const body = (raw = '') => Buffer.from(raw.replace(/=\r?\n/g, '').replace(/=([0-9A-F]{2})/g, (_, h: string) => String.fromCharCode(parseInt(h, 16))), 'latin1').toString('utf8');
+const body = (raw = '') =>
+  Buffer.from(
+    raw.replace(/=\r?\n/g, '').replace(/=([0-9A-F]{2})/g, (_, h: string) => String.fromCharCode(parseInt(h, 16))),
+    'latin1',
+  ).toString('utf8');
 
 beforeAll(async () => {
   o = await makeOrganisation('digest');
   await screenFixtureVisit(o.visit.id, o.farm.id, o.advisor.id);
   await screenFixtureVisit(o.otherVisit.id, o.otherFarm.id, o.otherAdvisor.id);
   // The first visit's sheet goes out and its farmer asks a question.
-  expect((await postSend(await request(`/api/visits/${o.visit.id}/sheet/send`, o.coordinator, { method: 'POST', body: {} }), params({ id: o.visit.id }))).status).toBe(201);
-  expect((await postQuestion(await request(`/api/visits/${o.visit.id}/sheet/questions`, o.farmer, { method: 'POST', body: { text: 'Can the tank sit by the barn instead?' } }), params({ id: o.visit.id }))).status).toBe(201);
+  expect(
+    (await postSend(await request(`/api/visits/${o.visit.id}/sheet/send`, o.coordinator, { method: 'POST', body: {} }), params({ id: o.visit.id }))).status,
+  ).toBe(201);
+  expect(
+    (
+      await postQuestion(
+        await request(`/api/visits/${o.visit.id}/sheet/questions`, o.farmer, { method: 'POST', body: { text: 'Can the tank sit by the barn instead?' } }),
+        params({ id: o.visit.id }),
+      )
+    ).status,
+  ).toBe(201);
   // The second visit's send failed at the mail server.
   const screening = await Screening.findOne({ where: { visitId: o.otherVisit.id }, rejectOnEmpty: true });
-  await SheetSend.create({ id: randomUUID(), visitId: o.otherVisit.id, screeningId: screening.id, sentById: o.coordinator.id, toAddress: 'digest-farmer-2@fixtures.test',
-    paper: 'a4', status: 'failed', error: 'Connection refused', messageId: null });
+  await SheetSend.create({
+    id: randomUUID(),
+    visitId: o.otherVisit.id,
+    screeningId: screening.id,
+    sentById: o.coordinator.id,
+    toAddress: 'digest-farmer-2@fixtures.test',
+    paper: 'a4',
+    status: 'failed',
+    error: 'Connection refused',
+    messageId: null,
+  });
   // A booked visit of the first advisor whose day passed five days ago.
   overdueId = randomUUID();
-  await getSequelize().transaction((transaction) => Visit.create({ id: overdueId, organisationId: o.organisationId, farmId: o.farm.id, advisorId: o.advisor.id,
-    plannedOn: isoDay(Date.now() - 5 * DAY), status: 'scheduled', notes: '', visitedAt: null, lastSyncedAt: null }, { transaction }));
+  await getSequelize().transaction((transaction) =>
+    Visit.create(
+      {
+        id: overdueId,
+        organisationId: o.organisationId,
+        farmId: o.farm.id,
+        advisorId: o.advisor.id,
+        plannedOn: isoDay(Date.now() - 5 * DAY),
+        status: 'scheduled',
+        notes: '',
+        visitedAt: null,
+        lastSyncedAt: null,
+      },
+      { transaction },
+    ),
+  );
 });
 
 describe('the daily digest', () => {

@@ -8,7 +8,16 @@ beforeAll(async () => {
   org = await makeOrganisation('needs');
 });
 
-const needs = { people: 4, animals: [{ kind: 'goat', count: 25 }, { kind: 'laying-hen', count: 40 }], gardenArea: 50, gardenUnit: 'm2', tankSite: 'On the bank above the house' };
+const needs = {
+  people: 4,
+  animals: [
+    { kind: 'goat', count: 25 },
+    { kind: 'laying-hen', count: 40 },
+  ],
+  gardenArea: 50,
+  gardenUnit: 'm2',
+  tankSite: 'On the bank above the house',
+};
 
 describe('PUT /api/farms/:id/demand (the farmer enters needs)', () => {
   it('writes demand lines with revisions, which the assigned advisor then reads', async () => {
@@ -40,7 +49,10 @@ describe('PUT /api/farms/:id/demand (the farmer enters needs)', () => {
 
   it('bad input is a 422 naming the field, and changes nothing', async () => {
     const before = await DemandLine.count({ where: { farmId: org.farm.id, deletedAt: null } });
-    const res = await putNeeds(await request(`/api/farms/${org.farm.id}/demand`, org.farmer, { method: 'PUT', body: { ...needs, people: -2 } }), params({ id: org.farm.id }));
+    const res = await putNeeds(
+      await request(`/api/farms/${org.farm.id}/demand`, org.farmer, { method: 'PUT', body: { ...needs, people: -2 } }),
+      params({ id: org.farm.id }),
+    );
     expect(res.status).toBe(422);
     expect((await res.json()).error.message).toMatch(/people: The number of people cannot be negative/);
     expect(await DemandLine.count({ where: { farmId: org.farm.id, deletedAt: null } })).toBe(before);

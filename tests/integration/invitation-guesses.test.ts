@@ -9,7 +9,10 @@ import { params, request } from './support/fixtures';
 const body = { password: 'a long enough password', confirm: 'a long enough password' };
 const guess = () => randomBytes(32).toString('base64url');
 const tryToken = async (token: string, forwardedFor?: string) =>
-  accept(await request(`/api/invitations/${token}/accept`, undefined, { method: 'POST', body, headers: forwardedFor ? { 'x-forwarded-for': forwardedFor } : {} }), params({ token }));
+  accept(
+    await request(`/api/invitations/${token}/accept`, undefined, { method: 'POST', body, headers: forwardedFor ? { 'x-forwarded-for': forwardedFor } : {} }),
+    params({ token }),
+  );
 
 afterEach(() => {
   delete process.env.TRUSTED_PROXIES;

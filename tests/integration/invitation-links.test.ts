@@ -16,7 +16,10 @@ const good = (password: string) => ({ password, confirm: password });
 
 async function invite(o: Org, email: string): Promise<string> {
   const before = (await mailTo(email)).length;
-  const res = await postInvitation(await request('/api/people/invitations', o.coordinator, { method: 'POST', body: { name: 'Invitee', email, role: 'advisor' } }), params({}));
+  const res = await postInvitation(
+    await request('/api/people/invitations', o.coordinator, { method: 'POST', body: { name: 'Invitee', email, role: 'advisor' } }),
+    params({}),
+  );
   expect(res.status).toBe(201);
   const mail = await mailTo(email);
   expect(mail).toHaveLength(before + 1);

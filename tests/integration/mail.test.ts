@@ -7,7 +7,9 @@ describe('mail through nodemailer to the local fake SMTP server', () => {
   it('delivers one message with its subject and attachment to the right recipient', async () => {
     const to = `mail-${randomUUID().slice(0, 8)}@fixtures.test`;
     const { messageId } = await sendMail({
-      to, subject: 'Your site sheet', text: 'Hello',
+      to,
+      subject: 'Your site sheet',
+      text: 'Hello',
       attachments: [{ filename: 'sheet.txt', content: 'figures' }],
     });
     expect(messageId).toMatch(/@/);

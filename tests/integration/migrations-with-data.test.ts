@@ -35,8 +35,10 @@ beforeAll(async () => {
 afterAll(async () => {
   await sequelize.close();
   rmSync(dir, { recursive: true, force: true });
-  console.log(`[migrations with data] ${report.steps} migrations reverted and re-applied on the demo data: ` +
-    `${report.tablesKept} table states kept with ${report.rowsKept} rows; ${report.rowsDroppedWithTheirTables} rows dropped with the tables their migrations created`);
+  console.log(
+    `[migrations with data] ${report.steps} migrations reverted and re-applied on the demo data: ` +
+      `${report.tablesKept} table states kept with ${report.rowsKept} rows; ${report.rowsDroppedWithTheirTables} rows dropped with the tables their migrations created`,
+  );
 });
 
 const names = MIGRATIONS.map((m) => m.name).reverse();

@@ -21,8 +21,22 @@ describe('migrations', () => {
     const applied = await migrator.up();
     expect(applied.length).toBeGreaterThanOrEqual(3);
     const afterUp = await tables();
-    expect(afterUp).toEqual(expect.arrayContaining(['organisations', 'users', 'farms', 'visits', 'flow_measurements',
-      'fall_readings', 'points', 'photos', 'demand_lines', 'screenings', 'audit_log', 'sync_ops']));
+    expect(afterUp).toEqual(
+      expect.arrayContaining([
+        'organisations',
+        'users',
+        'farms',
+        'visits',
+        'flow_measurements',
+        'fall_readings',
+        'points',
+        'photos',
+        'demand_lines',
+        'screenings',
+        'audit_log',
+        'sync_ops',
+      ]),
+    );
 
     await migrator.down({ to: 0 });
     expect(await tables()).toEqual([]);

@@ -47,11 +47,20 @@ describe('planning and assignment', () => {
     const o = await makeOrganisation('bulk');
     const created = [];
     for (let i = 0; i < 3; i += 1) {
-      const res = await postVisit(await request('/api/visits', o.coordinator, { method: 'POST', body: { farmId: o.farm.id, notes: `visit ${i}`, confirmDuplicate: true } }), params({}));
+      const res = await postVisit(
+        await request('/api/visits', o.coordinator, { method: 'POST', body: { farmId: o.farm.id, notes: `visit ${i}`, confirmDuplicate: true } }),
+        params({}),
+      );
       expect(res.status).toBe(201);
       created.push((await res.json()).visit.id as string);
     }
-    const res = await postAssignments(await request('/api/visits/assignments', o.coordinator, { method: 'POST', body: { visitIds: created, advisorId: o.otherAdvisor.id, plannedOn: '2027-01-05' } }), params({}));
+    const res = await postAssignments(
+      await request('/api/visits/assignments', o.coordinator, {
+        method: 'POST',
+        body: { visitIds: created, advisorId: o.otherAdvisor.id, plannedOn: '2027-01-05' },
+      }),
+      params({}),
+    );
     expect(res.status).toBe(200);
     expect((await res.json()).assigned).toBe(3);
     const mail = await mailTo(o.otherAdvisor.email);
@@ -94,10 +103,13 @@ describe('planning and assignment', () => {
 });
 
 describe('people', () => {
-  it("deactivating a user refuses their existing session on the next request", async () => {
+  it('deactivating a user refuses their existing session on the next request', async () => {
     const o = await makeOrganisation('switch-off');
     expect((await getMe(await request('/api/me', o.advisor), params({}))).status).toBe(200);
-    const res = await patchPerson(await request(`/api/people/${o.advisor.id}`, o.coordinator, { method: 'PATCH', body: { active: false } }), params({ id: o.advisor.id }));
+    const res = await patchPerson(
+      await request(`/api/people/${o.advisor.id}`, o.coordinator, { method: 'PATCH', body: { active: false } }),
+      params({ id: o.advisor.id }),
+    );
     expect(res.status).toBe(200);
     expect((await getMe(await request('/api/me', o.advisor), params({}))).status).toBe(401);
     // Even switched back on, the old cookie stays dead: the session version moved on.
@@ -107,14 +119,20 @@ describe('people', () => {
 
   it('a coordinator cannot switch off their own account', async () => {
     const o = await makeOrganisation('self-off');
-    const res = await patchPerson(await request(`/api/people/${o.coordinator.id}`, o.coordinator, { method: 'PATCH', body: { active: false } }), params({ id: o.coordinator.id }));
+    const res = await patchPerson(
+      await request(`/api/people/${o.coordinator.id}`, o.coordinator, { method: 'PATCH', body: { active: false } }),
+      params({ id: o.coordinator.id }),
+    );
     expect(res.status).toBe(422);
   });
 });
 
 describe('invitations', () => {
   async function invite(o: Awaited<ReturnType<typeof makeOrganisation>>, email: string, role = 'farmer') {
-    return postInvitation(await request('/api/people/invitations', o.coordinator, { method: 'POST', body: { name: 'Newcomer Farmer', email, role } }), params({}));
+    return postInvitation(
+      await request('/api/people/invitations', o.coordinator, { method: 'POST', body: { name: 'Newcomer Farmer', email, role } }),
+      params({}),
+    );
   }
   const acceptWith = async (token: string, body: unknown) =>
     accept(await request(`/api/invitations/${token}/accept`, undefined, { method: 'POST', body }), params({ token }));

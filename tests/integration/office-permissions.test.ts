@@ -27,21 +27,103 @@ type Handler = (req: import('next/server').NextRequest, ctx: { params: Promise<R
 
 // Each office route, with a body that is valid for its organisation `o`. Bodies are built per call
 // (they name records of the organisation under test), `target` is the record id in the path.
-interface Case { name: string; method: string; handler: Handler; path: (o: Org) => string; id?: (o: Org) => string; body?: (o: Org) => unknown; ok: number }
+interface Case {
+  name: string;
+  method: string;
+  handler: Handler;
+  path: (o: Org) => string;
+  id?: (o: Org) => string;
+  body?: (o: Org) => unknown;
+  ok: number;
+}
 const cases: Case[] = [
-  { name: 'POST /api/visits', method: 'POST', handler: postVisit as Handler, path: () => '/api/visits', body: (o) => ({ farmId: o.farm.id, confirmDuplicate: true }), ok: 201 },
+  {
+    name: 'POST /api/visits',
+    method: 'POST',
+    handler: postVisit as Handler,
+    path: () => '/api/visits',
+    body: (o) => ({ farmId: o.farm.id, confirmDuplicate: true }),
+    ok: 201,
+  },
   { name: 'GET /api/visits/export.csv', method: 'GET', handler: getExport as Handler, path: () => '/api/visits/export.csv', ok: 200 },
-  { name: 'PATCH /api/visits/:id', method: 'PATCH', handler: patchVisit as Handler, path: (o) => `/api/visits/${o.visit.id}`, id: (o) => o.visit.id, body: () => ({ status: 'scheduled' }), ok: 200 },
-  { name: 'PUT /api/visits/:id/assignment', method: 'PUT', handler: putAssignment as Handler, path: (o) => `/api/visits/${o.visit.id}/assignment`, id: (o) => o.visit.id, body: (o) => ({ advisorId: o.advisor.id, plannedOn: '2026-12-10' }), ok: 200 },
-  { name: 'GET /api/visits/:id/audit', method: 'GET', handler: getAudit as Handler, path: (o) => `/api/visits/${o.visit.id}/audit`, id: (o) => o.visit.id, ok: 200 },
-  { name: 'POST /api/visits/assignments', method: 'POST', handler: postAssignments as Handler, path: () => '/api/visits/assignments', body: (o) => ({ visitIds: [o.otherVisit.id], advisorId: o.otherAdvisor.id, plannedOn: '2026-12-11' }), ok: 200 },
-  { name: 'POST /api/farms', method: 'POST', handler: postFarm as Handler, path: () => '/api/farms', body: () => ({ name: 'New paddock', area: 'test', lat: '52,1', lon: '-3.5' }), ok: 201 },
+  {
+    name: 'PATCH /api/visits/:id',
+    method: 'PATCH',
+    handler: patchVisit as Handler,
+    path: (o) => `/api/visits/${o.visit.id}`,
+    id: (o) => o.visit.id,
+    body: () => ({ status: 'scheduled' }),
+    ok: 200,
+  },
+  {
+    name: 'PUT /api/visits/:id/assignment',
+    method: 'PUT',
+    handler: putAssignment as Handler,
+    path: (o) => `/api/visits/${o.visit.id}/assignment`,
+    id: (o) => o.visit.id,
+    body: (o) => ({ advisorId: o.advisor.id, plannedOn: '2026-12-10' }),
+    ok: 200,
+  },
+  {
+    name: 'GET /api/visits/:id/audit',
+    method: 'GET',
+    handler: getAudit as Handler,
+    path: (o) => `/api/visits/${o.visit.id}/audit`,
+    id: (o) => o.visit.id,
+    ok: 200,
+  },
+  {
+    name: 'POST /api/visits/assignments',
+    method: 'POST',
+    handler: postAssignments as Handler,
+    path: () => '/api/visits/assignments',
+    body: (o) => ({ visitIds: [o.otherVisit.id], advisorId: o.otherAdvisor.id, plannedOn: '2026-12-11' }),
+    ok: 200,
+  },
+  {
+    name: 'POST /api/farms',
+    method: 'POST',
+    handler: postFarm as Handler,
+    path: () => '/api/farms',
+    body: () => ({ name: 'New paddock', area: 'test', lat: '52,1', lon: '-3.5' }),
+    ok: 201,
+  },
   { name: 'GET /api/farms/:id', method: 'GET', handler: getFarm as Handler, path: (o) => `/api/farms/${o.farm.id}`, id: (o) => o.farm.id, ok: 200 },
-  { name: 'PATCH /api/farms/:id', method: 'PATCH', handler: patchFarm as Handler, path: (o) => `/api/farms/${o.farm.id}`, id: (o) => o.farm.id, body: (o) => ({ name: `${o.farm.name}`, area: 'renamed area', ownerId: o.farmer.id, lat: null, lon: null }), ok: 200 },
-  { name: 'PATCH /api/people/:id', method: 'PATCH', handler: patchPerson as Handler, path: (o) => `/api/people/${o.otherFarmer.id}`, id: (o) => o.otherFarmer.id, body: () => ({ active: true }), ok: 200 },
-  { name: 'POST /api/people/invitations', method: 'POST', handler: postInvitation as Handler, path: () => '/api/people/invitations', body: () => ({ name: 'Newcomer', email: `new-${Math.random().toString(36).slice(2, 10)}@fixtures.test`, role: 'advisor' }), ok: 201 },
+  {
+    name: 'PATCH /api/farms/:id',
+    method: 'PATCH',
+    handler: patchFarm as Handler,
+    path: (o) => `/api/farms/${o.farm.id}`,
+    id: (o) => o.farm.id,
+    body: (o) => ({ name: `${o.farm.name}`, area: 'renamed area', ownerId: o.farmer.id, lat: null, lon: null }),
+    ok: 200,
+  },
+  {
+    name: 'PATCH /api/people/:id',
+    method: 'PATCH',
+    handler: patchPerson as Handler,
+    path: (o) => `/api/people/${o.otherFarmer.id}`,
+    id: (o) => o.otherFarmer.id,
+    body: () => ({ active: true }),
+    ok: 200,
+  },
+  {
+    name: 'POST /api/people/invitations',
+    method: 'POST',
+    handler: postInvitation as Handler,
+    path: () => '/api/people/invitations',
+    body: () => ({ name: 'Newcomer', email: `new-${Math.random().toString(36).slice(2, 10)}@fixtures.test`, role: 'advisor' }),
+    ok: 201,
+  },
   { name: 'GET /api/organisation/settings', method: 'GET', handler: getSettings as Handler, path: () => '/api/organisation/settings', ok: 200 },
-  { name: 'PUT /api/organisation/settings', method: 'PUT', handler: putSettings as Handler, path: () => '/api/organisation/settings', body: () => ({ unitsDefault: 'metric', designFractionOfLowest: 0.6, demandFigures: { sheep: 8 }, pipePrices: [] }), ok: 200 },
+  {
+    name: 'PUT /api/organisation/settings',
+    method: 'PUT',
+    handler: putSettings as Handler,
+    path: () => '/api/organisation/settings',
+    body: () => ({ unitsDefault: 'metric', designFractionOfLowest: 0.6, demandFigures: { sheep: 8 }, pipePrices: [] }),
+    ok: 200,
+  },
 ];
 
 async function call(c: Case, o: Org, user: TestUser | undefined) {
@@ -74,12 +156,18 @@ describe('office routes × roles: only coordinators of the same organisation may
     }
   }
 
-  it('bulk assignment naming another organisation\'s visit changes nothing and is 404', async () => {
-    const res = await postAssignments(await request('/api/visits/assignments', org.coordinator, { method: 'POST', body: { visitIds: [org.visit.id, other.visit.id], advisorId: org.advisor.id, plannedOn: '2026-12-20' } }), params({}));
+  it("bulk assignment naming another organisation's visit changes nothing and is 404", async () => {
+    const res = await postAssignments(
+      await request('/api/visits/assignments', org.coordinator, {
+        method: 'POST',
+        body: { visitIds: [org.visit.id, other.visit.id], advisorId: org.advisor.id, plannedOn: '2026-12-20' },
+      }),
+      params({}),
+    );
     expect(res.status).toBe(404);
   });
 
-  it('creating a visit on another organisation\'s farm is a 422 naming the farm field', async () => {
+  it("creating a visit on another organisation's farm is a 422 naming the farm field", async () => {
     const res = await postVisit(await request('/api/visits', org.coordinator, { method: 'POST', body: { farmId: other.farm.id } }), params({}));
     expect(res.status).toBe(422);
     expect((await res.json()).error.fieldErrors.farmId).toBeDefined();

@@ -19,8 +19,7 @@ beforeAll(async () => {
   otherOrg = await makeOrganisation('perm-other');
 });
 
-const userOf = (o: Org, role: (typeof ROLES)[number]): TestUser =>
-  role === 'coordinator' ? o.coordinator : role === 'advisor' ? o.advisor : o.farmer;
+const userOf = (o: Org, role: (typeof ROLES)[number]): TestUser => (role === 'coordinator' ? o.coordinator : role === 'advisor' ? o.advisor : o.farmer);
 
 // Collection routes: the status each role gets follows the permission table.
 const collectionRoutes: { path: string; permission: Permission; handler: typeof getVisits }[] = [
@@ -81,8 +80,7 @@ describe('lists are scoped to what the caller may see', () => {
 });
 
 describe('one visit: role and ownership', () => {
-  const get = async (user: TestUser | undefined, id: string) =>
-    (await getVisit(await request(`/api/visits/${id}`, user), params({ id }))).status;
+  const get = async (user: TestUser | undefined, id: string) => (await getVisit(await request(`/api/visits/${id}`, user), params({ id }))).status;
 
   it('allows the coordinator, the assigned advisor and the farm owner', async () => {
     expect(await get(org.coordinator, org.visit.id)).toBe(200);
@@ -121,7 +119,10 @@ describe('sessions end with the account', () => {
   it('a forged cookie signed with another secret is 401', async () => {
     const o = await makeOrganisation('forged');
     const { encode } = await import('next-auth/jwt');
-    const token = await encode({ secret: 'some-other-secret-0123456789', token: { uid: o.coordinator.id, sessionVersion: 1, role: 'coordinator', organisationId: o.organisationId } });
+    const token = await encode({
+      secret: 'some-other-secret-0123456789',
+      token: { uid: o.coordinator.id, sessionVersion: 1, role: 'coordinator', organisationId: o.organisationId },
+    });
     const req = await request('/api/me', undefined, { headers: { cookie: `next-auth.session-token=${token}` } });
     expect((await getMe(req, params({}))).status).toBe(401);
   });

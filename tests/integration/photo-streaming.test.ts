@@ -35,7 +35,9 @@ beforeAll(async () => {
   await rm(uploadStagingDir(), { recursive: true, force: true });
   org = await makeOrganisation('stream');
   folder = await mkdtemp(path.join(tmpdir(), 'fallbook-stream-'));
-  jpeg = await sharp({ create: { width: 1200, height: 900, channels: 3, background: '#7a6a4f' } }).jpeg({ quality: 90 }).toBuffer();
+  jpeg = await sharp({ create: { width: 1200, height: 900, channels: 3, background: '#7a6a4f' } })
+    .jpeg({ quality: 90 })
+    .toBuffer();
 });
 
 afterAll(async () => {
@@ -45,10 +47,23 @@ afterAll(async () => {
 
 async function pushPhoto(declared: { bytes: number; sha256: string }) {
   const id = randomUUID();
-  const { results } = await push(org.advisor, { ops: [putOp('photo', id, {
-    visitId: org.visit.id, pointId: null, caption: 'Weir', mime: 'image/jpeg', bytes: declared.bytes, sha256: declared.sha256,
-    width: null, height: null, lat: null, lon: null, takenAt: null,
-  })] });
+  const { results } = await push(org.advisor, {
+    ops: [
+      putOp('photo', id, {
+        visitId: org.visit.id,
+        pointId: null,
+        caption: 'Weir',
+        mime: 'image/jpeg',
+        bytes: declared.bytes,
+        sha256: declared.sha256,
+        width: null,
+        height: null,
+        lat: null,
+        lon: null,
+        takenAt: null,
+      }),
+    ],
+  });
   expect(results[0]?.status).toBe('applied');
   return id;
 }
@@ -72,7 +87,9 @@ function lazyBody(total: number, first: Buffer) {
 
 async function putStream(id: string, body: ReadableStream<Uint8Array> | Buffer, user: TestUser = org.advisor) {
   const req = new NextRequest(new URL(`/api/photos/${id}`, 'http://127.0.0.1:3100'), {
-    method: 'PUT', body: body instanceof Buffer ? new Uint8Array(body) : body, duplex: 'half',
+    method: 'PUT',
+    body: body instanceof Buffer ? new Uint8Array(body) : body,
+    duplex: 'half',
     headers: { cookie: await sessionCookie(user), 'content-type': 'application/octet-stream' },
   } as ConstructorParameters<typeof NextRequest>[1]);
   const res = await putPhoto(req, params({ id }));
@@ -118,7 +135,10 @@ describe('photo uploads stream', () => {
 
   it('a body whose first bytes are not a photo is refused (415) after the first chunk, nothing stored or staged', async () => {
     const id = await pushPhoto({ bytes: 10 * 1024 * 1024, sha256: 'a'.repeat(64) });
-    const { stream, counter } = lazyBody(10 * 1024 * 1024, Buffer.from('<svg xmlns="http://www.w3.org/2000/svg"><script>alert(1)</script></svg>'.padEnd(CHUNK, ' ')));
+    const { stream, counter } = lazyBody(
+      10 * 1024 * 1024,
+      Buffer.from('<svg xmlns="http://www.w3.org/2000/svg"><script>alert(1)</script></svg>'.padEnd(CHUNK, ' ')),
+    );
     const res = await putStream(id, stream);
     expect(res.status).toBe(415);
     expect(res.json.error.message).toMatch(/not a JPEG, PNG or WebP/);
@@ -163,7 +183,12 @@ describe('photo uploads stream', () => {
 
   it('when the store fails half-way (the thumbnail is refused), the original written before it is removed', async () => {
     const inner = localFolderStorage(path.join(folder, 'failing'));
-    setPhotoStorage({ ...inner, put: async () => { throw new Error('the store refused the thumbnail'); } });
+    setPhotoStorage({
+      ...inner,
+      put: async () => {
+        throw new Error('the store refused the thumbnail');
+      },
+    });
     const id = await pushPhoto({ bytes: jpeg.length, sha256: sha(jpeg) });
     const res = await putStream(id, jpeg);
     expect(res.status).toBe(500);
@@ -179,7 +204,10 @@ describe('storage drivers: streamed put and open', () => {
   it('putFile and open round-trip through the folder and the bucket with the same sha-256', async () => {
     const source = path.join(folder, 'source.jpg');
     await writeFile(source, jpeg);
-    const stores: BlobStorage[] = [localFolderStorage(path.join(folder, 'store')), s3Storage({ ...s3SettingsFromEnv(), prefix: `stream-${randomUUID().slice(0, 8)}/` })];
+    const stores: BlobStorage[] = [
+      localFolderStorage(path.join(folder, 'store')),
+      s3Storage({ ...s3SettingsFromEnv(), prefix: `stream-${randomUUID().slice(0, 8)}/` }),
+    ];
     for (const store of stores) {
       await store.putFile('photos/v/streamed.jpg', source, 'image/jpeg', sha(jpeg));
       const opened = await store.open('photos/v/streamed.jpg');

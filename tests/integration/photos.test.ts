@@ -21,7 +21,10 @@ beforeAll(async () => {
   gpsJpeg = await sharp({ create: { width: 1600, height: 1200, channels: 3, background: '#6b8f5a' } })
     .jpeg()
     .withMetadata({ orientation: 6 })
-    .withExif({ IFD0: { Make: 'Fieldcam' }, IFD3: { GPSLatitudeRef: 'N', GPSLatitude: '52/1 25/1 930/100', GPSLongitudeRef: 'W', GPSLongitude: '3/1 37/1 120/100' } })
+    .withExif({
+      IFD0: { Make: 'Fieldcam' },
+      IFD3: { GPSLatitudeRef: 'N', GPSLatitude: '52/1 25/1 930/100', GPSLongitudeRef: 'W', GPSLongitude: '3/1 37/1 120/100' },
+    })
     .toBuffer();
 });
 
@@ -30,17 +33,32 @@ const sha = (data: Buffer) => createHash('sha256').update(data).digest('hex');
 /** Pushes the photo's metadata as the phone would (sha and size of `declared`), returns its id. */
 async function pushPhoto(declared: Buffer, mime = 'image/jpeg', user: TestUser = org.advisor, visitId = org.visit.id) {
   const id = randomUUID();
-  const { results } = await push(user, { ops: [putOp('photo', id, {
-    visitId, pointId: null, caption: 'Intake pool', mime, bytes: declared.length, sha256: sha(declared),
-    width: null, height: null, lat: null, lon: null, takenAt: null,
-  })] });
+  const { results } = await push(user, {
+    ops: [
+      putOp('photo', id, {
+        visitId,
+        pointId: null,
+        caption: 'Intake pool',
+        mime,
+        bytes: declared.length,
+        sha256: sha(declared),
+        width: null,
+        height: null,
+        lat: null,
+        lon: null,
+        takenAt: null,
+      }),
+    ],
+  });
   expect(results[0]?.status).toBe('applied');
   return id;
 }
 
 async function upload(id: string, body: Buffer, user: TestUser = org.advisor) {
   const req = new NextRequest(new URL(`/api/photos/${id}`, 'http://127.0.0.1:3100'), {
-    method: 'PUT', body: new Uint8Array(body), headers: { cookie: await sessionCookie(user), 'content-type': 'application/octet-stream' },
+    method: 'PUT',
+    body: new Uint8Array(body),
+    headers: { cookie: await sessionCookie(user), 'content-type': 'application/octet-stream' },
   });
   const res = await putPhoto(req, params({ id }));
   return { status: res.status, json: await res.json() };
@@ -120,7 +138,9 @@ describe('PUT /api/photos/:id', () => {
   });
 
   it('a decompression bomb (a small PNG of 100 Mpx) is refused, nothing stored', async () => {
-    const bomb = await sharp({ create: { width: 10000, height: 10000, channels: 3, background: '#fff' } }).png().toBuffer();
+    const bomb = await sharp({ create: { width: 10000, height: 10000, channels: 3, background: '#fff' } })
+      .png()
+      .toBuffer();
     expect(bomb.length).toBeLessThan(2 * 1024 * 1024);
     const id = await pushPhoto(bomb, 'image/png');
     const res = await upload(id, bomb);

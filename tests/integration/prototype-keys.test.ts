@@ -12,14 +12,17 @@ import { screenFixtureVisit } from './support/screened';
 const settingsBody = (demandFigures: Record<string, number>) => ({ unitsDefault: 'metric', designFractionOfLowest: 0.5, demandFigures, pipePrices: [] });
 
 describe('prototype keys', () => {
-  it.each(['constructor', 'toString', 'hasOwnProperty', '__proto__'])('settings demandFigures {"%s": 3} is refused with a 422 naming it; nothing stored', async (key) => {
-    const o = await makeOrganisation('proto-settings');
-    const body = JSON.parse(`{"unitsDefault":"metric","designFractionOfLowest":0.5,"pipePrices":[],"demandFigures":{${JSON.stringify(key)}:3}}`);
-    const res = await putSettings(await request('/api/organisation/settings', o.coordinator, { method: 'PUT', body }), params({}));
-    expect(res.status).toBe(422);
-    expect(JSON.stringify((await res.json()).error)).toContain(key);
-    expect((await Organisation.findByPk(o.organisationId, { rejectOnEmpty: true })).settings.demandFigures).toEqual({});
-  });
+  it.each(['constructor', 'toString', 'hasOwnProperty', '__proto__'])(
+    'settings demandFigures {"%s": 3} is refused with a 422 naming it; nothing stored',
+    async (key) => {
+      const o = await makeOrganisation('proto-settings');
+      const body = JSON.parse(`{"unitsDefault":"metric","designFractionOfLowest":0.5,"pipePrices":[],"demandFigures":{${JSON.stringify(key)}:3}}`);
+      const res = await putSettings(await request('/api/organisation/settings', o.coordinator, { method: 'PUT', body }), params({}));
+      expect(res.status).toBe(422);
+      expect(JSON.stringify((await res.json()).error)).toContain(key);
+      expect((await Organisation.findByPk(o.organisationId, { rejectOnEmpty: true })).settings.demandFigures).toEqual({});
+    },
+  );
 
   it('a real demand kind is still accepted', async () => {
     const o = await makeOrganisation('proto-ok');
@@ -29,7 +32,10 @@ describe('prototype keys', () => {
 
   it('an organisation that already stored {"constructor": 3} still gets its visits screened', async () => {
     const o = await makeOrganisation('proto-stored');
-    await Organisation.update({ settings: { ...defaultOrganisationSettings(), demandFigures: { constructor: 3, goat: 8 } } }, { where: { id: o.organisationId } });
+    await Organisation.update(
+      { settings: { ...defaultOrganisationSettings(), demandFigures: { constructor: 3, goat: 8 } } },
+      { where: { id: o.organisationId } },
+    );
     await screenFixtureVisit(o.visit.id, o.farm.id, o.advisor.id);
     expect(await Screening.count({ where: { visitId: o.visit.id } })).toBe(1);
   });

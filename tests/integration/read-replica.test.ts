@@ -75,7 +75,13 @@ describe('MariaDB primary + read replica', () => {
     expect(await count(pair.replica, 'SELECT COUNT(*) AS n FROM fallbook_test.points WHERE id = ?', [ids.point])).toBe(1);
     // A write sent to the replica by mistake would fail: the app's account may not write there.
     const mariadb = await import('mariadb');
-    const app = await mariadb.createConnection({ host: '127.0.0.1', port: pair.replica.port, user: process.env.DB_USER, password: process.env.DB_PASSWORD, database: 'fallbook_test' });
+    const app = await mariadb.createConnection({
+      host: '127.0.0.1',
+      port: pair.replica.port,
+      user: process.env.DB_USER,
+      password: process.env.DB_PASSWORD,
+      database: 'fallbook_test',
+    });
     await expect(app.query('UPDATE visits SET notes = notes WHERE id = ?', [org.visit.id])).rejects.toThrow(/read-only/);
     await app.end();
   });
@@ -85,8 +91,13 @@ describe('MariaDB primary + read replica', () => {
     const replica = await pair.root(pair.replica);
     await replica.query('STOP SLAVE SQL_THREAD');
     try {
-      const res = await visits.POST(await fixtures.request('/api/visits', org.coordinator, { method: 'POST',
-        body: { farmId: org.otherFarm.id, advisorId: org.advisor.id, plannedOn: '2027-02-01', confirmDuplicate: true, notes: 'replica check' } }), fixtures.params({}));
+      const res = await visits.POST(
+        await fixtures.request('/api/visits', org.coordinator, {
+          method: 'POST',
+          body: { farmId: org.otherFarm.id, advisorId: org.advisor.id, plannedOn: '2027-02-01', confirmDuplicate: true, notes: 'replica check' },
+        }),
+        fixtures.params({}),
+      );
       expect(res.status).toBe(201);
       const created = (await res.json()).visit.id as string;
       const wrote = /fallbook-wrote=(\d+)/.exec(res.headers.get('set-cookie') ?? '')?.[1];
@@ -137,7 +148,10 @@ describe('MariaDB primary + read replica', () => {
 
   it('a bad DB_READ_HOSTS entry is refused with the setting named', async () => {
     const { parseReadHosts } = await import('@/lib/server/db/connection');
-    expect(parseReadHosts(' 10.0.0.5:3306, replica-2 ', 3307)).toEqual([{ host: '10.0.0.5', port: 3306 }, { host: 'replica-2', port: 3307 }]);
+    expect(parseReadHosts(' 10.0.0.5:3306, replica-2 ', 3307)).toEqual([
+      { host: '10.0.0.5', port: 3306 },
+      { host: 'replica-2', port: 3307 },
+    ]);
     expect(() => parseReadHosts('db:port', 3307)).toThrow(/DB_READ_HOSTS/);
   });
 });

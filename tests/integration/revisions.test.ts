@@ -18,13 +18,15 @@ describe('server revisions of synced records', () => {
 
   it('a save outside a transaction is refused, so no revision can commit out of order', async () => {
     const org = await makeOrganisation('rev-tx');
-    await expect(Farm.create({ id: randomUUID(), organisationId: org.organisationId, ownerId: null, name: 'x', area: '', lat: null, lon: null, notes: '' }))
-      .rejects.toThrow(/inside a transaction/);
+    await expect(
+      Farm.create({ id: randomUUID(), organisationId: org.organisationId, ownerId: null, name: 'x', area: '', lat: null, lon: null, notes: '' }),
+    ).rejects.toThrow(/inside a transaction/);
   });
 
   it('a bulk update of a synced table is refused (it would skip revisions)', async () => {
-    await expect(getSequelize().transaction((transaction) => Farm.update({ notes: 'x' }, { where: { name: 'nobody' }, transaction })))
-      .rejects.toThrow(/one by one/);
+    await expect(getSequelize().transaction((transaction) => Farm.update({ notes: 'x' }, { where: { name: 'nobody' }, transaction }))).rejects.toThrow(
+      /one by one/,
+    );
   });
 
   it('a second writer waits for the first to commit, so a later revision never commits earlier', async () => {
@@ -52,10 +54,14 @@ describe('server revisions of synced records', () => {
 
   it('every pooled connection reads committed, which the push relies on (it sets no level itself)', async () => {
     // Three transactions at once hold three connections of the pool.
-    const levels = await Promise.all([1, 2, 3].map(() => getSequelize().transaction(async (transaction) => {
-      const [row] = await txConnection(transaction).query<{ level: string }[]>('SELECT @@tx_isolation AS level');
-      return row?.level;
-    })));
+    const levels = await Promise.all(
+      [1, 2, 3].map(() =>
+        getSequelize().transaction(async (transaction) => {
+          const [row] = await txConnection(transaction).query<{ level: string }[]>('SELECT @@tx_isolation AS level');
+          return row?.level;
+        }),
+      ),
+    );
     expect(levels).toEqual(['READ-COMMITTED', 'READ-COMMITTED', 'READ-COMMITTED']);
   });
 
@@ -75,13 +81,17 @@ describe('server revisions of synced records', () => {
   it('the bulk writer refuses rows whose revision this transaction did not reserve, and writes reserved ones', async () => {
     const org = await makeOrganisation('rev-bulk');
     const sequelize = getSequelize();
-    const farm = (rev: number) => Farm.build({ id: randomUUID(), organisationId: org.organisationId, ownerId: null, name: 'bulk', area: '', lat: null, lon: null, notes: '', rev });
-    await expect(sequelize.transaction(async (transaction) => {
-      const block = await reserveRevs(transaction, 1);
-      await writeSyncedRows(Farm, { created: [farm(block.last + 1000)], updated: [] }, [], transaction);
-    })).rejects.toThrow(/not reserved/);
-    await expect(sequelize.transaction((transaction) => writeSyncedRows(Farm, { created: [farm(1)], updated: [] }, [], transaction)))
-      .rejects.toThrow(/not reserved/);
+    const farm = (rev: number) =>
+      Farm.build({ id: randomUUID(), organisationId: org.organisationId, ownerId: null, name: 'bulk', area: '', lat: null, lon: null, notes: '', rev });
+    await expect(
+      sequelize.transaction(async (transaction) => {
+        const block = await reserveRevs(transaction, 1);
+        await writeSyncedRows(Farm, { created: [farm(block.last + 1000)], updated: [] }, [], transaction);
+      }),
+    ).rejects.toThrow(/not reserved/);
+    await expect(sequelize.transaction((transaction) => writeSyncedRows(Farm, { created: [farm(1)], updated: [] }, [], transaction))).rejects.toThrow(
+      /not reserved/,
+    );
     const written = await sequelize.transaction(async (transaction) => {
       const block = await reserveRevs(transaction, 1);
       const row = farm(block.take());

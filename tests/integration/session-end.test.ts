@@ -36,7 +36,14 @@ describe('ending sessions on the server', () => {
     const o = await makeOrganisation('everywhere');
     const a = await cookieFor(o.coordinator, randomUUID());
     const b = await cookieFor(o.coordinator, randomUUID());
-    const res = await signOutEverywhere(await request('/api/me/sessions', undefined, { method: 'POST', body: {}, headers: { cookie: a, origin: 'http://127.0.0.1:3100', host: '127.0.0.1:3100' } }), params({}));
+    const res = await signOutEverywhere(
+      await request('/api/me/sessions', undefined, {
+        method: 'POST',
+        body: {},
+        headers: { cookie: a, origin: 'http://127.0.0.1:3100', host: '127.0.0.1:3100' },
+      }),
+      params({}),
+    );
     expect(res.status).toBe(200);
     expect((await me(a)).status).toBe(401);
     expect((await me(b)).status).toBe(401);

@@ -51,7 +51,10 @@ describe('the session cookie', () => {
 
   it('a token signed with another secret is refused', async () => {
     const org = await makeOrganisation('forged');
-    const token = await encode({ secret: 'some-other-secret-0123456789abcdef', token: { uid: org.coordinator.id, role: 'coordinator', organisationId: org.organisationId, sessionVersion: 1 } });
+    const token = await encode({
+      secret: 'some-other-secret-0123456789abcdef',
+      token: { uid: org.coordinator.id, role: 'coordinator', organisationId: org.organisationId, sessionVersion: 1 },
+    });
     const req = await request('/api/me', undefined, { headers: { cookie: `next-auth.session-token=${token}` } });
     expect(await getRequestUser(req)).toBeNull();
   });

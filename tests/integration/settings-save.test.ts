@@ -10,7 +10,10 @@ const body = (demandFigures: Record<string, unknown>) => ({ unitsDefault: 'us', 
 describe('PUT /api/organisation/settings', () => {
   it('saves with blank per-head boxes and keeps only the figures typed', async () => {
     const o = await makeOrganisation('settings');
-    const res = await PUT(await request('/api/organisation/settings', o.coordinator, { method: 'PUT', body: body({ sheep: '', goat: '', 'dairy-cow-dry': '80' }) }), params({}));
+    const res = await PUT(
+      await request('/api/organisation/settings', o.coordinator, { method: 'PUT', body: body({ sheep: '', goat: '', 'dairy-cow-dry': '80' }) }),
+      params({}),
+    );
     expect(res.status).toBe(200);
     const org = await Organisation.findByPk(o.organisationId, { rejectOnEmpty: true });
     expect(org.settings.unitsDefault).toBe('us');

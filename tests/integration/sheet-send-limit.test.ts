@@ -29,7 +29,17 @@ describe('sheet sends', () => {
   it(`past ${SHEET_SENDS_PER_HOUR} sends in an hour the sender gets a 429 with a plain message, and nothing goes out`, async () => {
     const screeningId = (await SheetSend.findOne({ where: { visitId: o.visit.id }, rejectOnEmpty: true })).screeningId;
     for (let i = 0; i < SHEET_SENDS_PER_HOUR; i++) {
-      await SheetSend.create({ id: randomUUID(), visitId: o.visit.id, screeningId, sentById: o.advisor.id, toAddress: `x${i}@elsewhere.test`, paper: 'a4', status: 'sent', error: null, messageId: null });
+      await SheetSend.create({
+        id: randomUUID(),
+        visitId: o.visit.id,
+        screeningId,
+        sentById: o.advisor.id,
+        toAddress: `x${i}@elsewhere.test`,
+        paper: 'a4',
+        status: 'sent',
+        error: null,
+        messageId: null,
+      });
     }
     const to = `over-${randomUUID().slice(0, 8)}@elsewhere.test`;
     const res = await send(to);

@@ -37,7 +37,10 @@ describe('POST /api/visits/:id/sheet/send', () => {
 
   it('the coordinator can send to another address they give', async () => {
     const to = `neighbour-${randomUUID().slice(0, 8)}@fixtures.test`;
-    const res = await postSend(await request(`/api/visits/${id()}/sheet/send`, org.coordinator, { method: 'POST', body: { to, note: 'Bring the tank quote.' } }), params({ id: id() }));
+    const res = await postSend(
+      await request(`/api/visits/${id()}/sheet/send`, org.coordinator, { method: 'POST', body: { to, note: 'Bring the tank quote.' } }),
+      params({ id: id() }),
+    );
     expect(res.status).toBe(201);
     const caught = await mailTo(to);
     expect(caught).toHaveLength(1);
@@ -47,7 +50,10 @@ describe('POST /api/visits/:id/sheet/send', () => {
 
   it('a bad address is a 422 that says what is wrong, and nothing is sent or recorded', async () => {
     const before = (await (await getSends(await request(`/api/visits/${id()}/sheet/sends`, org.advisor), params({ id: id() }))).json()).sends.length;
-    const res = await postSend(await request(`/api/visits/${id()}/sheet/send`, org.advisor, { method: 'POST', body: { to: 'hallie at the farm' } }), params({ id: id() }));
+    const res = await postSend(
+      await request(`/api/visits/${id()}/sheet/send`, org.advisor, { method: 'POST', body: { to: 'hallie at the farm' } }),
+      params({ id: id() }),
+    );
     expect(res.status).toBe(422);
     const body = await res.json();
     expect(body.error.message).toMatch(/to: Enter a valid e-mail address/);
@@ -57,11 +63,15 @@ describe('POST /api/visits/:id/sheet/send', () => {
   });
 
   it('a preview shows the e-mail as it will go, with the personal note, and sends or records nothing', async () => {
-    const sendsNow = async () => (await (await getSends(await request(`/api/visits/${id()}/sheet/sends`, org.advisor), params({ id: id() }))).json()).sends.length;
+    const sendsNow = async () =>
+      (await (await getSends(await request(`/api/visits/${id()}/sheet/sends`, org.advisor), params({ id: id() }))).json()).sends.length;
     const before = await sendsNow();
     const mailsBefore = (await mailTo(org.farmer.email)).length;
     const note = 'I will be at the ford on Tuesday — bring the tank quote.';
-    const res = await postPreview(await request(`/api/visits/${id()}/sheet/send/preview`, org.advisor, { method: 'POST', body: { note } }), params({ id: id() }));
+    const res = await postPreview(
+      await request(`/api/visits/${id()}/sheet/send/preview`, org.advisor, { method: 'POST', body: { note } }),
+      params({ id: id() }),
+    );
     expect(res.status).toBe(200);
     const { preview } = await res.json();
     expect(preview.to).toBe(org.farmer.email);
@@ -73,7 +83,10 @@ describe('POST /api/visits/:id/sheet/send', () => {
   });
 
   it('a note that is too long is a 422 naming the note', async () => {
-    const res = await postPreview(await request(`/api/visits/${id()}/sheet/send/preview`, org.advisor, { method: 'POST', body: { note: 'x'.repeat(1001) } }), params({ id: id() }));
+    const res = await postPreview(
+      await request(`/api/visits/${id()}/sheet/send/preview`, org.advisor, { method: 'POST', body: { note: 'x'.repeat(1001) } }),
+      params({ id: id() }),
+    );
     expect(res.status).toBe(422);
     expect((await res.json()).error.message).toMatch(/note/i);
   });
@@ -101,7 +114,10 @@ describe('POST /api/visits/:id/sheet/send', () => {
 
 describe('the farmer acknowledges or asks', () => {
   it('a question is recorded and the advisor and coordinator see it', async () => {
-    const res = await postQuestion(await request(`/api/visits/${id()}/sheet/questions`, org.farmer, { method: 'POST', body: { text: 'Can the tank go by the barn instead?' } }), params({ id: id() }));
+    const res = await postQuestion(
+      await request(`/api/visits/${id()}/sheet/questions`, org.farmer, { method: 'POST', body: { text: 'Can the tank go by the barn instead?' } }),
+      params({ id: id() }),
+    );
     expect(res.status).toBe(201);
     for (const reader of [org.advisor, org.coordinator]) {
       const { responses } = await (await getQuestions(await request(`/api/visits/${id()}/sheet/questions`, reader), params({ id: id() }))).json();
@@ -112,14 +128,23 @@ describe('the farmer acknowledges or asks', () => {
   it('a write from another site is refused; the same host by its address (127.0.0.1) is not', async () => {
     const url = `/api/visits/${id()}/sheet/questions`;
     const body = { text: 'Is the pipe buried?' };
-    const evil = await postQuestion(await request(url, org.farmer, { method: 'POST', body, headers: { origin: 'http://evil.example', host: '127.0.0.1:3100' } }), params({ id: id() }));
+    const evil = await postQuestion(
+      await request(url, org.farmer, { method: 'POST', body, headers: { origin: 'http://evil.example', host: '127.0.0.1:3100' } }),
+      params({ id: id() }),
+    );
     expect(evil.status).toBe(403);
-    const same = await postQuestion(await request(url, org.farmer, { method: 'POST', body, headers: { origin: 'http://127.0.0.1:3100', host: '127.0.0.1:3100' } }), params({ id: id() }));
+    const same = await postQuestion(
+      await request(url, org.farmer, { method: 'POST', body, headers: { origin: 'http://127.0.0.1:3100', host: '127.0.0.1:3100' } }),
+      params({ id: id() }),
+    );
     expect(same.status).toBe(201);
   });
 
   it('an empty question is a 422 saying what to do', async () => {
-    const res = await postQuestion(await request(`/api/visits/${id()}/sheet/questions`, org.farmer, { method: 'POST', body: { text: ' ' } }), params({ id: id() }));
+    const res = await postQuestion(
+      await request(`/api/visits/${id()}/sheet/questions`, org.farmer, { method: 'POST', body: { text: ' ' } }),
+      params({ id: id() }),
+    );
     expect(res.status).toBe(422);
     expect((await res.json()).error.message).toMatch(/Write your question/);
   });

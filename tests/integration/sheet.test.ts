@@ -96,7 +96,13 @@ describe('GET /api/visits/:id/sheet/pdf', () => {
   it('is A4 or US Letter as asked, and refuses other paper with a 422', async () => {
     const size = async (paper: string) => {
       const res = await getPdf(await request(`/api/visits/${org.visit.id}/sheet/pdf?paper=${paper}`, org.advisor), params({ id: org.visit.id }));
-      return (Buffer.from(await res.arrayBuffer()).toString('latin1').match(/\/MediaBox \[0 0 ([\d.]+) ([\d.]+)\]/) ?? []).slice(1).map(Number);
+      return (
+        Buffer.from(await res.arrayBuffer())
+          .toString('latin1')
+          .match(/\/MediaBox \[0 0 ([\d.]+) ([\d.]+)\]/) ?? []
+      )
+        .slice(1)
+        .map(Number);
     };
     expect((await size('a4')).map(Math.round)).toEqual([595, 842]);
     expect(await size('letter')).toEqual([612, 792]);

@@ -57,7 +57,10 @@ describe('the limits through the sign-in itself (the next-auth credentials check
   type Authorize = (credentials: Record<string, string>, req: { headers: Record<string, string> }) => Promise<unknown>;
   const provider = authOptions.providers[0] as unknown as { options: { authorize: Authorize } };
   const signIn = (who: string, password: string, forwardedFor?: string) =>
-    provider.options.authorize({ email: who, password }, { headers: forwardedFor ? { 'x-forwarded-for': forwardedFor } : {} }).then(() => null, (e: Error) => e.message);
+    provider.options.authorize({ email: who, password }, { headers: forwardedFor ? { 'x-forwarded-for': forwardedFor } : {} }).then(
+      () => null,
+      (e: Error) => e.message,
+    );
 
   it('with a proxy configured, made-up X-Forwarded-For entries in front of the real address do not dodge the per-address limit', async () => {
     process.env.TRUSTED_PROXIES = '1';

@@ -32,7 +32,11 @@ beforeAll(async () => {
   // A prefix per run, so reruns against the same fake server start empty.
   bucket = s3Storage({ ...s3SettingsFromEnv(), prefix: `run-${randomUUID().slice(0, 8)}/` });
   for (const colour of ['#6b8f5a', '#8a6d3b', '#3b5f8a']) {
-    photos.push(await sharp({ create: { width: 900, height: 600, channels: 3, background: colour } }).jpeg({ quality: 90 }).toBuffer());
+    photos.push(
+      await sharp({ create: { width: 900, height: 600, channels: 3, background: colour } })
+        .jpeg({ quality: 90 })
+        .toBuffer(),
+    );
   }
 });
 
@@ -43,14 +47,32 @@ afterAll(async () => {
 
 async function pushAndUpload(data: Buffer) {
   const id = randomUUID();
-  const { results } = await push(org.advisor, { ops: [putOp('photo', id, {
-    visitId: org.visit.id, pointId: null, caption: 'Spring box', mime: 'image/jpeg', bytes: data.length, sha256: sha(data),
-    width: null, height: null, lat: null, lon: null, takenAt: null,
-  })] });
+  const { results } = await push(org.advisor, {
+    ops: [
+      putOp('photo', id, {
+        visitId: org.visit.id,
+        pointId: null,
+        caption: 'Spring box',
+        mime: 'image/jpeg',
+        bytes: data.length,
+        sha256: sha(data),
+        width: null,
+        height: null,
+        lat: null,
+        lon: null,
+        takenAt: null,
+      }),
+    ],
+  });
   expect(results[0]?.status).toBe('applied');
-  const res = await putPhoto(new NextRequest(new URL(`/api/photos/${id}`, 'http://127.0.0.1:3100'), {
-    method: 'PUT', body: new Uint8Array(data), headers: { cookie: await sessionCookie(org.advisor), 'content-type': 'application/octet-stream' },
-  }), params({ id }));
+  const res = await putPhoto(
+    new NextRequest(new URL(`/api/photos/${id}`, 'http://127.0.0.1:3100'), {
+      method: 'PUT',
+      body: new Uint8Array(data),
+      headers: { cookie: await sessionCookie(org.advisor), 'content-type': 'application/octet-stream' },
+    }),
+    params({ id }),
+  );
   expect(res.status).toBe(200);
   return id;
 }

@@ -8,7 +8,14 @@ import { screenFixtureVisit } from './support/screened';
 import { push, putOp } from './support/sync';
 
 const fields = (visitId: string) => ({
-  visitId, driveLpm: 55, deliveredLpm: 4, beatsPerMinute: 70, liftM: 20, fallM: 3, drivePipeMaterial: 'galvanized-steel', notes: '',
+  visitId,
+  driveLpm: 55,
+  deliveredLpm: 4,
+  beatsPerMinute: 70,
+  liftM: 20,
+  fallM: 3,
+  drivePipeMaterial: 'galvanized-steel',
+  notes: '',
 });
 
 describe('commissioning replays', () => {

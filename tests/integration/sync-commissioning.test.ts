@@ -17,8 +17,15 @@ beforeAll(async () => {
 });
 
 const fields = (visitId: string, over: Record<string, unknown> = {}) => ({
-  visitId, driveLpm: 55, deliveredLpm: 4, beatsPerMinute: 70, liftM: 20, fallM: 3, drivePipeMaterial: 'galvanized-steel',
-  notes: 'bucket at the tank, three fills', ...over,
+  visitId,
+  driveLpm: 55,
+  deliveredLpm: 4,
+  beatsPerMinute: 70,
+  liftM: 20,
+  fallM: 3,
+  drivePipeMaterial: 'galvanized-steel',
+  notes: 'bucket at the tank, three fills',
+  ...over,
 });
 
 const counts = async (visitId: string) => ({
@@ -107,7 +114,9 @@ describe('push: commissioning', () => {
     const o = await makeOrganisation('push-commission-fall');
     await screenFixtureVisit(o.visit.id, o.farm.id, o.advisor.id);
     const id = randomUUID();
-    const { results } = await push(o.advisor, { ops: [putOp('commissioning', id, fields(o.visit.id, { fallM: null, drivePipeMaterial: null, deliveredLpm: 1 }))] });
+    const { results } = await push(o.advisor, {
+      ops: [putOp('commissioning', id, fields(o.visit.id, { fallM: null, drivePipeMaterial: null, deliveredLpm: 1 }))],
+    });
     expect(results[0]?.status).toBe('applied');
     const row = await Commissioning.findByPk(id, { rejectOnEmpty: true });
     const screening = await Screening.findOne({ where: { visitId: o.visit.id }, order: [['createdAt', 'DESC']], rejectOnEmpty: true });

@@ -11,11 +11,15 @@ describe('sync and the engine share their limits', () => {
   it('a pressure class that is not one of the material’s (PN10 on HDPE) is refused with a 422; a real class is applied', async () => {
     const o = await makeOrganisation('limits-class');
     const bad = randomUUID();
-    const res = await push(o.advisor, { ops: [putOp('pipeRun', bad, { visitId: o.visit.id, purpose: 'delivery', lengthM: 300, diameterMm: null, material: 'hdpe', pressureClass: 'PN10' })] });
+    const res = await push(o.advisor, {
+      ops: [putOp('pipeRun', bad, { visitId: o.visit.id, purpose: 'delivery', lengthM: 300, diameterMm: null, material: 'hdpe', pressureClass: 'PN10' })],
+    });
     expect(res.status === 422 || res.results[0]?.status === 'rejected').toBe(true);
     expect(await PipeRun.findByPk(bad)).toBeNull();
     const good = randomUUID();
-    const ok = await push(o.advisor, { ops: [putOp('pipeRun', good, { visitId: o.visit.id, purpose: 'delivery', lengthM: 300, diameterMm: null, material: 'hdpe', pressureClass: 'sdr-11' })] });
+    const ok = await push(o.advisor, {
+      ops: [putOp('pipeRun', good, { visitId: o.visit.id, purpose: 'delivery', lengthM: 300, diameterMm: null, material: 'hdpe', pressureClass: 'sdr-11' })],
+    });
     expect(ok.results[0]?.status).toBe('applied');
     // Changing only the class later is checked against the stored material.
     const later = await push(o.advisor, { ops: [putOp('pipeRun', good, { pressureClass: 'sch40-class150' }, { baseRev: ok.results[0]?.rev as number })] });
@@ -27,8 +31,17 @@ describe('sync and the engine share their limits', () => {
     const o = await makeOrganisation('limits-trials');
     const id = randomUUID();
     const trials = Array.from({ length: 150_000 }, () => ({ volumeL: 20, seconds: 10 }));
-    const res = await push(o.advisor, { ops: [putOp('flowMeasurement', id, { visitId: o.visit.id, sourceId: null, takenAt: null, notes: '',
-      measurement: { method: 'volumetric', season: 'dry', trials } })] });
+    const res = await push(o.advisor, {
+      ops: [
+        putOp('flowMeasurement', id, {
+          visitId: o.visit.id,
+          sourceId: null,
+          takenAt: null,
+          notes: '',
+          measurement: { method: 'volumetric', season: 'dry', trials },
+        }),
+      ],
+    });
     expect(res.status).toBe(422);
     expect(res.error?.message).toMatch(/trials/);
     expect(await FlowMeasurement.findByPk(id)).toBeNull();

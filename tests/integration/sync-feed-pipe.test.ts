@@ -22,7 +22,14 @@ describe('a feed pipe synced from the phone', () => {
 
   it('is refused, with nothing stored, when its purpose is not one the protocol knows', async () => {
     const o = await makeOrganisation('push-feed-bad');
-    const bad = putOp('pipeRun', randomUUID(), { visitId: o.visit.id, purpose: 'siphon', lengthM: 60, diameterMm: null, material: 'hdpe', pressureClass: null });
+    const bad = putOp('pipeRun', randomUUID(), {
+      visitId: o.visit.id,
+      purpose: 'siphon',
+      lengthM: 60,
+      diameterMm: null,
+      material: 'hdpe',
+      pressureClass: null,
+    });
     const { status, results } = await push(o.advisor, { ops: [bad] });
     expect([200, 422]).toContain(status);
     if (status === 200) expect(results[0]?.status).not.toBe('applied');

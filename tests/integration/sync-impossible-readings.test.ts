@@ -7,8 +7,15 @@ import { DemandLine, FallReading } from '@/lib/server/db';
 import { makeOrganisation } from './support/fixtures';
 import { push, putOp } from './support/sync';
 
-const fall = (visitId: string, run: object, purpose: 'fall' | 'lift' = 'fall', bookedFrom: 'pump' | 'tank' | null = null) =>
-  ({ visitId, purpose, seq: 0, takenAt: null, notes: '', bookedFrom, run });
+const fall = (visitId: string, run: object, purpose: 'fall' | 'lift' = 'fall', bookedFrom: 'pump' | 'tank' | null = null) => ({
+  visitId,
+  purpose,
+  seq: 0,
+  takenAt: null,
+  notes: '',
+  bookedFrom,
+  run,
+});
 
 describe('the push refuses impossible readings in plain words', () => {
   it('a 500 m foresight, an uphill fall and a 5,000 m lift are refused; nothing is stored', async () => {
@@ -34,9 +41,15 @@ describe('the push refuses impossible readings in plain words', () => {
   it('an edit that turns a stored fall uphill is refused and the stored run stays', async () => {
     const o = await makeOrganisation('impossible-edit');
     const id = randomUUID();
-    const made = await push(o.advisor, { ops: [putOp('fallReading', id, fall(o.visit.id, { method: 'hose', steps: [{ upperReadingM: 0.2, lowerReadingM: 1.7 }] }))] });
+    const made = await push(o.advisor, {
+      ops: [putOp('fallReading', id, fall(o.visit.id, { method: 'hose', steps: [{ upperReadingM: 0.2, lowerReadingM: 1.7 }] }))],
+    });
     expect(made.results[0]?.status).toBe('applied');
-    const edit = await push(o.advisor, { ops: [putOp('fallReading', id, { run: { method: 'hose', steps: [{ upperReadingM: 1.7, lowerReadingM: 0.2 }] } }, { baseRev: made.results[0]?.rev as number })] });
+    const edit = await push(o.advisor, {
+      ops: [
+        putOp('fallReading', id, { run: { method: 'hose', steps: [{ upperReadingM: 1.7, lowerReadingM: 0.2 }] } }, { baseRev: made.results[0]?.rev as number }),
+      ],
+    });
     expect(edit.results[0]?.status).toBe('rejected');
     expect(edit.results[0]?.error?.message).toMatch(/climbs 1\.50 m/);
     const stored = await FallReading.findByPk(id);
@@ -45,7 +58,15 @@ describe('the push refuses impossible readings in plain words', () => {
 
   it('100,001 people on one line is refused; 450 confirmed on the phone is stored with its confirmation', async () => {
     const o = await makeOrganisation('impossible-demand');
-    const line = (count: number, confirmed: string[] | null) => ({ farmId: o.farm.id, kind: 'person-tap-on-plot', count, litresPerHeadPerDay: 50, figureSource: '', note: '', confirmed });
+    const line = (count: number, confirmed: string[] | null) => ({
+      farmId: o.farm.id,
+      kind: 'person-tap-on-plot',
+      count,
+      litresPerHeadPerDay: 50,
+      figureSource: '',
+      note: '',
+      confirmed,
+    });
     const bad = randomUUID();
     const refused = await push(o.advisor, { ops: [putOp('demandLine', bad, line(100_001, null))] });
     expect(refused.status === 422 || refused.results?.[0]?.status === 'rejected').toBe(true);

@@ -46,7 +46,11 @@ describe('pull', () => {
     expect(after.visits.map((v) => v.id)).toEqual([o.otherVisit.id]);
     expect(after.farms.map((f) => f.id)).toEqual([o.otherFarm.id]);
     const ids = pulledIds(after);
-    for (const [name, id] of Object.entries(theirs.ids)) expect(ids.some((x) => x.endsWith(id)), name).toBe(true);
+    for (const [name, id] of Object.entries(theirs.ids))
+      expect(
+        ids.some((x) => x.endsWith(id)),
+        name,
+      ).toBe(true);
 
     // ...and the advisor it was taken from is told to drop it.
     expect((await pull(o.otherAdvisor, 0)).visibleVisitIds).not.toContain(o.otherVisit.id);
@@ -55,10 +59,22 @@ describe('pull', () => {
   it('paging with a small limit returns every record exactly once, in revision order', async () => {
     const o = await makeOrganisation('pull-pages');
     await push(o.advisor, { ops: readingOps(o.visit.id, o.farm.id).ops });
-    await push(o.advisor, { ops: Array.from({ length: 7 }, (_, i) => putOp('point', randomUUID(), {
-      visitId: o.visit.id, role: 'station', label: `Station ${i}`, lat: null, lon: null, accuracyM: null, altitudeM: null,
-      altitudeAccuracyM: null, chainageM: i * 20, capturedAt: null,
-    })) });
+    await push(o.advisor, {
+      ops: Array.from({ length: 7 }, (_, i) =>
+        putOp('point', randomUUID(), {
+          visitId: o.visit.id,
+          role: 'station',
+          label: `Station ${i}`,
+          lat: null,
+          lon: null,
+          accuracyM: null,
+          altitudeM: null,
+          altitudeAccuracyM: null,
+          chainageM: i * 20,
+          capturedAt: null,
+        }),
+      ),
+    });
     const whole = pulledIds(await pull(o.advisor, 0, 2000));
     const { pages } = await pullAll(o.advisor, 0, 3);
     expect(pages.length).toBeGreaterThan(5);
@@ -72,7 +88,7 @@ describe('pull', () => {
     expect(pages.at(-1)?.hasMore).toBe(false);
   });
 
-  it('a coordinator pulls the organisation\'s booked and walked visits', async () => {
+  it("a coordinator pulls the organisation's booked and walked visits", async () => {
     const o = await makeOrganisation('pull-office');
     const page = await pull(o.coordinator);
     expect(page.visibleVisitIds.sort()).toEqual([o.visit.id, o.otherVisit.id].sort());
@@ -93,9 +109,13 @@ describe('pull', () => {
     const statements: { sql: string; values?: unknown[] }[] = [];
     const options = (sequelize as unknown as { options: { logging: unknown } }).options;
     const logging = options.logging;
-    options.logging = (sql: string) => { statements.push({ sql: sql.replace(/^Executing \([^)]*\): /, '') }); };
+    options.logging = (sql: string) => {
+      statements.push({ sql: sql.replace(/^Executing \([^)]*\): /, '') });
+    };
     // The push and the pull also send statements straight on their transaction's connection.
-    const stop = observeStatements((sql, values) => { statements.push({ sql, values }); });
+    const stop = observeStatements((sql, values) => {
+      statements.push({ sql, values });
+    });
     try {
       const { ops } = readingOps(o.visit.id, o.farm.id);
       await push(o.advisor, { ops });
@@ -106,11 +126,19 @@ describe('pull', () => {
       stop();
     }
     const tables = /\b(visits|farms|demand_lines|water_sources|flow_measurements|fall_readings|points|photos|pipe_runs|sync_ops)\b/;
-    const selects = [...new Map(statements.filter(({ sql }) => /^SELECT/i.test(sql) && tables.test(sql) && !/LAST_INSERT_ID/.test(sql))
-      .map((s) => [`${s.sql} ${JSON.stringify(s.values ?? [])}`, s])).values()];
+    const selects = [
+      ...new Map(
+        statements
+          .filter(({ sql }) => /^SELECT/i.test(sql) && tables.test(sql) && !/LAST_INSERT_ID/.test(sql))
+          .map((s) => [`${s.sql} ${JSON.stringify(s.values ?? [])}`, s]),
+      ).values(),
+    ];
     expect(selects.length).toBeGreaterThan(10);
     for (const { sql, values } of selects) {
-      const plan = await sequelize.query<{ table: string; type: string; possible_keys: string | null }>(`EXPLAIN ${sql}`, { type: QueryTypes.SELECT, replacements: values });
+      const plan = await sequelize.query<{ table: string; type: string; possible_keys: string | null }>(`EXPLAIN ${sql}`, {
+        type: QueryTypes.SELECT,
+        replacements: values,
+      });
       for (const step of plan) {
         if (!tables.test(step.table ?? '') && !/^[A-Z]/.test(step.table ?? '')) continue;
         expect(step.possible_keys, `${sql}\n${JSON.stringify(step)}`).not.toBeNull();
@@ -124,10 +152,20 @@ describe('a large batch', () => {
   // make any time bound flaky. This checks a full batch applies whole and pulls back whole.
   it('200 ops pushed in one batch are all applied, each with its own revision', async () => {
     const o = await makeOrganisation('push-speed');
-    const ops = Array.from({ length: 200 }, (_, i) => putOp('point', randomUUID(), {
-      visitId: o.visit.id, role: 'station', label: `Station ${i}`, lat: 52.4 + i / 1e4, lon: -3.6, accuracyM: 4, altitudeM: 230 + i / 10,
-      altitudeAccuracyM: 6, chainageM: i * 5, capturedAt: '2026-08-01T10:00:00Z',
-    }));
+    const ops = Array.from({ length: 200 }, (_, i) =>
+      putOp('point', randomUUID(), {
+        visitId: o.visit.id,
+        role: 'station',
+        label: `Station ${i}`,
+        lat: 52.4 + i / 1e4,
+        lon: -3.6,
+        accuracyM: 4,
+        altitudeM: 230 + i / 10,
+        altitudeAccuracyM: 6,
+        chainageM: i * 5,
+        capturedAt: '2026-08-01T10:00:00Z',
+      }),
+    );
     const { results } = await push(o.advisor, { ops });
     expect(results.filter((r) => r.status === 'applied')).toHaveLength(200);
     expect(new Set(results.map((r) => r.rev)).size).toBe(200);

@@ -12,7 +12,16 @@ beforeAll(async () => {
 });
 
 const pointFields = (visitId: string, label = 'Intake pool') => ({
-  visitId, role: 'intake', label, lat: 52.4, lon: -3.6, accuracyM: 5, altitudeM: 236, altitudeAccuracyM: 8, chainageM: null, capturedAt: null,
+  visitId,
+  role: 'intake',
+  label,
+  lat: 52.4,
+  lon: -3.6,
+  accuracyM: 5,
+  altitudeM: 236,
+  altitudeAccuracyM: 8,
+  chainageM: null,
+  capturedAt: null,
 });
 
 describe('push: create, update, delete', () => {
@@ -35,7 +44,12 @@ describe('push: create, update, delete', () => {
     // Stored in the shapes loadSiteReadings reads.
     const flow = await FlowMeasurement.findByPk(ids.flow, { rejectOnEmpty: true });
     expect([flow.method, flow.season]).toEqual(['volumetric', 'dry']);
-    expect(flow.readings).toEqual({ trials: [{ volumeL: 20, seconds: 10.4 }, { volumeL: 20, seconds: 10.9 }] });
+    expect(flow.readings).toEqual({
+      trials: [
+        { volumeL: 20, seconds: 10.4 },
+        { volumeL: 20, seconds: 10.9 },
+      ],
+    });
     const lift = await FallReading.findByPk(ids.lift, { rejectOnEmpty: true });
     expect(lift.method).toBe('clinometer');
     expect(lift.bookings).toMatchObject({ bookedFrom: 'pump' });
@@ -55,10 +69,12 @@ describe('push: create, update, delete', () => {
 
     const pointRev = first.records.point.find((r) => r.id === ids.point)?.rev as number;
     const deliveryRev = first.records.pipeRun.find((r) => r.id === ids.delivery)?.rev as number;
-    const second = await push(o.advisor, { ops: [
-      putOp('point', ids.point, { label: 'Ram site, moved 3 m upstream' }, { baseRev: pointRev, base: { label: 'Ram site' } }),
-      deleteOp('pipeRun', ids.delivery, deliveryRev),
-    ] });
+    const second = await push(o.advisor, {
+      ops: [
+        putOp('point', ids.point, { label: 'Ram site, moved 3 m upstream' }, { baseRev: pointRev, base: { label: 'Ram site' } }),
+        deleteOp('pipeRun', ids.delivery, deliveryRev),
+      ],
+    });
     expect(second.results.map((r) => r.status)).toEqual(['applied', 'applied']);
 
     const later = await pull(o.advisor, first.cursor);
@@ -72,9 +88,19 @@ describe('push: create, update, delete', () => {
     const o = await makeOrganisation('push-direct');
     const id = randomUUID();
     const run = { method: 'direct', staticLiftM: 28.5, liftMethod: 'map', uncertaintyM: 3 };
-    const { results } = await push(o.advisor, { ops: [putOp('fallReading', id, {
-      visitId: o.visit.id, purpose: 'lift', seq: 0, takenAt: null, notes: '', bookedFrom: null, run,
-    })] });
+    const { results } = await push(o.advisor, {
+      ops: [
+        putOp('fallReading', id, {
+          visitId: o.visit.id,
+          purpose: 'lift',
+          seq: 0,
+          takenAt: null,
+          notes: '',
+          bookedFrom: null,
+          run,
+        }),
+      ],
+    });
     expect(results[0]?.status).toBe('applied');
     const row = await FallReading.findByPk(id, { rejectOnEmpty: true });
     expect([row.purpose, row.method, row.bookings]).toEqual(['lift', 'direct', { staticLiftM: 28.5, method: 'map', uncertaintyM: 3 }]);
@@ -93,10 +119,9 @@ describe('push: create, update, delete', () => {
   it('a create missing fields is rejected per op with field errors; the other ops still apply', async () => {
     const good = randomUUID();
     const bad = randomUUID();
-    const { status, results } = await push(org.advisor, { ops: [
-      putOp('point', good, pointFields(org.visit.id)),
-      putOp('point', bad, { visitId: org.visit.id, role: 'pump' }),
-    ] });
+    const { status, results } = await push(org.advisor, {
+      ops: [putOp('point', good, pointFields(org.visit.id)), putOp('point', bad, { visitId: org.visit.id, role: 'pump' })],
+    });
     expect(status).toBe(200);
     expect(results.map((r) => r.status)).toEqual(['applied', 'rejected']);
     expect(results[1]?.error?.code).toBe(422);
@@ -108,13 +133,15 @@ describe('push: create, update, delete', () => {
   it('one batch: each writing op gets its own revision in op order; a refused op in between changes nothing', async () => {
     const o = await makeOrganisation('push-bulk');
     const [a, b, refused] = [randomUUID(), randomUUID(), randomUUID()];
-    const { results } = await push(o.advisor, { ops: [
-      putOp('point', a, pointFields(o.visit.id, 'First')),
-      putOp('point', refused, { visitId: o.visit.id, role: 'pump' }),
-      putOp('point', b, pointFields(o.visit.id, 'Second')),
-      // The phone cannot know the revision the first op got: against it, this base is stale.
-      putOp('point', a, { label: 'First, renamed' }, { baseRev: 0 }),
-    ] });
+    const { results } = await push(o.advisor, {
+      ops: [
+        putOp('point', a, pointFields(o.visit.id, 'First')),
+        putOp('point', refused, { visitId: o.visit.id, role: 'pump' }),
+        putOp('point', b, pointFields(o.visit.id, 'Second')),
+        // The phone cannot know the revision the first op got: against it, this base is stale.
+        putOp('point', a, { label: 'First, renamed' }, { baseRev: 0 }),
+      ],
+    });
     expect(results.map((r) => r.status)).toEqual(['applied', 'rejected', 'applied', 'conflict']);
     const [revA, revB] = [results[0]?.rev as number, results[2]?.rev as number];
     expect(revA).toBeGreaterThan(0);
@@ -128,13 +155,20 @@ describe('push: create, update, delete', () => {
     expect(await SyncOp.count({ where: { entityId: a } })).toBe(1);
     // A pull from before the batch returns both rows at their stored revisions.
     const page = await pull(o.advisor, 0);
-    expect(page.records.point.map((r) => [r.id, r.rev]).sort()).toEqual([[a, revA], [b, revB]].sort());
+    expect(page.records.point.map((r) => [r.id, r.rev]).sort()).toEqual(
+      [
+        [a, revA],
+        [b, revB],
+      ].sort(),
+    );
   });
 
   it('a record cannot move to another visit', async () => {
     const id = randomUUID();
     const created = await push(org.coordinator, { ops: [putOp('point', id, pointFields(org.visit.id))] });
-    const { results } = await push(org.coordinator, { ops: [putOp('point', id, { visitId: org.otherVisit.id }, { baseRev: created.results[0]?.rev as number })] });
+    const { results } = await push(org.coordinator, {
+      ops: [putOp('point', id, { visitId: org.otherVisit.id }, { baseRev: created.results[0]?.rev as number })],
+    });
     expect(results[0]?.status).toBe('rejected');
     expect(results[0]?.error?.code).toBe(422);
     expect((await Point.findByPk(id, { rejectOnEmpty: true })).visitId).toBe(org.visit.id);
@@ -179,10 +213,14 @@ describe('push: stale base revisions', () => {
     const id = randomUUID();
     const created = await push(org.advisor, { ops: [putOp('point', id, pointFields(org.visit.id))] });
     const phoneRev = created.results[0]?.rev as number;
-    const office = await push(org.coordinator, { ops: [putOp('point', id, { label: 'Intake (office)' }, { baseRev: phoneRev, base: { label: 'Intake pool' } })] });
+    const office = await push(org.coordinator, {
+      ops: [putOp('point', id, { label: 'Intake (office)' }, { baseRev: phoneRev, base: { label: 'Intake pool' } })],
+    });
     expect(office.results[0]?.status).toBe('applied');
 
-    const { results } = await push(org.advisor, { ops: [putOp('point', id, { label: 'Intake, lower pool' }, { baseRev: phoneRev, base: { label: 'Intake pool' } })] });
+    const { results } = await push(org.advisor, {
+      ops: [putOp('point', id, { label: 'Intake, lower pool' }, { baseRev: phoneRev, base: { label: 'Intake pool' } })],
+    });
     expect(results[0]?.status).toBe('conflict');
     expect(results[0]?.conflict?.fields).toEqual(['label']);
     expect(results[0]?.conflict?.server).toMatchObject({ label: 'Intake (office)', rev: office.results[0]?.rev });
@@ -232,10 +270,9 @@ describe('push: access and bad input', () => {
 
   it('another organisation cannot be written, even by its coordinator; it answers 404 like an unknown visit', async () => {
     const other = await makeOrganisation('push-foreign');
-    const { results } = await push(org.coordinator, { ops: [
-      putOp('point', randomUUID(), pointFields(other.visit.id)),
-      putOp('point', randomUUID(), pointFields(randomUUID())),
-    ] });
+    const { results } = await push(org.coordinator, {
+      ops: [putOp('point', randomUUID(), pointFields(other.visit.id)), putOp('point', randomUUID(), pointFields(randomUUID()))],
+    });
     expect(results.map((r) => r.error?.code)).toEqual([404, 404]);
   });
 
@@ -270,7 +307,10 @@ describe('push: access and bad input', () => {
   it('a body that is not JSON is a 422', async () => {
     const { POST } = await import('@/app/api/sync/push/route');
     const { request, params, sessionCookie } = await import('./support/fixtures');
-    const req = await request('/api/sync/push', undefined, { method: 'POST', headers: { cookie: await sessionCookie(org.advisor), 'content-type': 'application/json' } });
+    const req = await request('/api/sync/push', undefined, {
+      method: 'POST',
+      headers: { cookie: await sessionCookie(org.advisor), 'content-type': 'application/json' },
+    });
     const bad = new (req.constructor as typeof Request)(req.url, { method: 'POST', headers: req.headers, body: '{"ops": [' });
     const res = await POST(bad as typeof req, params({}));
     expect(res.status).toBe(422);
@@ -303,7 +343,9 @@ describe('the bulk writer (rows through the connector, not model instances)', ()
 
     // An update through the bulk path changes only its field, and moves updated_at, not created_at.
     const created = point.createdAt.getTime();
-    const [update] = (await push(o.advisor, { ops: [putOp('point', ids.point, { label: 'Ram site, moved' }, { baseRev: point.rev, base: { label: 'Ram site' } })] })).results;
+    const [update] = (
+      await push(o.advisor, { ops: [putOp('point', ids.point, { label: 'Ram site, moved' }, { baseRev: point.rev, base: { label: 'Ram site' } })] })
+    ).results;
     expect(update?.status).toBe('applied');
     await point.reload();
     expect([point.label, point.role, point.altitudeM]).toEqual(['Ram site, moved', 'pump', 232]);

@@ -42,10 +42,14 @@ function faultyNetwork(user: TestUser, random: () => number) {
     headers.set('origin', 'http://127.0.0.1:3100');
     const req = new NextRequest(new URL(url, 'http://127.0.0.1:3100'), { method: init.method ?? 'GET', headers, body: init.body as BodyInit | undefined });
     const path = req.nextUrl.pathname;
-    const res = path === '/api/sync/push' ? await pushRoute(req, params({}))
-      : path === '/api/sync/pull' ? await pullRoute(req, params({}))
-      : path.startsWith('/api/photos/') ? await putPhoto(req, params({ id: path.split('/')[3] ?? '' }))
-      : new Response('{}', { status: 404 });
+    const res =
+      path === '/api/sync/push'
+        ? await pushRoute(req, params({}))
+        : path === '/api/sync/pull'
+          ? await pullRoute(req, params({}))
+          : path.startsWith('/api/photos/')
+            ? await putPhoto(req, params({ id: path.split('/')[3] ?? '' }))
+            : new Response('{}', { status: 404 });
     if (roll < FAILURE_RATE) {
       // The server did the work; the answer never reached the phone.
       faults.lostAfter += 1;
@@ -55,12 +59,17 @@ function faultyNetwork(user: TestUser, random: () => number) {
   };
 }
 
-const sha = (data: Buffer | ArrayBuffer) => createHash('sha256').update(Buffer.from(data as ArrayBuffer)).digest('hex');
+const sha = (data: Buffer | ArrayBuffer) =>
+  createHash('sha256')
+    .update(Buffer.from(data as ArrayBuffer))
+    .digest('hex');
 
 describe('sync under a failing network (the phone’s own loop, real server)', () => {
   afterAll(() => {
     vi.unstubAllGlobals();
-    console.log(`[faults] ${SEEDS.length} phones × (200 ops + 20 photos): ${faults.requests} requests, ${faults.lostBefore} lost before the server, ${faults.lostAfter} lost after it answered`);
+    console.log(
+      `[faults] ${SEEDS.length} phones × (200 ops + 20 photos): ${faults.requests} requests, ${faults.lostBefore} lost before the server, ${faults.lostAfter} lost after it answered`,
+    );
   });
 
   it.each(SEEDS)('200 ops and 20 photos captured offline arrive exactly once when 30 in 100 requests fail (seed %i)', async (SEED) => {
@@ -79,16 +88,43 @@ describe('sync under a failing network (the phone’s own loop, real server)', (
       await saveRecord('waterSource', id, { visitId, name: `Seep ${i}`, kind: 'seep', notes: `walked at ${i}` });
       const pointId = randomUUID();
       points.push(pointId);
-      await saveRecord('point', pointId, { visitId, role: 'station', label: `Station ${i}`, lat: 52.41 + i / 1e4, lon: -3.61, accuracyM: 5,
-        altitudeM: 230 - i / 10, altitudeAccuracyM: 8, chainageM: i * 5, capturedAt: new Date().toISOString() });
+      await saveRecord('point', pointId, {
+        visitId,
+        role: 'station',
+        label: `Station ${i}`,
+        lat: 52.41 + i / 1e4,
+        lon: -3.61,
+        accuracyM: 5,
+        altitudeM: 230 - i / 10,
+        altitudeAccuracyM: 8,
+        chainageM: i * 5,
+        capturedAt: new Date().toISOString(),
+      });
     }
     for (let i = 0; i < 20; i++) {
-      const bytes = await sharp({ create: { width: 320, height: 240, channels: 3, background: { r: i * 10, g: 100, b: 60 } } }).jpeg().toBuffer();
+      const bytes = await sharp({ create: { width: 320, height: 240, channels: 3, background: { r: i * 10, g: 100, b: 60 } } })
+        .jpeg()
+        .toBuffer();
       const id = randomUUID();
       photos.set(id, sha(bytes));
       const data = bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer;
-      await savePhoto(id, { visitId, pointId: null, caption: `Photo ${i}`, mime: 'image/jpeg', bytes: bytes.length, sha256: sha(bytes),
-        width: 320, height: 240, lat: null, lon: null, takenAt: null }, data);
+      await savePhoto(
+        id,
+        {
+          visitId,
+          pointId: null,
+          caption: `Photo ${i}`,
+          mime: 'image/jpeg',
+          bytes: bytes.length,
+          sha256: sha(bytes),
+          width: 320,
+          height: 240,
+          lat: null,
+          lon: null,
+          takenAt: null,
+        },
+        data,
+      );
     }
     expect(await db.outbox.count()).toBe(200);
 
@@ -104,8 +140,10 @@ describe('sync under a failing network (the phone’s own loop, real server)', (
       if ((await db.outbox.count()) === 0 && waitingPhotos === 0) break;
     }
     const seconds = (Date.now() - started) / 1000;
-    console.log(`[faults] seed ${SEED}: synced in ${runs + 1} runs, ${seconds.toFixed(1)} s; ${faults.requests - before.requests} requests, ` +
-      `${faults.lostBefore - before.lostBefore} lost before the server, ${faults.lostAfter - before.lostAfter} lost after it answered`);
+    console.log(
+      `[faults] seed ${SEED}: synced in ${runs + 1} runs, ${seconds.toFixed(1)} s; ${faults.requests - before.requests} requests, ` +
+        `${faults.lostBefore - before.lostBefore} lost before the server, ${faults.lostAfter - before.lostAfter} lost after it answered`,
+    );
 
     expect(faults.requests - before.requests).toBeGreaterThan(faults.lostBefore + faults.lostAfter - before.lostBefore - before.lostAfter);
     expect(await db.outbox.count()).toBe(0);

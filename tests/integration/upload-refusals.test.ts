@@ -22,10 +22,23 @@ beforeAll(async () => {
 /** Pushes metadata that matches the bytes exactly (so only the content can be refused), then PUTs them. */
 async function uploadAsPhoto(bytes: Buffer, mime = 'image/jpeg') {
   const id = randomUUID();
-  const { results } = await push(org.advisor, { ops: [putOp('photo', id, {
-    visitId: org.visit.id, pointId: null, caption: 'upload.jpg', mime, bytes: bytes.length, sha256: sha256(bytes),
-    width: null, height: null, lat: null, lon: null, takenAt: null,
-  })] });
+  const { results } = await push(org.advisor, {
+    ops: [
+      putOp('photo', id, {
+        visitId: org.visit.id,
+        pointId: null,
+        caption: 'upload.jpg',
+        mime,
+        bytes: bytes.length,
+        sha256: sha256(bytes),
+        width: null,
+        height: null,
+        lat: null,
+        lon: null,
+        takenAt: null,
+      }),
+    ],
+  });
   expect(results[0]?.status).toBe('applied');
   const res = await putPhoto(await rawPut(`/api/photos/${id}`, org.advisor, bytes), params({ id }));
   return { id, status: res.status, message: ((await res.json()) as { error?: { message: string } }).error?.message ?? '' };
@@ -38,7 +51,11 @@ async function expectNothingStored(id: string) {
 
 /** A tiny JPEG whose frame header claims width × height (the pixels are never there). */
 async function pixelFlood(width: number, height: number): Promise<Buffer> {
-  const jpeg = Buffer.from(await sharp({ create: { width: 16, height: 16, channels: 3, background: '#777' } }).jpeg().toBuffer());
+  const jpeg = Buffer.from(
+    await sharp({ create: { width: 16, height: 16, channels: 3, background: '#777' } })
+      .jpeg()
+      .toBuffer(),
+  );
   const sof = jpeg.indexOf(Buffer.from([0xff, 0xc0]));
   jpeg.writeUInt16BE(height, sof + 5);
   jpeg.writeUInt16BE(width, sof + 7);
@@ -47,7 +64,10 @@ async function pixelFlood(width: number, height: number): Promise<Buffer> {
 
 describe('uploads that are not photos the server can read', () => {
   const notPhotos: [string, () => Buffer][] = [
-    ['an SVG with a script', () => Buffer.from('<svg xmlns="http://www.w3.org/2000/svg" width="10" height="10" onload="alert(1)"><rect width="10" height="10"/></svg>')],
+    [
+      'an SVG with a script',
+      () => Buffer.from('<svg xmlns="http://www.w3.org/2000/svg" width="10" height="10" onload="alert(1)"><rect width="10" height="10"/></svg>'),
+    ],
     ['a PDF', () => Buffer.from('%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n')],
     ['an HTML page', () => Buffer.from('<!doctype html><script>fetch("/api/me")</script>')],
     ['a ZIP archive', () => Buffer.from('504b0304140000000000000000000000000000000000000000000000', 'hex')],
@@ -72,7 +92,9 @@ describe('uploads that are not photos the server can read', () => {
   });
 
   it('a HEIF container (as an iPhone sends) is refused with advice to switch the camera to JPEG', async () => {
-    const heif = await sharp({ create: { width: 64, height: 64, channels: 3, background: '#468' } }).heif({ compression: 'av1' }).toBuffer();
+    const heif = await sharp({ create: { width: 64, height: 64, channels: 3, background: '#468' } })
+      .heif({ compression: 'av1' })
+      .toBuffer();
     const { id, status, message } = await uploadAsPhoto(heif);
     expect(status).toBe(415);
     expect(message).toMatch(/HEIC photos cannot be read here; set the camera to JPEG/);
@@ -90,12 +112,15 @@ describe('uploads that are not photos the server can read', () => {
   });
 
   it('random bytes (seeded, 25 cases) are refused with 415 or 422, nothing stored', async () => {
-    await fc.assert(fc.asyncProperty(fc.uint8Array({ minLength: 1, maxLength: 4096 }), async (bytes) => {
-      const { id, status, message } = await uploadAsPhoto(Buffer.from(bytes));
-      expect([415, 422], message).toContain(status);
-      expect(message.length).toBeGreaterThan(10);
-      await expectNothingStored(id);
-    }), { seed: 20260607, numRuns: 25 });
+    await fc.assert(
+      fc.asyncProperty(fc.uint8Array({ minLength: 1, maxLength: 4096 }), async (bytes) => {
+        const { id, status, message } = await uploadAsPhoto(Buffer.from(bytes));
+        expect([415, 422], message).toContain(status);
+        expect(message.length).toBeGreaterThan(10);
+        await expectNothingStored(id);
+      }),
+      { seed: 20260607, numRuns: 25 },
+    );
     console.log(`[uploads] ${refused} uploads refused, none stored`);
   });
 });

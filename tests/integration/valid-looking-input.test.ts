@@ -17,8 +17,22 @@ describe('valid-looking input is refused with a 422, never a 500', () => {
   it('a lone surrogate in a point label: 422 naming the field and saying what is wrong; nothing stored', async () => {
     const o = await makeOrganisation('lone-label');
     const id = randomUUID();
-    const res = await push(o.advisor, { ops: [putOp('point', id, { visitId: o.visit.id, role: 'pump', label: `Ram ${LONE}`, lat: 52.4, lon: -3.6,
-      accuracyM: 4, altitudeM: 230, altitudeAccuracyM: 5, chainageM: null, capturedAt: '2026-08-01T09:30:00.000Z' })] });
+    const res = await push(o.advisor, {
+      ops: [
+        putOp('point', id, {
+          visitId: o.visit.id,
+          role: 'pump',
+          label: `Ram ${LONE}`,
+          lat: 52.4,
+          lon: -3.6,
+          accuracyM: 4,
+          altitudeM: 230,
+          altitudeAccuracyM: 5,
+          chainageM: null,
+          capturedAt: '2026-08-01T09:30:00.000Z',
+        }),
+      ],
+    });
     expect(res.status).toBe(422);
     expect(res.error?.message).toMatch(/label/);
     expect(res.error?.message).toMatch(/broken character/i);
@@ -27,11 +41,17 @@ describe('valid-looking input is refused with a 422, never a 500', () => {
 
   it('a lone surrogate in a farm name, and in a farmer’s question: 422', async () => {
     const o = await makeOrganisation('lone-farm');
-    const farm = await postFarm(await request('/api/farms', o.coordinator, { method: 'POST', body: { name: `Farm ${LONE}`, area: '', ownerId: null, lat: null, lon: null, notes: '' } }), params({}));
+    const farm = await postFarm(
+      await request('/api/farms', o.coordinator, { method: 'POST', body: { name: `Farm ${LONE}`, area: '', ownerId: null, lat: null, lon: null, notes: '' } }),
+      params({}),
+    );
     expect(farm.status).toBe(422);
     expect((await farm.json()).error.fieldErrors.name).toBeDefined();
     expect(await Farm.count({ where: { organisationId: o.organisationId } })).toBe(2);
-    const question = await postQuestion(await request(`/api/visits/${o.visit.id}/sheet/questions`, o.farmer, { method: 'POST', body: { text: `How deep is the intake ${LONE}?` } }), params({ id: o.visit.id }));
+    const question = await postQuestion(
+      await request(`/api/visits/${o.visit.id}/sheet/questions`, o.farmer, { method: 'POST', body: { text: `How deep is the intake ${LONE}?` } }),
+      params({ id: o.visit.id }),
+    );
     expect(question.status).toBe(422);
   });
 
@@ -39,8 +59,17 @@ describe('valid-looking input is refused with a 422, never a 500', () => {
     const o = await makeOrganisation('far-date');
     for (const takenAt of ['9999-12-31T23:59:59-23:59', '0000-01-01T00:00:00Z', '0999-12-31T00:00:00Z']) {
       const id = randomUUID();
-      const res = await push(o.advisor, { ops: [putOp('flowMeasurement', id, { visitId: o.visit.id, sourceId: null, takenAt, notes: '',
-        measurement: { method: 'volumetric', season: 'dry', trials: [{ volumeL: 20, seconds: 10 }] } })] });
+      const res = await push(o.advisor, {
+        ops: [
+          putOp('flowMeasurement', id, {
+            visitId: o.visit.id,
+            sourceId: null,
+            takenAt,
+            notes: '',
+            measurement: { method: 'volumetric', season: 'dry', trials: [{ volumeL: 20, seconds: 10 }] },
+          }),
+        ],
+      });
       expect(res.status, takenAt).toBe(422);
       expect(res.error?.message).toMatch(/takenAt/);
       expect(await FlowMeasurement.findByPk(id)).toBeNull();
@@ -50,8 +79,23 @@ describe('valid-looking input is refused with a 422, never a 500', () => {
   it('a photo 2^31 pixels wide: 422', async () => {
     const o = await makeOrganisation('wide-photo');
     const id = randomUUID();
-    const res = await push(o.advisor, { ops: [putOp('photo', id, { visitId: o.visit.id, pointId: null, caption: '', mime: 'image/jpeg', bytes: 1000,
-      sha256: 'a'.repeat(64), width: 2 ** 31, height: 10, lat: null, lon: null, takenAt: null })] });
+    const res = await push(o.advisor, {
+      ops: [
+        putOp('photo', id, {
+          visitId: o.visit.id,
+          pointId: null,
+          caption: '',
+          mime: 'image/jpeg',
+          bytes: 1000,
+          sha256: 'a'.repeat(64),
+          width: 2 ** 31,
+          height: 10,
+          lat: null,
+          lon: null,
+          takenAt: null,
+        }),
+      ],
+    });
     expect(res.status).toBe(422);
     expect(res.error?.message).toMatch(/width/);
     expect(await Photo.findByPk(id)).toBeNull();
@@ -60,7 +104,13 @@ describe('valid-looking input is refused with a 422, never a 500', () => {
   it('days before year 1000 are refused (they came back shifted: 0000-01-01 as 2000-01-01); the lowest allowed planned day round-trips', async () => {
     const o = await makeOrganisation('old-day');
     const assign = async (plannedOn: string) =>
-      putAssignment(await request(`/api/visits/${o.visit.id}/assignment`, o.coordinator, { method: 'PUT', body: { advisorId: o.advisor.id, plannedOn, confirmUnsynced: true, confirmPast: true } }), params({ id: o.visit.id }));
+      putAssignment(
+        await request(`/api/visits/${o.visit.id}/assignment`, o.coordinator, {
+          method: 'PUT',
+          body: { advisorId: o.advisor.id, plannedOn, confirmUnsynced: true, confirmPast: true },
+        }),
+        params({ id: o.visit.id }),
+      );
     for (const day of ['0000-01-01', '0999-12-31']) {
       const res = await assign(day);
       expect(res.status, day).toBe(422);

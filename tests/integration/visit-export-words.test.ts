@@ -9,7 +9,11 @@ import { makeOrganisation, params, request } from './support/fixtures';
 import { screenFixtureVisit } from './support/screened';
 
 /** The cells of one CSV line (quoted cells may hold commas). */
-const cells = (line: string) => [...line.matchAll(/("([^"]|"")*"|[^,]*)(,|$)/g)].map((m) => m[1] ?? '').map((c) => c.replace(/^"|"$/g, '').replace(/""/g, '"')).slice(0, -1);
+const cells = (line: string) =>
+  [...line.matchAll(/("([^"]|"")*"|[^,]*)(,|$)/g)]
+    .map((m) => m[1] ?? '')
+    .map((c) => c.replace(/^"|"$/g, '').replace(/""/g, '"'))
+    .slice(0, -1);
 
 describe('GET /api/visits/export.csv', () => {
   it('has units in the headers and a screened visit’s verdict word, delivery, demand and margin', async () => {
@@ -18,11 +22,22 @@ describe('GET /api/visits/export.csv', () => {
     const s = await Screening.findOne({ where: { visitId: o.visit.id }, rejectOnEmpty: true });
     const res = await getExport(await request('/api/visits/export.csv?sort=farm&dir=asc', o.coordinator), params({}));
     expect(res.status).toBe(200);
-    const lines = (await res.text()).replace(/^\uFEFF/, '').trimEnd().split('\r\n');
-    expect(lines[0]).toBe('Farm,Area,Farmer,Advisor,Planned (date),State,Overdue,Verdict,Delivery (L/day),Demand (L/day),Margin (L/day: delivery minus demand),Last synced (UTC),Visit id');
+    const lines = (await res.text())
+      .replace(/^\uFEFF/, '')
+      .trimEnd()
+      .split('\r\n');
+    expect(lines[0]).toBe(
+      'Farm,Area,Farmer,Advisor,Planned (date),State,Overdue,Verdict,Delivery (L/day),Demand (L/day),Margin (L/day: delivery minus demand),Last synced (UTC),Visit id',
+    );
     const screened = cells(lines.find((l) => l.endsWith(o.visit.id)) ?? '');
-    expect(screened.slice(5, 11)).toEqual(['Screened', 'no', VERDICT_WORDS[s.verdict as Verdict],
-      String(Math.round(s.deliveryLpd ?? NaN)), String(Math.round(s.demandLpd ?? NaN)), String(Math.round((s.deliveryLpd ?? NaN) - (s.demandLpd ?? NaN)))]);
+    expect(screened.slice(5, 11)).toEqual([
+      'Screened',
+      'no',
+      VERDICT_WORDS[s.verdict as Verdict],
+      String(Math.round(s.deliveryLpd ?? NaN)),
+      String(Math.round(s.demandLpd ?? NaN)),
+      String(Math.round((s.deliveryLpd ?? NaN) - (s.demandLpd ?? NaN))),
+    ]);
     const unscreened = lines.find((l) => l.endsWith(o.otherVisit.id)) ?? '';
     expect(cells(unscreened).slice(7, 12)).toEqual(['not screened', '', '', '', 'never']);
     expect(lines.join('\n')).not.toMatch(/,(go|no-go|conditional),/);

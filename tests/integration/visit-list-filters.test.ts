@@ -9,7 +9,17 @@ import { makeOrganisation, params, request } from './support/fixtures';
 // 2,000 visits in an organisation of their own, made with a seeded generator so every filter has
 // rows to find and rows to leave out; the expected rows are worked out here from the same data.
 type Org = Awaited<ReturnType<typeof makeOrganisation>>;
-interface Seeded { id: string; farmId: string; farmName: string; area: string; farmer: string; advisorId: string | null; plannedOn: string | null; status: VisitStatus; verdict: Verdict | null }
+interface Seeded {
+  id: string;
+  farmId: string;
+  farmName: string;
+  area: string;
+  farmer: string;
+  advisorId: string | null;
+  plannedOn: string | null;
+  status: VisitStatus;
+  verdict: Verdict | null;
+}
 
 let org: Org;
 const rows: Seeded[] = [];
@@ -18,7 +28,7 @@ const N = 2000;
 
 function rng(seed: number) {
   let s = seed >>> 0;
-  return () => ((s = (s * 1664525 + 1013904223) >>> 0) / 2 ** 32);
+  return () => (s = (s * 1664525 + 1013904223) >>> 0) / 2 ** 32;
 }
 
 beforeAll(async () => {
@@ -27,10 +37,25 @@ beforeAll(async () => {
   const random = rng(42);
   const now = new Date();
   const farms = Array.from({ length: 40 }, (_, i) => ({
-    id: randomUUID(), name: `Farm ${String(i).padStart(2, '0')} ${i % 7 === 0 ? 'Brookside' : 'Meadow'}`,
-    area: AREAS[i % AREAS.length]!, ownerId: i % 2 ? org.farmer.id : org.otherFarmer.id,
+    id: randomUUID(),
+    name: `Farm ${String(i).padStart(2, '0')} ${i % 7 === 0 ? 'Brookside' : 'Meadow'}`,
+    area: AREAS[i % AREAS.length]!,
+    ownerId: i % 2 ? org.farmer.id : org.otherFarmer.id,
   }));
-  await qi.bulkInsert('farms', farms.map((f) => ({ id: f.id, organisation_id: org.organisationId, owner_id: f.ownerId, name: f.name, area: f.area, notes: '', rev: 0, created_at: now, updated_at: now })));
+  await qi.bulkInsert(
+    'farms',
+    farms.map((f) => ({
+      id: f.id,
+      organisation_id: org.organisationId,
+      owner_id: f.ownerId,
+      name: f.name,
+      area: f.area,
+      notes: '',
+      rev: 0,
+      created_at: now,
+      updated_at: now,
+    })),
+  );
   const advisors = [org.advisor.id, org.otherAdvisor.id, null];
   for (let i = 0; i < N; i += 1) {
     const farm = farms[Math.floor(random() * farms.length)]!;
@@ -39,30 +64,78 @@ beforeAll(async () => {
     const status = VISIT_STATUSES[Math.floor(random() * VISIT_STATUSES.length)]!;
     const verdict = random() < 0.4 ? VERDICTS[Math.floor(random() * VERDICTS.length)]! : null;
     rows.push({
-      id: randomUUID(), farmId: farm.id, farmName: farm.name, area: farm.area,
+      id: randomUUID(),
+      farmId: farm.id,
+      farmName: farm.name,
+      area: farm.area,
       farmer: farm.ownerId === org.farmer.id ? org.farmer.name : org.otherFarmer.name,
       advisorId: advisors[Math.floor(random() * advisors.length)]!,
       plannedOn: random() < 0.1 ? null : `2025-${String(month).padStart(2, '0')}-${String(day).padStart(2, '0')}`,
-      status, verdict,
+      status,
+      verdict,
     });
   }
   for (let i = 0; i < rows.length; i += 500) {
-    await qi.bulkInsert('visits', rows.slice(i, i + 500).map((r) => ({
-      id: r.id, organisation_id: org.organisationId, farm_id: r.farmId, advisor_id: r.advisorId, planned_on: r.plannedOn,
-      status: r.status, notes: '', rev: 0, created_at: now, updated_at: now,
-    })));
+    await qi.bulkInsert(
+      'visits',
+      rows.slice(i, i + 500).map((r) => ({
+        id: r.id,
+        organisation_id: org.organisationId,
+        farm_id: r.farmId,
+        advisor_id: r.advisorId,
+        planned_on: r.plannedOn,
+        status: r.status,
+        notes: '',
+        rev: 0,
+        created_at: now,
+        updated_at: now,
+      })),
+    );
   }
   // An older screening with a different verdict first: only the latest one counts.
   const screened = rows.filter((r) => r.verdict);
   const screening = (visitId: string, verdict: string, at: Date) => ({
-    id: randomUUID(), visit_id: visitId, engine_version: 'test', inputs_hash: '0'.repeat(64), inputs: '{}', result: '{}', verdict, created_at: at,
+    id: randomUUID(),
+    visit_id: visitId,
+    engine_version: 'test',
+    inputs_hash: '0'.repeat(64),
+    inputs: '{}',
+    result: '{}',
+    verdict,
+    created_at: at,
   });
-  await qi.bulkInsert('screenings', screened.map((r) => screening(r.id, r.verdict === 'go' ? 'no-go' : 'go', new Date(now.getTime() - 86_400_000))));
-  await qi.bulkInsert('screenings', screened.map((r) => screening(r.id, r.verdict!, now)));
+  await qi.bulkInsert(
+    'screenings',
+    screened.map((r) => screening(r.id, r.verdict === 'go' ? 'no-go' : 'go', new Date(now.getTime() - 86_400_000))),
+  );
+  await qi.bulkInsert(
+    'screenings',
+    screened.map((r) => screening(r.id, r.verdict!, now)),
+  );
   // makeOrganisation's own two visits are part of the organisation too.
   rows.push(
-    { id: org.visit.id, farmId: org.farm.id, farmName: org.farm.name, area: 'test', farmer: org.farmer.name, advisorId: org.advisor.id, plannedOn: '2026-12-10', status: 'scheduled', verdict: null },
-    { id: org.otherVisit.id, farmId: org.otherFarm.id, farmName: org.otherFarm.name, area: 'test', farmer: org.otherFarmer.name, advisorId: org.otherAdvisor.id, plannedOn: '2026-12-11', status: 'scheduled', verdict: null },
+    {
+      id: org.visit.id,
+      farmId: org.farm.id,
+      farmName: org.farm.name,
+      area: 'test',
+      farmer: org.farmer.name,
+      advisorId: org.advisor.id,
+      plannedOn: '2026-12-10',
+      status: 'scheduled',
+      verdict: null,
+    },
+    {
+      id: org.otherVisit.id,
+      farmId: org.otherFarm.id,
+      farmName: org.otherFarm.name,
+      area: 'test',
+      farmer: org.otherFarmer.name,
+      advisorId: org.otherAdvisor.id,
+      plannedOn: '2026-12-11',
+      status: 'scheduled',
+      verdict: null,
+    },
   );
 }, 120_000);
 
@@ -92,7 +165,11 @@ describe('visits list on 2,000 visits', () => {
 
   it.each([
     ['status', 'status=screened', (r: Seeded) => r.status === 'screened'],
-    ['planned date range', 'plannedFrom=2025-03-01&plannedTo=2025-04-15', (r: Seeded) => !!r.plannedOn && r.plannedOn >= '2025-03-01' && r.plannedOn <= '2025-04-15'],
+    [
+      'planned date range',
+      'plannedFrom=2025-03-01&plannedTo=2025-04-15',
+      (r: Seeded) => !!r.plannedOn && r.plannedOn >= '2025-03-01' && r.plannedOn <= '2025-04-15',
+    ],
     ['area', `area=${encodeURIComponent('Hafod spring line')}`, (r: Seeded) => r.area === 'Hafod spring line'],
     ['verdict (latest screening)', 'verdict=conditional', (r: Seeded) => r.verdict === 'conditional'],
     ['no screening yet', 'verdict=none', (r: Seeded) => r.verdict === null],
@@ -128,7 +205,10 @@ describe('visits list on 2,000 visits', () => {
     const res = await getVisits(await request('/api/visits?sort=farm&dir=asc&pageSize=100&page=3', org.coordinator), params({}));
     const names = ((await res.json()).items as { farm: { name: string } }[]).map((v) => v.farm.name);
     expect(names).toEqual([...names].sort((a, b) => a.localeCompare(b)));
-    const expectedThirdPage = rows.map((r) => r.farmName).sort((a, b) => a.localeCompare(b)).slice(200, 300);
+    const expectedThirdPage = rows
+      .map((r) => r.farmName)
+      .sort((a, b) => a.localeCompare(b))
+      .slice(200, 300);
     expect(names).toEqual(expectedThirdPage);
   });
 
@@ -145,7 +225,10 @@ describe('visits list on 2,000 visits', () => {
     const res = await getExport(await request(`/api/visits/export.csv?${query}`, org.coordinator), params({}));
     expect(res.status).toBe(200);
     expect(res.headers.get('content-type')).toContain('text/csv');
-    const lines = (await res.text()).replace(/^\uFEFF/, '').trimEnd().split('\r\n');
+    const lines = (await res.text())
+      .replace(/^\uFEFF/, '')
+      .trimEnd()
+      .split('\r\n');
     expect(lines[0]).toContain('Farm,Area,Farmer');
     const csvIds = lines.slice(1).map((l) => l.split(',').at(-1));
     expect(csvIds).toEqual(ids);

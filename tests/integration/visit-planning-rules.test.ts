@@ -47,7 +47,10 @@ describe('a second visit for a farm', () => {
     const error = (await warned.json()).error;
     expect(error.code).toBe('duplicate');
     expect(error.message).toBe(`${o.farm.name} already has a visit under way (Visit booked, planned Thu, 10 Dec 2026). Plan another one anyway?`);
-    const made = await postVisit(await request('/api/visits', o.coordinator, { method: 'POST', body: { farmId: o.farm.id, confirmDuplicate: true } }), params({}));
+    const made = await postVisit(
+      await request('/api/visits', o.coordinator, { method: 'POST', body: { farmId: o.farm.id, confirmDuplicate: true } }),
+      params({}),
+    );
     expect(made.status).toBe(201);
   });
 });
@@ -55,7 +58,10 @@ describe('a second visit for a farm', () => {
 describe('telling the advisors', () => {
   it('a visit assigned without a date reaches the phone, and the e-mail says so and that the date is to come', async () => {
     const o = await makeOrganisation('nodate');
-    const res = await postVisit(await request('/api/visits', o.coordinator, { method: 'POST', body: { farmId: o.otherFarm.id, advisorId: o.advisor.id, confirmDuplicate: true } }), params({}));
+    const res = await postVisit(
+      await request('/api/visits', o.coordinator, { method: 'POST', body: { farmId: o.otherFarm.id, advisorId: o.advisor.id, confirmDuplicate: true } }),
+      params({}),
+    );
     expect(res.status).toBe(201);
     const { visit } = await res.json();
     const page = await pull(o.advisor);

@@ -6,8 +6,19 @@ import { tmpdir, userInfo } from 'node:os';
 import path from 'node:path';
 import * as mariadb from 'mariadb';
 
-export interface Server { port: number; socket: string; dataDir: string; child?: ChildProcess }
-export interface ReplicaPair { primary: Server; replica: Server; root(server: Server): Promise<mariadb.Connection>; catchUp(): Promise<void>; stop(): Promise<void> }
+export interface Server {
+  port: number;
+  socket: string;
+  dataDir: string;
+  child?: ChildProcess;
+}
+export interface ReplicaPair {
+  primary: Server;
+  replica: Server;
+  root(server: Server): Promise<mariadb.Connection>;
+  catchUp(): Promise<void>;
+  stop(): Promise<void>;
+}
 
 const rootConnection = (server: Server) => mariadb.createConnection({ socketPath: server.socket, user: 'root', password: '' });
 
@@ -17,7 +28,7 @@ async function waitReady(server: Server, timeoutMs = 30_000) {
     try {
       return void (await (await rootConnection(server)).end());
     } catch (error) {
-      if (server.child?.exitCode !== null && server.child?.exitCode !== undefined || Date.now() - started > timeoutMs) {
+      if ((server.child?.exitCode !== null && server.child?.exitCode !== undefined) || Date.now() - started > timeoutMs) {
         const log = readFileSync(path.join(server.dataDir, 'mariadbd.err'), 'utf8').split('\n').slice(-10).join('\n');
         throw new Error(`mariadbd on ${server.port} did not start: ${(error as Error).message}\n${log}`);
       }
@@ -28,13 +39,29 @@ async function waitReady(server: Server, timeoutMs = 30_000) {
 
 function start(server: Server, serverId: number, extra: string[]) {
   const err = openSync(path.join(server.dataDir, 'mariadbd.err'), 'a');
-  server.child = spawn('mariadbd', [
-    '--no-defaults', `--datadir=${server.dataDir}`, `--user=${userInfo().username}`, '--bind-address=127.0.0.1',
-    `--port=${server.port}`, `--socket=${server.socket}`, `--pid-file=${path.join(server.dataDir, 'mariadbd.pid')}`,
-    '--skip-name-resolve', `--server-id=${serverId}`, '--character-set-server=utf8mb4', '--collation-server=utf8mb4_unicode_ci',
-    '--innodb-buffer-pool-size=16M', '--innodb-log-file-size=16M', '--innodb-flush-log-at-trx-commit=2',
-    '--performance-schema=OFF', '--max-connections=50', ...extra,
-  ], { stdio: ['ignore', err, err] });
+  server.child = spawn(
+    'mariadbd',
+    [
+      '--no-defaults',
+      `--datadir=${server.dataDir}`,
+      `--user=${userInfo().username}`,
+      '--bind-address=127.0.0.1',
+      `--port=${server.port}`,
+      `--socket=${server.socket}`,
+      `--pid-file=${path.join(server.dataDir, 'mariadbd.pid')}`,
+      '--skip-name-resolve',
+      `--server-id=${serverId}`,
+      '--character-set-server=utf8mb4',
+      '--collation-server=utf8mb4_unicode_ci',
+      '--innodb-buffer-pool-size=16M',
+      '--innodb-log-file-size=16M',
+      '--innodb-flush-log-at-trx-commit=2',
+      '--performance-schema=OFF',
+      '--max-connections=50',
+      ...extra,
+    ],
+    { stdio: ['ignore', err, err] },
+  );
 }
 
 async function stopServer(server: Server) {
@@ -57,12 +84,17 @@ export async function startReplicaPair(base: string, port: number): Promise<Repl
   const primary = server('primary', port);
   const replica = server('replica', port + 1);
   mkdirSync(primary.dataDir, { recursive: true });
-  const init = spawnSync('mariadb-install-db', ['--no-defaults', `--datadir=${primary.dataDir}`, `--user=${userInfo().username}`,
-    '--auth-root-authentication-method=normal', '--skip-test-db'], { encoding: 'utf8' });
+  const init = spawnSync(
+    'mariadb-install-db',
+    ['--no-defaults', `--datadir=${primary.dataDir}`, `--user=${userInfo().username}`, '--auth-root-authentication-method=normal', '--skip-test-db'],
+    { encoding: 'utf8' },
+  );
   if (init.status !== 0) throw new Error(`mariadb-install-db failed: ${init.stderr}`);
   cpSync(primary.dataDir, replica.dataDir, { recursive: true });
   const pair: ReplicaPair = {
-    primary, replica, root: rootConnection,
+    primary,
+    replica,
+    root: rootConnection,
     async catchUp() {
       const p = await rootConnection(primary);
       const r = await rootConnection(replica);
@@ -116,8 +148,20 @@ export async function createAppDatabase(pair: ReplicaPair, db: { name: string; u
 
 /** Copies a database from another server into the primary (mariadb-dump | mariadb); it replicates. */
 export function copyDatabaseInto(pair: ReplicaPair, from: { host: string; port: number; user: string; password: string; name: string }): void {
-  const dump = spawnSync('mariadb-dump', [`--host=${from.host}`, `--port=${from.port}`, `--user=${from.user}`, `--password=${from.password}`,
-    '--single-transaction', '--no-tablespaces', '--skip-triggers', from.name], { encoding: 'utf8', maxBuffer: 512 * 1024 * 1024 });
+  const dump = spawnSync(
+    'mariadb-dump',
+    [
+      `--host=${from.host}`,
+      `--port=${from.port}`,
+      `--user=${from.user}`,
+      `--password=${from.password}`,
+      '--single-transaction',
+      '--no-tablespaces',
+      '--skip-triggers',
+      from.name,
+    ],
+    { encoding: 'utf8', maxBuffer: 512 * 1024 * 1024 },
+  );
   if (dump.status !== 0) throw new Error(`mariadb-dump failed: ${dump.stderr}`);
   const load = spawnSync('mariadb', [`--socket=${pair.primary.socket}`, '--user=root', from.name], { input: dump.stdout, encoding: 'utf8' });
   if (load.status !== 0) throw new Error(`loading the dump failed: ${load.stderr}`);

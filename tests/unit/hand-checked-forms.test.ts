@@ -25,7 +25,7 @@ describe('hand-checked forms agree with the server schemas', () => {
   it('sheet question: the same texts are refused, with the schema’s messages', () => {
     for (const text of ['', '  ', 'ok', 'Why?', '   Is the tank big enough?  ', 'q'.repeat(2000), 'q'.repeat(2001), ` ${'q'.repeat(2000)} `]) {
       const parsed = questionBody.safeParse({ text });
-      const message = parsed.success ? null : parsed.error.issues[0]?.message ?? null;
+      const message = parsed.success ? null : (parsed.error.issues[0]?.message ?? null);
       expect(questionProblem(text), JSON.stringify(text.slice(0, 20))).toBe(message);
     }
   });

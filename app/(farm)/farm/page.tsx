@@ -11,15 +11,14 @@ export const metadata: Metadata = { title: 'My farm' };
 
 export default async function FarmHome() {
   const user = await requirePageUser(['farmer'], '/farm');
-  const [farms, visits] = await Promise.all([
-    listFarms(user, { page: 1, pageSize: 20 }),
-    listVisits(user, { page: 1, pageSize: 20 }),
-  ]);
+  const [farms, visits] = await Promise.all([listFarms(user, { page: 1, pageSize: 20 }), listVisits(user, { page: 1, pageSize: 20 })]);
   return (
     <div className="space-y-8">
       <h1 className="text-3xl font-bold text-slate">My farm</h1>
       <section aria-labelledby="farms" className="space-y-3">
-        <h2 id="farms" className="text-xl font-bold">Farms and water needs</h2>
+        <h2 id="farms" className="text-xl font-bold">
+          Farms and water needs
+        </h2>
         {farms.items.length === 0 && <p className="text-lg text-stone">No farm is registered to you yet.</p>}
         <ul className="space-y-2">
           {farms.items.map((farm) => (
@@ -38,22 +37,30 @@ export default async function FarmHome() {
       </section>
       {visits.items.some((v) => v.verdict) && (
         <section aria-labelledby="sheets" className="space-y-3">
-          <h2 id="sheets" className="text-xl font-bold">Your sheets</h2>
+          <h2 id="sheets" className="text-xl font-bold">
+            Your sheets
+          </h2>
           <ul className="space-y-2">
-            {visits.items.filter((v) => v.verdict).map((v) => (
-              <li key={v.id} className="flex flex-wrap items-center justify-between gap-3 rounded-md border border-rule bg-white p-4">
-                <span>
-                  <span className="block text-lg font-bold">{v.farm.name}</span>
-                  {v.verdict && <VerdictMark verdict={v.verdict} size={20} />}
-                </span>
-                <Link href={`/sheets/${v.id}`} className="inline-flex min-h-12 items-center font-bold">Read the sheet for {v.farm.name}</Link>
-              </li>
-            ))}
+            {visits.items
+              .filter((v) => v.verdict)
+              .map((v) => (
+                <li key={v.id} className="flex flex-wrap items-center justify-between gap-3 rounded-md border border-rule bg-white p-4">
+                  <span>
+                    <span className="block text-lg font-bold">{v.farm.name}</span>
+                    {v.verdict && <VerdictMark verdict={v.verdict} size={20} />}
+                  </span>
+                  <Link href={`/sheets/${v.id}`} className="inline-flex min-h-12 items-center font-bold">
+                    Read the sheet for {v.farm.name}
+                  </Link>
+                </li>
+              ))}
           </ul>
         </section>
       )}
       <section aria-labelledby="visits">
-        <h2 id="visits" className="mb-3 text-xl font-bold">Site visits</h2>
+        <h2 id="visits" className="mb-3 text-xl font-bold">
+          Site visits
+        </h2>
         <VisitTable visits={visits.items} caption="Visits to your farms" />
       </section>
     </div>

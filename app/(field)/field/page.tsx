@@ -29,12 +29,20 @@ export default function FieldHome() {
               <span className="block text-xl font-bold">{v.farm?.name ?? 'Farm'}</span>
               <span className="block text-stone">{v.farm?.area}</span>
               <span className="mt-1 block">
-                {v.plannedOn ? <span className="figure">{formatDay(v.plannedOn)}</span> : 'No date yet'} · {VISIT_STATUS_LABELS[v.status as VisitStatus] ?? 'Other'}
-                {isOverdue({ ...v, status: v.status as VisitStatus, lastSyncedAt: null }) && <strong className="text-clay" data-testid="overdue"> · ⚠ Overdue</strong>}
+                {v.plannedOn ? <span className="figure">{formatDay(v.plannedOn)}</span> : 'No date yet'} ·{' '}
+                {VISIT_STATUS_LABELS[v.status as VisitStatus] ?? 'Other'}
+                {isOverdue({ ...v, status: v.status as VisitStatus, lastSyncedAt: null }) && (
+                  <strong className="text-clay" data-testid="overdue">
+                    {' '}
+                    · ⚠ Overdue
+                  </strong>
+                )}
               </span>
               {(v.waiting > 0 || v.parked > 0) && (
                 <span className="mt-1 block font-bold">
-                  {[v.waiting > 0 && waitingWords({ waiting: v.waiting, photos: 0, parked: 0 }), v.parked > 0 && decisionWords(v.parked)].filter(Boolean).join(' · ')}
+                  {[v.waiting > 0 && waitingWords({ waiting: v.waiting, photos: 0, parked: 0 }), v.parked > 0 && decisionWords(v.parked)]
+                    .filter(Boolean)
+                    .join(' · ')}
                 </span>
               )}
             </Link>

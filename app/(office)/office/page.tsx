@@ -16,7 +16,12 @@ export const metadata: Metadata = { title: 'District office' };
 export default async function OfficeHome() {
   const user = await requirePageUser(['coordinator'], '/office');
   const [counts, loads, people, areas, questions, deleted] = await Promise.all([
-    visitCounts(user), visitCountsByAdvisor(user), listPeople(user, { page: 1, pageSize: 100 }), districtAreas(user), listOpenQuestions(user), listDeletedVisits(user),
+    visitCounts(user),
+    visitCountsByAdvisor(user),
+    listPeople(user, { page: 1, pageSize: 100 }),
+    districtAreas(user),
+    listOpenQuestions(user),
+    listDeletedVisits(user),
   ]);
   const advisors = people.items.filter((p) => p.role === 'advisor' && p.active).map((p) => ({ id: p.id, name: p.name }));
   const total = Object.values(counts.byStatus).reduce((a, b) => a + (b ?? 0), 0);
@@ -27,13 +32,20 @@ export default async function OfficeHome() {
         <p className="mt-1 text-lg">
           {total} visits · {advisors.length} active advisors
           {counts.overdue > 0 && <strong className="text-clay"> · {counts.overdue} overdue</strong>}
-          {questions.length > 0 && <strong className="text-ochre"> · {questions.length} open {questions.length === 1 ? 'question' : 'questions'}</strong>}
+          {questions.length > 0 && (
+            <strong className="text-ochre">
+              {' '}
+              · {questions.length} open {questions.length === 1 ? 'question' : 'questions'}
+            </strong>
+          )}
         </p>
       </section>
       <OpenQuestions questions={questions} />
       <FollowUpBoard byStatus={counts.byStatus} overdue={counts.overdue} loads={loads} />
       <section aria-labelledby="visits" className="space-y-3">
-        <h2 id="visits" className="text-xl font-bold">Visits</h2>
+        <h2 id="visits" className="text-xl font-bold">
+          Visits
+        </h2>
         <Suspense fallback={<p>Loading visits…</p>}>
           <VisitsBrowser advisors={advisors} areas={areas} />
         </Suspense>

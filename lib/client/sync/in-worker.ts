@@ -9,7 +9,10 @@ import type { SyncOutcome } from './runner';
 import type { SyncWorkerReply, SyncWorkerRequest } from './sync-worker';
 
 type Request = SyncWorkerRequest extends infer R ? (R extends SyncWorkerRequest ? Omit<R, 'id'> : never) : never;
-interface Call { onReply: (reply: SyncWorkerReply) => void; onDeath: () => void }
+interface Call {
+  onReply: (reply: SyncWorkerReply) => void;
+  onDeath: () => void;
+}
 
 let worker: Worker | null | undefined;
 let nextId = 1;
@@ -97,21 +100,26 @@ export function rememberedFromWorker(): Promise<SessionUser | null> {
 export function watchFrame<Q extends FrameQuery>(query: Q, onValue: (value: FrameAnswer<Q>) => void, onError: (error: unknown) => void): () => void {
   let stop: (() => void) | undefined;
   let stopped = false;
-  const inPage = () => void Promise.all([import('../live-query'), import('../frame-queries')]).then(([{ watchLocal }, { FRAME_QUERIES }]) => {
-    if (!stopped) stop = watchLocal((db) => FRAME_QUERIES[query](db) as Promise<FrameAnswer<Q>>, onValue, onError);
-  });
-  const id = send({ type: 'watch', query }, {
-    onReply: (reply) => {
-      if ('value' in reply) onValue(reply.value as FrameAnswer<Q>);
-      else if ('error' in reply) onError(new Error(reply.error));
+  const inPage = () =>
+    void Promise.all([import('../live-query'), import('../frame-queries')]).then(([{ watchLocal }, { FRAME_QUERIES }]) => {
+      if (!stopped) stop = watchLocal((db) => FRAME_QUERIES[query](db) as Promise<FrameAnswer<Q>>, onValue, onError);
+    });
+  const id = send(
+    { type: 'watch', query },
+    {
+      onReply: (reply) => {
+        if ('value' in reply) onValue(reply.value as FrameAnswer<Q>);
+        else if ('error' in reply) onError(new Error(reply.error));
+      },
+      onDeath: inPage,
     },
-    onDeath: inPage,
-  });
+  );
   if (id === null) inPage();
-  else stop = () => {
-    calls.delete(id);
-    worker?.postMessage({ id, type: 'unwatch' } satisfies SyncWorkerRequest);
-  };
+  else
+    stop = () => {
+      calls.delete(id);
+      worker?.postMessage({ id, type: 'unwatch' } satisfies SyncWorkerRequest);
+    };
   return () => {
     stopped = true;
     stop?.();

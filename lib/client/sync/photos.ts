@@ -7,7 +7,10 @@ import { OfflineError, SyncHttpError } from './transport';
 
 export type UploadProgress = (photoId: string, sentBytes: number, totalBytes: number) => void;
 
-interface Answer { status: number; body: string }
+interface Answer {
+  status: number;
+  body: string;
+}
 
 /** The message of the server's JSON error ({ error: { message } }), or a plain fallback. */
 export function refusalMessage(status: number, body: string): string {
@@ -33,8 +36,12 @@ function send(blob: PhotoBlob, onProgress?: UploadProgress): Promise<Answer> {
       xhr.send(blob.data);
     });
   }
-  return fetch(`/api/photos/${blob.id}`, { method: 'PUT', headers: { 'content-type': blob.mime }, body: blob.data, credentials: 'same-origin' })
-    .then(async (r) => ({ status: r.status, body: r.status >= 400 ? await r.text().catch(() => '') : '' }), () => { throw new OfflineError(); });
+  return fetch(`/api/photos/${blob.id}`, { method: 'PUT', headers: { 'content-type': blob.mime }, body: blob.data, credentials: 'same-origin' }).then(
+    async (r) => ({ status: r.status, body: r.status >= 400 ? await r.text().catch(() => '') : '' }),
+    () => {
+      throw new OfflineError();
+    },
+  );
 }
 
 /**
@@ -61,7 +68,8 @@ export async function uploadPhotos(onProgress?: UploadProgress, force = false): 
       const temporary = status >= 500 || status === 429;
       // A refusal (4xx) is kept with its reason for the sync page; the bytes never leave the phone unsent.
       await db.photoBlobs.update(blob.id, {
-        attempts, nextAttemptAt: Date.now() + backoffMs(attempts),
+        attempts,
+        nextAttemptAt: Date.now() + backoffMs(attempts),
         ...(temporary ? {} : { lastError: { status, message: refusalMessage(status, body) } }),
       });
       if (temporary) throw new SyncHttpError(status, 'The server could not take the photo now.');

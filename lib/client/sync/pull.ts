@@ -6,9 +6,7 @@ import { fieldDb, TABLE_OF } from '../db';
 import { getMeta, setMeta } from './meta';
 import { requestJson } from './transport';
 
-const CHILD_ENTITIES: PulledEntity[] = [
-  'waterSource', 'flowMeasurement', 'fallReading', 'point', 'photo', 'demandLine', 'pipeRun',
-];
+const CHILD_ENTITIES: PulledEntity[] = ['waterSource', 'flowMeasurement', 'fallReading', 'point', 'photo', 'demandLine', 'pipeRun'];
 
 type Row = { id: string; deletedAt?: string | null } & Record<string, unknown>;
 

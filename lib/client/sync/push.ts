@@ -33,14 +33,20 @@ export async function applyResults(entries: OutboxEntry[], results: OpResult[]):
 
 /** Ops ready to go now, oldest first (leaving out `skip`: ops this run already deferred). */
 export async function readyOps(limit: number, now = Date.now(), skip: ReadonlySet<number> = new Set()): Promise<OutboxEntry[]> {
-  return fieldDb().outbox.where('status').equals('pending')
-    .filter((e) => e.nextAttemptAt <= now && (e.seq === undefined || !skip.has(e.seq))).limit(limit).sortBy('seq');
+  return fieldDb()
+    .outbox.where('status')
+    .equals('pending')
+    .filter((e) => e.nextAttemptAt <= now && (e.seq === undefined || !skip.has(e.seq)))
+    .limit(limit)
+    .sortBy('seq');
 }
 
 async function postBatch(entries: OutboxEntry[]): Promise<OpResult[]> {
   const body = JSON.stringify({ ops: entries.map((e) => e.op) });
   const { results } = await requestJson<{ results: OpResult[] }>('/api/sync/push', {
-    method: 'POST', headers: { 'content-type': 'application/json' }, body,
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body,
   });
   return results;
 }
@@ -61,7 +67,11 @@ export async function deferEntries(entries: OutboxEntry[], now = Date.now()): Pr
 // one op: the batch is split in halves until that op is alone, so the others are not held up.
 const splits = (error: unknown) => error instanceof SyncHttpError && (error.status === 422 || error.status === 500);
 
-interface SplitOutcome { acknowledged: number; deferred: OutboxEntry[]; failure: unknown }
+interface SplitOutcome {
+  acknowledged: number;
+  deferred: OutboxEntry[];
+  failure: unknown;
+}
 
 /**
  * Pushes everything ready (everything waiting when `force`, e.g. the "Sync now" button); returns how
@@ -102,7 +112,11 @@ async function pushSplitting(entries: OutboxEntry[]): Promise<SplitOutcome> {
         return { acknowledged: first.acknowledged, deferred: entries, failure: first.failure };
       }
       const second = await pushSplitting(entries.slice(middle));
-      return { acknowledged: first.acknowledged + second.acknowledged, deferred: [...first.deferred, ...second.deferred], failure: second.failure ?? first.failure };
+      return {
+        acknowledged: first.acknowledged + second.acknowledged,
+        deferred: [...first.deferred, ...second.deferred],
+        failure: second.failure ?? first.failure,
+      };
     }
     const one = entries[0];
     if (error instanceof SyncHttpError && error.status === 422 && entries.length === 1 && one?.seq !== undefined) {

@@ -39,12 +39,17 @@ scope.addEventListener('message', (event) => {
   const { id } = request;
   switch (request.type) {
     case 'sync':
-      runSync((photoId, sent, total) => scope.postMessage({ id, progress: [photoId, sent, total] }), request.force)
-        .then((outcome) => scope.postMessage({ id, outcome }), failed(id));
+      runSync((photoId, sent, total) => scope.postMessage({ id, progress: [photoId, sent, total] }), request.force).then(
+        (outcome) => scope.postMessage({ id, outcome }),
+        failed(id),
+      );
       break;
     case 'watch': {
       const query = FRAME_QUERIES[request.query] as (db: FieldDatabase) => Promise<unknown>;
-      watches.set(id, watchLocal(query, (value) => scope.postMessage({ id, value }), failed(id)));
+      watches.set(
+        id,
+        watchLocal(query, (value) => scope.postMessage({ id, value }), failed(id)),
+      );
       break;
     }
     case 'unwatch':

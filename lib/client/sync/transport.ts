@@ -2,7 +2,10 @@
 // the session cookie goes along).
 
 export class SyncHttpError extends Error {
-  constructor(readonly status: number, message: string) {
+  constructor(
+    readonly status: number,
+    message: string,
+  ) {
     super(message);
     this.name = 'SyncHttpError';
   }
@@ -25,9 +28,10 @@ export async function requestJson<T>(url: string, init: RequestInit = {}): Promi
   }
   if (!res.ok) {
     // A gateway's page (502/503/504 while the app restarts) says nothing useful to the person.
-    let message = res.status >= 500
-      ? `The server is not answering properly (${res.status}). Everything stays on this phone and goes up on a later try.`
-      : `The server answered ${res.status}.`;
+    let message =
+      res.status >= 500
+        ? `The server is not answering properly (${res.status}). Everything stays on this phone and goes up on a later try.`
+        : `The server answered ${res.status}.`;
     try {
       const body = (await res.json()) as { error?: { message?: string } };
       if (body.error?.message) message = body.error.message;

@@ -20,7 +20,10 @@ export function trustedProxyCount(): number {
 export function clientAddress(headers: Headers, proxies = trustedProxyCount()): string {
   if (proxies === 0) return UNKNOWN_ADDRESS;
   const forwarded = headers?.['x-forwarded-for'];
-  const list = (Array.isArray(forwarded) ? forwarded.join(',') : forwarded ?? '').split(',').map((s) => s.trim()).filter(Boolean);
+  const list = (Array.isArray(forwarded) ? forwarded.join(',') : (forwarded ?? ''))
+    .split(',')
+    .map((s) => s.trim())
+    .filter(Boolean);
   if (list.length < proxies) return UNKNOWN_ADDRESS;
   return list[list.length - proxies]?.slice(0, 64) || UNKNOWN_ADDRESS;
 }

@@ -21,10 +21,14 @@ export function waitAfter(failures: number, free: number): number {
 }
 
 async function failuresSince(where: { email?: string; address?: string }, since: Date) {
-  const [row] = await SignInAttempt.findAll({
-    attributes: [[fn('COUNT', col('id')), 'n'], [fn('MAX', col('created_at')), 'last']],
-    where: { ...where, succeeded: false, createdAt: { [Op.gte]: since } }, raw: true,
-  }) as unknown as { n: number | string; last: Date | string | null }[];
+  const [row] = (await SignInAttempt.findAll({
+    attributes: [
+      [fn('COUNT', col('id')), 'n'],
+      [fn('MAX', col('created_at')), 'last'],
+    ],
+    where: { ...where, succeeded: false, createdAt: { [Op.gte]: since } },
+    raw: true,
+  })) as unknown as { n: number | string; last: Date | string | null }[];
   return { count: Number(row?.n ?? 0), last: row?.last ? new Date(row.last) : null };
 }
 

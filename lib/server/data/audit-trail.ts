@@ -18,7 +18,14 @@ export async function visitAuditTrail(user: SessionUser, visitId: string, limit 
   const visit = await Visit.findOne({ where: { id: visitId }, attributes: ['id', 'organisationId'] });
   if (!visit) throw notFound('visit');
   authorize(user, 'visit:audit', { organisationId: visit.organisationId });
-  const rows = await AuditEntry.findAll({ where: { visitId }, order: [['createdAt', 'DESC'], ['id', 'DESC']], limit });
+  const rows = await AuditEntry.findAll({
+    where: { visitId },
+    order: [
+      ['createdAt', 'DESC'],
+      ['id', 'DESC'],
+    ],
+    limit,
+  });
   const actorIds = [...new Set(rows.map((r) => r.actorId).filter((id): id is string => !!id))];
   const actors = new Map((await User.findAll({ where: { id: actorIds }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]));
   return rows.map((r) => ({

@@ -24,7 +24,10 @@ export async function createFarm(user: SessionUser, input: FarmInput) {
   return getSequelize().transaction(async (transaction) => {
     await checkOwner(user, input.ownerId, transaction);
     const farm = await Farm.create({ id: randomUUID(), organisationId: user.organisationId, ...input, createdById: user.id }, { transaction });
-    await recordAudit({ organisationId: user.organisationId, actorId: user.id, entity: 'farm', entityId: farm.id, action: 'create', changes: plain(farm) }, transaction);
+    await recordAudit(
+      { organisationId: user.organisationId, actorId: user.id, entity: 'farm', entityId: farm.id, action: 'create', changes: plain(farm) },
+      transaction,
+    );
     return plain(farm);
   });
 }
@@ -40,9 +43,16 @@ export async function updateFarm(user: SessionUser, id: string, input: FarmInput
     const before = plain(farm);
     await farm.update(input, { transaction });
     const after = plain(farm);
-    const changed = Object.fromEntries(Object.entries(after).filter(([k, v]) => before[k as keyof typeof before] !== v).map(([k, v]) => [k, { from: before[k as keyof typeof before], to: v }]));
+    const changed = Object.fromEntries(
+      Object.entries(after)
+        .filter(([k, v]) => before[k as keyof typeof before] !== v)
+        .map(([k, v]) => [k, { from: before[k as keyof typeof before], to: v }]),
+    );
     if (Object.keys(changed).length) {
-      await recordAudit({ organisationId: user.organisationId, actorId: user.id, entity: 'farm', entityId: farm.id, action: 'update', changes: changed }, transaction);
+      await recordAudit(
+        { organisationId: user.organisationId, actorId: user.id, entity: 'farm', entityId: farm.id, action: 'update', changes: changed },
+        transaction,
+      );
     }
     return after;
   });

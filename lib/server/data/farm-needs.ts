@@ -7,7 +7,15 @@ import { authorize, type Permission, type SessionUser } from '../auth/permission
 import { recordAudit } from '../audit';
 import { notFound } from '../errors';
 
-export interface DemandLineView { id: string; kind: string; label: string; count: number; litresPerHeadPerDay: number; figureSource: string; rev: number }
+export interface DemandLineView {
+  id: string;
+  kind: string;
+  label: string;
+  count: number;
+  litresPerHeadPerDay: number;
+  figureSource: string;
+  rev: number;
+}
 export interface FarmNeedsView {
   farmId: string;
   farmName: string;
@@ -32,7 +40,13 @@ async function farmOrThrow(user: SessionUser, farmId: string, permission: Permis
 
 async function needsView(farm: Farm): Promise<FarmNeedsView> {
   const [lines, need] = await Promise.all([
-    DemandLine.findAll({ where: { farmId: farm.id, deletedAt: null }, order: [['createdAt', 'ASC'], ['id', 'ASC']] }),
+    DemandLine.findAll({
+      where: { farmId: farm.id, deletedAt: null },
+      order: [
+        ['createdAt', 'ASC'],
+        ['id', 'ASC'],
+      ],
+    }),
     FarmNeed.findByPk(farm.id),
   ]);
   const isPerson = (k: string) => k.startsWith('person');
@@ -44,8 +58,13 @@ async function needsView(farm: Farm): Promise<FarmNeedsView> {
     gardenM2: lines.filter((l) => l.kind === 'garden-m2').reduce((s, l) => s + l.count, 0),
     tankSite: need?.tankSite ?? '',
     lines: lines.map((l) => ({
-      id: l.id, kind: l.kind, label: DEMAND_CATALOGUE[l.kind as DemandKind]?.label ?? l.kind, count: l.count,
-      litresPerHeadPerDay: l.litresPerHeadPerDay, figureSource: l.figureSource, rev: Number(l.rev),
+      id: l.id,
+      kind: l.kind,
+      label: DEMAND_CATALOGUE[l.kind as DemandKind]?.label ?? l.kind,
+      count: l.count,
+      litresPerHeadPerDay: l.litresPerHeadPerDay,
+      figureSource: l.figureSource,
+      rev: Number(l.rev),
     })),
   };
 }
@@ -63,7 +82,14 @@ export async function putFarmNeeds(user: SessionUser, farmId: string, body: Farm
   const farm = await farmOrThrow(user, farmId, 'demand:edit');
   const gardenM2 = Math.round(body.gardenUnit === 'ft2' ? ft2ToM2(body.gardenArea) : body.gardenArea);
   await getSequelize().transaction(async (transaction) => {
-    const lines = await DemandLine.findAll({ where: { farmId, deletedAt: null }, order: [['createdAt', 'ASC'], ['id', 'ASC']], transaction });
+    const lines = await DemandLine.findAll({
+      where: { farmId, deletedAt: null },
+      order: [
+        ['createdAt', 'ASC'],
+        ['id', 'ASC'],
+      ],
+      transaction,
+    });
     const personLine = lines.find((l) => l.kind.startsWith('person'));
     const wanted = new Map<string, number>();
     if (body.people > 0) wanted.set(personLine?.kind ?? HOUSEHOLD_KIND, body.people);
@@ -77,13 +103,33 @@ export async function putFarmNeeds(user: SessionUser, farmId: string, body: Farm
     }
     for (const [kind, count] of wanted) {
       const entry = DEMAND_CATALOGUE[kind as DemandKind];
-      await DemandLine.create({ id: crypto.randomUUID(), farmId, kind, count, litresPerHeadPerDay: entry.litresPerHeadPerDay,
-        figureSource: entry.sourceId, note: "From the farmer's own needs", createdById: user.id }, { transaction });
+      await DemandLine.create(
+        {
+          id: crypto.randomUUID(),
+          farmId,
+          kind,
+          count,
+          litresPerHeadPerDay: entry.litresPerHeadPerDay,
+          figureSource: entry.sourceId,
+          note: "From the farmer's own needs",
+          createdById: user.id,
+        },
+        { transaction },
+      );
     }
     const [need] = await FarmNeed.findOrCreate({ where: { farmId }, defaults: { farmId, tankSite: body.tankSite, updatedById: user.id }, transaction });
     await need.update({ tankSite: body.tankSite, updatedById: user.id }, { transaction });
-    await recordAudit({ organisationId: farm.organisationId, actorId: user.id, entity: 'farm', entityId: farmId, action: 'needs_entered',
-      changes: { people: body.people, animals: body.animals, gardenM2, tankSite: body.tankSite } }, transaction);
+    await recordAudit(
+      {
+        organisationId: farm.organisationId,
+        actorId: user.id,
+        entity: 'farm',
+        entityId: farmId,
+        action: 'needs_entered',
+        changes: { people: body.people, animals: body.animals, gardenM2, tankSite: body.tankSite },
+      },
+      transaction,
+    );
   });
   return needsView(farm);
 }

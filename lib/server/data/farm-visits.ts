@@ -9,7 +9,15 @@ export async function farmVisitSummaries(user: SessionUser, farmId: string): Pro
   const farm = await Farm.findOne({ where: { id: farmId, deletedAt: null }, attributes: ['id', 'organisationId'] });
   if (!farm) throw notFound('farm');
   authorize(user, 'visit:plan', { organisationId: farm.organisationId });
-  const visits = await Visit.findAll({ where: { farmId, deletedAt: null }, attributes: ['id', 'plannedOn', 'createdAt'], order: [['createdAt', 'DESC'], ['id', 'ASC']], limit: 200 });
+  const visits = await Visit.findAll({
+    where: { farmId, deletedAt: null },
+    attributes: ['id', 'plannedOn', 'createdAt'],
+    order: [
+      ['createdAt', 'DESC'],
+      ['id', 'ASC'],
+    ],
+    limit: 200,
+  });
   const ids = visits.sort((a, b) => (b.plannedOn ?? '0000').localeCompare(a.plannedOn ?? '0000')).map((v) => v.id);
   return visitSummaries(user, ids);
 }

@@ -17,7 +17,10 @@ export interface FarmSummary {
 }
 
 export const FARM_SORTS = ['name', 'area', 'added'] as const;
-export interface FarmListFilter { q?: string; sort?: (typeof FARM_SORTS)[number] }
+export interface FarmListFilter {
+  q?: string;
+  sort?: (typeof FARM_SORTS)[number];
+}
 
 const like = (q: string) => `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
@@ -37,10 +40,24 @@ export async function listFarms(user: SessionUser, page: { page: number; pageSiz
   const q = filter.q?.trim();
   if (q) {
     // Name, area or the farmer's name.
-    const owners = await User.findAll({ where: { organisationId: user.organisationId, role: 'farmer', name: { [Op.like]: like(q) } }, attributes: ['id'], raw: true });
-    Object.assign(where, { [Op.or]: [{ name: { [Op.like]: like(q) } }, { area: { [Op.like]: like(q) } }, ...(owners.length ? [{ ownerId: owners.map((o) => o.id) }] : [])] });
+    const owners = await User.findAll({
+      where: { organisationId: user.organisationId, role: 'farmer', name: { [Op.like]: like(q) } },
+      attributes: ['id'],
+      raw: true,
+    });
+    Object.assign(where, {
+      [Op.or]: [{ name: { [Op.like]: like(q) } }, { area: { [Op.like]: like(q) } }, ...(owners.length ? [{ ownerId: owners.map((o) => o.id) }] : [])],
+    });
   }
-  const order: [string, string][] = filter.sort === 'area' ? [['area', 'ASC'], ['name', 'ASC']] : filter.sort === 'added' ? [['createdAt', 'DESC']] : [['name', 'ASC']];
+  const order: [string, string][] =
+    filter.sort === 'area'
+      ? [
+          ['area', 'ASC'],
+          ['name', 'ASC'],
+        ]
+      : filter.sort === 'added'
+        ? [['createdAt', 'DESC']]
+        : [['name', 'ASC']];
   const { rows, count } = await Farm.findAndCountAll({
     where,
     include: [
@@ -54,7 +71,15 @@ export async function listFarms(user: SessionUser, page: { page: number; pageSiz
   });
   const latest = new Map<string, VisitStatus>();
   if (rows.length) {
-    const visits = await Visit.findAll({ where: { farmId: rows.map((f) => f.id), deletedAt: null }, attributes: ['farmId', 'status'], order: [['createdAt', 'DESC'], ['id', 'ASC']], raw: true });
+    const visits = await Visit.findAll({
+      where: { farmId: rows.map((f) => f.id), deletedAt: null },
+      attributes: ['farmId', 'status'],
+      order: [
+        ['createdAt', 'DESC'],
+        ['id', 'ASC'],
+      ],
+      raw: true,
+    });
     for (const v of visits) if (!latest.has(v.farmId)) latest.set(v.farmId, v.status);
   }
   const items: FarmSummary[] = rows.map((farm) => {

@@ -19,12 +19,15 @@ export async function visitCountsByAdvisor(user: SessionUser, today = todayIso()
   const [rows, late, advisors] = await Promise.all([
     Visit.findAll({
       attributes: ['advisorId', 'status', [sequelize.fn('COUNT', sequelize.col('id')), 'n']],
-      where, group: ['advisorId', 'status'], raw: true,
+      where,
+      group: ['advisorId', 'status'],
+      raw: true,
     }) as unknown as Promise<{ advisorId: string | null; status: VisitStatus; n: number }[]>,
     Visit.findAll({
       attributes: ['advisorId', [sequelize.fn('COUNT', sequelize.col('id')), 'n']],
       where: { ...where, status: { [Op.in]: ['requested', 'scheduled'] }, plannedOn: { [Op.lt]: today } },
-      group: ['advisorId'], raw: true,
+      group: ['advisorId'],
+      raw: true,
     }) as unknown as Promise<{ advisorId: string | null; n: number }[]>,
     User.findAll({ where: { organisationId: user.organisationId, role: 'advisor' }, attributes: ['id', 'name', 'active'], order: [['name', 'ASC']] }),
   ]);
@@ -44,8 +47,11 @@ export async function visitCountsByAdvisor(user: SessionUser, today = todayIso()
 export async function districtAreas(user: SessionUser): Promise<string[]> {
   authorize(user, 'visit:plan');
   const rows = await Farm.findAll({
-    attributes: ['area'], where: { organisationId: user.organisationId, deletedAt: null, area: { [Op.ne]: '' } },
-    group: ['area'], order: [['area', 'ASC']], raw: true,
+    attributes: ['area'],
+    where: { organisationId: user.organisationId, deletedAt: null, area: { [Op.ne]: '' } },
+    group: ['area'],
+    order: [['area', 'ASC']],
+    raw: true,
   });
   return rows.map((r) => r.area);
 }

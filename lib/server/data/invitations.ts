@@ -28,20 +28,48 @@ export async function invitePerson(user: SessionUser, input: z.output<typeof inv
     if (person && person.passwordHash && person.active) throw conflict(`${person.name} already has an active account and can sign in.`);
     if (person) await person.update({ name: input.name, role: input.role }, { transaction });
     else {
-      person = await User.create({
-        id: randomUUID(), organisationId: user.organisationId, email: input.email, name: input.name, role: input.role,
-        passwordHash: null, units: null, phone: null, lastSignInAt: null,
-      }, { transaction });
+      person = await User.create(
+        {
+          id: randomUUID(),
+          organisationId: user.organisationId,
+          email: input.email,
+          name: input.name,
+          role: input.role,
+          passwordHash: null,
+          units: null,
+          phone: null,
+          lastSignInAt: null,
+        },
+        { transaction },
+      );
     }
     await supersedePendingInvitations(person.id, now, transaction);
-    const invitation = await Invitation.create({
-      id: randomUUID(), organisationId: user.organisationId, email: input.email, name: input.name, role: input.role,
-      tokenHash: hashToken(token), invitedById: user.id, userId: person.id, expiresAt, usedAt: null,
-    }, { transaction });
-    await recordAudit({
-      organisationId: user.organisationId, actorId: user.id, entity: 'user', entityId: person.id, action: 'invite',
-      changes: { email: input.email, role: input.role, expiresAt: expiresAt.toISOString() },
-    }, transaction);
+    const invitation = await Invitation.create(
+      {
+        id: randomUUID(),
+        organisationId: user.organisationId,
+        email: input.email,
+        name: input.name,
+        role: input.role,
+        tokenHash: hashToken(token),
+        invitedById: user.id,
+        userId: person.id,
+        expiresAt,
+        usedAt: null,
+      },
+      { transaction },
+    );
+    await recordAudit(
+      {
+        organisationId: user.organisationId,
+        actorId: user.id,
+        entity: 'user',
+        entityId: person.id,
+        action: 'invite',
+        changes: { email: input.email, role: input.role, expiresAt: expiresAt.toISOString() },
+      },
+      transaction,
+    );
     const organisation = await Organisation.findByPk(user.organisationId, { transaction, rejectOnEmpty: true });
     return { person, invitation, organisation };
   });
@@ -118,7 +146,17 @@ export async function acceptInvitation(token: string, input: z.output<typeof acc
     if (!person) throw invitationGone('unknown');
     await person.update({ passwordHash, active: true, sessionVersion: person.sessionVersion + 1 }, { transaction });
     await invitation.update({ usedAt: now }, { transaction });
-    await recordAudit({ organisationId: person.organisationId, actorId: person.id, entity: 'user', entityId: person.id, action: 'accept-invitation', changes: { email: person.email } }, transaction);
+    await recordAudit(
+      {
+        organisationId: person.organisationId,
+        actorId: person.id,
+        entity: 'user',
+        entityId: person.id,
+        action: 'accept-invitation',
+        changes: { email: person.email },
+      },
+      transaction,
+    );
     return { email: person.email, role: person.role };
   });
 }
@@ -133,7 +171,11 @@ export async function listInvitations(user: SessionUser, now = new Date()) {
   authorize(user, 'people:read');
   const rows = await Invitation.findAll({ where: { organisationId: user.organisationId }, order: [['createdAt', 'DESC']], limit: 50 });
   return rows.map((i) => ({
-    id: i.id, email: i.email, name: i.name, role: i.role, expiresAt: i.expiresAt.toISOString(),
+    id: i.id,
+    email: i.email,
+    name: i.name,
+    role: i.role,
+    expiresAt: i.expiresAt.toISOString(),
     state: listState(stateOf(i, now)),
   }));
 }

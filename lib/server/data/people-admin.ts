@@ -20,10 +20,17 @@ export async function setPersonActive(user: SessionUser, id: string, active: boo
     if (person.active === active) return { id: person.id, active };
     await person.update({ active, sessionVersion: active ? person.sessionVersion : person.sessionVersion + 1 }, { transaction });
     if (!active) await withdrawPendingInvitations(person.id, new Date(), transaction);
-    await recordAudit({
-      organisationId: user.organisationId, actorId: user.id, entity: 'user', entityId: person.id,
-      action: active ? 'reactivate' : 'deactivate', changes: { email: person.email, role: person.role },
-    }, transaction);
+    await recordAudit(
+      {
+        organisationId: user.organisationId,
+        actorId: user.id,
+        entity: 'user',
+        entityId: person.id,
+        action: active ? 'reactivate' : 'deactivate',
+        changes: { email: person.email, role: person.role },
+      },
+      transaction,
+    );
     return { id: person.id, active };
   });
 }

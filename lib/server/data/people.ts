@@ -8,13 +8,20 @@ export async function listPeople(user: SessionUser, page: { page: number; pageSi
   const { rows, count } = await User.findAndCountAll({
     where: { organisationId: user.organisationId },
     attributes: ['id', 'name', 'email', 'role', 'active', 'lastSignInAt'],
-    order: [['role', 'ASC'], ['name', 'ASC']],
+    order: [
+      ['role', 'ASC'],
+      ['name', 'ASC'],
+    ],
     limit: page.pageSize,
     offset: (page.page - 1) * page.pageSize,
   });
   return {
     items: rows.map((u) => ({
-      id: u.id, name: u.name, email: u.email, role: u.role, active: u.active,
+      id: u.id,
+      name: u.name,
+      email: u.email,
+      role: u.role,
+      active: u.active,
       lastSignInAt: u.lastSignInAt?.toISOString() ?? null,
     })),
     page: page.page,

@@ -70,8 +70,18 @@ export async function storePhotoUpload(user: SessionUser, id: string, req: Reque
       await getSequelize().transaction(async (transaction) => {
         const row = await Photo.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE, rejectOnEmpty: true });
         await row.update({ storageKey: key, uploadedAt, width: image.width, height: image.height, mime: image.mime }, { transaction });
-        await recordAudit({ organisationId: user.organisationId, actorId: user.id, entity: 'photo', entityId: id, visitId: photo.visitId,
-          action: 'uploaded', changes: { bytes: staged.bytes, mime: image.mime, width: image.width, height: image.height } }, transaction);
+        await recordAudit(
+          {
+            organisationId: user.organisationId,
+            actorId: user.id,
+            entity: 'photo',
+            entityId: id,
+            visitId: photo.visitId,
+            action: 'uploaded',
+            changes: { bytes: staged.bytes, mime: image.mime, width: image.width, height: image.height },
+          },
+          transaction,
+        );
       });
       return { id, uploadedAt: uploadedAt.toISOString(), width: image.width, height: image.height, stored: true };
     } catch (error) {
@@ -84,9 +94,7 @@ export async function storePhotoUpload(user: SessionUser, id: string, req: Reque
 }
 
 /** How a stored photo is served: its bytes as a stream, or (S3_SIGNED_URLS) a short-lived URL to the store. */
-export type PhotoDownload =
-  | { kind: 'stream'; body: ReadableStream<Uint8Array>; size: number; contentType: string }
-  | { kind: 'redirect'; url: string };
+export type PhotoDownload = { kind: 'stream'; body: ReadableStream<Uint8Array>; size: number; contentType: string } | { kind: 'redirect'; url: string };
 
 /** A stored photo after the access check: the original (staff: photo:original) or the thumbnail (visit:read). */
 export async function readPhoto(user: SessionUser, id: string, variant: 'original' | 'thumbnail'): Promise<PhotoDownload> {

@@ -9,7 +9,10 @@ export async function endAllSessions(user: SessionUser) {
   await getSequelize().transaction(async (transaction) => {
     const person = await User.findByPk(user.id, { transaction, lock: transaction.LOCK.UPDATE, rejectOnEmpty: true });
     await person.update({ sessionVersion: person.sessionVersion + 1 }, { transaction });
-    await recordAudit({ organisationId: user.organisationId, actorId: user.id, entity: 'user', entityId: user.id, action: 'sign-out-everywhere', changes: null }, transaction);
+    await recordAudit(
+      { organisationId: user.organisationId, actorId: user.id, entity: 'user', entityId: user.id, action: 'sign-out-everywhere', changes: null },
+      transaction,
+    );
   });
   return { ended: true };
 }

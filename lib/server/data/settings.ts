@@ -21,14 +21,20 @@ export async function updateSettings(user: SessionUser, input: z.output<typeof s
   authorize(user, 'organisation:settings');
   const unknown = Object.keys(input.demandFigures).filter((k) => !isDemandKind(k));
   if (unknown.length) {
-    throw invalid(`demandFigures: unknown kinds ${unknown.join(', ')}.`, Object.fromEntries(unknown.map((k) => [`demandFigures.${k}`, ['Not a demand kind the screen knows.']])));
+    throw invalid(
+      `demandFigures: unknown kinds ${unknown.join(', ')}.`,
+      Object.fromEntries(unknown.map((k) => [`demandFigures.${k}`, ['Not a demand kind the screen knows.']])),
+    );
   }
   return getSequelize().transaction(async (transaction) => {
     const org = await Organisation.findByPk(user.organisationId, { transaction, lock: transaction.LOCK.UPDATE, rejectOnEmpty: true });
     const before = { ...defaultOrganisationSettings(), ...org.settings };
     const after = { ...before, ...input };
     await org.update({ settings: after }, { transaction });
-    await recordAudit({ organisationId: user.organisationId, actorId: user.id, entity: 'organisation', entityId: org.id, action: 'settings', changes: { before, after } }, transaction);
+    await recordAudit(
+      { organisationId: user.organisationId, actorId: user.id, entity: 'organisation', entityId: org.id, action: 'settings', changes: { before, after } },
+      transaction,
+    );
     return after;
   });
 }

@@ -33,9 +33,13 @@ async function latestScreeningId(visitId: string): Promise<string> {
 function toView(r: SheetResponse, authors: Map<string, { name: string; role: Role }>, answered: Set<string>): SheetResponseView {
   const author = authors.get(r.authorId);
   return {
-    id: r.id, kind: r.kind, text: r.text, at: r.createdAt.toISOString(),
+    id: r.id,
+    kind: r.kind,
+    text: r.text,
+    at: r.createdAt.toISOString(),
     author: { name: author?.name ?? 'Someone no longer here', role: author?.role ?? null },
-    replyToId: r.replyToId, ...(r.kind === 'question' ? { answered: answered.has(r.id) } : {}),
+    replyToId: r.replyToId,
+    ...(r.kind === 'question' ? { answered: answered.has(r.id) } : {}),
   };
 }
 
@@ -48,7 +52,14 @@ async function authorsOf(rows: SheetResponse[]) {
 /** The sheet's thread, oldest first: the farmer's reading, decisions and questions, and the answers. */
 export async function listSheetResponses(user: SessionUser, visitId: string): Promise<SheetResponseView[]> {
   await getSheetVisitOrThrow(user, visitId, 'sheet:read');
-  const rows = await SheetResponse.findAll({ where: { visitId }, order: [['createdAt', 'ASC'], ['id', 'ASC']], limit: 500 });
+  const rows = await SheetResponse.findAll({
+    where: { visitId },
+    order: [
+      ['createdAt', 'ASC'],
+      ['id', 'ASC'],
+    ],
+    limit: 500,
+  });
   const answered = new Set(rows.filter((r) => r.kind === 'answer' && r.replyToId).map((r) => r.replyToId as string));
   const authors = await authorsOf(rows);
   return rows.map((r) => toView(r, authors, answered));
@@ -63,11 +74,24 @@ export async function acknowledgeSheet(user: SessionUser, visitId: string): Prom
   const row = await getSequelize().transaction(async (transaction) => {
     const earlier = await SheetResponse.findOne({ where: { visitId, authorId: user.id, kind: 'acknowledged' }, transaction });
     if (earlier) return earlier;
-    const created = await SheetResponse.create({ id: crypto.randomUUID(), visitId, screeningId, authorId: user.id, kind: 'acknowledged', text: 'I have read the sheet.', replyToId: null }, { transaction });
+    const created = await SheetResponse.create(
+      { id: crypto.randomUUID(), visitId, screeningId, authorId: user.id, kind: 'acknowledged', text: 'I have read the sheet.', replyToId: null },
+      { transaction },
+    );
     const fresh = await Visit.findByPk(visitId, { transaction, lock: transaction.LOCK.UPDATE, rejectOnEmpty: true });
     if (fresh.status === 'sent') await moveVisit(fresh, 'acknowledged', { by: 'farmer', actorId: user.id, cause: 'farmer read the sheet' }, transaction);
-    await recordAudit({ organisationId: visit.organisationId, actorId: user.id, entity: 'sheet_response', entityId: created.id, visitId,
-      action: 'sheet_acknowledged', changes: { screeningId } }, transaction);
+    await recordAudit(
+      {
+        organisationId: visit.organisationId,
+        actorId: user.id,
+        entity: 'sheet_response',
+        entityId: created.id,
+        visitId,
+        action: 'sheet_acknowledged',
+        changes: { screeningId },
+      },
+      transaction,
+    );
     return created;
   });
   return toView(row, SELF(user), new Set());
@@ -81,9 +105,22 @@ export async function decideOnSheet(user: SessionUser, visitId: string, decision
     const fresh = await Visit.findByPk(visitId, { transaction, lock: transaction.LOCK.UPDATE, rejectOnEmpty: true });
     // Throws the table's 409 when the visit is past deciding (installed, commissioned, cancelled).
     await moveVisit(fresh, decision === 'go-ahead' ? 'agreed' : 'declined', { by: 'farmer', actorId: user.id, cause: 'farmer’s decision' }, transaction);
-    const created = await SheetResponse.create({ id: crypto.randomUUID(), visitId, screeningId, authorId: user.id, kind: decision, text: reason, replyToId: null }, { transaction });
-    await recordAudit({ organisationId: visit.organisationId, actorId: user.id, entity: 'sheet_response', entityId: created.id, visitId,
-      action: decision === 'go-ahead' ? 'sheet_go_ahead' : 'sheet_not_now', changes: { screeningId, reason } }, transaction);
+    const created = await SheetResponse.create(
+      { id: crypto.randomUUID(), visitId, screeningId, authorId: user.id, kind: decision, text: reason, replyToId: null },
+      { transaction },
+    );
+    await recordAudit(
+      {
+        organisationId: visit.organisationId,
+        actorId: user.id,
+        entity: 'sheet_response',
+        entityId: created.id,
+        visitId,
+        action: decision === 'go-ahead' ? 'sheet_go_ahead' : 'sheet_not_now',
+        changes: { screeningId, reason },
+      },
+      transaction,
+    );
     return created;
   });
   return toView(row, SELF(user), new Set());
@@ -105,13 +142,30 @@ export async function askQuestion(user: SessionUser, visitId: string, text: stri
   const visit = await getSheetVisitOrThrow(user, visitId, 'sheet:acknowledge');
   const screeningId = await latestScreeningId(visitId);
   const row = await getSequelize().transaction(async (transaction) => {
-    const created = await SheetResponse.create({ id: crypto.randomUUID(), visitId, screeningId, authorId: user.id, kind: 'question', text, replyToId: null }, { transaction });
-    await recordAudit({ organisationId: visit.organisationId, actorId: user.id, entity: 'sheet_response', entityId: created.id, visitId,
-      action: 'sheet_question', changes: { text } }, transaction);
+    const created = await SheetResponse.create(
+      { id: crypto.randomUUID(), visitId, screeningId, authorId: user.id, kind: 'question', text, replyToId: null },
+      { transaction },
+    );
+    await recordAudit(
+      {
+        organisationId: visit.organisationId,
+        actorId: user.id,
+        entity: 'sheet_response',
+        entityId: created.id,
+        visitId,
+        action: 'sheet_question',
+        changes: { text },
+      },
+      transaction,
+    );
     return created;
   });
   const staff = await User.findAll({
-    where: { organisationId: visit.organisationId, active: true, [Op.or]: [{ role: 'coordinator' }, ...(visit.advisorId ? [{ id: visit.advisorId, role: 'advisor' }] : [])] },
+    where: {
+      organisationId: visit.organisationId,
+      active: true,
+      [Op.or]: [{ role: 'coordinator' }, ...(visit.advisorId ? [{ id: visit.advisorId, role: 'advisor' }] : [])],
+    },
     attributes: ['id', 'name', 'email'],
   });
   const mail = { farmName: visit.Farm?.name ?? '', farmerName: user.name, text, at: row.createdAt, visitId };
@@ -120,19 +174,43 @@ export async function askQuestion(user: SessionUser, visitId: string, text: stri
 }
 
 /** An answer by the assigned advisor or a coordinator to one question; the farmer is e-mailed it. */
-export async function answerQuestion(user: SessionUser, visitId: string, questionId: string, text: string): Promise<SheetResponseView & { farmerTold: boolean }> {
+export async function answerQuestion(
+  user: SessionUser,
+  visitId: string,
+  questionId: string,
+  text: string,
+): Promise<SheetResponseView & { farmerTold: boolean }> {
   const visit = await getSheetVisitOrThrow(user, visitId, 'sheet:answer');
   const question = await SheetResponse.findOne({ where: { id: questionId, visitId, kind: 'question' } });
   if (!question) throw invalid('questionId: Choose a question on this sheet.', { questionId: ['Choose a question on this sheet.'] });
   const row = await getSequelize().transaction(async (transaction) => {
-    const created = await SheetResponse.create({ id: crypto.randomUUID(), visitId, screeningId: question.screeningId, authorId: user.id, kind: 'answer', text, replyToId: question.id }, { transaction });
-    await recordAudit({ organisationId: visit.organisationId, actorId: user.id, entity: 'sheet_response', entityId: created.id, visitId,
-      action: 'sheet_answer', changes: { questionId, text } }, transaction);
+    const created = await SheetResponse.create(
+      { id: crypto.randomUUID(), visitId, screeningId: question.screeningId, authorId: user.id, kind: 'answer', text, replyToId: question.id },
+      { transaction },
+    );
+    await recordAudit(
+      {
+        organisationId: visit.organisationId,
+        actorId: user.id,
+        entity: 'sheet_response',
+        entityId: created.id,
+        visitId,
+        action: 'sheet_answer',
+        changes: { questionId, text },
+      },
+      transaction,
+    );
     return created;
   });
   const farmer = question.authorId ? await User.findOne({ where: { id: question.authorId, active: true }, attributes: ['name', 'email'] }) : null;
-  const farmerTold = farmer ? await mailQuietly('answer notice', () => sendAnswerNotice({ email: farmer.email, name: farmer.name },
-    { farmName: visit.Farm?.name ?? '', question: question.text, answer: text, by: user.name, at: row.createdAt, visitId })) : false;
+  const farmerTold = farmer
+    ? await mailQuietly('answer notice', () =>
+        sendAnswerNotice(
+          { email: farmer.email, name: farmer.name },
+          { farmName: visit.Farm?.name ?? '', question: question.text, answer: text, by: user.name, at: row.createdAt, visitId },
+        ),
+      )
+    : false;
   return { ...toView(row, SELF(user), new Set()), farmerTold };
 }
 
@@ -150,12 +228,26 @@ export async function listOpenQuestions(user: SessionUser, limit = 50): Promise<
       ORDER BY q.created_at ASC, q.id ASC LIMIT ?`,
     { replacements: user.role === 'advisor' ? [user.organisationId, user.id, limit] : [user.organisationId, limit], type: QueryTypes.SELECT },
   );
-  return rows.map((r) => ({ id: r.id, visitId: r.visitId, farmName: r.farmName, farmerName: r.farmerName ?? '', text: r.text, at: new Date(r.at).toISOString() }));
+  return rows.map((r) => ({
+    id: r.id,
+    visitId: r.visitId,
+    farmName: r.farmName,
+    farmerName: r.farmerName ?? '',
+    text: r.text,
+    at: new Date(r.at).toISOString(),
+  }));
 }
 
 /** Every send of the visit's sheet, newest first (advisor and coordinator). */
 export async function listSheetSends(user: SessionUser, visitId: string) {
   await getSheetVisitOrThrow(user, visitId, 'sheet:send');
-  const rows = await SheetSend.findAll({ where: { visitId }, order: [['createdAt', 'DESC'], ['id', 'ASC']], limit: 50 });
+  const rows = await SheetSend.findAll({
+    where: { visitId },
+    order: [
+      ['createdAt', 'DESC'],
+      ['id', 'ASC'],
+    ],
+    limit: 50,
+  });
   return rows.map(sendView);
 }

@@ -43,7 +43,13 @@ export async function loadSheet(user: SessionUser, visitId: string, permission: 
   if (!screening) throw notFound('sheet: this visit has not been screened yet');
   const live = { visitId, deletedAt: null };
   const [points, pipes, demand, organisation] = await Promise.all([
-    Point.findAll({ where: { ...live }, order: [['createdAt', 'ASC'], ['id', 'ASC']] }),
+    Point.findAll({
+      where: { ...live },
+      order: [
+        ['createdAt', 'ASC'],
+        ['id', 'ASC'],
+      ],
+    }),
     PipeRun.findAll({ where: live }),
     DemandLine.findAll({ where: { farmId: visit.farmId, deletedAt: null }, attributes: ['kind'] }),
     Organisation.findByPk(visit.organisationId, { attributes: ['settings'] }),
@@ -63,9 +69,7 @@ export async function loadSheet(user: SessionUser, visitId: string, permission: 
       visitedAt: visit.visitedAt?.toISOString() ?? null,
       screenedAt: screening.createdAt.toISOString(),
       screening: screening.result as EngineScreening,
-      points: points
-        .filter((p) => ['intake', 'pump', 'tank'].includes(p.role))
-        .map((p) => ({ role: p.role, label: p.label, lat: p.lat, lon: p.lon })),
+      points: points.filter((p) => ['intake', 'pump', 'tank'].includes(p.role)).map((p) => ({ role: p.role, label: p.label, lat: p.lat, lon: p.lon })),
       pipeLengthsM: { drive: pipeLength('drive'), delivery: pipeLength('delivery') },
       // The screened demand is what the figures rest on; the farm's lines now may have moved on.
       demandKinds: inputs?.demand?.map((d) => d.kind) ?? demand.map((d) => d.kind),

@@ -8,7 +8,11 @@ import { ENTITY_SPECS, pulledRecord, type SyncedRow } from '../sync/entities';
 
 type ChildEntity = PulledEntity;
 type Kind = ChildEntity | 'farm' | 'visit';
-interface Change { kind: Kind; rev: number; row: SyncedRow }
+interface Change {
+  kind: Kind;
+  rev: number;
+  row: SyncedRow;
+}
 
 const VISIT_CHILDREN = ['waterSource', 'flowMeasurement', 'fallReading', 'point', 'photo', 'pipeRun'] as const;
 
@@ -18,8 +22,13 @@ const VISIT_CHILDREN = ['waterSource', 'flowMeasurement', 'fallReading', 'point'
  */
 function visibleVisits(user: SessionUser, transaction: Transaction): Promise<PlainRow[]> {
   const base = 'organisation_id = ? AND deleted_at IS NULL';
-  if (user.role === 'advisor') return selectRows(getSequelize(), Visit, { where: `${base} AND advisor_id = ? ORDER BY rev`, replacements: [user.organisationId, user.id], transaction });
-  return selectRows(getSequelize(), Visit, { where: `${base} AND status IN ('scheduled', 'surveyed') ORDER BY rev`, replacements: [user.organisationId], transaction });
+  if (user.role === 'advisor')
+    return selectRows(getSequelize(), Visit, { where: `${base} AND advisor_id = ? ORDER BY rev`, replacements: [user.organisationId, user.id], transaction });
+  return selectRows(getSequelize(), Visit, {
+    where: `${base} AND status IN ('scheduled', 'surveyed') ORDER BY rev`,
+    replacements: [user.organisationId],
+    transaction,
+  });
 }
 
 const byRev = (a: Change, b: Change) => a.rev - b.rev;
@@ -50,10 +59,12 @@ async function candidates(cursor: number, limit: number, visible: PlainRow[], tr
   // statements go out together on the one connection (no pool connection per table).
   const sequelize = getSequelize();
   const none = Promise.resolve([] as PlainRow[]);
-  const newer = (model: Parameters<typeof selectRows>[1], key: string, ids: string[]) => (ids.length
-    ? selectRows(sequelize, model, { where: `${key} IN (?) AND rev > ? ORDER BY rev LIMIT ?`, replacements: [ids, cursor, limit + 1], transaction }) : none);
-  const every = (model: Parameters<typeof selectRows>[1], key: string, ids: string[]) => (ids.length
-    ? selectRows(sequelize, model, { where: `${key} IN (?)`, replacements: [ids], transaction }) : none);
+  const newer = (model: Parameters<typeof selectRows>[1], key: string, ids: string[]) =>
+    ids.length
+      ? selectRows(sequelize, model, { where: `${key} IN (?) AND rev > ? ORDER BY rev LIMIT ?`, replacements: [ids, cursor, limit + 1], transaction })
+      : none;
+  const every = (model: Parameters<typeof selectRows>[1], key: string, ids: string[]) =>
+    ids.length ? selectRows(sequelize, model, { where: `${key} IN (?)`, replacements: [ids], transaction }) : none;
   const visitExposure = (row: SyncedRow) => exposedVisit.get(String(row.get('visitId'))) ?? 0;
   const farmExposed = (key: string) => (row: SyncedRow) => farmExposure.get(String(row.get(key))) ?? 0;
   const [farmsNew, farmsAll, demandNew, demandAll, childrenNew, childrenAll] = await Promise.all([
@@ -65,9 +76,14 @@ async function candidates(cursor: number, limit: number, visible: PlainRow[], tr
     Promise.all(VISIT_CHILDREN.map((entity) => every(ENTITY_SPECS[entity].model, 'visit_id', exposedVisits))),
   ]);
   return [
-    ...asChanges('visit', visible.filter((v) => v.rev > cursor)),
-    ...asChanges('farm', farmsNew), ...asChanges('farm', farmsAll, farmExposed('id')),
-    ...asChanges('demandLine', demandNew), ...asChanges('demandLine', demandAll, farmExposed('farmId')),
+    ...asChanges(
+      'visit',
+      visible.filter((v) => v.rev > cursor),
+    ),
+    ...asChanges('farm', farmsNew),
+    ...asChanges('farm', farmsAll, farmExposed('id')),
+    ...asChanges('demandLine', demandNew),
+    ...asChanges('demandLine', demandAll, farmExposed('farmId')),
     ...childrenNew.flatMap((rows, i) => asChanges(VISIT_CHILDREN[i] as ChildEntity, rows)),
     ...childrenAll.flatMap((rows, i) => asChanges(VISIT_CHILDREN[i] as ChildEntity, rows, visitExposure)),
   ].sort(byRev);
@@ -89,9 +105,18 @@ export async function pullChanges(user: SessionUser, { cursor, limit }: { cursor
   const { visible, all, owners, organisation } = await getSequelize().transaction(async (transaction) => {
     const visible = await visibleVisits(user, transaction);
     const all = await candidates(cursor, limit, visible, transaction);
-    const ownerIds = [...new Set(all.filter((c) => c.kind === 'farm').map((c) => c.row.get('ownerId')).filter((id): id is string => typeof id === 'string'))];
+    const ownerIds = [
+      ...new Set(
+        all
+          .filter((c) => c.kind === 'farm')
+          .map((c) => c.row.get('ownerId'))
+          .filter((id): id is string => typeof id === 'string'),
+      ),
+    ];
     const [people, organisation] = await Promise.all([
-      ownerIds.length > 0 ? txConnection(transaction).query<{ id: string; name: string }[]>('SELECT id, name FROM users WHERE id IN (?)', [ownerIds]) : Promise.resolve([]),
+      ownerIds.length > 0
+        ? txConnection(transaction).query<{ id: string; name: string }[]>('SELECT id, name FROM users WHERE id IN (?)', [ownerIds])
+        : Promise.resolve([]),
       Organisation.findByPk(user.organisationId, { rejectOnEmpty: true, transaction }),
     ]);
     return { visible, all, owners: new Map(people.map((u) => [u.id, u.name])), organisation };
@@ -119,12 +144,24 @@ export async function pullChanges(user: SessionUser, { cursor, limit }: { cursor
   for (const { kind, row } of unique) {
     if (kind === 'farm') {
       const farm = (row as PlainRow).values as unknown as Farm;
-      response.farms.push({ id: farm.id, rev: Number(farm.rev), name: farm.name, area: farm.area, lat: farm.lat, lon: farm.lon,
-        notes: farm.notes, ownerName: farm.ownerId ? owners.get(farm.ownerId) ?? null : null });
+      response.farms.push({
+        id: farm.id,
+        rev: Number(farm.rev),
+        name: farm.name,
+        area: farm.area,
+        lat: farm.lat,
+        lon: farm.lon,
+        notes: farm.notes,
+        ownerName: farm.ownerId ? (owners.get(farm.ownerId) ?? null) : null,
+      });
     } else if (kind === 'visit') {
       const visit = (row as PlainRow).values as unknown as Visit;
-      response.visits.push({ ...(pulledRecord(ENTITY_SPECS.visit, row) as PullResponse['visits'][number]),
-        farmId: visit.farmId, plannedOn: visit.plannedOn, advisorId: visit.advisorId });
+      response.visits.push({
+        ...(pulledRecord(ENTITY_SPECS.visit, row) as PullResponse['visits'][number]),
+        farmId: visit.farmId,
+        plannedOn: visit.plannedOn,
+        advisorId: visit.advisorId,
+      });
     } else {
       records[kind].push(pulledRecord(ENTITY_SPECS[kind], row));
     }

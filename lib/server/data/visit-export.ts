@@ -12,8 +12,21 @@ import { visitSummaries } from './visit-summaries';
 import { visitIdsInOrder } from './visits';
 
 // Units in the headers; figures from the latest screening, in litres a day whatever the reader's units.
-const HEADER = ['Farm', 'Area', 'Farmer', 'Advisor', 'Planned (date)', 'State', 'Overdue', 'Verdict', 'Delivery (L/day)', 'Demand (L/day)',
-  'Margin (L/day: delivery minus demand)', 'Last synced (UTC)', 'Visit id'];
+const HEADER = [
+  'Farm',
+  'Area',
+  'Farmer',
+  'Advisor',
+  'Planned (date)',
+  'State',
+  'Overdue',
+  'Verdict',
+  'Delivery (L/day)',
+  'Demand (L/day)',
+  'Margin (L/day: delivery minus demand)',
+  'Last synced (UTC)',
+  'Visit id',
+];
 const CHUNK = 500;
 // Larger exports than this should be narrowed with filters first.
 export const EXPORT_LIMIT = 20_000;
@@ -35,9 +48,21 @@ export async function* visitsCsv(user: SessionUser, filters: VisitFilters): Asyn
     const rows = summaries.map((v) => {
       const f = figures.get(v.id);
       const margin = f?.deliveryLpd != null && f.demandLpd != null ? f.deliveryLpd - f.demandLpd : null;
-      return csvRow([v.farm.name, v.farm.area, v.farmer?.name, v.advisor?.name ?? '', v.plannedOn, v.statusLabel, v.overdue ? 'yes' : 'no',
-        v.verdict ? VERDICT_WORDS[v.verdict] : 'not screened', litres(f?.deliveryLpd), litres(f?.demandLpd), litres(margin),
-        v.lastSyncedAt ? isoMinute(v.lastSyncedAt) : 'never', v.id]);
+      return csvRow([
+        v.farm.name,
+        v.farm.area,
+        v.farmer?.name,
+        v.advisor?.name ?? '',
+        v.plannedOn,
+        v.statusLabel,
+        v.overdue ? 'yes' : 'no',
+        v.verdict ? VERDICT_WORDS[v.verdict] : 'not screened',
+        litres(f?.deliveryLpd),
+        litres(f?.demandLpd),
+        litres(margin),
+        v.lastSyncedAt ? isoMinute(v.lastSyncedAt) : 'never',
+        v.id,
+      ]);
     });
     yield rows.join('');
   }
@@ -55,7 +80,8 @@ async function latestFigures(visitIds: string[]): Promise<Map<string, { delivery
   );
   const out = new Map<string, { deliveryLpd: number | null; demandLpd: number | null }>();
   for (const r of rows) {
-    if (!out.has(r.visitId)) out.set(r.visitId, { deliveryLpd: r.deliveryLpd === null ? null : Number(r.deliveryLpd), demandLpd: r.demandLpd === null ? null : Number(r.demandLpd) });
+    if (!out.has(r.visitId))
+      out.set(r.visitId, { deliveryLpd: r.deliveryLpd === null ? null : Number(r.deliveryLpd), demandLpd: r.demandLpd === null ? null : Number(r.demandLpd) });
   }
   return out;
 }

@@ -31,10 +31,17 @@ export async function moveVisit(visit: Visit, to: VisitStatus, ctx: MoveContext,
   const jump = !canMove(from, to, ctx.by);
   if (jump && !ctx.jumpReason) throw refusedMove(from, to);
   await visit.update({ status: to }, { transaction });
-  await recordAudit({
-    organisationId: visit.organisationId, actorId: ctx.actorId, entity: 'visit', entityId: visit.id, visitId: visit.id,
-    action: jump ? 'status_jump' : 'status',
-    changes: { from, to, ...(ctx.cause ? { cause: ctx.cause } : {}), ...(jump ? { reason: ctx.jumpReason } : {}) },
-  }, transaction);
+  await recordAudit(
+    {
+      organisationId: visit.organisationId,
+      actorId: ctx.actorId,
+      entity: 'visit',
+      entityId: visit.id,
+      visitId: visit.id,
+      action: jump ? 'status_jump' : 'status',
+      changes: { from, to, ...(ctx.cause ? { cause: ctx.cause } : {}), ...(jump ? { reason: ctx.jumpReason } : {}) },
+    },
+    transaction,
+  );
   return true;
 }

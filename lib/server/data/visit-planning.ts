@@ -50,21 +50,48 @@ export async function createVisit(user: SessionUser, input: z.output<typeof visi
     const farm = await Farm.findOne({ where: { id: input.farmId, organisationId: user.organisationId, deletedAt: null }, transaction });
     if (!farm) throw invalid('farmId: Choose a farm of your organisation.', { farmId: ['Choose a farm of your organisation.'] });
     if (!input.confirmDuplicate) {
-      const active = await Visit.findOne({ where: { farmId: farm.id, deletedAt: null, status: [...ACTIVE_STATUSES] }, order: [['createdAt', 'DESC']], transaction });
+      const active = await Visit.findOne({
+        where: { farmId: farm.id, deletedAt: null, status: [...ACTIVE_STATUSES] },
+        order: [['createdAt', 'DESC']],
+        transaction,
+      });
       if (active) {
-        throw new AppError(409, 'duplicate', `${farm.name} already has a visit under way (${VISIT_STATUS_LABELS[active.status]}${active.plannedOn ? `, planned ${formatDay(active.plannedOn)}` : ''}). Plan another one anyway?`);
+        throw new AppError(
+          409,
+          'duplicate',
+          `${farm.name} already has a visit under way (${VISIT_STATUS_LABELS[active.status]}${active.plannedOn ? `, planned ${formatDay(active.plannedOn)}` : ''}). Plan another one anyway?`,
+        );
       }
     }
     const advisor = input.advisorId ? await advisorOrThrow(user, input.advisorId, transaction) : null;
     const status: VisitStatus = advisor && input.plannedOn ? 'scheduled' : 'requested';
-    const visit = await Visit.create({
-      id: randomUUID(), organisationId: user.organisationId, farmId: farm.id, advisorId: advisor?.id ?? null,
-      plannedOn: input.plannedOn ?? null, status, notes: input.notes, visitedAt: null, lastSyncedAt: null, createdById: user.id,
-    }, { transaction });
-    await recordAudit({
-      organisationId: user.organisationId, actorId: user.id, entity: 'visit', entityId: visit.id, visitId: visit.id,
-      action: 'create', changes: { farm: farm.name, advisorId: visit.advisorId, plannedOn: visit.plannedOn, status },
-    }, transaction);
+    const visit = await Visit.create(
+      {
+        id: randomUUID(),
+        organisationId: user.organisationId,
+        farmId: farm.id,
+        advisorId: advisor?.id ?? null,
+        plannedOn: input.plannedOn ?? null,
+        status,
+        notes: input.notes,
+        visitedAt: null,
+        lastSyncedAt: null,
+        createdById: user.id,
+      },
+      { transaction },
+    );
+    await recordAudit(
+      {
+        organisationId: user.organisationId,
+        actorId: user.id,
+        entity: 'visit',
+        entityId: visit.id,
+        visitId: visit.id,
+        action: 'create',
+        changes: { farm: farm.name, advisorId: visit.advisorId, plannedOn: visit.plannedOn, status },
+      },
+      transaction,
+    );
     return { visit, advisor, farm };
   });
   const noticeSent = advisor ? await notify(advisor, [{ farmName: farm.name, area: farm.area, plannedOn: visit.plannedOn }], user) : false;
@@ -76,18 +103,24 @@ async function assignOne(user: SessionUser, visit: Visit & { Farm: Farm }, input
   const before = { advisorId: visit.advisorId, plannedOn: visit.plannedOn, status: visit.status };
   const reassigning = !!visit.advisorId && visit.advisorId !== input.advisorId;
   if (reassigning && !input.confirmUnsynced && mayHoldUnsyncedData({ ...visit.get(), lastSyncedAt: visit.lastSyncedAt }, todayIso())) {
-    throw new AppError(409, 'unsynced',
-      `${visit.Farm.name}: the current advisor may have readings on their phone that have not synced. Reassign anyway?`);
+    throw new AppError(409, 'unsynced', `${visit.Farm.name}: the current advisor may have readings on their phone that have not synced. Reassign anyway?`);
   }
   const status: VisitStatus = visit.status === 'requested' ? 'scheduled' : visit.status;
   await visit.update({ advisorId: input.advisorId, plannedOn: input.plannedOn, status }, { transaction });
   const changed = before.advisorId !== input.advisorId || before.plannedOn !== input.plannedOn;
   if (changed || before.status !== status) {
-    await recordAudit({
-      organisationId: user.organisationId, actorId: user.id, entity: 'visit', entityId: visit.id, visitId: visit.id,
-      action: reassigning ? 'reassign' : before.advisorId ? 'replan' : 'assign',
-      changes: { before, after: { advisorId: input.advisorId, plannedOn: input.plannedOn, status } },
-    }, transaction);
+    await recordAudit(
+      {
+        organisationId: user.organisationId,
+        actorId: user.id,
+        entity: 'visit',
+        entityId: visit.id,
+        visitId: visit.id,
+        action: reassigning ? 'reassign' : before.advisorId ? 'replan' : 'assign',
+        changes: { before, after: { advisorId: input.advisorId, plannedOn: input.plannedOn, status } },
+      },
+      transaction,
+    );
   }
   return before.advisorId !== input.advisorId || before.plannedOn !== input.plannedOn;
 }
@@ -109,7 +142,10 @@ async function notifyPrevious(away: Map<string, AwayVisit[]>, by: SessionUser): 
 
 function noteAway(away: Map<string, AwayVisit[]>, previousAdvisorId: string | null, visit: Visit & { Farm: Farm }, advisor: User) {
   if (!previousAdvisorId || previousAdvisorId === advisor.id) return;
-  away.set(previousAdvisorId, [...(away.get(previousAdvisorId) ?? []), { farmName: visit.Farm.name, area: visit.Farm.area, plannedOn: visit.plannedOn, newAdvisor: advisor.name }]);
+  away.set(previousAdvisorId, [
+    ...(away.get(previousAdvisorId) ?? []),
+    { farmName: visit.Farm.name, area: visit.Farm.area, plannedOn: visit.plannedOn, newAdvisor: advisor.name },
+  ]);
 }
 
 /** Assigns or reassigns one visit with a planned date; the advisor gets one e-mail notice, and a previous advisor is told it left them. */
@@ -136,10 +172,13 @@ export async function bulkAssign(user: SessionUser, input: z.output<typeof bulkA
   const away = new Map<string, AwayVisit[]>();
   const { advisor, assigned } = await getSequelize().transaction(async (transaction) => {
     const advisor = await advisorOrThrow(user, input.advisorId, transaction);
-    const visits = await Visit.findAll({
+    const visits = (await Visit.findAll({
       where: { id: { [Op.in]: ids }, organisationId: user.organisationId, deletedAt: null },
-      include: [{ model: Farm }], order: [['id', 'ASC']], transaction, lock: transaction.LOCK.UPDATE,
-    }) as (Visit & { Farm: Farm })[];
+      include: [{ model: Farm }],
+      order: [['id', 'ASC']],
+      transaction,
+      lock: transaction.LOCK.UPDATE,
+    })) as (Visit & { Farm: Farm })[];
     if (visits.length !== ids.length) throw notFound('visit (one of those ticked is gone or not yours)');
     const assigned: AssignedVisit[] = [];
     for (const visit of visits) {
@@ -173,7 +212,12 @@ export async function jumpVisitStatus(user: SessionUser, id: string, status: Vis
     const visit = await visitForPlanning(user, id, transaction);
     authorize(user, 'visit:jump', { organisationId: visit.organisationId });
     const allowed = canMove(visit.status, status, 'office');
-    await moveVisit(visit, status, { by: 'office', actorId: user.id, jumpReason: allowed ? undefined : reason, cause: allowed ? reason : undefined }, transaction);
+    await moveVisit(
+      visit,
+      status,
+      { by: 'office', actorId: user.id, jumpReason: allowed ? undefined : reason, cause: allowed ? reason : undefined },
+      transaction,
+    );
     return { id: visit.id, status: visit.status };
   });
 }

@@ -10,14 +10,22 @@ export async function listDeletedVisits(user: SessionUser) {
   authorize(user, 'visit:plan');
   const rows = await Visit.findAll({
     where: { organisationId: user.organisationId, deletedAt: { [Op.ne]: null } },
-    include: [{ model: Farm, attributes: ['name'] }, { model: User, as: 'advisor', attributes: ['name'] }],
-    order: [['deletedAt', 'DESC']], limit: 100,
+    include: [
+      { model: Farm, attributes: ['name'] },
+      { model: User, as: 'advisor', attributes: ['name'] },
+    ],
+    order: [['deletedAt', 'DESC']],
+    limit: 100,
   });
   return rows.map((v) => {
     const row = v as Visit & { Farm?: Farm | null; advisor?: User | null };
     return {
-      id: v.id, farmName: row.Farm?.name ?? '', advisorName: row.advisor?.name ?? null, status: v.status,
-      plannedOn: v.plannedOn, deletedAt: (v.deletedAt as Date).toISOString(),
+      id: v.id,
+      farmName: row.Farm?.name ?? '',
+      advisorName: row.advisor?.name ?? null,
+      status: v.status,
+      plannedOn: v.plannedOn,
+      deletedAt: (v.deletedAt as Date).toISOString(),
     };
   });
 }
@@ -35,10 +43,18 @@ export async function restoreVisit(user: SessionUser, id: string) {
     const restored = visit.deletedAt !== null;
     if (restored) {
       await visit.update({ deletedAt: null }, { transaction });
-      await recordAudit({
-        organisationId: user.organisationId, actorId: user.id, entity: 'visit', entityId: visit.id, visitId: visit.id,
-        action: 'restore', changes: { deletedAt: null },
-      }, transaction);
+      await recordAudit(
+        {
+          organisationId: user.organisationId,
+          actorId: user.id,
+          entity: 'visit',
+          entityId: visit.id,
+          visitId: visit.id,
+          action: 'restore',
+          changes: { deletedAt: null },
+        },
+        transaction,
+      );
     }
     return { id: visit.id, status: visit.status, restored, rev: Number(visit.rev) };
   });

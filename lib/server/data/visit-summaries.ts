@@ -60,9 +60,10 @@ export const latestVerdictSql = (visitColumn: string) =>
 
 /** The latest screening's verdict of the visit, or null before its first screening. */
 export async function latestVerdict(visitId: string): Promise<Verdict | null> {
-  const [row] = await getSequelize().query<{ verdict: Verdict | null }>(
-    `SELECT ${latestVerdictSql('?')} AS verdict`, { replacements: [visitId], type: QueryTypes.SELECT },
-  );
+  const [row] = await getSequelize().query<{ verdict: Verdict | null }>(`SELECT ${latestVerdictSql('?')} AS verdict`, {
+    replacements: [visitId],
+    type: QueryTypes.SELECT,
+  });
   return row?.verdict ?? null;
 }
 
@@ -84,8 +85,10 @@ export async function visitSummaries(user: SessionUser, ids: string[], today = t
   // Flat plain rows from one hand-written join: Sequelize's nesting of joined rows and its model
   // instances cost more than the query at export sizes.
   const farmerOnly = user.role === 'farmer';
-  const rows = await getSequelize().query<SummaryRow>(farmerOnly ? `${SUMMARY_SQL} AND f.owner_id = ?` : SUMMARY_SQL,
-    { replacements: farmerOnly ? [user.organisationId, ids, user.id] : [user.organisationId, ids], type: QueryTypes.SELECT });
+  const rows = await getSequelize().query<SummaryRow>(farmerOnly ? `${SUMMARY_SQL} AND f.owner_id = ?` : SUMMARY_SQL, {
+    replacements: farmerOnly ? [user.organisationId, ids, user.id] : [user.organisationId, ids],
+    type: QueryTypes.SELECT,
+  });
   const byId = new Map(rows.map((r) => [r.id, r]));
   return ids.flatMap((id) => {
     const row = byId.get(id);

@@ -59,15 +59,20 @@ function orderOf(filters: Partial<VisitFilters>): Order {
   // The tie-break runs the same way as the sort, so an index on (organisation, column) + the primary key gives the order.
   const tie: [string, string] = ['id', dir];
   switch (filters.sort ?? 'planned') {
-    case 'farm': return [[{ model: Farm, as: 'Farm' }, 'name', dir], tie];
-    case 'advisor': return [[{ model: User, as: 'advisor' }, 'name', dir], tie];
+    case 'farm':
+      return [[{ model: Farm, as: 'Farm' }, 'name', dir], tie];
+    case 'advisor':
+      return [[{ model: User, as: 'advisor' }, 'name', dir], tie];
     case 'status': {
       const list = VISIT_STATUSES.map((s) => `'${s}'`).join(',');
       return [[getSequelize().literal(`FIELD(\`Visit\`.\`status\`, ${list})`), dir], tie];
     }
-    case 'synced': return [['lastSyncedAt', dir], tie];
-    case 'updated': return [['updatedAt', dir], tie];
-    default: return [['plannedOn', dir], tie];
+    case 'synced':
+      return [['lastSyncedAt', dir], tie];
+    case 'updated':
+      return [['updatedAt', dir], tie];
+    default:
+      return [['plannedOn', dir], tie];
   }
 }
 
@@ -86,7 +91,9 @@ function visitQuery(user: SessionUser, query: Partial<VisitFilters>, today: stri
     where: { [Op.and]: [where, ...filters.visit] },
     include: [
       {
-        model: Farm, attributes: withColumns ? ['id', 'name', 'area', 'ownerId'] : [], required: true,
+        model: Farm,
+        attributes: withColumns ? ['id', 'name', 'area', 'ownerId'] : [],
+        required: true,
         where: { [Op.and]: farmConditions },
         include: [{ model: User, as: 'owner', attributes: withColumns ? ['id', 'name'] : [] }],
       },
@@ -124,8 +131,12 @@ function countInclude(include: ReturnType<typeof visitQuery>['include']) {
  * Without a farm filter or a name sort it reads a visits index alone, in order: joined, the optimizer
  * would start from the farms and sort every visit of the organisation to find one page.
  */
-export async function visitIdsInOrder(user: SessionUser, filters: Partial<VisitFilters>, today = todayIso(),
-  page: { limit?: number; offset?: number } = {}): Promise<string[]> {
+export async function visitIdsInOrder(
+  user: SessionUser,
+  filters: Partial<VisitFilters>,
+  today = todayIso(),
+  page: { limit?: number; offset?: number } = {},
+): Promise<string[]> {
   const { filtersJoin, sortsJoin, ...found } = visitQuery(user, filters, today, false);
   const rows = await Visit.findAll({ ...found, ...(filtersJoin || sortsJoin ? {} : { include: [] }), attributes: ['id'], raw: true, ...page });
   return rows.map((r) => r.id);
@@ -137,7 +148,8 @@ export async function getVisitOrThrow(user: SessionUser, id: string, permission:
     where: { id, deletedAt: null },
     include: [
       {
-        model: Farm, attributes: ['id', 'name', 'area', 'ownerId', 'organisationId'],
+        model: Farm,
+        attributes: ['id', 'name', 'area', 'ownerId', 'organisationId'],
         include: [{ model: User, as: 'owner', attributes: ['id', 'name'] }],
       },
       { model: User, as: 'advisor', attributes: ['id', 'name'] },
@@ -150,9 +162,19 @@ export async function getVisitOrThrow(user: SessionUser, id: string, permission:
     ownerId: row.Farm?.ownerId ?? null,
   });
   const flat: SummaryRow = {
-    id: row.id, status: row.status, plannedOn: row.plannedOn, lastSyncedAt: row.lastSyncedAt, updatedAt: row.updatedAt, farmId: row.farmId,
-    farmName: row.Farm?.name ?? '', farmArea: row.Farm?.area ?? '', ownerId: row.Farm?.owner?.id ?? null, ownerName: row.Farm?.owner?.name ?? null,
-    advisorId: row.advisor?.id ?? null, advisorName: row.advisor?.name ?? null, verdict: await latestVerdict(row.id),
+    id: row.id,
+    status: row.status,
+    plannedOn: row.plannedOn,
+    lastSyncedAt: row.lastSyncedAt,
+    updatedAt: row.updatedAt,
+    farmId: row.farmId,
+    farmName: row.Farm?.name ?? '',
+    farmArea: row.Farm?.area ?? '',
+    ownerId: row.Farm?.owner?.id ?? null,
+    ownerName: row.Farm?.owner?.name ?? null,
+    advisorId: row.advisor?.id ?? null,
+    advisorName: row.advisor?.name ?? null,
+    verdict: await latestVerdict(row.id),
   };
   return { ...toSummary(flat, todayIso()), notes: row.notes };
 }

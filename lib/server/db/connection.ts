@@ -12,11 +12,15 @@ type DbEnv = ReturnType<typeof dbEnv>;
 
 /** `host:port, host:port` → Sequelize read targets (port defaults to the writer's). */
 export function parseReadHosts(list: string, defaultPort: number): { host: string; port: number }[] {
-  return list.split(',').map((s) => s.trim()).filter(Boolean).map((entry) => {
-    const match = /^(\[[^\]]+\]|[^:]+)(?::(\d+))?$/.exec(entry);
-    if (!match?.[1]) throw new Error(`DB_READ_HOSTS: cannot read "${entry}" (expected host or host:port)`);
-    return { host: match[1].replace(/^\[|\]$/g, ''), port: match[2] ? Number(match[2]) : defaultPort };
-  });
+  return list
+    .split(',')
+    .map((s) => s.trim())
+    .filter(Boolean)
+    .map((entry) => {
+      const match = /^(\[[^\]]+\]|[^:]+)(?::(\d+))?$/.exec(entry);
+      if (!match?.[1]) throw new Error(`DB_READ_HOSTS: cannot read "${entry}" (expected host or host:port)`);
+      return { host: match[1].replace(/^\[|\]$/g, ''), port: match[2] ? Number(match[2]) : defaultPort };
+    });
 }
 
 /** Replication settings when DB_READ_HOSTS names replicas; none (one server, as always) otherwise. */
@@ -41,7 +45,9 @@ export function createSequelize(overrides: Partial<DbEnv> = {}) {
     // Keep instants in UTC regardless of the server's zone.
     timezone: '+00:00',
     dialectOptions: {
-      bigIntAsNumber: true, decimalAsNumber: true, insertIdAsNumber: true,
+      bigIntAsNumber: true,
+      decimalAsNumber: true,
+      insertIdAsNumber: true,
       // Every transaction reads what others committed before each statement (the sync push relies
       // on it: DEVELOPERS.md, "The push writes in bulk"); set once per connection, not per transaction.
       initSql: 'SET SESSION TRANSACTION ISOLATION LEVEL READ COMMITTED',

@@ -39,9 +39,22 @@ export async function seedDemoProfile(advisorId: string, takenAt: Date, transact
     const floods = c >= 135 && c <= 155;
     const fix = NO_FIX.has(i) ? null : positions[i];
     await Point.create(
-      { id: demoId(`${VISIT}:station:${i}`), visitId, role: 'station', label: floods ? 'gravel bar' : '', lat: fix?.lat ?? null, lon: fix?.lon ?? null,
-        accuracyM: fix ? 3 + (i % 4) : null, altitudeM: null, altitudeAccuracyM: null, chainageM: c, reducedLevelM: levelAt(c),
-        flags: floods ? ['no-pump-site'] : [], capturedAt: takenAt, createdById: advisorId },
+      {
+        id: demoId(`${VISIT}:station:${i}`),
+        visitId,
+        role: 'station',
+        label: floods ? 'gravel bar' : '',
+        lat: fix?.lat ?? null,
+        lon: fix?.lon ?? null,
+        accuracyM: fix ? 3 + (i % 4) : null,
+        altitudeM: null,
+        altitudeAccuracyM: null,
+        chainageM: c,
+        reducedLevelM: levelAt(c),
+        flags: floods ? ['no-pump-site'] : [],
+        capturedAt: takenAt,
+        createdById: advisorId,
+      },
       { transaction },
     );
   }

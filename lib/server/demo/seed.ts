@@ -30,24 +30,49 @@ export async function seedDemo(): Promise<'created' | 'present'> {
     );
     for (const person of DEMO_PEOPLE) {
       await User.create(
-        { id: demoId(person.key), organisationId: orgId, email: person.email, name: person.name, role: person.role,
-          passwordHash, units: person.key === 'user:ines' ? 'us' : 'metric', phone: null, lastSignInAt: null },
+        {
+          id: demoId(person.key),
+          organisationId: orgId,
+          email: person.email,
+          name: person.name,
+          role: person.role,
+          passwordHash,
+          units: person.key === 'user:ines' ? 'us' : 'metric',
+          phone: null,
+          lastSignInAt: null,
+        },
         { transaction },
       );
     }
     for (const farm of DEMO_FARMS) {
       const farmId = demoId(farm.key);
       await Farm.create(
-        { id: farmId, organisationId: orgId, ownerId: demoId(farm.owner), name: farm.name, area: farm.area,
-          lat: farm.lat, lon: farm.lon, notes: farm.notes, createdById: demoId(farm.owner) },
+        {
+          id: farmId,
+          organisationId: orgId,
+          ownerId: demoId(farm.owner),
+          name: farm.name,
+          area: farm.area,
+          lat: farm.lat,
+          lon: farm.lon,
+          notes: farm.notes,
+          createdById: demoId(farm.owner),
+        },
         { transaction },
       );
       for (const [i, line] of farm.demand.entries()) {
         const entry = DEMAND_CATALOGUE[line.kind];
         await DemandLine.create(
-          { id: demoId(`${farm.key}:demand:${i}`), farmId, kind: line.kind, count: line.count,
-            litresPerHeadPerDay: entry.litresPerHeadPerDay, figureSource: entry.sourceId, note: line.note ?? '',
-            createdById: demoId(farm.owner) },
+          {
+            id: demoId(`${farm.key}:demand:${i}`),
+            farmId,
+            kind: line.kind,
+            count: line.count,
+            litresPerHeadPerDay: entry.litresPerHeadPerDay,
+            figureSource: entry.sourceId,
+            note: line.note ?? '',
+            createdById: demoId(farm.owner),
+          },
           { transaction },
         );
       }
@@ -55,12 +80,18 @@ export async function seedDemo(): Promise<'created' | 'present'> {
     const coordinatorId = demoId('user:maren');
     for (const visit of DEMO_VISITS) {
       await Visit.create(
-        { id: demoId(visit.key), organisationId: orgId, farmId: demoId(visit.farm),
+        {
+          id: demoId(visit.key),
+          organisationId: orgId,
+          farmId: demoId(visit.farm),
           advisorId: visit.advisor ? demoId(visit.advisor) : null,
           plannedOn: visit.plannedInDays === null ? null : dayOffset(visit.plannedInDays),
-          status: visit.status, notes: visit.notes, createdById: coordinatorId,
+          status: visit.status,
+          notes: visit.notes,
+          createdById: coordinatorId,
           visitedAt: ['surveyed', 'screened', 'sent'].includes(visit.status) ? new Date(`${dayOffset(visit.plannedInDays ?? 0)}T10:00:00Z`) : null,
-          lastSyncedAt: ['surveyed', 'screened', 'sent'].includes(visit.status) ? new Date() : null },
+          lastSyncedAt: ['surveyed', 'screened', 'sent'].includes(visit.status) ? new Date() : null,
+        },
         { transaction },
       );
     }

@@ -16,7 +16,12 @@ export const UNREAD_AFTER_DAYS = 3;
 /** The most lines one list shows; the rest is counted and linked. */
 const LIST_MAX = 25;
 
-interface Line { visitId: string; advisorId: string | null; farmName: string; text: string }
+interface Line {
+  visitId: string;
+  advisorId: string | null;
+  farmName: string;
+  text: string;
+}
 
 export interface DigestSections {
   overdue: Line[];
@@ -46,39 +51,63 @@ export async function digestSections(organisationId: string, now = new Date()): 
       `SELECT v.id AS visitId, v.advisor_id AS advisorId, f.name AS farmName, DATE_FORMAT(v.planned_on, '%Y-%m-%d') AS plannedOn, a.name AS advisorName
          FROM visits v JOIN farms f ON f.id = v.farm_id LEFT JOIN users a ON a.id = v.advisor_id
         WHERE v.organisation_id = ? AND v.deleted_at IS NULL AND v.status IN ('requested', 'scheduled') AND v.planned_on < ?
-        ORDER BY v.planned_on ASC, f.name ASC`, [organisationId, today]),
+        ORDER BY v.planned_on ASC, f.name ASC`,
+      [organisationId, today],
+    ),
     q<{ visitId: string; advisorId: string | null; farmName: string; farmerName: string | null; text: string; at: Date }>(
       `SELECT v.id AS visitId, v.advisor_id AS advisorId, f.name AS farmName, u.name AS farmerName, r.text, r.created_at AS at
          FROM sheet_responses r JOIN visits v ON v.id = r.visit_id AND v.organisation_id = ? AND v.deleted_at IS NULL
          JOIN farms f ON f.id = v.farm_id LEFT JOIN users u ON u.id = r.author_id
         WHERE r.kind = 'question' AND NOT EXISTS (SELECT 1 FROM sheet_responses a WHERE a.reply_to_id = r.id)
-        ORDER BY r.created_at ASC, r.id ASC`, [organisationId]),
+        ORDER BY r.created_at ASC, r.id ASC`,
+      [organisationId],
+    ),
     q<{ visitId: string; advisorId: string | null; farmName: string; sentAt: Date; toAddress: string }>(
       `SELECT v.id AS visitId, v.advisor_id AS advisorId, f.name AS farmName, s.created_at AS sentAt, s.to_address AS toAddress
          FROM visits v JOIN farms f ON f.id = v.farm_id
          JOIN sheet_sends s ON s.id = (SELECT s2.id FROM sheet_sends s2 WHERE s2.visit_id = v.id AND s2.status = 'sent' ORDER BY s2.created_at DESC, s2.id DESC LIMIT 1)
         WHERE v.organisation_id = ? AND v.deleted_at IS NULL AND v.status = 'sent' AND s.created_at < ?
-        ORDER BY s.created_at ASC, f.name ASC`, [organisationId, unreadBefore]),
+        ORDER BY s.created_at ASC, f.name ASC`,
+      [organisationId, unreadBefore],
+    ),
     q<{ visitId: string; advisorId: string | null; farmName: string; at: Date; toAddress: string }>(
       `SELECT v.id AS visitId, v.advisor_id AS advisorId, f.name AS farmName, s.created_at AS at, s.to_address AS toAddress
          FROM sheet_sends s JOIN visits v ON v.id = s.visit_id AND v.organisation_id = ? AND v.deleted_at IS NULL
          JOIN farms f ON f.id = v.farm_id
         WHERE s.status = 'failed'
           AND s.id = (SELECT s2.id FROM sheet_sends s2 WHERE s2.visit_id = v.id ORDER BY s2.created_at DESC, s2.id DESC LIMIT 1)
-        ORDER BY s.created_at ASC, f.name ASC`, [organisationId]),
+        ORDER BY s.created_at ASC, f.name ASC`,
+      [organisationId],
+    ),
   ]);
   return {
     overdue: overdue.map((r) => {
       const late = daysBetween(r.plannedOn, today);
-      return { visitId: r.visitId, advisorId: r.advisorId, farmName: r.farmName,
-        text: `${r.farmName}: planned for ${formatDay(r.plannedOn)}, ${plural(late, 'day')} ago; ${r.advisorName ? `with ${r.advisorName}` : 'no advisor yet'}` };
+      return {
+        visitId: r.visitId,
+        advisorId: r.advisorId,
+        farmName: r.farmName,
+        text: `${r.farmName}: planned for ${formatDay(r.plannedOn)}, ${plural(late, 'day')} ago; ${r.advisorName ? `with ${r.advisorName}` : 'no advisor yet'}`,
+      };
     }),
-    questions: questions.map((r) => ({ visitId: r.visitId, advisorId: r.advisorId, farmName: r.farmName,
-      text: `${r.farmName}: ${r.farmerName ?? 'the farmer'} asked on ${formatDateTime(r.at)}: “${oneLine(r.text)}”` })),
-    unread: unread.map((r) => ({ visitId: r.visitId, advisorId: r.advisorId, farmName: r.farmName,
-      text: `${r.farmName}: sent to ${r.toAddress} on ${formatDateTime(r.sentAt)}, not read yet` })),
-    failed: failed.map((r) => ({ visitId: r.visitId, advisorId: r.advisorId, farmName: r.farmName,
-      text: `${r.farmName}: the e-mail to ${r.toAddress} on ${formatDateTime(r.at)} failed; send it again from the sheet` })),
+    questions: questions.map((r) => ({
+      visitId: r.visitId,
+      advisorId: r.advisorId,
+      farmName: r.farmName,
+      text: `${r.farmName}: ${r.farmerName ?? 'the farmer'} asked on ${formatDateTime(r.at)}: “${oneLine(r.text)}”`,
+    })),
+    unread: unread.map((r) => ({
+      visitId: r.visitId,
+      advisorId: r.advisorId,
+      farmName: r.farmName,
+      text: `${r.farmName}: sent to ${r.toAddress} on ${formatDateTime(r.sentAt)}, not read yet`,
+    })),
+    failed: failed.map((r) => ({
+      visitId: r.visitId,
+      advisorId: r.advisorId,
+      farmName: r.farmName,
+      text: `${r.farmName}: the e-mail to ${r.toAddress} on ${formatDateTime(r.at)} failed; send it again from the sheet`,
+    })),
   };
 }
 
@@ -114,7 +143,9 @@ export function composeDigest(to: Digest['to'], all: DigestSections, today: stri
     counts.questions && plural(counts.questions, 'open question'),
     counts.unread && plural(counts.unread, 'unread sheet'),
     counts.failed && plural(counts.failed, 'failed send'),
-  ].filter(Boolean).join(', ');
+  ]
+    .filter(Boolean)
+    .join(', ');
   const body: string[] = [
     `Hello ${to.name},`,
     '',
@@ -129,8 +160,11 @@ export function composeDigest(to: Digest['to'], all: DigestSections, today: stri
     for (const line of lines.slice(0, LIST_MAX)) body.push(`- ${line.text}`, `  ${linkFor(to.role, k, line.visitId)}`);
     if (lines.length > LIST_MAX) body.push(`- and ${lines.length - LIST_MAX} more: ${appLink(to.role === 'coordinator' ? '/office/visits' : '/field')}`);
   }
-  body.push('', to.role === 'coordinator' ? `The office: ${appLink('/office')}` : `Your visits: ${appLink('/field')}`,
-    'This e-mail comes each morning when something is waiting; on a quiet day none comes.');
+  body.push(
+    '',
+    to.role === 'coordinator' ? `The office: ${appLink('/office')}` : `Your visits: ${appLink('/field')}`,
+    'This e-mail comes each morning when something is waiting; on a quiet day none comes.',
+  );
   return { to, subject: `Fallbook this morning: ${summary}`, text: body.join('\n'), counts };
 }
 
@@ -138,7 +172,11 @@ export function composeDigest(to: Digest['to'], all: DigestSections, today: stri
 export async function buildDigests(organisationId: string, now = new Date()): Promise<Digest[]> {
   const [sections, people] = await Promise.all([
     digestSections(organisationId, now),
-    User.findAll({ where: { organisationId, active: true, role: ['coordinator', 'advisor'] }, attributes: ['id', 'email', 'name', 'role'], order: [['name', 'ASC']] }),
+    User.findAll({
+      where: { organisationId, active: true, role: ['coordinator', 'advisor'] },
+      attributes: ['id', 'email', 'name', 'role'],
+      order: [['name', 'ASC']],
+    }),
   ]);
   const today = todayIso(now);
   return people.flatMap((p) => {

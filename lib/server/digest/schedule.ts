@@ -4,7 +4,10 @@ import { z } from 'zod';
 import { sendDailyDigests } from './daily-digest';
 
 /** DIGEST_HOUR from .env: the hour (0–23, UTC, the app's one time zone) the digest goes out, or `off`. */
-export const digestHourSchema = z.string().trim().default('6')
+export const digestHourSchema = z
+  .string()
+  .trim()
+  .default('6')
   .refine((v) => v === 'off' || (/^\d{1,2}$/.test(v) && Number(v) <= 23), 'DIGEST_HOUR must be an hour from 0 to 23 (UTC), or off')
   .transform((v) => (v === 'off' ? null : Number(v)));
 

@@ -7,6 +7,11 @@ export function photoResponse(download: PhotoDownload): Response {
     return new Response(null, { status: 302, headers: { location: download.url, 'cache-control': 'private, no-store' } });
   }
   return new Response(download.body, {
-    headers: { 'content-type': download.contentType, 'content-length': String(download.size), 'cache-control': 'private, no-store', 'x-content-type-options': 'nosniff' },
+    headers: {
+      'content-type': download.contentType,
+      'content-length': String(download.size),
+      'cache-control': 'private, no-store',
+      'x-content-type-options': 'nosniff',
+    },
   });
 }

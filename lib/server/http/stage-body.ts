@@ -38,7 +38,10 @@ export const HEAD_BYTES = 16;
  * computed on the way; `checkHead` sees the first bytes as soon as they arrive and may throw to refuse
  * the upload at once. On any refusal or failure the file is deleted before the error is rethrown.
  */
-export async function stageBody(req: Request, options: { dir: string; maxBytes: number; what: string; checkHead?: (head: Buffer) => void }): Promise<StagedBody> {
+export async function stageBody(
+  req: Request,
+  options: { dir: string; maxBytes: number; what: string; checkHead?: (head: Buffer) => void },
+): Promise<StagedBody> {
   const { dir, maxBytes, what, checkHead } = options;
   const tooBig = () => tooLarge(`${what} is larger than ${Math.round(maxBytes / 1024 / 1024)} MB.`);
   const declared = Number(req.headers.get('content-length') ?? NaN);

@@ -111,10 +111,7 @@ function noStore(res: Response): Response {
 }
 
 /** Wraps a route handler: session (401), permission by role (403), same-origin writes, errors → status. */
-export function withAuth<P = Record<string, never>>(
-  permission: Permission,
-  handler: (ctx: AuthedContext<P>) => Promise<Response>,
-) {
+export function withAuth<P = Record<string, never>>(permission: Permission, handler: (ctx: AuthedContext<P>) => Promise<Response>) {
   return async (req: NextRequest, context: RouteContext<P>): Promise<Response> => {
     const run = readsOnWriter(req, permission) ? onWriter : onReplicas;
     return run(async () => {

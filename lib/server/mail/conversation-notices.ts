@@ -3,7 +3,13 @@ import { formatDateTime } from '@/lib/shared/display/dates';
 import { sendMail } from './transport';
 import { appLink } from './notices';
 
-export interface QuestionMail { farmName: string; farmerName: string; text: string; at: Date; visitId: string }
+export interface QuestionMail {
+  farmName: string;
+  farmerName: string;
+  text: string;
+  at: Date;
+  visitId: string;
+}
 
 /** Tells the assigned advisor and the coordinators that a farmer asked a question on a sheet. */
 export async function sendQuestionNotice(to: { email: string; name: string }, q: QuestionMail): Promise<void> {
@@ -24,7 +30,10 @@ export async function sendQuestionNotice(to: { email: string; name: string }, q:
 }
 
 /** Sends the farmer the answer to their question, with the question it answers. */
-export async function sendAnswerNotice(to: { email: string; name: string }, a: { farmName: string; question: string; answer: string; by: string; at: Date; visitId: string }): Promise<void> {
+export async function sendAnswerNotice(
+  to: { email: string; name: string },
+  a: { farmName: string; question: string; answer: string; by: string; at: Date; visitId: string },
+): Promise<void> {
   await sendMail({
     to: to.email,
     subject: `Answer to your question about ${a.farmName}`,

@@ -8,14 +8,18 @@ export function appLink(path: string): string {
   return new URL(path, appEnv().NEXTAUTH_URL).toString();
 }
 
-export interface AssignedVisit { farmName: string; area: string; plannedOn: string | null }
+export interface AssignedVisit {
+  farmName: string;
+  area: string;
+  plannedOn: string | null;
+}
 
 /** Tells an advisor which visits are now theirs; one message however many visits. */
 export async function sendAssignmentNotice(to: { email: string; name: string }, visits: AssignedVisit[], by: string) {
-  const lines = visits.map((v) => `- ${v.farmName} (${v.area || 'no area given'}), ${v.plannedOn ? `planned ${formatDay(v.plannedOn)}` : 'no date yet: it will be agreed with you'}`);
-  const subject = visits.length === 1
-    ? `Site visit for you: ${visits[0]?.farmName ?? ''}`
-    : `${visits.length} site visits for you`;
+  const lines = visits.map(
+    (v) => `- ${v.farmName} (${v.area || 'no area given'}), ${v.plannedOn ? `planned ${formatDay(v.plannedOn)}` : 'no date yet: it will be agreed with you'}`,
+  );
+  const subject = visits.length === 1 ? `Site visit for you: ${visits[0]?.farmName ?? ''}` : `${visits.length} site visits for you`;
   await sendMail({
     to: to.email,
     subject,
@@ -34,7 +38,9 @@ export async function sendAssignmentNotice(to: { email: string; name: string }, 
 
 /** Tells the advisor a visit was theirs that it now goes to someone else; their phone drops it at its next sync. */
 export async function sendReassignedAwayNotice(to: { email: string; name: string }, visits: (AssignedVisit & { newAdvisor: string })[], by: string) {
-  const lines = visits.map((v) => `- ${v.farmName} (${v.area || 'no area given'}): now with ${v.newAdvisor}${v.plannedOn ? `, planned ${formatDay(v.plannedOn)}` : ''}`);
+  const lines = visits.map(
+    (v) => `- ${v.farmName} (${v.area || 'no area given'}): now with ${v.newAdvisor}${v.plannedOn ? `, planned ${formatDay(v.plannedOn)}` : ''}`,
+  );
   await sendMail({
     to: to.email,
     subject: visits.length === 1 ? `Site visit moved to another advisor: ${visits[0]?.farmName ?? ''}` : `${visits.length} site visits moved to other advisors`,

@@ -46,8 +46,15 @@ export async function screenVisit(visitId: string, actorId: string | null, trans
     { transaction },
   );
   await recordAudit(
-    { organisationId: visit.organisationId, actorId, entity: 'screening', entityId: row.id, visitId,
-      action: 'screened', changes: { verdict: result.verdict, engineVersion: result.engineVersion } },
+    {
+      organisationId: visit.organisationId,
+      actorId,
+      entity: 'screening',
+      entityId: row.id,
+      visitId,
+      action: 'screened',
+      changes: { verdict: result.verdict, engineVersion: result.engineVersion },
+    },
     transaction,
   );
   return { status: 'screened', screeningId: row.id, verdict: result.verdict };
@@ -66,6 +73,13 @@ export async function screeningBlockers(visitId: string): Promise<string[]> {
 export async function recordScreeningFailure(visitId: string): Promise<void> {
   const visit = await Visit.findByPk(visitId);
   if (!visit) return;
-  await recordAudit({ organisationId: visit.organisationId, actorId: null, entity: 'screening', entityId: visitId, visitId,
-    action: 'screening-failed', changes: { message: 'The screen could not run on the server. The readings are kept; it runs again on the next sync.' } });
+  await recordAudit({
+    organisationId: visit.organisationId,
+    actorId: null,
+    entity: 'screening',
+    entityId: visitId,
+    visitId,
+    action: 'screening-failed',
+    changes: { message: 'The screen could not run on the server. The readings are kept; it runs again on the next sync.' },
+  });
 }

@@ -26,7 +26,10 @@ export function visitQueue(
   async function drain() {
     await new Promise<void>((resolve) => {
       const timer = setTimeout(resolve, delayMs);
-      startNow = () => { clearTimeout(timer); resolve(); };
+      startNow = () => {
+        clearTimeout(timer);
+        resolve();
+      };
     });
     startNow = null;
     for (let next = due.entries().next(); !next.done; next = due.entries().next()) {
@@ -43,7 +46,10 @@ export function visitQueue(
   return {
     add(visitIds, actorId) {
       for (const id of visitIds) due.set(id, actorId);
-      if (due.size > 0 && !draining) draining = drain().finally(() => { draining = null; });
+      if (due.size > 0 && !draining)
+        draining = drain().finally(() => {
+          draining = null;
+        });
     },
     async flush() {
       while (draining) {

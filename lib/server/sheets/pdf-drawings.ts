@@ -22,7 +22,8 @@ export function drawVerdictMark(doc: Doc, verdict: Verdict, x: number, y: number
   doc.lineWidth(2.5).roundedRect(2, 6, 44, 16, 8).stroke(c);
   doc.lineWidth(2).moveTo(18, 6).lineTo(18, 22).stroke(c).moveTo(30, 6).lineTo(30, 22).stroke(c);
   if (verdict === 'no-go') doc.lineWidth(3.5).lineCap('round').moveTo(4, 26).lineTo(44, 2).stroke(c);
-  else if (verdict === 'gravity') doc.lineWidth(3).lineCap('round').moveTo(6, 14).quadraticCurveTo(12, 8, 18, 14).quadraticCurveTo(24, 20, 30, 14).quadraticCurveTo(36, 8, 42, 14).stroke(c);
+  else if (verdict === 'gravity')
+    doc.lineWidth(3).lineCap('round').moveTo(6, 14).quadraticCurveTo(12, 8, 18, 14).quadraticCurveTo(24, 20, 30, 14).quadraticCurveTo(36, 8, 42, 14).stroke(c);
   else doc.ellipse(verdict === 'go' ? 24 : 36, 14, 5, 4).fill(c);
   doc.restore();
 }
@@ -33,7 +34,10 @@ export function drawVerdictMark(doc: Doc, verdict: Verdict, x: number, y: number
 const runsFor = (text: string, bold: boolean) => fontRuns(text, bold ? 'bold' : 'sans');
 function draw(doc: Doc, svg: string, x: number, y: number, width: number, height: number) {
   SVGtoPDF(doc as unknown as Parameters<typeof SVGtoPDF>[0], svg, x, y, {
-    width, height, assumePt: true, preserveAspectRatio: 'xMinYMin meet',
+    width,
+    height,
+    assumePt: true,
+    preserveAspectRatio: 'xMinYMin meet',
     fontCallback: (family, bold) => (isRegisteredFont(family) ? family : bold ? 'atkinson-700' : 'atkinson-400'),
   });
 }

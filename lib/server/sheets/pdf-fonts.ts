@@ -39,7 +39,9 @@ const CHAINS: Record<Face, string[]> = {
 // What no font in the chain draws is spelled out rather than printed as an empty box.
 const SPELLED: Record<string, string> = { '₂': '2', '₃': '3' };
 
-interface Coverage { hasGlyphForCodePoint(cp: number): boolean }
+interface Coverage {
+  hasGlyphForCodePoint(cp: number): boolean;
+}
 const opened = new Map<string, Coverage>();
 
 function coverage(name: string): Coverage {
@@ -61,7 +63,10 @@ export function registerFonts(doc: Doc): void {
   for (const [name, file] of Object.entries(FILES)) doc.registerFont(name, file);
 }
 
-export interface Run { font: string; text: string }
+export interface Run {
+  font: string;
+  text: string;
+}
 
 /** The text cut into runs, each with the first font of the face's chain that draws all of it. */
 export function fontRuns(text: string, face: Face): Run[] {
@@ -123,7 +128,6 @@ function writeLine(doc: Doc, runs: Run[], at: { x: number; y: number }, options:
 /** The height the text takes at the current size and width (measured in the face's first font). */
 export function heightOf(doc: Doc, face: Face, text: string, options: TextOptions = {}): number {
   const runs = fontRuns(text, face);
-  doc.font(runs.length === 1 ? (runs[0]?.font ?? CHAINS[face][0] ?? '') : CHAINS[face][1] ?? '');
+  doc.font(runs.length === 1 ? (runs[0]?.font ?? CHAINS[face][0] ?? '') : (CHAINS[face][1] ?? ''));
   return doc.heightOfString(text, options);
 }
-

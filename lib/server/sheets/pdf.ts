@@ -22,18 +22,36 @@ function heading(doc: Doc, text: string, next: number) {
   ensureRoom(doc, HEADING_H + next);
   write(doc.moveDown(0.8).fontSize(14).fillColor('#1E3A4C'), 'bold', text, { x: doc.page.margins.left, y: doc.y });
   const y = doc.y + 2;
-  doc.lineWidth(0.8).moveTo(doc.page.margins.left, y).lineTo(doc.page.width - doc.page.margins.right, y).stroke(RULE);
+  doc
+    .lineWidth(0.8)
+    .moveTo(doc.page.margins.left, y)
+    .lineTo(doc.page.width - doc.page.margins.right, y)
+    .stroke(RULE);
   doc.moveDown(0.4);
 }
 
 function body(doc: Doc, text: string, opts: { size?: number; colour?: string; face?: Face } = {}) {
-  write(doc.fontSize(opts.size ?? 11).fillColor(opts.colour ?? INK), opts.face ?? 'sans', text, { x: doc.page.margins.left, y: doc.y }, { lineGap: 2, width: contentWidth(doc) });
+  write(
+    doc.fontSize(opts.size ?? 11).fillColor(opts.colour ?? INK),
+    opts.face ?? 'sans',
+    text,
+    { x: doc.page.margins.left, y: doc.y },
+    { lineGap: 2, width: contentWidth(doc) },
+  );
 }
 
-const bodyHeight = (doc: Doc, text: string, size = 11, face: Face = 'sans') => heightOf(doc.fontSize(size), face, text, { lineGap: 2, width: contentWidth(doc) });
+const bodyHeight = (doc: Doc, text: string, size = 11, face: Face = 'sans') =>
+  heightOf(doc.fontSize(size), face, text, { lineGap: 2, width: contentWidth(doc) });
 
-export interface Column { title: string; share: number; face?: Face }
-export interface Cell { text: string; sub?: string }
+export interface Column {
+  title: string;
+  share: number;
+  face?: Face;
+}
+export interface Cell {
+  text: string;
+  sub?: string;
+}
 
 const CELL_GAP = 8;
 
@@ -51,7 +69,11 @@ function table(doc: Doc, columns: Column[], rows: Cell[][]) {
   const heads = () => {
     const y = doc.y;
     columns.forEach((c, i) => write(doc.fontSize(9).fillColor(STONE), 'bold', c.title, { x: xs[i] ?? x0, y }, { width: widths[i], lineBreak: false }));
-    doc.lineWidth(0.8).moveTo(x0, y + 14).lineTo(x0 + w, y + 14).stroke(STONE);
+    doc
+      .lineWidth(0.8)
+      .moveTo(x0, y + 14)
+      .lineTo(x0 + w, y + 14)
+      .stroke(STONE);
     doc.x = x0;
     doc.y = y + 18;
   };
@@ -68,7 +90,11 @@ function table(doc: Doc, columns: Column[], rows: Cell[][]) {
       write(doc.fontSize(10.5).fillColor(INK), columns[i]?.face ?? 'sans', cell.text, at, { width: widths[i] });
       if (cell.sub) write(doc.fontSize(9).fillColor(STONE), 'sans', cell.sub, { x: at.x, y: doc.y }, { width: widths[i] });
     });
-    doc.lineWidth(0.5).moveTo(x0, y + h - 3).lineTo(x0 + w, y + h - 3).stroke(RULE);
+    doc
+      .lineWidth(0.5)
+      .moveTo(x0, y + h - 3)
+      .lineTo(x0 + w, y + h - 3)
+      .stroke(RULE);
     doc.x = x0;
     doc.y = y + h;
   }
@@ -81,10 +107,18 @@ function tableStart(doc: Doc, columns: Column[], first: Cell[] | undefined): num
   return 18 + Math.max(...first.map((cell, i) => cellHeight(doc, cell, columns[i] ?? { title: '', share: 0 }, (columns[i]?.share ?? 0) * w - CELL_GAP))) + 7;
 }
 
-interface Figure { label: string; value: string; note: string }
+interface Figure {
+  label: string;
+  value: string;
+  note: string;
+}
 
 function figureCellHeight(doc: Doc, f: Figure, width: number): number {
-  return heightOf(doc.fontSize(9), 'sans', f.label, { width }) + heightOf(doc.fontSize(11), 'mono', f.value, { width }) + (f.note ? heightOf(doc.fontSize(8.5), 'sans', f.note, { width }) : 0);
+  return (
+    heightOf(doc.fontSize(9), 'sans', f.label, { width }) +
+    heightOf(doc.fontSize(11), 'mono', f.value, { width }) +
+    (f.note ? heightOf(doc.fontSize(8.5), 'sans', f.note, { width }) : 0)
+  );
 }
 
 const PER_ROW = 3;
@@ -106,7 +140,11 @@ function figureGrid(doc: Doc, figures: Figure[]) {
       write(doc.fontSize(11).fillColor(INK), 'mono', f.value, { x, y: doc.y }, { width: cw });
       if (f.note) write(doc.fontSize(8.5).fillColor(STONE), 'sans', f.note, { x, y: doc.y }, { width: cw });
     });
-    doc.lineWidth(0.5).moveTo(x0, y + h - 4).lineTo(x0 + w, y + h - 4).stroke(RULE);
+    doc
+      .lineWidth(0.5)
+      .moveTo(x0, y + h - 4)
+      .lineTo(x0 + w, y + h - 4)
+      .stroke(RULE);
     doc.x = x0;
     doc.y = y + h;
   }
@@ -180,7 +218,11 @@ export async function renderSheetPdf(v: SheetView, paper: Paper): Promise<Buffer
     doc.x = left;
     doc.y = y + h + 6;
   }
-  const conditionLines = v.conditions.length ? v.conditions.map((c) => `• ${c}`) : v.verdict !== 'no-go' ? ['No extra conditions: follow the cautions below.'] : [];
+  const conditionLines = v.conditions.length
+    ? v.conditions.map((c) => `• ${c}`)
+    : v.verdict !== 'no-go'
+      ? ['No extra conditions: follow the cautions below.']
+      : [];
   const firstLine = conditionLines[0] ?? (v.reasons[0] ? `• ${v.reasons[0]}` : '');
   heading(doc, v.verdict === 'no-go' ? 'Why not' : v.verdict === 'gravity' ? 'What to check' : 'Conditions for a go', bodyHeight(doc, firstLine));
   if (v.conditions.length) list(doc, v.conditions);
@@ -210,7 +252,13 @@ export async function renderSheetPdf(v: SheetView, paper: Paper): Promise<Buffer
       { title: 'Upkeep and fuel', share: 0.17, face: 'mono' },
       { title: 'Ten years', share: 0.17, face: 'mono' },
     ];
-    const tenRows: Cell[][] = v.costs.comparison.map((o) => [{ text: o.option }, { text: o.capital }, { text: o.replacements }, { text: o.running }, { text: o.total }]);
+    const tenRows: Cell[][] = v.costs.comparison.map((o) => [
+      { text: o.option },
+      { text: o.capital },
+      { text: o.replacements },
+      { text: o.running },
+      { text: o.total },
+    ]);
     // Three rows: the whole table stays on one page with its heading.
     const whole = tenRows.reduce((h, row) => h + tableStart(doc, tenColumns, row) - 18, 18);
     heading(doc, 'Ten years: a ram, a solar pump or a petrol pump', whole);
@@ -253,7 +301,13 @@ export async function renderSheetPdf(v: SheetView, paper: Paper): Promise<Buffer
     // Writing below the bottom margin would start a new page: lift the margin for the footer.
     doc.page.margins.bottom = 0;
     const y = doc.page.height - 36;
-    write(doc.fontSize(8).fillColor(STONE), 'sans', `${v.farmName} · ${v.verdictWord} · a first check, not an engineering design · page ${i + 1} of ${pages.count}`, { x: left, y }, { width, align: 'center', lineBreak: false });
+    write(
+      doc.fontSize(8).fillColor(STONE),
+      'sans',
+      `${v.farmName} · ${v.verdictWord} · a first check, not an engineering design · page ${i + 1} of ${pages.count}`,
+      { x: left, y },
+      { width, align: 'center', lineBreak: false },
+    );
   }
   doc.end();
   return done;

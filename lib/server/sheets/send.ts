@@ -44,8 +44,15 @@ function recipient(ctx: SheetContext, body: SendSheetBody): string {
 }
 
 function message(user: SessionUser, ctx: SheetContext, view: SheetView, visitId: string, note: string | undefined) {
-  return sheetEmail({ farmerName: ctx.farmer?.name ?? null, senderName: user.name, farmName: view.farmName, verdictWord: view.verdictWord,
-    summary: view.summary, link: sheetLink(visitId), note });
+  return sheetEmail({
+    farmerName: ctx.farmer?.name ?? null,
+    senderName: user.name,
+    farmName: view.farmName,
+    verdictWord: view.verdictWord,
+    summary: view.summary,
+    link: sheetLink(visitId),
+    note,
+  });
 }
 
 /** The e-mail as it would go out (to, subject, text), in the farmer's units, without sending it. */
@@ -70,8 +77,15 @@ export async function sendSheet(user: SessionUser, visitId: string, body: SendSh
   const view = buildSheetView(ctx.source, units);
   const pdf = await renderSheetPdf(view, paper);
   const row = await SheetSend.create({
-    id: crypto.randomUUID(), visitId, screeningId: ctx.screeningId, sentById: user.id, toAddress: to, paper,
-    status: 'sending', error: null, messageId: null,
+    id: crypto.randomUUID(),
+    visitId,
+    screeningId: ctx.screeningId,
+    sentById: user.id,
+    toAddress: to,
+    paper,
+    status: 'sending',
+    error: null,
+    messageId: null,
   });
   const mail = message(user, ctx, view, visitId, body.note);
   try {
@@ -85,15 +99,28 @@ export async function sendSheet(user: SessionUser, visitId: string, body: SendSh
   } catch (error) {
     // The mail server's own words stay in the log: they can name hosts, accounts and software.
     console.error('[fallbook] sheet not sent', row.id, error);
-    await row.update({ status: 'failed', error: 'The mail server did not take the message. Try again in a few minutes; if it keeps failing, tell whoever runs Fallbook.' });
+    await row.update({
+      status: 'failed',
+      error: 'The mail server did not take the message. Try again in a few minutes; if it keeps failing, tell whoever runs Fallbook.',
+    });
   }
   await getSequelize().transaction(async (transaction) => {
     if (row.status === 'sent') {
       const visit = await Visit.findByPk(visitId, { transaction, rejectOnEmpty: true });
       if (canMove(visit.status, 'sent', 'app')) await moveVisit(visit, 'sent', { by: 'app', actorId: user.id, cause: 'sheet sent' }, transaction);
     }
-    await recordAudit({ organisationId: ctx.visit.organisationId, actorId: user.id, entity: 'sheet_send', entityId: row.id, visitId,
-      action: row.status === 'sent' ? 'sheet_sent' : 'sheet_send_failed', changes: { to, paper, error: row.error } }, transaction);
+    await recordAudit(
+      {
+        organisationId: ctx.visit.organisationId,
+        actorId: user.id,
+        entity: 'sheet_send',
+        entityId: row.id,
+        visitId,
+        action: row.status === 'sent' ? 'sheet_sent' : 'sheet_send_failed',
+        changes: { to, paper, error: row.error },
+      },
+      transaction,
+    );
   });
   return sendView(row);
 }

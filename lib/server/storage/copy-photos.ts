@@ -37,13 +37,19 @@ async function copyKey(source: BlobStorage, target: BlobStorage, key: string, co
  * Resumable: what is already there with the right hash is skipped. `limit` stops after that many photos;
  * `visitIds` copies only those visits' photos (one district first).
  */
-export async function copyPhotos(source: BlobStorage, target: BlobStorage, options: { limit?: number; visitIds?: string[]; onPhoto?: (n: number) => void } = {}): Promise<CopyReport> {
+export async function copyPhotos(
+  source: BlobStorage,
+  target: BlobStorage,
+  options: { limit?: number; visitIds?: string[]; onPhoto?: (n: number) => void } = {},
+): Promise<CopyReport> {
   const report: CopyReport = { photos: 0, copied: 0, present: 0, problems: [] };
   let after = '';
   for (;;) {
     const page = await Photo.findAll({
       where: { storageKey: { [Op.ne]: null }, id: { [Op.gt]: after }, ...(options.visitIds ? { visitId: options.visitIds } : {}) },
-      attributes: ['id', 'storageKey', 'sha256', 'mime'], order: [['id', 'ASC']], limit: 200,
+      attributes: ['id', 'storageKey', 'sha256', 'mime'],
+      order: [['id', 'ASC']],
+      limit: 200,
     });
     for (const photo of page) {
       if (options.limit !== undefined && report.photos >= options.limit) return report;

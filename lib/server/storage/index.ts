@@ -13,9 +13,13 @@ let photoStorage: BlobStorage | undefined;
 export function s3SettingsFromEnv(): S3Settings {
   const env = storageEnv();
   return {
-    endpoint: env.S3_ENDPOINT || undefined, bucket: env.S3_BUCKET, region: env.S3_REGION,
-    accessKeyId: env.S3_ACCESS_KEY_ID || undefined, secretAccessKey: env.S3_SECRET_ACCESS_KEY || undefined,
-    forcePathStyle: env.S3_FORCE_PATH_STYLE, prefix: env.S3_PREFIX,
+    endpoint: env.S3_ENDPOINT || undefined,
+    bucket: env.S3_BUCKET,
+    region: env.S3_REGION,
+    accessKeyId: env.S3_ACCESS_KEY_ID || undefined,
+    secretAccessKey: env.S3_SECRET_ACCESS_KEY || undefined,
+    forcePathStyle: env.S3_FORCE_PATH_STYLE,
+    prefix: env.S3_PREFIX,
     signedUrlSeconds: env.S3_SIGNED_URLS ? env.S3_SIGNED_URL_SECONDS : 0,
   };
 }

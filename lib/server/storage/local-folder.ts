@@ -33,10 +33,12 @@ export function localFolderStorage(root: string): BlobStorage {
     },
     async putFile(key, source) {
       // A hard link costs nothing when the upload was staged on the same disk; otherwise the kernel copies.
-      await place(key, (temp) => link(source, temp).catch((error: NodeJS.ErrnoException) => {
-        if (error.code !== 'EXDEV' && error.code !== 'EPERM') throw error;
-        return copyFile(source, temp);
-      }));
+      await place(key, (temp) =>
+        link(source, temp).catch((error: NodeJS.ErrnoException) => {
+          if (error.code !== 'EXDEV' && error.code !== 'EPERM') throw error;
+          return copyFile(source, temp);
+        }),
+      );
     },
     async get(key) {
       try {

@@ -37,10 +37,15 @@ export function s3Storage(settings: S3Settings, client = s3Client(settings)): Bl
       // One streamed PUT with the length known up front; with the hash given, the store checks the
       // bytes against it (x-amz-checksum-sha256) and the SDK need not read the file a second time.
       const { size } = await stat(file);
-      await client.send(new PutObjectCommand({
-        ...target(key), Body: createReadStream(file), ContentType: contentType, ContentLength: size,
-        ...(sha256 ? { ChecksumSHA256: Buffer.from(sha256, 'hex').toString('base64') } : {}),
-      }));
+      await client.send(
+        new PutObjectCommand({
+          ...target(key),
+          Body: createReadStream(file),
+          ContentType: contentType,
+          ContentLength: size,
+          ...(sha256 ? { ChecksumSHA256: Buffer.from(sha256, 'hex').toString('base64') } : {}),
+        }),
+      );
     },
     async get(key) {
       try {
@@ -77,9 +82,8 @@ export function s3Client(settings: S3Settings): S3Client {
     region: settings.region,
     endpoint: settings.endpoint || undefined,
     forcePathStyle: settings.forcePathStyle,
-    credentials: settings.accessKeyId && settings.secretAccessKey
-      ? { accessKeyId: settings.accessKeyId, secretAccessKey: settings.secretAccessKey }
-      : undefined,
+    credentials:
+      settings.accessKeyId && settings.secretAccessKey ? { accessKeyId: settings.accessKeyId, secretAccessKey: settings.secretAccessKey } : undefined,
     maxAttempts: 3,
   });
 }

@@ -20,7 +20,10 @@ export class SyncAccess {
   private visits = new Map<string, VisitFacts | null>();
   private farmAdvisors = new Map<string, { organisationId: string; ownerId: string | null; advisorIds: string[] } | null>();
 
-  constructor(readonly user: SessionUser, private transaction: Transaction) {}
+  constructor(
+    readonly user: SessionUser,
+    private transaction: Transaction,
+  ) {}
 
   /** The visit's facts, or null when it does not exist (or was deleted). */
   async visit(id: string): Promise<VisitFacts | null> {
@@ -36,10 +39,12 @@ export class SyncAccess {
     const wanted = ids.filter((id) => !this.visits.has(id));
     if (wanted.length === 0) return;
     const rows = await txConnection(this.transaction).query<VisitFacts[]>(
-      'SELECT id, organisation_id AS organisationId, farm_id AS farmId, advisor_id AS advisorId, status FROM visits WHERE id IN (?) AND deleted_at IS NULL', [wanted],
+      'SELECT id, organisation_id AS organisationId, farm_id AS farmId, advisor_id AS advisorId, status FROM visits WHERE id IN (?) AND deleted_at IS NULL',
+      [wanted],
     );
     for (const id of wanted) this.visits.set(id, null);
-    for (const row of rows) this.visits.set(row.id, { id: row.id, organisationId: row.organisationId, farmId: row.farmId, advisorId: row.advisorId, status: row.status });
+    for (const row of rows)
+      this.visits.set(row.id, { id: row.id, organisationId: row.organisationId, farmId: row.farmId, advisorId: row.advisorId, status: row.status });
   }
 
   /** The visit's status as this batch knows it (read at its start, kept current by noteStatus). */
@@ -73,9 +78,10 @@ export class SyncAccess {
       const visits = farm
         ? await Visit.findAll({ attributes: ['advisorId'], where: { farmId, deletedAt: null, advisorId: { [Op.ne]: null } }, transaction: this.transaction })
         : [];
-      this.farmAdvisors.set(farmId, farm
-        ? { organisationId: farm.organisationId, ownerId: farm.ownerId, advisorIds: visits.map((v) => v.advisorId as string) }
-        : null);
+      this.farmAdvisors.set(
+        farmId,
+        farm ? { organisationId: farm.organisationId, ownerId: farm.ownerId, advisorIds: visits.map((v) => v.advisorId as string) } : null,
+      );
     }
     const farm = this.farmAdvisors.get(farmId);
     if (!farm) throw notFound('farm');

@@ -10,8 +10,12 @@ import type { OpEffect } from './apply-op';
 
 type CommissioningOp = Extract<SyncOp, { entity: 'commissioning' }>;
 
-const rejected = (op: SyncOp, code: number, message: string, fieldErrors?: Record<string, string[]>): OpResult =>
-  ({ opId: op.opId, status: 'rejected', rev: null, error: { code, message, ...(fieldErrors ? { fieldErrors } : {}) } });
+const rejected = (op: SyncOp, code: number, message: string, fieldErrors?: Record<string, string[]>): OpResult => ({
+  opId: op.opId,
+  status: 'rejected',
+  rev: null,
+  error: { code, message, ...(fieldErrors ? { fieldErrors } : {}) },
+});
 
 const prefixed = (errors: Record<string, string[]>) => Object.fromEntries(Object.entries(errors).map(([k, v]) => [`changes.${k}`, v]));
 
@@ -45,7 +49,11 @@ export async function applyCommissioningOp(op: CommissioningOp, access: SyncAcce
     }
     return { result: { opId: op.opId, status: 'applied', rev: null }, visitId, farmId: null };
   }
-  const input = commissioningInputSchema.safeParse({ ...readings, ...(fallM === null ? {} : { fallM }), ...(drivePipeMaterial === null ? {} : { drivePipeMaterial }) });
+  const input = commissioningInputSchema.safeParse({
+    ...readings,
+    ...(fallM === null ? {} : { fallM }),
+    ...(drivePipeMaterial === null ? {} : { drivePipeMaterial }),
+  });
   if (!input.success) {
     const errors = zodFieldErrors(input.error);
     const first = Object.values(errors)[0]?.[0] ?? 'These readings cannot be checked.';
@@ -54,7 +62,8 @@ export async function applyCommissioningOp(op: CommissioningOp, access: SyncAcce
   try {
     await commissionVisit(access.user, visitId, input.data, transaction, op.entityId);
   } catch (error) {
-    if (error instanceof AppError) return { ...none, result: rejected(op, error.status, error.message, error.fieldErrors ? prefixed(error.fieldErrors) : undefined) };
+    if (error instanceof AppError)
+      return { ...none, result: rejected(op, error.status, error.message, error.fieldErrors ? prefixed(error.fieldErrors) : undefined) };
     throw error;
   }
   access.noteStatus(visitId, 'commissioned');

@@ -19,18 +19,27 @@ export interface OpEffect {
   farmId: string | null;
 }
 
-const rejected = (op: SyncOp, code: number, message: string, fieldErrors?: Record<string, string[]>): OpResult =>
-  ({ opId: op.opId, status: 'rejected', rev: null, error: { code, message, ...(fieldErrors ? { fieldErrors } : {}) } });
+const rejected = (op: SyncOp, code: number, message: string, fieldErrors?: Record<string, string[]>): OpResult => ({
+  opId: op.opId,
+  status: 'rejected',
+  rev: null,
+  error: { code, message, ...(fieldErrors ? { fieldErrors } : {}) },
+});
 
-const conflicted = (op: SyncOp, spec: EntitySpec, row: SyncedRow, fields: string[]): OpResult =>
-  ({ opId: op.opId, status: 'conflict', rev: Number(row.rev), conflict: { fields, server: pulledRecord(spec, row) } });
+const conflicted = (op: SyncOp, spec: EntitySpec, row: SyncedRow, fields: string[]): OpResult => ({
+  opId: op.opId,
+  status: 'conflict',
+  rev: Number(row.rev),
+  conflict: { fields, server: pulledRecord(spec, row) },
+});
 
 /** A pipe run whose pressure class is not one of its material's: the screen could not use it. */
 function pipeClassRefusal(op: SyncOp, fields: Json): OpResult | null {
   if (op.entity !== 'pipeRun' || fields.pressureClass === null || fields.pressureClass === undefined) return null;
   if (isClassOf(String(fields.material), String(fields.pressureClass))) return null;
-  return rejected(op, 422, 'That pressure class is not one of this pipe material’s. Choose a class from the list.',
-    { 'changes.pressureClass': ['Not a class of this material.'] });
+  return rejected(op, 422, 'That pressure class is not one of this pipe material’s. Choose a class from the list.', {
+    'changes.pressureClass': ['Not a class of this material.'],
+  });
 }
 
 /**
@@ -49,9 +58,9 @@ const statusRank = (status: unknown) => VISIT_STATUSES.indexOf(status as (typeof
 
 /** Fields changed on the server since the phone's copy, that the op would overwrite differently. */
 function conflictingFields(server: Json, changes: Json, base: Json | undefined, skip: string[]): string[] {
-  return Object.keys(changes).filter((field) => !skip.includes(field)
-    && !sameValue(server[field], changes[field])
-    && (!base || !(field in base) || !sameValue(server[field], base[field])));
+  return Object.keys(changes).filter(
+    (field) => !skip.includes(field) && !sameValue(server[field], changes[field]) && (!base || !(field in base) || !sameValue(server[field], base[field])),
+  );
 }
 
 /** The parent (visit or farm) the op belongs to, checked against the caller's access. */
@@ -115,13 +124,27 @@ export async function planOp(op: SyncOp, access: SyncAccess, rows: Map<string, R
   try {
     parent = await checkParent(op, spec, row, access);
   } catch (error) {
-    if (error instanceof AppError) return { result: rejected(op, error.status, error.message, error.fieldErrors), visitId: null, farmId: null, state: null, writes: false, audit: null };
+    if (error instanceof AppError)
+      return { result: rejected(op, error.status, error.message, error.fieldErrors), visitId: null, farmId: null, state: null, writes: false, audit: null };
     throw error;
   }
   const done = (result: OpResult, target: RowState | null = null, action: string | null = null, changes: Json | null = null): OpPlan => ({
-    result, ...parent, state: target, writes: action !== null,
-    audit: action === null ? null : { organisationId: access.user.organisationId, actorId: access.user.id, entity: op.entity,
-      entityId: op.entityId, visitId: parent.visitId, action, changes },
+    result,
+    ...parent,
+    state: target,
+    writes: action !== null,
+    audit:
+      action === null
+        ? null
+        : {
+            organisationId: access.user.organisationId,
+            actorId: access.user.id,
+            entity: op.entity,
+            entityId: op.entityId,
+            visitId: parent.visitId,
+            action,
+            changes,
+          },
   });
   const applied = (): OpResult => ({ opId: op.opId, status: 'applied', rev: null });
 
@@ -181,8 +204,11 @@ export async function planOp(op: SyncOp, access: SyncAccess, rows: Map<string, R
     }
   }
   if (op.entity === 'photo' && row.get('uploadedAt') && (['sha256', 'bytes'] as const).some((f) => !sameValue(server[f], merged[f]))) {
-    return done(rejected(op, 422, 'This photo is already uploaded; its bytes cannot change. Add it as a new photo.',
-      { 'changes.sha256': ['Cannot change after upload.'] }));
+    return done(
+      rejected(op, 422, 'This photo is already uploaded; its bytes cannot change. Add it as a new photo.', {
+        'changes.sha256': ['Cannot change after upload.'],
+      }),
+    );
   }
   const classRefusal = pipeClassRefusal(op, merged) ?? recordRefusal(op, merged);
   if (classRefusal) return done(classRefusal);

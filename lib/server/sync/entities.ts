@@ -1,8 +1,6 @@
 import 'server-only';
 import type { Model, ModelStatic } from 'sequelize';
-import {
-  Commissioning, DemandLine, FallReading, FlowMeasurement, Photo, PipeRun, Point, Visit, WaterSource,
-} from '@/lib/server/db';
+import { Commissioning, DemandLine, FallReading, FlowMeasurement, Photo, PipeRun, Point, Visit, WaterSource } from '@/lib/server/db';
 import { canonicalJson } from '@/lib/shared/canonical-json';
 import type { SyncEntity } from '@/lib/shared/schemas/sync';
 
@@ -59,7 +57,10 @@ const flowMeasurement: EntitySpec = {
   },
   toFields(row) {
     return {
-      visitId: row.get('visitId'), sourceId: row.get('sourceId'), takenAt: iso(row.get('takenAt')), notes: row.get('notes'),
+      visitId: row.get('visitId'),
+      sourceId: row.get('sourceId'),
+      takenAt: iso(row.get('takenAt')),
+      notes: row.get('notes'),
       measurement: { method: row.get('method'), season: row.get('season'), ...asObject(row.get('readings')) },
     };
   },
@@ -94,8 +95,13 @@ const fallReading: EntitySpec = {
       run = { method, ...bookings };
     }
     return {
-      visitId: row.get('visitId'), purpose: row.get('purpose'), seq: row.get('seq'), takenAt: iso(row.get('takenAt')),
-      notes: row.get('notes'), bookedFrom, run,
+      visitId: row.get('visitId'),
+      purpose: row.get('purpose'),
+      seq: row.get('seq'),
+      takenAt: iso(row.get('takenAt')),
+      notes: row.get('notes'),
+      bookedFrom,
+      run,
     };
   },
 };
@@ -105,10 +111,13 @@ export const ENTITY_SPECS: Record<SyncEntity, EntitySpec> = {
   waterSource: plain(WaterSource, 'visitId', ['visitId', 'name', 'kind', 'notes']),
   flowMeasurement,
   fallReading,
-  point: plain(Point, 'visitId',
-    ['visitId', 'role', 'label', 'lat', 'lon', 'accuracyM', 'altitudeM', 'altitudeAccuracyM', 'chainageM', 'capturedAt', 'reducedLevelM', 'flags'], ['capturedAt']),
-  photo: plain(Photo, 'visitId',
-    ['visitId', 'pointId', 'caption', 'mime', 'bytes', 'sha256', 'width', 'height', 'lat', 'lon', 'takenAt'], ['takenAt']),
+  point: plain(
+    Point,
+    'visitId',
+    ['visitId', 'role', 'label', 'lat', 'lon', 'accuracyM', 'altitudeM', 'altitudeAccuracyM', 'chainageM', 'capturedAt', 'reducedLevelM', 'flags'],
+    ['capturedAt'],
+  ),
+  photo: plain(Photo, 'visitId', ['visitId', 'pointId', 'caption', 'mime', 'bytes', 'sha256', 'width', 'height', 'lat', 'lon', 'takenAt'], ['takenAt']),
   demandLine: plain(DemandLine, 'farmId', ['farmId', 'kind', 'count', 'litresPerHeadPerDay', 'figureSource', 'note', 'confirmed']),
   pipeRun: plain(PipeRun, 'visitId', ['visitId', 'purpose', 'lengthM', 'diameterMm', 'material', 'pressureClass']),
   // Push-only and create-only: applied by applyCommissioningOp, never pulled.

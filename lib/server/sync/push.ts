@@ -39,11 +39,13 @@ const noEffect = (result: OpResult): OpEffect => ({ result, visitId: null, farmI
 async function knownOps(ops: SyncOp[], user: SessionUser, transaction: Transaction) {
   const ids = [...new Set(ops.map((op) => op.opId))];
   const rows = await txConnection(transaction).query<{ op_id: string; user_id: string; outcome: unknown }[]>(
-    'SELECT op_id, user_id, outcome FROM sync_ops WHERE op_id IN (?)', [ids],
+    'SELECT op_id, user_id, outcome FROM sync_ops WHERE op_id IN (?)',
+    [ids],
   );
   const stored = new Map<string, OpResult>();
   for (const row of rows) {
-    if (row.user_id !== user.id) stored.set(row.op_id, { opId: row.op_id, status: 'rejected', rev: null, error: { code: 409, message: 'This op id was already used.' } });
+    if (row.user_id !== user.id)
+      stored.set(row.op_id, { opId: row.op_id, status: 'rejected', rev: null, error: { code: 409, message: 'This op id was already used.' } });
     else stored.set(row.op_id, replayOf(row.op_id, typeof row.outcome === 'string' ? JSON.parse(row.outcome) : row.outcome));
   }
   return { fresh: new Set(ids.filter((id) => !stored.has(id))), stored };
@@ -58,17 +60,17 @@ async function loadRows(ops: SyncOp[], transaction: Transaction): Promise<Map<st
   const byEntity = new Map<SyncEntity, Set<string>>();
   // Commissioning checks are create-only records applied on their own (runCommissioning), not planned rows.
   for (const op of ops) if (op.entity !== 'commissioning') byEntity.set(op.entity, (byEntity.get(op.entity) ?? new Set()).add(op.entityId));
-  const tables = [...byEntity].sort(([a], [b]) => (a < b ? -1 : 1)).map(([entity, ids]) => {
-    const spec = ENTITY_SPECS[entity];
-    const found = selectRows(getSequelize(), spec.model, { where: 'id IN (?)', replacements: [[...ids].sort()], transaction, lock: true });
-    return { entity, spec, found };
-  });
+  const tables = [...byEntity]
+    .sort(([a], [b]) => (a < b ? -1 : 1))
+    .map(([entity, ids]) => {
+      const spec = ENTITY_SPECS[entity];
+      const found = selectRows(getSequelize(), spec.model, { where: 'id IN (?)', replacements: [[...ids].sort()], transaction, lock: true });
+      return { entity, spec, found };
+    });
   const rows = new Map<string, RowState>();
   for (const { entity, spec, found } of tables) {
     for (const plain of await found) {
-      const row: SyncedRow = entity === 'visit'
-        ? Visit.build(plain.values as never, { isNewRecord: false, raw: true }) as unknown as SyncedRow
-        : plain;
+      const row: SyncedRow = entity === 'visit' ? (Visit.build(plain.values as never, { isNewRecord: false, raw: true }) as unknown as SyncedRow) : plain;
       rows.set(`${entity}:${row.id}`, { spec, row, isNew: false, touched: new Set(), dirty: false });
     }
   }
@@ -116,13 +118,21 @@ async function writePlans(plans: OpPlan[], ops: SyncOp[], fresh: Set<string>, us
   });
   const createdAt = new Date();
   // Sent together on the transaction's connection: the database works through them back to back.
-  await Promise.all([...writes, batchInsert(SyncOpRow, [...outcomes.values()].map(([op, outcome]) => (
-    { opId: op.opId, userId, entity: op.entity, entityId: op.entityId, outcome, createdAt })), transaction)]);
+  await Promise.all([
+    ...writes,
+    batchInsert(
+      SyncOpRow,
+      [...outcomes.values()].map(([op, outcome]) => ({ opId: op.opId, userId, entity: op.entity, entityId: op.entityId, outcome, createdAt })),
+      transaction,
+    ),
+  ]);
 }
 
 // Thrown inside a commissioning op's savepoint so a refusal changes nothing.
 class Undo extends Error {
-  constructor(readonly effect: OpEffect) { super('undo'); }
+  constructor(readonly effect: OpEffect) {
+    super('undo');
+  }
 }
 
 /**
@@ -146,14 +156,28 @@ async function runCommissioning(op: Extract<SyncOp, { entity: 'commissioning' }>
 }
 
 /** Plans every op in order against the batch's rows; a repeated op id replays its earlier applied outcome. */
-async function planBatch(ops: SyncOp[], access: SyncAccess, fresh: Set<string>, stored: Map<string, OpResult>, rows: Map<string, RowState>, transaction: Transaction) {
+async function planBatch(
+  ops: SyncOp[],
+  access: SyncAccess,
+  fresh: Set<string>,
+  stored: Map<string, OpResult>,
+  rows: Map<string, RowState>,
+  transaction: Transaction,
+) {
   const plans: OpPlan[] = [];
   const appliedAt = new Map<string, OpPlan>();
   for (const op of ops) {
     const earlier = appliedAt.get(op.opId);
     const known = stored.get(op.opId);
-    if (earlier) plans.push({ ...noEffect({ opId: op.opId, status: 'replayed', rev: null }), state: earlier.state, writes: false, audit: null, replayOf: earlier });
-    else if (known || !fresh.has(op.opId)) plans.push({ ...noEffect(known ?? { opId: op.opId, status: 'rejected', rev: null, error: { code: 409, message: 'This op id was already used.' } }), state: null, writes: false, audit: null });
+    if (earlier)
+      plans.push({ ...noEffect({ opId: op.opId, status: 'replayed', rev: null }), state: earlier.state, writes: false, audit: null, replayOf: earlier });
+    else if (known || !fresh.has(op.opId))
+      plans.push({
+        ...noEffect(known ?? { opId: op.opId, status: 'rejected', rev: null, error: { code: 409, message: 'This op id was already used.' } }),
+        state: null,
+        writes: false,
+        audit: null,
+      });
     else {
       const plan = op.entity === 'commissioning' ? await runCommissioning(op, access, transaction) : await planOp(op, access, rows);
       if (plan.result.status === 'applied') appliedAt.set(op.opId, plan);
@@ -170,7 +194,9 @@ async function visitsToScreen(effects: OpEffect[], transaction: Transaction): Pr
   const farmIds = [...new Set(applied.map((e) => e.farmId).filter((id): id is string => !!id))];
   if (farmIds.length > 0) {
     const onFarms = await Visit.findAll({
-      attributes: ['id'], where: { farmId: { [Op.in]: farmIds }, deletedAt: null, status: { [Op.in]: ['surveyed', 'screened'] } }, transaction,
+      attributes: ['id'],
+      where: { farmId: { [Op.in]: farmIds }, deletedAt: null, status: { [Op.in]: ['surveyed', 'screened'] } },
+      transaction,
     });
     for (const v of onFarms) ids.add(v.id);
   }
@@ -199,16 +225,28 @@ async function markSurveyed(visitIds: string[], access: SyncAccess, transaction:
     if (visit?.status !== 'scheduled') continue;
     await visit.update({ status: 'surveyed' }, { transaction });
     access.noteStatus(id, 'surveyed');
-    await recordAudit({ organisationId: visit.organisationId, actorId: access.user.id, entity: 'visit', entityId: id, visitId: id,
-      action: 'status', changes: { from: 'scheduled', to: 'surveyed', reason: 'readings synced' } }, transaction);
+    await recordAudit(
+      {
+        organisationId: visit.organisationId,
+        actorId: access.user.id,
+        entity: 'visit',
+        entityId: id,
+        visitId: id,
+        action: 'status',
+        changes: { from: 'scheduled', to: 'surveyed', reason: 'readings synced' },
+      },
+      transaction,
+    );
   }
 }
 
 // A duplicate key is a concurrent push that committed the same op (or created the same record) first:
 // the retry sees its stored outcome (or its row) and answers as a replay (or a conflict).
 // (The bulk writer goes through the connector itself, whose duplicate key is errno 1062.)
-const isRetryable = (error: unknown) => error instanceof UniqueConstraintError || (error as { errno?: number })?.errno === 1062
-  || /deadlock|lock wait timeout/i.test(String((error as Error)?.message ?? ''));
+const isRetryable = (error: unknown) =>
+  error instanceof UniqueConstraintError ||
+  (error as { errno?: number })?.errno === 1062 ||
+  /deadlock|lock wait timeout/i.test(String((error as Error)?.message ?? ''));
 
 /**
  * Applies a push batch in order, set-based, in one transaction (read committed, so it sees what
@@ -222,30 +260,36 @@ export async function pushOps(user: SessionUser, ops: SyncOp[]): Promise<OpResul
   for (let attempt = 1; ; attempt++) {
     try {
       // Read committed: every connection's default (lib/server/db/connection.ts), so no statement here.
-      const { effects, screen } = await sequelize.transaction(
-        async (transaction) => {
-          const access = new SyncAccess(user, transaction);
-          // Sent at once, in this order: rows first, then the stored op ids, so a push of the same ops
-          // that commits in between is seen in sync_ops (its rows and outcomes commit together) and is
-          // never mistaken for a conflict; then the visits the ops name, for the access checks.
-          const [rows, { fresh, stored }] = await Promise.all([
-            loadRows(ops, transaction), knownOps(ops, user, transaction), access.preloadVisits(namedVisits(ops)),
-          ]);
-          const plans = await planBatch(ops, access, fresh, stored, rows, transaction);
-          // Everything that needs no revision goes out first, so the database has done it before it
-          // takes the counter's lock for the writes (statements run in the order sent); awaited with them.
-          const { touched, booked } = touchVisits(plans, ops, access, transaction);
-          const unlocked = Promise.all([touched, recordAudits(plans.flatMap((p) => (p.result.status === 'applied' && p.audit ? [p.audit] : [])), transaction)]);
-          unlocked.catch(() => undefined); // its failure is thrown below, not reported as unhandled
-          const screen = await visitsToScreen(plans, transaction);
-          await writePlans(plans, ops, fresh, user.id, transaction);
-          await unlocked;
-          await markSurveyed(booked, access, transaction);
-          for (const plan of plans) if (plan.replayOf) plan.result = replayOf(plan.result.opId, plan.replayOf.result);
-          const effects: OpEffect[] = plans.map(({ result, visitId, farmId }) => ({ result, visitId, farmId }));
-          return { effects, screen };
-        },
-      );
+      const { effects, screen } = await sequelize.transaction(async (transaction) => {
+        const access = new SyncAccess(user, transaction);
+        // Sent at once, in this order: rows first, then the stored op ids, so a push of the same ops
+        // that commits in between is seen in sync_ops (its rows and outcomes commit together) and is
+        // never mistaken for a conflict; then the visits the ops name, for the access checks.
+        const [rows, { fresh, stored }] = await Promise.all([
+          loadRows(ops, transaction),
+          knownOps(ops, user, transaction),
+          access.preloadVisits(namedVisits(ops)),
+        ]);
+        const plans = await planBatch(ops, access, fresh, stored, rows, transaction);
+        // Everything that needs no revision goes out first, so the database has done it before it
+        // takes the counter's lock for the writes (statements run in the order sent); awaited with them.
+        const { touched, booked } = touchVisits(plans, ops, access, transaction);
+        const unlocked = Promise.all([
+          touched,
+          recordAudits(
+            plans.flatMap((p) => (p.result.status === 'applied' && p.audit ? [p.audit] : [])),
+            transaction,
+          ),
+        ]);
+        unlocked.catch(() => undefined); // its failure is thrown below, not reported as unhandled
+        const screen = await visitsToScreen(plans, transaction);
+        await writePlans(plans, ops, fresh, user.id, transaction);
+        await unlocked;
+        await markSurveyed(booked, access, transaction);
+        for (const plan of plans) if (plan.replayOf) plan.result = replayOf(plan.result.opId, plan.replayOf.result);
+        const effects: OpEffect[] = plans.map(({ result, visitId, farmId }) => ({ result, visitId, farmId }));
+        return { effects, screen };
+      });
       screenSoon(screen, user.id);
       return effects.map((e) => e.result);
     } catch (error) {

@@ -2,7 +2,12 @@
 import type { BillOfMaterialsLine } from '@/lib/engine/screening-types';
 import type { PriceList } from './price-list';
 
-export interface PipePrice { material: string; diameterMm: number; pricePerM: number; currency: string }
+export interface PipePrice {
+  material: string;
+  diameterMm: number;
+  pricePerM: number;
+  currency: string;
+}
 
 export type PriceBasis =
   | { kind: 'pipe-list'; perM: number; diameterMm: number }
@@ -13,7 +18,12 @@ export type PriceBasis =
   | { kind: 'with-ram' }
   | { kind: 'not-priced' };
 
-export interface PricedLine { line: BillOfMaterialsLine; unitPrice: number | null; total: number; basis: PriceBasis }
+export interface PricedLine {
+  line: BillOfMaterialsLine;
+  unitPrice: number | null;
+  total: number;
+  basis: PriceBasis;
+}
 
 export interface PricedBill {
   currency: string;
@@ -31,9 +41,12 @@ const isSteel = (material: string) => /steel|iron|galv/i.test(material);
 /** A pipe price row for this material and bore in the list's currency: same material word, bore within 10 %. */
 function listedPipePrice(prices: readonly PipePrice[], currency: string, material: string, boreMm: number): PipePrice | null {
   const word = material.toLowerCase().split(/[\s-]/)[0] ?? '';
-  const matches = prices.filter((p) => p.currency.trim().toUpperCase() === currency
-    && (p.material.toLowerCase().includes(word) || word.includes(p.material.toLowerCase().split(/[\s-]/)[0] ?? '\u0000'))
-    && Math.abs(p.diameterMm - boreMm) <= 0.1 * boreMm);
+  const matches = prices.filter(
+    (p) =>
+      p.currency.trim().toUpperCase() === currency &&
+      (p.material.toLowerCase().includes(word) || word.includes(p.material.toLowerCase().split(/[\s-]/)[0] ?? '\u0000')) &&
+      Math.abs(p.diameterMm - boreMm) <= 0.1 * boreMm,
+  );
   matches.sort((a, b) => Math.abs(a.diameterMm - boreMm) - Math.abs(b.diameterMm - boreMm));
   return matches[0] ?? null;
 }
@@ -44,7 +57,13 @@ function priceLine(line: BillOfMaterialsLine, list: PriceList, pipes: readonly P
     case 'pipe': {
       if (!line.pipe) break;
       const listed = listedPipePrice(pipes, list.currency, line.pipe.material, line.pipe.boreMm);
-      if (listed) return { line, unitPrice: listed.pricePerM, total: listed.pricePerM * line.quantity, basis: { kind: 'pipe-list', perM: listed.pricePerM, diameterMm: listed.diameterMm } };
+      if (listed)
+        return {
+          line,
+          unitPrice: listed.pricePerM,
+          total: listed.pricePerM * line.quantity,
+          basis: { kind: 'pipe-list', perM: listed.pricePerM, diameterMm: listed.diameterMm },
+        };
       const steel = isSteel(line.pipe.material);
       const perMmM = steel ? list.steelPipePerMmM : list.plasticPipePerMmM;
       const perM = perMmM * line.pipe.boreMm;
@@ -58,15 +77,24 @@ function priceLine(line: BillOfMaterialsLine, list: PriceList, pipes: readonly P
       const unit = list.tankPerL * (line.litres ?? 0);
       return { line, unitPrice: unit, total: unit * line.quantity, basis: { kind: 'tank', perL: list.tankPerL, litres: line.litres ?? 0 } };
     }
-    case 'with-ram': return { line, unitPrice: 0, total: 0, basis: { kind: 'with-ram' } };
-    case 'valve': return each(list.valve);
-    case 'gauge': return each(list.gauge);
-    case 'unions': return each(list.unions);
-    case 'base': return each(list.base);
-    case 'intake': return each(list.intake);
-    case 'relief-valve': return each(list.reliefValve);
-    case 'stand-pipe': return each(list.standPipe);
-    default: break;
+    case 'with-ram':
+      return { line, unitPrice: 0, total: 0, basis: { kind: 'with-ram' } };
+    case 'valve':
+      return each(list.valve);
+    case 'gauge':
+      return each(list.gauge);
+    case 'unions':
+      return each(list.unions);
+    case 'base':
+      return each(list.base);
+    case 'intake':
+      return each(list.intake);
+    case 'relief-valve':
+      return each(list.reliefValve);
+    case 'stand-pipe':
+      return each(list.standPipe);
+    default:
+      break;
   }
   return { line, unitPrice: null, total: 0, basis: { kind: 'not-priced' } };
 }

@@ -33,13 +33,20 @@ function perLength(perM: number, unit: (x: number) => string, us: boolean): stri
 
 function basisWords(b: PriceBasis, unit: (x: number) => string, us: boolean): string {
   switch (b.kind) {
-    case 'pipe-list': return `${perLength(b.perM, unit, us)} (your pipe prices, ${Math.round(b.diameterMm)} mm)`;
-    case 'pipe-estimate': return `${perLength(b.perM, unit, us)} (estimate from the bore, ${b.steel ? 'steel' : 'plastic'})`;
-    case 'ram': return `${unit(b.perInch)} per inch of drive pipe × ${b.driveIn}″`;
-    case 'tank': return `${unit(b.perL)} a litre`;
-    case 'each': return `${unit(b.each)} each`;
-    case 'with-ram': return 'Comes with a bought ram';
-    default: return 'Not on the price list';
+    case 'pipe-list':
+      return `${perLength(b.perM, unit, us)} (your pipe prices, ${Math.round(b.diameterMm)} mm)`;
+    case 'pipe-estimate':
+      return `${perLength(b.perM, unit, us)} (estimate from the bore, ${b.steel ? 'steel' : 'plastic'})`;
+    case 'ram':
+      return `${unit(b.perInch)} per inch of drive pipe × ${b.driveIn}″`;
+    case 'tank':
+      return `${unit(b.perL)} a litre`;
+    case 'each':
+      return `${unit(b.each)} each`;
+    case 'with-ram':
+      return 'Comes with a bought ram';
+    default:
+      return 'Not on the price list';
   }
 }
 
@@ -50,8 +57,11 @@ const OPTION_WORDS = { ram: 'Ram (this design)', solar: 'Small solar pump with p
  * ram's total lift). No comparison for a gravity supply or without a need or a lift.
  */
 export function sheetCosts(
-  bill: readonly BillOfMaterialsLine[], list: PriceList, pipes: readonly PipePrice[],
-  water: { dailyL: number | null; liftM: number | null; pumped: boolean }, locale = 'en-GB',
+  bill: readonly BillOfMaterialsLine[],
+  list: PriceList,
+  pipes: readonly PipePrice[],
+  water: { dailyL: number | null; liftM: number | null; pumped: boolean },
+  locale = 'en-GB',
 ): SheetCosts {
   const money = moneyFormatter(list.currency, locale);
   const unit = unitFormatter(list.currency, locale);
@@ -68,20 +78,30 @@ export function sheetCosts(
   const cmp = canCompare ? tenYearComparison(priced, list, water.dailyL as number, water.liftM as number) : null;
   const assumptions = [
     'Prices are the organisation\u2019s list; items not on it are estimates (common practice, no source). Ask a supplier before you buy.',
-    ...(cmp ? [
-      `Ten years, not discounted. The same water for all three: ${Math.round(water.dailyL as number).toLocaleString('en-GB')} L a day lifted ${Math.round(water.liftM as number)} m.`,
-      `Every option needs the delivery pipe, tank and intake (${money(priced.sharedTotal)} with fittings and laying); a pump takes ${list.labourDaysPerPump} day${list.labourDaysPerPump === 1 ? '' : 's'} to set up.`,
-      `Ram: lasts ${list.ramLifeYears} years, upkeep ${unit(list.ramMaintenancePerYear)} a year; it needs no fuel or power.`,
-      `Solar: ${Math.ceil(cmp.panelW)} W of panels at ${unit(list.solarPanelPerW)} a watt (${list.solarSunHours} full-sun hours a day, ${Math.round(list.solarWireToWater * 100)} % panel to water), pump ${unit(list.solarPumpCapital)} lasting ${list.solarLifeYears} years, upkeep ${unit(list.solarMaintenancePerYear)} a year; panels outlast the ten years.`,
-      `Petrol: pump ${unit(list.fuelPumpCapital)} lasting ${list.fuelPumpLifeYears} years, delivering ${list.fuelPumpLpm} L a minute, so ${cmp.petrolHoursPerDay.toFixed(1)} hours a day burning ${list.fuelLitresPerHour} L an hour: ${Math.round(cmp.petrolLitresPerYear)} L a year at ${unit(list.fuelPricePerL)} a litre, upkeep ${unit(list.fuelMaintenancePerYear)} a year.`,
-    ] : []),
+    ...(cmp
+      ? [
+          `Ten years, not discounted. The same water for all three: ${Math.round(water.dailyL as number).toLocaleString('en-GB')} L a day lifted ${Math.round(water.liftM as number)} m.`,
+          `Every option needs the delivery pipe, tank and intake (${money(priced.sharedTotal)} with fittings and laying); a pump takes ${list.labourDaysPerPump} day${list.labourDaysPerPump === 1 ? '' : 's'} to set up.`,
+          `Ram: lasts ${list.ramLifeYears} years, upkeep ${unit(list.ramMaintenancePerYear)} a year; it needs no fuel or power.`,
+          `Solar: ${Math.ceil(cmp.panelW)} W of panels at ${unit(list.solarPanelPerW)} a watt (${list.solarSunHours} full-sun hours a day, ${Math.round(list.solarWireToWater * 100)} % panel to water), pump ${unit(list.solarPumpCapital)} lasting ${list.solarLifeYears} years, upkeep ${unit(list.solarMaintenancePerYear)} a year; panels outlast the ten years.`,
+          `Petrol: pump ${unit(list.fuelPumpCapital)} lasting ${list.fuelPumpLifeYears} years, delivering ${list.fuelPumpLpm} L a minute, so ${cmp.petrolHoursPerDay.toFixed(1)} hours a day burning ${list.fuelLitresPerHour} L an hour: ${Math.round(cmp.petrolLitresPerYear)} L a year at ${unit(list.fuelPricePerL)} a litre, upkeep ${unit(list.fuelMaintenancePerYear)} a year.`,
+        ]
+      : []),
   ];
   return {
     currency: list.currency,
     lines,
     extras,
     total: money(priced.total),
-    comparison: cmp ? cmp.options.map((o) => ({ option: OPTION_WORDS[o.option], capital: money(o.capital), replacements: money(o.replacements), running: money(o.running), total: money(o.total) })) : null,
+    comparison: cmp
+      ? cmp.options.map((o) => ({
+          option: OPTION_WORDS[o.option],
+          capital: money(o.capital),
+          replacements: money(o.replacements),
+          running: money(o.running),
+          total: money(o.total),
+        }))
+      : null,
     assumptions,
   };
 }

@@ -5,7 +5,10 @@ import { z } from '@/lib/shared/zod';
 const number = (what: string, min: number, max: number) =>
   z.preprocess(
     (v) => (typeof v === 'string' ? (v.trim() === '' ? undefined : Number(v.trim().replace(',', '.'))) : v),
-    z.number({ message: `${what} must be a number.` }).min(min, `${what}: at least ${min}.`).max(max, `${what}: at most ${max.toLocaleString('en-US')}.`),
+    z
+      .number({ message: `${what} must be a number.` })
+      .min(min, `${what}: at least ${min}.`)
+      .max(max, `${what}: at most ${max.toLocaleString('en-US')}.`),
   );
 const money = (what: string) => number(what, 0, 10_000_000);
 
@@ -16,7 +19,11 @@ function knownCurrency(code: string): boolean {
 }
 
 export const priceListSchema = z.object({
-  currency: z.string().trim().toUpperCase().regex(/^[A-Z]{3}$/, 'Give a three-letter currency code such as GBP, EUR, USD or KES.')
+  currency: z
+    .string()
+    .trim()
+    .toUpperCase()
+    .regex(/^[A-Z]{3}$/, 'Give a three-letter currency code such as GBP, EUR, USD or KES.')
     .refine(knownCurrency, 'Not a currency code this app knows.'),
   ramPerInch: money('Ram price per inch of drive pipe'),
   steelPipePerMmM: money('Steel pipe price per mm of bore per metre'),

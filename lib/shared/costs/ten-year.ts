@@ -43,7 +43,13 @@ export function tenYearComparison(bill: PricedBill, list: PriceList, dailyL: num
   const panelW = dailyWh / (list.solarSunHours * list.solarWireToWater);
   const petrolHoursPerDay = dailyL / list.fuelPumpLpm / 60;
   const petrolLitresPerYear = petrolHoursPerDay * list.fuelLitresPerHour * 365;
-  const option = (o: OptionCost['option'], capital: number, replacements: number, running: number): OptionCost => ({ option: o, capital, replacements, running, total: capital + replacements + running });
+  const option = (o: OptionCost['option'], capital: number, replacements: number, running: number): OptionCost => ({
+    option: o,
+    capital,
+    replacements,
+    running,
+    total: capital + replacements + running,
+  });
   return {
     years: YEARS,
     panelW,
@@ -51,10 +57,18 @@ export function tenYearComparison(bill: PricedBill, list: PriceList, dailyL: num
     petrolLitresPerYear,
     options: [
       option('ram', bill.total, repurchases(list.ramLifeYears) * ramOwn, YEARS * list.ramMaintenancePerYear),
-      option('solar', bill.sharedTotal + pumpSetUp + list.solarPumpCapital + panelW * list.solarPanelPerW,
-        repurchases(list.solarLifeYears) * list.solarPumpCapital, YEARS * list.solarMaintenancePerYear),
-      option('petrol', bill.sharedTotal + pumpSetUp + list.fuelPumpCapital,
-        repurchases(list.fuelPumpLifeYears) * list.fuelPumpCapital, YEARS * (list.fuelMaintenancePerYear + petrolLitresPerYear * list.fuelPricePerL)),
+      option(
+        'solar',
+        bill.sharedTotal + pumpSetUp + list.solarPumpCapital + panelW * list.solarPanelPerW,
+        repurchases(list.solarLifeYears) * list.solarPumpCapital,
+        YEARS * list.solarMaintenancePerYear,
+      ),
+      option(
+        'petrol',
+        bill.sharedTotal + pumpSetUp + list.fuelPumpCapital,
+        repurchases(list.fuelPumpLifeYears) * list.fuelPumpCapital,
+        YEARS * (list.fuelMaintenancePerYear + petrolLitresPerYear * list.fuelPricePerL),
+      ),
     ],
   };
 }

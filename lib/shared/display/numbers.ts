@@ -9,7 +9,12 @@ function formatter(minDecimals: number, maxDecimals: number, grouping: boolean):
   let f = formatters.get(key);
   if (!f) {
     // signDisplay 'negative': a value that rounds to zero shows "0", never "-0".
-    f = new Intl.NumberFormat(LOCALE, { minimumFractionDigits: minDecimals, maximumFractionDigits: maxDecimals, useGrouping: grouping, signDisplay: 'negative' });
+    f = new Intl.NumberFormat(LOCALE, {
+      minimumFractionDigits: minDecimals,
+      maximumFractionDigits: maxDecimals,
+      useGrouping: grouping,
+      signDisplay: 'negative',
+    });
     formatters.set(key, f);
   }
   return f;

@@ -6,8 +6,25 @@ import { ft2ToM2, gpmToLpm, headMToPsi, inToMm, lpmToGpm, lpmToLps, lpsToGpm, lT
 import { formatFigure, formatNumber, formatTyped, formatWhole } from './numbers';
 
 export type QuantityKind =
-  | 'length' | 'accuracy' | 'pipeLength' | 'diameter' | 'volume' | 'time' | 'flowLps' | 'flowLpm' | 'litresPerDay'
-  | 'litresPerHead' | 'litresPerArea' | 'angle' | 'area' | 'count' | 'pressureHPa' | 'speed' | 'misclosure' | 'level' | 'chainage';
+  | 'length'
+  | 'accuracy'
+  | 'pipeLength'
+  | 'diameter'
+  | 'volume'
+  | 'time'
+  | 'flowLps'
+  | 'flowLpm'
+  | 'litresPerDay'
+  | 'litresPerHead'
+  | 'litresPerArea'
+  | 'angle'
+  | 'area'
+  | 'count'
+  | 'pressureHPa'
+  | 'speed'
+  | 'misclosure'
+  | 'level'
+  | 'chainage';
 
 /** How one quantity reads in one unit system. */
 export interface UnitDisplay {
@@ -24,7 +41,13 @@ export interface UnitDisplay {
 // 1 inHg = 33.8639 hPa (conventional inch of mercury at 0 °C).
 const HPA_PER_INHG = 33.8639;
 const same = (x: number) => x;
-const d = (unit: string, fromSi: (si: number) => number, toSi: (x: number) => number, typed: number, shown: UnitDisplay['shown']): UnitDisplay => ({ unit, fromSi, toSi, typed, shown });
+const d = (unit: string, fromSi: (si: number) => number, toSi: (x: number) => number, typed: number, shown: UnitDisplay['shown']): UnitDisplay => ({
+  unit,
+  fromSi,
+  toSi,
+  typed,
+  shown,
+});
 
 export const QUANTITIES: Record<QuantityKind, Record<UnitSystem, UnitDisplay>> = {
   length: { metric: d('m', same, same, 3, 'figure'), us: d('ft', mToFt, ftToM, 2, 'figure') },
@@ -45,11 +68,29 @@ export const QUANTITIES: Record<QuantityKind, Record<UnitSystem, UnitDisplay>> =
   litresPerDay: { metric: d('L/day', same, same, 0, 'figure'), us: d('gal/day', lToUsGal, usGalToL, 0, 'figure') },
   litresPerHead: { metric: d('L/day', same, same, 1, 'figure'), us: d('gal/day', lToUsGal, usGalToL, 2, 'figure') },
   // A garden's water per square metre (or foot) a day.
-  litresPerArea: { metric: d('L/m²/day', same, same, 1, 'figure'), us: d('gal/ft²/day', (l) => lToUsGal(l) / m2ToFt2(1), (g) => usGalToL(g) * m2ToFt2(1), 3, 'figure') },
+  litresPerArea: {
+    metric: d('L/m²/day', same, same, 1, 'figure'),
+    us: d(
+      'gal/ft²/day',
+      (l) => lToUsGal(l) / m2ToFt2(1),
+      (g) => usGalToL(g) * m2ToFt2(1),
+      3,
+      'figure',
+    ),
+  },
   angle: { metric: d('°', same, same, 1, 1), us: d('°', same, same, 1, 1) },
   area: { metric: d('m²', same, same, 3, 'figure'), us: d('ft²', m2ToFt2, ft2ToM2, 2, 'figure') },
   count: { metric: d('', same, same, 0, 0), us: d('', same, same, 0, 0) },
-  pressureHPa: { metric: d('hPa', same, same, 1, 1), us: d('inHg', (h) => h / HPA_PER_INHG, (i) => i * HPA_PER_INHG, 2, 2) },
+  pressureHPa: {
+    metric: d('hPa', same, same, 1, 1),
+    us: d(
+      'inHg',
+      (h) => h / HPA_PER_INHG,
+      (i) => i * HPA_PER_INHG,
+      2,
+      2,
+    ),
+  },
   speed: { metric: d('m/s', same, same, 2, 'figure'), us: d('ft/s', mToFt, ftToM, 2, 'figure') },
 };
 

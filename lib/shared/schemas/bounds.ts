@@ -14,7 +14,8 @@ const MIN_MS = Date.UTC(MIN_YEAR, 0, 1);
 const MAX_MS = Date.UTC(MAX_YEAR + 1, 0, 1);
 
 /** A date-time with its offset (ISO 8601) that falls, in UTC, within the years above. */
-export const isoDateTime = z.string()
+export const isoDateTime = z
+  .string()
   .datetime({ offset: true, message: 'Must be an ISO 8601 date-time.' })
   .refine((v) => {
     const ms = Date.parse(v);
@@ -22,16 +23,18 @@ export const isoDateTime = z.string()
   }, YEARS_MESSAGE);
 
 /** A calendar day (YYYY-MM-DD) that exists and falls within the years above. */
-export const isoDay = (message: string) => z.string()
-  .regex(/^\d{4}-\d{2}-\d{2}$/, message)
-  .refine((v) => {
-    const ms = Date.parse(`${v}T00:00:00Z`);
-    return Number.isFinite(ms) && new Date(ms).toISOString().slice(0, 10) === v;
-  }, message)
-  .refine((v) => {
-    const ms = Date.parse(`${v}T00:00:00Z`);
-    return ms >= MIN_MS && ms < MAX_MS;
-  }, YEARS_MESSAGE);
+export const isoDay = (message: string) =>
+  z
+    .string()
+    .regex(/^\d{4}-\d{2}-\d{2}$/, message)
+    .refine((v) => {
+      const ms = Date.parse(`${v}T00:00:00Z`);
+      return Number.isFinite(ms) && new Date(ms).toISOString().slice(0, 10) === v;
+    }, message)
+    .refine((v) => {
+      const ms = Date.parse(`${v}T00:00:00Z`);
+      return ms >= MIN_MS && ms < MAX_MS;
+    }, YEARS_MESSAGE);
 
 /** A lone UTF-16 surrogate: half of a character (an emoji cut in two), which is not text at all. */
 export const hasLoneSurrogate = (value: string) => /\p{Cs}/u.test(value);

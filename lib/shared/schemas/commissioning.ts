@@ -3,8 +3,10 @@ import { z } from '@/lib/shared/zod';
 import { PIPE_MATERIALS, type PipeMaterialId } from '@/lib/engine/materials';
 
 const measured = (label: string, max: number) =>
-  z.number({ error: (issue) => (issue.input === undefined ? `${label} is needed` : `${label} must be a number`) })
-    .positive(`${label} must be more than 0`).max(max, `${label} must be at most ${max}`);
+  z
+    .number({ error: (issue) => (issue.input === undefined ? `${label} is needed` : `${label} must be a number`) })
+    .positive(`${label} must be more than 0`)
+    .max(max, `${label} must be at most ${max}`);
 
 export const commissioningInputSchema = z
   .object({
@@ -14,7 +16,9 @@ export const commissioningInputSchema = z
     liftM: measured('Lift', 2_000),
     /** Fall measured at installation; without it the screening's fall is used. */
     fallM: measured('Fall', 500).optional(),
-    drivePipeMaterial: z.enum(Object.keys(PIPE_MATERIALS) as [PipeMaterialId, ...PipeMaterialId[]], { error: 'Choose a drive pipe material from the list' }).optional(),
+    drivePipeMaterial: z
+      .enum(Object.keys(PIPE_MATERIALS) as [PipeMaterialId, ...PipeMaterialId[]], { error: 'Choose a drive pipe material from the list' })
+      .optional(),
     notes: z.string().max(5000, 'Notes: at most 5000 characters').default(''),
   })
   .strict()

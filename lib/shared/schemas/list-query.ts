@@ -18,20 +18,23 @@ const blankToUndefined = (value: unknown) => (value === '' ? undefined : value);
 const opt = <T extends z.ZodType>(schema: T) => z.preprocess(blankToUndefined, schema.optional());
 
 /** Filters of the visits list and its CSV export (the same names in the page's URL). */
-export const visitFilters = z.object({
-  status: opt(z.enum(VISIT_STATUSES, { message: `Status must be one of: ${VISIT_STATUSES.join(', ')}.` })),
-  advisor: opt(z.union([z.literal('none'), z.string().uuid('Advisor must be an advisor id or "none".')])),
-  plannedFrom: opt(isoDay),
-  plannedTo: opt(isoDay),
-  verdict: opt(z.enum([...VERDICTS, 'none'], { message: `Verdict must be one of: ${VERDICTS.join(', ')}, none.` })),
-  area: opt(z.string().trim().max(160, 'Area is at most 160 characters.')),
-  q: opt(z.string().trim().max(100, 'Search is at most 100 characters.')),
-  overdue: opt(z.enum(['1', 'true']).transform(() => true)),
-  sort: z.preprocess(blankToUndefined, z.enum(VISIT_SORTS, { message: `Sort by one of: ${VISIT_SORTS.join(', ')}.` }).default('planned')),
-  dir: z.preprocess(blankToUndefined, z.enum(['asc', 'desc'], { message: 'Direction is asc or desc.' }).default('desc')),
-}).refine((f) => !f.plannedFrom || !f.plannedTo || f.plannedFrom <= f.plannedTo, {
-  message: 'The "from" date must not be after the "to" date.', path: ['plannedTo'],
-});
+export const visitFilters = z
+  .object({
+    status: opt(z.enum(VISIT_STATUSES, { message: `Status must be one of: ${VISIT_STATUSES.join(', ')}.` })),
+    advisor: opt(z.union([z.literal('none'), z.string().uuid('Advisor must be an advisor id or "none".')])),
+    plannedFrom: opt(isoDay),
+    plannedTo: opt(isoDay),
+    verdict: opt(z.enum([...VERDICTS, 'none'], { message: `Verdict must be one of: ${VERDICTS.join(', ')}, none.` })),
+    area: opt(z.string().trim().max(160, 'Area is at most 160 characters.')),
+    q: opt(z.string().trim().max(100, 'Search is at most 100 characters.')),
+    overdue: opt(z.enum(['1', 'true']).transform(() => true)),
+    sort: z.preprocess(blankToUndefined, z.enum(VISIT_SORTS, { message: `Sort by one of: ${VISIT_SORTS.join(', ')}.` }).default('planned')),
+    dir: z.preprocess(blankToUndefined, z.enum(['asc', 'desc'], { message: 'Direction is asc or desc.' }).default('desc')),
+  })
+  .refine((f) => !f.plannedFrom || !f.plannedTo || f.plannedFrom <= f.plannedTo, {
+    message: 'The "from" date must not be after the "to" date.',
+    path: ['plannedTo'],
+  });
 export type VisitFilters = z.infer<typeof visitFilters>;
 
 export const visitListQuery = z.intersection(pageQuery, visitFilters);

@@ -22,15 +22,17 @@ function pastDayConfirmed(v: { plannedOn?: string | null; confirmPast: boolean }
   if (isPastDay(v.plannedOn) && !v.confirmPast) ctx.addIssue({ code: 'custom', path: ['plannedOn'], message: PAST_DAY_UNCONFIRMED });
 }
 
-export const visitCreateSchema = z.object({
-  farmId: uuid('a farm'),
-  advisorId: z.preprocess((v) => (v === '' ? null : v), uuid('an advisor').nullable().optional()),
-  plannedOn: optionalPlannedDay,
-  confirmPast: z.boolean().default(false),
-  // Set after the person has read the warning that the farm already has a visit under way.
-  confirmDuplicate: z.boolean().default(false),
-  notes: z.string().trim().max(2000, 'Notes are at most 2,000 characters.').default(''),
-}).superRefine(pastDayConfirmed);
+export const visitCreateSchema = z
+  .object({
+    farmId: uuid('a farm'),
+    advisorId: z.preprocess((v) => (v === '' ? null : v), uuid('an advisor').nullable().optional()),
+    plannedOn: optionalPlannedDay,
+    confirmPast: z.boolean().default(false),
+    // Set after the person has read the warning that the farm already has a visit under way.
+    confirmDuplicate: z.boolean().default(false),
+    notes: z.string().trim().max(2000, 'Notes are at most 2,000 characters.').default(''),
+  })
+  .superRefine(pastDayConfirmed);
 export type VisitCreateInput = z.input<typeof visitCreateSchema>;
 
 const assignFields = {
@@ -51,20 +53,29 @@ export const visitStatusSchema = z.object({
 // A move outside the table of visit states: only with the coordinator's reason, which is audited.
 export const visitJumpSchema = z.object({
   status: z.enum(VISIT_STATUSES, { message: 'Choose a state.' }),
-  reason: z.string({ message: 'Say in a few words why the visit moves outside the usual order.' }).trim()
-    .min(JUMP_REASON_MIN, 'Say in a few words why the visit moves outside the usual order.').max(500, 'At most 500 characters.'),
+  reason: z
+    .string({ message: 'Say in a few words why the visit moves outside the usual order.' })
+    .trim()
+    .min(JUMP_REASON_MIN, 'Say in a few words why the visit moves outside the usual order.')
+    .max(500, 'At most 500 characters.'),
 });
 
-export const bulkAssignSchema = z.object({
-  ...assignFields,
-  visitIds: z.array(z.string().uuid('A visit id is not valid.')).min(1, 'Tick at least one visit.').max(200, 'At most 200 visits at once.'),
-}).superRefine(pastDayConfirmed);
+export const bulkAssignSchema = z
+  .object({
+    ...assignFields,
+    visitIds: z.array(z.string().uuid('A visit id is not valid.')).min(1, 'Tick at least one visit.').max(200, 'At most 200 visits at once.'),
+  })
+  .superRefine(pastDayConfirmed);
 export type BulkAssignInput = z.input<typeof bulkAssignSchema>;
 
 const coordinate = (min: number, max: number, what: string) =>
   z.preprocess(
     (v) => (v === '' || v === undefined ? null : typeof v === 'string' ? Number(v.trim().replace(',', '.')) : v),
-    z.number({ message: `${what} must be a number.` }).min(min, `${what} is between ${min} and ${max}.`).max(max, `${what} is between ${min} and ${max}.`).nullable(),
+    z
+      .number({ message: `${what} must be a number.` })
+      .min(min, `${what} is between ${min} and ${max}.`)
+      .max(max, `${what} is between ${min} and ${max}.`)
+      .nullable(),
   );
 
 export const farmSchema = z.object({
@@ -84,10 +95,12 @@ export const invitationSchema = z.object({
 });
 export type InvitationInput = z.input<typeof invitationSchema>;
 
-export const acceptInvitationSchema = z.object({
-  password: z.string().min(10, 'Use at least 10 characters.').max(200, 'At most 200 characters.'),
-  confirm: z.string(),
-}).refine((v) => v.password === v.confirm, { message: 'The two passwords differ.', path: ['confirm'] });
+export const acceptInvitationSchema = z
+  .object({
+    password: z.string().min(10, 'Use at least 10 characters.').max(200, 'At most 200 characters.'),
+    confirm: z.string(),
+  })
+  .refine((v) => v.password === v.confirm, { message: 'The two passwords differ.', path: ['confirm'] });
 export type AcceptInvitationInput = z.input<typeof acceptInvitationSchema>;
 
 export const personUpdateSchema = z.object({
@@ -127,16 +140,21 @@ export const settingsSchema = z.object({
   ),
   // Only kinds the catalogue itself holds (own keys: not "constructor" or "__proto__", which the
   // record would drop unseen); a blank box means "use the catalogue figure" and is dropped.
-  demandFigures: z.custom<Record<string, string | number | null | undefined>>((v) => !!v && typeof v === 'object' && !Array.isArray(v), 'Give the per-head figures by kind.')
+  demandFigures: z
+    .custom<Record<string, string | number | null | undefined>>((v) => !!v && typeof v === 'object' && !Array.isArray(v), 'Give the per-head figures by kind.')
     .superRefine(onlyCatalogueKinds)
     .transform(withoutBlanks)
     .pipe(z.record(z.string().min(1), positive('A per-head figure'))),
-  pipePrices: z.array(z.object({
-    material: z.string().trim().min(1, 'Name the pipe material.').max(40),
-    diameterMm: positive('Diameter'),
-    pricePerM: positive('Price per metre'),
-    currency: z.string().trim().min(1, 'Give a currency.').max(8),
-  })).max(100, 'At most 100 pipe prices.'),
+  pipePrices: z
+    .array(
+      z.object({
+        material: z.string().trim().min(1, 'Name the pipe material.').max(40),
+        diameterMm: positive('Diameter'),
+        pricePerM: positive('Price per metre'),
+        currency: z.string().trim().min(1, 'Give a currency.').max(8),
+      }),
+    )
+    .max(100, 'At most 100 pipe prices.'),
   // Prices for costing the sheet; absent keeps the stored list (or the invented defaults).
   priceList: priceListSchema.optional(),
 });

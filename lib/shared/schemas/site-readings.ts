@@ -8,9 +8,28 @@ import { EFFICIENCY_CURVES, type EfficiencyCurveId } from '@/lib/engine/ram';
 import { TANK_RULES, type TankRuleId } from '@/lib/engine/tank';
 import { estimateRun } from '@/lib/engine/readings';
 import {
-  isClassOf, MAX_BUCKET_L, MAX_DEMAND_COUNT, MAX_DEMAND_LINES, MAX_FALL_M, MAX_FALL_RUNS, MAX_FLOW_MEASUREMENTS, MAX_LEG_M,
-  MAX_LEVEL_STATIONS, MAX_LIFT_M, MAX_LIFT_RUNS, MAX_LITRES_PER_HEAD, MAX_NOTCH_HEAD_M, MAX_PIPE_BORE_MM, MAX_PIPE_LENGTH_M,
-  MAX_RUN_STEPS, MAX_SECTION_M2, MAX_STAFF_READING_M, MAX_TRIAL_SECONDS, MAX_TRIALS, MAX_WEIR_CREST_M, MAX_WEIR_HEAD_M,
+  isClassOf,
+  MAX_BUCKET_L,
+  MAX_DEMAND_COUNT,
+  MAX_DEMAND_LINES,
+  MAX_FALL_M,
+  MAX_FALL_RUNS,
+  MAX_FLOW_MEASUREMENTS,
+  MAX_LEG_M,
+  MAX_LEVEL_STATIONS,
+  MAX_LIFT_M,
+  MAX_LIFT_RUNS,
+  MAX_LITRES_PER_HEAD,
+  MAX_NOTCH_HEAD_M,
+  MAX_PIPE_BORE_MM,
+  MAX_PIPE_LENGTH_M,
+  MAX_RUN_STEPS,
+  MAX_SECTION_M2,
+  MAX_STAFF_READING_M,
+  MAX_TRIAL_SECONDS,
+  MAX_TRIALS,
+  MAX_WEIR_CREST_M,
+  MAX_WEIR_HEAD_M,
 } from '../reading-limits';
 
 function keysOf<K extends string>(record: Readonly<Record<K, unknown>>): [K, ...K[]] {
@@ -25,8 +44,7 @@ const positive = (label: string) => num(label).positive(`${label} must be more t
 const nonNegative = (label: string) => num(label).nonnegative(`${label} must not be negative`);
 const between = (label: string, min: number, max: number) =>
   num(label).min(min, `${label} must be at least ${min}`).max(max, `${label} must be at most ${max}`);
-const oneOf = <K extends string>(label: string, values: [K, ...K[]]) =>
-  z.enum(values, { error: `${label} must be one of: ${values.join(', ')}` });
+const oneOf = <K extends string>(label: string, values: [K, ...K[]]) => z.enum(values, { error: `${label} must be one of: ${values.join(', ')}` });
 
 const TOO_MANY_TRIALS = `At most ${MAX_TRIALS} trials in one measurement`;
 
@@ -44,14 +62,20 @@ const flowCommon = {
 const volumetricMeasurement = z.object({
   ...flowCommon,
   method: z.literal('volumetric'),
-  trials: z.array(z.object({ volumeL: positive('Bucket volume').max(MAX_BUCKET_L), seconds: positive('Seconds').max(MAX_TRIAL_SECONDS) })).min(1, 'Add at least one trial').max(MAX_TRIALS, TOO_MANY_TRIALS),
+  trials: z
+    .array(z.object({ volumeL: positive('Bucket volume').max(MAX_BUCKET_L), seconds: positive('Seconds').max(MAX_TRIAL_SECONDS) }))
+    .min(1, 'Add at least one trial')
+    .max(MAX_TRIALS, TOO_MANY_TRIALS),
 });
 
 const vNotchMeasurement = z.object({
   ...flowCommon,
   method: z.literal('v-notch'),
   notchAngleDeg: between('Notch angle', 25, 100).default(90),
-  trials: z.array(z.object({ headM: positive('Head over the notch').max(MAX_NOTCH_HEAD_M) })).min(1, 'Add at least one trial').max(MAX_TRIALS, TOO_MANY_TRIALS),
+  trials: z
+    .array(z.object({ headM: positive('Head over the notch').max(MAX_NOTCH_HEAD_M) }))
+    .min(1, 'Add at least one trial')
+    .max(MAX_TRIALS, TOO_MANY_TRIALS),
 });
 
 const weirTrial = z
@@ -69,14 +93,15 @@ const floatMeasurement = z.object({
   method: z.literal('float'),
   areaM2: positive('Cross-section area').max(MAX_SECTION_M2),
   coefficient: between('Float coefficient', 0.5, 1).default(0.85),
-  trials: z.array(z.object({ distanceM: positive('Float run length').max(MAX_LEG_M), seconds: positive('Seconds').max(MAX_TRIAL_SECONDS) })).min(1, 'Add at least one trial').max(MAX_TRIALS, TOO_MANY_TRIALS),
+  trials: z
+    .array(z.object({ distanceM: positive('Float run length').max(MAX_LEG_M), seconds: positive('Seconds').max(MAX_TRIAL_SECONDS) }))
+    .min(1, 'Add at least one trial')
+    .max(MAX_TRIALS, TOO_MANY_TRIALS),
 });
 
-export const flowMeasurementSchema = z.discriminatedUnion(
-  'method',
-  [volumetricMeasurement, vNotchMeasurement, weirMeasurement, floatMeasurement],
-  { error: 'Flow method must be volumetric, v-notch, rectangular-weir or float' },
-);
+export const flowMeasurementSchema = z.discriminatedUnion('method', [volumetricMeasurement, vNotchMeasurement, weirMeasurement, floatMeasurement], {
+  error: 'Flow method must be volumetric, v-notch, rectangular-weir or float',
+});
 
 // ---- Fall and lift runs ------------------------------------------------------------------------
 const staffReading = (label: string) => nonNegative(label).max(MAX_STAFF_READING_M);
@@ -88,10 +113,18 @@ function checkBooking(rows: readonly z.infer<typeof levelRow>[], key: string, ct
     const needsBs = i < last;
     const needsFs = i > 0;
     if (needsBs !== (row.backsightM !== undefined)) {
-      ctx.addIssue({ code: 'custom', path: [key, i, 'backsightM'], message: needsBs ? 'This station needs a backsight' : 'The last station takes no backsight' });
+      ctx.addIssue({
+        code: 'custom',
+        path: [key, i, 'backsightM'],
+        message: needsBs ? 'This station needs a backsight' : 'The last station takes no backsight',
+      });
     }
     if (needsFs !== (row.foresightM !== undefined)) {
-      ctx.addIssue({ code: 'custom', path: [key, i, 'foresightM'], message: needsFs ? 'This station needs a foresight' : 'The first station takes no foresight' });
+      ctx.addIssue({
+        code: 'custom',
+        path: [key, i, 'foresightM'],
+        message: needsFs ? 'This station needs a foresight' : 'The first station takes no foresight',
+      });
     }
   });
 }
@@ -101,7 +134,11 @@ const levelRun = z
     method: z.literal('level'),
     rows: z.array(levelRow).min(2, 'A level run needs at least two stations').max(MAX_LEVEL_STATIONS, `At most ${MAX_LEVEL_STATIONS} stations in one run`),
     /** Optional return run from the last station back to the first, for the misclosure check. */
-    returnRows: z.array(levelRow).min(2, 'A return run needs at least two stations').max(MAX_LEVEL_STATIONS, `At most ${MAX_LEVEL_STATIONS} stations in one run`).optional(),
+    returnRows: z
+      .array(levelRow)
+      .min(2, 'A return run needs at least two stations')
+      .max(MAX_LEVEL_STATIONS, `At most ${MAX_LEVEL_STATIONS} stations in one run`)
+      .optional(),
     routeLengthM: positive('Route length').max(MAX_PIPE_LENGTH_M).optional(),
     confirmed: confirmedSchema,
   })
@@ -113,7 +150,10 @@ const levelRun = z
 const hoseRun = z.object({
   method: z.literal('hose'),
   confirmed: confirmedSchema,
-  steps: z.array(z.object({ upperReadingM: staffReading('Reading at the upper end'), lowerReadingM: staffReading('Reading at the lower end') })).min(1, 'Add at least one hose step').max(MAX_RUN_STEPS, `At most ${MAX_RUN_STEPS} steps in one run`),
+  steps: z
+    .array(z.object({ upperReadingM: staffReading('Reading at the upper end'), lowerReadingM: staffReading('Reading at the lower end') }))
+    .min(1, 'Add at least one hose step')
+    .max(MAX_RUN_STEPS, `At most ${MAX_RUN_STEPS} steps in one run`),
 });
 
 const clinometerRun = z.object({
@@ -197,14 +237,17 @@ export const liftSchema = z.discriminatedUnion(
 // ---- Pipes, demand, settings -------------------------------------------------------------------
 const materialIds = keysOf<PipeMaterialId>(PIPE_MATERIALS);
 
-const drivePipe = z.object({
-  lengthM: positive('Drive pipe length').max(MAX_PIPE_LENGTH_M).optional(),
-  diameterMm: positive('Drive pipe diameter').max(MAX_PIPE_BORE_MM).optional(),
-  material: oneOf('Drive pipe material', materialIds).default('galvanized-steel'),
-  pressureClass: z.string().optional(),
-}).refine((p) => p.pressureClass === undefined || isClassOf(p.material, p.pressureClass), {
-  message: 'Drive pipe pressure class is not one of its material’s', path: ['pressureClass'],
-});
+const drivePipe = z
+  .object({
+    lengthM: positive('Drive pipe length').max(MAX_PIPE_LENGTH_M).optional(),
+    diameterMm: positive('Drive pipe diameter').max(MAX_PIPE_BORE_MM).optional(),
+    material: oneOf('Drive pipe material', materialIds).default('galvanized-steel'),
+    pressureClass: z.string().optional(),
+  })
+  .refine((p) => p.pressureClass === undefined || isClassOf(p.material, p.pressureClass), {
+    message: 'Drive pipe pressure class is not one of its material’s',
+    path: ['pressureClass'],
+  });
 
 /** A feed pipe from the intake to an open stand pipe, where the drive pipe starts (gentle creeks). */
 const feedPipe = z.object({
@@ -213,14 +256,17 @@ const feedPipe = z.object({
   material: oneOf('Feed pipe material', materialIds).default('hdpe'),
 });
 
-const deliveryPipe = z.object({
-  lengthM: positive('Delivery pipe length').max(MAX_PIPE_LENGTH_M),
-  diameterMm: positive('Delivery pipe diameter').max(MAX_PIPE_BORE_MM).optional(),
-  material: oneOf('Delivery pipe material', materialIds).default('hdpe'),
-  pressureClass: z.string().optional(),
-}).refine((p) => p.pressureClass === undefined || isClassOf(p.material, p.pressureClass), {
-  message: 'Delivery pipe pressure class is not one of its material’s', path: ['pressureClass'],
-});
+const deliveryPipe = z
+  .object({
+    lengthM: positive('Delivery pipe length').max(MAX_PIPE_LENGTH_M),
+    diameterMm: positive('Delivery pipe diameter').max(MAX_PIPE_BORE_MM).optional(),
+    material: oneOf('Delivery pipe material', materialIds).default('hdpe'),
+    pressureClass: z.string().optional(),
+  })
+  .refine((p) => p.pressureClass === undefined || isClassOf(p.material, p.pressureClass), {
+    message: 'Delivery pipe pressure class is not one of its material’s',
+    path: ['pressureClass'],
+  });
 
 const demandKinds = keysOf<DemandKind>(DEMAND_CATALOGUE);
 
@@ -252,18 +298,31 @@ const RAM_SIZES_IN = RAM_SIZE_TABLE.map((r) => r.driveIn);
 /** A ram size and count the advisor chose instead of the screen's own sizing from demand. */
 const forcedRam = z.object({
   driveIn: num('Ram size').refine((v) => RAM_SIZES_IN.includes(v), { message: `Ram size must be one of ${RAM_SIZES_IN.join(', ')} inches` }),
-  count: num('Number of rams').int('Number of rams must be a whole number').min(1, 'Number of rams must be at least 1').max(MAX_RAMS, `Number of rams must be at most ${MAX_RAMS}`).default(1),
+  count: num('Number of rams')
+    .int('Number of rams must be a whole number')
+    .min(1, 'Number of rams must be at least 1')
+    .max(MAX_RAMS, `Number of rams must be at most ${MAX_RAMS}`)
+    .default(1),
 });
 
 export const monteCarloSchema = z.object({
-  samples: num('Samples').int('Samples must be a whole number').min(100, 'Samples must be at least 100').max(200000, 'Samples must be at most 200000').default(10000),
+  samples: num('Samples')
+    .int('Samples must be a whole number')
+    .min(100, 'Samples must be at least 100')
+    .max(200000, 'Samples must be at most 200000')
+    .default(10000),
   seed: num('Seed').int('Seed must be a whole number').default(1),
 });
 
 export const siteReadingsSchema = z.object({
-  flowMeasurements: z.array(flowMeasurementSchema).min(1, 'Add at least one flow measurement')
+  flowMeasurements: z
+    .array(flowMeasurementSchema)
+    .min(1, 'Add at least one flow measurement')
     .max(MAX_FLOW_MEASUREMENTS, `At most ${MAX_FLOW_MEASUREMENTS} flow measurements on one visit`),
-  fallRuns: z.array(fallRunSchema).min(1, 'Add at least one fall run').max(MAX_FALL_RUNS, `At most ${MAX_FALL_RUNS} fall runs on one visit`)
+  fallRuns: z
+    .array(fallRunSchema)
+    .min(1, 'Add at least one fall run')
+    .max(MAX_FALL_RUNS, `At most ${MAX_FALL_RUNS} fall runs on one visit`)
     .superRefine((runs, ctx) => runs.forEach((run, i) => checkRunHeight(run, 'fall', null, ctx, [i]))),
   lift: liftSchema,
   drivePipe: drivePipe.prefault({}),

@@ -7,13 +7,14 @@ import { POINT_ROLES, type VisitStatus } from '../domain';
 import { STATION_FLAGS } from '@/lib/engine/profile-pairs';
 import { checkRunHeight, confirmedSchema, fallRunSchema, flowMeasurementSchema, LIFT_DIRECT_METHODS } from './site-readings';
 import { isoDateTime, MAX_PHOTO_SIDE_PX } from './bounds';
-import {
-  isClassOf, MAX_DEMAND_COUNT, MAX_LIFT_M, MAX_LITRES_PER_HEAD, MAX_PIPE_BORE_MM, MAX_PIPE_LENGTH_M, PRESSURE_CLASS_IDS,
-} from '../reading-limits';
+import { isClassOf, MAX_DEMAND_COUNT, MAX_LIFT_M, MAX_LITRES_PER_HEAD, MAX_PIPE_BORE_MM, MAX_PIPE_LENGTH_M, PRESSURE_CLASS_IDS } from '../reading-limits';
 
 // A UUID names the same thing in either case: kept in lower case, so an upper-cased copy of an op
 // id is a replay and an upper-cased record id the same record.
-const uuid = z.string().uuid('Must be a UUID.').transform((id) => id.toLowerCase());
+const uuid = z
+  .string()
+  .uuid('Must be a UUID.')
+  .transform((id) => id.toLowerCase());
 const isoTime = isoDateTime;
 const text = (max: number) => z.string().max(max, `At most ${max} characters.`);
 const finite = z.number().finite('Must be a finite number.');
@@ -85,7 +86,11 @@ export const entityFields = {
     pointId: uuid.nullable(),
     caption: text(300),
     mime: z.enum(PHOTO_MIME_TYPES, { message: 'Photos must be JPEG, PNG or WebP.' }),
-    bytes: z.number().int().min(1).max(MAX_PHOTO_BYTES, `Photos must be at most ${MAX_PHOTO_BYTES / 1024 / 1024} MB.`),
+    bytes: z
+      .number()
+      .int()
+      .min(1)
+      .max(MAX_PHOTO_BYTES, `Photos must be at most ${MAX_PHOTO_BYTES / 1024 / 1024} MB.`),
     sha256: z.string().regex(/^[0-9a-f]{64}$/, 'Must be a lower-case hex sha-256.'),
     width: z.number().int().positive().max(MAX_PHOTO_SIDE_PX, `At most ${MAX_PHOTO_SIDE_PX} pixels.`).nullable(),
     height: z.number().int().positive().max(MAX_PHOTO_SIDE_PX, `At most ${MAX_PHOTO_SIDE_PX} pixels.`).nullable(),
@@ -135,9 +140,12 @@ export const entityFields = {
  */
 export const recordSchemas = {
   ...entityFields,
-  fallReading: entityFields.fallReading.superRefine((r, ctx) => checkRunHeight(r.run as Parameters<typeof checkRunHeight>[0], r.purpose, r.bookedFrom, ctx, ['run'])),
+  fallReading: entityFields.fallReading.superRefine((r, ctx) =>
+    checkRunHeight(r.run as Parameters<typeof checkRunHeight>[0], r.purpose, r.bookedFrom, ctx, ['run']),
+  ),
   pipeRun: entityFields.pipeRun.refine((p) => p.pressureClass === null || isClassOf(p.material, p.pressureClass), {
-    message: 'That pressure class is not one of this pipe material’s. Choose a class from the list.', path: ['pressureClass'],
+    message: 'That pressure class is not one of this pipe material’s. Choose a class from the list.',
+    path: ['pressureClass'],
   }),
 } as const;
 

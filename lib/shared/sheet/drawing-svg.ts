@@ -23,7 +23,13 @@ export const esc = (text: string): string => text.replace(/[&<>"']/g, (ch) => ES
 
 const n = (v: number) => String(Math.round(v * 100) / 100);
 
-function text(o: SvgOptions, t: string, x: number, y: number, attrs: { size: number; bold?: boolean; anchor?: 'start' | 'middle' | 'end'; fill?: string }): string {
+function text(
+  o: SvgOptions,
+  t: string,
+  x: number,
+  y: number,
+  attrs: { size: number; bold?: boolean; anchor?: 'start' | 'middle' | 'end'; fill?: string },
+): string {
   const runs = o.runsFor?.(t, attrs.bold ?? false);
   const family = runs?.length === 1 ? runs[0]?.font : undefined;
   const body = runs && runs.length > 1 ? runs.map((r) => `<tspan font-family="${esc(r.font)}">${esc(r.text)}</tspan>`).join('') : esc(t);
@@ -48,7 +54,9 @@ export function profileSvg(g: ProfileGeometry, o: SvgOptions = {}): string {
     parts.push(text(o, l.label, l.at, g.plot.y + g.plot.h + 16, { size: NOTE_SIZE, anchor: last ? 'end' : 'middle', fill: C.stone }));
   });
   for (const p of g.pipes) {
-    parts.push(`<line x1="${n(p.x1)}" y1="${n(p.y1)}" x2="${n(p.x2)}" y2="${n(p.y2)}" stroke="${C.creek}" stroke-width="4"${p.key === 'delivery' ? ' stroke-dasharray="10 4"' : ''}/>`);
+    parts.push(
+      `<line x1="${n(p.x1)}" y1="${n(p.y1)}" x2="${n(p.x2)}" y2="${n(p.y2)}" stroke="${C.creek}" stroke-width="4"${p.key === 'delivery' ? ' stroke-dasharray="10 4"' : ''}/>`,
+    );
   }
   for (const p of g.pipes) {
     const at = profileLabelAt(g, p);
@@ -58,7 +66,8 @@ export function profileSvg(g: ProfileGeometry, o: SvgOptions = {}): string {
     const at = nodeLabelAt(g, node);
     const x = at.anchor === 'end' ? at.x + at.width : at.x;
     parts.push(`<g data-node="${node.key}">`);
-    if (node.key === 'tank') parts.push(`<rect x="${n(node.x - 14)}" y="${n(node.y - 20)}" width="16" height="20" fill="#fff" stroke="${C.ink}" stroke-width="2"/>`);
+    if (node.key === 'tank')
+      parts.push(`<rect x="${n(node.x - 14)}" y="${n(node.y - 20)}" width="16" height="20" fill="#fff" stroke="${C.ink}" stroke-width="2"/>`);
     if (node.key === 'pump') parts.push(`<rect x="${n(node.x - 7)}" y="${n(node.y - 7)}" width="14" height="14" fill="${C.ink}"/>`);
     if (node.key === 'intake') parts.push(`<circle cx="${n(node.x)}" cy="${n(node.y)}" r="6" fill="#fff" stroke="${C.ink}" stroke-width="2"/>`);
     parts.push(text(o, node.label, x, at.y + 11, { size: LABEL_SIZE, bold: true, anchor: at.anchor }));
@@ -73,12 +82,15 @@ export function profileSvg(g: ProfileGeometry, o: SvgOptions = {}): string {
 export function siteMapSvg(g: SiteMapGeometry, o: SvgOptions = {}): string {
   const b = g.scaleBar;
   const parts = [open(g, o), `<rect x="0.5" y="0.5" width="${g.width - 1}" height="${g.height - 1}" fill="#fff" stroke="${C.rule}"/>`];
-  if (g.route.length > 1) parts.push(`<polyline points="${g.route.map((p) => `${n(p.x)},${n(p.y)}`).join(' ')}" fill="none" stroke="${C.creek}" stroke-width="2.5"/>`);
+  if (g.route.length > 1)
+    parts.push(`<polyline points="${g.route.map((p) => `${n(p.x)},${n(p.y)}`).join(' ')}" fill="none" stroke="${C.creek}" stroke-width="2.5"/>`);
   for (const p of g.points) {
     parts.push(`<circle cx="${n(p.x)}" cy="${n(p.y)}" r="5" fill="#fff" stroke="${C.ink}" stroke-width="1.5"/>`);
     parts.push(text(o, p.label, p.labelX, p.labelY, { size: MAP_LABEL_SIZE, anchor: p.anchor }));
   }
-  parts.push(`<path d="M${n(b.x)} ${n(b.y - 4)}v8M${n(b.x)} ${n(b.y)}h${n(b.length)}M${n(b.x + b.length)} ${n(b.y - 4)}v8" stroke="${C.ink}" stroke-width="2" fill="none"/>`);
+  parts.push(
+    `<path d="M${n(b.x)} ${n(b.y - 4)}v8M${n(b.x)} ${n(b.y)}h${n(b.length)}M${n(b.x + b.length)} ${n(b.y - 4)}v8" stroke="${C.ink}" stroke-width="2" fill="none"/>`,
+  );
   parts.push(text(o, b.label, b.x + b.length + 6, b.y + 4, { size: MAP_LABEL_SIZE }));
   parts.push(`<path d="M${g.width - 20} 12l-6 16h12z" fill="${C.ink}"/>`);
   parts.push(text(o, 'N', g.width - 24, 42, { size: MAP_LABEL_SIZE, bold: true }));

@@ -19,12 +19,17 @@ export function sheetEmail(m: SheetEmailInput): { subject: string; text: string 
   return {
     subject: `Your water sheet: ${m.farmName} – ${m.verdictWord}`,
     text: [
-      `Hello${m.farmerName ? ` ${m.farmerName}` : ''},`, '',
-      `${m.senderName} sends you the sheet for ${m.farmName}.`, '',
+      `Hello${m.farmerName ? ` ${m.farmerName}` : ''},`,
+      '',
+      `${m.senderName} sends you the sheet for ${m.farmName}.`,
+      '',
       ...(note ? [note, ''] : []),
-      m.verdictWord, ...m.summary, '',
+      m.verdictWord,
+      ...m.summary,
+      '',
       `Read it, acknowledge it or ask a question here: ${m.link}`,
-      'The sheet is also attached as a PDF to keep or print.', '',
+      'The sheet is also attached as a PDF to keep or print.',
+      '',
       'This is a first check from field readings, not an engineering design.',
     ].join('\n'),
   };

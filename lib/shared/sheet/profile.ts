@@ -14,9 +14,25 @@ export interface ProfileInput {
   gravity?: boolean;
 }
 
-export interface ProfileNode { key: 'intake' | 'pump' | 'tank'; x: number; y: number; label: string; height: string }
-export interface ProfilePipe { key: 'drive' | 'delivery'; x1: number; y1: number; x2: number; y2: number; label: string }
-export interface GridLine { at: number; label: string }
+export interface ProfileNode {
+  key: 'intake' | 'pump' | 'tank';
+  x: number;
+  y: number;
+  label: string;
+  height: string;
+}
+export interface ProfilePipe {
+  key: 'drive' | 'delivery';
+  x1: number;
+  y1: number;
+  x2: number;
+  y2: number;
+  label: string;
+}
+export interface GridLine {
+  at: number;
+  label: string;
+}
 
 export interface ProfileGeometry {
   width: number;
@@ -70,9 +86,21 @@ export function profileGeometry(p: ProfileInput, units: UnitSystem, width = 640,
   for (let v = 0; v <= toUnits(spanX) + 1e-9; v += stepX) xGrid.push({ at: X(fromUnits(v)), label: `${+v.toFixed(3)} ${unit}` });
 
   const nodes: ProfileNode[] = [
-    { key: 'intake', x: X(0), y: Y(p.fallM), label: 'Intake', height: `${quantity(p.fallM, 'length', units).text} above the ${p.gravity ? 'low point' : 'ram'}` },
+    {
+      key: 'intake',
+      x: X(0),
+      y: Y(p.fallM),
+      label: 'Intake',
+      height: `${quantity(p.fallM, 'length', units).text} above the ${p.gravity ? 'low point' : 'ram'}`,
+    },
     { key: 'pump', x: X(driveRun), y: Y(0), label: p.gravity ? 'Low point' : 'Ram pump', height: 'height 0' },
-    { key: 'tank', x: X(spanX), y: Y(p.staticLiftM), label: 'Tank', height: `${quantity(p.staticLiftM, 'length', units).text} above the ${p.gravity ? 'low point' : 'ram'}` },
+    {
+      key: 'tank',
+      x: X(spanX),
+      y: Y(p.staticLiftM),
+      label: 'Tank',
+      height: `${quantity(p.staticLiftM, 'length', units).text} above the ${p.gravity ? 'low point' : 'ram'}`,
+    },
   ];
   const [intake, pump, tank] = nodes as [ProfileNode, ProfileNode, ProfileNode];
   const driveLabel = `${p.gravity ? 'Pipe' : 'Drive pipe'} ${quantity(p.driveLengthM, 'pipeLength', units).text}`;
@@ -82,7 +110,12 @@ export function profileGeometry(p: ProfileInput, units: UnitSystem, width = 640,
     { key: 'delivery', x1: pump.x, y1: pump.y, x2: tank.x, y2: tank.y, label: deliveryLabel },
   ];
   const ratio = sy / sx;
-  const exaggeration = ratio > 1.5 ? `Heights drawn ${Math.round(ratio)} × larger than lengths` : ratio < 0.67 ? `Lengths drawn ${Math.round(1 / ratio)} × larger than heights` : '';
+  const exaggeration =
+    ratio > 1.5
+      ? `Heights drawn ${Math.round(ratio)} × larger than lengths`
+      : ratio < 0.67
+        ? `Lengths drawn ${Math.round(1 / ratio)} × larger than heights`
+        : '';
   const description = p.gravity
     ? `Elevation profile: the intake is ${nodes[0]?.height}; the water runs down ${quantity(p.driveLengthM, 'pipeLength', units).text} of pipe to the low point, then ${quantity(p.deliveryLengthM, 'pipeLength', units).text} on to the tank, ${tank.height} and below the intake.`
     : `Elevation profile: the intake is ${nodes[0]?.height}; the water runs down the ${driveLabel.toLowerCase()} to the ram pump, then up the ${deliveryLabel.toLowerCase()} to the tank, ${tank.height}.`;

@@ -4,7 +4,12 @@ import type { UnitSystem } from '../domain';
 import { mToFt } from '../units';
 import { niceStep, textWidth } from './profile';
 
-export interface MapPointInput { role: string; label: string; lat: number; lon: number }
+export interface MapPointInput {
+  role: string;
+  label: string;
+  lat: number;
+  lon: number;
+}
 export interface MapPoint {
   role: string;
   label: string;
@@ -57,9 +62,19 @@ export function siteMapGeometry(input: MapPointInput[], units: UnitSystem, width
     const w = textWidth(p.label, MAP_LABEL_SIZE);
     const right = x + 8 + w <= width - 4;
     const labelX = right ? x + 8 : Math.max(x - 8, w + 4);
-    return { role: p.role, label: p.label, x, y, labelX, labelY: Math.min(Math.max(y + 4, 14), height - 26), anchor: right ? 'start' as const : 'end' as const };
+    return {
+      role: p.role,
+      label: p.label,
+      x,
+      y,
+      labelX,
+      labelY: Math.min(Math.max(y + 4, 14), height - 26),
+      anchor: right ? ('start' as const) : ('end' as const),
+    };
   });
-  const route = ROUTE_ORDER.map((role) => points.find((p) => p.role === role)).filter((p): p is MapPoint => !!p).map(({ x, y }) => ({ x, y }));
+  const route = ROUTE_ORDER.map((role) => points.find((p) => p.role === role))
+    .filter((p): p is MapPoint => !!p)
+    .map(({ x, y }) => ({ x, y }));
 
   const toUnits = (m: number) => (units === 'us' ? mToFt(m) : m);
   const unit = units === 'us' ? 'ft' : 'm';

@@ -29,9 +29,25 @@ export interface SheetSource {
   prices?: { list: Partial<PriceList>; pipes: PipePrice[] };
 }
 
-export interface SheetFigure { key: string; label: string; value: string; note: string }
-export interface SheetCaution { code: string; title: string; text: string }
-export interface SheetBomLine { item: string; size: string; quantity: string; note: string; basis: string; price: string }
+export interface SheetFigure {
+  key: string;
+  label: string;
+  value: string;
+  note: string;
+}
+export interface SheetCaution {
+  code: string;
+  title: string;
+  text: string;
+}
+export interface SheetBomLine {
+  item: string;
+  size: string;
+  quantity: string;
+  note: string;
+  basis: string;
+  price: string;
+}
 
 export interface SheetView {
   visitId: string;
@@ -95,16 +111,19 @@ export function summarySentences(s: SheetSource, units: UnitSystem): [string, st
   const rams = f.ramCount?.value ?? 1;
   if (verdict === 'gravity') {
     const pipe = `This site can deliver ${dailyInWords(delivery, units)} a day to ${where} through a pipe; ${needPhrase(s.demandKinds)} ${dailyInWords(demand, units)}.`;
-    return [pipe, 'The tank sits below the intake, so the water runs down to it by itself: no pump is needed. Read the cautions before anything is bought or built.'];
+    return [
+      pipe,
+      'The tank sits below the intake, so the water runs down to it by itself: no pump is needed. Read the cautions before anything is bought or built.',
+    ];
   }
   const second =
     verdict === 'go' && rams > 1
       ? `${rams} ram pumps side by side should do the job here; read the cautions before anything is bought or built.`
       : verdict === 'go'
-      ? 'A ram pump should do the job here; read the cautions before anything is bought or built.'
-      : verdict === 'conditional'
-        ? 'A ram pump can do the job here if the conditions on this sheet are met first.'
-        : 'As measured, a ram pump will not do the job here; the reasons are on this sheet.';
+        ? 'A ram pump should do the job here; read the cautions before anything is bought or built.'
+        : verdict === 'conditional'
+          ? 'A ram pump can do the job here if the conditions on this sheet are met first.'
+          : 'As measured, a ram pump will not do the job here; the reasons are on this sheet.';
   return [first, second];
 }
 
@@ -135,7 +154,12 @@ function keyFigures(s: SheetSource, units: UnitSystem): SheetFigure[] {
   add('deliveryLpd', 'Delivery per day', q('litresPerDay'), gravity ? 'What the pipe carries, up to what the stream spares' : 'Ram running day and night');
   add('demandLpd', 'Demand per day', q('litresPerDay'), 'What you told us you need');
   add('demandMarginLpd', 'Margin', (v) => (v >= 0 ? `${q('litresPerDay')(v)} to spare` : `${q('litresPerDay')(-v)} short`), 'Delivery minus demand');
-  add('probabilityMeetsDemand', 'Chance of meeting demand', chance, 'Share of simulated runs that met demand, with the readings and the ram\u2019s efficiency varied as they vary in practice; a season drier than the one measured is not covered');
+  add(
+    'probabilityMeetsDemand',
+    'Chance of meeting demand',
+    chance,
+    'Share of simulated runs that met demand, with the readings and the ram\u2019s efficiency varied as they vary in practice; a season drier than the one measured is not covered',
+  );
   add('tankL', 'Tank', q('volume'), 'Storage to size for');
   add('ramCount', 'Rams', (v) => `${v} side by side`, 'Each on its own drive pipe');
   add('gravityHeadM', 'Intake above the tank', q('length'), 'The water runs down by itself');
@@ -164,8 +188,12 @@ function billOfMaterials(s: SheetSource, units: UnitSystem, costs: SheetCosts | 
     const note = line.noteMessage ? renderMessage(line.noteMessage, units) : line.note;
     const priced = costs?.lines[i];
     return {
-      item: plainTrade(line.item, units), size: plainTrade(size, units), quantity: amount, note: plainTrade(note, units),
-      basis: plainTrade(priced?.basis ?? '', units), price: priced?.price ?? '—',
+      item: plainTrade(line.item, units),
+      size: plainTrade(size, units),
+      quantity: amount,
+      note: plainTrade(note, units),
+      basis: plainTrade(priced?.basis ?? '', units),
+      price: priced?.price ?? '—',
     };
   });
 }
@@ -192,9 +220,10 @@ export function buildSheetView(s: SheetSource, units: UnitSystem): SheetView {
   const lift = fig('staticLiftM');
   const driveM = s.pipeLengthsM.drive ?? fig('driveLengthM');
   const deliveryM = s.pipeLengthsM.delivery;
-  const profileInput = fall !== null && lift !== null && driveM && deliveryM
-    ? { fallM: fall, staticLiftM: lift, driveLengthM: driveM, deliveryLengthM: deliveryM, gravity: sc.verdict === 'gravity' }
-    : null;
+  const profileInput =
+    fall !== null && lift !== null && driveM && deliveryM
+      ? { fallM: fall, staticLiftM: lift, driveLengthM: driveM, deliveryLengthM: deliveryM, gravity: sc.verdict === 'gravity' }
+      : null;
   const profile = profileInput && profileGeometry(profileInput, units);
   const profileNarrow = profileInput && profileGeometry(profileInput, units, 360, 300);
   const located = s.points.filter((p): p is typeof p & { lat: number; lon: number } => p.lat !== null && p.lon !== null);
@@ -214,7 +243,13 @@ export function buildSheetView(s: SheetSource, units: UnitSystem): SheetView {
     reasons: sc.reasons.map(say),
     conditions: sc.conditions.map(say),
     billOfMaterials: billOfMaterials(s, units, costs),
-    costs: costs && { currency: costs.currency, extras: costs.extras.map((e) => ({ ...e, basis: plainTrade(e.basis, units) })), total: costs.total, comparison: costs.comparison, assumptions: costs.assumptions.map((a) => plainTrade(a, units)) },
+    costs: costs && {
+      currency: costs.currency,
+      extras: costs.extras.map((e) => ({ ...e, basis: plainTrade(e.basis, units) })),
+      total: costs.total,
+      comparison: costs.comparison,
+      assumptions: costs.assumptions.map((a) => plainTrade(a, units)),
+    },
     cautions: sc.cautions.map((c) => ({ code: c.code, title: CAUTION_TITLES[c.code] ?? 'Caution', text: say(c) })),
     surveyed: `Surveyed by ${s.advisorName ?? 'an advisor'} on ${visited}; screened on ${formatDay(s.screenedAt)}.`,
     engineVersion: sc.engineVersion,
@@ -223,6 +258,9 @@ export function buildSheetView(s: SheetSource, units: UnitSystem): SheetView {
     sources: [...new Map(sc.sources.map((src) => [src.citation, { id: src.id, citation: src.citation }])).values()],
     profile,
     profileNarrow,
-    map: siteMapGeometry(located.map((p) => ({ role: p.role, label: p.label, lat: p.lat, lon: p.lon })), units),
+    map: siteMapGeometry(
+      located.map((p) => ({ role: p.role, label: p.label, lat: p.lat, lon: p.lon })),
+      units,
+    ),
   };
 }

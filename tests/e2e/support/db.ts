@@ -3,9 +3,13 @@ import * as mariadb from 'mariadb';
 
 function connect() {
   return mariadb.createConnection({
-    host: process.env.DB_HOST ?? '127.0.0.1', port: Number(process.env.DB_PORT ?? 3308),
-    user: process.env.DB_USER ?? 'fallbook_test', password: process.env.DB_PASSWORD ?? 'fallbook-test',
-    database: process.env.DB_NAME ?? 'fallbook_test', bigIntAsNumber: true, decimalAsNumber: true,
+    host: process.env.DB_HOST ?? '127.0.0.1',
+    port: Number(process.env.DB_PORT ?? 3308),
+    user: process.env.DB_USER ?? 'fallbook_test',
+    password: process.env.DB_PASSWORD ?? 'fallbook-test',
+    database: process.env.DB_NAME ?? 'fallbook_test',
+    bigIntAsNumber: true,
+    decimalAsNumber: true,
   });
 }
 
@@ -30,7 +34,11 @@ export async function query<T>(sql: string, params: unknown[] = []): Promise<T[]
 export async function holdSyncOp(opId: string, userId: string): Promise<{ release(): Promise<void> }> {
   const conn = await connect();
   await conn.beginTransaction();
-  await conn.query("INSERT INTO sync_ops (op_id, user_id, entity, entity_id, outcome, created_at) VALUES (?, ?, 'point', ?, '{}', NOW(3))", [opId, userId, opId]);
+  await conn.query("INSERT INTO sync_ops (op_id, user_id, entity, entity_id, outcome, created_at) VALUES (?, ?, 'point', ?, '{}', NOW(3))", [
+    opId,
+    userId,
+    opId,
+  ]);
   return {
     async release() {
       await conn.rollback().catch(() => undefined);

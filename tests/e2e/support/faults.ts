@@ -6,7 +6,12 @@ import { mulberry32 } from '../../../lib/engine/random';
 
 export const SYNC_URLS = /\/api\/(sync\/(push|pull)|photos\/[0-9a-f-]{36})(\?|$)/;
 
-export interface FaultCounts { requests: number; lostBefore: number; lostAfter: number; byPath: Record<string, number> }
+export interface FaultCounts {
+  requests: number;
+  lostBefore: number;
+  lostAfter: number;
+  byPath: Record<string, number>;
+}
 
 export const newCounts = (): FaultCounts => ({ requests: 0, lostBefore: 0, lostAfter: 0, byPath: {} });
 

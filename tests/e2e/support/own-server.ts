@@ -7,7 +7,10 @@ export class OwnServer {
   readonly url: string;
 
   /** `env` adds to (or overrides) the test profile's environment, e.g. DB_READ_HOSTS. */
-  constructor(readonly port: number, private readonly env: Record<string, string> = {}) {
+  constructor(
+    readonly port: number,
+    private readonly env: Record<string, string> = {},
+  ) {
     this.url = `http://127.0.0.1:${port}`;
   }
 

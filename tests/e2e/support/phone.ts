@@ -15,7 +15,13 @@ export const SOURCES = 90;
 export const POINTS = 90;
 export const PHOTOS = 20;
 
-export interface Captured { visitId: string; sources: string[]; points: string[]; photos: Map<string, string>; seconds: { records: number; photos: number } }
+export interface Captured {
+  visitId: string;
+  sources: string[];
+  points: string[];
+  photos: Map<string, string>;
+  seconds: { records: number; photos: number };
+}
 
 // Inside page.evaluate (which runs in the page, so no closures): `(window as unknown as Hooked).__fallbookTest`.
 type Hooked = { __fallbookTest: FallbookTestHooks };
@@ -44,8 +50,9 @@ async function noiseJpeg(seed: number): Promise<Buffer> {
   const random = mulberry32(seed);
   const pixels = Buffer.alloc(400 * 300 * 3);
   for (let i = 0; i < pixels.length; i++) pixels[i] = Math.floor(random() * 256);
-  return sharp(pixels, { raw: { width: 400, height: 300, channels: 3 } }).jpeg({ quality: 70 })
-    .withExif({ IFD3: { GPSLatitudeRef: 'N', GPSLatitude: `52/1 24/1 ${1000 + seed % 1000}/100`, GPSLongitudeRef: 'W', GPSLongitude: '3/1 36/1 0/100' } })
+  return sharp(pixels, { raw: { width: 400, height: 300, channels: 3 } })
+    .jpeg({ quality: 70 })
+    .withExif({ IFD3: { GPSLatitudeRef: 'N', GPSLatitude: `52/1 24/1 ${1000 + (seed % 1000)}/100`, GPSLongitudeRef: 'W', GPSLongitude: '3/1 36/1 0/100' } })
     .toBuffer();
 }
 
@@ -53,7 +60,9 @@ export const sha256 = (data: Buffer) => createHash('sha256').update(data).digest
 
 /** Waits for the test hooks of the field shell (test build only). */
 export async function waitForHooks(page: Page): Promise<void> {
-  await expect.poll(() => page.evaluate(() => typeof (window as unknown as { __fallbookTest?: unknown }).__fallbookTest === 'object'), { timeout: 15_000 }).toBe(true);
+  await expect
+    .poll(() => page.evaluate(() => typeof (window as unknown as { __fallbookTest?: unknown }).__fallbookTest === 'object'), { timeout: 15_000 })
+    .toBe(true);
 }
 
 /**
@@ -66,20 +75,38 @@ export async function captureOffline(page: Page, visitId: string, seed: number):
   await waitForHooks(page);
   const started = Date.now();
   const ids = Array.from({ length: SOURCES + POINTS }, () => randomUUID());
-  await page.evaluate(async ({ visitId, ids, sources }) => {
-    const t = (window as unknown as Hooked).__fallbookTest;
-    for (let i = 0; i < ids.length; i++) {
-      const id = ids[i] as string;
-      if (i < sources) await t.saveRecord('waterSource', id, { visitId, name: `Seep ${i}`, kind: 'seep', notes: `walked at ${i}` });
-      else await t.saveRecord('point', id, { visitId, role: 'station', label: `Station ${i}`, lat: 52.41 + i / 1e4, lon: -3.61, accuracyM: 5,
-        altitudeM: 230 - i / 10, altitudeAccuracyM: 8, chainageM: i * 5, capturedAt: new Date().toISOString() });
-    }
-  }, { visitId, ids, sources: SOURCES });
+  await page.evaluate(
+    async ({ visitId, ids, sources }) => {
+      const t = (window as unknown as Hooked).__fallbookTest;
+      for (let i = 0; i < ids.length; i++) {
+        const id = ids[i] as string;
+        if (i < sources) await t.saveRecord('waterSource', id, { visitId, name: `Seep ${i}`, kind: 'seep', notes: `walked at ${i}` });
+        else
+          await t.saveRecord('point', id, {
+            visitId,
+            role: 'station',
+            label: `Station ${i}`,
+            lat: 52.41 + i / 1e4,
+            lon: -3.61,
+            accuracyM: 5,
+            altitudeM: 230 - i / 10,
+            altitudeAccuracyM: 8,
+            chainageM: i * 5,
+            capturedAt: new Date().toISOString(),
+          });
+      }
+    },
+    { visitId, ids, sources: SOURCES },
+  );
   const records = (Date.now() - started) / 1000;
   const files = await Promise.all(Array.from({ length: PHOTOS }, (_, i) => noiseJpeg(seed * 100 + i)));
   await page.getByTestId('photo-input').setInputFiles(files.map((buffer, i) => ({ name: `walk-${i}.jpg`, mimeType: 'image/jpeg', buffer })));
   await expect(page.getByText(`${PHOTOS} photos kept on this phone.`)).toBeVisible({ timeout: 20_000 });
-  const kept = await page.evaluate(async (visitId) => (await (window as unknown as Hooked).__fallbookTest.fieldDb().photos.where('visitId').equals(visitId).toArray()).map((p) => [p.id, p.sha256] as const), visitId);
+  const kept = await page.evaluate(
+    async (visitId) =>
+      (await (window as unknown as Hooked).__fallbookTest.fieldDb().photos.where('visitId').equals(visitId).toArray()).map((p) => [p.id, p.sha256] as const),
+    visitId,
+  );
   // The phone hashed the very bytes the test made.
   expect(kept.map(([, s]) => s).sort()).toEqual(files.map(sha256).sort());
   const state = await phoneState(page);
@@ -89,7 +116,13 @@ export async function captureOffline(page: Page, visitId: string, seed: number):
   return { visitId, sources: ids.slice(0, SOURCES), points: ids.slice(SOURCES), photos: new Map(kept), seconds };
 }
 
-export interface PhoneState { outbox: number; pending: number; parked: number; photosWaiting: number; lastRunAt: string | null }
+export interface PhoneState {
+  outbox: number;
+  pending: number;
+  parked: number;
+  photosWaiting: number;
+  lastRunAt: string | null;
+}
 
 /** What waits on the phone, from its own database. */
 export async function phoneState(page: Page): Promise<PhoneState> {
@@ -98,8 +131,11 @@ export async function phoneState(page: Page): Promise<PhoneState> {
     const outbox = await db.outbox.toArray();
     const lastRun = (await db.meta.get('lastRun'))?.value as { at?: string } | undefined;
     return {
-      outbox: outbox.length, pending: outbox.filter((e) => e.status === 'pending').length, parked: outbox.filter((e) => e.status !== 'pending').length,
-      photosWaiting: await db.photoBlobs.filter((b) => b.uploadedAt === null).count(), lastRunAt: lastRun?.at ?? null,
+      outbox: outbox.length,
+      pending: outbox.filter((e) => e.status === 'pending').length,
+      parked: outbox.filter((e) => e.status !== 'pending').length,
+      photosWaiting: await db.photoBlobs.filter((b) => b.uploadedAt === null).count(),
+      lastRunAt: lastRun?.at ?? null,
     };
   });
 }
@@ -110,8 +146,12 @@ export async function pressSync(page: Page): Promise<void> {
   await waitForHooks(page);
   const before = (await phoneState(page)).lastRunAt;
   await page.getByRole('button', { name: 'Sync now' }).click({ timeout: 30_000 });
-  await expect.poll(async () => (await phoneState(page)).lastRunAt !== before && (await page.getByRole('button', { name: 'Sync now', disabled: false }).count()) === 1,
-    { timeout: 30_000, intervals: [50, 100, 200] }).toBe(true);
+  await expect
+    .poll(async () => (await phoneState(page)).lastRunAt !== before && (await page.getByRole('button', { name: 'Sync now', disabled: false }).count()) === 1, {
+      timeout: 30_000,
+      intervals: [50, 100, 200],
+    })
+    .toBe(true);
 }
 
 /** Presses "Sync now" until nothing waits (or gives up after `maxRuns`); returns the number of runs. */
@@ -140,13 +180,17 @@ export async function assertExactlyOnce(c: Captured): Promise<void> {
   expect(await count(`SELECT COUNT(*) AS n FROM points WHERE id IN (${list(c.points)}) AND deleted_at IS NULL`, c.points)).toBe(POINTS);
   expect(await count(`SELECT COUNT(*) AS n FROM sync_ops WHERE entity_id IN (${list(all)})`, all)).toBe(all.length);
   const audit = await query<{ entityId: string; n: number }>(
-    `SELECT entity_id AS entityId, COUNT(*) AS n FROM audit_log WHERE action = 'created' AND entity_id IN (${list(all)}) GROUP BY entity_id`, all);
+    `SELECT entity_id AS entityId, COUNT(*) AS n FROM audit_log WHERE action = 'created' AND entity_id IN (${list(all)}) GROUP BY entity_id`,
+    all,
+  );
   expect(audit.length).toBe(all.length);
   expect(audit.filter((a) => Number(a.n) !== 1)).toEqual([]);
   const ids = [...c.photos.keys()];
   expect(await count(`SELECT COUNT(*) AS n FROM audit_log WHERE action = 'uploaded' AND entity_id IN (${list(ids)})`, ids)).toBe(PHOTOS);
   const rows = await query<{ id: string; sha256: string; storageKey: string | null; uploaded: number }>(
-    `SELECT id, sha256, storage_key AS storageKey, uploaded_at IS NOT NULL AS uploaded FROM photos WHERE id IN (${list(ids)})`, ids);
+    `SELECT id, sha256, storage_key AS storageKey, uploaded_at IS NOT NULL AS uploaded FROM photos WHERE id IN (${list(ids)})`,
+    ids,
+  );
   expect(rows.length).toBe(PHOTOS);
   for (const row of rows) {
     expect(Number(row.uploaded)).toBe(1);

@@ -8,7 +8,15 @@ import { dbSettings, root } from '../../../scripts/lib/env.mjs';
 // @ts-expect-error – as above
 import { ensureDatabase } from '../../../scripts/lib/mariadb.mjs';
 
-export interface DbSettings { host: string; port: number; name: string; user: string; password: string; socket: string; dataDir: string }
+export interface DbSettings {
+  host: string;
+  port: number;
+  name: string;
+  user: string;
+  password: string;
+  socket: string;
+  dataDir: string;
+}
 
 /** The test server's settings for another database on it. */
 export function dbNamed(name: string): DbSettings {
@@ -42,26 +50,35 @@ export async function demoDatabase(name: string): Promise<void> {
 }
 
 /** `next` is set for a SEQUENCE (its next value; a sequence has no rows to checksum). */
-export interface TablePrint { rows: number; checksum: string; create: string; next?: number }
+export interface TablePrint {
+  rows: number;
+  checksum: string;
+  create: string;
+  next?: number;
+}
 
 /** Every table's row count, CHECKSUM TABLE and definition (AUTO_INCREMENT counters left out). */
 export async function fingerprint(name: string, skip: readonly string[] = []): Promise<Map<string, TablePrint>> {
   const db = dbNamed(name);
   const conn = await mariadb.createConnection({ host: db.host, port: db.port, user: db.user, password: db.password, database: name, bigIntAsNumber: true });
   try {
-    const tables = (await conn.query('SELECT table_name AS t, table_type AS k FROM information_schema.tables WHERE table_schema = DATABASE() ORDER BY 1') as { t: string; k: string }[])
-      .filter((r) => !skip.includes(r.t));
+    const tables = (
+      (await conn.query('SELECT table_name AS t, table_type AS k FROM information_schema.tables WHERE table_schema = DATABASE() ORDER BY 1')) as {
+        t: string;
+        k: string;
+      }[]
+    ).filter((r) => !skip.includes(r.t));
     const out = new Map<string, TablePrint>();
     for (const { t, k } of tables) {
       if (k === 'SEQUENCE') {
-        const [seq] = await conn.query(`SELECT next_not_cached_value AS n FROM \`${t}\``) as { n: number }[];
-        const [create] = await conn.query(`SHOW CREATE SEQUENCE \`${t}\``) as Record<string, string>[];
+        const [seq] = (await conn.query(`SELECT next_not_cached_value AS n FROM \`${t}\``)) as { n: number }[];
+        const [create] = (await conn.query(`SHOW CREATE SEQUENCE \`${t}\``)) as Record<string, string>[];
         out.set(t, { rows: 1, checksum: 'sequence', create: create?.['Create Table'] ?? '', next: Number(seq?.n) });
         continue;
       }
-      const [count] = await conn.query(`SELECT COUNT(*) AS n FROM \`${t}\``) as { n: number }[];
-      const [sum] = await conn.query(`CHECKSUM TABLE \`${t}\``) as { Checksum: number | string | null }[];
-      const [create] = await conn.query(`SHOW CREATE TABLE \`${t}\``) as Record<string, string>[];
+      const [count] = (await conn.query(`SELECT COUNT(*) AS n FROM \`${t}\``)) as { n: number }[];
+      const [sum] = (await conn.query(`CHECKSUM TABLE \`${t}\``)) as { Checksum: number | string | null }[];
+      const [create] = (await conn.query(`SHOW CREATE TABLE \`${t}\``)) as Record<string, string>[];
       out.set(t, {
         rows: Number(count?.n ?? -1),
         checksum: String(sum?.Checksum ?? 'none'),

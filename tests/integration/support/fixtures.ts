@@ -5,7 +5,14 @@ import { defaultOrganisationSettings } from '@/lib/server/organisation-settings'
 import type { Role } from '@/lib/shared/domain';
 import { Farm, Organisation, User, Visit, getSequelize } from '@/lib/server/db';
 
-export interface TestUser { id: string; organisationId: string; role: Role; sessionVersion: number; email: string; name: string }
+export interface TestUser {
+  id: string;
+  organisationId: string;
+  role: Role;
+  sessionVersion: number;
+  email: string;
+  name: string;
+}
 
 async function makeUser(organisationId: string, role: Role, label: string): Promise<TestUser> {
   const id = randomUUID();
@@ -25,10 +32,42 @@ export async function makeOrganisation(label = 'org') {
   const otherFarmer = await makeUser(organisationId, 'farmer', `${label}-farmer-2`);
   // Synced records take a revision, which needs a transaction.
   const { farm, otherFarm, visit, otherVisit } = await getSequelize().transaction(async (transaction) => {
-    const farm = await Farm.create({ id: randomUUID(), organisationId, ownerId: farmer.id, name: `${label} farm`, area: 'test', lat: null, lon: null, notes: '' }, { transaction });
-    const otherFarm = await Farm.create({ id: randomUUID(), organisationId, ownerId: otherFarmer.id, name: `${label} farm 2`, area: 'test', lat: null, lon: null, notes: '' }, { transaction });
-    const visit = await Visit.create({ id: randomUUID(), organisationId, farmId: farm.id, advisorId: advisor.id, plannedOn: '2026-12-10', status: 'scheduled', notes: '', visitedAt: null, lastSyncedAt: null }, { transaction });
-    const otherVisit = await Visit.create({ id: randomUUID(), organisationId, farmId: otherFarm.id, advisorId: otherAdvisor.id, plannedOn: '2026-12-11', status: 'scheduled', notes: '', visitedAt: null, lastSyncedAt: null }, { transaction });
+    const farm = await Farm.create(
+      { id: randomUUID(), organisationId, ownerId: farmer.id, name: `${label} farm`, area: 'test', lat: null, lon: null, notes: '' },
+      { transaction },
+    );
+    const otherFarm = await Farm.create(
+      { id: randomUUID(), organisationId, ownerId: otherFarmer.id, name: `${label} farm 2`, area: 'test', lat: null, lon: null, notes: '' },
+      { transaction },
+    );
+    const visit = await Visit.create(
+      {
+        id: randomUUID(),
+        organisationId,
+        farmId: farm.id,
+        advisorId: advisor.id,
+        plannedOn: '2026-12-10',
+        status: 'scheduled',
+        notes: '',
+        visitedAt: null,
+        lastSyncedAt: null,
+      },
+      { transaction },
+    );
+    const otherVisit = await Visit.create(
+      {
+        id: randomUUID(),
+        organisationId,
+        farmId: otherFarm.id,
+        advisorId: otherAdvisor.id,
+        plannedOn: '2026-12-11',
+        status: 'scheduled',
+        notes: '',
+        visitedAt: null,
+        lastSyncedAt: null,
+      },
+      { transaction },
+    );
     return { farm, otherFarm, visit, otherVisit };
   });
   return { organisationId, coordinator, advisor, otherAdvisor, farmer, otherFarmer, farm, otherFarm, visit, otherVisit };

@@ -1,5 +1,11 @@
 // Reads what the local fake SMTP server caught (its JSON inbox on loopback).
-export interface CaughtMail { id: string; to: string; from: string; subject: string; raw: string }
+export interface CaughtMail {
+  id: string;
+  to: string;
+  from: string;
+  subject: string;
+  raw: string;
+}
 
 export async function caughtMail(): Promise<CaughtMail[]> {
   const res = await fetch(`http://127.0.0.1:${process.env.MAIL_INBOX_PORT}/messages`);

@@ -13,8 +13,11 @@ export function presignedUrlIsValid(href: string, secretAccessKey: string): bool
   const amzDate = q.get('X-Amz-Date') ?? '';
   const scope = (q.get('X-Amz-Credential') ?? '').split('/').slice(1).join('/');
   const [day = '', region = '', service = ''] = scope.split('/');
-  const query = [...q.entries()].filter(([k]) => k !== 'X-Amz-Signature')
-    .map(([k, v]) => `${encode(k)}=${encode(v)}`).sort().join('&');
+  const query = [...q.entries()]
+    .filter(([k]) => k !== 'X-Amz-Signature')
+    .map(([k, v]) => `${encode(k)}=${encode(v)}`)
+    .sort()
+    .join('&');
   const canonical = ['GET', url.pathname, query, `host:${url.host}`, '', 'host', 'UNSIGNED-PAYLOAD'].join('\n');
   const toSign = ['AWS4-HMAC-SHA256', amzDate, scope, createHash('sha256').update(canonical).digest('hex')].join('\n');
   const key = hmac(hmac(hmac(hmac(`AWS4${secretAccessKey}`, day), region), service), 'aws4_request');

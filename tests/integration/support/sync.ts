@@ -23,7 +23,11 @@ export async function push(user: TestUser, body: unknown) {
   const res = await pushRoute(await request('/api/sync/push', user, { method: 'POST', body }), params({}));
   const json = await res.json();
   await flushScreenings();
-  return { status: res.status, results: (json.results ?? []) as OpResult[], error: json.error as { message: string; fieldErrors?: Record<string, string[]> } | undefined };
+  return {
+    status: res.status,
+    results: (json.results ?? []) as OpResult[],
+    error: json.error as { message: string; fieldErrors?: Record<string, string[]> } | undefined,
+  };
 }
 
 /** GET /api/sync/pull as the user. */
@@ -48,28 +52,83 @@ export async function pullAll(user: TestUser, cursor = 0, limit = 500) {
 /** Every id in a pull page, tagged with its kind. */
 export function pulledIds(page: PullResponse): string[] {
   return [
-    ...page.farms.map((f) => `farm:${f.id}`), ...page.visits.map((v) => `visit:${v.id}`),
+    ...page.farms.map((f) => `farm:${f.id}`),
+    ...page.visits.map((v) => `visit:${v.id}`),
     ...Object.entries(page.records).flatMap(([kind, rows]) => (rows as { id: string }[]).map((r) => `${kind}:${r.id}`)),
   ];
 }
 
 /** A complete set of readings for one visit (invented, like the demo's walked sites), as create ops. */
 export function readingOps(visitId: string, farmId: string) {
-  const ids = { source: randomUUID(), flow: randomUUID(), fall: randomUUID(), lift: randomUUID(), drive: randomUUID(), delivery: randomUUID(), demand: randomUUID(), point: randomUUID() };
+  const ids = {
+    source: randomUUID(),
+    flow: randomUUID(),
+    fall: randomUUID(),
+    lift: randomUUID(),
+    drive: randomUUID(),
+    delivery: randomUUID(),
+    demand: randomUUID(),
+    point: randomUUID(),
+  };
   const takenAt = '2026-08-01T09:30:00.000Z';
   const ops = [
     putOp('waterSource', ids.source, { visitId, name: 'Test spring', kind: 'spring', notes: '' }),
-    putOp('flowMeasurement', ids.flow, { visitId, sourceId: ids.source, takenAt, notes: '',
-      measurement: { method: 'volumetric', season: 'dry', trials: [{ volumeL: 20, seconds: 10.4 }, { volumeL: 20, seconds: 10.9 }] } }),
-    putOp('fallReading', ids.fall, { visitId, purpose: 'fall', seq: 0, takenAt, notes: '', bookedFrom: null,
-      run: { method: 'level', rows: [{ backsightM: 1.842 }, { foresightM: 2.618, backsightM: 0.512 }, { foresightM: 2.309, backsightM: 0.688 }, { foresightM: 2.215 }] } }),
-    putOp('fallReading', ids.lift, { visitId, purpose: 'lift', seq: 1, takenAt, notes: '', bookedFrom: 'pump',
-      run: { method: 'clinometer', legs: [{ slopeDistanceM: 60, angleBelowHorizontalDeg: -9 }, { slopeDistanceM: 55, angleBelowHorizontalDeg: -12 }] } }),
+    putOp('flowMeasurement', ids.flow, {
+      visitId,
+      sourceId: ids.source,
+      takenAt,
+      notes: '',
+      measurement: {
+        method: 'volumetric',
+        season: 'dry',
+        trials: [
+          { volumeL: 20, seconds: 10.4 },
+          { volumeL: 20, seconds: 10.9 },
+        ],
+      },
+    }),
+    putOp('fallReading', ids.fall, {
+      visitId,
+      purpose: 'fall',
+      seq: 0,
+      takenAt,
+      notes: '',
+      bookedFrom: null,
+      run: {
+        method: 'level',
+        rows: [{ backsightM: 1.842 }, { foresightM: 2.618, backsightM: 0.512 }, { foresightM: 2.309, backsightM: 0.688 }, { foresightM: 2.215 }],
+      },
+    }),
+    putOp('fallReading', ids.lift, {
+      visitId,
+      purpose: 'lift',
+      seq: 1,
+      takenAt,
+      notes: '',
+      bookedFrom: 'pump',
+      run: {
+        method: 'clinometer',
+        legs: [
+          { slopeDistanceM: 60, angleBelowHorizontalDeg: -9 },
+          { slopeDistanceM: 55, angleBelowHorizontalDeg: -12 },
+        ],
+      },
+    }),
     putOp('pipeRun', ids.drive, { visitId, purpose: 'drive', lengthM: 24, diameterMm: null, material: 'galvanized-steel', pressureClass: null }),
     putOp('pipeRun', ids.delivery, { visitId, purpose: 'delivery', lengthM: 420, diameterMm: null, material: 'hdpe', pressureClass: null }),
     putOp('demandLine', ids.demand, { farmId, kind: 'beef-cow-nursing', count: 6, litresPerHeadPerDay: 62, figureSource: 'catalogue', note: '' }),
-    putOp('point', ids.point, { visitId, role: 'pump', label: 'Ram site', lat: 52.419, lon: -3.616, accuracyM: 4, altitudeM: 232,
-      altitudeAccuracyM: 6, chainageM: null, capturedAt: takenAt }),
+    putOp('point', ids.point, {
+      visitId,
+      role: 'pump',
+      label: 'Ram site',
+      lat: 52.419,
+      lon: -3.616,
+      accuracyM: 4,
+      altitudeM: 232,
+      altitudeAccuracyM: 6,
+      chainageM: null,
+      capturedAt: takenAt,
+    }),
   ];
   return { ids, ops };
 }

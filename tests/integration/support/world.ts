@@ -16,24 +16,45 @@ export type Org = Awaited<ReturnType<typeof makeOrganisation>>;
 export type Reach = 'own' | 'other-advisor' | 'other-org';
 export const REACHES: readonly Reach[] = ['own', 'other-advisor', 'other-org'];
 
-export interface World { org: Org; otherOrg: Org; photos: Map<string, Resource> }
+export interface World {
+  org: Org;
+  otherOrg: Org;
+  photos: Map<string, Resource>;
+}
 
 /** A small JPEG, different each call (so every photo has its own sha-256). */
 export async function tinyJpeg(seed = Math.floor(Math.random() * 255)): Promise<Buffer> {
-  return sharp({ create: { width: 64, height: 48, channels: 3, background: { r: seed, g: 120, b: 90 } } }).jpeg().toBuffer();
+  return sharp({ create: { width: 64, height: 48, channels: 3, background: { r: seed, g: 120, b: 90 } } })
+    .jpeg()
+    .toBuffer();
 }
 
 /** Pushes a photo's metadata as `advisor` and uploads its bytes; the photo as a matrix resource. */
 export async function uploadedPhoto(advisor: TestUser, visit: Resource): Promise<Resource> {
   const bytes = await tinyJpeg();
   const id = randomUUID();
-  const { results } = await push(advisor, { ops: [putOp('photo', id, {
-    visitId: visit.visitId, pointId: null, caption: 'Matrix photo', mime: 'image/jpeg', bytes: bytes.length, sha256: sha256(bytes),
-    width: null, height: null, lat: null, lon: null, takenAt: null,
-  })] });
+  const { results } = await push(advisor, {
+    ops: [
+      putOp('photo', id, {
+        visitId: visit.visitId,
+        pointId: null,
+        caption: 'Matrix photo',
+        mime: 'image/jpeg',
+        bytes: bytes.length,
+        sha256: sha256(bytes),
+        width: null,
+        height: null,
+        lat: null,
+        lon: null,
+        takenAt: null,
+      }),
+    ],
+  });
   if (results[0]?.status !== 'applied') throw new Error(`photo metadata not applied: ${JSON.stringify(results[0])}`);
   const req = new NextRequest(new URL(`/api/photos/${id}`, 'http://127.0.0.1:3100'), {
-    method: 'PUT', body: new Uint8Array(bytes), headers: { cookie: await sessionCookie(advisor), 'content-type': 'application/octet-stream' },
+    method: 'PUT',
+    body: new Uint8Array(bytes),
+    headers: { cookie: await sessionCookie(advisor), 'content-type': 'application/octet-stream' },
   });
   const res = await putPhoto(req, params({ id }));
   if (res.status !== 200) throw new Error(`photo upload answered ${res.status}`);
@@ -64,9 +85,20 @@ export async function makeWorld(target: Target, label: string): Promise<World> {
     });
     // A farmer's question on each, for the answers route to answer.
     for (const o of [org, otherOrg]) {
-      for (const [visit, owner] of [[o.visit, o.farmer], [o.otherVisit, o.otherFarmer]] as const) {
+      for (const [visit, owner] of [
+        [o.visit, o.farmer],
+        [o.otherVisit, o.otherFarmer],
+      ] as const) {
         const screening = await Screening.findOne({ where: { visitId: visit.id }, attributes: ['id'], rejectOnEmpty: true });
-        await SheetResponse.create({ id: randomUUID(), visitId: visit.id, screeningId: screening.id, authorId: owner.id, kind: 'question', text: 'How deep is the intake?', replyToId: null });
+        await SheetResponse.create({
+          id: randomUUID(),
+          visitId: visit.id,
+          screeningId: screening.id,
+          authorId: owner.id,
+          kind: 'question',
+          text: 'How deep is the intake?',
+          replyToId: null,
+        });
       }
     }
   }

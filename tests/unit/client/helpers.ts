@@ -14,7 +14,11 @@ export const VISIT = '11111111-1111-4111-8111-111111111111';
 
 export function emptyPull(cursor = 0): PullResponse {
   return {
-    cursor, hasMore: false, visibleVisitIds: [VISIT], farms: [], visits: [],
+    cursor,
+    hasMore: false,
+    visibleVisitIds: [VISIT],
+    farms: [],
+    visits: [],
     records: { waterSource: [], flowMeasurement: [], fallReading: [], point: [], photo: [], demandLine: [], pipeRun: [] },
     settings: { unitsDefault: 'metric', designFractionOfLowest: 0.5, demandFigures: {} },
   };
@@ -58,10 +62,15 @@ export function fakeServer(decide: (op: SyncOp, seen: number) => OpResult['statu
   });
   vi.stubGlobal('fetch', fetchMock);
   return {
-    pushed, fetchMock,
+    pushed,
+    fetchMock,
     /** The next request fails: 0 = network error, else that HTTP status. */
-    failNextWith(status: number) { failNext = status; },
+    failNextWith(status: number) {
+      failNext = status;
+    },
     /** Every batch holding an op that matches fails whole with that status (as a server-side fault would). */
-    failBatchesContaining(when: (op: SyncOp) => boolean, status: number) { poison = { when, status }; },
+    failBatchesContaining(when: (op: SyncOp) => boolean, status: number) {
+      poison = { when, status };
+    },
   };
 }

@@ -6,11 +6,21 @@ import { freshDb, VISIT } from './helpers';
 
 const POINT = '22222222-2222-4222-8222-222222222222';
 let db: FieldDatabase;
-beforeEach(() => { db = freshDb(); });
+beforeEach(() => {
+  db = freshDb();
+});
 
 const pointFields = {
-  visitId: VISIT, role: 'intake' as const, label: 'Pool', lat: 52.4, lon: -3.6, accuracyM: 4,
-  altitudeM: 236, altitudeAccuracyM: 6, chainageM: null, capturedAt: null,
+  visitId: VISIT,
+  role: 'intake' as const,
+  label: 'Pool',
+  lat: 52.4,
+  lon: -3.6,
+  accuracyM: 4,
+  altitudeM: 236,
+  altitudeAccuracyM: 6,
+  chainageM: null,
+  capturedAt: null,
 };
 
 describe('the outbox', () => {
@@ -56,10 +66,23 @@ describe('the outbox', () => {
 
   it('a photo keeps its bytes beside its metadata op', async () => {
     const bytes = new Uint8Array([0xff, 0xd8, 0xff, 1, 2, 3]).buffer;
-    await savePhoto('33333333-3333-4333-8333-333333333333', {
-      visitId: VISIT, pointId: null, caption: 'intake', mime: 'image/jpeg', bytes: 6, sha256: 'a'.repeat(64),
-      width: null, height: null, lat: null, lon: null, takenAt: null,
-    }, bytes);
+    await savePhoto(
+      '33333333-3333-4333-8333-333333333333',
+      {
+        visitId: VISIT,
+        pointId: null,
+        caption: 'intake',
+        mime: 'image/jpeg',
+        bytes: 6,
+        sha256: 'a'.repeat(64),
+        width: null,
+        height: null,
+        lat: null,
+        lon: null,
+        takenAt: null,
+      },
+      bytes,
+    );
     const blob = await db.photoBlobs.get('33333333-3333-4333-8333-333333333333');
     expect(new Uint8Array(blob?.data ?? new ArrayBuffer(0))).toEqual(new Uint8Array([0xff, 0xd8, 0xff, 1, 2, 3]));
     expect(blob?.uploadedAt).toBeNull();
@@ -70,7 +93,8 @@ describe('the outbox', () => {
 describe('the phone refuses what the server would, and takes back what it can', () => {
   it('an impossible value is refused with its field message, and nothing is written', async () => {
     await expect(saveRecord('point', POINT, { ...pointFields, chainageM: -20 })).rejects.toMatchObject({
-      name: 'RecordRefused', messages: { chainageM: 'Distance along the route must not be negative.' },
+      name: 'RecordRefused',
+      messages: { chainageM: 'Distance along the route must not be negative.' },
     });
     expect(await db.points.count()).toBe(0);
     expect(await db.outbox.count()).toBe(0);
@@ -95,7 +119,7 @@ describe('the phone refuses what the server would, and takes back what it can', 
     expect(await undoDelete('point', POINT)).toBe(false);
   });
 
-  it('giving up a refused edit puts the server\'s value back on the phone', async () => {
+  it("giving up a refused edit puts the server's value back on the phone", async () => {
     await saveRecord('point', POINT, pointFields);
     await db.outbox.clear();
     await db.points.update(POINT, { rev: 4 });

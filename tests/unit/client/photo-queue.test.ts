@@ -6,11 +6,18 @@ import { photoQueueCounts, waitingPhotoIds, waitingPhotos } from '@/lib/client/p
 import { freshDb } from './helpers';
 
 let db: FieldDatabase;
-beforeEach(() => { db = freshDb(); });
+beforeEach(() => {
+  db = freshDb();
+});
 
 const blob = (n: number, extra: Partial<PhotoBlob> = {}): PhotoBlob => ({
-  id: `66666666-6666-4666-8666-${String(n).padStart(12, '0')}`, data: new ArrayBuffer(8), mime: 'image/jpeg',
-  uploadedAt: null, attempts: 0, nextAttemptAt: 0, ...extra,
+  id: `66666666-6666-4666-8666-${String(n).padStart(12, '0')}`,
+  data: new ArrayBuffer(8),
+  mime: 'image/jpeg',
+  uploadedAt: null,
+  attempts: 0,
+  nextAttemptAt: 0,
+  ...extra,
 });
 
 describe('photo queue', () => {

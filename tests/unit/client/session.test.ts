@@ -8,9 +8,12 @@ const ADVISOR = { id: 'u-1', name: 'Tobias', email: 't@example.test', role: 'adv
 
 /** A fetch that never answers until aborted, as on a weak signal. */
 function hangingFetch() {
-  return vi.fn((_url: string, init?: RequestInit) => new Promise<Response>((_resolve, reject) => {
-    init?.signal?.addEventListener('abort', () => reject(init.signal?.reason));
-  }));
+  return vi.fn(
+    (_url: string, init?: RequestInit) =>
+      new Promise<Response>((_resolve, reject) => {
+        init?.signal?.addEventListener('abort', () => reject(init.signal?.reason));
+      }),
+  );
 }
 
 afterEach(() => vi.unstubAllGlobals());
@@ -43,7 +46,10 @@ describe('the field book opens on a weak signal', () => {
   it('a 401 signs out even with a remembered advisor', async () => {
     freshDb();
     await setMeta('user', ADVISOR);
-    vi.stubGlobal('fetch', vi.fn(async () => new Response('{}', { status: 401 })));
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => new Response('{}', { status: 401 })),
+    );
     expect(await loadLocalSession(50)).toEqual({ state: 'signed-out' });
   });
 });

@@ -4,7 +4,9 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import type { SyncWorkerReply, SyncWorkerRequest } from '@/lib/client/sync/sync-worker';
 
-afterEach(() => { vi.unstubAllGlobals(); });
+afterEach(() => {
+  vi.unstubAllGlobals();
+});
 
 /**
  * Fresh modules for one test (the page module keeps one worker per page), all sharing one fresh
@@ -15,9 +17,13 @@ async function load() {
   const helpers = await import('./helpers');
   const { saveRecord } = await import('@/lib/client/outbox');
   const db = helpers.freshDb();
-  const source = (i: number) => saveRecord('waterSource', `55555555-5555-4555-8555-${String(i).padStart(12, '0')}`, {
-    visitId: helpers.VISIT, name: `source ${i}`, kind: 'creek', notes: '',
-  });
+  const source = (i: number) =>
+    saveRecord('waterSource', `55555555-5555-4555-8555-${String(i).padStart(12, '0')}`, {
+      visitId: helpers.VISIT,
+      name: `source ${i}`,
+      kind: 'creek',
+      notes: '',
+    });
   return { db, source, fakeServer: helpers.fakeServer, inWorker: () => import('@/lib/client/sync/in-worker') };
 }
 
@@ -27,7 +33,9 @@ async function workerScope() {
   let onMessage: ((event: MessageEvent<SyncWorkerRequest>) => void) | undefined;
   vi.stubGlobal('self', {
     postMessage: (m: SyncWorkerReply) => posted.push(m),
-    addEventListener: (_: string, listener: typeof onMessage) => { onMessage = listener; },
+    addEventListener: (_: string, listener: typeof onMessage) => {
+      onMessage = listener;
+    },
   });
   await import('@/lib/client/sync/sync-worker');
   return { posted, request: (data: SyncWorkerRequest) => onMessage?.(new MessageEvent('message', { data })) };
@@ -42,9 +50,13 @@ function stubWorker(answer: (request: SyncWorkerRequest, reply: (m: SyncWorkerRe
       started.push(url.pathname);
     }
     postMessage(request: SyncWorkerRequest) {
-      queueMicrotask(() => answer(request,
-        (m) => this.dispatchEvent(new MessageEvent('message', { data: m })),
-        () => this.dispatchEvent(new Event('error'))));
+      queueMicrotask(() =>
+        answer(
+          request,
+          (m) => this.dispatchEvent(new MessageEvent('message', { data: m })),
+          () => this.dispatchEvent(new Event('error')),
+        ),
+      );
     }
     terminate() {}
   }
@@ -67,7 +79,7 @@ describe('the sync worker', () => {
   });
 });
 
-describe('the field worker: the frame\'s reads', () => {
+describe("the field worker: the frame's reads", () => {
   it('answers a watch with the summary, again after a change, and not after unwatch', async () => {
     const { source } = await load();
     const { posted, request } = await workerScope();
@@ -96,7 +108,13 @@ describe('the field worker: the frame\'s reads', () => {
     await source(7);
     const { watchFrame } = await inWorker();
     const seen: number[] = [];
-    const stop = watchFrame('syncSummary', (value) => seen.push(value.waiting), (error) => { throw error; });
+    const stop = watchFrame(
+      'syncSummary',
+      (value) => seen.push(value.waiting),
+      (error) => {
+        throw error;
+      },
+    );
     await vi.waitFor(() => expect(seen).toEqual([1]));
     stop();
   });
@@ -134,7 +152,9 @@ describe('the page side (runSyncInWorker)', () => {
     let task = 0;
     const ticker = setInterval(() => task++, 1);
     const arrived: [string, number][] = [];
-    const fail = (error: unknown) => { throw error; };
+    const fail = (error: unknown) => {
+      throw error;
+    };
     const stops = [watchFrame('syncSummary', () => arrived.push(['summary', task]), fail), watchFrame('homeVisits', () => arrived.push(['list', task]), fail)];
     await vi.waitFor(() => expect(arrived).toHaveLength(2));
     clearInterval(ticker);

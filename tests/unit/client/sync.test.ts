@@ -9,12 +9,20 @@ import { runSync } from '@/lib/client/sync/runner';
 import { emptyPull, fakeServer, freshDb, VISIT } from './helpers';
 
 let db: FieldDatabase;
-beforeEach(() => { db = freshDb(); });
-afterEach(() => { vi.unstubAllGlobals(); });
-
-const note = (i: number) => saveRecord('waterSource', `44444444-4444-4444-8444-${String(i).padStart(12, '0')}`, {
-  visitId: VISIT, name: `source ${i}`, kind: 'creek', notes: '',
+beforeEach(() => {
+  db = freshDb();
 });
+afterEach(() => {
+  vi.unstubAllGlobals();
+});
+
+const note = (i: number) =>
+  saveRecord('waterSource', `44444444-4444-4444-8444-${String(i).padStart(12, '0')}`, {
+    visitId: VISIT,
+    name: `source ${i}`,
+    kind: 'creek',
+    notes: '',
+  });
 
 describe('backoff (exponential with jitter, capped)', () => {
   it('doubles per attempt within [half, full] of the ceiling and never passes the cap', () => {
@@ -118,7 +126,19 @@ describe('push', () => {
 
 describe('photos', () => {
   const PHOTO = '55555555-5555-4555-8555-555555555555';
-  const meta = { visitId: VISIT, pointId: null, caption: '', mime: 'image/jpeg' as const, bytes: 3, sha256: 'b'.repeat(64), width: null, height: null, lat: null, lon: null, takenAt: null };
+  const meta = {
+    visitId: VISIT,
+    pointId: null,
+    caption: '',
+    mime: 'image/jpeg' as const,
+    bytes: 3,
+    sha256: 'b'.repeat(64),
+    width: null,
+    height: null,
+    lat: null,
+    lon: null,
+    takenAt: null,
+  };
 
   it('upload only after the metadata op was acknowledged, and are kept until the server confirms', async () => {
     const server = fakeServer();
@@ -164,7 +184,18 @@ describe('pull', () => {
   it('forgets visits reassigned away unless changes for them still wait', async () => {
     await db.visits.bulkPut([
       { id: VISIT, farmId: 'f', plannedOn: null, advisorId: null, notes: '', status: 'scheduled', visitedAt: null, rev: 1, deletedAt: null, updatedAt: '' },
-      { id: '77777777-7777-4777-8777-777777777777', farmId: 'f', plannedOn: null, advisorId: null, notes: '', status: 'scheduled', visitedAt: null, rev: 1, deletedAt: null, updatedAt: '' },
+      {
+        id: '77777777-7777-4777-8777-777777777777',
+        farmId: 'f',
+        plannedOn: null,
+        advisorId: null,
+        notes: '',
+        status: 'scheduled',
+        visitedAt: null,
+        rev: 1,
+        deletedAt: null,
+        updatedAt: '',
+      },
     ]);
     await note(1); // waits, on VISIT
     const page = emptyPull(5);
@@ -198,9 +229,17 @@ describe('no signal is not a server failure', () => {
 
 describe('commissioning checks on the phone', () => {
   const CHECK = '55555555-5555-4555-8555-000000000001';
-  const check = () => saveRecord('commissioning', CHECK, {
-    visitId: VISIT, driveLpm: 54, deliveredLpm: 3.6, beatsPerMinute: 150, liftM: 25, fallM: 4, drivePipeMaterial: null, notes: '',
-  });
+  const check = () =>
+    saveRecord('commissioning', CHECK, {
+      visitId: VISIT,
+      driveLpm: 54,
+      deliveredLpm: 3.6,
+      beatsPerMinute: 150,
+      liftM: 25,
+      fallM: 4,
+      drivePipeMaterial: null,
+      notes: '',
+    });
 
   it('keeps the check and its op until the server acknowledges it, then keeps the check with nothing waiting', async () => {
     const server = fakeServer();
@@ -219,7 +258,18 @@ describe('commissioning checks on the phone', () => {
   it('a check still waiting is kept when its visit is reassigned away; a sent one goes with the visit', async () => {
     fakeServer();
     await check();
-    await db.visits.put({ id: VISIT, rev: 1, farmId: 'f', plannedOn: null, advisorId: null, notes: '', status: 'screened', visitedAt: null, deletedAt: null, updatedAt: new Date().toISOString() } as never);
+    await db.visits.put({
+      id: VISIT,
+      rev: 1,
+      farmId: 'f',
+      plannedOn: null,
+      advisorId: null,
+      notes: '',
+      status: 'screened',
+      visitedAt: null,
+      deletedAt: null,
+      updatedAt: new Date().toISOString(),
+    } as never);
     await mergePull({ ...emptyPull(5), visibleVisitIds: [] });
     expect(await db.commissionings.count()).toBe(1);
     await pushAll(true);
@@ -231,9 +281,21 @@ describe('commissioning checks on the phone', () => {
 
 describe('a photo the server refuses', () => {
   const PHOTO = '66666666-6666-4666-8666-666666666666';
-  const meta = { visitId: VISIT, pointId: null, caption: 'intake pool', mime: 'image/jpeg' as const, bytes: 3, sha256: 'c'.repeat(64), width: null, height: null, lat: null, lon: null, takenAt: null };
+  const meta = {
+    visitId: VISIT,
+    pointId: null,
+    caption: 'intake pool',
+    mime: 'image/jpeg' as const,
+    bytes: 3,
+    sha256: 'c'.repeat(64),
+    width: null,
+    height: null,
+    lat: null,
+    lon: null,
+    takenAt: null,
+  };
 
-  it('keeps the bytes with the server\'s reason, and clears the reason once a later upload is taken', async () => {
+  it("keeps the bytes with the server's reason, and clears the reason once a later upload is taken", async () => {
     const server = fakeServer();
     await savePhoto(PHOTO, meta, new Uint8Array([1, 2, 3]).buffer);
     await pushAll();

@@ -24,7 +24,10 @@ function site(k: Knobs): SiteReadingsInput {
     lift: { kind: 'direct', staticLiftM: k.liftM, method: 'level' },
     drivePipe: k.drivePipe ?? { material: 'galvanized-steel' },
     deliveryPipe: k.deliveryPipe ?? { lengthM: 300, material: 'hdpe' },
-    demand: k.demand ?? [{ kind: 'person-tap-on-plot', count: 4 }, { kind: 'beef-cow-dry', count: 10 }],
+    demand: k.demand ?? [
+      { kind: 'person-tap-on-plot', count: 4 },
+      { kind: 'beef-cow-dry', count: 10 },
+    ],
     settings: k.settings,
     monteCarlo: { samples: 4000, seed: 11 },
   };
@@ -49,7 +52,15 @@ describe('size from demand, not from the creek (Ogden 1911, Table XI)', () => {
 
   it('where the farm\u2019s 1¼″ drive pipe sets the size and one such ram is too small, rams in parallel each on its own drive pipe; the bill counts them', () => {
     // 80 dry cows (4,240 L/day) on a 200 L/min stream: one 1¼″ ram at its 6 gpm delivers too little at ratio 5.
-    const s = screenSite(site({ fallM: 3, liftM: 15, lowestLpm: 200, drivePipe: { material: 'galvanized-steel', diameterMm: 35.1 }, demand: [{ kind: 'beef-cow-dry', count: 80 }] }));
+    const s = screenSite(
+      site({
+        fallM: 3,
+        liftM: 15,
+        lowestLpm: 200,
+        drivePipe: { material: 'galvanized-steel', diameterMm: 35.1 },
+        demand: [{ kind: 'beef-cow-dry', count: 80 }],
+      }),
+    );
     expect(value(s, 'ramCount')).toBeGreaterThan(1);
     expect(codes(s)).toContain('RAMS_IN_PARALLEL');
     const ram = s.billOfMaterials.find((b) => b.item === 'Hydraulic ram');
@@ -128,7 +139,13 @@ describe('pressures as they occur (Joukowsky; the delivery valve opens at about 
 
 describe('every size, every check', () => {
   it('a 12″ ram row (5″ delivery, above every listed delivery size but 6″) gets a 6″ or larger delivery pipe, not ½″', () => {
-    const d = designDeliveryPipe({ pipe: { lengthM: 300, material: 'hdpe' }, fittingsAllowance: 0.25, ramDeliveryIn: 5, staticLiftM: 24, frictionFor: () => 0 });
+    const d = designDeliveryPipe({
+      pipe: { lengthM: 300, material: 'hdpe' },
+      fittingsAllowance: 0.25,
+      ramDeliveryIn: 5,
+      staticLiftM: 24,
+      frictionFor: () => 0,
+    });
     expect(d.size.nominalIn).toBeGreaterThanOrEqual(6);
   });
 
@@ -149,12 +166,22 @@ describe('every size, every check', () => {
   });
 
   it('delivery friction over 10 % of the lift is reported whatever was entered', () => {
-    const s = screenSite(site({ fallM: 3, liftM: 24, lowestLpm: 100, deliveryPipe: { lengthM: 2000, diameterMm: 12, material: 'hdpe' }, demand: [{ kind: 'beef-cow-dry', count: 2 }] }));
+    const s = screenSite(
+      site({
+        fallM: 3,
+        liftM: 24,
+        lowestLpm: 100,
+        deliveryPipe: { lengthM: 2000, diameterMm: 12, material: 'hdpe' },
+        demand: [{ kind: 'beef-cow-dry', count: 2 }],
+      }),
+    );
     expect(codes(s)).toContain('DELIVERY_FRICTION_HIGH');
   });
 
   it('a delivery pipe rated under 1.25 × the lift is a condition, not a note (common practice, no source)', () => {
-    const j = judge(facts({ totalLiftM: 100, delivery: { frictionM: 1, frictionOverLimit: false, ratingM: 100, classLabel: 'PE SDR 17', diameterGiven: false } }));
+    const j = judge(
+      facts({ totalLiftM: 100, delivery: { frictionM: 1, frictionOverLimit: false, ratingM: 100, classLabel: 'PE SDR 17', diameterGiven: false } }),
+    );
     expect(j.reasons.find((r) => r.code === 'DELIVERY_PIPE_RATING_LOW')?.severity).toBe('conditional');
   });
 });
@@ -180,7 +207,13 @@ describe('gravity is its own outcome, judged on static levels', () => {
   it('the pipe\u2019s capacity follows Hazen–Williams with the head: 0.5 L/s through 300 m of 25 mm, C 150, needs 14.6 m (EPANET 2, Table 3.1)', () => {
     // 14.6 m of head over 300 m of 25 mm bore carries 0.5 L/s = 43,200 L/day; check the gravity figure at that head.
     const s = screenSite({
-      ...site({ fallM: 14.6 + 1, liftM: 1, lowestLpm: 600, deliveryPipe: { lengthM: 300, diameterMm: 25, material: 'pvc' }, drivePipe: { material: 'galvanized-steel', lengthM: 0.001 } }),
+      ...site({
+        fallM: 14.6 + 1,
+        liftM: 1,
+        lowestLpm: 600,
+        deliveryPipe: { lengthM: 300, diameterMm: 25, material: 'pvc' },
+        drivePipe: { material: 'galvanized-steel', lengthM: 0.001 },
+      }),
       settings: { fittingsAllowanceFraction: 0 },
       demand: [demandOf(100)],
     });
@@ -251,21 +284,64 @@ describe('edges', () => {
 });
 
 const driveFacts: NonNullable<RamVerdictFacts['drive']> = {
-  lengthM: 20, lengthGiven: false, bandMinM: 9, bandMaxM: 21, bandRule: '3–7 × fall', lengthConflict: null, ldMinM: 5, ldMaxM: 35,
-  lengthToDiameter: 570, closureVelocityMps: 0.8, minimumClosureVelocityMps: 0.2, limitedByFall: false, attainableVelocityMps: 1.9, driveLpm: 22.7,
-  workingPeakHeadM: 36, blockedDeliveryHeadM: 116, allowedHeadM: 211, ratingM: 211, cyclicDerated: false,
-  classLabel: 'Schedule 40, class 150 fittings (300 psi)', higherClassLabel: null, materialLabel: 'Galvanized steel', rigid: true, sizeLabel: '1¼″ (32 mm)',
-  fittingsMade: true, smallerThanRam: false,
+  lengthM: 20,
+  lengthGiven: false,
+  bandMinM: 9,
+  bandMaxM: 21,
+  bandRule: '3–7 × fall',
+  lengthConflict: null,
+  ldMinM: 5,
+  ldMaxM: 35,
+  lengthToDiameter: 570,
+  closureVelocityMps: 0.8,
+  minimumClosureVelocityMps: 0.2,
+  limitedByFall: false,
+  attainableVelocityMps: 1.9,
+  driveLpm: 22.7,
+  workingPeakHeadM: 36,
+  blockedDeliveryHeadM: 116,
+  allowedHeadM: 211,
+  ratingM: 211,
+  cyclicDerated: false,
+  classLabel: 'Schedule 40, class 150 fittings (300 psi)',
+  higherClassLabel: null,
+  materialLabel: 'Galvanized steel',
+  rigid: true,
+  sizeLabel: '1¼″ (32 mm)',
+  fittingsMade: true,
+  smallerThanRam: false,
 };
 
 // A plain-go site's facts, for checking single verdict rules.
 function facts(patch: Partial<RamVerdictFacts>): RamVerdictFacts {
   return {
-    fallM: 3, fallSigmaM: 0.005, fallRunsDisagree: [], misclosures: [], bookingFailed: [], anyDrySeason: true, lowHeadMeasurements: [],
-    lowestLpm: 100, availableLpm: 50, designFraction: 0.5, plan: { status: 'meets', count: 1, sizeLabel: '1¼″ (32 mm)', forced: false },
-    smallestRamMinLpm: 9.5, leastRamFallM: 0.61, staticLiftM: 24, totalLiftM: 25, liftRatio: 8.3, efficiencyStatus: 'in-range',
-    curveLabel: 'table', curveRange: [4, 26], curveStatedUpTo: 26, deliveryLpd: 2000, demandLpd: 1000, marginFraction: 0.2,
-    probabilityMeets: 0.99, minProbabilityForGo: 0.8, fix: null, drive: driveFacts,
+    fallM: 3,
+    fallSigmaM: 0.005,
+    fallRunsDisagree: [],
+    misclosures: [],
+    bookingFailed: [],
+    anyDrySeason: true,
+    lowHeadMeasurements: [],
+    lowestLpm: 100,
+    availableLpm: 50,
+    designFraction: 0.5,
+    plan: { status: 'meets', count: 1, sizeLabel: '1¼″ (32 mm)', forced: false },
+    smallestRamMinLpm: 9.5,
+    leastRamFallM: 0.61,
+    staticLiftM: 24,
+    totalLiftM: 25,
+    liftRatio: 8.3,
+    efficiencyStatus: 'in-range',
+    curveLabel: 'table',
+    curveRange: [4, 26],
+    curveStatedUpTo: 26,
+    deliveryLpd: 2000,
+    demandLpd: 1000,
+    marginFraction: 0.2,
+    probabilityMeets: 0.99,
+    minProbabilityForGo: 0.8,
+    fix: null,
+    drive: driveFacts,
     delivery: { frictionM: 1, frictionOverLimit: false, ratingM: 88, classLabel: 'PE SDR 17', diameterGiven: false },
     ...patch,
   };
@@ -283,7 +359,7 @@ describe('the ram\u2019s own parts on the bill', () => {
 
   it('states the anchoring force as ρ·g·H·A: 100 m of head on a 52.5 mm bore is 2.12 kN', async () => {
     const { surgeThrustN } = await import('@/lib/engine/ram-parts');
-    expectWithin(surgeThrustN(100, 52.5), 1000 * G * 100 * Math.PI * 0.0525 ** 2 / 4, 1e-9);
+    expectWithin(surgeThrustN(100, 52.5), (1000 * G * 100 * Math.PI * 0.0525 ** 2) / 4, 1e-9);
     expectRelative(surgeThrustN(100, 52.5), 2123, 0.001);
   });
 

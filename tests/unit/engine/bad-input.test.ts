@@ -1,9 +1,27 @@
 import { describe, expect, it } from 'vitest';
 import {
-  allowedMisclosureMm, clinometerFallM, daubuissonEfficiency, dailyDemandL, darcyWeisbachLossM, EngineInputError,
-  floatFlowLps, hazenWilliamsLossM, hoseLevelFallM, joukowskySurgeM, levelRun, pressureHeadM, ramDeliveryLpm,
-  ramEfficiency, rankineEfficiency, rectangularWeirFlowLps, screenSite, velocityHeadM, vNotchFlowLps,
-  volumetricFlowLps, waveSpeedMps, type SiteReadingsInput,
+  allowedMisclosureMm,
+  clinometerFallM,
+  daubuissonEfficiency,
+  dailyDemandL,
+  darcyWeisbachLossM,
+  EngineInputError,
+  floatFlowLps,
+  hazenWilliamsLossM,
+  hoseLevelFallM,
+  joukowskySurgeM,
+  levelRun,
+  pressureHeadM,
+  ramDeliveryLpm,
+  ramEfficiency,
+  rankineEfficiency,
+  rectangularWeirFlowLps,
+  screenSite,
+  velocityHeadM,
+  vNotchFlowLps,
+  volumetricFlowLps,
+  waveSpeedMps,
+  type SiteReadingsInput,
 } from '@/lib/engine';
 import { clearGo } from './fixtures/demo-sites';
 
@@ -21,7 +39,15 @@ function throwsNaming(fn: () => unknown, field: string): void {
 describe('each function throws EngineInputError naming the bad field', () => {
   const cases: [string, () => unknown, string][] = [
     ['volumetric: zero seconds', () => volumetricFlowLps([{ volumeL: 20, seconds: 0 }]), 'trials.0.seconds'],
-    ['volumetric: NaN volume', () => volumetricFlowLps([{ volumeL: 20, seconds: 5 }, { volumeL: Number.NaN, seconds: 5 }]), 'trials.1.volumeL'],
+    [
+      'volumetric: NaN volume',
+      () =>
+        volumetricFlowLps([
+          { volumeL: 20, seconds: 5 },
+          { volumeL: Number.NaN, seconds: 5 },
+        ]),
+      'trials.1.volumeL',
+    ],
     ['volumetric: no trials', () => volumetricFlowLps([]), 'trials'],
     ['v-notch: negative head', () => vNotchFlowLps(-0.1), 'headM'],
     ['v-notch: NaN angle', () => vNotchFlowLps(0.1, Number.NaN), 'notchAngleDeg'],
@@ -55,11 +81,19 @@ describe('each function throws EngineInputError naming the bad field', () => {
 describe('screenSite rejects nonsense readings, naming the field path', () => {
   const bad = (patch: Record<string, unknown>) => ({ ...structuredClone(clearGo), ...patch }) as SiteReadingsInput;
   it.each<[string, SiteReadingsInput, string]>([
-    ['zero seconds in a bucket trial', bad({ flowMeasurements: [{ method: 'volumetric', season: 'dry', trials: [{ volumeL: 20, seconds: 0 }] }] }), 'flowMeasurements.0.trials.0.seconds'],
+    [
+      'zero seconds in a bucket trial',
+      bad({ flowMeasurements: [{ method: 'volumetric', season: 'dry', trials: [{ volumeL: 20, seconds: 0 }] }] }),
+      'flowMeasurements.0.trials.0.seconds',
+    ],
     ['negative delivery pipe length', bad({ deliveryPipe: { lengthM: -300, material: 'hdpe' } }), 'deliveryPipe.lengthM'],
     ['NaN static lift', bad({ lift: { kind: 'direct', staticLiftM: Number.NaN, method: 'level' } }), 'lift.staticLiftM'],
     ['no fall runs', bad({ fallRuns: [] }), 'fallRuns'],
-    ['a level run with a foresight on its first station', bad({ fallRuns: [{ method: 'level', rows: [{ backsightM: 1, foresightM: 1 }, { foresightM: 2 }] }] }), 'fallRuns.0.rows.0.foresightM'],
+    [
+      'a level run with a foresight on its first station',
+      bad({ fallRuns: [{ method: 'level', rows: [{ backsightM: 1, foresightM: 1 }, { foresightM: 2 }] }] }),
+      'fallRuns.0.rows.0.foresightM',
+    ],
     ['an unknown demand kind', bad({ demand: [{ kind: 'unicorn', count: 2 }] }), 'demand.0.kind'],
     ['a design fraction above 1', bad({ settings: { designFractionOfLowest: 1.5 } }), 'settings.designFractionOfLowest'],
   ])('%s', (_label, input, field) => throwsNaming(() => screenSite(input), field));

@@ -2,7 +2,16 @@ import { describe, expect, it } from 'vitest';
 import { bestPositions, bestPositionsBruteForce, mulberry32, type BestPositionsInput, type ProfileStation } from '@/lib/engine';
 import { compareKeys } from '@/lib/engine/profile-search';
 
-const flow: BestPositionsInput['flowMeasurements'] = [{ method: 'volumetric', season: 'dry', trials: [{ volumeL: 20, seconds: 12 }, { volumeL: 20, seconds: 12.4 }] }];
+const flow: BestPositionsInput['flowMeasurements'] = [
+  {
+    method: 'volumetric',
+    season: 'dry',
+    trials: [
+      { volumeL: 20, seconds: 12 },
+      { volumeL: 20, seconds: 12.4 },
+    ],
+  },
+];
 const household: BestPositionsInput['demand'] = [{ kind: 'person-tap-on-plot', count: 2 }];
 
 // Invented reach, checkable by hand with the 3–7 × fall drive band (Perkin):
@@ -16,7 +25,13 @@ const handReach: ProfileStation[] = [
   { id: 'E', chainageM: 26, levelM: 95.5, flags: ['no-pump-site'] },
   { id: 'D', chainageM: 200, levelM: 90 },
 ];
-const handInput: BestPositionsInput = { stations: handReach, tank: { chainageM: 30, offsetM: 60, levelM: 130 }, flowMeasurements: flow, demand: household, samples: 2000 };
+const handInput: BestPositionsInput = {
+  stations: handReach,
+  tank: { chainageM: 30, offsetM: 60, levelM: 130 },
+  flowMeasurements: flow,
+  demand: household,
+  samples: 2000,
+};
 
 describe('bestPositions on a hand-checkable reach', () => {
   const result = bestPositions(handInput);
@@ -62,7 +77,14 @@ function randomReach(seed: number, n: number): BestPositionsInput {
     c += 2 + 12 * u();
     level -= u() < 0.4 ? 0.5 + 3 * u() : 0.1 * u();
   }
-  return { stations, tank: { chainageM: c * u(), offsetM: 20 + 100 * u(), levelM: 100 + 5 + 25 * u() }, flowMeasurements: flow, demand: [{ kind: 'beef-cow-nursing', count: 2 + Math.floor(30 * u()) }], samples: 1000, seed: 7 };
+  return {
+    stations,
+    tank: { chainageM: c * u(), offsetM: 20 + 100 * u(), levelM: 100 + 5 + 25 * u() },
+    flowMeasurements: flow,
+    demand: [{ kind: 'beef-cow-nursing', count: 2 + Math.floor(30 * u()) }],
+    samples: 1000,
+    seed: 7,
+  };
 }
 
 describe('bestPositions against brute force (random small reaches)', () => {

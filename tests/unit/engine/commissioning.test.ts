@@ -7,7 +7,7 @@ import { expectWithin } from './helpers';
 const example = { driveLpm: 30 * 60, deliveredLpm: 3 * 60, fallM: 4, liftM: 18, beatsPerMinute: 60 };
 
 describe('commissioningCheck efficiencies (NITK lab notes definitions)', () => {
-  it("textbook example: η_D = q·h/(Q·H) = 0.450 and η_R = q·(h − H)/((Q − q)·H) = 0.389", () => {
+  it('textbook example: η_D = q·h/(Q·H) = 0.450 and η_R = q·(h − H)/((Q − q)·H) = 0.389', () => {
     const r = commissioningCheck(example);
     expectWithin(r.daubuissonEfficiency, 0.45, 5e-4);
     expectWithin(r.rankineEfficiency, 0.389, 5e-4);
@@ -83,7 +83,15 @@ describe('commissioningCheck against the screening', () => {
   });
   it('with rams in parallel, one ram is checked against its share of the daily figures', () => {
     const f = (value: number) => ({ value });
-    const figures = { deliveryLpd: f(3000), deliveryP10Lpd: f(2400), deliveryP90Lpd: f(3600), efficiency: f(0.4), driveFlowLpm: f(30), totalLiftM: f(20), ramCount: f(3) };
+    const figures = {
+      deliveryLpd: f(3000),
+      deliveryP10Lpd: f(2400),
+      deliveryP90Lpd: f(3600),
+      efficiency: f(0.4),
+      driveFlowLpm: f(30),
+      totalLiftM: f(20),
+      ramCount: f(3),
+    };
     expect(predictionFromFigures(figures)).toEqual({ deliveryLpd: 1000, p10Lpd: 800, p90Lpd: 1200, efficiency: 0.4, driveLpm: 30, totalLiftM: 20 });
   });
 });

@@ -4,12 +4,7 @@ import { expectWithin } from './helpers';
 
 describe('levelling by height of instrument (surveying textbooks: HI = RL + BS, RL = HI − FS)', () => {
   // Invented booking, reduced by hand: HI 1.500 → RL −1.300; HI −0.700 → RL −3.800; HI −2.600 → RL −5.000.
-  const rows = [
-    { backsightM: 1.5 },
-    { foresightM: 2.8, backsightM: 0.6 },
-    { foresightM: 3.1, backsightM: 1.2 },
-    { foresightM: 2.4 },
-  ];
+  const rows = [{ backsightM: 1.5 }, { foresightM: 2.8, backsightM: 0.6 }, { foresightM: 3.1, backsightM: 1.2 }, { foresightM: 2.4 }];
   it('reduces the levels as worked by hand', () => {
     const run = levelRun(rows);
     [0, -1.3, -3.8, -5.0].forEach((rl, i) => expectWithin(run.reducedLevelsM[i] ?? NaN, rl, 1e-9));

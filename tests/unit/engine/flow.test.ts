@@ -10,7 +10,14 @@ describe('volumetric flow (bucket and stopwatch; Peace Corps hydram manual, Sess
   });
   it('takes the mean of the trials, not total volume over total time', () => {
     // (20/8 + 20/10)/2 = 2.25, whereas 40/18 would give 2.22
-    expectWithin(volumetricFlowLps([{ volumeL: 20, seconds: 8 }, { volumeL: 20, seconds: 10 }]), 2.25, 1e-9);
+    expectWithin(
+      volumetricFlowLps([
+        { volumeL: 20, seconds: 8 },
+        { volumeL: 20, seconds: 10 },
+      ]),
+      2.25,
+      1e-9,
+    );
   });
 });
 

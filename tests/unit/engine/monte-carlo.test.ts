@@ -78,7 +78,13 @@ describe('Monte Carlo in screenSite', () => {
   it('a mean that meets demand with a probability under one half is conditional', () => {
     const base = screenSite({ ...clearGo, ram: { driveIn: 1.25, count: 1 }, settings: { demandMarginFraction: 0 } });
     const delivered = base.figures.deliveryLpd?.value ?? 0;
-    const s = screenSite({ ...clearGo, ram: { driveIn: 1.25, count: 1 }, fallRuns: [{ method: 'clinometer', legs: [{ slopeDistanceM: 300, angleBelowHorizontalDeg: 0.575 }] }], demand: [demandOf(delivered * 0.999)], settings: { demandMarginFraction: 0 } });
+    const s = screenSite({
+      ...clearGo,
+      ram: { driveIn: 1.25, count: 1 },
+      fallRuns: [{ method: 'clinometer', legs: [{ slopeDistanceM: 300, angleBelowHorizontalDeg: 0.575 }] }],
+      demand: [demandOf(delivered * 0.999)],
+      settings: { demandMarginFraction: 0 },
+    });
     const p = s.figures.probabilityMeetsDemand?.value ?? NaN;
     expect(s.figures.deliveryLpd?.value ?? 0).toBeGreaterThanOrEqual(delivered * 0.999 - 1);
     if (p < 0.5) {

@@ -1,7 +1,15 @@
 import { describe, expect, it } from 'vitest';
 import {
-  darcyWeisbachLossM, EngineInputError, frictionFactor, hazenWilliamsLossM, headToKPa, joukowskySurgeM,
-  minimumDriveVelocityMps, waterDensityKgM3, waterViscosityPaS, waveSpeedMps,
+  darcyWeisbachLossM,
+  EngineInputError,
+  frictionFactor,
+  hazenWilliamsLossM,
+  headToKPa,
+  joukowskySurgeM,
+  minimumDriveVelocityMps,
+  waterDensityKgM3,
+  waterViscosityPaS,
+  waveSpeedMps,
 } from '@/lib/engine';
 import { gpmToLps, inToMm } from '@/lib/shared/units';
 import { expectRelative, expectWithin } from './helpers';

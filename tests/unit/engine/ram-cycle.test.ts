@@ -13,7 +13,17 @@ import { BEATS_PER_MINUTE_BAND } from '@/lib/engine/commissioning';
 // model follows the whole curve, not an independent prediction. Tolerance ±0.05 in efficiency (the worst row, 24, misses by 0.036): the makes the engine
 // knows spread 0.5–0.8 at low ratios, and the table rounds to whole per cent of one unnamed make.
 const POCKETBOOK_ROWS: readonly (readonly [ratio: number, efficiency: number])[] = [
-  [4, 0.72], [6, 0.61], [8, 0.52], [10, 0.44], [12, 0.37], [14, 0.31], [16, 0.25], [18, 0.19], [20, 0.14], [22, 0.09], [24, 0.04],
+  [4, 0.72],
+  [6, 0.61],
+  [8, 0.52],
+  [10, 0.44],
+  [12, 0.37],
+  [14, 0.31],
+  [16, 0.25],
+  [18, 0.19],
+  [20, 0.14],
+  [22, 0.09],
+  [24, 0.04],
 ];
 const TABLE_SETTING = { fallM: 3, driveLengthM: 11.4, driveBoreMm: 52.5, strokeMm: 20, waveSpeedMps: 1300 } as const;
 const TABLE_CLOSURE_MPS = 1.5;
@@ -88,34 +98,48 @@ const site = fc.record({
 });
 type Site = { fallM: number; ratio: number; lengthTimesFall: number; driveBoreMm: number; strokeMm: number; weightN: number; waveSpeedMps: number };
 const inputOf = (k: Site): RamCycleInput => ({
-  fallM: k.fallM, liftM: k.fallM * k.ratio, driveLengthM: k.fallM * k.lengthTimesFall, driveBoreMm: k.driveBoreMm,
-  strokeMm: k.strokeMm, valveWeightN: k.weightN, waveSpeedMps: k.waveSpeedMps,
+  fallM: k.fallM,
+  liftM: k.fallM * k.ratio,
+  driveLengthM: k.fallM * k.lengthTimesFall,
+  driveBoreMm: k.driveBoreMm,
+  strokeMm: k.strokeMm,
+  valveWeightN: k.weightN,
+  waveSpeedMps: k.waveSpeedMps,
 });
 
 describe('ramCycle properties', () => {
   it('more stroke (same valve weight): fewer beats a minute and more drive water per beat', () => {
-    fc.assert(fc.property(site, fc.double({ min: 1, max: 5, noNaN: true }), (k, more) => {
-      const a = ramCycle(inputOf(k));
-      const b = ramCycle({ ...inputOf(k), strokeMm: k.strokeMm + more });
-      fc.pre(a.closes && b.closes);
-      expect(b.beatsPerMinute).toBeLessThan(a.beatsPerMinute);
-      expect(b.drivePerBeatL).toBeGreaterThan(a.drivePerBeatL);
-    }), { numRuns: 300 });
+    fc.assert(
+      fc.property(site, fc.double({ min: 1, max: 5, noNaN: true }), (k, more) => {
+        const a = ramCycle(inputOf(k));
+        const b = ramCycle({ ...inputOf(k), strokeMm: k.strokeMm + more });
+        fc.pre(a.closes && b.closes);
+        expect(b.beatsPerMinute).toBeLessThan(a.beatsPerMinute);
+        expect(b.drivePerBeatL).toBeGreaterThan(a.drivePerBeatL);
+      }),
+      { numRuns: 300 },
+    );
   });
   it('efficiency falls as lift/fall rises (same pipe, fall and valve)', () => {
-    fc.assert(fc.property(site, fc.double({ min: 0.5, max: 5, noNaN: true }), (k, more) => {
-      const a = ramCycle(inputOf(k));
-      const b = ramCycle({ ...inputOf(k), liftM: k.fallM * (k.ratio + more) });
-      fc.pre(a.closes && a.efficiency > 0);
-      expect(b.efficiency).toBeLessThanOrEqual(a.efficiency + 1e-12);
-    }), { numRuns: 300 });
+    fc.assert(
+      fc.property(site, fc.double({ min: 0.5, max: 5, noNaN: true }), (k, more) => {
+        const a = ramCycle(inputOf(k));
+        const b = ramCycle({ ...inputOf(k), liftM: k.fallM * (k.ratio + more) });
+        fc.pre(a.closes && a.efficiency > 0);
+        expect(b.efficiency).toBeLessThanOrEqual(a.efficiency + 1e-12);
+      }),
+      { numRuns: 300 },
+    );
   });
   it('energy: delivery × lift ≤ drive flow × fall, and delivery never above the drive flow', () => {
-    fc.assert(fc.property(site, (k) => {
-      const c = ramCycle(inputOf(k));
-      expect(c.deliveryLpm * k.fallM * k.ratio).toBeLessThanOrEqual(c.driveLpm * k.fallM * (1 + 1e-12));
-      expect(c.deliveryPerBeatL).toBeLessThanOrEqual(c.drivePerBeatL);
-      expect(c.efficiency).toBeGreaterThanOrEqual(0);
-    }), { numRuns: 500 });
+    fc.assert(
+      fc.property(site, (k) => {
+        const c = ramCycle(inputOf(k));
+        expect(c.deliveryLpm * k.fallM * k.ratio).toBeLessThanOrEqual(c.driveLpm * k.fallM * (1 + 1e-12));
+        expect(c.deliveryPerBeatL).toBeLessThanOrEqual(c.drivePerBeatL);
+        expect(c.efficiency).toBeGreaterThanOrEqual(0);
+      }),
+      { numRuns: 500 },
+    );
   });
 });

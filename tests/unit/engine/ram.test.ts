@@ -21,7 +21,7 @@ describe("delivered flow q = η·Q·H/h (D'Aubuisson; Water for the World RWS.4.
   });
 });
 
-describe("efficiencies of a ram test (NITK lab notes; textbook example Q 30 L/s, q 3 L/s, H 4 m, h 18 m)", () => {
+describe('efficiencies of a ram test (NITK lab notes; textbook example Q 30 L/s, q 3 L/s, H 4 m, h 18 m)', () => {
   const test = { supplyLpm: 1800, deliveryLpm: 180, fallM: 4, liftM: 18 };
   it("D'Aubuisson η = q·h/(Q·H) = 0.450", () => {
     expectWithin(daubuissonEfficiency(test), 0.45, 1e-9);

@@ -52,13 +52,25 @@ describe('whole-screen scenarios (invented demo readings)', () => {
     it('lists a ram, both pipes, valves, intake and tank; the cautions cover surge, water, permits, drinking water and not-a-design', () => {
       const items = s.billOfMaterials.map((b) => b.item).join(' | ');
       for (const word of ['ram', 'Drive pipe', 'Delivery pipe', 'valve', 'Intake', 'tank']) expect(items).toContain(word);
-      expect(s.cautions.map((c) => c.code).sort()).toEqual(['BACKFLOW', 'NOISE', 'NOT_A_DESIGN', 'PERMITS', 'SURGE_PRESSURE', 'TANK_SAFETY', 'UNTREATED_WATER', 'WORKING_IN_WATER']);
+      expect(s.cautions.map((c) => c.code).sort()).toEqual([
+        'BACKFLOW',
+        'NOISE',
+        'NOT_A_DESIGN',
+        'PERMITS',
+        'SURGE_PRESSURE',
+        'TANK_SAFETY',
+        'UNTREATED_WATER',
+        'WORKING_IN_WATER',
+      ]);
     });
     it('traces every figure to a rule, a registered source and its inputs, and lists those sources', () => {
       for (const [key, f] of Object.entries(s.figures)) {
         expect(f.rule.length, key).toBeGreaterThan(3);
         expect(SOURCES[f.sourceId], key).toBeDefined();
-        expect(s.sources.map((x) => x.id), key).toContain(f.sourceId);
+        expect(
+          s.sources.map((x) => x.id),
+          key,
+        ).toContain(f.sourceId);
       }
       expect(Object.keys(s.figures).length).toBeGreaterThanOrEqual(30);
     });
@@ -115,7 +127,12 @@ describe('whole-screen scenarios (invented demo readings)', () => {
     expect(value(s, 'blockedDeliveryHeadM')).toBeLessThan(value(s, 'drivePipeAllowedHeadM'));
   });
 
-  const highLift = { ...demo.clearGo, lift: { kind: 'direct' as const, staticLiftM: 180, method: 'level' as const }, fallRuns: [hoseRunOf(30)], demand: [{ kind: 'beef-cow-dry' as const, count: 5 }] };
+  const highLift = {
+    ...demo.clearGo,
+    lift: { kind: 'direct' as const, staticLiftM: 180, method: 'level' as const },
+    fallRuns: [hoseRunOf(30)],
+    demand: [{ kind: 'beef-cow-dry' as const, count: 5 }],
+  };
 
   it('working pressure above class 150 steel (300 psi = 211 m) with a 180 m lift: conditional on class 300 fittings (made up to 3″)', () => {
     const s = screenSite(highLift);
@@ -125,7 +142,11 @@ describe('whole-screen scenarios (invented demo readings)', () => {
   });
 
   it('the same lift on a 4″ ram is a no-go: class 300 malleable fittings are not made above 3″', () => {
-    const s = screenSite({ ...highLift, ram: { driveIn: 4, count: 1 }, flowMeasurements: [{ method: 'volumetric', season: 'dry', trials: [{ volumeL: 100, seconds: 10 }] }] });
+    const s = screenSite({
+      ...highLift,
+      ram: { driveIn: 4, count: 1 },
+      flowMeasurements: [{ method: 'volumetric', season: 'dry', trials: [{ volumeL: 100, seconds: 10 }] }],
+    });
     const r = s.reasons.find((x) => x.code === 'WORKING_PRESSURE_ABOVE_RATING');
     expect(r?.severity).toBe('no-go');
     expect(r?.text).toMatch(/4″/);
@@ -145,13 +166,15 @@ describe('whole-screen scenarios (invented demo readings)', () => {
   it('a level run out and back that closes badly is conditional (third-order 12 mm√K, or 1 % of the fall for a screen)', () => {
     const s = screenSite({
       ...demo.clearGo,
-      fallRuns: [{
-        method: 'level',
-        routeLengthM: 60,
-        rows: [{ backsightM: 2.1 }, { foresightM: 1.35, backsightM: 0.4 }, { foresightM: 2.15, backsightM: 0.55 }, { foresightM: 2.56 }],
-        // Back up the slope: rises 3.21 m instead of 3.01 m, a 200 mm misclosure.
-        returnRows: [{ backsightM: 2.9 }, { foresightM: 0.6, backsightM: 2.3 }, { foresightM: 1.39 }],
-      }],
+      fallRuns: [
+        {
+          method: 'level',
+          routeLengthM: 60,
+          rows: [{ backsightM: 2.1 }, { foresightM: 1.35, backsightM: 0.4 }, { foresightM: 2.15, backsightM: 0.55 }, { foresightM: 2.56 }],
+          // Back up the slope: rises 3.21 m instead of 3.01 m, a 200 mm misclosure.
+          returnRows: [{ backsightM: 2.9 }, { foresightM: 0.6, backsightM: 2.3 }, { foresightM: 1.39 }],
+        },
+      ],
     });
     expect(s.figures.fallM?.inputs.run1MisclosureMm).toBeCloseTo(-200, 6);
     expect(s.reasons.find((r) => r.code === 'FALL_MISCLOSURE')?.severity).toBe('conditional');

@@ -4,7 +4,7 @@ import { fakeTileTemplate, parseTilePath, renderTile, startFakeTiles } from '@/s
 
 const pixel = (png: PNG, x: number, y: number) => [...png.data.subarray((y * png.width + x) * 4, (y * png.width + x) * 4 + 4)];
 
-describe('the fake tile server\'s drawing', () => {
+describe("the fake tile server's drawing", () => {
   it('is a valid 256 px PNG', () => {
     const bytes = renderTile(15, 16055, 10843);
     expect([...bytes.subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
@@ -40,7 +40,9 @@ describe('the fake tile server\'s drawing', () => {
 
 describe('the fake tile server', () => {
   let server: Awaited<ReturnType<typeof startFakeTiles>>;
-  beforeAll(async () => { server = await startFakeTiles({ port: 0 }); });
+  beforeAll(async () => {
+    server = await startFakeTiles({ port: 0 });
+  });
   afterAll(() => server.close());
 
   it('serves PNG tiles on loopback with CORS open, and 404 for other paths', async () => {

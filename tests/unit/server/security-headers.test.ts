@@ -2,10 +2,13 @@
 import { describe, expect, it } from 'vitest';
 import { contentSecurityPolicy, securityHeaders, tileOrigin } from '@/lib/config/security-headers.mjs';
 
-const directives = (csp: string) => new Map(csp.split('; ').map((d) => {
-  const [name = '', ...values] = d.split(' ');
-  return [name, values] as const;
-}));
+const directives = (csp: string) =>
+  new Map(
+    csp.split('; ').map((d) => {
+      const [name = '', ...values] = d.split(' ');
+      return [name, values] as const;
+    }),
+  );
 
 const header = (list: { key: string; value: string }[], key: string) => list.find((h) => h.key === key)?.value;
 

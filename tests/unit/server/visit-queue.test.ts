@@ -12,15 +12,19 @@ function recorder({ fail = [] as string[], delayMs = 0 } = {}) {
   let active = 0;
   let maxActive = 0;
   const hooks: Record<string, () => void> = {};
-  const queue = visitQueue(async (visitId, actorId) => {
-    active++;
-    maxActive = Math.max(maxActive, active);
-    runs.push(`${visitId}:${actorId}`);
-    hooks[visitId]?.();
-    await nextTurn();
-    active--;
-    if (fail.includes(visitId)) throw new Error(`${visitId} failed`);
-  }, (visitId) => errors.push(visitId), delayMs);
+  const queue = visitQueue(
+    async (visitId, actorId) => {
+      active++;
+      maxActive = Math.max(maxActive, active);
+      runs.push(`${visitId}:${actorId}`);
+      hooks[visitId]?.();
+      await nextTurn();
+      active--;
+      if (fail.includes(visitId)) throw new Error(`${visitId} failed`);
+    },
+    (visitId) => errors.push(visitId),
+    delayMs,
+  );
   return { queue, runs, errors, hooks, maxActive: () => maxActive };
 }
 
@@ -50,7 +54,10 @@ describe('visitQueue', () => {
 
   it('runs a visit again when it is queued during its own run', async () => {
     const r = recorder();
-    r.hooks.a = () => { delete r.hooks.a; r.queue.add(['a'], 'again'); };
+    r.hooks.a = () => {
+      delete r.hooks.a;
+      r.queue.add(['a'], 'again');
+    };
     r.queue.add(['a'], 'first');
     await r.queue.flush();
     expect(r.runs).toEqual(['a:first', 'a:again']);

@@ -18,7 +18,10 @@ const bill: BillOfMaterialsLine[] = [
   { item: 'Intake screen', size: '—', quantity: 1, unit: 'each', note: '', priceKey: 'intake', shared: true },
   { item: 'Something old', size: '—', quantity: 2, unit: 'each', note: '' },
 ];
-const pipes = [{ material: 'HDPE', diameterMm: 32, pricePerM: 1.5, currency: 'GBP' }, { material: 'HDPE', diameterMm: 32, pricePerM: 9, currency: 'EUR' }];
+const pipes = [
+  { material: 'HDPE', diameterMm: 32, pricePerM: 1.5, currency: 'GBP' },
+  { material: 'HDPE', diameterMm: 32, pricePerM: 9, currency: 'EUR' },
+];
 
 describe('priceBill (hand-checked)', () => {
   const p = priceBill(bill, DEFAULT_PRICE_LIST, pipes);
@@ -68,7 +71,9 @@ describe('sheetCosts', () => {
     expect(v.lines[1]).toEqual({ basis: '£18.38 a metre (estimate from the bore, steel)', price: '£441' });
     expect(v.lines[2]?.basis).toBe('£1.50 a metre (your pipe prices, 32 mm)');
     // A US reader buys pipe by the foot: £18.375 × 0.3048 = £5.60.
-    expect(sheetCosts(bill, DEFAULT_PRICE_LIST, pipes, { dailyL: 2000, liftM: 30, pumped: true }, 'en-US').lines[1]?.basis).toBe('£5.60 a foot (estimate from the bore, steel)');
+    expect(sheetCosts(bill, DEFAULT_PRICE_LIST, pipes, { dailyL: 2000, liftM: 30, pumped: true }, 'en-US').lines[1]?.basis).toBe(
+      '£5.60 a foot (estimate from the bore, steel)',
+    );
     expect(v.lines[5]?.basis).toBe('Comes with a bought ram');
     expect(v.comparison?.map((o) => o.total)).toEqual(['£3,842', '£4,336', '£5,560']);
     expect(v.assumptions.join(' ')).toMatch(/156 W of panels/);
@@ -83,7 +88,9 @@ describe('sheetCosts', () => {
     expect(bad.success).toBe(false);
     const messages = bad.success ? [] : bad.error.issues.map((i) => i.message);
     expect(messages).toContain('Not a currency code this app knows.');
-    expect(priceListSchema.safeParse({ ...DEFAULT_PRICE_LIST, currency: 'pounds' }).error?.issues[0]?.message).toBe('Give a three-letter currency code such as GBP, EUR, USD or KES.');
+    expect(priceListSchema.safeParse({ ...DEFAULT_PRICE_LIST, currency: 'pounds' }).error?.issues[0]?.message).toBe(
+      'Give a three-letter currency code such as GBP, EUR, USD or KES.',
+    );
     expect(messages).toContain('Valve price: at least 0.');
   });
 });

@@ -11,16 +11,40 @@ function fields(line: string, separator: string): string[] {
   for (let i = 0; i < line.length; i += 1) {
     const ch = line[i]!;
     if (quoted) {
-      if (ch === '"' && line[i + 1] === '"') { cell += '"'; i += 1; } else if (ch === '"') quoted = false; else cell += ch;
+      if (ch === '"' && line[i + 1] === '"') {
+        cell += '"';
+        i += 1;
+      } else if (ch === '"') quoted = false;
+      else cell += ch;
     } else if (ch === '"') quoted = true;
-    else if (ch === separator) { out.push(cell); cell = ''; } else cell += ch;
+    else if (ch === separator) {
+      out.push(cell);
+      cell = '';
+    } else cell += ch;
   }
   out.push(cell);
   return out;
 }
 
 const TRIGGER = /^[\s]*[=+\-@＝＋－＠]/;
-const HOSTILE = ['=1+1', ';=1+1', 'a;=1+1', 'a,=1+1', 'a\t=1+1', ' =1+1', '"=1+1', '@SUM(A1)', '-2+3', '+1', '\t=1', '\r=1', 'x;+cmd|calc', '＝1+1', 'farm; -1', 'a|=1'];
+const HOSTILE = [
+  '=1+1',
+  ';=1+1',
+  'a;=1+1',
+  'a,=1+1',
+  'a\t=1+1',
+  ' =1+1',
+  '"=1+1',
+  '@SUM(A1)',
+  '-2+3',
+  '+1',
+  '\t=1',
+  '\r=1',
+  'x;+cmd|calc',
+  '＝1+1',
+  'farm; -1',
+  'a|=1',
+];
 
 describe('csvRow', () => {
   it.each([',', ';', '\t'])('no field read with separator %j starts like a formula', (separator) => {

@@ -13,7 +13,15 @@ function refusal(entity: keyof typeof recordSchemas, fields: unknown, units: 'me
 }
 
 const level = (rows: object[]) => ({ visitId: VISIT, purpose: 'fall', seq: 0, takenAt: null, notes: '', bookedFrom: null, run: { method: 'level', rows } });
-const demand = (count: number, litresPerHeadPerDay: number) => ({ farmId: FARM, kind: 'person-tap-on-plot', count, litresPerHeadPerDay, figureSource: '', note: '', confirmed: null });
+const demand = (count: number, litresPerHeadPerDay: number) => ({
+  farmId: FARM,
+  kind: 'person-tap-on-plot',
+  count,
+  litresPerHeadPerDay,
+  figureSource: '',
+  note: '',
+  confirmed: null,
+});
 
 // Each impossible value the field book once saved without a word, refused by the schema the phone and
 // the server share, with a sentence that names the field (never a path, a code or zod's wording).
@@ -28,12 +36,23 @@ describe('impossible readings are refused in plain words', () => {
     const metric = refusal('fallReading', level([{ backsightM: 0.5 }, { foresightM: 0 }]));
     expect(metric['run.result']).toMatch(/^This run climbs 0\.50 m from the intake to the ram/);
     const parsed = recordSchemas.fallReading.safeParse(level([{ backsightM: 2.5 }, { foresightM: 0.5 }]));
-    const us = messagesByPath(parsed.error!.issues.map((i) => ({ ...i, message: undefined })), 'us');
+    const us = messagesByPath(
+      parsed.error!.issues.map((i) => ({ ...i, message: undefined })),
+      'us',
+    );
     expect(us['run.result']).toMatch(/^This run climbs 6\.56 ft/);
   });
 
   it('a lift of 5,000 m and one of −30 m are refused', () => {
-    const direct = (staticLiftM: number) => ({ visitId: VISIT, purpose: 'lift', seq: 1, takenAt: null, notes: '', bookedFrom: null, run: { method: 'direct', staticLiftM, liftMethod: 'level' } });
+    const direct = (staticLiftM: number) => ({
+      visitId: VISIT,
+      purpose: 'lift',
+      seq: 1,
+      takenAt: null,
+      notes: '',
+      bookedFrom: null,
+      run: { method: 'direct', staticLiftM, liftMethod: 'level' },
+    });
     expect(refusal('fallReading', direct(5000))['run.staticLiftM']).toBe('Height of the tank above the pump must be at most 500 m.');
     expect(refusal('fallReading', direct(-30))['run.staticLiftM']).toBe('Height of the tank above the pump must be more than 0.');
   });
@@ -49,25 +68,45 @@ describe('impossible readings are refused in plain words', () => {
     const pipe = { visitId: VISIT, purpose: 'drive', lengthM: 30, diameterMm: 5000, material: 'hdpe', pressureClass: null };
     const parsed = recordSchemas.pipeRun.safeParse(pipe, { error: undefined });
     expect(parsed.success).toBe(false);
-    const us = messagesByPath(recordSchemas.pipeRun.safeParse(pipe).error!.issues.map((i) => ({ ...i, message: undefined })), 'us');
+    const us = messagesByPath(
+      recordSchemas.pipeRun.safeParse(pipe).error!.issues.map((i) => ({ ...i, message: undefined })),
+      'us',
+    );
     expect(us.diameterMm).toBe('Inside diameter must be at most 23.62 in.');
-    const station = { visitId: VISIT, role: 'station', label: '', lat: null, lon: null, accuracyM: null, altitudeM: null, altitudeAccuracyM: null, chainageM: -20, capturedAt: null };
+    const station = {
+      visitId: VISIT,
+      role: 'station',
+      label: '',
+      lat: null,
+      lon: null,
+      accuracyM: null,
+      altitudeM: null,
+      altitudeAccuracyM: null,
+      chainageM: -20,
+      capturedAt: null,
+    };
     expect(refusal('point', station).chainageM).toBe('Distance along the route must not be negative.');
   });
 
   it('a bucket of −20 L and a bucket of 5,000 L are refused at the bucket', () => {
-    const flow = (volumeL: number) => ({ visitId: VISIT, sourceId: null, takenAt: null, notes: '', measurement: { method: 'volumetric', season: 'dry', trials: [{ volumeL, seconds: 10 }] } });
+    const flow = (volumeL: number) => ({
+      visitId: VISIT,
+      sourceId: null,
+      takenAt: null,
+      notes: '',
+      measurement: { method: 'volumetric', season: 'dry', trials: [{ volumeL, seconds: 10 }] },
+    });
     expect(refusal('flowMeasurement', flow(-20))['measurement.trials.0.volumeL']).toBe('Bucket volume must be more than 0');
     expect(refusal('flowMeasurement', flow(5000))['measurement.trials.0.volumeL']).toBe('Bucket volume must be at most 1,000 L.');
   });
 
-  it('the engine\'s own input refuses an uphill fall run too', () => {
+  it("the engine's own input refuses an uphill fall run too", () => {
     const parsed = siteReadingsSchema.safeParse({ fallRuns: [{ method: 'hose', steps: [{ upperReadingM: 2, lowerReadingM: 0 }] }] });
     expect(parsed.success).toBe(false);
     expect(parsed.error!.issues.some((i) => i.path.join('.') === 'fallRuns.0.result' && /climbs 2\.00 m/.test(i.message))).toBe(true);
   });
 
-  it('no message it gives is zod\'s own wording', () => {
+  it("no message it gives is zod's own wording", () => {
     const m = refusal('pipeRun', { visitId: 'not-a-uuid', purpose: 'up', lengthM: 'x', diameterMm: -1, material: 'clay', pressureClass: 7 });
     for (const text of Object.values(m)) expect(isSchemaText(text), text).toBe(false);
   });

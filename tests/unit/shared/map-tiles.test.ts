@@ -1,6 +1,15 @@
 import { describe, expect, it } from 'vitest';
 import {
-  bboxAround, latToTileY, lonToTileX, OFFLINE_RINGS, planOfflineTiles, tileKey, tileMatcher, tilesInBbox, tileUrl, visitTiles,
+  bboxAround,
+  latToTileY,
+  lonToTileX,
+  OFFLINE_RINGS,
+  planOfflineTiles,
+  tileKey,
+  tileMatcher,
+  tilesInBbox,
+  tileUrl,
+  visitTiles,
 } from '@/lib/shared/map-tiles';
 
 // The north edge of tile row y at zoom z: the inverse of the Mercator row formula, written the
@@ -53,7 +62,7 @@ describe('the ground around a visit', () => {
   });
 
   it('covers a box with every tile it touches at that zoom, and only those', () => {
-    const box = { south: 52.40, west: -3.64, north: 52.44, east: -3.59 };
+    const box = { south: 52.4, west: -3.64, north: 52.44, east: -3.59 };
     const tiles = tilesInBbox(box, 14);
     const xs = [lonToTileX(box.west, 14), lonToTileX(box.east, 14)] as const;
     const ys = [latToTileY(box.north, 14), latToTileY(box.south, 14)] as const;

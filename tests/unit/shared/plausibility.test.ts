@@ -5,16 +5,37 @@ import type { EntityFields } from '@/lib/shared/schemas/sync';
 const VISIT = '11111111-1111-4111-8111-111111111111';
 const FARM = '33333333-3333-4333-8333-333333333333';
 const notch = (heads: number[]): EntityFields<'flowMeasurement'> => ({
-  visitId: VISIT, sourceId: null, takenAt: null, notes: '', measurement: { method: 'v-notch', season: 'dry', notchAngleDeg: 90, trials: heads.map((headM) => ({ headM })) },
+  visitId: VISIT,
+  sourceId: null,
+  takenAt: null,
+  notes: '',
+  measurement: { method: 'v-notch', season: 'dry', notchAngleDeg: 90, trials: heads.map((headM) => ({ headM })) },
 });
 const bucket = (seconds: number[]): EntityFields<'flowMeasurement'> => ({
-  visitId: VISIT, sourceId: null, takenAt: null, notes: '', measurement: { method: 'volumetric', season: 'dry', trials: seconds.map((s) => ({ volumeL: 20, seconds: s })) },
+  visitId: VISIT,
+  sourceId: null,
+  takenAt: null,
+  notes: '',
+  measurement: { method: 'volumetric', season: 'dry', trials: seconds.map((s) => ({ volumeL: 20, seconds: s })) },
 });
 const hoseFall = (dropM: number): EntityFields<'fallReading'> => ({
-  visitId: VISIT, purpose: 'fall', seq: 0, takenAt: null, notes: '', bookedFrom: null,
+  visitId: VISIT,
+  purpose: 'fall',
+  seq: 0,
+  takenAt: null,
+  notes: '',
+  bookedFrom: null,
   run: { method: 'hose', steps: Array.from({ length: Math.ceil(dropM / 5) }, () => ({ upperReadingM: 0, lowerReadingM: dropM / Math.ceil(dropM / 5) })) },
 });
-const people = (count: number): EntityFields<'demandLine'> => ({ farmId: FARM, kind: 'person-tap-on-plot', count, litresPerHeadPerDay: 50, figureSource: '', note: '', confirmed: null });
+const people = (count: number): EntityFields<'demandLine'> => ({
+  farmId: FARM,
+  kind: 'person-tap-on-plot',
+  count,
+  litresPerHeadPerDay: 50,
+  figureSource: '',
+  note: '',
+  confirmed: null,
+});
 
 describe('unusual readings ask "is this right?"', () => {
   it('a 90° V-notch head outside 0.06–0.38 m (USBR Water Measurement Manual range, from memory) is asked about, inside it is not', () => {
@@ -37,8 +58,12 @@ describe('unusual readings ask "is this right?"', () => {
   });
 
   it('a lift over 250 m, booked from the pump going up, is asked about in feet for a US advisor', () => {
-    const lift: EntityFields<'fallReading'> = { ...hoseFall(5), purpose: 'lift', bookedFrom: 'pump',
-      run: { method: 'hose', steps: Array.from({ length: 52 }, () => ({ upperReadingM: 5, lowerReadingM: 0 })) } };
+    const lift: EntityFields<'fallReading'> = {
+      ...hoseFall(5),
+      purpose: 'lift',
+      bookedFrom: 'pump',
+      run: { method: 'hose', steps: Array.from({ length: 52 }, () => ({ upperReadingM: 5, lowerReadingM: 0 })) },
+    };
     const found = unusualIn('fallReading', lift, 'us');
     expect(found.map((u) => u.code)).toEqual(['lift-high']);
     expect(found[0]!.message).toMatch(/853 ft .*about 820 ft/);

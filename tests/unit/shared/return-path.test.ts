@@ -29,8 +29,9 @@ describe('sameOriginPath: the return address after sign-in', () => {
   });
 
   it('keeps the whole path and query string of a same-origin address', () => {
-    expect(sameOriginPath('/sheets/3f1c2a9e-0000-4000-8000-000000000001?paper=letter&from=mail', ORIGIN))
-      .toBe('/sheets/3f1c2a9e-0000-4000-8000-000000000001?paper=letter&from=mail');
+    expect(sameOriginPath('/sheets/3f1c2a9e-0000-4000-8000-000000000001?paper=letter&from=mail', ORIGIN)).toBe(
+      '/sheets/3f1c2a9e-0000-4000-8000-000000000001?paper=letter&from=mail',
+    );
     expect(sameOriginPath('/field/visit/flow?id=abc', ORIGIN)).toBe('/field/visit/flow?id=abc');
     expect(sameOriginPath(`${ORIGIN}/office?status=scheduled`, ORIGIN)).toBe('/office?status=scheduled');
   });

@@ -8,13 +8,53 @@ const id = (n: number) => `00000000-0000-4000-8000-00000000000${n}`;
 
 const records: VisitRecords = {
   flows: [
-    { id: id(2), visitId: VISIT, sourceId: null, takenAt: '2026-08-02T10:00:00Z', notes: '', measurement: { method: 'volumetric', season: 'dry', trials: [{ volumeL: 20, seconds: 8 }] } },
-    { id: id(1), visitId: VISIT, sourceId: null, takenAt: '2026-08-01T10:00:00Z', notes: '', measurement: { method: 'volumetric', season: 'dry', trials: [{ volumeL: 20, seconds: 9 }] } },
-    { id: id(3), visitId: VISIT, sourceId: null, takenAt: null, notes: '', deletedAt: '2026-08-03T00:00:00Z', measurement: { method: 'volumetric', season: 'dry', trials: [{ volumeL: 20, seconds: 1 }] } },
+    {
+      id: id(2),
+      visitId: VISIT,
+      sourceId: null,
+      takenAt: '2026-08-02T10:00:00Z',
+      notes: '',
+      measurement: { method: 'volumetric', season: 'dry', trials: [{ volumeL: 20, seconds: 8 }] },
+    },
+    {
+      id: id(1),
+      visitId: VISIT,
+      sourceId: null,
+      takenAt: '2026-08-01T10:00:00Z',
+      notes: '',
+      measurement: { method: 'volumetric', season: 'dry', trials: [{ volumeL: 20, seconds: 9 }] },
+    },
+    {
+      id: id(3),
+      visitId: VISIT,
+      sourceId: null,
+      takenAt: null,
+      notes: '',
+      deletedAt: '2026-08-03T00:00:00Z',
+      measurement: { method: 'volumetric', season: 'dry', trials: [{ volumeL: 20, seconds: 1 }] },
+    },
   ],
   runs: [
-    { id: id(5), visitId: VISIT, purpose: 'lift', seq: 1, takenAt: null, notes: '', bookedFrom: null, run: { method: 'direct', staticLiftM: 14, liftMethod: 'level' } },
-    { id: id(4), visitId: VISIT, purpose: 'fall', seq: 0, takenAt: null, notes: '', bookedFrom: null, run: { method: 'hose', steps: [{ upperReadingM: 0.2, lowerReadingM: 2.2 }] } },
+    {
+      id: id(5),
+      visitId: VISIT,
+      purpose: 'lift',
+      seq: 1,
+      takenAt: null,
+      notes: '',
+      bookedFrom: null,
+      run: { method: 'direct', staticLiftM: 14, liftMethod: 'level' },
+    },
+    {
+      id: id(4),
+      visitId: VISIT,
+      purpose: 'fall',
+      seq: 0,
+      takenAt: null,
+      notes: '',
+      bookedFrom: null,
+      run: { method: 'hose', steps: [{ upperReadingM: 0.2, lowerReadingM: 2.2 }] },
+    },
   ],
   pipes: [
     { id: id(6), visitId: VISIT, purpose: 'delivery', lengthM: 300, diameterMm: null, material: 'hdpe', pressureClass: null },
@@ -39,7 +79,12 @@ describe('one builder of the engine input', () => {
   });
 
   it('the same records in any order give the same input and the same screen', () => {
-    const shuffled: VisitRecords = { ...records, flows: [...records.flows].reverse(), runs: [...records.runs].reverse(), demand: [...records.demand].reverse() };
+    const shuffled: VisitRecords = {
+      ...records,
+      flows: [...records.flows].reverse(),
+      runs: [...records.runs].reverse(),
+      demand: [...records.demand].reverse(),
+    };
     expect(buildSiteReadings(shuffled)).toEqual(buildSiteReadings(records));
     expect(screenSite(buildSiteReadings(shuffled)).verdict).toBe(screenSite(buildSiteReadings(records)).verdict);
   });

@@ -6,7 +6,10 @@ const st = (id: string, chainageM: number, lat: number | null = null, lon: numbe
 describe('placing profile stations on the map', () => {
   it('keeps a station\u2019s own fix', () => {
     const { placed, unplaced } = placeStations([st('a', 0, 52.1, -3.2), st('b', 10, 52.2, -3.3)]);
-    expect(placed.map((p) => [p.id, p.lat, p.lon, p.placed])).toEqual([['a', 52.1, -3.2, 'fix'], ['b', 52.2, -3.3, 'fix']]);
+    expect(placed.map((p) => [p.id, p.lat, p.lon, p.placed])).toEqual([
+      ['a', 52.1, -3.2, 'fix'],
+      ['b', 52.2, -3.3, 'fix'],
+    ]);
     expect(unplaced).toEqual([]);
   });
 

@@ -21,7 +21,7 @@ describe('elevation profile geometry', () => {
     expect(g.exaggeration).toMatch(/Heights drawn \d+ × larger/);
   });
 
-  it('labels heights and lengths in the reader\'s units', () => {
+  it("labels heights and lengths in the reader's units", () => {
     const us = profileGeometry(p, 'us');
     expect(us.nodes[2]?.height).toBe('98.4 ft above the ram');
     expect(us.pipes[1]?.label).toBe('Delivery pipe 1,378 ft');
@@ -79,7 +79,10 @@ describe('labels stay inside the frame', () => {
     { fallM: 12, staticLiftM: 3, driveLengthM: 160, deliveryLengthM: 40 },
     { fallM: 1.2, staticLiftM: 95, driveLengthM: 8, deliveryLengthM: 2400 },
   ];
-  for (const [w, h] of [[640, 320], [360, 300]] as const) {
+  for (const [w, h] of [
+    [640, 320],
+    [360, 300],
+  ] as const) {
     for (const site of sites) {
       it(`profile ${w}×${h}, fall ${site.fallM} m, lift ${site.staticLiftM} m: every label box and the tank are in view`, () => {
         for (const units of ['metric', 'us'] as const) {
@@ -101,10 +104,13 @@ describe('labels stay inside the frame', () => {
   }
 
   it('a map label near the right edge turns to the left of its point', () => {
-    const g = siteMapGeometry([
-      { role: 'intake', label: 'Ridge by the old sheepfold', lat: 52.4193, lon: -3.617 },
-      { role: 'tank', label: 'Tank on the meadow bench', lat: 52.4183, lon: -3.614 },
-    ], 'metric');
+    const g = siteMapGeometry(
+      [
+        { role: 'intake', label: 'Ridge by the old sheepfold', lat: 52.4193, lon: -3.617 },
+        { role: 'tank', label: 'Tank on the meadow bench', lat: 52.4183, lon: -3.614 },
+      ],
+      'metric',
+    );
     if (!g) throw new Error('two points make a map');
     for (const p of g.points) {
       const w = textWidth(p.label, MAP_LABEL_SIZE);
@@ -118,10 +124,13 @@ describe('labels stay inside the frame', () => {
 
 describe('the drawings as SVG markup (the page and the PDF draw the same)', () => {
   it('escapes every label: hostile text stays text', () => {
-    const g = siteMapGeometry([
-      { role: 'intake', label: '<script>alert("x")</script>', lat: 52.4193, lon: -3.617 },
-      { role: 'tank', label: 'Tom & Jo\'s "tank"', lat: 52.4183, lon: -3.614 },
-    ], 'metric');
+    const g = siteMapGeometry(
+      [
+        { role: 'intake', label: '<script>alert("x")</script>', lat: 52.4193, lon: -3.617 },
+        { role: 'tank', label: 'Tom & Jo\'s "tank"', lat: 52.4183, lon: -3.614 },
+      ],
+      'metric',
+    );
     if (!g) throw new Error('two points make a map');
     const svg = siteMapSvg(g);
     expect(svg).not.toContain('<script>');
@@ -129,9 +138,17 @@ describe('the drawings as SVG markup (the page and the PDF draw the same)', () =
     expect(svg).toContain('Tom &amp; Jo&#39;s &quot;tank&quot;');
   });
 
-  it('draws the tank and every label of the profile, with the PDF\'s fonts per run when asked', () => {
+  it("draws the tank and every label of the profile, with the PDF's fonts per run when asked", () => {
     const g = profileGeometry({ fallM: 4, staticLiftM: 30, driveLengthM: 24, deliveryLengthM: 420 }, 'metric', 360, 300);
-    const svg = profileSvg(g, { runsFor: (text) => (text === 'Tank' ? [{ font: 'a', text: 'Ta' }, { font: 'b', text: 'nk' }] : [{ font: 'a', text }]) });
+    const svg = profileSvg(g, {
+      runsFor: (text) =>
+        text === 'Tank'
+          ? [
+              { font: 'a', text: 'Ta' },
+              { font: 'b', text: 'nk' },
+            ]
+          : [{ font: 'a', text }],
+    });
     expect(svg).toContain('data-node="tank"');
     for (const node of g.nodes) expect(svg).toContain(node.height);
     expect(svg).toContain('<tspan font-family="a">Ta</tspan><tspan font-family="b">nk</tspan>');

@@ -20,7 +20,10 @@ const HARD_NAMES = [
 ];
 
 const TAMIL = /[\u0B80-\u0BFF]/;
-const tamilLetters = (text: string) => Array.from(text.normalize('NFD')).filter((ch) => TAMIL.test(ch)).sort();
+const tamilLetters = (text: string) =>
+  Array.from(text.normalize('NFD'))
+    .filter((ch) => TAMIL.test(ch))
+    .sort();
 
 async function textOf(pdf: Buffer): Promise<string> {
   const parser = new PDFParse({ data: new Uint8Array(pdf) });

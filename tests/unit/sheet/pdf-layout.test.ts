@@ -13,11 +13,23 @@ async function pagesOf(view: SheetView, paper: Paper): Promise<string[]> {
   }
 }
 
-const HEADINGS = ['Key figures', 'The water path, from intake to tank', 'Where the points are', 'Conditions for a go', 'Bill of materials', 'Ten years: a ram, a solar pump or a petrol pump', 'Cautions', 'How we worked this out'];
+const HEADINGS = [
+  'Key figures',
+  'The water path, from intake to tank',
+  'Where the points are',
+  'Conditions for a go',
+  'Bill of materials',
+  'Ten years: a ram, a solar pump or a petrol pump',
+  'Cautions',
+  'How we worked this out',
+];
 
 // What a page says after a heading, without the footer line (the last line on every page).
 function after(page: string, heading: string): string {
-  const lines = page.split('\n').map((l) => l.trim()).filter(Boolean);
+  const lines = page
+    .split('\n')
+    .map((l) => l.trim())
+    .filter(Boolean);
   const at = lines.findIndex((l) => l.startsWith(heading));
   return lines.slice(at + 1, -1).join(' ');
 }

@@ -16,7 +16,7 @@ describe('rounding for the summary', () => {
     expect(roughly(95)).toBe(95);
   });
 
-  it('says the daily figures in words with the key figure\'s own number, gallons for US readers', () => {
+  it("says the daily figures in words with the key figure's own number, gallons for US readers", () => {
     expect(dailyInWords(2284.4, 'metric')).toBe(`${quantity(2284.4, 'litresPerDay', 'metric').number} litres`);
     expect(dailyInWords(2284.4, 'metric')).toBe('2,280 litres');
     expect(dailyInWords(3.785411784 * 612, 'us')).toBe('612 gallons');
@@ -63,8 +63,9 @@ describe('the sheet view', () => {
     expect(byKey.fallM).toBe(quantity(figure('fallM'), 'length', 'metric').text);
     expect(byKey.fallM).toMatch(/ m$/);
     expect(byKey.deliveryLpd).toMatch(/ L\/day$/);
-    expect(view.figures.map((f) => f.key)).toEqual(expect.arrayContaining(
-      ['fallM', 'designFlowLpm', 'totalLiftM', 'liftRatio', 'deliveryLpd', 'demandLpd', 'demandMarginLpd', 'probabilityMeetsDemand']));
+    expect(view.figures.map((f) => f.key)).toEqual(
+      expect.arrayContaining(['fallM', 'designFlowLpm', 'totalLiftM', 'liftRatio', 'deliveryLpd', 'demandLpd', 'demandMarginLpd', 'probabilityMeetsDemand']),
+    );
   });
 
   it('shows ft and gal/day for a US reader, converted from the same figures', () => {
@@ -79,7 +80,9 @@ describe('the sheet view', () => {
 
   it('carries every caution with a title, and the safety ones are there', () => {
     const view = buildSheetView(source, 'metric');
-    expect(view.cautions.map((c) => c.code)).toEqual(expect.arrayContaining(['NOT_A_DESIGN', 'SURGE_PRESSURE', 'WORKING_IN_WATER', 'PERMITS', 'UNTREATED_WATER']));
+    expect(view.cautions.map((c) => c.code)).toEqual(
+      expect.arrayContaining(['NOT_A_DESIGN', 'SURGE_PRESSURE', 'WORKING_IN_WATER', 'PERMITS', 'UNTREATED_WATER']),
+    );
     expect(view.cautions.every((c) => c.title.length > 0 && c.text.length > 0)).toBe(true);
     expect(view.surveyed).toContain('Tobias Test');
     expect(view.sources.length).toBeGreaterThan(3);
@@ -120,7 +123,9 @@ describe('the new figures and outcomes on the sheet', () => {
 
 describe('figures said plainly', () => {
   it('a metric sheet leads with DN and kPa, explains Schedule 40, and shows no bare psi or inch size', () => {
-    expect(plainTrade('Galvanized steel, Schedule 40, class 150 fittings (300 psi)', 'metric')).toBe('Galvanized steel, Schedule 40 (standard-wall steel), class 150 fittings (2,070 kPa, 300 psi)');
+    expect(plainTrade('Galvanized steel, Schedule 40, class 150 fittings (300 psi)', 'metric')).toBe(
+      'Galvanized steel, Schedule 40 (standard-wall steel), class 150 fittings (2,070 kPa, 300 psi)',
+    );
     expect(plainTrade('for 1¼″ (32 mm) drive pipe', 'metric')).toBe('for DN 32 (1¼″) drive pipe');
     expect(plainTrade('PE SDR 17 (125 psi)', 'metric')).toBe('PE SDR 17 (862 kPa, 125 psi)');
     const view = buildSheetView(source, 'metric');
@@ -158,7 +163,10 @@ describe('buildSheetView costs', () => {
     expect(priced.costs?.total).toMatch(/^£[\d,]+$/);
     expect(priced.billOfMaterials[0]?.price).toMatch(/^£[\d,]+$/);
     const old = brandtLikeSource();
-    old.screening = { ...old.screening, billOfMaterials: old.screening.billOfMaterials.map(({ priceKey: _k, pipe: _p, driveIn: _d, litres: _l, shared: _s, ...line }) => line) };
+    old.screening = {
+      ...old.screening,
+      billOfMaterials: old.screening.billOfMaterials.map(({ priceKey: _k, pipe: _p, driveIn: _d, litres: _l, shared: _s, ...line }) => line),
+    };
     const view = buildSheetView(old, 'metric');
     expect(view.costs).toBeNull();
     expect(view.billOfMaterials.every((line) => line.price === '—')).toBe(true);

@@ -45,32 +45,50 @@ export function SignInForm({ returnTo }: { returnTo?: string }) {
   return (
     <form onSubmit={onSubmit} noValidate className="mt-8 space-y-5" aria-label="Sign in">
       <div>
-        <label htmlFor="email" className="block text-lg font-bold">E-mail</label>
+        <label htmlFor="email" className="block text-lg font-bold">
+          E-mail
+        </label>
         <input
-          id="email" type="email" autoComplete="username" inputMode="email"
-          aria-invalid={!!errors.email} aria-describedby={errors.email ? 'email-error' : undefined}
+          id="email"
+          type="email"
+          autoComplete="username"
+          inputMode="email"
+          aria-invalid={!!errors.email}
+          aria-describedby={errors.email ? 'email-error' : undefined}
           className="mt-1 block min-h-12 w-full rounded-md border-2 border-stone bg-white px-3 text-lg"
           name="email"
         />
-        {errors.email && <p id="email-error" className="mt-1 font-bold text-clay">{errors.email}</p>}
+        {errors.email && (
+          <p id="email-error" className="mt-1 font-bold text-clay">
+            {errors.email}
+          </p>
+        )}
       </div>
       <div>
-        <label htmlFor="password" className="block text-lg font-bold">Password</label>
+        <label htmlFor="password" className="block text-lg font-bold">
+          Password
+        </label>
         <input
-          id="password" type="password" autoComplete="current-password"
-          aria-invalid={!!errors.password} aria-describedby={errors.password ? 'password-error' : undefined}
+          id="password"
+          type="password"
+          autoComplete="current-password"
+          aria-invalid={!!errors.password}
+          aria-describedby={errors.password ? 'password-error' : undefined}
           className="mt-1 block min-h-12 w-full rounded-md border-2 border-stone bg-white px-3 text-lg"
           name="password"
         />
-        {errors.password && <p id="password-error" className="mt-1 font-bold text-clay">{errors.password}</p>}
+        {errors.password && (
+          <p id="password-error" className="mt-1 font-bold text-clay">
+            {errors.password}
+          </p>
+        )}
       </div>
       {serverError && (
-        <p role="alert" className="rounded-md border-2 border-clay bg-white p-3 font-bold text-clay">{serverError}</p>
+        <p role="alert" className="rounded-md border-2 border-clay bg-white p-3 font-bold text-clay">
+          {serverError}
+        </p>
       )}
-      <button
-        type="submit" disabled={isSubmitting}
-        className="min-h-14 w-full rounded-md bg-slate px-4 text-xl font-bold text-white disabled:opacity-70"
-      >
+      <button type="submit" disabled={isSubmitting} className="min-h-14 w-full rounded-md bg-slate px-4 text-xl font-bold text-white disabled:opacity-70">
         {isSubmitting ? 'Signing in…' : 'Sign in'}
       </button>
     </form>

@@ -14,13 +14,19 @@ export default async function WelcomePage({ params }: { params: Promise<{ token:
       <h1 className="text-4xl font-bold text-slate">Welcome to Fallbook</h1>
       {invitation.state === 'valid' ? (
         <>
-          <p className="mt-2 text-lg">{invitation.name}, choose a password for <strong>{invitation.email}</strong> with {invitation.organisation}.</p>
+          <p className="mt-2 text-lg">
+            {invitation.name}, choose a password for <strong>{invitation.email}</strong> with {invitation.organisation}.
+          </p>
           <SetPasswordForm token={token} email={invitation.email ?? ''} />
         </>
       ) : (
         <>
-          <p role="alert" className="mt-4 rounded-md border-2 border-clay bg-white p-3 text-lg font-bold text-clay">{INVITATION_GONE[invitation.state]}</p>
-          <p className="mt-4"><Link href="/login">Go to sign in</Link></p>
+          <p role="alert" className="mt-4 rounded-md border-2 border-clay bg-white p-3 text-lg font-bold text-clay">
+            {INVITATION_GONE[invitation.state]}
+          </p>
+          <p className="mt-4">
+            <Link href="/login">Go to sign in</Link>
+          </p>
         </>
       )}
     </main>

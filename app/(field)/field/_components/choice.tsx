@@ -4,7 +4,12 @@ import Link from 'next/link';
 import { useId } from 'react';
 
 /** A row of large toggle buttons for a small set of choices (methods, seasons, roles). */
-export function Choice<T extends string>({ label, options, value, onChange }: {
+export function Choice<T extends string>({
+  label,
+  options,
+  value,
+  onChange,
+}: {
   label: string;
   options: readonly { value: T; label: string }[];
   value: T;
@@ -15,8 +20,13 @@ export function Choice<T extends string>({ label, options, value, onChange }: {
       <legend className="font-bold">{label}</legend>
       <div className="mt-1 flex flex-wrap gap-2">
         {options.map((o) => (
-          <button key={o.value} type="button" aria-pressed={o.value === value} onClick={() => onChange(o.value)}
-            className={`min-h-12 rounded-md border-2 px-4 font-bold ${o.value === value ? 'border-slate bg-slate text-white' : 'border-stone bg-white text-ink'}`}>
+          <button
+            key={o.value}
+            type="button"
+            aria-pressed={o.value === value}
+            onClick={() => onChange(o.value)}
+            className={`min-h-12 rounded-md border-2 px-4 font-bold ${o.value === value ? 'border-slate bg-slate text-white' : 'border-stone bg-white text-ink'}`}
+          >
             {o.label}
           </button>
         ))}
@@ -26,8 +36,16 @@ export function Choice<T extends string>({ label, options, value, onChange }: {
 }
 
 /** The full-width primary action at thumb height. */
-export function PrimaryButton({ children, onClick, disabled, why, type = 'button' }: {
-  children: React.ReactNode; onClick?: () => void; disabled?: boolean;
+export function PrimaryButton({
+  children,
+  onClick,
+  disabled,
+  why,
+  type = 'button',
+}: {
+  children: React.ReactNode;
+  onClick?: () => void;
+  disabled?: boolean;
   /** Why the button cannot be used yet, shown under it while it is disabled: a greyed button never stands unexplained. */
   why?: string;
   type?: 'button' | 'submit';
@@ -36,11 +54,20 @@ export function PrimaryButton({ children, onClick, disabled, why, type = 'button
   const note = disabled && why ? why : null;
   return (
     <div>
-      <button type={type} onClick={onClick} disabled={disabled} aria-describedby={note ? id : undefined}
-        className="min-h-14 w-full rounded-md bg-slate px-4 text-xl font-bold text-white disabled:opacity-50">
+      <button
+        type={type}
+        onClick={onClick}
+        disabled={disabled}
+        aria-describedby={note ? id : undefined}
+        className="min-h-14 w-full rounded-md bg-slate px-4 text-xl font-bold text-white disabled:opacity-50"
+      >
         {children}
       </button>
-      {note && <p id={id} className="mt-1 text-stone" data-testid="disabled-why">{note}</p>}
+      {note && (
+        <p id={id} className="mt-1 text-stone" data-testid="disabled-why">
+          {note}
+        </p>
+      )}
     </div>
   );
 }

@@ -17,7 +17,13 @@ const CONTROL_CLEARANCE: L.PointTuple = [64, 24];
  * Fits the view to the places whenever their set changes (first drawn, a point saved or deleted),
  * and brings `follow` into view whenever it moves (a new fix, typed coordinates, a dragged pin).
  */
-function MapView({ places, home, follow, padding, maxZoom }: {
+function MapView({
+  places,
+  home,
+  follow,
+  padding,
+  maxZoom,
+}: {
   places: Place[];
   home: Place | null;
   follow: Place | null;
@@ -53,7 +59,15 @@ function MapView({ places, home, follow, padding, maxZoom }: {
  * they show with no signal), our own lines and markers, a scale. With no tiles configured it is
  * still a working map on paper. It opens on the places (or the farm), never on the whole world.
  */
-export function FieldMap({ places, home = null, follow = null, padding = [24, 24], maxZoom = 18, label, children }: {
+export function FieldMap({
+  places,
+  home = null,
+  follow = null,
+  padding = [24, 24],
+  maxZoom = 18,
+  label,
+  children,
+}: {
   /** What the map must show; fitted whenever the set changes. */
   places: Place[];
   /** Where to look when there are no places yet (the farm). */
@@ -71,17 +85,24 @@ export function FieldMap({ places, home = null, follow = null, padding = [24, 24
     <div className="space-y-1">
       <MapContainer
         bounds={first.length > 1 ? L.latLngBounds(first) : undefined}
-        center={first.length > 1 ? undefined : first[0] ?? [0, 0]}
+        center={first.length > 1 ? undefined : (first[0] ?? [0, 0])}
         zoom={first.length > 1 ? undefined : first.length === 1 ? Math.min(SINGLE_ZOOM, maxZoom) : 2}
         boundsOptions={{ paddingTopLeft: CONTROL_CLEARANCE, paddingBottomRight: padding, maxZoom }}
-        className="field-map h-72 w-full rounded-md border border-rule" style={{ background: '#EDEAE0' }} aria-label={label}>
+        className="field-map h-72 w-full rounded-md border border-rule"
+        style={{ background: '#EDEAE0' }}
+        aria-label={label}
+      >
         {/* Above the top kept zoom the phone enlarges the kept tiles, so a close look works offline too. */}
         {tiles && <TileLayer url={tiles} attribution={process.env.NEXT_PUBLIC_TILE_ATTRIBUTION ?? ''} maxNativeZoom={OFFLINE_MAX_ZOOM} maxZoom={20} />}
         <ScaleControl position="bottomleft" />
         <MapView places={places} home={home} follow={follow} padding={padding} maxZoom={maxZoom} />
         {children}
       </MapContainer>
-      {first.length === 0 && <p className="text-stone" data-testid="map-nowhere">Nothing to centre on yet: this farm has no position on record. Use my location or type the coordinates.</p>}
+      {first.length === 0 && (
+        <p className="text-stone" data-testid="map-nowhere">
+          Nothing to centre on yet: this farm has no position on record. Use my location or type the coordinates.
+        </p>
+      )}
     </div>
   );
 }

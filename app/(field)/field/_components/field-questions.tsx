@@ -18,12 +18,22 @@ export function FieldQuestions({ enabled }: { enabled: boolean }) {
     const load = () => {
       fetch('/api/questions', { headers: { accept: 'application/json' } })
         .then((res) => (res.ok ? res.json() : Promise.reject(new Error(String(res.status)))))
-        .then((body: { questions: OpenQuestion[] }) => { if (live) { setQuestions(body.questions); setOffline(false); } })
-        .catch(() => { if (live) setOffline(true); });
+        .then((body: { questions: OpenQuestion[] }) => {
+          if (live) {
+            setQuestions(body.questions);
+            setOffline(false);
+          }
+        })
+        .catch(() => {
+          if (live) setOffline(true);
+        });
     };
     load();
     window.addEventListener('online', load);
-    return () => { live = false; window.removeEventListener('online', load); };
+    return () => {
+      live = false;
+      window.removeEventListener('online', load);
+    };
   }, [enabled]);
   if (offline && questions === null) return <p className="text-stone">Farmers’ questions show here when the phone has a signal.</p>;
   if (questions === null) return null;

@@ -76,7 +76,9 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
     return (
       <main className="mx-auto max-w-xl p-6">
         <h1 className="text-2xl font-bold text-clay">Changes of {session.waitingFor.name} still wait on this phone</h1>
-        <p className="mt-3 text-lg">They have not reached the server yet. Sign in as {session.waitingFor.name} once with a signal to send them; nothing has been deleted.</p>
+        <p className="mt-3 text-lg">
+          They have not reached the server yet. Sign in as {session.waitingFor.name} once with a signal to send them; nothing has been deleted.
+        </p>
       </main>
     );
   }
@@ -84,7 +86,9 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
     return (
       <main className="mx-auto max-w-xl p-6">
         <h1 className="text-2xl font-bold text-slate">The field book is for advisors</h1>
-        <p className="mt-3 text-lg"><Link href="/farm">Go to your farm page</Link></p>
+        <p className="mt-3 text-lg">
+          <Link href="/farm">Go to your farm page</Link>
+        </p>
       </main>
     );
   }
@@ -96,7 +100,9 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
       <div className="field-frame flex min-h-dvh flex-col">
         <header className="border-b border-rule">
           <div className="mx-auto flex w-full max-w-3xl items-center justify-between px-4 py-3">
-            <Link href="/field" prefetch={false} className="text-2xl font-bold text-slate no-underline">Fallbook</Link>
+            <Link href="/field" prefetch={false} className="text-2xl font-bold text-slate no-underline">
+              Fallbook
+            </Link>
             <span className="text-right leading-tight">
               <span className="block font-bold">{user?.name ?? '\u00a0'}</span>
               <span className="block text-stone">{!session ? '\u00a0' : session.online ? 'Field advisor' : 'Field advisor · offline'}</span>

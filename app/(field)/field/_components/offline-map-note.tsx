@@ -10,10 +10,21 @@ function useOfflineTiles(): OfflineTiles | null | undefined {
   const [tiles, setTiles] = useState<OfflineTiles | null | undefined>(undefined);
   useEffect(() => {
     let live = true;
-    const read = () => void readOfflineTiles().then((m) => { if (live) setTiles(m); }, () => { if (live) setTiles(null); });
+    const read = () =>
+      void readOfflineTiles().then(
+        (m) => {
+          if (live) setTiles(m);
+        },
+        () => {
+          if (live) setTiles(null);
+        },
+      );
     read();
     const stop = onOfflineTilesChange(read);
-    return () => { live = false; stop(); };
+    return () => {
+      live = false;
+      stop();
+    };
   }, []);
   return tiles;
 }

@@ -62,7 +62,10 @@ export function useRecordCheck<E extends SyncEntity>(entity: E, units: UnitSyste
       setConfirmed((list) => [...list, code]);
       setAsks((list) => list.filter((u) => u.code !== code));
     },
-    unplaced: (shown) => Object.entries(messages).filter(([p]) => !shown.some((s) => isUnder(p, s))).map(([, m]) => m),
+    unplaced: (shown) =>
+      Object.entries(messages)
+        .filter(([p]) => !shown.some((s) => isUnder(p, s)))
+        .map(([, m]) => m),
     clear: () => {
       form.clearErrors();
       setAsks([]);
@@ -103,7 +106,11 @@ export function FieldIssue({ check, path, under = false }: { check: RecordCheck;
   if (!message && asks.length === 0) return null;
   return (
     <div className="mt-1 space-y-2" data-field-issue={path}>
-      {message && <p role="alert" className="font-bold text-clay">{message}</p>}
+      {message && (
+        <p role="alert" className="font-bold text-clay">
+          {message}
+        </p>
+      )}
       {asks.map((u) => (
         <div key={u.code} role="alert" className="rounded-md border-2 border-ochre bg-white p-3">
           <p className="font-bold">{u.message}</p>

@@ -28,14 +28,19 @@ export function ScreenPreview({ visitId }: { visitId: string }) {
   if (!preview) return null;
   return (
     <section aria-labelledby="preview" className="rounded-md border-2 border-slate bg-white p-4">
-      <h2 id="preview" className="text-xl font-bold">Screen preview (on this phone)</h2>
+      <h2 id="preview" className="text-xl font-bold">
+        Screen preview (on this phone)
+      </h2>
       {preview.kind === 'missing' && (
         <div className="mt-2">
           <p>Still needed before the screen can run:</p>
           <ul className="ml-5 list-disc" data-testid="preview-missing">
             {preview.missing.map((m) => (
               <li key={`${m.record}|${m.message}`}>
-                <Link href={`/field/visit/${m.page}?id=${visitId}`} className="font-bold">{m.record}</Link>: {m.message}
+                <Link href={`/field/visit/${m.page}?id=${visitId}`} className="font-bold">
+                  {m.record}
+                </Link>
+                : {m.message}
               </li>
             ))}
           </ul>
@@ -45,10 +50,15 @@ export function ScreenPreview({ visitId }: { visitId: string }) {
         <div className="mt-2 space-y-2" data-testid="preview-verdict">
           <VerdictMark verdict={preview.screening.verdict} />
           <p className="figure">
-            Delivery {showQuantity(preview.screening.figures.deliveryLpd?.value ?? 0, 'litresPerDay', units)} · demand {showQuantity(preview.screening.figures.demandLpd?.value ?? 0, 'litresPerDay', units)}
+            Delivery {showQuantity(preview.screening.figures.deliveryLpd?.value ?? 0, 'litresPerDay', units)} · demand{' '}
+            {showQuantity(preview.screening.figures.demandLpd?.value ?? 0, 'litresPerDay', units)}
           </p>
           <p data-testid="preview-ram">{arrangement(preview.screening.figures, units)}</p>
-          <ul className="ml-5 list-disc">{preview.screening.reasons.slice(0, 3).map((r) => <li key={r.code}>{sentence(r, units)}</li>)}</ul>
+          <ul className="ml-5 list-disc">
+            {preview.screening.reasons.slice(0, 3).map((r) => (
+              <li key={r.code}>{sentence(r, units)}</li>
+            ))}
+          </ul>
           <p className="text-stone">A first check, not an engineering design. The server stores the official screening after sync.</p>
         </div>
       )}

@@ -25,9 +25,11 @@ export function StorageNote() {
   return (
     <footer className="mx-auto mt-auto w-full max-w-3xl px-4 pb-6 text-stone">
       <p>{storage ? `Stored on this phone: ${formatBytes(storage.usage)} of ${formatBytes(storage.quota)}` : '\u00a0'}</p>
-      <p>{storage?.persisted
-        ? 'The browser keeps it: it will not clear it to free space.'
-        : 'The browser may clear what the field book keeps on this phone if space runs low; install the app to keep it.'}</p>
+      <p>
+        {storage?.persisted
+          ? 'The browser keeps it: it will not clear it to free space.'
+          : 'The browser may clear what the field book keeps on this phone if space runs low; install the app to keep it.'}
+      </p>
     </footer>
   );
 }

@@ -14,7 +14,6 @@ function timeOf(iso: string | undefined, units: UnitSystem): string {
   return iso ? formatClock(new Date(iso), units) : 'never';
 }
 
-
 /**
  * What waits on the phone, in words and counts, always in the same place (never an icon alone).
  * Until the session is known it holds its place with the same two lines, and the button waits: a
@@ -44,12 +43,18 @@ export function SyncBar() {
     <section aria-label="Sync status" className="border-b border-rule bg-white">
       <div className="mx-auto flex max-w-3xl flex-wrap items-center justify-between gap-2 px-4 py-2">
         <div role="status" aria-live="polite" className="leading-tight">
-          <span className="block font-bold" data-testid="sync-summary">{summary}</span>
+          <span className="block font-bold" data-testid="sync-summary">
+            {summary}
+          </span>
           <span className="block text-stone">{ready && state ? `Last sync ${timeOf(state.lastSuccess, user?.units ?? 'metric')}` : 'Last sync …'}</span>
           {ready && state && <Notices state={state} />}
         </div>
-        <button type="button" onClick={syncNow} disabled={busy || !ready}
-          className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate disabled:opacity-60">
+        <button
+          type="button"
+          onClick={syncNow}
+          disabled={busy || !ready}
+          className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate disabled:opacity-60"
+        >
           {busy ? 'Syncing…' : 'Sync now'}
         </button>
       </div>
@@ -69,13 +74,19 @@ function Notices({ state }: { state: BarState }) {
   return (
     <>
       {state.paused && (
-        <a href="/login?callbackUrl=/field" className="block font-bold text-clay">Sign in again to send what is waiting</a>
+        <a href="/login?callbackUrl=/field" className="block font-bold text-clay">
+          Sign in again to send what is waiting
+        </a>
       )}
       {state.parked > 0 && (
-        <Link href="/field/sync" className="block font-bold text-clay">{decisionWords(state.parked)}</Link>
+        <Link href="/field/sync" className="block font-bold text-clay">
+          {decisionWords(state.parked)}
+        </Link>
       )}
       {state.refusedPhotos > 0 && (
-        <Link href="/field/sync" className="block font-bold text-clay">The server did not take {formatCount(state.refusedPhotos, 'photo')}: see why</Link>
+        <Link href="/field/sync" className="block font-bold text-clay">
+          The server did not take {formatCount(state.refusedPhotos, 'photo')}: see why
+        </Link>
       )}
       {!state.lastRun?.ok && state.lastRun?.message && !state.paused && <span className="block text-stone">{state.lastRun.message}</span>}
     </>

@@ -10,7 +10,11 @@ import type { SyncEntity } from '@/lib/shared/schemas/sync';
 /** How long the delete waits before the phone offers it to the server. */
 export const UNDO_WINDOW_MS = 10_000;
 
-interface Pending { entity: SyncEntity; id: string; what: string }
+interface Pending {
+  entity: SyncEntity;
+  id: string;
+  what: string;
+}
 
 export function useUndoableDelete() {
   const [pending, setPending] = useState<Pending | null>(null);
@@ -22,12 +26,15 @@ export function useUndoableDelete() {
     timer.current = null;
   };
   // Leaving the page sends what was deleted (the delete is already queued; this only wakes the sync).
-  useEffect(() => () => {
-    if (timer.current) {
-      clearTimeout(timer.current);
-      announceSave();
-    }
-  }, []);
+  useEffect(
+    () => () => {
+      if (timer.current) {
+        clearTimeout(timer.current);
+        announceSave();
+      }
+    },
+    [],
+  );
 
   async function remove(entity: SyncEntity, id: string, what: string) {
     settle();
@@ -49,14 +56,17 @@ export function useUndoableDelete() {
     setPending(null);
   }
 
-  const bar = pending || note ? (
-    <div role="status" className="flex items-center justify-between gap-3 rounded-md border-2 border-slate bg-white p-3" data-testid="undo-bar">
-      <p className="font-bold">{pending ? `Deleted: ${pending.what}.` : note}</p>
-      {pending && (
-        <button type="button" onClick={undo} className="min-h-12 min-w-24 rounded-md bg-slate px-4 font-bold text-white">Undo</button>
-      )}
-    </div>
-  ) : null;
+  const bar =
+    pending || note ? (
+      <div role="status" className="flex items-center justify-between gap-3 rounded-md border-2 border-slate bg-white p-3" data-testid="undo-bar">
+        <p className="font-bold">{pending ? `Deleted: ${pending.what}.` : note}</p>
+        {pending && (
+          <button type="button" onClick={undo} className="min-h-12 min-w-24 rounded-md bg-slate px-4 font-bold text-white">
+            Undo
+          </button>
+        )}
+      </div>
+    ) : null;
 
   return { remove, bar };
 }

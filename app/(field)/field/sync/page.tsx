@@ -22,7 +22,13 @@ function Conflict({ entry, units }: { entry: OutboxEntry; units: UnitSystem }) {
     <li className="space-y-2 rounded-md border-2 border-ochre bg-white p-3">
       <p className="font-bold">Changed on the server while you were out: {describeRecord(entry.entity, { ...server, ...mine })}</p>
       <table className="w-full text-left">
-        <thead><tr><th className="pr-2">Field</th><th className="pr-2">Yours</th><th>Server</th></tr></thead>
+        <thead>
+          <tr>
+            <th className="pr-2">Field</th>
+            <th className="pr-2">Yours</th>
+            <th>Server</th>
+          </tr>
+        </thead>
         <tbody>
           {fields.map((f) => (
             <tr key={f} className="border-t border-rule align-top">
@@ -34,8 +40,12 @@ function Conflict({ entry, units }: { entry: OutboxEntry; units: UnitSystem }) {
         </tbody>
       </table>
       <div className="grid grid-cols-2 gap-2">
-        <button type="button" className="min-h-12 rounded-md bg-slate font-bold text-white" onClick={() => resolveConflict(entry.seq!, 'mine')}>Keep mine</button>
-        <button type="button" className="min-h-12 rounded-md border-2 border-slate font-bold text-slate" onClick={() => resolveConflict(entry.seq!, 'theirs')}>Take the server&apos;s</button>
+        <button type="button" className="min-h-12 rounded-md bg-slate font-bold text-white" onClick={() => resolveConflict(entry.seq!, 'mine')}>
+          Keep mine
+        </button>
+        <button type="button" className="min-h-12 rounded-md border-2 border-slate font-bold text-slate" onClick={() => resolveConflict(entry.seq!, 'theirs')}>
+          Take the server&apos;s
+        </button>
       </div>
     </li>
   );
@@ -56,8 +66,12 @@ function Refused({ entry }: { entry: OutboxEntry }) {
       <p>{refusalReason(entry)}</p>
       <p className="text-stone">Give it up to put back what the server holds; send it again once the reason is fixed.</p>
       <div className="grid grid-cols-2 gap-2">
-        <button type="button" className="min-h-12 rounded-md bg-slate font-bold text-white" onClick={() => retryParked(entry.seq!)}>Send again</button>
-        <button type="button" className="min-h-12 rounded-md border-2 border-clay font-bold text-clay" onClick={() => discardParked(entry.seq!)}>Give it up</button>
+        <button type="button" className="min-h-12 rounded-md bg-slate font-bold text-white" onClick={() => retryParked(entry.seq!)}>
+          Send again
+        </button>
+        <button type="button" className="min-h-12 rounded-md border-2 border-clay font-bold text-clay" onClick={() => discardParked(entry.seq!)}>
+          Give it up
+        </button>
       </div>
     </li>
   );
@@ -84,7 +98,9 @@ function RefusedPhotos() {
           <li key={p.id} className="space-y-2 rounded-md border-2 border-clay bg-white p-3">
             <p className="font-bold">{p.caption ? `Photo “${p.caption}”` : 'A photo'}</p>
             <p>{p.error?.message}</p>
-            <button type="button" className="min-h-12 w-full rounded-md bg-slate font-bold text-white" onClick={() => tryAgain(p.id)}>Try again now</button>
+            <button type="button" className="min-h-12 w-full rounded-md bg-slate font-bold text-white" onClick={() => tryAgain(p.id)}>
+              Try again now
+            </button>
           </li>
         ))}
       </ul>
@@ -102,7 +118,9 @@ export default function SyncPage() {
     <div className="space-y-5">
       <Link href="/field">← My visits</Link>
       <h1 className="text-3xl font-bold text-slate">Waiting to send</h1>
-      <p className="text-lg" data-testid="sync-page-summary">{counts ? `${waitingWords(counts)}.` : 'Checking the phone…'} Nothing leaves this phone before the server has it.</p>
+      <p className="text-lg" data-testid="sync-page-summary">
+        {counts ? `${waitingWords(counts)}.` : 'Checking the phone…'} Nothing leaves this phone before the server has it.
+      </p>
       <h2 className="text-xl font-bold">{parked.length > 0 ? decisionWords(parked.length) : 'Needs your decision'}</h2>
       {parked.length === 0 && <p className="text-stone">Nothing to decide.</p>}
       <ul className="space-y-3">

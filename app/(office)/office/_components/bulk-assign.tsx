@@ -18,7 +18,10 @@ export function BulkAssign({ visitIds, advisors, onDone }: { visitIds: string[];
   const [message, setMessage] = useState<string | null>(null);
   const mutation = useMutation({
     mutationFn: (confirmUnsynced: boolean) =>
-      apiJson<{ assigned: number; noticeSent: boolean }>('/api/visits/assignments', { method: 'POST', body: { visitIds, advisorId, plannedOn, confirmPast, confirmUnsynced } }),
+      apiJson<{ assigned: number; noticeSent: boolean }>('/api/visits/assignments', {
+        method: 'POST',
+        body: { visitIds, advisorId, plannedOn, confirmPast, confirmUnsynced },
+      }),
     onSuccess: (result) => {
       setWarning(null);
       setMessage(`${result.assigned} ${result.assigned === 1 ? 'visit' : 'visits'} assigned.${result.noticeSent ? ' The advisor has been e-mailed.' : ''}`);
@@ -32,32 +35,52 @@ export function BulkAssign({ visitIds, advisors, onDone }: { visitIds: string[];
   const error = mutation.error instanceof ApiError && mutation.error.code !== 'unsynced' ? mutation.error : null;
 
   if (visitIds.length === 0) {
-    return message ? <p role="status" className="font-bold text-moss">{message}</p> : null;
+    return message ? (
+      <p role="status" className="font-bold text-moss">
+        {message}
+      </p>
+    ) : null;
   }
   return (
     <section aria-label="Assign ticked visits" className="rounded-md border-2 border-slate bg-white p-3">
-      <h3 className="font-bold">Assign {visitIds.length} ticked {visitIds.length === 1 ? 'visit' : 'visits'}</h3>
+      <h3 className="font-bold">
+        Assign {visitIds.length} ticked {visitIds.length === 1 ? 'visit' : 'visits'}
+      </h3>
       <div className="mt-2 grid gap-3 sm:grid-cols-3">
-        <label className="block font-bold">Advisor
+        <label className="block font-bold">
+          Advisor
           <select className={field} value={advisorId} onChange={(e) => setAdvisorId(e.target.value)} aria-invalid={!!error?.fieldErrors.advisorId}>
             <option value="">Choose…</option>
-            {advisors.map((a) => <option key={a.id} value={a.id}>{a.name}</option>)}
+            {advisors.map((a) => (
+              <option key={a.id} value={a.id}>
+                {a.name}
+              </option>
+            ))}
           </select>
           {error?.fieldErrors.advisorId && <span className="block text-clay">{error.fieldErrors.advisorId[0]}</span>}
         </label>
-        <label className="block font-bold">Planned date
+        <label className="block font-bold">
+          Planned date
           <input type="date" className={field} value={plannedOn} onChange={(e) => setPlannedOn(e.target.value)} aria-invalid={!!error?.fieldErrors.plannedOn} />
           {error?.fieldErrors.plannedOn && <span className="block text-clay">{error.fieldErrors.plannedOn[0]}</span>}
           <PastDayConfirm day={plannedOn} checked={confirmPast} onChange={setConfirmPast} />
         </label>
         <div className="flex items-end">
-          <button type="button" disabled={mutation.isPending} onClick={() => mutation.mutate(false)}
-            className="min-h-12 w-full rounded-md bg-slate px-4 font-bold text-white disabled:opacity-70">
+          <button
+            type="button"
+            disabled={mutation.isPending}
+            onClick={() => mutation.mutate(false)}
+            className="min-h-12 w-full rounded-md bg-slate px-4 font-bold text-white disabled:opacity-70"
+          >
             {mutation.isPending ? 'Assigning…' : 'Assign'}
           </button>
         </div>
       </div>
-      {error && !error.fieldErrors.advisorId && !error.fieldErrors.plannedOn && <p role="alert" className="mt-2 font-bold text-clay">{error.message}</p>}
+      {error && !error.fieldErrors.advisorId && !error.fieldErrors.plannedOn && (
+        <p role="alert" className="mt-2 font-bold text-clay">
+          {error.message}
+        </p>
+      )}
       {warning && (
         <div role="alert" className="mt-3 rounded-md border-2 border-ochre p-3">
           <p className="font-bold text-ochre">⚠ {warning}</p>

@@ -5,7 +5,12 @@ import { useState } from 'react';
 import { apiJson } from '@/lib/client/api';
 import { formatDay } from '@/lib/shared/display/dates';
 
-export interface DeletedVisit { id: string; farmName: string; advisorName: string | null; deletedAt: string }
+export interface DeletedVisit {
+  id: string;
+  farmName: string;
+  advisorName: string | null;
+  deletedAt: string;
+}
 
 /**
  * The organisation's deleted visits, each with a button that brings it back with its readings.
@@ -31,21 +36,34 @@ export function DeletedVisits({ visits }: { visits: DeletedVisit[] }) {
   if (visits.length === 0 && !message) return null;
   return (
     <section aria-labelledby="deleted-visits" className="space-y-3">
-      <h2 id="deleted-visits" className="text-xl font-bold">Deleted visits</h2>
-      {visits.length > 0 && <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
-        {visits.map((v) => (
-          <li key={v.id} className="flex flex-wrap items-center justify-between gap-3 p-3">
-            <span>
-              <strong>{v.farmName}</strong>{v.advisorName ? ` · ${v.advisorName}` : ''} · deleted {formatDay(v.deletedAt)}
-            </span>
-            <button type="button" onClick={() => restore(v)} disabled={busy !== null}
-              className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate disabled:opacity-50">
-              {busy === v.id ? 'Restoring…' : 'Restore'}
-            </button>
-          </li>
-        ))}
-      </ul>}
-      {message && <p role={message.ok ? 'status' : 'alert'} className={`font-bold ${message.ok ? 'text-moss' : 'text-clay'}`}>{message.text}</p>}
+      <h2 id="deleted-visits" className="text-xl font-bold">
+        Deleted visits
+      </h2>
+      {visits.length > 0 && (
+        <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
+          {visits.map((v) => (
+            <li key={v.id} className="flex flex-wrap items-center justify-between gap-3 p-3">
+              <span>
+                <strong>{v.farmName}</strong>
+                {v.advisorName ? ` · ${v.advisorName}` : ''} · deleted {formatDay(v.deletedAt)}
+              </span>
+              <button
+                type="button"
+                onClick={() => restore(v)}
+                disabled={busy !== null}
+                className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate disabled:opacity-50"
+              >
+                {busy === v.id ? 'Restoring…' : 'Restore'}
+              </button>
+            </li>
+          ))}
+        </ul>
+      )}
+      {message && (
+        <p role={message.ok ? 'status' : 'alert'} className={`font-bold ${message.ok ? 'text-moss' : 'text-clay'}`}>
+          {message.text}
+        </p>
+      )}
     </section>
   );
 }

@@ -16,12 +16,17 @@ const tableLink = (filters: Record<string, string>) => `/office?${new URLSearchP
 export function FollowUpBoard({ byStatus, overdue, loads }: { byStatus: Partial<Record<VisitStatus, number>>; overdue: number; loads: AdvisorLoadView[] }) {
   return (
     <section aria-labelledby="board" className="space-y-4">
-      <h2 id="board" className="text-xl font-bold">Where every visit stands</h2>
+      <h2 id="board" className="text-xl font-bold">
+        Where every visit stands
+      </h2>
       <ol className="grid grid-cols-2 gap-2 sm:grid-cols-4">
         {LIVE.map((status, i) => (
           <li key={status}>
-            <Link href={tableLink({ status })} className="block h-full rounded-md border border-rule bg-white p-3 text-ink no-underline hover:border-slate"
-              aria-label={`${byStatus[status] ?? 0} visits: ${VISIT_STATUS_LABELS[status]}`}>
+            <Link
+              href={tableLink({ status })}
+              className="block h-full rounded-md border border-rule bg-white p-3 text-ink no-underline hover:border-slate"
+              aria-label={`${byStatus[status] ?? 0} visits: ${VISIT_STATUS_LABELS[status]}`}
+            >
               <span className="figure block text-sm text-stone">{i + 1}.</span>
               <span className="figure block text-2xl font-semibold">{byStatus[status] ?? 0}</span>
               <span className="block">{VISIT_STATUS_LABELS[status]}</span>
@@ -38,9 +43,17 @@ export function FollowUpBoard({ byStatus, overdue, loads }: { byStatus: Partial<
         <table className="w-full border-collapse text-left" aria-label="Visits by advisor">
           <thead>
             <tr className="border-b-2 border-ink">
-              <th scope="col" className="py-2 pr-3">Advisor</th>
-              {LIVE.map((s) => <th key={s} scope="col" className="py-2 pr-3 text-sm">{VISIT_STATUS_LABELS[s]}</th>)}
-              <th scope="col" className="py-2 text-sm">Overdue</th>
+              <th scope="col" className="py-2 pr-3">
+                Advisor
+              </th>
+              {LIVE.map((s) => (
+                <th key={s} scope="col" className="py-2 pr-3 text-sm">
+                  {VISIT_STATUS_LABELS[s]}
+                </th>
+              ))}
+              <th scope="col" className="py-2 text-sm">
+                Overdue
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -56,7 +69,13 @@ export function FollowUpBoard({ byStatus, overdue, loads }: { byStatus: Partial<
                   </td>
                 ))}
                 <td className={`figure py-2 ${l.overdue ? 'font-bold text-clay' : ''}`}>
-                  {l.overdue ? <Link href={tableLink({ overdue: '1', advisor: l.advisor?.id ?? 'none' })} className="text-clay">⚠ {l.overdue}</Link> : 0}
+                  {l.overdue ? (
+                    <Link href={tableLink({ overdue: '1', advisor: l.advisor?.id ?? 'none' })} className="text-clay">
+                      ⚠ {l.overdue}
+                    </Link>
+                  ) : (
+                    0
+                  )}
                 </td>
               </tr>
             ))}

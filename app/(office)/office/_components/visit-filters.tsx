@@ -3,12 +3,20 @@
 import { useEffect, useState } from 'react';
 import { VERDICT_WORDS, VERDICTS, VISIT_STATUS_LABELS, VISIT_STATUSES } from '@/lib/shared/domain';
 
-export interface Option { id: string; name: string }
+export interface Option {
+  id: string;
+  name: string;
+}
 
 const field = 'mt-1 block min-h-12 w-full rounded-md border-2 border-stone bg-white px-2 text-base';
 
 /** The filters of the visits table; every change goes straight into the page's URL. */
-export function VisitFilters({ values, advisors, areas, onChange }: {
+export function VisitFilters({
+  values,
+  advisors,
+  areas,
+  onChange,
+}: {
   values: Record<string, string>;
   advisors: Option[];
   areas: string[];
@@ -27,22 +35,41 @@ export function VisitFilters({ values, advisors, areas, onChange }: {
       {label}
       <select className={field} value={values[name] ?? ''} onChange={(e) => onChange({ [name]: e.target.value })}>
         <option value="">Any</option>
-        {options.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
+        {options.map((o) => (
+          <option key={o.value} value={o.value}>
+            {o.label}
+          </option>
+        ))}
       </select>
     </label>
   );
 
   return (
-    <form role="search" aria-label="Filter visits" onSubmit={(e) => { e.preventDefault(); onChange({ q }); }}
-      className="grid grid-cols-1 gap-3 rounded-md border border-rule bg-white p-3 sm:grid-cols-2 lg:grid-cols-4">
+    <form
+      role="search"
+      aria-label="Filter visits"
+      onSubmit={(e) => {
+        e.preventDefault();
+        onChange({ q });
+      }}
+      className="grid grid-cols-1 gap-3 rounded-md border border-rule bg-white p-3 sm:grid-cols-2 lg:grid-cols-4"
+    >
       <label className="block font-bold sm:col-span-2">
         Farm or farmer
         <input type="search" className={field} value={q} onChange={(e) => setQ(e.target.value)} placeholder="Part of a name" />
       </label>
-      {select('status', 'State', VISIT_STATUSES.map((s) => ({ value: s, label: VISIT_STATUS_LABELS[s] })))}
+      {select(
+        'status',
+        'State',
+        VISIT_STATUSES.map((s) => ({ value: s, label: VISIT_STATUS_LABELS[s] })),
+      )}
       {select('advisor', 'Advisor', [{ value: 'none', label: 'Not assigned' }, ...advisors.map((a) => ({ value: a.id, label: a.name }))])}
       {select('verdict', 'Screening', [...VERDICTS.map((v) => ({ value: v, label: VERDICT_WORDS[v] })), { value: 'none', label: 'Not screened' }])}
-      {select('area', 'Area', areas.map((a) => ({ value: a, label: a })))}
+      {select(
+        'area',
+        'Area',
+        areas.map((a) => ({ value: a, label: a })),
+      )}
       <label className="block font-bold">
         Planned from
         <input type="date" className={field} value={values.plannedFrom ?? ''} onChange={(e) => onChange({ plannedFrom: e.target.value })} />

@@ -29,7 +29,15 @@ const COLUMNS = [
 ] as const;
 
 /** The visits table: sortable headers, a tick box per row for bulk assignment, overdue rows marked in words. */
-export function VisitRows({ items, sort, dir, onSort, selected, onToggle, onToggleAll }: {
+export function VisitRows({
+  items,
+  sort,
+  dir,
+  onSort,
+  selected,
+  onToggle,
+  onToggleAll,
+}: {
   items: VisitItem[];
   sort: string;
   dir: 'asc' | 'desc';
@@ -45,15 +53,29 @@ export function VisitRows({ items, sort, dir, onSort, selected, onToggle, onTogg
         <thead>
           <tr className="border-b-2 border-ink">
             <th scope="col" className="w-12 py-2">
-              <input type="checkbox" aria-label="Tick every visit on this page" className="h-6 w-6" checked={allTicked} onChange={(e) => onToggleAll(e.target.checked)} />
+              <input
+                type="checkbox"
+                aria-label="Tick every visit on this page"
+                className="h-6 w-6"
+                checked={allTicked}
+                onChange={(e) => onToggleAll(e.target.checked)}
+              />
             </th>
             {COLUMNS.map((c) => (
-              <th key={c.label} scope="col" className="py-2 pr-3" aria-sort={c.key && sort === c.key ? (dir === 'asc' ? 'ascending' : 'descending') : undefined}>
+              <th
+                key={c.label}
+                scope="col"
+                className="py-2 pr-3"
+                aria-sort={c.key && sort === c.key ? (dir === 'asc' ? 'ascending' : 'descending') : undefined}
+              >
                 {c.key ? (
                   <button type="button" onClick={() => onSort(c.key)} className="min-h-12 font-bold underline decoration-rule underline-offset-4">
-                    {c.label}{sort === c.key ? (dir === 'asc' ? ' ▲' : ' ▼') : ''}
+                    {c.label}
+                    {sort === c.key ? (dir === 'asc' ? ' ▲' : ' ▼') : ''}
                   </button>
-                ) : c.label}
+                ) : (
+                  c.label
+                )}
               </th>
             ))}
           </tr>
@@ -65,7 +87,9 @@ export function VisitRows({ items, sort, dir, onSort, selected, onToggle, onTogg
                 <input type="checkbox" className="h-6 w-6" aria-label={`Tick ${v.farm.name}`} checked={selected.has(v.id)} onChange={() => onToggle(v.id)} />
               </td>
               <td className="py-3 pr-3">
-                <Link href={`/office/visits/${v.id}`} className="block font-bold">{v.farm.name}</Link>
+                <Link href={`/office/visits/${v.id}`} className="block font-bold">
+                  {v.farm.name}
+                </Link>
                 <span className="block text-stone">{v.farm.area}</span>
               </td>
               <td className="py-3 pr-3">{v.farmer?.name ?? <span className="text-stone">—</span>}</td>
@@ -74,7 +98,9 @@ export function VisitRows({ items, sort, dir, onSort, selected, onToggle, onTogg
                 <span className="figure block">{formatDay(v.plannedOn)}</span>
                 {v.overdue && <strong className="mt-1 inline-block rounded border-2 border-clay px-1 text-sm text-clay">⚠ Overdue</strong>}
               </td>
-              <td className="py-3 pr-3"><StatusChip status={v.status} /></td>
+              <td className="py-3 pr-3">
+                <StatusChip status={v.status} />
+              </td>
               <td className="py-3 pr-3">{v.verdict ? <VerdictMark verdict={v.verdict} size={16} /> : <span className="text-stone">Not screened</span>}</td>
               <td className="figure py-3">{v.lastSyncedAt ? formatDateTime(v.lastSyncedAt) : <span className="text-stone">Never</span>}</td>
             </tr>

@@ -11,7 +11,12 @@ import { VisitRows, type VisitItem } from './visit-rows';
 const FILTER_KEYS = ['q', 'status', 'advisor', 'verdict', 'area', 'plannedFrom', 'plannedTo', 'overdue', 'sort', 'dir', 'page'] as const;
 const PAGE_SIZE = 25;
 
-interface VisitPage { items: VisitItem[]; page: number; pageSize: number; total: number }
+interface VisitPage {
+  items: VisitItem[];
+  page: number;
+  pageSize: number;
+  total: number;
+}
 
 /** The district's visits, fetched from /api/visits with TanStack Query; filters, sort and page live in the URL. */
 export function VisitsBrowser({ advisors, areas }: { advisors: Option[]; areas: string[] }) {
@@ -32,15 +37,18 @@ export function VisitsBrowser({ advisors, areas }: { advisors: Option[]; areas: 
   const filterString = new URLSearchParams(Object.entries(values).filter(([k]) => k !== 'page')).toString();
 
   const [selected, setSelected] = useState<Set<string>>(new Set());
-  const update = useCallback((patch: Record<string, string>) => {
-    const next = new URLSearchParams(searchParams.toString());
-    for (const [k, v] of Object.entries(patch)) {
-      if (v) next.set(k, v);
-      else next.delete(k);
-    }
-    if (!('page' in patch)) next.delete('page');
-    router.replace(`${pathname}?${next.toString()}`, { scroll: false });
-  }, [pathname, router, searchParams]);
+  const update = useCallback(
+    (patch: Record<string, string>) => {
+      const next = new URLSearchParams(searchParams.toString());
+      for (const [k, v] of Object.entries(patch)) {
+        if (v) next.set(k, v);
+        else next.delete(k);
+      }
+      if (!('page' in patch)) next.delete('page');
+      router.replace(`${pathname}?${next.toString()}`, { scroll: false });
+    },
+    [pathname, router, searchParams],
+  );
 
   const query = useQuery({
     queryKey: ['visits', filterString, page],
@@ -50,20 +58,22 @@ export function VisitsBrowser({ advisors, areas }: { advisors: Option[]; areas: 
   const data = query.data;
   const pages = data ? Math.max(1, Math.ceil(data.total / PAGE_SIZE)) : 1;
 
-  const toggle = (id: string) => setSelected((s) => {
-    const n = new Set(s);
-    if (n.has(id)) n.delete(id);
-    else n.add(id);
-    return n;
-  });
-  const toggleAll = (on: boolean) => setSelected((s) => {
-    const n = new Set(s);
-    for (const v of data?.items ?? []) {
-      if (on) n.add(v.id);
-      else n.delete(v.id);
-    }
-    return n;
-  });
+  const toggle = (id: string) =>
+    setSelected((s) => {
+      const n = new Set(s);
+      if (n.has(id)) n.delete(id);
+      else n.add(id);
+      return n;
+    });
+  const toggleAll = (on: boolean) =>
+    setSelected((s) => {
+      const n = new Set(s);
+      for (const v of data?.items ?? []) {
+        if (on) n.add(v.id);
+        else n.delete(v.id);
+      }
+      return n;
+    });
 
   return (
     <div className="space-y-4">
@@ -72,23 +82,50 @@ export function VisitsBrowser({ advisors, areas }: { advisors: Option[]; areas: 
         <p role="status" className="text-lg">
           {query.isPending ? 'Loading visits…' : query.isError ? '' : `${data?.total ?? 0} ${data?.total === 1 ? 'visit matches' : 'visits match'}`}
         </p>
-        <a href={`/api/visits/export.csv?${filterString}`} className="inline-flex min-h-12 items-center rounded-md border-2 border-slate px-4 font-bold text-slate no-underline" download>
+        <a
+          href={`/api/visits/export.csv?${filterString}`}
+          className="inline-flex min-h-12 items-center rounded-md border-2 border-slate px-4 font-bold text-slate no-underline"
+          download
+        >
           Download these as CSV
         </a>
       </div>
-      {query.isError && <p role="alert" className="font-bold text-clay">{query.error.message}</p>}
+      {query.isError && (
+        <p role="alert" className="font-bold text-clay">
+          {query.error.message}
+        </p>
+      )}
       <BulkAssign visitIds={[...selected]} advisors={advisors} onDone={() => setSelected(new Set())} />
       {data && data.items.length === 0 && <p className="text-lg text-stone">No visits match these filters.</p>}
       {data && data.items.length > 0 && (
-        <VisitRows items={data.items} sort={sort} dir={dir} selected={selected} onToggle={toggle} onToggleAll={toggleAll}
-          onSort={(key) => update({ sort: key, dir: sort === key && dir === 'asc' ? 'desc' : 'asc' })} />
+        <VisitRows
+          items={data.items}
+          sort={sort}
+          dir={dir}
+          selected={selected}
+          onToggle={toggle}
+          onToggleAll={toggleAll}
+          onSort={(key) => update({ sort: key, dir: sort === key && dir === 'asc' ? 'desc' : 'asc' })}
+        />
       )}
       <nav aria-label="Pages" className="flex items-center gap-3">
-        <button type="button" disabled={page <= 1} onClick={() => update({ page: String(page - 1) })} className="min-h-12 rounded-md border-2 border-stone px-4 font-bold disabled:opacity-50">
+        <button
+          type="button"
+          disabled={page <= 1}
+          onClick={() => update({ page: String(page - 1) })}
+          className="min-h-12 rounded-md border-2 border-stone px-4 font-bold disabled:opacity-50"
+        >
           ← Previous
         </button>
-        <span className="figure">Page {page} of {pages}</span>
-        <button type="button" disabled={page >= pages} onClick={() => update({ page: String(page + 1) })} className="min-h-12 rounded-md border-2 border-stone px-4 font-bold disabled:opacity-50">
+        <span className="figure">
+          Page {page} of {pages}
+        </span>
+        <button
+          type="button"
+          disabled={page >= pages}
+          onClick={() => update({ page: String(page + 1) })}
+          className="min-h-12 rounded-md border-2 border-stone px-4 font-bold disabled:opacity-50"
+        >
           Next →
         </button>
       </nav>

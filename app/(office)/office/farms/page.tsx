@@ -23,38 +23,70 @@ export default async function FarmsPage({ searchParams }: { searchParams: Promis
     <div className="space-y-6">
       <div className="flex flex-wrap items-center justify-between gap-3">
         <h1 className="text-3xl font-bold text-slate">Farms</h1>
-        <Link href="/office/farms/new" className="inline-flex min-h-12 items-center rounded-md bg-slate px-4 font-bold text-white no-underline">Add a farm</Link>
+        <Link href="/office/farms/new" className="inline-flex min-h-12 items-center rounded-md bg-slate px-4 font-bold text-white no-underline">
+          Add a farm
+        </Link>
       </div>
       <form role="search" aria-label="Find farms" method="get" action="/office/farms" className="grid max-w-3xl gap-3 sm:grid-cols-[2fr_1fr_auto] sm:items-end">
-        <label className="block font-bold">Farm, area or farmer
+        <label className="block font-bold">
+          Farm, area or farmer
           <input name="q" defaultValue={q} className={field} />
         </label>
-        <label className="block font-bold">Sort by
+        <label className="block font-bold">
+          Sort by
           <select name="sort" defaultValue={sort} className={field}>
-            {FARM_SORTS.map((s) => <option key={s} value={s}>{SORT_WORDS[s]}</option>)}
+            {FARM_SORTS.map((s) => (
+              <option key={s} value={s}>
+                {SORT_WORDS[s]}
+              </option>
+            ))}
           </select>
         </label>
-        <button type="submit" className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate">Show</button>
+        <button type="submit" className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate">
+          Show
+        </button>
       </form>
-      <p className="figure">{farms.total} {farms.total === 1 ? 'farm' : 'farms'}{q && ` matching “${q}”`}</p>
+      <p className="figure">
+        {farms.total} {farms.total === 1 ? 'farm' : 'farms'}
+        {q && ` matching “${q}”`}
+      </p>
       <div className="overflow-x-auto">
-      <table className="w-full border-collapse text-left" aria-label="Farms">
-        <thead><tr className="border-b-2 border-ink"><th className="py-2 pr-3">Farm</th><th className="py-2 pr-3">Farmer</th><th className="py-2 pr-3">Stage</th><th className="py-2 pr-3">Daily need</th><th className="py-2" /></tr></thead>
-        <tbody>
-          {farms.items.map((f) => (
-            <tr key={f.id} className="border-b border-rule align-top">
-              <td className="py-3 pr-3"><Link href={`/office/farms/${f.id}`} className="block font-bold">{f.name}</Link><span className="block text-stone">{f.area}</span></td>
-              <td className="py-3 pr-3">{f.owner?.name ?? <em>No account</em>}</td>
-              <td className="py-3 pr-3">{f.stage ? <StatusChip status={f.stage} /> : <span className="text-stone">No visit yet</span>}</td>
-              <td className="figure py-3 pr-3">{f.demandLpd > 0 ? showQuantity(f.demandLpd, 'litresPerDay', user.units) : '—'}</td>
-              <td className="py-3"><Link href={`/office/visits/new?farm=${f.id}`} className="inline-flex min-h-12 items-center font-bold">Plan a visit</Link></td>
+        <table className="w-full border-collapse text-left" aria-label="Farms">
+          <thead>
+            <tr className="border-b-2 border-ink">
+              <th className="py-2 pr-3">Farm</th>
+              <th className="py-2 pr-3">Farmer</th>
+              <th className="py-2 pr-3">Stage</th>
+              <th className="py-2 pr-3">Daily need</th>
+              <th className="py-2" />
             </tr>
-          ))}
-        </tbody>
-      </table>
+          </thead>
+          <tbody>
+            {farms.items.map((f) => (
+              <tr key={f.id} className="border-b border-rule align-top">
+                <td className="py-3 pr-3">
+                  <Link href={`/office/farms/${f.id}`} className="block font-bold">
+                    {f.name}
+                  </Link>
+                  <span className="block text-stone">{f.area}</span>
+                </td>
+                <td className="py-3 pr-3">{f.owner?.name ?? <em>No account</em>}</td>
+                <td className="py-3 pr-3">{f.stage ? <StatusChip status={f.stage} /> : <span className="text-stone">No visit yet</span>}</td>
+                <td className="figure py-3 pr-3">{f.demandLpd > 0 ? showQuantity(f.demandLpd, 'litresPerDay', user.units) : '—'}</td>
+                <td className="py-3">
+                  <Link href={`/office/visits/new?farm=${f.id}`} className="inline-flex min-h-12 items-center font-bold">
+                    Plan a visit
+                  </Link>
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
       </div>
       {pages > 1 && (
-        <p className="figure">Page {page} of {pages} {page > 1 && <Link href={pageLink(page - 1)}>← Previous</Link>} {page < pages && <Link href={pageLink(page + 1)}>Next →</Link>}</p>
+        <p className="figure">
+          Page {page} of {pages} {page > 1 && <Link href={pageLink(page - 1)}>← Previous</Link>} {page < pages && <Link href={pageLink(page + 1)}>Next →</Link>}
+        </p>
       )}
     </div>
   );

@@ -16,17 +16,31 @@ export default async function PeoplePage() {
     <div className="space-y-8">
       <h1 className="text-3xl font-bold text-slate">People</h1>
       <section aria-labelledby="invite" className="space-y-3">
-        <h2 id="invite" className="text-xl font-bold">Invite someone</h2>
+        <h2 id="invite" className="text-xl font-bold">
+          Invite someone
+        </h2>
         <InviteForm />
       </section>
       <section aria-labelledby="accounts" className="space-y-3">
-        <h2 id="accounts" className="text-xl font-bold">Accounts</h2>
+        <h2 id="accounts" className="text-xl font-bold">
+          Accounts
+        </h2>
         <table className="w-full border-collapse text-left" aria-label="Accounts">
-          <thead><tr className="border-b-2 border-ink"><th className="py-2 pr-3">Name</th><th className="py-2 pr-3">Role</th><th className="py-2 pr-3">Account</th><th className="py-2" /></tr></thead>
+          <thead>
+            <tr className="border-b-2 border-ink">
+              <th className="py-2 pr-3">Name</th>
+              <th className="py-2 pr-3">Role</th>
+              <th className="py-2 pr-3">Account</th>
+              <th className="py-2" />
+            </tr>
+          </thead>
           <tbody>
             {people.items.map((p) => (
               <tr key={p.id} className="border-b border-rule align-top">
-                <td className="py-3 pr-3"><span className="block font-bold">{p.name}</span><span className="block text-stone">{p.email}</span></td>
+                <td className="py-3 pr-3">
+                  <span className="block font-bold">{p.name}</span>
+                  <span className="block text-stone">{p.email}</span>
+                </td>
                 <td className="py-3 pr-3">{ROLE[p.role]}</td>
                 <td className="py-3 pr-3">{p.active ? 'Active' : <strong className="text-clay">Switched off</strong>}</td>
                 <td className="py-3">{p.id !== user.id && <ActiveSwitch id={p.id} name={p.name} active={p.active} />}</td>
@@ -37,10 +51,15 @@ export default async function PeoplePage() {
       </section>
       {invitations.length > 0 && (
         <section aria-labelledby="invitations" className="space-y-3">
-          <h2 id="invitations" className="text-xl font-bold">Recent invitations</h2>
+          <h2 id="invitations" className="text-xl font-bold">
+            Recent invitations
+          </h2>
           <ul className="divide-y divide-rule border-y border-rule">
             {invitations.map((i) => (
-              <li key={i.id} className="py-2">{i.name} · {i.email} · {ROLE[i.role]} · <strong>{STATE[i.state]}</strong>{i.state === 'waiting' && ` until ${i.expiresAt.slice(0, 10)}`}</li>
+              <li key={i.id} className="py-2">
+                {i.name} · {i.email} · {ROLE[i.role]} · <strong>{STATE[i.state]}</strong>
+                {i.state === 'waiting' && ` until ${i.expiresAt.slice(0, 10)}`}
+              </li>
             ))}
           </ul>
         </section>

@@ -13,7 +13,9 @@ export default async function SettingsPage() {
   return (
     <div className="space-y-6">
       <h1 className="text-3xl font-bold text-slate">Settings</h1>
-      <p className="max-w-prose text-stone">These figures feed the screening. It is a first check, not an engineering design: local codes and licensed practice come first.</p>
+      <p className="max-w-prose text-stone">
+        These figures feed the screening. It is a first check, not an engineering design: local codes and licensed practice come first.
+      </p>
       <SettingsForm initial={settings} kinds={kinds} />
     </div>
   );

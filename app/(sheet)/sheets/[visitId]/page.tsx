@@ -43,12 +43,18 @@ export default async function SheetPage({ params }: { params: Promise<{ visitId:
   return (
     <div className="space-y-8">
       <nav aria-label="Sheet as PDF" className="flex flex-wrap gap-3 print:hidden">
-        <a href={`/api/visits/${visitId}/sheet/pdf?paper=${paper}`} download
-          className="inline-flex min-h-12 items-center rounded-md bg-slate px-4 text-lg font-bold text-white no-underline">
+        <a
+          href={`/api/visits/${visitId}/sheet/pdf?paper=${paper}`}
+          download
+          className="inline-flex min-h-12 items-center rounded-md bg-slate px-4 text-lg font-bold text-white no-underline"
+        >
           Download PDF ({paper === 'a4' ? 'A4' : 'US Letter'})
         </a>
-        <a href={`/api/visits/${visitId}/sheet/pdf?paper=${paper === 'a4' ? 'letter' : 'a4'}`} download
-          className="inline-flex min-h-12 items-center rounded-md border-2 border-slate px-4 font-bold text-slate no-underline">
+        <a
+          href={`/api/visits/${visitId}/sheet/pdf?paper=${paper === 'a4' ? 'letter' : 'a4'}`}
+          download
+          className="inline-flex min-h-12 items-center rounded-md border-2 border-slate px-4 font-bold text-slate no-underline"
+        >
           {paper === 'a4' ? 'US Letter' : 'A4'} PDF
         </a>
         {canSend && (
@@ -60,8 +66,12 @@ export default async function SheetPage({ params }: { params: Promise<{ visitId:
       <SheetBody v={view} />
       <ResponsesList visitId={visitId} responses={responses} canAnswer={canAnswer} />
       {canReply && (
-        <FarmerReply visitId={visitId} acknowledged={responses.some((r) => r.kind === 'acknowledged')} decision={lastDecision}
-          canDecide={canMove(sheet.visit.status, 'agreed', 'farmer') || canMove(sheet.visit.status, 'declined', 'farmer')} />
+        <FarmerReply
+          visitId={visitId}
+          acknowledged={responses.some((r) => r.kind === 'acknowledged')}
+          decision={lastDecision}
+          canDecide={canMove(sheet.visit.status, 'agreed', 'farmer') || canMove(sheet.visit.status, 'declined', 'farmer')}
+        />
       )}
       {canSend && <SendSection visitId={visitId} farmerName={sheet.farmer?.name ?? null} farmerEmail={sheet.farmer?.email ?? null} />}
     </div>

@@ -27,7 +27,14 @@ describe('sentences with figures, for each reader', () => {
   it('the engine sentences carry their figures: a US reader sees no metric unit in them', () => {
     const said = Object.values(sites).flatMap((site) => {
       const screening = screenSite({ ...site, monteCarlo: { samples: 200, seed: 1 } });
-      return [...screening.reasons, ...screening.conditions, ...screening.cautions, ...screening.billOfMaterials.flatMap((l) => [l.noteMessage, l.sizeMessage].filter((m) => m !== undefined).map((m) => ({ code: l.item, message: m, text: renderMessage(m, 'metric') })))];
+      return [
+        ...screening.reasons,
+        ...screening.conditions,
+        ...screening.cautions,
+        ...screening.billOfMaterials.flatMap((l) =>
+          [l.noteMessage, l.sizeMessage].filter((m) => m !== undefined).map((m) => ({ code: l.item, message: m, text: renderMessage(m, 'metric') })),
+        ),
+      ];
     });
     expect(said.filter((s) => s.message && s.message.amounts.length > 0).length).toBeGreaterThan(20);
     for (const s of said) {

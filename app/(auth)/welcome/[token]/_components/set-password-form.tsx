@@ -28,7 +28,9 @@ export function SetPasswordForm({ token, email }: { token: string; email: string
     return (
       <div role="status" className="mt-6 space-y-3">
         <p className="text-lg font-bold text-moss">Your password is set.</p>
-        <Link href="/login" className="inline-flex min-h-12 items-center rounded-md bg-slate px-5 text-lg font-bold text-white no-underline">Sign in</Link>
+        <Link href="/login" className="inline-flex min-h-12 items-center rounded-md bg-slate px-5 text-lg font-bold text-white no-underline">
+          Sign in
+        </Link>
       </div>
     );
   }
@@ -36,17 +38,35 @@ export function SetPasswordForm({ token, email }: { token: string; email: string
     <form aria-label="Choose a password" noValidate onSubmit={handleSubmit(onSubmit)} className="mt-6 space-y-5">
       <input type="email" autoComplete="username" value={email} readOnly hidden />
       <div>
-        <label htmlFor="password" className="block text-lg font-bold">New password</label>
-        <input id="password" type="password" autoComplete="new-password" className={field} aria-invalid={!!errors.password} aria-describedby="password-help" {...register('password')} />
-        <p id="password-help" className="mt-1 text-stone">At least 10 characters. A short sentence works well.</p>
+        <label htmlFor="password" className="block text-lg font-bold">
+          New password
+        </label>
+        <input
+          id="password"
+          type="password"
+          autoComplete="new-password"
+          className={field}
+          aria-invalid={!!errors.password}
+          aria-describedby="password-help"
+          {...register('password')}
+        />
+        <p id="password-help" className="mt-1 text-stone">
+          At least 10 characters. A short sentence works well.
+        </p>
         {errors.password && <p className="mt-1 font-bold text-clay">{errors.password.message}</p>}
       </div>
       <div>
-        <label htmlFor="confirm" className="block text-lg font-bold">The same password again</label>
+        <label htmlFor="confirm" className="block text-lg font-bold">
+          The same password again
+        </label>
         <input id="confirm" type="password" autoComplete="new-password" className={field} aria-invalid={!!errors.confirm} {...register('confirm')} />
         {errors.confirm && <p className="mt-1 font-bold text-clay">{errors.confirm.message}</p>}
       </div>
-      {serverError && <p role="alert" className="rounded-md border-2 border-clay bg-white p-3 font-bold text-clay">{serverError}</p>}
+      {serverError && (
+        <p role="alert" className="rounded-md border-2 border-clay bg-white p-3 font-bold text-clay">
+          {serverError}
+        </p>
+      )}
       <button type="submit" disabled={isSubmitting} className="min-h-14 w-full rounded-md bg-slate px-4 text-xl font-bold text-white disabled:opacity-70">
         {isSubmitting ? 'Saving…' : 'Set my password'}
       </button>

@@ -59,20 +59,33 @@ function CommissionPage() {
 
   async function record() {
     const parsed = commissioningInputSchema.safeParse({
-      driveLpm: driveLps === undefined ? undefined : driveLps * 60, deliveredLpm: deliveredLps === undefined ? undefined : deliveredLps * 60,
-      beatsPerMinute: beats, liftM, ...(fallM === undefined ? {} : { fallM }),
+      driveLpm: driveLps === undefined ? undefined : driveLps * 60,
+      deliveredLpm: deliveredLps === undefined ? undefined : deliveredLps * 60,
+      beatsPerMinute: beats,
+      liftM,
+      ...(fallM === undefined ? {} : { fallM }),
     });
     if (!parsed.success) return setMessage(parsed.error.issues.map((i) => i.message).join('; ') + '.');
     const input = parsed.data;
     try {
       await saveRecord('commissioning', newId(), {
-        visitId, driveLpm: input.driveLpm, deliveredLpm: input.deliveredLpm, beatsPerMinute: input.beatsPerMinute, liftM: input.liftM,
-        fallM: input.fallM ?? null, drivePipeMaterial: input.drivePipeMaterial ?? null, notes: input.notes,
+        visitId,
+        driveLpm: input.driveLpm,
+        deliveredLpm: input.deliveredLpm,
+        beatsPerMinute: input.beatsPerMinute,
+        liftM: input.liftM,
+        fallM: input.fallM ?? null,
+        drivePipeMaterial: input.drivePipeMaterial ?? null,
+        notes: input.notes,
       });
     } catch (error) {
       return setMessage(error instanceof QuotaError ? error.message : 'Could not save the check on this phone.');
     }
-    setDriveLps(undefined); setDeliveredLps(undefined); setBeats(undefined); setLiftM(undefined); setFallM(undefined);
+    setDriveLps(undefined);
+    setDeliveredLps(undefined);
+    setBeats(undefined);
+    setLiftM(undefined);
+    setFallM(undefined);
     setMessage('Check saved on this phone: it goes to the server with the next sync.');
     announceSave();
   }
@@ -80,7 +93,10 @@ function CommissionPage() {
   return (
     <div className="space-y-5">
       <SectionHeader visitId={visitId} title="Commissioning check" />
-      <p className="text-stone">At the running ram: catch the waste and the delivery (bucket at the tank) to get the drive flow, count the beats for a minute, measure the lift and the fall.</p>
+      <p className="text-stone">
+        At the running ram: catch the waste and the delivery (bucket at the tank) to get the drive flow, count the beats for a minute, measure the lift and the
+        fall.
+      </p>
       <div className="grid gap-3 sm:grid-cols-2">
         <NumberField label="Drive flow (waste + delivered)" quantity="flowLps" units={units} value={driveLps} onChange={setDriveLps} />
         <NumberField label="Delivered flow at the tank" quantity="flowLps" units={units} value={deliveredLps} onChange={setDeliveredLps} />
@@ -88,21 +104,38 @@ function CommissionPage() {
         <NumberField label="Lift from the ram to the outlet" quantity="length" units={units} value={liftM} onChange={setLiftM} />
         <NumberField label="Fall to the ram (empty: the screening's)" quantity="length" units={units} value={fallM} onChange={setFallM} />
       </div>
-      {problem && <p role="alert" className="font-bold text-clay">{problem}</p>}
+      {problem && (
+        <p role="alert" className="font-bold text-clay">
+          {problem}
+        </p>
+      )}
       {local && (
         <section aria-labelledby="check" className="rounded-md border-2 border-slate bg-white p-4" data-testid="commission-check">
-          <h2 id="check" className="text-xl font-bold">What the ram does</h2>
+          <h2 id="check" className="text-xl font-bold">
+            What the ram does
+          </h2>
           <CheckSummary check={local} units={units} />
         </section>
       )}
-      {message && <p role="status" className="font-bold">{message}</p>}
+      {message && (
+        <p role="status" className="font-bold">
+          {message}
+        </p>
+      )}
       <PrimaryButton onClick={record}>Record the check</PrimaryButton>
-      <p className="text-sm text-stone">Works with no signal: the check is kept on this phone until the server has it. Keep clear of the waste valve while the ram runs; surge pressure can burst fittings. Repairs follow local codes and licensed practice.</p>
+      <p className="text-sm text-stone">
+        Works with no signal: the check is kept on this phone until the server has it. Keep clear of the waste valve while the ram runs; surge pressure can
+        burst fittings. Repairs follow local codes and licensed practice.
+      </p>
       <RecordedChecks visitId={visitId} units={units} />
     </div>
   );
 }
 
 export default function Page() {
-  return <Suspense><CommissionPage /></Suspense>;
+  return (
+    <Suspense>
+      <CommissionPage />
+    </Suspense>
+  );
 }

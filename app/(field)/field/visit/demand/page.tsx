@@ -46,7 +46,10 @@ function DemandPage() {
   const { remove, bar } = useUndoableDelete();
   const data = useVisit(visitId);
   const farmId = data?.visit.farmId ?? '';
-  const lines = useLiveQuery(async () => (farmId ? (await fieldDb().demandLines.where('farmId').equals(farmId).toArray()).filter((l) => !l.deletedAt) : []), [farmId]);
+  const lines = useLiveQuery(
+    async () => (farmId ? (await fieldDb().demandLines.where('farmId').equals(farmId).toArray()).filter((l) => !l.deletedAt) : []),
+    [farmId],
+  );
   const overrides = useLiveQuery(async () => (await getMeta<PullResponse['settings']>('settings'))?.demandFigures ?? {}, [], {} as Record<string, number>);
   const [kind, setKind] = useState<DemandKind>('person-tap-on-plot');
   const [typedCount, setCount] = useState<number | undefined>();
@@ -69,9 +72,13 @@ function DemandPage() {
     setMessage(null);
     const figure = perHead ?? defaultFigure;
     const saved = await save(newId(), {
-      farmId, kind, count: count as number, litresPerHeadPerDay: figure,
+      farmId,
+      kind,
+      count: count as number,
+      litresPerHeadPerDay: figure,
       figureSource: perHead === undefined ? (overrides[kind] !== undefined ? 'organisation figure' : entry.sourceId) : 'advisor on site',
-      note: '', confirmed: null,
+      note: '',
+      confirmed: null,
     });
     if (!saved) {
       setMessage('Not saved yet: see the note at the field above.');
@@ -86,35 +93,81 @@ function DemandPage() {
   return (
     <div className="space-y-5">
       <SectionHeader visitId={visitId} title="Water needed" />
-      <p className="text-lg">Daily need on this farm: <strong className="figure" data-testid="demand-total">{showQuantity(total, 'litresPerDay', units)}</strong></p>
+      <p className="text-lg">
+        Daily need on this farm:{' '}
+        <strong className="figure" data-testid="demand-total">
+          {showQuantity(total, 'litresPerDay', units)}
+        </strong>
+      </p>
       <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
         {lines?.map((l) => (
           <li key={l.id} className="flex items-center justify-between px-3 py-2">
             <span>
               <span className="block font-bold">{lineName(l.kind, l.count, units)}</span>
-              <span className="figure block">{perHeadText(l.kind, l.litresPerHeadPerDay, units)} · {sourceName(l.figureSource)}</span>
+              <span className="figure block">
+                {perHeadText(l.kind, l.litresPerHeadPerDay, units)} · {sourceName(l.figureSource)}
+              </span>
             </span>
-            <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold"
-              onClick={() => remove('demandLine', l.id, 'the line')}>Delete</button>
+            <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold" onClick={() => remove('demandLine', l.id, 'the line')}>
+              Delete
+            </button>
           </li>
         ))}
       </ul>
       {bar}
       <section aria-labelledby="add-line" className="space-y-3 rounded-md border-2 border-rule bg-white p-3">
-        <h2 id="add-line" className="text-xl font-bold">Add a line</h2>
-        <label htmlFor="kind" className="block font-bold">Who or what drinks</label>
-        <select id="kind" value={kind} onChange={(e) => { setKind(e.target.value as DemandKind); setPerHead(undefined); check.clear(); }} className="min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-lg">
-          {KINDS.map((k) => <option key={k.kind} value={k.kind}>{k.kind === GARDEN ? 'Garden' : k.label}</option>)}
+        <h2 id="add-line" className="text-xl font-bold">
+          Add a line
+        </h2>
+        <label htmlFor="kind" className="block font-bold">
+          Who or what drinks
+        </label>
+        <select
+          id="kind"
+          value={kind}
+          onChange={(e) => {
+            setKind(e.target.value as DemandKind);
+            setPerHead(undefined);
+            check.clear();
+          }}
+          className="min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-lg"
+        >
+          {KINDS.map((k) => (
+            <option key={k.kind} value={k.kind}>
+              {k.kind === GARDEN ? 'Garden' : k.label}
+            </option>
+          ))}
         </select>
-        {kind === GARDEN
-          ? <NumberField label="Garden area" quantity="area" units={units} value={typedCount} onChange={setCount}><FieldIssue check={check} path="count" /></NumberField>
-          : <NumberField label={entry.unit === 'person' ? 'How many people' : entry.unit === 'bird' ? 'How many birds' : 'How many head'} quantity="count" units={units} value={count} onChange={setCount}><FieldIssue check={check} path="count" /></NumberField>}
-        <NumberField label={kind === GARDEN ? `Water per ${units === 'us' ? 'square foot' : 'square metre'} a day` : `Water per ${entry.unit} a day`}
-          quantity={kind === GARDEN ? 'litresPerArea' : 'litresPerHead'} units={units} value={perHead ?? defaultFigure} onChange={setPerHead}
-          hint={`Default ${kind === GARDEN ? showQuantity(defaultFigure, 'litresPerArea', units) : showQuantity(defaultFigure, 'litresPerHead', units)} — ${overrides[kind] !== undefined ? "your organisation's figure" : sourceName(entry.sourceId)}`}>
+        {kind === GARDEN ? (
+          <NumberField label="Garden area" quantity="area" units={units} value={typedCount} onChange={setCount}>
+            <FieldIssue check={check} path="count" />
+          </NumberField>
+        ) : (
+          <NumberField
+            label={entry.unit === 'person' ? 'How many people' : entry.unit === 'bird' ? 'How many birds' : 'How many head'}
+            quantity="count"
+            units={units}
+            value={count}
+            onChange={setCount}
+          >
+            <FieldIssue check={check} path="count" />
+          </NumberField>
+        )}
+        <NumberField
+          label={kind === GARDEN ? `Water per ${units === 'us' ? 'square foot' : 'square metre'} a day` : `Water per ${entry.unit} a day`}
+          quantity={kind === GARDEN ? 'litresPerArea' : 'litresPerHead'}
+          units={units}
+          value={perHead ?? defaultFigure}
+          onChange={setPerHead}
+          hint={`Default ${kind === GARDEN ? showQuantity(defaultFigure, 'litresPerArea', units) : showQuantity(defaultFigure, 'litresPerHead', units)} — ${overrides[kind] !== undefined ? "your organisation's figure" : sourceName(entry.sourceId)}`}
+        >
           <FieldIssue check={check} path="litresPerHeadPerDay" />
         </NumberField>
-        {message && <p role="status" className="font-bold">{message}</p>}
+        {message && (
+          <p role="status" className="font-bold">
+            {message}
+          </p>
+        )}
         <PrimaryButton onClick={add}>Add line</PrimaryButton>
       </section>
     </div>
@@ -122,5 +175,9 @@ function DemandPage() {
 }
 
 export default function Page() {
-  return <Suspense><DemandPage /></Suspense>;
+  return (
+    <Suspense>
+      <DemandPage />
+    </Suspense>
+  );
 }

@@ -16,15 +16,29 @@ function FallPage() {
   const units = useUnits();
   const { remove, bar } = useUndoableDelete();
   const [purpose, setPurpose] = useState<'fall' | 'lift'>('fall');
-  const saved = useLiveQuery(async () => (await fieldDb().fallReadings.where('visitId').equals(visitId).toArray()).filter((r) => !r.deletedAt).sort((a, b) => a.seq - b.seq), [visitId]);
+  const saved = useLiveQuery(
+    async () => (await fieldDb().fallReadings.where('visitId').equals(visitId).toArray()).filter((r) => !r.deletedAt).sort((a, b) => a.seq - b.seq),
+    [visitId],
+  );
   return (
     <div className="space-y-5">
       <SectionHeader visitId={visitId} title="Fall and lift" />
-      <Choice label="What are you measuring?" value={purpose} onChange={setPurpose}
-        options={[{ value: 'fall', label: 'Fall: intake → pump' }, { value: 'lift', label: 'Lift: pump → tank' }] as const} />
+      <Choice
+        label="What are you measuring?"
+        value={purpose}
+        onChange={setPurpose}
+        options={
+          [
+            { value: 'fall', label: 'Fall: intake → pump' },
+            { value: 'lift', label: 'Lift: pump → tank' },
+          ] as const
+        }
+      />
       <FallForm key={purpose} visitId={visitId} purpose={purpose} units={units} />
       <section aria-labelledby="saved-runs" className="space-y-2">
-        <h2 id="saved-runs" className="text-xl font-bold">Saved runs</h2>
+        <h2 id="saved-runs" className="text-xl font-bold">
+          Saved runs
+        </h2>
         {saved?.length === 0 && <p className="text-stone">None yet.</p>}
         <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
           {saved?.map((r) => {
@@ -32,21 +46,33 @@ function FallPage() {
             return (
               <li key={r.id} className="flex items-center justify-between px-3 py-2">
                 <span>
-                  <span className="block font-bold">{r.purpose === 'fall' ? 'Fall' : r.bookedFrom === 'tank' ? 'Lift, booked down from the tank' : 'Lift'} · {wordFor(FALL_METHOD_WORDS, r.run.method)}</span>
+                  <span className="block font-bold">
+                    {r.purpose === 'fall' ? 'Fall' : r.bookedFrom === 'tank' ? 'Lift, booked down from the tank' : 'Lift'} ·{' '}
+                    {wordFor(FALL_METHOD_WORDS, r.run.method)}
+                  </span>
                   <span className="figure block">{showQuantity(drop === null ? null : Math.abs(drop), 'length', units)}</span>
                 </span>
-                <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold"
-                  onClick={() => remove('fallReading', r.id, r.purpose === 'fall' ? 'the fall run' : 'the lift run')}>Delete</button>
+                <button
+                  type="button"
+                  className="min-h-12 rounded-md border-2 border-stone px-3 font-bold"
+                  onClick={() => remove('fallReading', r.id, r.purpose === 'fall' ? 'the fall run' : 'the lift run')}
+                >
+                  Delete
+                </button>
               </li>
             );
           })}
         </ul>
-      {bar}
+        {bar}
       </section>
     </div>
   );
 }
 
 export default function Page() {
-  return <Suspense><FallPage /></Suspense>;
+  return (
+    <Suspense>
+      <FallPage />
+    </Suspense>
+  );
 }

@@ -19,10 +19,14 @@ import { FlowForm } from './_components/flow-form';
 
 function meanLps(m: FlowMeasurement): number | null {
   try {
-    const flows = m.method === 'volumetric' ? m.trials.map((t) => volumetricFlowLps([t]))
-      : m.method === 'v-notch' ? m.trials.map((t) => vNotchFlowLps(t.headM, m.notchAngleDeg))
-        : m.method === 'float' ? m.trials.map((t) => floatFlowLps({ ...t, areaM2: m.areaM2, coefficient: m.coefficient }))
-          : [];
+    const flows =
+      m.method === 'volumetric'
+        ? m.trials.map((t) => volumetricFlowLps([t]))
+        : m.method === 'v-notch'
+          ? m.trials.map((t) => vNotchFlowLps(t.headM, m.notchAngleDeg))
+          : m.method === 'float'
+            ? m.trials.map((t) => floatFlowLps({ ...t, areaM2: m.areaM2, coefficient: m.coefficient }))
+            : [];
     return flows.length ? summarise(flows, 'flow').mean : null;
   } catch {
     return null;
@@ -30,26 +34,43 @@ function meanLps(m: FlowMeasurement): number | null {
 }
 
 function SourceName({ visitId, units }: { visitId: string; units: UnitSystem }) {
-  const source = useLiveQuery(async () => (await fieldDb().waterSources.where('visitId').equals(visitId).toArray()).find((s) => !s.deletedAt) ?? null, [visitId]);
+  const source = useLiveQuery(
+    async () => (await fieldDb().waterSources.where('visitId').equals(visitId).toArray()).find((s) => !s.deletedAt) ?? null,
+    [visitId],
+  );
   const [name, setName] = useState('');
   if (source === undefined) return null;
   if (source) {
     return (
       <>
-        <p className="text-lg">Source: <strong>{source.name}</strong> ({source.kind})</p>
+        <p className="text-lg">
+          Source: <strong>{source.name}</strong> ({source.kind})
+        </p>
         <FlowForm visitId={visitId} sourceId={source.id} units={units} />
       </>
     );
   }
   return (
-    <form className="space-y-3" onSubmit={async (e) => {
-      e.preventDefault();
-      await saveRecord('waterSource', newId(), { visitId, name: name.trim() || 'Main source', kind: 'creek', notes: '' });
-      announceSave();
-    }}>
-      <label htmlFor="source-name" className="block font-bold">Name of the source (spring, creek…)</label>
-      <input id="source-name" value={name} onChange={(e) => setName(e.target.value)} className="min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-xl" />
-      <button type="submit" className="min-h-14 w-full rounded-md bg-slate text-xl font-bold text-white">Start measuring this source</button>
+    <form
+      className="space-y-3"
+      onSubmit={async (e) => {
+        e.preventDefault();
+        await saveRecord('waterSource', newId(), { visitId, name: name.trim() || 'Main source', kind: 'creek', notes: '' });
+        announceSave();
+      }}
+    >
+      <label htmlFor="source-name" className="block font-bold">
+        Name of the source (spring, creek…)
+      </label>
+      <input
+        id="source-name"
+        value={name}
+        onChange={(e) => setName(e.target.value)}
+        className="min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-xl"
+      />
+      <button type="submit" className="min-h-14 w-full rounded-md bg-slate text-xl font-bold text-white">
+        Start measuring this source
+      </button>
     </form>
   );
 }
@@ -64,26 +85,41 @@ function FlowPage() {
       <SectionHeader visitId={visitId} title="Source and flow" />
       <SourceName visitId={visitId} units={units} />
       <section aria-labelledby="saved-flows" className="space-y-2">
-        <h2 id="saved-flows" className="text-xl font-bold">Saved measurements</h2>
+        <h2 id="saved-flows" className="text-xl font-bold">
+          Saved measurements
+        </h2>
         {saved?.length === 0 && <p className="text-stone">None yet.</p>}
         <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
           {saved?.map((m) => (
             <li key={m.id} className="flex items-center justify-between px-3 py-2">
               <span>
-                <span className="block font-bold">{wordFor(FLOW_METHOD_WORDS, m.measurement.method)} · {wordFor(SEASON_WORDS, m.measurement.season)}</span>
-                <span className="figure block">{showQuantity(meanLps(m.measurement), 'flowLps', units)} mean of {formatCount(m.measurement.trials.length, 'trial')}</span>
+                <span className="block font-bold">
+                  {wordFor(FLOW_METHOD_WORDS, m.measurement.method)} · {wordFor(SEASON_WORDS, m.measurement.season)}
+                </span>
+                <span className="figure block">
+                  {showQuantity(meanLps(m.measurement), 'flowLps', units)} mean of {formatCount(m.measurement.trials.length, 'trial')}
+                </span>
               </span>
-              <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold"
-                onClick={() => remove('flowMeasurement', m.id, 'the flow measurement')}>Delete</button>
+              <button
+                type="button"
+                className="min-h-12 rounded-md border-2 border-stone px-3 font-bold"
+                onClick={() => remove('flowMeasurement', m.id, 'the flow measurement')}
+              >
+                Delete
+              </button>
             </li>
           ))}
         </ul>
-      {bar}
+        {bar}
       </section>
     </div>
   );
 }
 
 export default function Page() {
-  return <Suspense><FlowPage /></Suspense>;
+  return (
+    <Suspense>
+      <FlowPage />
+    </Suspense>
+  );
 }

@@ -16,12 +16,19 @@ import { useUndoableDelete } from '../../_components/undo-delete';
 function Thumb({ id, alt }: { id: string; alt: string }) {
   const blob = useLiveQuery(() => fieldDb().photoBlobs.get(id), [id]);
   const url = useMemo(() => (blob ? URL.createObjectURL(new Blob([blob.data], { type: blob.mime })) : null), [blob]);
-  useEffect(() => () => {
-    if (url) URL.revokeObjectURL(url);
-  }, [url]);
+  useEffect(
+    () => () => {
+      if (url) URL.revokeObjectURL(url);
+    },
+    [url],
+  );
   const src = url ?? (blob === undefined ? null : `/api/photos/${id}/thumbnail`);
-  // eslint-disable-next-line @next/next/no-img-element -- object URLs of local bytes; next/image cannot optimise them
-  return src ? <img src={src} alt={alt} className="h-28 w-28 rounded-md border border-rule object-cover" /> : <span className="block h-28 w-28 rounded-md bg-rule" />;
+  return src ? (
+    // eslint-disable-next-line @next/next/no-img-element -- object URLs of local bytes; next/image cannot optimise them
+    <img src={src} alt={alt} className="h-28 w-28 rounded-md border border-rule object-cover" />
+  ) : (
+    <span className="block h-28 w-28 rounded-md bg-rule" />
+  );
 }
 
 function PhotosPage() {
@@ -62,18 +69,37 @@ function PhotosPage() {
       <SectionHeader visitId={visitId} title="Photos" />
       <label className="flex min-h-16 w-full cursor-pointer items-center justify-center rounded-md bg-slate text-xl font-bold text-white">
         {busy ? 'Reading…' : 'Take or choose photos'}
-        <input type="file" accept="image/jpeg,image/png,image/webp" capture="environment" multiple className="sr-only"
-          onChange={(e) => { void add(e.target.files); e.target.value = ''; }} data-testid="photo-input" />
+        <input
+          type="file"
+          accept="image/jpeg,image/png,image/webp"
+          capture="environment"
+          multiple
+          className="sr-only"
+          onChange={(e) => {
+            void add(e.target.files);
+            e.target.value = '';
+          }}
+          data-testid="photo-input"
+        />
       </label>
-      {message && <p role="status" className="font-bold">{message}</p>}
+      {message && (
+        <p role="status" className="font-bold">
+          {message}
+        </p>
+      )}
       <ul className="grid grid-cols-2 gap-3 sm:grid-cols-3">
         {photos?.map((p) => (
           <li key={p.id} className="rounded-md border border-rule bg-white p-2">
             <Thumb id={p.id} alt={p.caption || 'Site photo'} />
             <span className="mt-1 block text-sm">{p.lat !== null ? `${p.lat.toFixed(5)}, ${p.lon?.toFixed(5)}` : 'No position'}</span>
             <span className="block text-sm font-bold">{p.uploaded ? 'On the server' : 'Waiting to upload'}</span>
-            <button type="button" className="mt-1 min-h-12 w-full rounded-md border-2 border-stone font-bold"
-              onClick={() => remove('photo', p.id, 'the photo')}>Delete</button>
+            <button
+              type="button"
+              className="mt-1 min-h-12 w-full rounded-md border-2 border-stone font-bold"
+              onClick={() => remove('photo', p.id, 'the photo')}
+            >
+              Delete
+            </button>
           </li>
         ))}
       </ul>
@@ -83,5 +109,9 @@ function PhotosPage() {
 }
 
 export default function Page() {
-  return <Suspense><PhotosPage /></Suspense>;
+  return (
+    <Suspense>
+      <PhotosPage />
+    </Suspense>
+  );
 }

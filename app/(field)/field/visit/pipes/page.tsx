@@ -21,37 +21,89 @@ import { useUnits, useVisitId } from '../../_components/use-field-data';
 
 const MATERIALS = Object.values(PIPE_MATERIALS);
 const pipe = entityFields.pipeRun.pick({ material: true }).extend({
-  lengthM: z.number({ error: (issue) => (issue.code === 'invalid_type' ? 'Measure the length along the route.' : undefined) }).positive('Length must be more than 0.').max(MAX_PIPE_LENGTH_M),
+  lengthM: z
+    .number({ error: (issue) => (issue.code === 'invalid_type' ? 'Measure the length along the route.' : undefined) })
+    .positive('Length must be more than 0.')
+    .max(MAX_PIPE_LENGTH_M),
   diameterMm: z.number().positive('Diameter must be more than 0.').max(MAX_PIPE_BORE_MM).optional(),
 });
 const schema = z.object({ drive: pipe.partial({ lengthM: true }), delivery: pipe, feed: pipe.partial({ lengthM: true }) });
 type Values = z.infer<typeof schema>;
 
-function PipeFields({ name, title, control, units, hint }: { name: 'drive' | 'delivery' | 'feed'; title: string; control: ReturnType<typeof useForm<Values>>['control']; units: UnitSystem; hint: string }) {
+function PipeFields({
+  name,
+  title,
+  control,
+  units,
+  hint,
+}: {
+  name: 'drive' | 'delivery' | 'feed';
+  title: string;
+  control: ReturnType<typeof useForm<Values>>['control'];
+  units: UnitSystem;
+  hint: string;
+}) {
   return (
     <fieldset className="space-y-3 rounded-md border-2 border-rule bg-white p-3">
       <legend className="px-1 text-xl font-bold">{title}</legend>
       <p className="text-stone">{hint}</p>
-      <Controller control={control} name={`${name}.lengthM`} render={({ field, fieldState }) => (
-        <>
-          <NumberField label="Length along the route" quantity="length" units={units} value={field.value} onChange={field.onChange}>
-            {fieldState.error && <p role="alert" className="font-bold text-clay">{fieldState.error.message}</p>}
+      <Controller
+        control={control}
+        name={`${name}.lengthM`}
+        render={({ field, fieldState }) => (
+          <>
+            <NumberField label="Length along the route" quantity="length" units={units} value={field.value} onChange={field.onChange}>
+              {fieldState.error && (
+                <p role="alert" className="font-bold text-clay">
+                  {fieldState.error.message}
+                </p>
+              )}
+            </NumberField>
+          </>
+        )}
+      />
+      <Controller
+        control={control}
+        name={`${name}.diameterMm`}
+        render={({ field, fieldState }) => (
+          <NumberField
+            label="Inside diameter (leave empty: the screen proposes one)"
+            quantity="diameter"
+            units={units}
+            value={field.value}
+            onChange={field.onChange}
+          >
+            {fieldState.error && (
+              <p role="alert" className="font-bold text-clay">
+                {fieldState.error.message}
+              </p>
+            )}
           </NumberField>
-        </>
-      )} />
-      <Controller control={control} name={`${name}.diameterMm`} render={({ field, fieldState }) => (
-        <NumberField label="Inside diameter (leave empty: the screen proposes one)" quantity="diameter" units={units} value={field.value} onChange={field.onChange}>
-          {fieldState.error && <p role="alert" className="font-bold text-clay">{fieldState.error.message}</p>}
-        </NumberField>
-      )} />
-      <Controller control={control} name={`${name}.material`} render={({ field }) => (
-        <div>
-          <label htmlFor={`${name}-material`} className="block font-bold">Material</label>
-          <select id={`${name}-material`} value={field.value} onChange={(e) => field.onChange(e.target.value as PipeMaterialId)} className="mt-1 min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-lg">
-            {MATERIALS.map((m) => <option key={m.id} value={m.id}>{m.label}</option>)}
-          </select>
-        </div>
-      )} />
+        )}
+      />
+      <Controller
+        control={control}
+        name={`${name}.material`}
+        render={({ field }) => (
+          <div>
+            <label htmlFor={`${name}-material`} className="block font-bold">
+              Material
+            </label>
+            <select
+              id={`${name}-material`}
+              value={field.value}
+              onChange={(e) => field.onChange(e.target.value as PipeMaterialId)}
+              className="mt-1 min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-lg"
+            >
+              {MATERIALS.map((m) => (
+                <option key={m.id} value={m.id}>
+                  {m.label}
+                </option>
+              ))}
+            </select>
+          </div>
+        )}
+      />
     </fieldset>
   );
 }
@@ -62,8 +114,16 @@ function PipesForm({ visitId, existing, units }: { visitId: string; existing: Lo
   const { control, handleSubmit, formState, reset } = useForm<Values>({
     resolver: zodResolver(schema, { error: (issue) => plainIssueMessage(issue, units) }),
     defaultValues: {
-      drive: { lengthM: find('drive')?.lengthM ?? undefined, diameterMm: find('drive')?.diameterMm ?? undefined, material: find('drive')?.material ?? 'galvanized-steel' },
-      delivery: { lengthM: find('delivery')?.lengthM ?? undefined, diameterMm: find('delivery')?.diameterMm ?? undefined, material: find('delivery')?.material ?? 'hdpe' },
+      drive: {
+        lengthM: find('drive')?.lengthM ?? undefined,
+        diameterMm: find('drive')?.diameterMm ?? undefined,
+        material: find('drive')?.material ?? 'galvanized-steel',
+      },
+      delivery: {
+        lengthM: find('delivery')?.lengthM ?? undefined,
+        diameterMm: find('delivery')?.diameterMm ?? undefined,
+        material: find('delivery')?.material ?? 'hdpe',
+      },
       feed: { lengthM: find('feed')?.lengthM ?? undefined, diameterMm: find('feed')?.diameterMm ?? undefined, material: find('feed')?.material ?? 'hdpe' },
     },
   });
@@ -81,9 +141,19 @@ function PipesForm({ visitId, existing, units }: { visitId: string; existing: Lo
         if (old) await deleteRecord('pipeRun', old.id);
         continue;
       }
-      await saveRecord('pipeRun', find(purpose)?.id ?? newId(), {
-        visitId, purpose, lengthM: v.lengthM ?? null, diameterMm: v.diameterMm ?? null, material: v.material, pressureClass: find(purpose)?.pressureClass ?? null,
-      }, units);
+      await saveRecord(
+        'pipeRun',
+        find(purpose)?.id ?? newId(),
+        {
+          visitId,
+          purpose,
+          lengthM: v.lengthM ?? null,
+          diameterMm: v.diameterMm ?? null,
+          material: v.material,
+          pressureClass: find(purpose)?.pressureClass ?? null,
+        },
+        units,
+      );
     }
     // What is saved is no longer unsaved input: leaving the page now asks nothing.
     reset(values);
@@ -92,10 +162,26 @@ function PipesForm({ visitId, existing, units }: { visitId: string; existing: Lo
   }
   return (
     <form onSubmit={handleSubmit(save)} className="space-y-4" noValidate>
-      <PipeFields name="drive" title="Drive pipe (intake → ram)" control={control} units={units} hint="Rigid pipe; leave the length empty to let the screen propose one from the fall." />
+      <PipeFields
+        name="drive"
+        title="Drive pipe (intake → ram)"
+        control={control}
+        units={units}
+        hint="Rigid pipe; leave the length empty to let the screen propose one from the fall."
+      />
       <PipeFields name="delivery" title="Delivery pipe (ram → tank)" control={control} units={units} hint="Measure along the ground, including bends." />
-      <PipeFields name="feed" title="Feed pipe (intake → stand pipe), gentle creeks only" control={control} units={units} hint="Where the drive pipe starts at an open stand pipe below the intake; leave the length empty when the drive pipe starts at the intake." />
-      {message && <p role="status" className="font-bold">{message}</p>}
+      <PipeFields
+        name="feed"
+        title="Feed pipe (intake → stand pipe), gentle creeks only"
+        control={control}
+        units={units}
+        hint="Where the drive pipe starts at an open stand pipe below the intake; leave the length empty when the drive pipe starts at the intake."
+      />
+      {message && (
+        <p role="status" className="font-bold">
+          {message}
+        </p>
+      )}
       <PrimaryButton type="submit">Save pipe runs</PrimaryButton>
     </form>
   );
@@ -114,5 +200,9 @@ function PipesPage() {
 }
 
 export default function Page() {
-  return <Suspense><PipesPage /></Suspense>;
+  return (
+    <Suspense>
+      <PipesPage />
+    </Suspense>
+  );
 }

@@ -22,37 +22,57 @@ function PointsPage() {
   const isProfileStation = (p: NonNullable<typeof all>[number]) => p.role === 'station' && p.chainageM !== null;
   const points = all?.filter((p) => !isProfileStation(p));
   const profileStations = all?.filter(isProfileStation).length ?? 0;
-  const mapPoints = (points ?? []).flatMap((p) => (p.lat !== null && p.lon !== null ? [{ id: p.id, lat: p.lat, lon: p.lon, label: p.label, role: p.role }] : []));
+  const mapPoints = (points ?? []).flatMap((p) =>
+    p.lat !== null && p.lon !== null ? [{ id: p.id, lat: p.lat, lon: p.lon, label: p.label, role: p.role }] : [],
+  );
   return (
     <div className="space-y-5">
       <SectionHeader visitId={visitId} title="Points" />
       <PointForm visitId={visitId} units={units} points={mapPoints} />
       <OfflineMapNote visitId={visitId} />
       <section aria-labelledby="saved-points" className="space-y-2">
-        <h2 id="saved-points" className="text-xl font-bold">Saved points</h2>
+        <h2 id="saved-points" className="text-xl font-bold">
+          Saved points
+        </h2>
         {points?.length === 0 && <p className="text-stone">None yet.</p>}
         {profileStations > 0 && (
-          <p className="text-stone"><span className="figure">{formatCount(profileStations, 'creek-profile station')}</span> {profileStations === 1 ? 'is' : 'are'} on{' '}
-            <Link href={`/field/visit/positions?id=${visitId}`} className="font-bold text-slate underline">Creek profile, best positions</Link>.</p>
+          <p className="text-stone">
+            <span className="figure">{formatCount(profileStations, 'creek-profile station')}</span> {profileStations === 1 ? 'is' : 'are'} on{' '}
+            <Link href={`/field/visit/positions?id=${visitId}`} className="font-bold text-slate underline">
+              Creek profile, best positions
+            </Link>
+            .
+          </p>
         )}
         <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
           {points?.map((p) => (
             <li key={p.id} className="flex items-center justify-between px-3 py-2">
               <span>
-                <span className="block font-bold">{POINT_ROLE_WORDS[p.role] ?? 'Other point'}{p.label ? ` · ${p.label}` : ''}</span>
-                <span className="figure block">{p.lat !== null && p.lon !== null ? `${p.lat.toFixed(5)}, ${p.lon.toFixed(5)}` : 'no position'}{p.accuracyM !== null ? ` ± ${showQuantity(p.accuracyM, 'accuracy', units)}` : ''}</span>
+                <span className="block font-bold">
+                  {POINT_ROLE_WORDS[p.role] ?? 'Other point'}
+                  {p.label ? ` · ${p.label}` : ''}
+                </span>
+                <span className="figure block">
+                  {p.lat !== null && p.lon !== null ? `${p.lat.toFixed(5)}, ${p.lon.toFixed(5)}` : 'no position'}
+                  {p.accuracyM !== null ? ` ± ${showQuantity(p.accuracyM, 'accuracy', units)}` : ''}
+                </span>
               </span>
-              <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold"
-                onClick={() => remove('point', p.id, 'the point')}>Delete</button>
+              <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold" onClick={() => remove('point', p.id, 'the point')}>
+                Delete
+              </button>
             </li>
           ))}
         </ul>
-      {bar}
+        {bar}
       </section>
     </div>
   );
 }
 
 export default function Page() {
-  return <Suspense><PointsPage /></Suspense>;
+  return (
+    <Suspense>
+      <PointsPage />
+    </Suspense>
+  );
 }

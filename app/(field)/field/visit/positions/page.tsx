@@ -40,7 +40,20 @@ function PositionsPage() {
     if (levelM === undefined || chainM === undefined) return setMessage('The tank needs its level and where it stands along the bank.');
     const fields = { reducedLevelM: levelM, chainageM: chainM };
     if (tp) await saveRecord('point', tp.id, fields);
-    else await saveRecord('point', newId(), { visitId, role: 'tank', label: 'Tank', lat: null, lon: null, accuracyM: null, altitudeM: null, altitudeAccuracyM: null, capturedAt: new Date().toISOString(), flags: null, ...fields });
+    else
+      await saveRecord('point', newId(), {
+        visitId,
+        role: 'tank',
+        label: 'Tank',
+        lat: null,
+        lon: null,
+        accuracyM: null,
+        altitudeM: null,
+        altitudeAccuracyM: null,
+        capturedAt: new Date().toISOString(),
+        flags: null,
+        ...fields,
+      });
     announceSave();
     setMessage('Tank saved on this phone.');
   }
@@ -65,7 +78,12 @@ function PositionsPage() {
   async function adopt(rank: number) {
     const pair = result?.ranked.find((p) => p.rank === rank);
     if (!pair || !tank || !profile) return;
-    if (!window.confirm('Adopt this pair? The intake and ram points move to it, the pipe lengths follow, and the fall and lift readings are replaced by the profile\u2019s.')) return;
+    if (
+      !window.confirm(
+        'Adopt this pair? The intake and ram points move to it, the pipe lengths follow, and the fall and lift readings are replaced by the profile\u2019s.',
+      )
+    )
+      return;
     await adoptPair(visitId, pair, profile.stations, tank, units);
     announceSave();
     setMessage(`Pair ${rank} adopted on this phone; it syncs with the next connection and the screen uses it.`);
@@ -82,40 +100,83 @@ function PositionsPage() {
           <NumberField label="Along the bank at" quantity="length" units={units} value={chainM} onChange={setTankChainage} />
           <NumberField label="Distance away from the creek" quantity="length" units={units} value={offsetM} onChange={setOffsetM} />
         </div>
-        <button type="button" onClick={saveTank} className="min-h-12 w-full rounded-md border-2 border-slate font-bold text-slate">Save tank</button>
+        <button type="button" onClick={saveTank} className="min-h-12 w-full rounded-md border-2 border-slate font-bold text-slate">
+          Save tank
+        </button>
       </fieldset>
       <PositionsChart stations={profile.stations} tank={tank} pairs={result?.ranked ?? []} units={units} />
       <PositionsMapPanel stations={profile.stations} tankPoint={tp} pairs={result?.ranked ?? []} />
-      <p className="text-stone"><span className="figure">{formatCount(profile.stations.length, 'station')}</span>{profile.incomplete > 0 ? `, ${formatCount(profile.incomplete, 'station')} without distance or level (left out)` : ''}.</p>
-      <PrimaryButton onClick={search} disabled={busy || profile.stations.length < 2}
-        why={busy ? undefined : `Book at least two stations with their distance along the bank and level first (${profile.stations.length} so far).`}>{busy ? 'Searching…' : 'Find the best positions'}</PrimaryButton>
-      {message && <p role="status" className="font-bold">{message}</p>}
+      <p className="text-stone">
+        <span className="figure">{formatCount(profile.stations.length, 'station')}</span>
+        {profile.incomplete > 0 ? `, ${formatCount(profile.incomplete, 'station')} without distance or level (left out)` : ''}.
+      </p>
+      <PrimaryButton
+        onClick={search}
+        disabled={busy || profile.stations.length < 2}
+        why={busy ? undefined : `Book at least two stations with their distance along the bank and level first (${profile.stations.length} so far).`}
+      >
+        {busy ? 'Searching…' : 'Find the best positions'}
+      </PrimaryButton>
+      {message && (
+        <p role="status" className="font-bold">
+          {message}
+        </p>
+      )}
       {result && (
         <section aria-labelledby="best" className="space-y-3">
-          <h2 id="best" className="text-xl font-bold">Best pairs</h2>
-          <p className="text-stone">{result.pairsConsidered} pairs looked at, {result.pairsFeasible} within the drive pipe rules.</p>
+          <h2 id="best" className="text-xl font-bold">
+            Best pairs
+          </h2>
+          <p className="text-stone">
+            {result.pairsConsidered} pairs looked at, {result.pairsFeasible} within the drive pipe rules.
+          </p>
           {result.ranked.length === 0 && <p className="font-bold">No pair fits the rules on this reach.</p>}
           <ol className="space-y-3">
             {result.ranked.map((p) => (
               <li key={`${p.intake.id}-${p.pump.id}`} className="rounded-md border-2 border-rule bg-white p-3" data-testid={`pair-${p.rank}`}>
-                <p className="text-lg font-bold">{p.rank}. Intake at <span className="figure">{showQuantity(p.intake.chainageM, 'length', units)}</span>, ram at <span className="figure">{showQuantity(p.pump.chainageM, 'length', units)}</span></p>
-                <p>Fall <span className="figure">{showQuantity(p.fallM, 'length', units)}</span> · lift <span className="figure">{showQuantity(p.staticLiftM, 'length', units)}</span> · drive pipe <span className="figure">{showQuantity(p.driveLengthM, 'length', units)}</span></p>
+                <p className="text-lg font-bold">
+                  {p.rank}. Intake at <span className="figure">{showQuantity(p.intake.chainageM, 'length', units)}</span>, ram at{' '}
+                  <span className="figure">{showQuantity(p.pump.chainageM, 'length', units)}</span>
+                </p>
+                <p>
+                  Fall <span className="figure">{showQuantity(p.fallM, 'length', units)}</span> · lift{' '}
+                  <span className="figure">{showQuantity(p.staticLiftM, 'length', units)}</span> · drive pipe{' '}
+                  <span className="figure">{showQuantity(p.driveLengthM, 'length', units)}</span>
+                </p>
                 {p.standPipe && (
-                  <p data-testid={`pair-${p.rank}-stand-pipe`}>Feed pipe <span className="figure">{showQuantity(p.feedLengthM, 'length', units)}</span> to an open stand pipe at <span className="figure">{showQuantity(p.standPipe.chainageM, 'length', units)}</span>, where the drive pipe starts</p>
+                  <p data-testid={`pair-${p.rank}-stand-pipe`}>
+                    Feed pipe <span className="figure">{showQuantity(p.feedLengthM, 'length', units)}</span> to an open stand pipe at{' '}
+                    <span className="figure">{showQuantity(p.standPipe.chainageM, 'length', units)}</span>, where the drive pipe starts
+                  </p>
                 )}
-                <p>Delivers about <span className="figure">{showQuantity(p.deliveryLpd, 'litresPerDay', units)}</span>; meets the need in <span className="figure">{formatPercent(p.probabilityMeetsDemand)}</span> of draws</p>
-                <p>Screen: <VerdictMark verdict={p.screening.verdict} /></p>
-                <button type="button" onClick={() => adopt(p.rank)} className="mt-2 min-h-12 w-full rounded-md border-2 border-slate font-bold text-slate">Adopt pair {p.rank}</button>
+                <p>
+                  Delivers about <span className="figure">{showQuantity(p.deliveryLpd, 'litresPerDay', units)}</span>; meets the need in{' '}
+                  <span className="figure">{formatPercent(p.probabilityMeetsDemand)}</span> of draws
+                </p>
+                <p>
+                  Screen: <VerdictMark verdict={p.screening.verdict} />
+                </p>
+                <button type="button" onClick={() => adopt(p.rank)} className="mt-2 min-h-12 w-full rounded-md border-2 border-slate font-bold text-slate">
+                  Adopt pair {p.rank}
+                </button>
               </li>
             ))}
           </ol>
           {result.rejected.length > 0 && (
             <details>
               <summary className="min-h-12 cursor-pointer font-bold">Why other pairs were set aside</summary>
-              <ul className="ml-5 list-disc">{result.rejected.map((r) => <li key={r.code}><span className="figure">{r.count}</span> × {r.text}</li>)}</ul>
+              <ul className="ml-5 list-disc">
+                {result.rejected.map((r) => (
+                  <li key={r.code}>
+                    <span className="figure">{r.count}</span> × {r.text}
+                  </li>
+                ))}
+              </ul>
             </details>
           )}
-          <p className="text-sm text-stone">A screen, not an engineering design: check the ground, flooding and permits on site, and follow local codes and licensed practice.</p>
+          <p className="text-sm text-stone">
+            A screen, not an engineering design: check the ground, flooding and permits on site, and follow local codes and licensed practice.
+          </p>
         </section>
       )}
       <StationList visitId={visitId} units={units} />
@@ -124,7 +185,13 @@ function PositionsPage() {
 }
 
 function StationList({ visitId, units }: { visitId: string; units: ReturnType<typeof useUnits> }) {
-  const rows = useLiveQuery(async () => (await fieldDb().points.where('visitId').equals(visitId).toArray()).filter((p) => !p.deletedAt && p.role === 'station').sort((a, b) => (a.chainageM ?? 0) - (b.chainageM ?? 0)), [visitId]);
+  const rows = useLiveQuery(
+    async () =>
+      (await fieldDb().points.where('visitId').equals(visitId).toArray())
+        .filter((p) => !p.deletedAt && p.role === 'station')
+        .sort((a, b) => (a.chainageM ?? 0) - (b.chainageM ?? 0)),
+    [visitId],
+  );
   const { remove, bar } = useUndoableDelete();
   if (!rows?.length) return bar;
   return (
@@ -133,8 +200,14 @@ function StationList({ visitId, units }: { visitId: string; units: ReturnType<ty
       <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
         {rows.map((p) => (
           <li key={p.id} className="flex items-center justify-between px-3 py-2">
-            <span className="figure">{showQuantity(p.chainageM, 'length', units)} · level {showQuantity(levelOf(p), 'length', units)}{p.flags?.includes('no-pump-site') ? ' · floods' : ''}{p.flags?.includes('no-intake') ? ' · no intake' : ''}</span>
-            <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold" onClick={() => remove('point', p.id, 'the station')}>Delete</button>
+            <span className="figure">
+              {showQuantity(p.chainageM, 'length', units)} · level {showQuantity(levelOf(p), 'length', units)}
+              {p.flags?.includes('no-pump-site') ? ' · floods' : ''}
+              {p.flags?.includes('no-intake') ? ' · no intake' : ''}
+            </span>
+            <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold" onClick={() => remove('point', p.id, 'the station')}>
+              Delete
+            </button>
           </li>
         ))}
       </ul>
@@ -144,5 +217,9 @@ function StationList({ visitId, units }: { visitId: string; units: ReturnType<ty
 }
 
 export default function Page() {
-  return <Suspense><PositionsPage /></Suspense>;
+  return (
+    <Suspense>
+      <PositionsPage />
+    </Suspense>
+  );
 }

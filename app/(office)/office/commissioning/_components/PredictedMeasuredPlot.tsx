@@ -18,18 +18,30 @@ export function PredictedMeasuredPlot({ points, units }: { points: Commissioning
   const label = (v: number) => formatFigure(d.fromSi(v));
   return (
     <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-labelledby="pm-title" className="w-full max-w-3xl bg-white">
-      <title id="pm-title">Predicted against measured delivery, {d.unit}, for {shown.length} commissioned rams</title>
+      <title id="pm-title">
+        Predicted against measured delivery, {d.unit}, for {shown.length} commissioned rams
+      </title>
       {ticks.map((t) => (
         <g key={t} className="text-stone" fill="currentColor">
           <line x1={x(0)} x2={x(max)} y1={y(t)} y2={y(t)} stroke="#C9C4B6" />
-          <text x={PAD.left - 8} y={y(t) + 5} textAnchor="end" fontSize="13" className="font-mono">{label(t)}</text>
-          <text x={x(t)} y={H - PAD.bottom + 20} textAnchor="middle" fontSize="13" className="font-mono">{label(t)}</text>
+          <text x={PAD.left - 8} y={y(t) + 5} textAnchor="end" fontSize="13" className="font-mono">
+            {label(t)}
+          </text>
+          <text x={x(t)} y={H - PAD.bottom + 20} textAnchor="middle" fontSize="13" className="font-mono">
+            {label(t)}
+          </text>
         </g>
       ))}
       <line x1={x(0)} y1={y(0)} x2={x(max)} y2={y(max)} stroke="#1E3A4C" strokeDasharray="6 4" />
-      <text x={x(max * 0.97)} y={y(max * 0.97) + 18} textAnchor="end" fontSize="13" fill="#1E3A4C">as predicted</text>
-      <text x={(x(0) + x(max)) / 2} y={H - 12} textAnchor="middle" fontSize="14" fill="#15191C">Predicted by the screening, {d.unit}</text>
-      <text transform={`translate(18 ${(y(0) + y(max)) / 2}) rotate(-90)`} textAnchor="middle" fontSize="14" fill="#15191C">Measured at the tank, {d.unit}</text>
+      <text x={x(max * 0.97)} y={y(max * 0.97) + 18} textAnchor="end" fontSize="13" fill="#1E3A4C">
+        as predicted
+      </text>
+      <text x={(x(0) + x(max)) / 2} y={H - 12} textAnchor="middle" fontSize="14" fill="#15191C">
+        Predicted by the screening, {d.unit}
+      </text>
+      <text transform={`translate(18 ${(y(0) + y(max)) / 2}) rotate(-90)`} textAnchor="middle" fontSize="14" fill="#15191C">
+        Measured at the tank, {d.unit}
+      </text>
       {shown.map((p) => {
         const below = p.p10Lpd !== null && p.measuredLpd < p.p10Lpd;
         return (

@@ -17,9 +17,22 @@ export interface MapSiteView {
   points: { role: string; lat: number; lon: number }[];
 }
 
-export interface MapFarmView { farmId: string; farmName: string; area: string; lat: number; lon: number }
+export interface MapFarmView {
+  farmId: string;
+  farmName: string;
+  area: string;
+  lat: number;
+  lon: number;
+}
 
-const ROLE_WORDS: Record<string, string> = { intake: 'at the intake', pump: 'at the pump site', tank: 'at the tank', source: 'at the source', other: 'at a point taken', farm: 'at the farm (no site points yet)' };
+const ROLE_WORDS: Record<string, string> = {
+  intake: 'at the intake',
+  pump: 'at the pump site',
+  tank: 'at the tank',
+  source: 'at the source',
+  other: 'at a point taken',
+  farm: 'at the farm (no site points yet)',
+};
 
 // Popup content built as elements (names are people's own text, never markup).
 function popup(lines: (string | { href: string; text: string })[], title: string): HTMLElement {
@@ -41,9 +54,12 @@ function popup(lines: (string | { href: string; text: string })[], title: string
 }
 
 // A neutral numbered circle for a gathered group (no verdict colour: it may hold every verdict).
-const clusterIcon = (cluster: L.MarkerCluster) => L.divIcon({
-  html: `<span>${cluster.getChildCount()}</span>`, className: 'fallbook-cluster', iconSize: [40, 40],
-});
+const clusterIcon = (cluster: L.MarkerCluster) =>
+  L.divIcon({
+    html: `<span>${cluster.getChildCount()}</span>`,
+    className: 'fallbook-cluster',
+    iconSize: [40, 40],
+  });
 
 /** The marks in Leaflet.markercluster groups: near marks gather into a count, each mark is labelled with its farm. */
 function ClusteredMarks({ sites, farms }: { sites: MapSiteView[]; farms: MapFarmView[] }) {
@@ -69,15 +85,19 @@ function ClusteredMarks({ sites, farms }: { sites: MapSiteView[]; farms: MapFarm
         const p = s.points.find((q) => q.role === 'pump') ?? s.points[0];
         if (!p) continue;
         const verdict = VERDICT_WORDS[s.verdict ?? 'none'];
-        const where = s.points.length > 1 ? `${s.points.length} points taken` : ROLE_WORDS[p.role] ?? p.role;
-        group.addLayer(L.marker([p.lat, p.lon], { icon: iconFor(s.verdict ?? 'none'), title: `${s.farmName}: ${verdict}`, alt: `${s.farmName}: ${verdict}` })
-          .bindPopup(popup([`${verdict} · ${s.statusLabel}`, where, { href: `/office/visits/${s.visitId}`, text: 'Open the visit' }], s.farmName))
-          .bindTooltip(s.farmName, { permanent: true, direction: 'right', offset: [18, 0], className: 'fallbook-label' }));
+        const where = s.points.length > 1 ? `${s.points.length} points taken` : (ROLE_WORDS[p.role] ?? p.role);
+        group.addLayer(
+          L.marker([p.lat, p.lon], { icon: iconFor(s.verdict ?? 'none'), title: `${s.farmName}: ${verdict}`, alt: `${s.farmName}: ${verdict}` })
+            .bindPopup(popup([`${verdict} · ${s.statusLabel}`, where, { href: `/office/visits/${s.visitId}`, text: 'Open the visit' }], s.farmName))
+            .bindTooltip(s.farmName, { permanent: true, direction: 'right', offset: [18, 0], className: 'fallbook-label' }),
+        );
       }
       for (const f of farms) {
-        group.addLayer(L.marker([f.lat, f.lon], { icon: farmIcon, title: `${f.farmName}: no visit yet`, alt: `${f.farmName}: no visit yet` })
-          .bindPopup(popup([f.area || 'no area given', 'No visit yet', { href: `/office/visits/new?farm=${f.farmId}`, text: 'Plan a visit' }], f.farmName))
-          .bindTooltip(f.farmName, { permanent: true, direction: 'right', offset: [12, 0], className: 'fallbook-label' }));
+        group.addLayer(
+          L.marker([f.lat, f.lon], { icon: farmIcon, title: `${f.farmName}: no visit yet`, alt: `${f.farmName}: no visit yet` })
+            .bindPopup(popup([f.area || 'no area given', 'No visit yet', { href: `/office/visits/new?farm=${f.farmId}`, text: 'Plan a visit' }], f.farmName))
+            .bindTooltip(f.farmName, { permanent: true, direction: 'right', offset: [12, 0], className: 'fallbook-label' }),
+        );
       }
       map.addLayer(group);
     });
@@ -94,12 +114,28 @@ function ClusteredMarks({ sites, farms }: { sites: MapSiteView[]; farms: MapFarm
  * NEXT_PUBLIC_TILE_URL is set. The map names its own deepest zoom: the clusters need one, and
  * without tiles no layer gives it.
  */
-export default function DistrictMapView({ sites, farms, fit }: { sites: MapSiteView[]; farms: MapFarmView[]; fit: [[number, number], [number, number]] | null }) {
+export default function DistrictMapView({
+  sites,
+  farms,
+  fit,
+}: {
+  sites: MapSiteView[];
+  farms: MapFarmView[];
+  fit: [[number, number], [number, number]] | null;
+}) {
   const tileUrl = process.env.NEXT_PUBLIC_TILE_URL;
   const bounds = fit ? L.latLngBounds(fit).pad(0.1) : undefined;
   return (
-    <MapContainer bounds={bounds} center={bounds ? undefined : [52.4, -3.6]} zoom={bounds ? undefined : 11} maxZoom={19} zoomSnap={0.5} scrollWheelZoom
-      style={{ height: '60vh', minHeight: 360, background: '#EDEAE0' }} aria-label="Map of the district's sites">
+    <MapContainer
+      bounds={bounds}
+      center={bounds ? undefined : [52.4, -3.6]}
+      zoom={bounds ? undefined : 11}
+      maxZoom={19}
+      zoomSnap={0.5}
+      scrollWheelZoom
+      style={{ height: '60vh', minHeight: 360, background: '#EDEAE0' }}
+      aria-label="Map of the district's sites"
+    >
       {tileUrl && <TileLayer url={tileUrl} attribution={process.env.NEXT_PUBLIC_TILE_ATTRIBUTION ?? ''} />}
       <ScaleControl position="bottomleft" />
       <ClusteredMarks sites={sites} farms={farms} />

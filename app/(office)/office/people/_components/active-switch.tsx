@@ -24,10 +24,19 @@ export function ActiveSwitch({ id, name, active }: { id: string; name: string; a
   }
   return (
     <div>
-      <button type="button" onClick={toggle} disabled={busy} className={`min-h-12 rounded-md border-2 px-3 font-bold ${active ? 'border-clay text-clay' : 'border-slate text-slate'}`}>
+      <button
+        type="button"
+        onClick={toggle}
+        disabled={busy}
+        className={`min-h-12 rounded-md border-2 px-3 font-bold ${active ? 'border-clay text-clay' : 'border-slate text-slate'}`}
+      >
         {active ? `Switch off ${name}` : `Switch on ${name}`}
       </button>
-      {error && <p role="alert" className="mt-1 font-bold text-clay">{error}</p>}
+      {error && (
+        <p role="alert" className="mt-1 font-bold text-clay">
+          {error}
+        </p>
+      )}
     </div>
   );
 }

@@ -18,8 +18,15 @@ export function AnswerForm({ visitId, questionId }: { visitId: string; questionI
     if (found) return;
     setBusy(true);
     try {
-      const res = await fetch(`/api/visits/${visitId}/sheet/answers`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ questionId, text }) });
-      if (!res.ok) throw new Error(((await res.json().catch(() => null)) as { error?: { message?: string } } | null)?.error?.message ?? 'The answer did not go through; try again.');
+      const res = await fetch(`/api/visits/${visitId}/sheet/answers`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ questionId, text }),
+      });
+      if (!res.ok)
+        throw new Error(
+          ((await res.json().catch(() => null)) as { error?: { message?: string } } | null)?.error?.message ?? 'The answer did not go through; try again.',
+        );
       setText('');
       router.refresh();
     } catch (e) {
@@ -30,11 +37,26 @@ export function AnswerForm({ visitId, questionId }: { visitId: string; questionI
   }
   return (
     <form onSubmit={submit} noValidate className="mt-2 space-y-2" aria-label="Answer this question">
-      <label htmlFor={id} className="block font-bold">Your answer</label>
-      <textarea id={id} rows={3} value={text} onChange={(e) => setText(e.target.value)}
-        className="w-full rounded-md border-2 border-stone bg-paper p-3 text-lg" aria-invalid={!!problem} aria-describedby={`${id}-error`} />
-      {problem && <p id={`${id}-error`} role="alert" className="text-clay">{problem}</p>}
-      <button type="submit" disabled={busy} className="min-h-12 rounded-md bg-slate px-4 font-bold text-white disabled:opacity-60">{busy ? 'Sending…' : 'Send answer to the farmer'}</button>
+      <label htmlFor={id} className="block font-bold">
+        Your answer
+      </label>
+      <textarea
+        id={id}
+        rows={3}
+        value={text}
+        onChange={(e) => setText(e.target.value)}
+        className="w-full rounded-md border-2 border-stone bg-paper p-3 text-lg"
+        aria-invalid={!!problem}
+        aria-describedby={`${id}-error`}
+      />
+      {problem && (
+        <p id={`${id}-error`} role="alert" className="text-clay">
+          {problem}
+        </p>
+      )}
+      <button type="submit" disabled={busy} className="min-h-12 rounded-md bg-slate px-4 font-bold text-white disabled:opacity-60">
+        {busy ? 'Sending…' : 'Send answer to the farmer'}
+      </button>
     </form>
   );
 }

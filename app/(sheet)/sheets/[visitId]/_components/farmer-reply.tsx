@@ -6,7 +6,8 @@ import { decisionProblem, questionProblem } from '@/lib/shared/sheet/question-ru
 
 async function post(url: string, body?: unknown): Promise<void> {
   const res = await fetch(url, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(body ?? {}) });
-  if (!res.ok) throw new Error(((await res.json().catch(() => null)) as { error?: { message?: string } } | null)?.error?.message ?? 'That did not go through; try again.');
+  if (!res.ok)
+    throw new Error(((await res.json().catch(() => null)) as { error?: { message?: string } } | null)?.error?.message ?? 'That did not go through; try again.');
 }
 
 export type FarmerDecision = 'go-ahead' | 'not-now' | null;
@@ -17,7 +18,17 @@ export type FarmerDecision = 'go-ahead' | 'not-now' | null;
  * island on a server-rendered sheet, so it checks by hand (question-rules, the limits the routes'
  * schemas use) rather than load a form library and zod onto the farmer's phone.
  */
-export function FarmerReply({ visitId, acknowledged, decision, canDecide }: { visitId: string; acknowledged: boolean; decision: FarmerDecision; canDecide: boolean }) {
+export function FarmerReply({
+  visitId,
+  acknowledged,
+  decision,
+  canDecide,
+}: {
+  visitId: string;
+  acknowledged: boolean;
+  decision: FarmerDecision;
+  canDecide: boolean;
+}) {
   const router = useRouter();
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
@@ -64,14 +75,20 @@ export function FarmerReply({ visitId, acknowledged, decision, canDecide }: { vi
 
   return (
     <section aria-labelledby="reply-heading" className="space-y-5 rounded-md border border-rule bg-white p-4 print:hidden">
-      <h2 id="reply-heading" className="text-xl font-bold text-slate">Your answer</h2>
+      <h2 id="reply-heading" className="text-xl font-bold text-slate">
+        Your answer
+      </h2>
       <div className="space-y-2">
         <h3 className="font-bold">1. Reading it</h3>
         {acknowledged ? (
           <p className="font-bold text-moss">You have told us you read this sheet. That is not a yes: say below whether to go ahead.</p>
         ) : (
-          <button type="button" disabled={busy} onClick={() => run(() => post(`/api/visits/${visitId}/sheet/acknowledge`))}
-            className="min-h-12 w-full rounded-md border-2 border-slate px-4 text-lg font-bold text-slate disabled:opacity-60">
+          <button
+            type="button"
+            disabled={busy}
+            onClick={() => run(() => post(`/api/visits/${visitId}/sheet/acknowledge`))}
+            className="min-h-12 w-full rounded-md border-2 border-slate px-4 text-lg font-bold text-slate disabled:opacity-60"
+          >
             I have read this sheet
           </button>
         )}
@@ -84,7 +101,14 @@ export function FarmerReply({ visitId, acknowledged, decision, canDecide }: { vi
             <fieldset className="space-y-2">
               <legend className="sr-only">Go ahead or not now</legend>
               <label className="flex min-h-12 items-center gap-3 rounded-md border-2 border-rule px-3 text-lg">
-                <input type="radio" name="decision" value="go-ahead" checked={choice === 'go-ahead'} onChange={() => setChoice('go-ahead')} className="h-6 w-6" />
+                <input
+                  type="radio"
+                  name="decision"
+                  value="go-ahead"
+                  checked={choice === 'go-ahead'}
+                  onChange={() => setChoice('go-ahead')}
+                  className="h-6 w-6"
+                />
                 Go ahead with the ram
               </label>
               <label className="flex min-h-12 items-center gap-3 rounded-md border-2 border-rule px-3 text-lg">
@@ -94,11 +118,29 @@ export function FarmerReply({ visitId, acknowledged, decision, canDecide }: { vi
             </fieldset>
             {choice && (
               <>
-                <label htmlFor="decision-reason" className="block font-bold">{choice === 'not-now' ? 'Why not now?' : 'Anything to add? (optional)'}</label>
-                <textarea id="decision-reason" rows={2} value={reason} onChange={(e) => { setReason(e.target.value); if (reasonProblem) setReasonProblem(decisionProblem(choice, e.target.value)); }}
-                  className="w-full rounded-md border-2 border-stone bg-paper p-3 text-lg" aria-invalid={!!reasonProblem} aria-describedby="decision-error" />
-                {reasonProblem && <p id="decision-error" className="text-clay">{reasonProblem}</p>}
-                <button type="submit" disabled={busy} className="min-h-12 w-full rounded-md bg-slate px-4 text-lg font-bold text-white disabled:opacity-60">Send my decision</button>
+                <label htmlFor="decision-reason" className="block font-bold">
+                  {choice === 'not-now' ? 'Why not now?' : 'Anything to add? (optional)'}
+                </label>
+                <textarea
+                  id="decision-reason"
+                  rows={2}
+                  value={reason}
+                  onChange={(e) => {
+                    setReason(e.target.value);
+                    if (reasonProblem) setReasonProblem(decisionProblem(choice, e.target.value));
+                  }}
+                  className="w-full rounded-md border-2 border-stone bg-paper p-3 text-lg"
+                  aria-invalid={!!reasonProblem}
+                  aria-describedby="decision-error"
+                />
+                {reasonProblem && (
+                  <p id="decision-error" className="text-clay">
+                    {reasonProblem}
+                  </p>
+                )}
+                <button type="submit" disabled={busy} className="min-h-12 w-full rounded-md bg-slate px-4 text-lg font-bold text-white disabled:opacity-60">
+                  Send my decision
+                </button>
               </>
             )}
           </form>
@@ -107,15 +149,36 @@ export function FarmerReply({ visitId, acknowledged, decision, canDecide }: { vi
         )}
       </div>
       <form onSubmit={ask} noValidate className="space-y-2" aria-label="Ask a question">
-        <label htmlFor="question" className="block font-bold">Ask your advisor a question</label>
-        <textarea id="question" name="text" rows={3} value={text}
-          onChange={(e) => { setText(e.target.value); if (problem) setProblem(questionProblem(e.target.value)); }}
+        <label htmlFor="question" className="block font-bold">
+          Ask your advisor a question
+        </label>
+        <textarea
+          id="question"
+          name="text"
+          rows={3}
+          value={text}
+          onChange={(e) => {
+            setText(e.target.value);
+            if (problem) setProblem(questionProblem(e.target.value));
+          }}
           className="w-full rounded-md border-2 border-stone bg-paper p-3 text-lg"
-          aria-invalid={!!problem} aria-describedby="question-error" />
-        {problem && <p id="question-error" className="text-clay">{problem}</p>}
-        <button type="submit" disabled={busy} className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate">Send question</button>
+          aria-invalid={!!problem}
+          aria-describedby="question-error"
+        />
+        {problem && (
+          <p id="question-error" className="text-clay">
+            {problem}
+          </p>
+        )}
+        <button type="submit" disabled={busy} className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate">
+          Send question
+        </button>
       </form>
-      {error && <p role="alert" className="font-bold text-clay">{error}</p>}
+      {error && (
+        <p role="alert" className="font-bold text-clay">
+          {error}
+        </p>
+      )}
     </section>
   );
 }

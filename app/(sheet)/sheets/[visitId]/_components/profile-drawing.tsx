@@ -18,9 +18,7 @@ export function ProfileDrawing({ g, narrow }: { g: ProfileGeometry; narrow: Prof
       ) : (
         <div dangerouslySetInnerHTML={{ __html: wide }} />
       )}
-      <figcaption className="text-stone">
-        {[g.exaggeration, g.legend].filter(Boolean).join('. ')}
-      </figcaption>
+      <figcaption className="text-stone">{[g.exaggeration, g.legend].filter(Boolean).join('. ')}</figcaption>
     </figure>
   );
 }

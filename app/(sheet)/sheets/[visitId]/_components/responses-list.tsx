@@ -6,10 +6,23 @@ const ROLE_WORD = { farmer: 'farmer', advisor: 'advisor', coordinator: 'office' 
 
 function what(r: SheetResponseView): React.ReactNode {
   switch (r.kind) {
-    case 'acknowledged': return <strong className="text-moss">Has read the sheet.</strong>;
-    case 'go-ahead': return <><strong className="text-moss">Go ahead.</strong>{r.text && ` ${r.text}`}</>;
-    case 'not-now': return <><strong className="text-clay">Not now:</strong> {r.text}</>;
-    default: return r.text;
+    case 'acknowledged':
+      return <strong className="text-moss">Has read the sheet.</strong>;
+    case 'go-ahead':
+      return (
+        <>
+          <strong className="text-moss">Go ahead.</strong>
+          {r.text && ` ${r.text}`}
+        </>
+      );
+    case 'not-now':
+      return (
+        <>
+          <strong className="text-clay">Not now:</strong> {r.text}
+        </>
+      );
+    default:
+      return r.text;
   }
 }
 
@@ -22,7 +35,9 @@ export function ResponsesList({ visitId, responses, canAnswer }: { visitId: stri
   const byId = new Map(responses.map((r) => [r.id, r]));
   return (
     <section id="conversation" aria-labelledby="responses-heading" className="space-y-2 print:hidden">
-      <h2 id="responses-heading" className="text-xl font-bold text-slate">Questions and answers</h2>
+      <h2 id="responses-heading" className="text-xl font-bold text-slate">
+        Questions and answers
+      </h2>
       <ul className="divide-y divide-rule" aria-label="Conversation about this sheet">
         {responses.map((r) => {
           const question = r.replyToId ? byId.get(r.replyToId) : undefined;
@@ -33,7 +48,12 @@ export function ResponsesList({ visitId, responses, canAnswer }: { visitId: stri
                 {r.author.role && ` (${ROLE_WORD[r.author.role]})`}
                 {r.kind === 'question' && (r.answered ? ' · answered' : ' · waiting for an answer')}
               </span>
-              {question && <span className="block text-sm text-stone">In answer to: “{question.text.slice(0, 120)}{question.text.length > 120 ? '…' : ''}”</span>}
+              {question && (
+                <span className="block text-sm text-stone">
+                  In answer to: “{question.text.slice(0, 120)}
+                  {question.text.length > 120 ? '…' : ''}”
+                </span>
+              )}
               <span className="block whitespace-pre-line">{what(r)}</span>
               {canAnswer && r.kind === 'question' && !r.answered && <AnswerForm visitId={visitId} questionId={r.id} />}
             </li>

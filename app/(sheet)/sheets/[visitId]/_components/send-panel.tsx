@@ -7,10 +7,20 @@ import { QueryProvider } from '@/components/query-provider';
 import { formatDateTime } from '@/lib/shared/display/dates';
 import { NOTE_MAX } from '@/lib/shared/sheet/email';
 
-interface SendRow { id: string; to: string; paper: string; status: string; error: string | null; at: string }
+interface SendRow {
+  id: string;
+  to: string;
+  paper: string;
+  status: string;
+  error: string | null;
+  at: string;
+}
 
-
-interface Preview { to: string; subject: string; text: string }
+interface Preview {
+  to: string;
+  subject: string;
+  text: string;
+}
 
 const errorOf = async (res: Response, fallback: string) =>
   ((await res.json().catch(() => null)) as { error?: { message?: string } } | null)?.error?.message ?? fallback;
@@ -23,7 +33,11 @@ async function postSend(visitId: string, to: string | undefined, note: string): 
 }
 
 async function postPreview(visitId: string, note: string): Promise<Preview> {
-  const res = await fetch(`/api/visits/${visitId}/sheet/send/preview`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: bodyOf(undefined, note) });
+  const res = await fetch(`/api/visits/${visitId}/sheet/send/preview`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: bodyOf(undefined, note),
+  });
   if (!res.ok) throw new Error(await errorOf(res, 'The preview could not be made.'));
   return ((await res.json()) as { preview: Preview }).preview;
 }
@@ -51,29 +65,60 @@ export function SendPanel({ visitId, farmerName, farmerEmail }: { visitId: strin
   });
   return (
     <section id="send-sheet" aria-labelledby="send-heading" className="scroll-mt-4 space-y-3 rounded-md border border-rule bg-white p-4 print:hidden">
-      <h2 id="send-heading" className="text-xl font-bold text-slate">Send this sheet</h2>
+      <h2 id="send-heading" className="text-xl font-bold text-slate">
+        Send this sheet
+      </h2>
       {farmerEmail ? (
         <>
-          <label htmlFor="send-note" className="block font-bold">A personal note (optional)</label>
-          <textarea id="send-note" value={note} maxLength={NOTE_MAX} rows={3} aria-describedby="send-note-hint"
-            onChange={(e) => { setNote(e.target.value); preview.reset(); }}
-            className="w-full rounded-md border-2 border-stone p-2 text-lg" />
-          <p id="send-note-hint" className="text-base text-stone">Goes at the top of the e-mail, after the greeting.</p>
+          <label htmlFor="send-note" className="block font-bold">
+            A personal note (optional)
+          </label>
+          <textarea
+            id="send-note"
+            value={note}
+            maxLength={NOTE_MAX}
+            rows={3}
+            aria-describedby="send-note-hint"
+            onChange={(e) => {
+              setNote(e.target.value);
+              preview.reset();
+            }}
+            className="w-full rounded-md border-2 border-stone p-2 text-lg"
+          />
+          <p id="send-note-hint" className="text-base text-stone">
+            Goes at the top of the e-mail, after the greeting.
+          </p>
           <div className="flex flex-wrap gap-3">
-            <button type="button" disabled={preview.isPending} onClick={() => preview.mutate()}
-              className="min-h-12 w-full rounded-md border-2 border-slate px-4 font-bold text-slate disabled:opacity-60 sm:w-auto">
+            <button
+              type="button"
+              disabled={preview.isPending}
+              onClick={() => preview.mutate()}
+              className="min-h-12 w-full rounded-md border-2 border-slate px-4 font-bold text-slate disabled:opacity-60 sm:w-auto"
+            >
               {preview.isPending ? 'Making the preview…' : 'Preview the e-mail'}
             </button>
-            <button type="button" disabled={send.isPending} onClick={() => send.mutate(undefined)}
-              className="min-h-12 w-full rounded-md bg-slate px-4 text-lg font-bold text-white disabled:opacity-60 sm:w-auto">
+            <button
+              type="button"
+              disabled={send.isPending}
+              onClick={() => send.mutate(undefined)}
+              className="min-h-12 w-full rounded-md bg-slate px-4 text-lg font-bold text-white disabled:opacity-60 sm:w-auto"
+            >
               {send.isPending ? 'Sending…' : `Send to ${farmerName ?? 'the farmer'} (${farmerEmail})`}
             </button>
           </div>
-          {preview.isError && <p role="alert" className="font-bold text-clay">{preview.error.message}</p>}
+          {preview.isError && (
+            <p role="alert" className="font-bold text-clay">
+              {preview.error.message}
+            </p>
+          )}
           {preview.data && (
             <div role="region" aria-label="E-mail preview" className="space-y-1 rounded-md border border-rule bg-paper p-3">
-              <p><span className="text-stone">To:</span> {preview.data.to}</p>
-              <p><span className="text-stone">Subject:</span> {preview.data.subject}</p>
+              <p>
+                <span className="text-stone">To:</span> {preview.data.to}
+              </p>
+              <p>
+                <span className="text-stone">Subject:</span> {preview.data.subject}
+              </p>
               <p className="whitespace-pre-wrap break-words border-t border-rule pt-2 text-base">{preview.data.text}</p>
               <p className="text-base text-stone">The sheet goes with it as a PDF.</p>
             </div>
@@ -82,7 +127,11 @@ export function SendPanel({ visitId, farmerName, farmerEmail }: { visitId: strin
       ) : (
         <p>This farm has no farmer account yet; invite the farmer from the office first.</p>
       )}
-      {send.isError && <p role="alert" className="font-bold text-clay">{send.error.message}</p>}
+      {send.isError && (
+        <p role="alert" className="font-bold text-clay">
+          {send.error.message}
+        </p>
+      )}
       <h3 className="font-bold">Sent so far</h3>
       {sends.isLoading && <p className="text-stone">Loading…</p>}
       {sends.data?.length === 0 && <p className="text-stone">Not sent yet.</p>}
@@ -90,13 +139,19 @@ export function SendPanel({ visitId, farmerName, farmerEmail }: { visitId: strin
         {sends.data?.map((s) => (
           <li key={s.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
             <span>
-              <strong className={s.status === 'sent' ? 'text-moss' : 'text-clay'}>{s.status === 'sent' ? 'Sent' : 'Not sent'}</strong>{' '}
-              to {s.to} · <span className="figure">{formatDateTime(s.at)}</span> · {s.paper.toUpperCase()}
+              <strong className={s.status === 'sent' ? 'text-moss' : 'text-clay'}>{s.status === 'sent' ? 'Sent' : 'Not sent'}</strong> to {s.to} ·{' '}
+              <span className="figure">{formatDateTime(s.at)}</span> · {s.paper.toUpperCase()}
               {s.error && <span className="block text-clay">{s.error}</span>}
             </span>
             {s.status === 'failed' && (
-              <button type="button" onClick={() => send.mutate(s.to)} disabled={send.isPending}
-                className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate">Retry</button>
+              <button
+                type="button"
+                onClick={() => send.mutate(s.to)}
+                disabled={send.isPending}
+                className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate"
+              >
+                Retry
+              </button>
             )}
           </li>
         ))}

@@ -20,7 +20,9 @@ export function SheetBody({ v }: { v: SheetView }) {
         <p className="text-stone">Site sheet for a hydraulic ram pump</p>
         <h1 className="text-3xl font-bold text-slate">{v.farmName}</h1>
         <p className="text-stone">{[v.area, v.ownerName ? `for ${v.ownerName}` : ''].filter(Boolean).join(' · ')}</p>
-        <p className="text-2xl" data-testid="verdict"><VerdictMark verdict={v.verdict} size={32} /></p>
+        <p className="text-2xl" data-testid="verdict">
+          <VerdictMark verdict={v.verdict} size={32} />
+        </p>
         <p className="text-xl leading-relaxed">{v.summary.join(' ')}</p>
       </header>
       <Section title="Key figures">
@@ -36,28 +38,60 @@ export function SheetBody({ v }: { v: SheetView }) {
           ))}
         </dl>
       </Section>
-      {v.profile && <Section title="The water path, from intake to tank"><ProfileDrawing g={v.profile} narrow={v.profileNarrow} /></Section>}
-      {v.map && <Section title="Where the points are"><SiteMapDrawing g={v.map} /></Section>}
+      {v.profile && (
+        <Section title="The water path, from intake to tank">
+          <ProfileDrawing g={v.profile} narrow={v.profileNarrow} />
+        </Section>
+      )}
+      {v.map && (
+        <Section title="Where the points are">
+          <SiteMapDrawing g={v.map} />
+        </Section>
+      )}
       <Section title={v.verdict === 'no-go' ? 'Why not' : v.verdict === 'gravity' ? 'What to check' : 'Conditions for a go'}>
         {v.conditions.length === 0 && v.verdict !== 'no-go' && <p>No extra conditions: follow the cautions below.</p>}
         <ul className="list-disc space-y-2 pl-6">
-          {[...v.conditions, ...v.reasons].map((text) => <li key={text}>{text}</li>)}
+          {[...v.conditions, ...v.reasons].map((text) => (
+            <li key={text}>{text}</li>
+          ))}
         </ul>
       </Section>
       <Section title="Bill of materials">
         {/* Five columns that fit a 412 px phone: small type, words allowed to break, the note under the item. */}
         <table className="w-full table-fixed border-collapse text-left text-sm sm:text-base" data-testid="bill-table">
-          <colgroup><col className="w-[30%]" /><col className="w-[17%]" /><col className="w-[14%]" /><col className="w-[23%]" /><col className="w-[16%]" /></colgroup>
+          <colgroup>
+            <col className="w-[30%]" />
+            <col className="w-[17%]" />
+            <col className="w-[14%]" />
+            <col className="w-[23%]" />
+            <col className="w-[16%]" />
+          </colgroup>
           <thead>
             <tr className="border-b-2 border-ink">
-              <th scope="col" className="py-2 pr-2">Item</th><th scope="col" className="py-2 pr-2">Size</th><th scope="col" className="py-2 pr-2">Quantity</th>
-              <th scope="col" className="py-2 pr-2">Basis</th><th scope="col" className="py-2 text-right">Price</th>
+              <th scope="col" className="py-2 pr-2">
+                Item
+              </th>
+              <th scope="col" className="py-2 pr-2">
+                Size
+              </th>
+              <th scope="col" className="py-2 pr-2">
+                Quantity
+              </th>
+              <th scope="col" className="py-2 pr-2">
+                Basis
+              </th>
+              <th scope="col" className="py-2 text-right">
+                Price
+              </th>
             </tr>
           </thead>
           <tbody>
             {v.billOfMaterials.map((b) => (
               <tr key={b.item} className="border-b border-rule align-top">
-                <td className="break-words py-2 pr-2"><span className="block">{b.item}</span><span className="block text-xs text-stone sm:text-sm">{b.note}</span></td>
+                <td className="break-words py-2 pr-2">
+                  <span className="block">{b.item}</span>
+                  <span className="block text-xs text-stone sm:text-sm">{b.note}</span>
+                </td>
                 <td className="figure break-words py-2 pr-2">{b.size}</td>
                 <td className="figure break-words py-2 pr-2">{b.quantity}</td>
                 <td className="break-words py-2 pr-2 text-stone">{b.basis}</td>
@@ -66,7 +100,9 @@ export function SheetBody({ v }: { v: SheetView }) {
             ))}
             {v.costs?.extras.map((e) => (
               <tr key={e.item} className="border-b border-rule align-top">
-                <td className="break-words py-2 pr-2" colSpan={3}>{e.item}</td>
+                <td className="break-words py-2 pr-2" colSpan={3}>
+                  {e.item}
+                </td>
                 <td className="break-words py-2 pr-2 text-stone">{e.basis}</td>
                 <td className="figure py-2 text-right">{e.price}</td>
               </tr>
@@ -74,7 +110,14 @@ export function SheetBody({ v }: { v: SheetView }) {
           </tbody>
           {v.costs && (
             <tfoot>
-              <tr className="border-t-2 border-ink font-bold"><th scope="row" colSpan={4} className="py-2 pr-2">Total</th><td className="figure py-2 text-right" data-testid="bill-total">{v.costs.total}</td></tr>
+              <tr className="border-t-2 border-ink font-bold">
+                <th scope="row" colSpan={4} className="py-2 pr-2">
+                  Total
+                </th>
+                <td className="figure py-2 text-right" data-testid="bill-total">
+                  {v.costs.total}
+                </td>
+              </tr>
             </tfoot>
           )}
         </table>
@@ -82,40 +125,80 @@ export function SheetBody({ v }: { v: SheetView }) {
       {v.costs?.comparison && (
         <Section title="Ten years: a ram, a solar pump or a petrol pump">
           <table className="w-full table-fixed border-collapse text-left text-sm sm:text-base" data-testid="ten-year-table">
-            <colgroup><col className="w-[28%]" /><col className="w-[18%]" /><col className="w-[18%]" /><col className="w-[18%]" /><col className="w-[18%]" /></colgroup>
+            <colgroup>
+              <col className="w-[28%]" />
+              <col className="w-[18%]" />
+              <col className="w-[18%]" />
+              <col className="w-[18%]" />
+              <col className="w-[18%]" />
+            </colgroup>
             <thead>
               <tr className="border-b-2 border-ink">
-                <th scope="col" className="py-2 pr-2">Option</th><th scope="col" className="py-2 pr-2 text-right">To buy and fit</th>
-                <th scope="col" className="py-2 pr-2 text-right">Bought again</th><th scope="col" className="py-2 pr-2 text-right">Upkeep and fuel</th><th scope="col" className="py-2 text-right">Ten years</th>
+                <th scope="col" className="py-2 pr-2">
+                  Option
+                </th>
+                <th scope="col" className="py-2 pr-2 text-right">
+                  To buy and fit
+                </th>
+                <th scope="col" className="py-2 pr-2 text-right">
+                  Bought again
+                </th>
+                <th scope="col" className="py-2 pr-2 text-right">
+                  Upkeep and fuel
+                </th>
+                <th scope="col" className="py-2 text-right">
+                  Ten years
+                </th>
               </tr>
             </thead>
             <tbody>
               {v.costs.comparison.map((o) => (
                 <tr key={o.option} className="border-b border-rule align-top">
-                  <th scope="row" className="break-words py-2 pr-2 font-normal">{o.option}</th>
-                  <td className="figure py-2 pr-2 text-right">{o.capital}</td><td className="figure py-2 pr-2 text-right">{o.replacements}</td>
-                  <td className="figure py-2 pr-2 text-right">{o.running}</td><td className="figure py-2 text-right font-bold">{o.total}</td>
+                  <th scope="row" className="break-words py-2 pr-2 font-normal">
+                    {o.option}
+                  </th>
+                  <td className="figure py-2 pr-2 text-right">{o.capital}</td>
+                  <td className="figure py-2 pr-2 text-right">{o.replacements}</td>
+                  <td className="figure py-2 pr-2 text-right">{o.running}</td>
+                  <td className="figure py-2 text-right font-bold">{o.total}</td>
                 </tr>
               ))}
             </tbody>
           </table>
           <h3 className="font-bold">What these figures assume</h3>
-          <ul className="list-disc space-y-1 pl-6 text-base">{v.costs.assumptions.map((a) => <li key={a}>{a}</li>)}</ul>
+          <ul className="list-disc space-y-1 pl-6 text-base">
+            {v.costs.assumptions.map((a) => (
+              <li key={a}>{a}</li>
+            ))}
+          </ul>
         </Section>
       )}
       {v.costs && !v.costs.comparison && <p className="text-base text-stone">{v.costs.assumptions[0]}</p>}
       <Section title="Cautions">
         {v.cautions.map((c) => (
-          <div key={c.code}><h3 className="font-bold">{c.title}</h3><p>{c.text}</p></div>
+          <div key={c.code}>
+            <h3 className="font-bold">{c.title}</h3>
+            <p>{c.text}</p>
+          </div>
         ))}
         <p className="font-bold">Local codes and licensed practice come first: have a qualified person check the design before you buy or build.</p>
       </Section>
       <Section title="How we worked this out">
         <p>{v.surveyed}</p>
-        <ul className="space-y-1 text-base">{v.method.map((m) => <li key={m}>{m}</li>)}</ul>
+        <ul className="space-y-1 text-base">
+          {v.method.map((m) => (
+            <li key={m}>{m}</li>
+          ))}
+        </ul>
         <h3 className="font-bold">Where the numbers come from</h3>
-        <ul className="space-y-1 text-base text-stone">{v.sources.map((s) => <li key={s.id}>{s.citation}</li>)}</ul>
-        <p className="text-base text-stone">Screening engine version <span className="figure">{v.engineVersion}</span>.</p>
+        <ul className="space-y-1 text-base text-stone">
+          {v.sources.map((s) => (
+            <li key={s.id}>{s.citation}</li>
+          ))}
+        </ul>
+        <p className="text-base text-stone">
+          Screening engine version <span className="figure">{v.engineVersion}</span>.
+        </p>
       </Section>
     </article>
   );

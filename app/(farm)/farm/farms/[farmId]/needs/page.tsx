@@ -25,11 +25,12 @@ export default async function FarmNeedsPage({ params }: { params: Promise<{ farm
   const garden = us ? Math.round(m2ToFt2(needs.gardenM2)) : needs.gardenM2;
   return (
     <div className="max-w-xl space-y-6">
-      <p><Link href="/farm">← My farm</Link></p>
+      <p>
+        <Link href="/farm">← My farm</Link>
+      </p>
       <h1 className="text-3xl font-bold text-slate">Water needs: {needs.farmName}</h1>
       <p className="text-lg">
-        Tell us who and what needs water every day. Your advisor starts from these numbers when they
-        visit, and can change them with you.
+        Tell us who and what needs water every day. Your advisor starts from these numbers when they visit, and can change them with you.
       </p>
       <NeedsForm
         farmId={farmId}

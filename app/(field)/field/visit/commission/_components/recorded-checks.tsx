@@ -40,21 +40,37 @@ export function RecordedChecks({ visitId, units }: { visitId: string; units: Uni
   if (!rows?.length) return null;
   return (
     <section aria-labelledby="recorded" className="space-y-3">
-      <h2 id="recorded" className="text-xl font-bold">Recorded on this phone</h2>
+      <h2 id="recorded" className="text-xl font-bold">
+        Recorded on this phone
+      </h2>
       <ol className="space-y-3">
         {rows.map(({ r, sending }) => {
           const check = localCheck(r);
           return (
             <li key={r.id} className="rounded-md border-2 border-slate bg-white p-4" data-testid="recorded-check">
               <p className="flex flex-wrap items-center gap-2">
-                <span data-testid="send-state" className={`rounded-full border-2 px-3 py-1 font-bold ${sending.state === 'sent' ? 'border-slate text-slate' : sending.state === 'refused' ? 'border-clay text-clay' : 'border-stone text-ink'}`}>
-                  {sending.state === 'sent' ? '✓ ' : sending.state === 'refused' ? '✕ ' : '… '}{LABEL[sending.state]}
+                <span
+                  data-testid="send-state"
+                  className={`rounded-full border-2 px-3 py-1 font-bold ${sending.state === 'sent' ? 'border-slate text-slate' : sending.state === 'refused' ? 'border-clay text-clay' : 'border-stone text-ink'}`}
+                >
+                  {sending.state === 'sent' ? '✓ ' : sending.state === 'refused' ? '✕ ' : '… '}
+                  {LABEL[sending.state]}
                 </span>
                 <span className="text-stone">{formatDateTime(r.updatedAt)}</span>
               </p>
-              {sending.state === 'refused' && <p className="font-bold text-clay">{sending.message} On the sync page: send it again once the reason is fixed, or give it up.</p>}
-              {check ? <CheckSummary check={check} units={units} /> : <p>The fall is the screening&rsquo;s: the server works the efficiencies out when it arrives.</p>}
-              <p className="text-sm text-stone">{sending.state === 'sent' ? 'On the server: compared there with the screening\u2019s prediction; the visit is commissioned.' : 'Worked out on this phone; compared with the screening\u2019s prediction once it reaches the server.'}</p>
+              {sending.state === 'refused' && (
+                <p className="font-bold text-clay">{sending.message} On the sync page: send it again once the reason is fixed, or give it up.</p>
+              )}
+              {check ? (
+                <CheckSummary check={check} units={units} />
+              ) : (
+                <p>The fall is the screening&rsquo;s: the server works the efficiencies out when it arrives.</p>
+              )}
+              <p className="text-sm text-stone">
+                {sending.state === 'sent'
+                  ? 'On the server: compared there with the screening\u2019s prediction; the visit is commissioned.'
+                  : 'Worked out on this phone; compared with the screening\u2019s prediction once it reaches the server.'}
+              </p>
             </li>
           );
         })}

@@ -7,10 +7,23 @@ import { NumberField } from '../../../_components/number-field';
 
 export type Row = Record<string, number | undefined>;
 
-export interface Column { key: string; label: string; quantity: QuantityKind; signed?: boolean }
+export interface Column {
+  key: string;
+  label: string;
+  quantity: QuantityKind;
+  signed?: boolean;
+}
 
 /** A list of readings rows (level set-ups, hose steps, clinometer legs) with add and remove. */
-export function RowEditor({ title, rows, columns, units, onChange, addLabel, issueAt }: {
+export function RowEditor({
+  title,
+  rows,
+  columns,
+  units,
+  onChange,
+  addLabel,
+  issueAt,
+}: {
   title: (index: number, count: number) => string;
   rows: Row[];
   columns: (index: number, count: number) => Column[];
@@ -27,19 +40,33 @@ export function RowEditor({ title, rows, columns, units, onChange, addLabel, iss
           <legend className="px-1 font-bold">{title(i, rows.length)}</legend>
           <div className="grid gap-3 sm:grid-cols-2">
             {columns(i, rows.length).map((c) => (
-              <NumberField key={c.key} label={c.label} quantity={c.quantity} units={units} signed={c.signed} value={row[c.key]}
-                onChange={(v) => onChange(rows.map((r, j) => (j === i ? { ...r, [c.key]: v } : r)))}>
+              <NumberField
+                key={c.key}
+                label={c.label}
+                quantity={c.quantity}
+                units={units}
+                signed={c.signed}
+                value={row[c.key]}
+                onChange={(v) => onChange(rows.map((r, j) => (j === i ? { ...r, [c.key]: v } : r)))}
+              >
                 {issueAt?.(i, c.key)}
               </NumberField>
             ))}
           </div>
           {rows.length > 1 && (
-            <button type="button" className="mt-2 min-h-12 rounded-md border-2 border-stone px-3 font-bold"
-              onClick={() => onChange(rows.filter((_, j) => j !== i))}>Remove</button>
+            <button
+              type="button"
+              className="mt-2 min-h-12 rounded-md border-2 border-stone px-3 font-bold"
+              onClick={() => onChange(rows.filter((_, j) => j !== i))}
+            >
+              Remove
+            </button>
           )}
         </fieldset>
       ))}
-      <button type="button" onClick={() => onChange([...rows, {}])} className="min-h-12 w-full rounded-md border-2 border-slate font-bold text-slate">{addLabel}</button>
+      <button type="button" onClick={() => onChange([...rows, {}])} className="min-h-12 w-full rounded-md border-2 border-slate font-bold text-slate">
+        {addLabel}
+      </button>
     </div>
   );
 }

@@ -33,7 +33,9 @@ export function buildRun(method: RunMethod, rows: Row[], single: Row, liftMethod
   }
   if (method === 'gps') {
     const { startAltitudeM, endAltitudeM, horizontalAccuracyM } = single;
-    return startAltitudeM !== undefined && endAltitudeM !== undefined && horizontalAccuracyM ? { method, startAltitudeM, endAltitudeM, horizontalAccuracyM } : null;
+    return startAltitudeM !== undefined && endAltitudeM !== undefined && horizontalAccuracyM
+      ? { method, startAltitudeM, endAltitudeM, horizontalAccuracyM }
+      : null;
   }
   if (method === 'barometric') {
     const { startPressureHPa, endPressureHPa } = single;
@@ -42,7 +44,12 @@ export function buildRun(method: RunMethod, rows: Row[], single: Row, liftMethod
   return single.staticLiftM ? { method: 'direct', staticLiftM: single.staticLiftM, liftMethod } : null;
 }
 
-export interface LiveResult { dropM: number | null; levelsM: number[]; checkOk: boolean | null; message: string | null }
+export interface LiveResult {
+  dropM: number | null;
+  levelsM: number[];
+  checkOk: boolean | null;
+  message: string | null;
+}
 
 /** The drop along the run so far (positive downhill), reduced levels and the booking check. */
 export function liveResult(run: Run | null): LiveResult {
@@ -62,9 +69,19 @@ export function liveResult(run: Run | null): LiveResult {
         return { dropM: clinometerFallM(run.legs), levelsM: levels, checkOk: null, message: null };
       }
       case 'gps':
-        return { dropM: altitudeFallM(run.startAltitudeM, run.endAltitudeM), levelsM: [], checkOk: null, message: 'Rough: GPS heights can be off by several metres.' };
+        return {
+          dropM: altitudeFallM(run.startAltitudeM, run.endAltitudeM),
+          levelsM: [],
+          checkOk: null,
+          message: 'Rough: GPS heights can be off by several metres.',
+        };
       case 'barometric':
-        return { dropM: barometricFallM(run.startPressureHPa, run.endPressureHPa, run.airTemperatureC), levelsM: [], checkOk: null, message: 'Rough: weather moves the barometer by metres of height.' };
+        return {
+          dropM: barometricFallM(run.startPressureHPa, run.endPressureHPa, run.airTemperatureC),
+          levelsM: [],
+          checkOk: null,
+          message: 'Rough: weather moves the barometer by metres of height.',
+        };
       default:
         return { dropM: null, levelsM: [], checkOk: null, message: null };
     }

@@ -18,14 +18,25 @@ import { TrialList } from './trial-list';
 type Method = 'volumetric' | 'v-notch' | 'float';
 type Season = 'dry' | 'wet' | 'unknown';
 
-const METHODS = [{ value: 'volumetric', label: 'Bucket' }, { value: 'v-notch', label: 'V-notch weir' }, { value: 'float', label: 'Float' }] as const;
-const SEASONS = [{ value: 'dry', label: 'Dry season' }, { value: 'wet', label: 'Wet season' }, { value: 'unknown', label: 'Not sure' }] as const;
+const METHODS = [
+  { value: 'volumetric', label: 'Bucket' },
+  { value: 'v-notch', label: 'V-notch weir' },
+  { value: 'float', label: 'Float' },
+] as const;
+const SEASONS = [
+  { value: 'dry', label: 'Dry season' },
+  { value: 'wet', label: 'Wet season' },
+  { value: 'unknown', label: 'Not sure' },
+] as const;
 
 /** What the shared schema says of one trial before it is added (in the advisor's units), or null. */
 function trialProblem(candidate: FlowMeasurement, key: string, units: UnitSystem): string | null {
   const parsed = flowMeasurementSchema.safeParse(candidate);
   if (parsed.success) return null;
-  const messages = messagesByPath(parsed.error.issues.filter((i) => i.path[0] === 'trials' && i.path[2] === key), units);
+  const messages = messagesByPath(
+    parsed.error.issues.filter((i) => i.path[0] === 'trials' && i.path[2] === key),
+    units,
+  );
   return Object.values(messages)[0] ?? null;
 }
 
@@ -69,7 +80,8 @@ export function FlowForm({ visitId, sourceId, units }: { visitId: string; source
   function measurement(): FlowMeasurement | null {
     if (method === 'volumetric' && bucketL && seconds.length) return { method, season, trials: seconds.map((s) => ({ volumeL: bucketL, seconds: s })) };
     if (method === 'v-notch' && heads.length) return { method, season, notchAngleDeg: 90, trials: heads.map((headM) => ({ headM })) };
-    if (method === 'float' && distanceM && areaM2 && seconds.length) return { method, season, areaM2, coefficient: 0.85, trials: seconds.map((s) => ({ distanceM, seconds: s })) };
+    if (method === 'float' && distanceM && areaM2 && seconds.length)
+      return { method, season, areaM2, coefficient: 0.85, trials: seconds.map((s) => ({ distanceM, seconds: s })) };
     return null;
   }
 
@@ -77,9 +89,13 @@ export function FlowForm({ visitId, sourceId, units }: { visitId: string; source
     setMessage(null);
     const m = measurement();
     if (!m) {
-      setMessage(method === 'v-notch' ? 'Add at least one head reading first.' : method === 'float'
-        ? 'Fill in the run length and the cross-section, then time at least one float.'
-        : 'Add at least one trial first: tap start when the bucket goes under, stop when it is full.');
+      setMessage(
+        method === 'v-notch'
+          ? 'Add at least one head reading first.'
+          : method === 'float'
+            ? 'Fill in the run length and the cross-section, then time at least one float.'
+            : 'Add at least one trial first: tap start when the bucket goes under, stop when it is full.',
+      );
       return;
     }
     const saved = await saveChecked(newId(), { visitId, sourceId, takenAt: new Date().toISOString(), notes: '', measurement: m });
@@ -100,9 +116,9 @@ export function FlowForm({ visitId, sourceId, units }: { visitId: string; source
       return;
     }
     const trial = method === 'float' ? { distanceM: 1, seconds: s } : { volumeL: 1, seconds: s };
-    const candidate = (method === 'float'
-      ? { method, season, areaM2: 1, coefficient: 0.85, trials: [trial] }
-      : { method: 'volumetric', season, trials: [trial] }) as FlowMeasurement;
+    const candidate = (
+      method === 'float' ? { method, season, areaM2: 1, coefficient: 0.85, trials: [trial] } : { method: 'volumetric', season, trials: [trial] }
+    ) as FlowMeasurement;
     const problem = trialProblem(candidate, 'seconds', units);
     setAddProblem(problem);
     if (!problem) setSeconds((list) => [...list, s]);
@@ -123,7 +139,18 @@ export function FlowForm({ visitId, sourceId, units }: { visitId: string; source
 
   return (
     <div className="space-y-4">
-      <Choice label="Method" options={METHODS} value={method} onChange={(m) => { setMethod(m); setSeconds([]); setHeads([]); check.clear(); setAddProblem(null); }} />
+      <Choice
+        label="Method"
+        options={METHODS}
+        value={method}
+        onChange={(m) => {
+          setMethod(m);
+          setSeconds([]);
+          setHeads([]);
+          check.clear();
+          setAddProblem(null);
+        }}
+      />
       <Choice label="Season of this reading" options={SEASONS} value={season} onChange={setSeason} />
       {method === 'volumetric' && (
         <>
@@ -132,21 +159,49 @@ export function FlowForm({ visitId, sourceId, units }: { visitId: string; source
           </NumberField>
           <Stopwatch onLap={(s) => addSeconds(s)} />
           <NumberField label="Or type the seconds" quantity="time" units={units} value={typedSeconds} onChange={setTypedSeconds}>
-            {addProblem && <p role="alert" className="mt-1 font-bold text-clay">{addProblem}</p>}
+            {addProblem && (
+              <p role="alert" className="mt-1 font-bold text-clay">
+                {addProblem}
+              </p>
+            )}
           </NumberField>
-          <button type="button" onClick={() => { addSeconds(typedSeconds); setTypedSeconds(undefined); }} className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate">Add typed trial</button>
+          <button
+            type="button"
+            onClick={() => {
+              addSeconds(typedSeconds);
+              setTypedSeconds(undefined);
+            }}
+            className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate"
+          >
+            Add typed trial
+          </button>
           <TrialList items={seconds.map((s) => `${s.toFixed(1)} s`)} onRemove={(i) => setSeconds((l) => l.filter((_, j) => j !== i))} issueAt={trialIssue} />
         </>
       )}
       {method === 'v-notch' && (
         <>
-          <NumberField label="Head over the notch (90°)" quantity="length" units={units} value={typedHead} onChange={setTypedHead}
-            hint="Read the head at least four head-heights upstream of the notch.">
-            {addProblem && <p role="alert" className="mt-1 font-bold text-clay">{addProblem}</p>}
+          <NumberField
+            label="Head over the notch (90°)"
+            quantity="length"
+            units={units}
+            value={typedHead}
+            onChange={setTypedHead}
+            hint="Read the head at least four head-heights upstream of the notch."
+          >
+            {addProblem && (
+              <p role="alert" className="mt-1 font-bold text-clay">
+                {addProblem}
+              </p>
+            )}
           </NumberField>
-          <button type="button" onClick={() => addHead(typedHead)}
-            className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate">Add head reading</button>
-          <TrialList items={heads.map((h) => showQuantity(h, 'length', units))} onRemove={(i) => setHeads((l) => l.filter((_, j) => j !== i))} issueAt={trialIssue} />
+          <button type="button" onClick={() => addHead(typedHead)} className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate">
+            Add head reading
+          </button>
+          <TrialList
+            items={heads.map((h) => showQuantity(h, 'length', units))}
+            onRemove={(i) => setHeads((l) => l.filter((_, j) => j !== i))}
+            issueAt={trialIssue}
+          />
         </>
       )}
       {method === 'float' && (
@@ -158,16 +213,28 @@ export function FlowForm({ visitId, sourceId, units }: { visitId: string; source
             <FieldIssue check={check} path="measurement.areaM2" />
           </NumberField>
           <Stopwatch onLap={(s) => addSeconds(s)} />
-          {addProblem && <p role="alert" className="font-bold text-clay">{addProblem}</p>}
+          {addProblem && (
+            <p role="alert" className="font-bold text-clay">
+              {addProblem}
+            </p>
+          )}
           <TrialList items={seconds.map((s) => `${s.toFixed(1)} s`)} onRemove={(i) => setSeconds((l) => l.filter((_, j) => j !== i))} issueAt={trialIssue} />
         </>
       )}
       <div className="rounded-md border-2 border-creek bg-white p-3" aria-live="polite" data-testid="flow-live">
-        <p className="font-bold">Mean flow: <span className="figure">{stats ? showQuantity(stats.mean, 'flowLps', units) : '—'}</span></p>
-        <p className="text-stone">Spread (sd): <span className="figure">{stats ? showQuantity(stats.sd, 'flowLps', units) : '—'}</span> · {count} trial{count === 1 ? '' : 's'}</p>
+        <p className="font-bold">
+          Mean flow: <span className="figure">{stats ? showQuantity(stats.mean, 'flowLps', units) : '—'}</span>
+        </p>
+        <p className="text-stone">
+          Spread (sd): <span className="figure">{stats ? showQuantity(stats.sd, 'flowLps', units) : '—'}</span> · {count} trial{count === 1 ? '' : 's'}
+        </p>
       </div>
       <FieldIssue check={check} path="measurement.trials" />
-      {message && <p role="status" className="font-bold">{message}</p>}
+      {message && (
+        <p role="status" className="font-bold">
+          {message}
+        </p>
+      )}
       <PrimaryButton onClick={save}>Save flow measurement</PrimaryButton>
     </div>
   );

@@ -35,9 +35,10 @@ export function Stopwatch({ onLap }: { onLap: (seconds: number) => void }) {
   }
   return (
     <div className="rounded-md border-2 border-rule bg-white p-3 text-center">
-      <p className="figure text-5xl" aria-live="off">{elapsed.toFixed(1)} s</p>
-      <button type="button" onClick={press}
-        className={`mt-3 min-h-20 w-full rounded-md text-2xl font-bold text-white ${running ? 'bg-clay' : 'bg-moss'}`}>
+      <p className="figure text-5xl" aria-live="off">
+        {elapsed.toFixed(1)} s
+      </p>
+      <button type="button" onClick={press} className={`mt-3 min-h-20 w-full rounded-md text-2xl font-bold text-white ${running ? 'bg-clay' : 'bg-moss'}`}>
         {running ? 'Stop — bucket full' : 'Start — bucket under'}
       </button>
     </div>

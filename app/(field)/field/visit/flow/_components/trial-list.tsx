@@ -10,9 +10,17 @@ export function TrialList({ items, onRemove, issueAt }: { items: string[]; onRem
       {items.map((text, i) => (
         <li key={`${i}-${text}`} className="px-3 py-2">
           <div className="flex items-center justify-between">
-            <span className="figure text-lg">{i + 1}. {text}</span>
-            <button type="button" onClick={() => onRemove(i)} aria-label={`Remove trial ${i + 1}`}
-              className="min-h-12 min-w-12 rounded-md border-2 border-stone font-bold">✕</button>
+            <span className="figure text-lg">
+              {i + 1}. {text}
+            </span>
+            <button
+              type="button"
+              onClick={() => onRemove(i)}
+              aria-label={`Remove trial ${i + 1}`}
+              className="min-h-12 min-w-12 rounded-md border-2 border-stone font-bold"
+            >
+              ✕
+            </button>
           </div>
           {issueAt?.(i)}
         </li>

@@ -16,7 +16,10 @@ import type { MapPoint } from './point-map';
 const PointMap = dynamic(() => import('./point-map'), { ssr: false, loading: () => <p className="text-stone">Loading the map…</p> });
 
 const ROLES = [
-  { value: 'intake', label: 'Intake' }, { value: 'pump', label: 'Pump site' }, { value: 'tank', label: 'Tank' }, { value: 'station', label: 'Station' },
+  { value: 'intake', label: 'Intake' },
+  { value: 'pump', label: 'Pump site' },
+  { value: 'tank', label: 'Tank' },
+  { value: 'station', label: 'Station' },
 ] as const;
 
 export function PointForm({ visitId, units, points }: { visitId: string; units: UnitSystem; points: MapPoint[] }) {
@@ -32,7 +35,13 @@ export function PointForm({ visitId, units, points }: { visitId: string; units: 
 
   useEffect(() => {
     if (!watching) return;
-    return watchFix((f) => setFix(f), (m) => { setMessage(m); setWatching(false); });
+    return watchFix(
+      (f) => setFix(f),
+      (m) => {
+        setMessage(m);
+        setWatching(false);
+      },
+    );
   }, [watching]);
 
   const typed = lat !== undefined || lon !== undefined || label !== '';
@@ -56,15 +65,26 @@ export function PointForm({ visitId, units, points }: { visitId: string; units: 
     setMessage(null);
     const fromFix = fix && fix.lat === lat && fix.lon === lon;
     const saved = await saveChecked(newId(), {
-      visitId, role: role as PointRole, label: label.trim(), lat, lon,
-      accuracyM: fromFix ? fix.accuracyM : null, altitudeM: altitudeM ?? null,
-      altitudeAccuracyM: fromFix ? fix.altitudeAccuracyM : null, chainageM: null, capturedAt: new Date().toISOString(),
+      visitId,
+      role: role as PointRole,
+      label: label.trim(),
+      lat,
+      lon,
+      accuracyM: fromFix ? fix.accuracyM : null,
+      altitudeM: altitudeM ?? null,
+      altitudeAccuracyM: fromFix ? fix.altitudeAccuracyM : null,
+      chainageM: null,
+      capturedAt: new Date().toISOString(),
     });
     if (!saved) {
       setMessage('Not saved yet: see the note at the field above.');
       return;
     }
-    setLat(undefined); setLon(undefined); setAltitudeM(undefined); setLabel(''); setFix(null);
+    setLat(undefined);
+    setLon(undefined);
+    setAltitudeM(undefined);
+    setLabel('');
+    setFix(null);
     setMessage('Point saved on this phone.');
     announceSave();
   }
@@ -73,27 +93,73 @@ export function PointForm({ visitId, units, points }: { visitId: string; units: 
     <div className="space-y-4">
       <Choice label="This point is the" options={ROLES} value={role} onChange={setRole} />
       <div>
-        <label htmlFor="point-label" className="block font-bold">Name (optional)</label>
-        <input id="point-label" value={label} onChange={(e) => setLabel(e.target.value)} className="mt-1 min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-xl" />
+        <label htmlFor="point-label" className="block font-bold">
+          Name (optional)
+        </label>
+        <input
+          id="point-label"
+          value={label}
+          onChange={(e) => setLabel(e.target.value)}
+          className="mt-1 min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-xl"
+        />
       </div>
       <div className="rounded-md border-2 border-rule bg-white p-3" aria-live="polite">
-        {!watching && <button type="button" onClick={() => { setFix(null); setWatching(true); setMessage(null); }} className="min-h-14 w-full rounded-md border-2 border-slate text-xl font-bold text-slate">Use my location</button>}
+        {!watching && (
+          <button
+            type="button"
+            onClick={() => {
+              setFix(null);
+              setWatching(true);
+              setMessage(null);
+            }}
+            className="min-h-14 w-full rounded-md border-2 border-slate text-xl font-bold text-slate"
+          >
+            Use my location
+          </button>
+        )}
         {watching && (
           <div className="space-y-2">
-            <p className="text-lg">{fix ? <>Accuracy <span className="figure font-bold">± {showQuantity(fix.accuracyM, 'accuracy', units)}</span>{fix.accuracyM <= GOOD_FIX_M ? ' — good fix' : ' — waiting for a better fix…'}</> : 'Waiting for a fix…'}</p>
+            <p className="text-lg">
+              {fix ? (
+                <>
+                  Accuracy <span className="figure font-bold">± {showQuantity(fix.accuracyM, 'accuracy', units)}</span>
+                  {fix.accuracyM <= GOOD_FIX_M ? ' — good fix' : ' — waiting for a better fix…'}
+                </>
+              ) : (
+                'Waiting for a fix…'
+              )}
+            </p>
             {fix && <PrimaryButton onClick={() => takeFix(fix)}>Use this fix</PrimaryButton>}
-            <button type="button" onClick={() => setWatching(false)} className="min-h-12 w-full rounded-md border-2 border-stone font-bold">Stop</button>
+            <button type="button" onClick={() => setWatching(false)} className="min-h-12 w-full rounded-md border-2 border-stone font-bold">
+              Stop
+            </button>
           </div>
         )}
       </div>
-      <PointMap points={points} draft={lat !== undefined && lon !== undefined ? { lat, lon } : null}
-        onDraftMove={(a, b) => { setLat(Number(a.toFixed(6))); setLon(Number(b.toFixed(6))); }} />
+      <PointMap
+        points={points}
+        draft={lat !== undefined && lon !== undefined ? { lat, lon } : null}
+        onDraftMove={(a, b) => {
+          setLat(Number(a.toFixed(6)));
+          setLon(Number(b.toFixed(6)));
+        }}
+      />
       <div className="grid gap-3 sm:grid-cols-2">
-        <NumberField label="Latitude" quantity="angle" units="metric" signed value={lat} onChange={setLat}><FieldIssue check={check} path="lat" /></NumberField>
-        <NumberField label="Longitude" quantity="angle" units="metric" signed value={lon} onChange={setLon}><FieldIssue check={check} path="lon" /></NumberField>
-        <NumberField label="Altitude (GPS, rough)" quantity="length" units={units} value={altitudeM} onChange={setAltitudeM}><FieldIssue check={check} path="altitudeM" /></NumberField>
+        <NumberField label="Latitude" quantity="angle" units="metric" signed value={lat} onChange={setLat}>
+          <FieldIssue check={check} path="lat" />
+        </NumberField>
+        <NumberField label="Longitude" quantity="angle" units="metric" signed value={lon} onChange={setLon}>
+          <FieldIssue check={check} path="lon" />
+        </NumberField>
+        <NumberField label="Altitude (GPS, rough)" quantity="length" units={units} value={altitudeM} onChange={setAltitudeM}>
+          <FieldIssue check={check} path="altitudeM" />
+        </NumberField>
       </div>
-      {message && <p role="status" className="font-bold">{message}</p>}
+      {message && (
+        <p role="status" className="font-bold">
+          {message}
+        </p>
+      )}
       <PrimaryButton onClick={save}>Save point</PrimaryButton>
     </div>
   );

@@ -12,14 +12,22 @@ const PositionsMap = dynamic(() => import('./positions-map'), { ssr: false, load
  * The map beside the profile chart: stations where the phone fixed them (or placed by chainage
  * between fixes), the tank, and the ranked pairs numbered as on the chart. Says what it could not place.
  */
-export function PositionsMapPanel({ stations, tankPoint, pairs }: {
+export function PositionsMapPanel({
+  stations,
+  tankPoint,
+  pairs,
+}: {
   stations: LocalProfile['stations'];
   tankPoint: LocalRecord<'point'> | null;
   pairs: PositionPair[];
 }) {
   const { placed, unplaced } = placeStations(stations.map((s) => ({ id: s.id, chainageM: s.chainageM, lat: s.point.lat, lon: s.point.lon })));
   if (placed.length < 2) {
-    return <p className="rounded-md border-2 border-rule bg-white p-3 text-stone" data-testid="map-note">No map yet: fewer than two stations have a position. Stations booked with the phone&rsquo;s location on appear here.</p>;
+    return (
+      <p className="rounded-md border-2 border-rule bg-white p-3 text-stone" data-testid="map-note">
+        No map yet: fewer than two stations have a position. Stations booked with the phone&rsquo;s location on appear here.
+      </p>
+    );
   }
   const byChainage = placed.filter((s) => s.placed === 'chainage').length;
   const placedIds = new Set(placed.map((s) => s.id));
@@ -31,8 +39,19 @@ export function PositionsMapPanel({ stations, tankPoint, pairs }: {
       <figcaption className="text-stone" data-testid="map-note">
         Rings are intakes, filled squares rams, numbered as on the chart; the thick line runs along the bank from intake to ram; T is the tank.
         {pairs.length > 0 && ' Zoomed to the pairs: zoom out for the whole reach.'}
-        {byChainage > 0 && <> <span className="figure">{byChainage}</span> {byChainage === 1 ? 'station has' : 'stations have'} no fix of their own: placed by chainage between the nearest fixed stations (hollow dots).</>}
-        {unplaced.length > 0 && <> <span className="figure">{unplaced.length}</span> left off the map: no fixed station on both sides.</>}
+        {byChainage > 0 && (
+          <>
+            {' '}
+            <span className="figure">{byChainage}</span> {byChainage === 1 ? 'station has' : 'stations have'} no fix of their own: placed by chainage between
+            the nearest fixed stations (hollow dots).
+          </>
+        )}
+        {unplaced.length > 0 && (
+          <>
+            {' '}
+            <span className="figure">{unplaced.length}</span> left off the map: no fixed station on both sides.
+          </>
+        )}
         {offMap.length > 0 && <> Pair {offMap.join(', ')} not drawn: a station of it is off the map.</>}
       </figcaption>
     </figure>

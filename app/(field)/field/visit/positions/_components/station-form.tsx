@@ -25,7 +25,14 @@ export function StationForm({ visitId, units }: { visitId: string; units: UnitSy
   const [fixProblem, setFixProblem] = useState<string | null>(null);
   const { check, save: saveChecked } = useRecordCheck('point', units);
 
-  useEffect(() => watchFix((f) => { setFix(f); setFixProblem(null); }, setFixProblem), []);
+  useEffect(
+    () =>
+      watchFix((f) => {
+        setFix(f);
+        setFixProblem(null);
+      }, setFixProblem),
+    [],
+  );
 
   async function save() {
     if (chainageM === undefined || levelM === undefined) {
@@ -35,20 +42,40 @@ export function StationForm({ visitId, units }: { visitId: string; units: UnitSy
     const flags = [...(noIntake ? ['no-intake' as const] : []), ...(floods ? ['no-pump-site' as const] : [])];
     const position = fixFields(fix);
     const saved = await saveChecked(newId(), {
-      visitId, role: 'station', label: '', ...position, chainageM, reducedLevelM: levelM, flags, capturedAt: new Date().toISOString(),
+      visitId,
+      role: 'station',
+      label: '',
+      ...position,
+      chainageM,
+      reducedLevelM: levelM,
+      flags,
+      capturedAt: new Date().toISOString(),
     });
     if (!saved) {
       setMessage('Not saved yet: see the note at the field above.');
       return;
     }
-    setChainageM(undefined); setLevelM(undefined); setFloods(false); setNoIntake(false);
-    setMessage(position.lat === null ? 'Station saved on this phone, without a position (placed by chainage on the map).' : 'Station saved on this phone, with its position.');
+    setChainageM(undefined);
+    setLevelM(undefined);
+    setFloods(false);
+    setNoIntake(false);
+    setMessage(
+      position.lat === null
+        ? 'Station saved on this phone, without a position (placed by chainage on the map).'
+        : 'Station saved on this phone, with its position.',
+    );
     announceSave();
   }
 
   const toggle = (on: boolean, set: (v: boolean) => void, label: string) => (
-    <button type="button" aria-pressed={on} onClick={() => set(!on)}
-      className={`min-h-12 rounded-md border-2 px-4 font-bold ${on ? 'border-clay bg-clay text-white' : 'border-stone bg-white text-ink'}`}>{label}</button>
+    <button
+      type="button"
+      aria-pressed={on}
+      onClick={() => set(!on)}
+      className={`min-h-12 rounded-md border-2 px-4 font-bold ${on ? 'border-clay bg-clay text-white' : 'border-stone bg-white text-ink'}`}
+    >
+      {label}
+    </button>
   );
 
   return (
@@ -67,10 +94,19 @@ export function StationForm({ visitId, units }: { visitId: string; units: UnitSy
         {toggle(noIntake, setNoIntake, 'No intake here')}
       </div>
       <p className="text-stone" data-testid="station-fix" aria-live="polite">
-        {fix ? <>Position from the phone, <span className="figure">± {showQuantity(fix.accuracyM, 'length', units)}</span>: saved with the station.</>
-          : `${fixProblem ? 'No position from the phone (location off, blocked or no open sky).' : 'Waiting for a position fix.'} Stations are saved without one meanwhile.`}
+        {fix ? (
+          <>
+            Position from the phone, <span className="figure">± {showQuantity(fix.accuracyM, 'length', units)}</span>: saved with the station.
+          </>
+        ) : (
+          `${fixProblem ? 'No position from the phone (location off, blocked or no open sky).' : 'Waiting for a position fix.'} Stations are saved without one meanwhile.`
+        )}
       </p>
-      {message && <p role="status" className="font-bold">{message}</p>}
+      {message && (
+        <p role="status" className="font-bold">
+          {message}
+        </p>
+      )}
       <PrimaryButton onClick={save}>Save station</PrimaryButton>
     </fieldset>
   );

@@ -11,7 +11,12 @@ import { visitAssignSchema, type VisitAssignInput } from '@/lib/shared/schemas/o
 const field = 'mt-1 block min-h-12 w-full rounded-md border-2 border-stone bg-white px-2 text-lg';
 
 /** Assign or reassign the visit; the server's "may hold unsynced data" answer becomes a warning to confirm. */
-export function AssignForm({ visitId, advisors, current, mayBeUnsynced }: {
+export function AssignForm({
+  visitId,
+  advisors,
+  current,
+  mayBeUnsynced,
+}: {
   visitId: string;
   advisors: { id: string; name: string }[];
   current: { advisorId: string | null; plannedOn: string | null };
@@ -32,7 +37,10 @@ export function AssignForm({ visitId, advisors, current, mayBeUnsynced }: {
     setServerError(null);
     setDone(null);
     try {
-      const { visit } = await apiJson<{ visit: { noticeSent: boolean } }>(`/api/visits/${visitId}/assignment`, { method: 'PUT', body: { ...values, confirmUnsynced } });
+      const { visit } = await apiJson<{ visit: { noticeSent: boolean } }>(`/api/visits/${visitId}/assignment`, {
+        method: 'PUT',
+        body: { ...values, confirmUnsynced },
+      });
       setWarning(null);
       setDone(visit.noticeSent ? 'Saved. The advisor has been e-mailed; the visit is on their phone at its next sync.' : 'Saved.');
       router.refresh();
@@ -43,7 +51,12 @@ export function AssignForm({ visitId, advisors, current, mayBeUnsynced }: {
   }
 
   return (
-    <form aria-label="Assign the visit" noValidate onSubmit={handleSubmit((v) => send(v, false))} className="space-y-4 rounded-md border border-rule bg-white p-4">
+    <form
+      aria-label="Assign the visit"
+      noValidate
+      onSubmit={handleSubmit((v) => send(v, false))}
+      className="space-y-4 rounded-md border border-rule bg-white p-4"
+    >
       {mayBeUnsynced && (
         <p className="rounded-md border-2 border-ochre p-3 font-bold text-ochre">
           ⚠ Nothing has synced from this visit since its planned day: the advisor’s phone may hold readings the office has not seen.
@@ -51,17 +64,46 @@ export function AssignForm({ visitId, advisors, current, mayBeUnsynced }: {
       )}
       <div className="grid gap-4 sm:grid-cols-2">
         <div>
-          <label htmlFor="advisorId" className="block font-bold">Advisor</label>
-          <select id="advisorId" className={field} aria-invalid={!!errors.advisorId} aria-describedby={errors.advisorId ? 'advisorId-error' : undefined} {...register('advisorId')}>
+          <label htmlFor="advisorId" className="block font-bold">
+            Advisor
+          </label>
+          <select
+            id="advisorId"
+            className={field}
+            aria-invalid={!!errors.advisorId}
+            aria-describedby={errors.advisorId ? 'advisorId-error' : undefined}
+            {...register('advisorId')}
+          >
             <option value="">Choose an advisor…</option>
-            {advisors.map((a) => <option key={a.id} value={a.id}>{a.name}</option>)}
+            {advisors.map((a) => (
+              <option key={a.id} value={a.id}>
+                {a.name}
+              </option>
+            ))}
           </select>
-          {errors.advisorId && <p id="advisorId-error" className="mt-1 font-bold text-clay">{errors.advisorId.message}</p>}
+          {errors.advisorId && (
+            <p id="advisorId-error" className="mt-1 font-bold text-clay">
+              {errors.advisorId.message}
+            </p>
+          )}
         </div>
         <div>
-          <label htmlFor="plannedOn" className="block font-bold">Planned date</label>
-          <input id="plannedOn" type="date" className={field} aria-invalid={!!errors.plannedOn} aria-describedby={errors.plannedOn ? 'plannedOn-error' : undefined} {...register('plannedOn')} />
-          {errors.plannedOn && <p id="plannedOn-error" className="mt-1 font-bold text-clay">{errors.plannedOn.message}</p>}
+          <label htmlFor="plannedOn" className="block font-bold">
+            Planned date
+          </label>
+          <input
+            id="plannedOn"
+            type="date"
+            className={field}
+            aria-invalid={!!errors.plannedOn}
+            aria-describedby={errors.plannedOn ? 'plannedOn-error' : undefined}
+            {...register('plannedOn')}
+          />
+          {errors.plannedOn && (
+            <p id="plannedOn-error" className="mt-1 font-bold text-clay">
+              {errors.plannedOn.message}
+            </p>
+          )}
           <PastDayConfirm day={plannedOn} field={register('confirmPast')} />
         </div>
       </div>
@@ -76,8 +118,16 @@ export function AssignForm({ visitId, advisors, current, mayBeUnsynced }: {
           </button>
         </div>
       )}
-      {serverError && <p role="alert" className="font-bold text-clay">{serverError}</p>}
-      {done && <p role="status" className="font-bold text-moss">{done}</p>}
+      {serverError && (
+        <p role="alert" className="font-bold text-clay">
+          {serverError}
+        </p>
+      )}
+      {done && (
+        <p role="status" className="font-bold text-moss">
+          {done}
+        </p>
+      )}
     </form>
   );
 }

@@ -44,36 +44,72 @@ export function StatusForm({ visitId, status }: { visitId: string; status: Visit
   return (
     <div className="space-y-4">
       {allowed.length > 0 ? (
-        <form aria-label="Change the state" onSubmit={(e) => { e.preventDefault(); if (value) void move(value); }} className="flex flex-wrap items-end gap-3">
-          <label className="block font-bold">Next state
+        <form
+          aria-label="Change the state"
+          onSubmit={(e) => {
+            e.preventDefault();
+            if (value) void move(value);
+          }}
+          className="flex flex-wrap items-end gap-3"
+        >
+          <label className="block font-bold">
+            Next state
             <select value={value} onChange={(e) => setValue(e.target.value as VisitStatus)} className={select}>
-              {allowed.map((s) => <option key={s} value={s}>{VISIT_STATUS_LABELS[s]}</option>)}
+              {allowed.map((s) => (
+                <option key={s} value={s}>
+                  {VISIT_STATUS_LABELS[s]}
+                </option>
+              ))}
             </select>
           </label>
-          <button type="submit" disabled={busy || !value} className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate disabled:opacity-50">Change state</button>
+          <button type="submit" disabled={busy || !value} className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate disabled:opacity-50">
+            Change state
+          </button>
         </form>
       ) : (
-        <p className="text-stone">From “{VISIT_STATUS_LABELS[status]}” the office has no next step by hand; the visit moves on when the sheet is sent, the farmer decides or the ram is checked.</p>
+        <p className="text-stone">
+          From “{VISIT_STATUS_LABELS[status]}” the office has no next step by hand; the visit moves on when the sheet is sent, the farmer decides or the ram is
+          checked.
+        </p>
       )}
       {others.length > 0 && (
         <details className="rounded-md border border-rule bg-white p-3">
           <summary className="cursor-pointer font-bold">Move outside the usual order…</summary>
           <form aria-label="Move outside the usual order" onSubmit={jump} className="mt-3 space-y-3">
-            <p className="text-stone">Only when the record is wrong (a visit done on paper, a farmer who decided on the phone). Your reason goes into the visit’s history.</p>
-            <label className="block font-bold">Move to
+            <p className="text-stone">
+              Only when the record is wrong (a visit done on paper, a farmer who decided on the phone). Your reason goes into the visit’s history.
+            </p>
+            <label className="block font-bold">
+              Move to
               <select value={jumpTo} onChange={(e) => setJumpTo(e.target.value as VisitStatus)} className={select}>
                 <option value="">Choose…</option>
-                {others.map((s) => <option key={s} value={s}>{VISIT_STATUS_LABELS[s]}</option>)}
+                {others.map((s) => (
+                  <option key={s} value={s}>
+                    {VISIT_STATUS_LABELS[s]}
+                  </option>
+                ))}
               </select>
             </label>
-            <label className="block font-bold">Why
-              <textarea value={reason} onChange={(e) => setReason(e.target.value)} rows={2} className="mt-1 block w-full rounded-md border-2 border-stone bg-paper p-2 text-lg" />
+            <label className="block font-bold">
+              Why
+              <textarea
+                value={reason}
+                onChange={(e) => setReason(e.target.value)}
+                rows={2}
+                className="mt-1 block w-full rounded-md border-2 border-stone bg-paper p-2 text-lg"
+              />
             </label>
-            <button type="submit" disabled={busy} className="min-h-12 rounded-md border-2 border-clay px-4 font-bold text-clay disabled:opacity-50">Move with this reason</button>
+            <button type="submit" disabled={busy} className="min-h-12 rounded-md border-2 border-clay px-4 font-bold text-clay disabled:opacity-50">
+              Move with this reason
+            </button>
           </form>
         </details>
       )}
-      {message && <p role={message.ok ? 'status' : 'alert'} className={`w-full font-bold ${message.ok ? 'text-moss' : 'text-clay'}`}>{message.text}</p>}
+      {message && (
+        <p role={message.ok ? 'status' : 'alert'} className={`w-full font-bold ${message.ok ? 'text-moss' : 'text-clay'}`}>
+          {message.text}
+        </p>
+      )}
     </div>
   );
 }

@@ -7,13 +7,27 @@ import type { z } from 'zod';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { farmNeedsBody } from '@/lib/shared/schemas/sheet';
 
-interface FormValues { people: string; animals: { kind: string; count: string }[]; gardenArea: string; gardenUnit: 'm2' | 'ft2'; tankSite: string }
+interface FormValues {
+  people: string;
+  animals: { kind: string; count: string }[];
+  gardenArea: string;
+  gardenUnit: 'm2' | 'ft2';
+  tankSite: string;
+}
 
 const input = 'min-h-12 w-full rounded-md border-2 border-stone bg-white px-3 text-xl';
 
 /** The farmer's needs before a visit: household, animals by kind, garden, where the tank should go. */
-export function NeedsForm({ farmId, units, animalKinds, initial }: {
-  farmId: string; units: UnitSystem; animalKinds: { kind: string; label: string }[]; initial: FormValues;
+export function NeedsForm({
+  farmId,
+  units,
+  animalKinds,
+  initial,
+}: {
+  farmId: string;
+  units: UnitSystem;
+  animalKinds: { kind: string; label: string }[];
+  initial: FormValues;
 }) {
   const [saved, setSaved] = useState<string | null>(null);
   const [error, setError] = useState<string | null>(null);
@@ -35,7 +49,9 @@ export function NeedsForm({ farmId, units, animalKinds, initial }: {
   return (
     <form onSubmit={submit} noValidate className="space-y-6 text-lg" aria-label="Water needs">
       <div className="space-y-1">
-        <label htmlFor="people" className="block font-bold">People in the household</label>
+        <label htmlFor="people" className="block font-bold">
+          People in the household
+        </label>
         <input id="people" inputMode="decimal" {...form.register('people')} className={`${input} figure`} aria-invalid={!!errors.people} />
         {errors.people && <p className="text-clay">{errors.people.message}</p>}
       </div>
@@ -46,23 +62,36 @@ export function NeedsForm({ farmId, units, animalKinds, initial }: {
             <label className="min-w-0 flex-1">
               <span className="block">Kind</span>
               <select {...form.register(`animals.${i}.kind`)} className={input}>
-                {animalKinds.map((a) => <option key={a.kind} value={a.kind}>{a.label}</option>)}
+                {animalKinds.map((a) => (
+                  <option key={a.kind} value={a.kind}>
+                    {a.label}
+                  </option>
+                ))}
               </select>
             </label>
             <label className="w-28">
               <span className="block">How many</span>
               <input inputMode="decimal" {...form.register(`animals.${i}.count`)} className={`${input} figure`} aria-invalid={!!errors.animals?.[i]?.count} />
             </label>
-            <button type="button" onClick={() => animals.remove(i)} className="min-h-12 rounded-md border-2 border-stone px-3">Remove</button>
+            <button type="button" onClick={() => animals.remove(i)} className="min-h-12 rounded-md border-2 border-stone px-3">
+              Remove
+            </button>
             {errors.animals?.[i]?.count && <p className="w-full text-clay">{errors.animals[i]?.count?.message}</p>}
           </div>
         ))}
         {errors.animals?.message && <p className="text-clay">{errors.animals.message}</p>}
-        <button type="button" onClick={() => animals.append({ kind: animalKinds[0]?.kind ?? 'goat', count: '' })}
-          className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate">Add animals</button>
+        <button
+          type="button"
+          onClick={() => animals.append({ kind: animalKinds[0]?.kind ?? 'goat', count: '' })}
+          className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate"
+        >
+          Add animals
+        </button>
       </fieldset>
       <div className="space-y-1">
-        <label htmlFor="garden" className="block font-bold">Garden to water</label>
+        <label htmlFor="garden" className="block font-bold">
+          Garden to water
+        </label>
         <div className="flex items-center gap-2">
           <input id="garden" inputMode="decimal" {...form.register('gardenArea')} className={`${input} figure`} aria-invalid={!!errors.gardenArea} />
           <span className="whitespace-nowrap">{units === 'us' ? 'sq ft' : 'm²'}</span>
@@ -70,15 +99,25 @@ export function NeedsForm({ farmId, units, animalKinds, initial }: {
         {errors.gardenArea && <p className="text-clay">{errors.gardenArea.message}</p>}
       </div>
       <div className="space-y-1">
-        <label htmlFor="tank" className="block font-bold">Where should the tank be?</label>
+        <label htmlFor="tank" className="block font-bold">
+          Where should the tank be?
+        </label>
         <input id="tank" {...form.register('tankSite')} className={input} placeholder="e.g. on the bank above the house" />
         {errors.tankSite && <p className="text-clay">{errors.tankSite.message}</p>}
       </div>
       <button type="submit" disabled={form.formState.isSubmitting} className="min-h-12 w-full rounded-md bg-slate px-4 text-lg font-bold text-white">
         {form.formState.isSubmitting ? 'Saving…' : 'Save my needs'}
       </button>
-      {saved && <p role="status" className="font-bold text-moss">{saved}</p>}
-      {error && <p role="alert" className="font-bold text-clay">{error}</p>}
+      {saved && (
+        <p role="status" className="font-bold text-moss">
+          {saved}
+        </p>
+      )}
+      {error && (
+        <p role="alert" className="font-bold text-clay">
+          {error}
+        </p>
+      )}
     </form>
   );
 }
