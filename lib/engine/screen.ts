@@ -14,7 +14,7 @@ import { buildFigures, buildGravityFigures, buildSurveyFigures, type SurveyConte
 import type { Screening } from './screening-types';
 import { sourcesFor, type SourceId } from './sources';
 import { tankSizeL } from './tank';
-import { judge, judgeGravity, type RamVerdictFacts } from './verdict';
+import { judge, judgeGravity, type RamVerdictFacts, type SurveyFacts } from './verdict';
 import { ENGINE_VERSION } from './version';
 
 /** Validates readings with the shared zod schema; the first problem becomes an EngineInputError naming its field. */
@@ -35,19 +35,7 @@ interface Survey {
   lowest: FlowEstimate;
   lowestLpm: number;
   ctx: Omit<SurveyContext, 'fraction'>;
-  facts: Pick<
-    RamVerdictFacts,
-    | 'fallM'
-    | 'fallSigmaM'
-    | 'fallRunsDisagree'
-    | 'misclosures'
-    | 'bookingFailed'
-    | 'anyDrySeason'
-    | 'lowHeadMeasurements'
-    | 'lowestLpm'
-    | 'demandLpd'
-    | 'marginFraction'
-  >;
+  facts: SurveyFacts;
 }
 
 /** Fall, lift, flows, demand and tank from the readings: what every outcome is judged on. */

@@ -428,7 +428,8 @@ export function judge(f: RamVerdictFacts): Judgement {
   return finish(reasons, conditions);
 }
 
-export interface GravityVerdictFacts extends Pick<
+/** What the readings say of the site before any outcome is chosen: the same facts judge a ram and a gravity supply. */
+export type SurveyFacts = Pick<
   RamVerdictFacts,
   | 'fallM'
   | 'fallSigmaM'
@@ -438,11 +439,11 @@ export interface GravityVerdictFacts extends Pick<
   | 'anyDrySeason'
   | 'lowHeadMeasurements'
   | 'lowestLpm'
-  | 'availableLpm'
-  | 'designFraction'
   | 'demandLpd'
   | 'marginFraction'
-> {
+>;
+
+export interface GravityVerdictFacts extends SurveyFacts, Pick<RamVerdictFacts, 'availableLpm' | 'designFraction'> {
   staticLiftM: number;
   headM: number;
   pipeLabel: string | null;
