@@ -85,7 +85,7 @@ export function NumberField({ label, quantity, units, value, onChange, hint, sig
           aria-describedby={`${id}-note`}
           className="figure min-h-14 w-full min-w-0 rounded-md border-2 border-stone bg-white px-3 text-2xl"
         />
-        {display.unit && <span className="figure flex min-w-14 items-center text-xl text-stone">{display.unit}</span>}
+        {display.unit && <span className="figure flex min-w-14 shrink-0 items-center text-xl text-stone">{display.unit}</span>}
       </div>
       <p id={`${id}-note`} className={error ? 'mt-1 font-bold text-clay' : 'mt-1 text-stone'}>
         {error ?? hint ?? ''}

@@ -135,7 +135,8 @@ export function FlowForm({ visitId, sourceId, units }: { visitId: string; source
       setTypedHead(undefined);
     }
   };
-  const trialIssue = (i: number) => <FieldIssue check={check} path={`measurement.trials.${i}`} under />;
+  // The trial's own reading (the bucket's volume, the same for every trial, has its note at the bucket field).
+  const trialIssue = (i: number) => <FieldIssue check={check} path={`measurement.trials.${i}.${method === 'v-notch' ? 'headM' : 'seconds'}`} />;
 
   return (
     <div className="space-y-4">
