@@ -109,8 +109,8 @@ export async function saveRecord<E extends SyncEntity>(
   }
 }
 
-/** Marks a record deleted on the phone and queues the delete; the row goes once the server agrees. */
-export async function deleteRecord(entity: SyncEntity, id: string): Promise<void> {
+/** Marks a record deleted on the phone and queues the delete (held back `holdMs`); the row goes once the server agrees. */
+export async function deleteRecord(entity: SyncEntity, id: string, holdMs = 0): Promise<void> {
   const db = fieldDb();
   const table = db.table(TABLE_OF[entity]) as Table<AnyRecord, string>;
   await db.transaction('rw', table, db.outbox, async () => {
@@ -119,7 +119,8 @@ export async function deleteRecord(entity: SyncEntity, id: string): Promise<void
     const now = new Date().toISOString();
     await table.put({ ...existing, deletedAt: now, updatedAt: now });
     const op = { opId: newId(), entity, entityId: id, action: 'delete', baseRev: existing.rev, changes: {}, base: {}, madeAt: now } as SyncOp;
-    await db.outbox.add(entryFor(op, visitIdOf(entity, existing, id)));
+    // A delete that can still be undone waits out its window even if a sync runs meanwhile.
+    await db.outbox.add({ ...entryFor(op, visitIdOf(entity, existing, id)), nextAttemptAt: holdMs > 0 ? Date.now() + holdMs : 0 });
   });
 }
 

@@ -38,7 +38,7 @@ export function useUndoableDelete() {
 
   async function remove(entity: SyncEntity, id: string, what: string) {
     settle();
-    await deleteRecord(entity, id);
+    await deleteRecord(entity, id, UNDO_WINDOW_MS);
     setNote(null);
     setPending({ entity, id, what });
     timer.current = setTimeout(() => {
