@@ -1,8 +1,8 @@
 import 'server-only';
 import { buildRow } from '@/lib/server/db';
 import { VISIT_STATUSES, type VisitStatus } from '@/lib/shared/domain';
-import { isClassOf } from '@/lib/shared/reading-limits';
-import { entityFields, recordSchemas, type OpResult, type SyncOp } from '@/lib/shared/schemas/sync';
+import type { ZodError } from 'zod';
+import { recordSchemas, type OpResult, type SyncOp } from '@/lib/shared/schemas/sync';
 import { canMove, moveRefusal } from '@/lib/shared/visit-states';
 import type { AuditInput } from '../audit';
 import { SYNC_OP_PERMISSIONS } from '../auth/permissions';
@@ -33,25 +33,13 @@ const conflicted = (op: SyncOp, spec: EntitySpec, row: SyncedRow, fields: string
   conflict: { fields, server: pulledRecord(spec, row) },
 });
 
-/** A pipe run whose pressure class is not one of its material's: the screen could not use it. */
-function pipeClassRefusal(op: SyncOp, fields: Json): OpResult | null {
-  if (op.entity !== 'pipeRun' || fields.pressureClass === null || fields.pressureClass === undefined) return null;
-  if (isClassOf(String(fields.material), String(fields.pressureClass))) return null;
-  return rejected(op, 422, 'That pressure class is not one of this pipe material’s. Choose a class from the list.', {
-    'changes.pressureClass': ['Not a class of this material.'],
-  });
-}
-
 /**
- * The whole record (after a create, or an update merged onto the server's copy) must pass the rules
- * across its fields, as the phone's save does: an uphill "fall" or a 5,000 m lift is refused here too.
+ * A record refused by `recordSchemas` (a create, or an update merged onto the server's copy), as the
+ * phone's save refuses it: an uphill "fall", a 5,000 m lift or a class its material is not made in.
  */
-function recordRefusal(op: SyncOp, fields: Json): OpResult | null {
-  if (op.entity === 'visit' || op.entity === 'commissioning') return null;
-  const parsed = recordSchemas[op.entity].safeParse(fields);
-  if (parsed.success) return null;
-  const fieldErrors = Object.fromEntries(Object.entries(zodFieldErrors(parsed.error)).map(([k, v]) => [`changes.${k}`, v]));
-  return rejected(op, 422, parsed.error.issues[0]?.message ?? 'This record cannot be stored.', fieldErrors);
+function recordRefusal(op: SyncOp, error: ZodError): OpResult {
+  const fieldErrors = Object.fromEntries(Object.entries(zodFieldErrors(error)).map(([k, v]) => [`changes.${k}`, v]));
+  return rejected(op, 422, error.issues[0]?.message ?? 'This record cannot be stored.', fieldErrors);
 }
 
 const statusRank = (status: unknown) => VISIT_STATUSES.indexOf(status as (typeof VISIT_STATUSES)[number]);
@@ -152,13 +140,8 @@ export async function planOp(op: SyncOp, access: SyncAccess, rows: Map<string, R
     if (op.action === 'delete' || op.baseRev !== null || op.entity === 'visit') {
       return done(rejected(op, 404, `No such ${op.entity} on the server.`));
     }
-    const parsed = entityFields[op.entity].safeParse(op.changes ?? {});
-    if (!parsed.success) {
-      const fieldErrors = Object.fromEntries(Object.entries(zodFieldErrors(parsed.error)).map(([k, v]) => [`changes.${k}`, v]));
-      return done(rejected(op, 422, `A new ${op.entity} must carry every field.`, fieldErrors));
-    }
-    const refusal = pipeClassRefusal(op, parsed.data as Json) ?? recordRefusal(op, parsed.data as Json);
-    if (refusal) return done(refusal);
+    const parsed = recordSchemas[op.entity].safeParse(op.changes ?? {});
+    if (!parsed.success) return done(recordRefusal(op, parsed.error));
     const now = new Date();
     const built = buildRow(spec.model, { id: op.entityId, ...spec.toRow(parsed.data as Json), createdById: access.user.id, createdAt: now, updatedAt: now });
     const created: RowState = { spec, row: built, isNew: true, touched: new Set(), dirty: true };
@@ -210,8 +193,10 @@ export async function planOp(op: SyncOp, access: SyncAccess, rows: Map<string, R
       }),
     );
   }
-  const classRefusal = pipeClassRefusal(op, merged) ?? recordRefusal(op, merged);
-  if (classRefusal) return done(classRefusal);
+  if (op.entity !== 'visit') {
+    const checked = recordSchemas[op.entity].safeParse(merged);
+    if (!checked.success) return done(recordRefusal(op, checked.error));
+  }
   const next = spec.toRow(merged);
   const differing = Object.keys(next).filter((k) => !sameValue(asIso(row.get(k)), asIso(next[k])));
   if (differing.length === 0) return done(applied(), state);

@@ -5,7 +5,7 @@
 // values before it saves. Messages sit at the field they are about; nothing is saved while any stands.
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
-import { get, useForm, type FieldValues, type Resolver } from 'react-hook-form';
+import { useForm, type FieldValues, type Resolver } from 'react-hook-form';
 import { RecordRefused, saveRecord } from '@/lib/client/outbox';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { plainIssueMessage } from '@/lib/shared/field-messages';
@@ -53,7 +53,7 @@ export function useRecordCheck<E extends SyncEntity>(entity: E, units: UnitSyste
   const messages = collect(errors);
   const check: RecordCheck = {
     errorAt: (path, under = false) => {
-      const direct = (get(errors, path) as { message?: string } | undefined)?.message ?? messages[path];
+      const direct = messages[path];
       if (direct || !under) return direct;
       return Object.entries(messages).find(([p]) => isUnder(p, path))?.[1];
     },

@@ -56,7 +56,7 @@ function refusalReason(entry: OutboxEntry): string {
   const error = entry.result?.error;
   const plain = (m: string) => m.replace(/^[\w.]+: /, '');
   const candidates = [error?.message, ...Object.values(error?.fieldErrors ?? {}).flat()].filter((m): m is string => !!m).map(plain);
-  return candidates.find((m) => !isSchemaText(m) && !/^A new \w+ must carry/.test(m)) ?? 'The server could not use this change.';
+  return candidates.find((m) => !isSchemaText(m)) ?? 'The server could not use this change.';
 }
 
 function Refused({ entry }: { entry: OutboxEntry }) {
