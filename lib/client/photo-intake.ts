@@ -1,6 +1,5 @@
 // A photo taken on site: its bytes, their sha-256, and where and when it was taken (EXIF GPS
 // read on the phone with exifr, falling back to the current fix).
-import exifr from 'exifr';
 import type { EntityFields } from '@/lib/shared/schemas/sync';
 import { MAX_PHOTO_BYTES, PHOTO_MIME_TYPES } from '@/lib/shared/schemas/sync';
 
@@ -35,6 +34,9 @@ export async function readPhoto(file: File): Promise<PhotoIntake> {
   let lon: number | null = null;
   let takenAt: string | null = null;
   try {
+    // Loaded when a photo is read: the server's prerender of the photo screen never runs it (its
+    // Node branch reaches for fs and zlib), and the chunk is precached with the rest of the build.
+    const { default: exifr } = await import('exifr');
     const gps = (await exifr.gps(data)) as { latitude?: number; longitude?: number } | undefined;
     if (gps && Number.isFinite(gps.latitude) && Number.isFinite(gps.longitude)) {
       lat = gps.latitude ?? null;

@@ -11,11 +11,13 @@ import { authCookieOptions } from './cookies';
 import { dummyHash, verifyPassword } from './passwords';
 import { assertSignInAllowed, recordSignIn } from './rate-limit';
 import { SESSION_MAX_AGE_S } from './session-policy';
+import { decodeSessionToken } from './session-token';
 
 const WRONG = 'That e-mail and password do not match an active account.';
 
 export const authOptions: NextAuthOptions = {
   session: { strategy: 'jwt', maxAge: SESSION_MAX_AGE_S },
+  jwt: { decode: decodeSessionToken },
   // Read straight from the env (as next-auth does): importing these options must not need the rest.
   ...authCookieOptions(process.env.NEXTAUTH_URL ?? ''),
   pages: { signIn: '/login', error: '/login' },

@@ -26,12 +26,13 @@ export function s3SettingsFromEnv(): S3Settings {
 
 /** The local photo folder (PHOTO_DIR, default .data/photos), whatever the driver. */
 export function localPhotoStorage(): BlobStorage {
-  return localFolderStorage(path.resolve(process.cwd(), storageEnv().PHOTO_DIR));
+  // A folder chosen at run time: the build must not trace the project's files through it.
+  return localFolderStorage(path.resolve(/*turbopackIgnore: true*/ process.cwd(), storageEnv().PHOTO_DIR));
 }
 
 /** Where uploads are staged while they stream in and are checked (beside the local photos: one disk, so moving them in is a rename). */
 export function uploadStagingDir(): string {
-  return path.resolve(process.cwd(), storageEnv().PHOTO_DIR, '.incoming');
+  return path.resolve(/*turbopackIgnore: true*/ process.cwd(), storageEnv().PHOTO_DIR, '.incoming');
 }
 
 /** The store for photo originals and thumbnails: the local folder (default) or an S3 bucket. */
