@@ -7,8 +7,8 @@ export function SourceList({ sources }: { sources: SheetSourceLine[] }) {
       {sources.map((s) => (
         <li key={s.id}>
           {s.url ? (
-            // On paper the name reads as plain text: the address means nothing there.
-            <a href={s.url} target="_blank" rel="noopener noreferrer" className="print:text-inherit print:no-underline">
+            // Underlined as well as coloured, so a link does not rest on colour alone; on paper the name reads as plain text.
+            <a href={s.url} target="_blank" rel="noopener noreferrer" className="underline print:text-inherit print:no-underline">
               {s.citation}
               <span className="sr-only"> (opens in a new tab)</span>
             </a>
