@@ -7,6 +7,8 @@ export interface Source {
   readonly citation: string;
   readonly confidence: Confidence;
   readonly note?: string;
+  /** Where the document can be read (a DOI, the publisher's or agency's own page); only an address seen to exist, none where the source has no stable public one. */
+  readonly url?: string;
 }
 
 const list = [
@@ -21,6 +23,7 @@ const list = [
     citation: 'Building Trades Pocketbook, "The Hydraulic Ram" (International Textbook Co., c.1899–1905)',
     confidence: 'found',
     note: 'Efficiency vs lift/fall table r = 4…26; drive pipe 25–50 ft',
+    url: 'https://chestofbooks.com/architecture/Building-Trades-Pocketbook/Water-Supply-And-Distribution-Methods-Of-Supply-Continued.html',
   },
   { id: 'eytelwein-1805', citation: 'Eytelwein (1805), empirical ram efficiency η = 1.12 − 0.2·√(h/H)', confidence: 'from-memory' },
   { id: 'ogden-1911', citation: 'Ogden (1911), Rural Hygiene, Table XI (ram sizes vs drive flow; about 30 ft lift per ft of fall)', confidence: 'found' },
@@ -28,12 +31,14 @@ const list = [
     id: 'daubuisson-efficiency',
     citation: 'D\'Aubuisson efficiency η = q·h/(Q·H); NITK Surathkal lab notes "Performance characteristics of hydraulic ram"',
     confidence: 'found',
+    url: 'https://virtual-labs.github.io/exp-hydraulic-ram-nitk/simulation/index.html',
   },
   { id: 'rankine-efficiency', citation: 'Rankine efficiency η = q·(h − H)/((Q − q)·H); NITK Surathkal lab notes', confidence: 'found' },
   {
     id: 'wikipedia-hydraulic-ram',
     citation: 'Wikipedia, "Hydraulic ram" (efficiency 60 %, up to 80 %; drive pipe 3–7 × fall citing Perkin; delivery pipe about half the drive)',
     confidence: 'found',
+    url: 'https://en.wikipedia.org/wiki/Hydraulic_ram',
   },
   {
     id: 'drive-length-other-rules',
@@ -45,6 +50,7 @@ const list = [
     id: 'clemson-smith',
     citation: 'Smith (Clemson Univ.), "Home-made hydraulic ram pump" (≈10 psi back-pressure to cycle; stand pipe for long drive)',
     confidence: 'found',
+    url: 'https://lgpress.clemson.edu/publication/homemade-hydraulic-ram-pump-for-livestock-water/',
   },
   { id: 'thomas-1994', citation: 'Thomas (1994), DTU Warwick Working Paper 41 (Joukowsky flow must reach the delivery head)', confidence: 'found' },
   {
@@ -52,6 +58,7 @@ const list = [
     citation: 'USBR Water Measurement Manual, 3rd ed. (1997, rev. 2001), ch. 7: Kindsvater–Shen V-notch (ISO 1438), Ce = 0.578, kh = 0.85 mm for 90°',
     confidence: 'found',
     note: 'eq. 7-3, 25–100°, head ≥ 0.2 ft confirmed on the USBR chapter page; Ce/kh via Ponce (SDSU) lab notes',
+    url: 'https://www.usbr.gov/tsc/techreferences/mands/wmm/chap07_07.html',
   },
   { id: 'kindsvater-shen-angles', citation: 'Kindsvater–Shen Ce and kh for notch angles other than 90° (ISO 1438 figure)', confidence: 'from-memory' },
   {
@@ -65,6 +72,7 @@ const list = [
     citation: 'Herschy, Streamflow Measurement, "Measurement by floats" (v = L/t; k 0.8–0.9); USGS WSP 2175 (Rantz 1982) k = 0.85',
     confidence: 'found',
     note: '0.85 in USGS from memory',
+    url: 'https://doi.org/10.3133/wsp2175',
   },
   {
     id: 'bucket-method',
@@ -85,6 +93,7 @@ const list = [
     id: 'clinometer-sine',
     citation: 'Δh = slope distance × sin(angle) (Michigan Tech Peace Corps mapping notes; FAO topography manual ch. 4)',
     confidence: 'found',
+    url: 'https://www.fao.org/4/R7021E/r7021e00.htm',
   },
   {
     id: 'hose-level',
@@ -92,17 +101,38 @@ const list = [
     confidence: 'found',
     note: '±5 mm per set-up is from memory',
   },
-  { id: 'gps-sps-2008', citation: 'GPS SPS Performance Standard (2008): ≈3 m H / 5 m V (95 %); vertical ≈ 1.5–3 × horizontal', confidence: 'found' },
-  { id: 'standard-atmosphere', citation: 'Hypsometric equation, standard atmosphere (≈ 8.3 m per hPa near sea level)', confidence: 'computed' },
+  {
+    id: 'gps-sps-2008',
+    citation: 'GPS SPS Performance Standard (2008): ≈3 m H / 5 m V (95 %); vertical ≈ 1.5–3 × horizontal',
+    confidence: 'found',
+    url: 'https://www.gps.gov/technical/ps/2008-SPS-performance-standard.pdf',
+  },
+  {
+    id: 'standard-atmosphere',
+    citation: 'Hypsometric equation, standard atmosphere (≈ 8.3 m per hPa near sea level)',
+    confidence: 'computed',
+    url: 'https://ntrs.nasa.gov/citations/19770009539',
+  },
   {
     id: 'hazen-williams-epanet',
     citation: 'Rossman (2000), EPANET 2 Users Manual (US EPA), Table 3.1: h = 10.67·L·Q^1.852/(C^1.852·D^4.87)',
     confidence: 'found',
     note: 'US form 4.727·L·Q^1.852/(C^1.852·d^4.871) and SI 10.67 seen in open-source re-implementations; the manual itself not opened',
+    url: 'https://nepis.epa.gov/Exe/ZyPURL.cgi?Dockey=P1007WWU.TXT',
   },
-  { id: 'darcy-colebrook', citation: 'Darcy–Weisbach with Colebrook (1939) friction factor; Swamee & Jain (1976) start value', confidence: 'found' },
+  {
+    id: 'darcy-colebrook',
+    citation: 'Darcy–Weisbach with Colebrook (1939) friction factor; Swamee & Jain (1976) start value',
+    confidence: 'found',
+    url: 'https://doi.org/10.1680/ijoti.1939.13150',
+  },
   { id: 'water-properties', citation: 'Water viscosity (Vogel equation) and density vs temperature', confidence: 'from-memory' },
-  { id: 'korteweg', citation: 'Korteweg wave speed a = √(K/ρ)/√(1 + c·K·D/(E·e)) (Wylie & Streeter 1993; Chaudhry 2014)', confidence: 'found' },
+  {
+    id: 'korteweg',
+    citation: 'Korteweg wave speed a = √(K/ρ)/√(1 + c·K·D/(E·e)) (Wylie & Streeter 1993; Chaudhry 2014)',
+    confidence: 'found',
+    url: 'https://doi.org/10.1007/978-1-4614-8538-4',
+  },
   { id: 'joukowsky', citation: 'Joukowsky (1900): ΔH = a·Δv/g (Wylie & Streeter 1993)', confidence: 'found' },
   { id: 'pipe-moduli', citation: 'Pipe elastic moduli: steel 207 GPa, PVC 2.9 GPa, HDPE 0.9 GPa short-term', confidence: 'from-memory' },
   {
@@ -123,6 +153,7 @@ const list = [
     citation: 'Steel pipe dimensions (ASME B36.10, Schedule 40); threaded malleable-iron fittings 300/600 psi (class 150/300)',
     confidence: 'from-memory',
     note: '2″ Sch 40 ID 52.5 mm, wall 3.91 mm confirmed in published tables',
+    url: 'https://www.asme.org/codes-standards/find-codes-standards/b36-10m-welded-seamless-wrought-steel-pipe',
   },
   { id: 'min-fall-wftw', citation: 'Minimum fall 0.5 m (Water for the World RWS.4.D.5; CAT tipsheet)', confidence: 'found' },
   {
@@ -173,9 +204,20 @@ const list = [
     citation: 'Howard & Bartram (2003), Domestic Water Quantity, Service Level and Health, WHO/SDE/WSH/03.02, Table S1',
     confidence: 'from-memory',
     note: 'document found; 20 L basic access corroborated by WHO/UNICEF JMP',
+    url: 'https://www.who.int/publications/i/item/WHO-SDE-WSH-03.02',
   },
-  { id: 'sphere-2018', citation: 'Sphere Handbook (2018): at least 15 L per person per day', confidence: 'found' },
-  { id: 'fao-56', citation: 'FAO Irrigation & Drainage Paper 56 (Allen et al. 1998): garden ET about 3–7 mm/day', confidence: 'from-memory' },
+  {
+    id: 'sphere-2018',
+    citation: 'Sphere Handbook (2018): at least 15 L per person per day',
+    confidence: 'found',
+    url: 'https://spherestandards.org/handbook-2018/',
+  },
+  {
+    id: 'fao-56',
+    citation: 'FAO Irrigation & Drainage Paper 56 (Allen et al. 1998): garden ET about 3–7 mm/day',
+    confidence: 'from-memory',
+    url: 'https://www.fao.org/3/x0490e/x0490e00.htm',
+  },
   { id: 'continuity', citation: 'Continuity: mean velocity v = Q/A', confidence: 'computed' },
   { id: 'monte-carlo', citation: 'Monte Carlo propagation of reading uncertainties, seeded generator (mulberry32, Box–Muller)', confidence: 'common-practice' },
   {
@@ -195,6 +237,7 @@ const list = [
       'Iversen (1975), "An analysis of the hydraulic ram", J. Fluids Eng. 97(2):191–196: the flow at waste-valve closure stays below the steady flow through the open valve',
     confidence: 'found',
     note: 'bibliographic data and the bound found; the loss coefficients used with it are from memory',
+    url: 'https://doi.org/10.1115/1.3447251',
   },
   {
     id: 'minor-loss-coefficients',
@@ -215,6 +258,7 @@ const list = [
     citation:
       'Plastic pipe under repeated pressure cycles: rate it for half its static pressure class when it sees 10⁷–10⁸ cycles a year (fatigue design of PVC pressure pipe, AWWA M23; PE, PPI Handbook of PE Pipe ch. 6)',
     confidence: 'from-memory',
+    url: 'https://plasticpipe.org/common/Uploaded%20files/Technical/PPI%20PEHandbook2022.pdf',
   },
   { id: 'malleable-fittings', citation: 'Threaded malleable-iron fittings (ASME B16.3): class 150 made to 6″, class 300 to 3″', confidence: 'from-memory' },
   {
@@ -222,6 +266,7 @@ const list = [
     citation:
       'Birge (1932), "The calculation of errors by the method of least squares", Phys. Rev. 40:207: scale the weighted mean\u2019s σ by √(χ²/(n − 1)) when results disagree',
     confidence: 'found',
+    url: 'https://doi.org/10.1103/PhysRev.40.207',
   },
   {
     id: 'efficiency-spread',
@@ -229,6 +274,7 @@ const list = [
       'Spread of ram efficiency between makes and set-ups: η typically 0.6, from 0.5 to 0.8 (Wikipedia "Hydraulic ram"; the 12 commercial rams of Tacke 1988, TU Delft, span a like range), taken as ±2σ: 12 % of η (1σ)',
     confidence: 'from-memory',
     note: 'the range is found; reading it as ±2σ is ours',
+    url: 'https://es.ircwash.org/node/30938',
   },
   {
     id: 'float-gauging-spread',
@@ -267,4 +313,9 @@ export const SOURCES: Readonly<Record<SourceId, Source>> = Object.fromEntries(li
 /** Looks up sources by id, in first-use order without duplicates. */
 export function sourcesFor(ids: Iterable<SourceId>): Source[] {
   return [...new Set(ids)].map((id) => SOURCES[id]);
+}
+
+/** A source's address by id (also for ids stored by older screenings); null when it has none or the id is unknown. */
+export function sourceUrl(id: string): string | null {
+  return (SOURCES as Readonly<Record<string, Source | undefined>>)[id]?.url ?? null;
 }

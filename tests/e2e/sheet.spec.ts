@@ -50,6 +50,16 @@ test('a farmer opens their sheet, downloads the PDF and acknowledges it', async 
   await expect(page.getByText(/This site can deliver [\d,]+ litres a day/)).toBeVisible();
   await expect(page.getByRole('img', { name: /Elevation profile/ })).toBeVisible();
   await expect(page.getByRole('heading', { name: 'Cautions' })).toBeVisible();
+  // Where the numbers come from: a source with an address opens its document in a new tab; one without is plain text.
+  const sources = page.locator('h3:text-is("Where the numbers come from") + ul > li');
+  const links = sources.locator('a');
+  expect(await links.count()).toBeGreaterThan(0);
+  for (const link of await links.all()) {
+    await expect(link).toHaveAttribute('href', /^https:\/\//);
+    await expect(link).toHaveAttribute('target', '_blank');
+    await expect(link).toHaveAttribute('rel', 'noopener noreferrer');
+  }
+  expect(await sources.filter({ hasNot: page.locator('a') }).count()).toBeGreaterThan(0);
   if (shots) {
     await page.screenshot({ path: `${shots}/sheet-phone.png`, fullPage: true });
     await page.emulateMedia({ media: 'print' });

@@ -111,6 +111,22 @@ describe('GET /api/visits/:id/sheet/pdf', () => {
     expect((await bad.json()).error.message).toMatch(/a4 or letter/);
   });
 
+  it('links the sources that have an address to their documents, the same ones the page links, and no others', async () => {
+    const { sheet } = await (await sheetAs(org.farmer)).json();
+    const sources: { citation: string; url: string | null }[] = sheet.sources;
+    const linked = sources.flatMap((s) => (s.url ? [s.url] : []));
+    expect(linked.length).toBeGreaterThan(0);
+    expect(sources.some((s) => s.url === null)).toBe(true);
+    const res = await getPdf(await request(`/api/visits/${org.visit.id}/sheet/pdf?paper=letter`, org.farmer), params({ id: org.visit.id }));
+    const parser = new PDFParse({ data: new Uint8Array(await res.arrayBuffer()) });
+    try {
+      const links = (await parser.getInfo({ parsePageInfo: true })).pages.flatMap((p) => p.links);
+      expect([...new Set(links.map((l) => l.url))].sort()).toEqual([...new Set(linked)].sort());
+    } finally {
+      await parser.destroy();
+    }
+  });
+
   it('another farmer cannot download it', async () => {
     const res = await getPdf(await request(`/api/visits/${org.visit.id}/sheet/pdf`, org.otherFarmer), params({ id: org.visit.id }));
     expect(res.status).toBe(404);

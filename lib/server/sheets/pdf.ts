@@ -1,6 +1,6 @@
 import 'server-only';
 import PDFDocument from 'pdfkit';
-import type { SheetView } from '@/lib/shared/sheet/view-model';
+import type { SheetSourceLine, SheetView } from '@/lib/shared/sheet/view-model';
 import { INK, RULE, STONE, VERDICT_COLOURS, drawProfile, drawSiteMap, drawVerdictMark } from './pdf-drawings';
 import { heightOf, registerFonts, write, type Face } from './pdf-fonts';
 
@@ -38,6 +38,13 @@ function body(doc: Doc, text: string, opts: { size?: number; colour?: string; fa
     { x: doc.page.margins.left, y: doc.y },
     { lineGap: 2, width: contentWidth(doc) },
   );
+}
+
+/** A source under "Where the numbers come from": a bullet, then its name, which links to the document where it has an address. */
+function sourceLine(doc: Doc, s: SheetSourceLine) {
+  const opts = { lineGap: 2, width: contentWidth(doc) };
+  write(doc.fontSize(8.5).fillColor(STONE), 'sans', '• ', { x: doc.page.margins.left, y: doc.y }, { ...opts, continued: true });
+  write(doc, 'sans', s.citation, null, s.url ? { ...opts, link: s.url } : opts);
 }
 
 const bodyHeight = (doc: Doc, text: string, size = 11, face: Face = 'sans') =>
@@ -292,7 +299,7 @@ export async function renderSheetPdf(v: SheetView, paper: Paper): Promise<Buffer
   doc.moveDown(0.3);
   ensureRoom(doc, 40);
   body(doc, 'Where the numbers come from', { size: 10, face: 'bold' });
-  for (const s of v.sources) body(doc, `• ${s.citation}`, { size: 8.5, colour: STONE });
+  for (const s of v.sources) sourceLine(doc, s);
   body(doc, `Screening engine version ${v.engineVersion}.`, { size: 8.5, colour: STONE });
 
   const pages = doc.bufferedPageRange();

@@ -1,6 +1,7 @@
 // The farmer's sheet as display strings: one pure function feeds both the page and the PDF, so
 // they always say the same thing. Every number comes from the stored screening (the engine).
 import type { FigureKey, Said, Screening } from '@/lib/engine/screening-types';
+import { sourceUrl } from '@/lib/engine/sources';
 import { VERDICT_WORDS, type UnitSystem, type Verdict } from '../domain';
 import { formatDay } from '../display/dates';
 import { profileGeometry, type ProfileGeometry } from './profile';
@@ -49,6 +50,13 @@ export interface SheetBomLine {
   price: string;
 }
 
+/** One source under "Where the numbers come from": its name in words and, where it has one, the document's address. */
+export interface SheetSourceLine {
+  id: string;
+  citation: string;
+  url: string | null;
+}
+
 export interface SheetView {
   visitId: string;
   units: UnitSystem;
@@ -68,7 +76,7 @@ export interface SheetView {
   surveyed: string;
   engineVersion: string;
   method: string[];
-  sources: { id: string; citation: string }[];
+  sources: SheetSourceLine[];
   profile: ProfileGeometry | null;
   /** The same profile laid out for a phone's width (under 640 px). */
   profileNarrow: ProfileGeometry | null;
@@ -254,8 +262,9 @@ export function buildSheetView(s: SheetSource, units: UnitSystem): SheetView {
     surveyed: `Surveyed by ${s.advisorName ?? 'an advisor'} on ${visited}; screened on ${formatDay(s.screenedAt)}.`,
     engineVersion: sc.engineVersion,
     method: methodNotes(s),
-    // Sources by their names in words, each once, in the order the rules cite them.
-    sources: [...new Map(sc.sources.map((src) => [src.citation, { id: src.id, citation: src.citation }])).values()],
+    // Sources by their names in words, each once, in the order the rules cite them; the address comes from today's
+    // registry, so a sheet screened before a source had one links to it too.
+    sources: [...new Map(sc.sources.map((src) => [src.citation, { id: src.id, citation: src.citation, url: sourceUrl(src.id) }])).values()],
     profile,
     profileNarrow,
     map: siteMapGeometry(

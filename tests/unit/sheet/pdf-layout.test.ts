@@ -123,3 +123,39 @@ describe('the PDF ten-year table', () => {
     }
   });
 });
+
+describe('the PDF sources', () => {
+  // Every link annotation in the PDF, with the text it lies over.
+  async function linksOf(view: SheetView): Promise<{ text: string; url: string }[]> {
+    const parser = new PDFParse({ data: new Uint8Array(await renderSheetPdf(view, 'a4')) });
+    try {
+      return (await parser.getInfo({ parsePageInfo: true })).pages.flatMap((p) => p.links);
+    } finally {
+      await parser.destroy();
+    }
+  }
+
+  it("makes a linked source's name a link to its document and leaves an unlinked one plain; the words stay the same", async () => {
+    const view = buildSheetView(brandtLikeSource(), 'metric');
+    view.sources = [
+      { id: 'linked', citation: 'Iversen (1975), An analysis of the hydraulic ram', url: 'https://doi.org/10.1115/1.3447251' },
+      { id: 'plain', citation: 'Engineering judgement of the trade', url: null },
+    ];
+    const links = await linksOf(view);
+    expect(links).toHaveLength(1);
+    expect(links[0]?.url).toBe('https://doi.org/10.1115/1.3447251');
+    expect(links[0]?.text.replace(/\s+/g, ' ')).toContain('Iversen (1975)');
+    expect(links[0]?.text).not.toContain('Engineering judgement');
+    const text = (await pagesOf(view, 'a4')).join('\n').replace(/\s+/g, ' ');
+    expect(text).toContain('• Iversen (1975), An analysis of the hydraulic ram');
+    expect(text).toContain('• Engineering judgement of the trade');
+  });
+
+  it('links every source of a real sheet that the registry gives an address, and no other', async () => {
+    const view = buildSheetView(brandtLikeSource(), 'metric');
+    const withUrl = view.sources.filter((s) => s.url);
+    expect(withUrl.length).toBeGreaterThan(0);
+    const urls = (await linksOf(view)).map((l) => l.url);
+    expect([...new Set(urls)].sort()).toEqual(withUrl.map((s) => s.url).sort());
+  });
+});

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { buildSheetView, chance, needPhrase, summarySentences } from '@/lib/shared/sheet/view-model';
 import { dailyInWords, quantity, roughly } from '@/lib/shared/display/quantities';
 import { plainTrade } from '@/lib/shared/sheet/trade-words';
+import { SOURCES, type SourceId } from '@/lib/engine/sources';
 import { brandtLikeSource, gravitySource } from './fixture';
 
 const source = brandtLikeSource();
@@ -154,6 +155,19 @@ describe('figures said plainly', () => {
     expect(view.sources.length).toBeGreaterThan(5);
     for (const s of view.sources) expect(s.citation).not.toMatch(/^[a-z0-9]+(-[a-z0-9]+)+$/);
     expect(new Set(view.sources.map((s) => s.citation)).size).toBe(view.sources.length);
+  });
+
+  it("gives each source the registry's address where it has one, and none where it has not", () => {
+    const view = buildSheetView(source, 'metric');
+    for (const s of view.sources) expect(s.url, s.id).toBe(SOURCES[s.id as SourceId].url ?? null);
+    expect(view.sources.some((s) => s.url !== null)).toBe(true);
+    expect(view.sources.some((s) => s.url === null)).toBe(true);
+  });
+
+  it('links the sources of a sheet screened before the registry had addresses (stored without them)', () => {
+    const old = brandtLikeSource();
+    old.screening = { ...old.screening, sources: [{ id: 'iversen-1975', citation: 'Iversen (1975)', confidence: 'found' }] };
+    expect(buildSheetView(old, 'metric').sources).toEqual([{ id: 'iversen-1975', citation: 'Iversen (1975)', url: SOURCES['iversen-1975'].url }]);
   });
 });
 

@@ -2,6 +2,7 @@ import { VerdictMark } from '@/components/verdict-mark';
 import type { SheetView } from '@/lib/shared/sheet/view-model';
 import { ProfileDrawing } from './profile-drawing';
 import { SiteMapDrawing } from './site-map-drawing';
+import { SourceList } from './source-list';
 
 function Section({ title, children }: { title: string; children: React.ReactNode }) {
   return (
@@ -191,11 +192,7 @@ export function SheetBody({ v }: { v: SheetView }) {
           ))}
         </ul>
         <h3 className="font-bold">Where the numbers come from</h3>
-        <ul className="space-y-1 text-base text-stone">
-          {v.sources.map((s) => (
-            <li key={s.id}>{s.citation}</li>
-          ))}
-        </ul>
+        <SourceList sources={v.sources} />
         <p className="text-base text-stone">
           Screening engine version <span className="figure">{v.engineVersion}</span>.
         </p>
