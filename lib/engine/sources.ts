@@ -23,7 +23,6 @@ const list = [
     citation: 'Building Trades Pocketbook, "The Hydraulic Ram" (International Textbook Co., c.1899–1905)',
     confidence: 'found',
     note: 'Efficiency vs lift/fall table r = 4…26; drive pipe 25–50 ft',
-    url: 'https://chestofbooks.com/architecture/Building-Trades-Pocketbook/Water-Supply-And-Distribution-Methods-Of-Supply-Continued.html',
   },
   { id: 'eytelwein-1805', citation: 'Eytelwein (1805), empirical ram efficiency η = 1.12 − 0.2·√(h/H)', confidence: 'from-memory' },
   { id: 'ogden-1911', citation: 'Ogden (1911), Rural Hygiene, Table XI (ram sizes vs drive flow; about 30 ft lift per ft of fall)', confidence: 'found' },
