@@ -55,6 +55,22 @@ describe('push: create, update, delete', () => {
     expect(lift.bookings).toMatchObject({ bookedFrom: 'pump' });
   });
 
+  it('screens again after readings the engine reads, not after points or photos (which it does not read)', async () => {
+    const o = await makeOrganisation('push-screen-inputs');
+    const { ids, ops } = readingOps(o.visit.id, o.farm.id);
+    await push(o.advisor, { ops });
+    expect(await Screening.count({ where: { visitId: o.visit.id } })).toBe(1);
+    // With the stored screening gone, any screening run would store one again.
+    await Screening.destroy({ where: { visitId: o.visit.id } });
+    const points = await push(o.advisor, { ops: [putOp('point', randomUUID(), pointFields(o.visit.id, 'Station 9'))] });
+    expect(points.results.map((r) => r.status)).toEqual(['applied']);
+    expect(await Screening.count({ where: { visitId: o.visit.id } })).toBe(0);
+    const flowRev = (await FlowMeasurement.findByPk(ids.flow, { rejectOnEmpty: true })).rev;
+    const flow = await push(o.advisor, { ops: [putOp('flowMeasurement', ids.flow, { notes: 'Read again at noon' }, { baseRev: Number(flowRev), base: {} })] });
+    expect(flow.results.map((r) => r.status)).toEqual(['applied']);
+    expect(await Screening.count({ where: { visitId: o.visit.id } })).toBe(1);
+  });
+
   it('round-trips creates, updates and deletes through pull in the protocol shape', async () => {
     const o = await makeOrganisation('push-round');
     const { ids, ops } = readingOps(o.visit.id, o.farm.id);

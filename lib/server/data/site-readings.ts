@@ -3,6 +3,7 @@ import type { Transaction } from 'sequelize';
 import { DemandLine, FallReading, FlowMeasurement, Organisation, PipeRun, Visit } from '@/lib/server/db';
 import { knownDemandFigures } from '@/lib/shared/demand-kinds';
 import type { SiteReadingsInput } from '@/lib/shared/schemas/site-readings';
+import type { SyncEntity } from '@/lib/shared/schemas/sync';
 import { buildSiteReadings } from '@/lib/shared/site-readings-input';
 import { ENTITY_SPECS, pulledRecord, type SyncedRow } from '../sync/entities';
 
@@ -10,6 +11,9 @@ import { ENTITY_SPECS, pulledRecord, type SyncedRow } from '../sync/entities';
 function records<T>(entity: keyof typeof ENTITY_SPECS, rows: readonly unknown[]): T[] {
   return rows.map((row) => pulledRecord(ENTITY_SPECS[entity], row as SyncedRow) as T);
 }
+
+/** The synced records loadSiteReadings reads: a change to any other (a point, a photo) leaves the screening as it is. */
+export const SCREENING_INPUTS: ReadonlySet<SyncEntity> = new Set<SyncEntity>(['flowMeasurement', 'fallReading', 'pipeRun', 'demandLine']);
 
 /**
  * A visit's stored raw readings in the engine's input shape (not yet validated: the caller parses

@@ -3,6 +3,7 @@ import { Op, Transaction, UniqueConstraintError } from 'sequelize';
 import { SyncOp as SyncOpRow, Visit, batchInsert, getSequelize, reserveRevs, selectRows, txConnection, writeSyncedRows, type PlainRow } from '@/lib/server/db';
 import type { OpResult, SyncEntity, SyncOp } from '@/lib/shared/schemas/sync';
 import { recordAudit, recordAudits } from '../audit';
+import { SCREENING_INPUTS } from '../data/site-readings';
 import type { SessionUser } from '../auth/permissions';
 import { screenSoon } from '../services/screening-queue';
 import { SyncAccess } from './access';
@@ -187,9 +188,12 @@ async function planBatch(
   return plans;
 }
 
-/** Visits whose screening may change: those touched directly, and walked visits on touched farms. */
-async function visitsToScreen(effects: OpEffect[], transaction: Transaction): Promise<string[]> {
-  const applied = effects.filter((e) => e.result.status === 'applied');
+/**
+ * Visits whose screening may change: those whose readings the engine reads were touched, and walked
+ * visits on farms whose water needs were touched. A batch of points or photos screens nothing.
+ */
+async function visitsToScreen(effects: OpEffect[], ops: SyncOp[], transaction: Transaction): Promise<string[]> {
+  const applied = effects.filter((e, i) => e.result.status === 'applied' && SCREENING_INPUTS.has(ops[i]?.entity as SyncEntity));
   const ids = new Set(applied.map((e) => e.visitId).filter((id): id is string => !!id));
   const farmIds = [...new Set(applied.map((e) => e.farmId).filter((id): id is string => !!id))];
   if (farmIds.length > 0) {
@@ -282,7 +286,7 @@ export async function pushOps(user: SessionUser, ops: SyncOp[]): Promise<OpResul
           ),
         ]);
         unlocked.catch(() => undefined); // its failure is thrown below, not reported as unhandled
-        const screen = await visitsToScreen(plans, transaction);
+        const screen = await visitsToScreen(plans, ops, transaction);
         await writePlans(plans, ops, fresh, user.id, transaction);
         await unlocked;
         await markSurveyed(booked, access, transaction);
