@@ -5,6 +5,7 @@ import { useState } from 'react';
 import { signInWithPassword } from '@/lib/client/sign-in';
 import { sameOriginPath } from '@/lib/shared/return-path';
 import { signInProblems } from '@/lib/shared/sign-in-rules';
+import { Button } from '@/components/ui/button';
 
 /**
  * The sign-in form: the first page a phone loads, so it carries no form or schema library (the
@@ -88,9 +89,9 @@ export function SignInForm({ returnTo }: { returnTo?: string }) {
           {serverError}
         </p>
       )}
-      <button type="submit" disabled={isSubmitting} className="min-h-14 w-full rounded-md bg-slate px-4 text-xl font-bold text-white disabled:opacity-70">
+      <Button size="xl" className="w-full" type="submit" disabled={isSubmitting}>
         {isSubmitting ? 'Signing in…' : 'Sign in'}
-      </button>
+      </Button>
     </form>
   );
 }

@@ -11,6 +11,7 @@ import type { UnitSystem } from '@/lib/shared/domain';
 import { plainIssueMessage } from '@/lib/shared/field-messages';
 import { unusualIn, withConfirmations, type Unusual } from '@/lib/shared/plausibility';
 import { recordSchemas, type EntityFields, type SyncEntity } from '@/lib/shared/schemas/sync';
+import { Button } from '@/components/ui/button';
 
 export interface RecordCheck {
   /** The message for a path ("measurement.trials.2.seconds"), or for any path under it. */
@@ -114,9 +115,9 @@ export function FieldIssue({ check, path, under = false }: { check: RecordCheck;
       {asks.map((u) => (
         <div key={u.code} role="alert" className="rounded-md border-2 border-ochre bg-white p-3">
           <p className="font-bold">{u.message}</p>
-          <button type="button" onClick={() => check.confirm(u.code)} className="mt-2 min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate">
+          <Button variant="secondary" className="mt-2" onClick={() => check.confirm(u.code)}>
             Yes, this is right
-          </button>
+          </Button>
         </div>
       ))}
     </div>

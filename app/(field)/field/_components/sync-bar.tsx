@@ -9,6 +9,7 @@ import { formatCount } from '@/lib/shared/display/numbers';
 import { useFieldUser } from './field-session';
 import { decisionWords, waitingWords } from './sync-words';
 import { useFrameQuery } from './use-frame-query';
+import { Button } from '@/components/ui/button';
 
 function timeOf(iso: string | undefined, units: UnitSystem): string {
   return iso ? formatClock(new Date(iso), units) : 'never';
@@ -49,14 +50,15 @@ export function SyncBar() {
           <span className="block text-stone">{ready && state ? `Last sync ${timeOf(state.lastSuccess, user?.units ?? 'metric')}` : 'Last sync …'}</span>
           {ready && state && <Notices state={state} />}
         </div>
-        <button
-          type="button"
+        <Button
+          variant="secondary"
+          className="disabled:opacity-60"
+
           onClick={syncNow}
           disabled={busy || !ready}
-          className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate disabled:opacity-60"
         >
           {busy ? 'Syncing…' : 'Sync now'}
-        </button>
+        </Button>
       </div>
       {progress && (
         <div className="mx-auto max-w-3xl px-4 pb-2">

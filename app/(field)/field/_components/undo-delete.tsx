@@ -6,6 +6,7 @@ import { useEffect, useRef, useState } from 'react';
 import { deleteRecord, undoDelete } from '@/lib/client/outbox';
 import { announceSave } from '@/lib/client/sync/triggers';
 import type { SyncEntity } from '@/lib/shared/schemas/sync';
+import { Button } from '@/components/ui/button';
 
 /** How long the delete waits before the phone offers it to the server. */
 export const UNDO_WINDOW_MS = 10_000;
@@ -61,9 +62,9 @@ export function useUndoableDelete() {
       <div role="status" className="flex items-center justify-between gap-3 rounded-md border-2 border-slate bg-white p-3" data-testid="undo-bar">
         <p className="font-bold">{pending ? `Deleted: ${pending.what}.` : note}</p>
         {pending && (
-          <button type="button" onClick={undo} className="min-h-12 min-w-24 rounded-md bg-slate px-4 font-bold text-white">
+          <Button className="min-w-24" onClick={undo}>
             Undo
-          </button>
+          </Button>
         )}
       </div>
     ) : null;

@@ -13,6 +13,7 @@ import { useFieldUser } from '../_components/field-session';
 import { decisionWords, waitingWords } from '../_components/sync-words';
 import { useFrameQuery } from '../_components/use-frame-query';
 import { useUnits } from '../_components/use-field-data';
+import { Button } from '@/components/ui/button';
 
 function Conflict({ entry, units }: { entry: OutboxEntry; units: UnitSystem }) {
   const fields = entry.result?.conflict?.fields ?? [];
@@ -40,12 +41,12 @@ function Conflict({ entry, units }: { entry: OutboxEntry; units: UnitSystem }) {
         </tbody>
       </table>
       <div className="grid grid-cols-2 gap-2">
-        <button type="button" className="min-h-12 rounded-md bg-slate font-bold text-white" onClick={() => resolveConflict(entry.seq!, 'mine')}>
+        <Button size="wide" onClick={() => resolveConflict(entry.seq!, 'mine')}>
           Keep mine
-        </button>
-        <button type="button" className="min-h-12 rounded-md border-2 border-slate font-bold text-slate" onClick={() => resolveConflict(entry.seq!, 'theirs')}>
+        </Button>
+        <Button variant="secondary" size="wide" onClick={() => resolveConflict(entry.seq!, 'theirs')}>
           Take the server&apos;s
-        </button>
+        </Button>
       </div>
     </li>
   );
@@ -66,12 +67,12 @@ function Refused({ entry }: { entry: OutboxEntry }) {
       <p>{refusalReason(entry)}</p>
       <p className="text-stone">Give it up to put back what the server holds; send it again once the reason is fixed.</p>
       <div className="grid grid-cols-2 gap-2">
-        <button type="button" className="min-h-12 rounded-md bg-slate font-bold text-white" onClick={() => retryParked(entry.seq!)}>
+        <Button size="wide" onClick={() => retryParked(entry.seq!)}>
           Send again
-        </button>
-        <button type="button" className="min-h-12 rounded-md border-2 border-clay font-bold text-clay" onClick={() => discardParked(entry.seq!)}>
+        </Button>
+        <Button variant="danger" size="wide" onClick={() => discardParked(entry.seq!)}>
           Give it up
-        </button>
+        </Button>
       </div>
     </li>
   );
@@ -98,9 +99,9 @@ function RefusedPhotos() {
           <li key={p.id} className="space-y-2 rounded-md border-2 border-clay bg-white p-3">
             <p className="font-bold">{p.caption ? `Photo “${p.caption}”` : 'A photo'}</p>
             <p>{p.error?.message}</p>
-            <button type="button" className="min-h-12 w-full rounded-md bg-slate font-bold text-white" onClick={() => tryAgain(p.id)}>
+            <Button size="wide" onClick={() => tryAgain(p.id)}>
               Try again now
-            </button>
+            </Button>
           </li>
         ))}
       </ul>

@@ -6,8 +6,8 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { apiJson, applyFieldErrors } from '@/lib/client/api';
 import { acceptInvitationSchema, type AcceptInvitationInput } from '@/lib/shared/schemas/office';
-
-const field = 'mt-1 block min-h-12 w-full rounded-md border-2 border-stone bg-white px-3 text-lg';
+import { Input } from '@/components/ui/control';
+import { Button } from '@/components/ui/button';
 
 /** Sets the password of an invited account; the link is spent on success. */
 export function SetPasswordForm({ token, email }: { token: string; email: string }) {
@@ -41,11 +41,12 @@ export function SetPasswordForm({ token, email }: { token: string; email: string
         <label htmlFor="password" className="block text-lg font-bold">
           New password
         </label>
-        <input
+        <Input
+          className="px-3"
           id="password"
           type="password"
           autoComplete="new-password"
-          className={field}
+
           aria-invalid={!!errors.password}
           aria-describedby="password-help"
           {...register('password')}
@@ -59,7 +60,7 @@ export function SetPasswordForm({ token, email }: { token: string; email: string
         <label htmlFor="confirm" className="block text-lg font-bold">
           The same password again
         </label>
-        <input id="confirm" type="password" autoComplete="new-password" className={field} aria-invalid={!!errors.confirm} {...register('confirm')} />
+        <Input className="px-3" id="confirm" type="password" autoComplete="new-password" aria-invalid={!!errors.confirm} {...register('confirm')} />
         {errors.confirm && <p className="mt-1 font-bold text-clay">{errors.confirm.message}</p>}
       </div>
       {serverError && (
@@ -67,9 +68,9 @@ export function SetPasswordForm({ token, email }: { token: string; email: string
           {serverError}
         </p>
       )}
-      <button type="submit" disabled={isSubmitting} className="min-h-14 w-full rounded-md bg-slate px-4 text-xl font-bold text-white disabled:opacity-70">
+      <Button size="xl" className="w-full" type="submit" disabled={isSubmitting}>
         {isSubmitting ? 'Saving…' : 'Set my password'}
-      </button>
+      </Button>
     </form>
   );
 }

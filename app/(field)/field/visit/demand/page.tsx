@@ -18,6 +18,7 @@ import { NumberField } from '../../_components/number-field';
 import { FieldIssue, useRecordCheck } from '../../_components/record-check';
 import { useUnits, useVisit, useVisitId } from '../../_components/use-field-data';
 import { useUndoableDelete } from '../../_components/undo-delete';
+import { Button } from '@/components/ui/button';
 
 const KINDS = Object.values(DEMAND_CATALOGUE);
 
@@ -108,9 +109,9 @@ function DemandPage() {
                 {perHeadText(l.kind, l.litresPerHeadPerDay, units)} · {sourceName(l.figureSource)}
               </span>
             </span>
-            <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold" onClick={() => remove('demandLine', l.id, 'the line')}>
+            <Button variant="quiet" size="sm" onClick={() => remove('demandLine', l.id, 'the line')}>
               Delete
-            </button>
+            </Button>
           </li>
         ))}
       </ul>

@@ -10,6 +10,7 @@ import { useUnits, useVisitId } from '../../_components/use-field-data';
 import { useUndoableDelete } from '../../_components/undo-delete';
 import { FallForm } from './_components/fall-form';
 import { liveResult } from './_components/run-builders';
+import { Button } from '@/components/ui/button';
 
 function FallPage() {
   const visitId = useVisitId();
@@ -52,13 +53,14 @@ function FallPage() {
                   </span>
                   <span className="figure block">{showQuantity(drop === null ? null : Math.abs(drop), 'length', units)}</span>
                 </span>
-                <button
-                  type="button"
-                  className="min-h-12 rounded-md border-2 border-stone px-3 font-bold"
+                <Button
+                  variant="quiet"
+                  size="sm"
+
                   onClick={() => remove('fallReading', r.id, r.purpose === 'fall' ? 'the fall run' : 'the lift run')}
                 >
                   Delete
-                </button>
+                </Button>
               </li>
             );
           })}

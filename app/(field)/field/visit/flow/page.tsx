@@ -16,6 +16,7 @@ import { SectionHeader } from '../../_components/choice';
 import { useUnits, useVisitId } from '../../_components/use-field-data';
 import { useUndoableDelete } from '../../_components/undo-delete';
 import { FlowForm } from './_components/flow-form';
+import { Button } from '@/components/ui/button';
 
 function meanLps(m: FlowMeasurement): number | null {
   try {
@@ -68,9 +69,9 @@ function SourceName({ visitId, units }: { visitId: string; units: UnitSystem }) 
         onChange={(e) => setName(e.target.value)}
         className="min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-xl"
       />
-      <button type="submit" className="min-h-14 w-full rounded-md bg-slate text-xl font-bold text-white">
+      <Button size="wide" className="min-h-14 text-xl" type="submit">
         Start measuring this source
-      </button>
+      </Button>
     </form>
   );
 }
@@ -100,13 +101,14 @@ function FlowPage() {
                   {showQuantity(meanLps(m.measurement), 'flowLps', units)} mean of {formatCount(m.measurement.trials.length, 'trial')}
                 </span>
               </span>
-              <button
-                type="button"
-                className="min-h-12 rounded-md border-2 border-stone px-3 font-bold"
+              <Button
+                variant="quiet"
+                size="sm"
+
                 onClick={() => remove('flowMeasurement', m.id, 'the flow measurement')}
               >
                 Delete
-              </button>
+              </Button>
             </li>
           ))}
         </ul>

@@ -11,6 +11,7 @@ import { announceSave } from '@/lib/client/sync/triggers';
 import { SectionHeader } from '../../_components/choice';
 import { useVisitId } from '../../_components/use-field-data';
 import { useUndoableDelete } from '../../_components/undo-delete';
+import { Button } from '@/components/ui/button';
 
 /** A photo shown from the phone's own bytes, or the server's thumbnail when it came from elsewhere. */
 function Thumb({ id, alt }: { id: string; alt: string }) {
@@ -93,13 +94,15 @@ function PhotosPage() {
             <Thumb id={p.id} alt={p.caption || 'Site photo'} />
             <span className="mt-1 block text-sm">{p.lat !== null ? `${p.lat.toFixed(5)}, ${p.lon?.toFixed(5)}` : 'No position'}</span>
             <span className="block text-sm font-bold">{p.uploaded ? 'On the server' : 'Waiting to upload'}</span>
-            <button
-              type="button"
-              className="mt-1 min-h-12 w-full rounded-md border-2 border-stone font-bold"
+            <Button
+              variant="quiet"
+              size="wide"
+              className="mt-1"
+
               onClick={() => remove('photo', p.id, 'the photo')}
             >
               Delete
-            </button>
+            </Button>
           </li>
         ))}
       </ul>

@@ -12,6 +12,7 @@ import { OfflineMapNote } from '../../_components/offline-map-note';
 import { useUnits, useVisitId } from '../../_components/use-field-data';
 import { useUndoableDelete } from '../../_components/undo-delete';
 import { PointForm } from './_components/point-form';
+import { Button } from '@/components/ui/button';
 
 function PointsPage() {
   const visitId = useVisitId();
@@ -57,9 +58,9 @@ function PointsPage() {
                   {p.accuracyM !== null ? ` ± ${showQuantity(p.accuracyM, 'accuracy', units)}` : ''}
                 </span>
               </span>
-              <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold" onClick={() => remove('point', p.id, 'the point')}>
+              <Button variant="quiet" size="sm" onClick={() => remove('point', p.id, 'the point')}>
                 Delete
-              </button>
+              </Button>
             </li>
           ))}
         </ul>

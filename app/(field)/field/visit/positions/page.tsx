@@ -18,6 +18,7 @@ import { useUndoableDelete } from '../../_components/undo-delete';
 import { PositionsChart } from './_components/positions-chart';
 import { PositionsMapPanel } from './_components/positions-map-panel';
 import { StationForm } from './_components/station-form';
+import { Button } from '@/components/ui/button';
 
 function PositionsPage() {
   const visitId = useVisitId();
@@ -100,9 +101,9 @@ function PositionsPage() {
           <NumberField label="Along the bank at" quantity="length" units={units} value={chainM} onChange={setTankChainage} />
           <NumberField label="Distance away from the creek" quantity="length" units={units} value={offsetM} onChange={setOffsetM} />
         </div>
-        <button type="button" onClick={saveTank} className="min-h-12 w-full rounded-md border-2 border-slate font-bold text-slate">
+        <Button variant="secondary" size="wide" onClick={saveTank}>
           Save tank
-        </button>
+        </Button>
       </fieldset>
       <PositionsChart stations={profile.stations} tank={tank} pairs={result?.ranked ?? []} units={units} />
       <PositionsMapPanel stations={profile.stations} tankPoint={tp} pairs={result?.ranked ?? []} />
@@ -156,9 +157,9 @@ function PositionsPage() {
                 <p>
                   Screen: <VerdictMark verdict={p.screening.verdict} />
                 </p>
-                <button type="button" onClick={() => adopt(p.rank)} className="mt-2 min-h-12 w-full rounded-md border-2 border-slate font-bold text-slate">
+                <Button variant="secondary" size="wide" className="mt-2" onClick={() => adopt(p.rank)}>
                   Adopt pair {p.rank}
-                </button>
+                </Button>
               </li>
             ))}
           </ol>
@@ -205,9 +206,9 @@ function StationList({ visitId, units }: { visitId: string; units: ReturnType<ty
               {p.flags?.includes('no-pump-site') ? ' · floods' : ''}
               {p.flags?.includes('no-intake') ? ' · no intake' : ''}
             </span>
-            <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold" onClick={() => remove('point', p.id, 'the station')}>
+            <Button variant="quiet" size="sm" onClick={() => remove('point', p.id, 'the station')}>
               Delete
-            </button>
+            </Button>
           </li>
         ))}
       </ul>

@@ -14,6 +14,7 @@ import { showQuantity } from '@/lib/shared/display/quantities';
 import { idParam } from '@/lib/shared/schemas/list-query';
 import { ACTIVE_STATUSES } from '@/lib/shared/visit-states';
 import { FarmForm } from './_components/farm-form';
+import { ButtonLink } from '@/components/ui/button';
 
 export const metadata: Metadata = { title: 'Farm' };
 
@@ -42,9 +43,7 @@ export default async function FarmPage({ params }: { params: Promise<{ id: strin
             {needs.tankSite ? ` · tank: ${needs.tankSite}` : ''}
           </p>
         </div>
-        <Link href={`/office/visits/new?farm=${id}`} className="inline-flex min-h-12 items-center rounded-md bg-slate px-4 font-bold text-white no-underline">
-          Plan a visit
-        </Link>
+        <ButtonLink href={`/office/visits/new?farm=${id}`}>Plan a visit</ButtonLink>
       </div>
       {active.length > 0 && (
         <p className="font-bold text-ochre">{active.length === 1 ? 'One visit is' : `${active.length} visits are`} under way for this farm.</p>

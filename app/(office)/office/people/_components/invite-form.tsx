@@ -6,8 +6,8 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { apiJson, applyFieldErrors } from '@/lib/client/api';
 import { invitationSchema, type InvitationInput } from '@/lib/shared/schemas/office';
-
-const field = 'mt-1 block min-h-12 w-full rounded-md border-2 border-stone bg-white px-2 text-lg';
+import { Input, Select } from '@/components/ui/control';
+import { Button } from '@/components/ui/button';
 
 /** Invites a coordinator, advisor or farmer: they get a one-time link by e-mail to set a password. */
 export function InviteForm() {
@@ -46,9 +46,9 @@ export function InviteForm() {
           <label htmlFor="invite-name" className="block font-bold">
             Name
           </label>
-          <input
+          <Input
             id="invite-name"
-            className={field}
+
             aria-invalid={!!errors.name}
             aria-describedby={errors.name ? 'name-error' : undefined}
             {...register('name')}
@@ -59,11 +59,11 @@ export function InviteForm() {
           <label htmlFor="invite-email" className="block font-bold">
             E-mail
           </label>
-          <input
+          <Input
             id="invite-email"
             type="email"
             inputMode="email"
-            className={field}
+
             aria-invalid={!!errors.email}
             aria-describedby={errors.email ? 'email-error' : undefined}
             {...register('email')}
@@ -74,17 +74,17 @@ export function InviteForm() {
           <label htmlFor="invite-role" className="block font-bold">
             Role
           </label>
-          <select id="invite-role" className={field} {...register('role')}>
+          <Select id="invite-role" {...register('role')}>
             <option value="advisor">Field advisor</option>
             <option value="farmer">Farmer</option>
             <option value="coordinator">Coordinator</option>
-          </select>
+          </Select>
           {err('role')}
         </div>
       </div>
-      <button type="submit" disabled={isSubmitting} className="min-h-12 rounded-md bg-slate px-5 text-lg font-bold text-white disabled:opacity-70">
+      <Button size="lg" type="submit" disabled={isSubmitting}>
         {isSubmitting ? 'Sending…' : 'Send invitation'}
-      </button>
+      </Button>
       {result && (
         <p role={result.ok ? 'status' : 'alert'} className={`font-bold ${result.ok ? 'text-moss' : 'text-clay'}`}>
           {result.text}

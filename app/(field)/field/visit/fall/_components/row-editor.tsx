@@ -4,6 +4,7 @@ import type { ReactNode } from 'react';
 import type { UnitSystem } from '@/lib/shared/domain';
 import type { QuantityKind } from '@/lib/shared/display/quantities';
 import { NumberField } from '../../../_components/number-field';
+import { Button } from '@/components/ui/button';
 
 export type Row = Record<string, number | undefined>;
 
@@ -54,19 +55,21 @@ export function RowEditor({
             ))}
           </div>
           {rows.length > 1 && (
-            <button
-              type="button"
-              className="mt-2 min-h-12 rounded-md border-2 border-stone px-3 font-bold"
+            <Button
+              variant="quiet"
+              size="sm"
+              className="mt-2"
+
               onClick={() => onChange(rows.filter((_, j) => j !== i))}
             >
               Remove
-            </button>
+            </Button>
           )}
         </fieldset>
       ))}
-      <button type="button" onClick={() => onChange([...rows, {}])} className="min-h-12 w-full rounded-md border-2 border-slate font-bold text-slate">
+      <Button variant="secondary" size="wide" onClick={() => onChange([...rows, {}])}>
         {addLabel}
-      </button>
+      </Button>
     </div>
   );
 }

@@ -14,6 +14,7 @@ import { NumberField } from '../../../_components/number-field';
 import { FieldIssue, useRecordCheck } from '../../../_components/record-check';
 import { Stopwatch } from './stopwatch';
 import { TrialList } from './trial-list';
+import { Button } from '@/components/ui/button';
 
 type Method = 'volumetric' | 'v-notch' | 'float';
 type Season = 'dry' | 'wet' | 'unknown';
@@ -166,16 +167,16 @@ export function FlowForm({ visitId, sourceId, units }: { visitId: string; source
               </p>
             )}
           </NumberField>
-          <button
-            type="button"
+          <Button
+            variant="secondary"
+
             onClick={() => {
               addSeconds(typedSeconds);
               setTypedSeconds(undefined);
             }}
-            className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate"
           >
             Add typed trial
-          </button>
+          </Button>
           <TrialList items={seconds.map((s) => `${s.toFixed(1)} s`)} onRemove={(i) => setSeconds((l) => l.filter((_, j) => j !== i))} issueAt={trialIssue} />
         </>
       )}
@@ -195,9 +196,9 @@ export function FlowForm({ visitId, sourceId, units }: { visitId: string; source
               </p>
             )}
           </NumberField>
-          <button type="button" onClick={() => addHead(typedHead)} className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate">
+          <Button variant="secondary" onClick={() => addHead(typedHead)}>
             Add head reading
-          </button>
+          </Button>
           <TrialList
             items={heads.map((h) => showQuantity(h, 'length', units))}
             onRemove={(i) => setHeads((l) => l.filter((_, j) => j !== i))}

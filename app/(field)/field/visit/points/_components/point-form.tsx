@@ -12,6 +12,7 @@ import { Choice, PrimaryButton } from '../../../_components/choice';
 import { NumberField } from '../../../_components/number-field';
 import { FieldIssue, useRecordCheck } from '../../../_components/record-check';
 import type { MapPoint } from './point-map';
+import { Button } from '@/components/ui/button';
 
 const PointMap = dynamic(() => import('./point-map'), { ssr: false, loading: () => <p className="text-stone">Loading the map…</p> });
 
@@ -105,17 +106,19 @@ export function PointForm({ visitId, units, points }: { visitId: string; units: 
       </div>
       <div className="rounded-md border-2 border-rule bg-white p-3" aria-live="polite">
         {!watching && (
-          <button
-            type="button"
+          <Button
+            variant="secondary"
+            size="wide"
+            className="min-h-14 text-xl"
+
             onClick={() => {
               setFix(null);
               setWatching(true);
               setMessage(null);
             }}
-            className="min-h-14 w-full rounded-md border-2 border-slate text-xl font-bold text-slate"
           >
             Use my location
-          </button>
+          </Button>
         )}
         {watching && (
           <div className="space-y-2">
@@ -130,9 +133,9 @@ export function PointForm({ visitId, units, points }: { visitId: string; units: 
               )}
             </p>
             {fix && <PrimaryButton onClick={() => takeFix(fix)}>Use this fix</PrimaryButton>}
-            <button type="button" onClick={() => setWatching(false)} className="min-h-12 w-full rounded-md border-2 border-stone font-bold">
+            <Button variant="quiet" size="wide" onClick={() => setWatching(false)}>
               Stop
-            </button>
+            </Button>
           </div>
         )}
       </div>

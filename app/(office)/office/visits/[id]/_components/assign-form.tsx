@@ -7,8 +7,8 @@ import { useForm, useWatch } from 'react-hook-form';
 import { ApiError, apiJson, applyFieldErrors } from '@/lib/client/api';
 import { PastDayConfirm } from '@/components/past-day-confirm';
 import { visitAssignSchema, type VisitAssignInput } from '@/lib/shared/schemas/office';
-
-const field = 'mt-1 block min-h-12 w-full rounded-md border-2 border-stone bg-white px-2 text-lg';
+import { Input, Select } from '@/components/ui/control';
+import { Button } from '@/components/ui/button';
 
 /** Assign or reassign the visit; the server's "may hold unsynced data" answer becomes a warning to confirm. */
 export function AssignForm({
@@ -67,9 +67,9 @@ export function AssignForm({
           <label htmlFor="advisorId" className="block font-bold">
             Advisor
           </label>
-          <select
+          <Select
             id="advisorId"
-            className={field}
+
             aria-invalid={!!errors.advisorId}
             aria-describedby={errors.advisorId ? 'advisorId-error' : undefined}
             {...register('advisorId')}
@@ -80,7 +80,7 @@ export function AssignForm({
                 {a.name}
               </option>
             ))}
-          </select>
+          </Select>
           {errors.advisorId && (
             <p id="advisorId-error" className="mt-1 font-bold text-clay">
               {errors.advisorId.message}
@@ -91,10 +91,10 @@ export function AssignForm({
           <label htmlFor="plannedOn" className="block font-bold">
             Planned date
           </label>
-          <input
+          <Input
             id="plannedOn"
             type="date"
-            className={field}
+
             aria-invalid={!!errors.plannedOn}
             aria-describedby={errors.plannedOn ? 'plannedOn-error' : undefined}
             {...register('plannedOn')}
@@ -107,15 +107,15 @@ export function AssignForm({
           <PastDayConfirm day={plannedOn} field={register('confirmPast')} />
         </div>
       </div>
-      <button type="submit" disabled={isSubmitting} className="min-h-12 rounded-md bg-slate px-5 text-lg font-bold text-white disabled:opacity-70">
+      <Button size="lg" type="submit" disabled={isSubmitting}>
         {isSubmitting ? 'Saving…' : current.advisorId ? 'Save assignment' : 'Assign'}
-      </button>
+      </Button>
       {warning && (
         <div role="alert" className="rounded-md border-2 border-ochre p-3">
           <p className="font-bold text-ochre">⚠ {warning}</p>
-          <button type="button" onClick={() => send(getValues(), true)} className="mt-2 min-h-12 rounded-md border-2 border-ochre px-4 font-bold text-ochre">
+          <Button variant="caution" className="mt-2" onClick={() => send(getValues(), true)}>
             Reassign anyway
-          </button>
+          </Button>
         </div>
       )}
       {serverError && (

@@ -7,8 +7,9 @@ import { useForm, useWatch } from 'react-hook-form';
 import { PastDayConfirm } from '@/components/past-day-confirm';
 import { ApiError, apiJson, applyFieldErrors } from '@/lib/client/api';
 import { visitCreateSchema, type VisitCreateInput } from '@/lib/shared/schemas/office';
+import { Input, Select, TextArea } from '@/components/ui/control';
+import { Button } from '@/components/ui/button';
 
-const field = 'mt-1 block min-h-12 w-full rounded-md border-2 border-stone bg-white px-2 text-lg';
 type Opt = { id: string; name: string };
 
 /** Plans a visit for a farm; with an advisor and a date it is booked at once and the advisor e-mailed. */
@@ -41,35 +42,35 @@ export function NewVisitForm({ farms, advisors, farmId }: { farms: Opt[]; adviso
         <label htmlFor="farmId" className="block font-bold">
           Farm
         </label>
-        <select id="farmId" className={field} aria-invalid={!!errors.farmId} {...register('farmId')}>
+        <Select id="farmId" aria-invalid={!!errors.farmId} {...register('farmId')}>
           <option value="">Choose a farm…</option>
           {farms.map((f) => (
             <option key={f.id} value={f.id}>
               {f.name}
             </option>
           ))}
-        </select>
+        </Select>
         {err('farmId')}
       </div>
       <div>
         <label htmlFor="advisorId" className="block font-bold">
           Advisor (optional)
         </label>
-        <select id="advisorId" className={field} {...register('advisorId')}>
+        <Select id="advisorId" {...register('advisorId')}>
           <option value="">Not yet</option>
           {advisors.map((a) => (
             <option key={a.id} value={a.id}>
               {a.name}
             </option>
           ))}
-        </select>
+        </Select>
         {err('advisorId')}
       </div>
       <div>
         <label htmlFor="plannedOn" className="block font-bold">
           Planned date (optional)
         </label>
-        <input id="plannedOn" type="date" className={field} {...register('plannedOn')} />
+        <Input id="plannedOn" type="date" {...register('plannedOn')} />
         {err('plannedOn')}
         <PastDayConfirm day={plannedOn} field={register('confirmPast')} />
       </div>
@@ -77,7 +78,7 @@ export function NewVisitForm({ farms, advisors, farmId }: { farms: Opt[]; adviso
         <label htmlFor="notes" className="block font-bold">
           Notes for the advisor
         </label>
-        <textarea id="notes" rows={3} className={`${field} py-2`} {...register('notes')} />
+        <TextArea id="notes" rows={3} {...register('notes')} />
         {err('notes')}
       </div>
       {serverError && (
@@ -88,18 +89,19 @@ export function NewVisitForm({ farms, advisors, farmId }: { farms: Opt[]; adviso
       {duplicate && (
         <div role="alert" className="rounded-md border-2 border-ochre p-3">
           <p className="font-bold text-ochre">⚠ {duplicate}</p>
-          <button
-            type="button"
+          <Button
+            variant="caution"
+            className="mt-2"
+
             onClick={() => onSubmit(visitCreateSchema.parse(getValues()), true)}
-            className="mt-2 min-h-12 rounded-md border-2 border-ochre px-4 font-bold text-ochre"
           >
             Plan another visit anyway
-          </button>
+          </Button>
         </div>
       )}
-      <button type="submit" disabled={isSubmitting} className="min-h-12 rounded-md bg-slate px-5 text-lg font-bold text-white disabled:opacity-70">
+      <Button size="lg" type="submit" disabled={isSubmitting}>
         {isSubmitting ? 'Saving…' : 'Plan the visit'}
-      </button>
+      </Button>
     </form>
   );
 }
