@@ -1,7 +1,7 @@
-import type { OpenQuestion } from '@/lib/shared/conversation';
-import { formatDateTime } from '@/lib/shared/display/dates';
 import { Card } from '@/components/ui/card';
 import { TapLink } from '@/components/ui/tap-link';
+import type { OpenQuestion } from '@/lib/shared/conversation';
+import { formatDateTime } from '@/lib/shared/display/dates';
 
 /** Farmers' questions still waiting for an answer, each linking to its sheet's conversation. */
 export function OpenQuestions({ questions, empty }: { questions: OpenQuestion[]; empty?: string }) {

@@ -2,8 +2,8 @@
 
 import { useEffect, useRef, useState } from 'react';
 import type { Workbox } from 'workbox-window';
-import { hasUnsavedInput } from '@/lib/client/dirty';
 import { Button } from '@/components/ui/button';
+import { hasUnsavedInput } from '@/lib/client/dirty';
 
 /**
  * Registers the service worker built into /sw.js (production builds only) and offers updates:

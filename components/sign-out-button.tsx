@@ -1,7 +1,7 @@
 'use client';
 
-import { signOutTo } from '@/lib/client/sign-out';
 import { Button } from '@/components/ui/button';
+import { signOutTo } from '@/lib/client/sign-out';
 
 export function SignOutButton() {
   return (

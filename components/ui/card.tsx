@@ -3,7 +3,7 @@ import { cn } from './cn';
 
 export type CardTone = 'plain' | 'field' | 'strong' | 'caution' | 'alarm' | 'creek';
 export type CardPadding = 'none' | 'sm' | 'md' | 'lg';
-type CardElement = 'div' | 'section' | 'article' | 'aside' | 'li' | 'ul' | 'ol' | 'form' | 'fieldset';
+type CardElement = 'div' | 'section' | 'article' | 'aside' | 'li' | 'ul' | 'ol' | 'form' | 'fieldset' | 'figure' | 'details' | 'p';
 
 // A white panel on the paper background; the border says what kind of panel it is.
 const TONES: Record<CardTone, string> = {
@@ -28,7 +28,7 @@ export function cardClasses({ tone = 'plain', padding = 'lg', className }: CardL
   return cn('rounded-md bg-white', TONES[tone], PADDINGS[padding], className);
 }
 
-/** A card: a <div>, or the element `as` names (a list, a list item, a section, a form). */
+/** A card: a <div>, or the element `as` names (a list, a list item, a section, a form, an alert paragraph). */
 export function Card<T extends CardElement = 'div'>({ as, tone, padding, className, ...props }: CardLook & { as?: T } & Omit<ComponentProps<T>, 'className'>) {
   const Tag: ElementType = as ?? 'div';
   return <Tag className={cardClasses({ tone, padding, className })} {...(props as Record<string, unknown>)} />;

@@ -1,12 +1,12 @@
 import type { Metadata } from 'next';
+import { Card } from '@/components/ui/card';
+import { TapLink } from '@/components/ui/tap-link';
 import { VerdictMark } from '@/components/verdict-mark';
 import { VisitTable } from '@/components/visit-table';
 import { requirePageUser } from '@/lib/server/auth/page-guard';
 import { listFarms } from '@/lib/server/data/farms';
 import { listVisits } from '@/lib/server/data/visits';
 import { showQuantity } from '@/lib/shared/display/quantities';
-import { Card } from '@/components/ui/card';
-import { TapLink } from '@/components/ui/tap-link';
 
 export const metadata: Metadata = { title: 'My farm' };
 

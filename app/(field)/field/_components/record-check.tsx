@@ -6,12 +6,13 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm, type FieldValues, type Resolver } from 'react-hook-form';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
 import { RecordRefused, saveRecord } from '@/lib/client/outbox';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { plainIssueMessage } from '@/lib/shared/field-messages';
 import { unusualIn, withConfirmations, type Unusual } from '@/lib/shared/plausibility';
 import { recordSchemas, type EntityFields, type SyncEntity } from '@/lib/shared/schemas/sync';
-import { Button } from '@/components/ui/button';
 
 export interface RecordCheck {
   /** The message for a path ("measurement.trials.2.seconds"), or for any path under it. */
@@ -113,12 +114,12 @@ export function FieldIssue({ check, path, under = false }: { check: RecordCheck;
         </p>
       )}
       {asks.map((u) => (
-        <div key={u.code} role="alert" className="rounded-md border-2 border-ochre bg-white p-3">
+        <Card tone="caution" padding="md" key={u.code} role="alert">
           <p className="font-bold">{u.message}</p>
           <Button variant="secondary" className="mt-2" onClick={() => check.confirm(u.code)}>
             Yes, this is right
           </Button>
-        </div>
+        </Card>
       ))}
     </div>
   );

@@ -2,6 +2,7 @@
 
 import Link from 'next/link';
 import { useState } from 'react';
+import { Button } from '@/components/ui/button';
 import type { SyncRecord } from '@/lib/client/sync/meta';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { formatClock } from '@/lib/shared/display/dates';
@@ -9,7 +10,6 @@ import { formatCount } from '@/lib/shared/display/numbers';
 import { useFieldUser } from './field-session';
 import { decisionWords, waitingWords } from './sync-words';
 import { useFrameQuery } from './use-frame-query';
-import { Button } from '@/components/ui/button';
 
 function timeOf(iso: string | undefined, units: UnitSystem): string {
   return iso ? formatClock(new Date(iso), units) : 'never';
@@ -50,13 +50,7 @@ export function SyncBar() {
           <span className="block text-stone">{ready && state ? `Last sync ${timeOf(state.lastSuccess, user?.units ?? 'metric')}` : 'Last sync …'}</span>
           {ready && state && <Notices state={state} />}
         </div>
-        <Button
-          variant="secondary"
-          className="disabled:opacity-60"
-
-          onClick={syncNow}
-          disabled={busy || !ready}
-        >
+        <Button variant="secondary" className="disabled:opacity-60" onClick={syncNow} disabled={busy || !ready}>
           {busy ? 'Syncing…' : 'Sync now'}
         </Button>
       </div>

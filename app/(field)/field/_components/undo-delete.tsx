@@ -3,10 +3,11 @@
 // Deletes on the phone take one tap and can be taken back for a while: the delete waits a few seconds
 // before it is offered to the server, and "Undo" brings the record back as long as it has not gone.
 import { useEffect, useRef, useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
 import { deleteRecord, undoDelete } from '@/lib/client/outbox';
 import { announceSave } from '@/lib/client/sync/triggers';
 import type { SyncEntity } from '@/lib/shared/schemas/sync';
-import { Button } from '@/components/ui/button';
 
 /** How long the delete waits before the phone offers it to the server. */
 export const UNDO_WINDOW_MS = 10_000;
@@ -59,14 +60,14 @@ export function useUndoableDelete() {
 
   const bar =
     pending || note ? (
-      <div role="status" className="flex items-center justify-between gap-3 rounded-md border-2 border-slate bg-white p-3" data-testid="undo-bar">
+      <Card tone="strong" padding="md" className="flex items-center justify-between gap-3" role="status" data-testid="undo-bar">
         <p className="font-bold">{pending ? `Deleted: ${pending.what}.` : note}</p>
         {pending && (
           <Button className="min-w-24" onClick={undo}>
             Undo
           </Button>
         )}
-      </div>
+      </Card>
     ) : null;
 
   return { remove, bar };

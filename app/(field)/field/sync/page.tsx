@@ -2,6 +2,8 @@
 
 import { useLiveQuery } from 'dexie-react-hooks';
 import Link from 'next/link';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
 import { fieldDb, type OutboxEntry } from '@/lib/client/db';
 import { waitingPhotos } from '@/lib/client/photo-queue';
 import { requestSync } from '@/lib/client/sync/triggers';
@@ -13,14 +15,13 @@ import { useFieldUser } from '../_components/field-session';
 import { decisionWords, waitingWords } from '../_components/sync-words';
 import { useFrameQuery } from '../_components/use-frame-query';
 import { useUnits } from '../_components/use-field-data';
-import { Button } from '@/components/ui/button';
 
 function Conflict({ entry, units }: { entry: OutboxEntry; units: UnitSystem }) {
   const fields = entry.result?.conflict?.fields ?? [];
   const server = (entry.result?.conflict?.server ?? {}) as Record<string, unknown>;
   const mine = (entry.op.changes ?? {}) as Record<string, unknown>;
   return (
-    <li className="space-y-2 rounded-md border-2 border-ochre bg-white p-3">
+    <Card as="li" tone="caution" padding="md" className="space-y-2">
       <p className="font-bold">Changed on the server while you were out: {describeRecord(entry.entity, { ...server, ...mine })}</p>
       <table className="w-full text-left">
         <thead>
@@ -48,7 +49,7 @@ function Conflict({ entry, units }: { entry: OutboxEntry; units: UnitSystem }) {
           Take the server&apos;s
         </Button>
       </div>
-    </li>
+    </Card>
   );
 }
 
@@ -62,7 +63,7 @@ function refusalReason(entry: OutboxEntry): string {
 
 function Refused({ entry }: { entry: OutboxEntry }) {
   return (
-    <li className="space-y-2 rounded-md border-2 border-clay bg-white p-3">
+    <Card as="li" tone="alarm" padding="md" className="space-y-2">
       <p className="font-bold">The server refused a change to {describeRecord(entry.entity, (entry.op.changes ?? {}) as Record<string, unknown>)}</p>
       <p>{refusalReason(entry)}</p>
       <p className="text-stone">Give it up to put back what the server holds; send it again once the reason is fixed.</p>
@@ -74,7 +75,7 @@ function Refused({ entry }: { entry: OutboxEntry }) {
           Give it up
         </Button>
       </div>
-    </li>
+    </Card>
   );
 }
 
@@ -96,13 +97,13 @@ function RefusedPhotos() {
       <p>They stay on this phone and are tried again at each sync.</p>
       <ul className="space-y-3">
         {refused.map((p) => (
-          <li key={p.id} className="space-y-2 rounded-md border-2 border-clay bg-white p-3">
+          <Card as="li" tone="alarm" padding="md" className="space-y-2" key={p.id}>
             <p className="font-bold">{p.caption ? `Photo “${p.caption}”` : 'A photo'}</p>
             <p>{p.error?.message}</p>
             <Button size="wide" onClick={() => tryAgain(p.id)}>
               Try again now
             </Button>
-          </li>
+          </Card>
         ))}
       </ul>
     </>

@@ -3,11 +3,11 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { PastDayConfirm } from '@/components/past-day-confirm';
-import { ApiError, apiJson } from '@/lib/client/api';
-import type { Option } from './visit-filters';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Input, Select } from '@/components/ui/control';
+import { ApiError, apiJson } from '@/lib/client/api';
+import type { Option } from './visit-filters';
 
 /** Assigns the ticked visits to one advisor and date; asks again when some may hold unsynced data. */
 export function BulkAssign({ visitIds, advisors, onDone }: { visitIds: string[]; advisors: Option[]; onDone: () => void }) {

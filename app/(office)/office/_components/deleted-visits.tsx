@@ -2,10 +2,10 @@
 
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
-import { apiJson } from '@/lib/client/api';
-import { formatDay } from '@/lib/shared/display/dates';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
+import { apiJson } from '@/lib/client/api';
+import { formatDay } from '@/lib/shared/display/dates';
 
 export interface DeletedVisit {
   id: string;

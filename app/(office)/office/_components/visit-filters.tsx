@@ -1,9 +1,9 @@
 'use client';
 
 import { useEffect, useState } from 'react';
-import { VERDICT_WORDS, VERDICTS, VISIT_STATUS_LABELS, VISIT_STATUSES } from '@/lib/shared/domain';
 import { Card } from '@/components/ui/card';
 import { Input, Select } from '@/components/ui/control';
+import { VERDICT_WORDS, VERDICTS, VISIT_STATUS_LABELS, VISIT_STATUSES } from '@/lib/shared/domain';
 
 export interface Option {
   id: string;

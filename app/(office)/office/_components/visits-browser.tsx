@@ -3,11 +3,11 @@
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
 import { usePathname, useRouter, useSearchParams } from 'next/navigation';
 import { useCallback, useMemo, useState } from 'react';
+import { Button, ButtonLink } from '@/components/ui/button';
 import { apiJson } from '@/lib/client/api';
 import { BulkAssign } from './bulk-assign';
 import { VisitFilters, type Option } from './visit-filters';
 import { VisitRows, type VisitItem } from './visit-rows';
-import { Button, ButtonLink } from '@/components/ui/button';
 
 const FILTER_KEYS = ['q', 'status', 'advisor', 'verdict', 'area', 'plannedFrom', 'plannedTo', 'overdue', 'sort', 'dir', 'page'] as const;
 const PAGE_SIZE = 25;

@@ -1,12 +1,12 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { StatusChip } from '@/components/status-chip';
-import { requirePageUser } from '@/lib/server/auth/page-guard';
-import { FARM_SORTS, listFarms } from '@/lib/server/data/farms';
-import { showQuantity } from '@/lib/shared/display/quantities';
 import { Button, ButtonLink } from '@/components/ui/button';
 import { Input, Select } from '@/components/ui/control';
 import { TapLink } from '@/components/ui/tap-link';
+import { requirePageUser } from '@/lib/server/auth/page-guard';
+import { FARM_SORTS, listFarms } from '@/lib/server/data/farms';
+import { showQuantity } from '@/lib/shared/display/quantities';
 
 export const metadata: Metadata = { title: 'Farms' };
 

@@ -2,6 +2,8 @@
 
 import { useLiveQuery } from 'dexie-react-hooks';
 import { Suspense, useEffect, useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
 import { DEMAND_CATALOGUE, type DemandKind } from '@/lib/engine/demand';
 import { SOURCES } from '@/lib/engine/sources';
 import { fieldDb } from '@/lib/client/db';
@@ -18,7 +20,6 @@ import { NumberField } from '../../_components/number-field';
 import { FieldIssue, useRecordCheck } from '../../_components/record-check';
 import { useUnits, useVisit, useVisitId } from '../../_components/use-field-data';
 import { useUndoableDelete } from '../../_components/undo-delete';
-import { Button } from '@/components/ui/button';
 
 const KINDS = Object.values(DEMAND_CATALOGUE);
 
@@ -100,7 +101,7 @@ function DemandPage() {
           {showQuantity(total, 'litresPerDay', units)}
         </strong>
       </p>
-      <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
+      <Card as="ul" padding="none" className="divide-y divide-rule">
         {lines?.map((l) => (
           <li key={l.id} className="flex items-center justify-between px-3 py-2">
             <span>
@@ -114,9 +115,9 @@ function DemandPage() {
             </Button>
           </li>
         ))}
-      </ul>
+      </Card>
       {bar}
-      <section aria-labelledby="add-line" className="space-y-3 rounded-md border-2 border-rule bg-white p-3">
+      <Card as="section" tone="field" padding="md" className="space-y-3" aria-labelledby="add-line">
         <h2 id="add-line" className="text-xl font-bold">
           Add a line
         </h2>
@@ -170,7 +171,7 @@ function DemandPage() {
           </p>
         )}
         <PrimaryButton onClick={add}>Add line</PrimaryButton>
-      </section>
+      </Card>
     </div>
   );
 }

@@ -2,6 +2,8 @@
 
 import { useLiveQuery } from 'dexie-react-hooks';
 import { Suspense, useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
 import { fieldDb } from '@/lib/client/db';
 import { showQuantity } from '@/lib/shared/display/quantities';
 import { FALL_METHOD_WORDS, wordFor } from '@/lib/shared/reading-words';
@@ -10,7 +12,6 @@ import { useUnits, useVisitId } from '../../_components/use-field-data';
 import { useUndoableDelete } from '../../_components/undo-delete';
 import { FallForm } from './_components/fall-form';
 import { liveResult } from './_components/run-builders';
-import { Button } from '@/components/ui/button';
 
 function FallPage() {
   const visitId = useVisitId();
@@ -41,7 +42,7 @@ function FallPage() {
           Saved runs
         </h2>
         {saved?.length === 0 && <p className="text-stone">None yet.</p>}
-        <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
+        <Card as="ul" padding="none" className="divide-y divide-rule">
           {saved?.map((r) => {
             const drop = r.run.method === 'direct' ? r.run.staticLiftM : liveResult(r.run).dropM;
             return (
@@ -53,18 +54,13 @@ function FallPage() {
                   </span>
                   <span className="figure block">{showQuantity(drop === null ? null : Math.abs(drop), 'length', units)}</span>
                 </span>
-                <Button
-                  variant="quiet"
-                  size="sm"
-
-                  onClick={() => remove('fallReading', r.id, r.purpose === 'fall' ? 'the fall run' : 'the lift run')}
-                >
+                <Button variant="quiet" size="sm" onClick={() => remove('fallReading', r.id, r.purpose === 'fall' ? 'the fall run' : 'the lift run')}>
                   Delete
                 </Button>
               </li>
             );
           })}
-        </ul>
+        </Card>
         {bar}
       </section>
     </div>

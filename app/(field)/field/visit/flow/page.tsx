@@ -2,6 +2,8 @@
 
 import { useLiveQuery } from 'dexie-react-hooks';
 import { Suspense, useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
 import { fieldDb } from '@/lib/client/db';
 import { newId } from '@/lib/client/ids';
 import { saveRecord } from '@/lib/client/outbox';
@@ -16,7 +18,6 @@ import { SectionHeader } from '../../_components/choice';
 import { useUnits, useVisitId } from '../../_components/use-field-data';
 import { useUndoableDelete } from '../../_components/undo-delete';
 import { FlowForm } from './_components/flow-form';
-import { Button } from '@/components/ui/button';
 
 function meanLps(m: FlowMeasurement): number | null {
   try {
@@ -90,7 +91,7 @@ function FlowPage() {
           Saved measurements
         </h2>
         {saved?.length === 0 && <p className="text-stone">None yet.</p>}
-        <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
+        <Card as="ul" padding="none" className="divide-y divide-rule">
           {saved?.map((m) => (
             <li key={m.id} className="flex items-center justify-between px-3 py-2">
               <span>
@@ -101,17 +102,12 @@ function FlowPage() {
                   {showQuantity(meanLps(m.measurement), 'flowLps', units)} mean of {formatCount(m.measurement.trials.length, 'trial')}
                 </span>
               </span>
-              <Button
-                variant="quiet"
-                size="sm"
-
-                onClick={() => remove('flowMeasurement', m.id, 'the flow measurement')}
-              >
+              <Button variant="quiet" size="sm" onClick={() => remove('flowMeasurement', m.id, 'the flow measurement')}>
                 Delete
               </Button>
             </li>
           ))}
-        </ul>
+        </Card>
         {bar}
       </section>
     </div>

@@ -4,6 +4,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useLiveQuery } from 'dexie-react-hooks';
 import { Suspense, useEffect, useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
+import { Card } from '@/components/ui/card';
 import { z } from '@/lib/shared/zod';
 import { PIPE_MATERIALS, type PipeMaterialId } from '@/lib/engine/materials';
 import { fieldDb, type LocalRecord } from '@/lib/client/db';
@@ -44,7 +45,7 @@ function PipeFields({
   hint: string;
 }) {
   return (
-    <fieldset className="space-y-3 rounded-md border-2 border-rule bg-white p-3">
+    <Card as="fieldset" tone="field" padding="md" className="space-y-3">
       <legend className="px-1 text-xl font-bold">{title}</legend>
       <p className="text-stone">{hint}</p>
       <Controller
@@ -104,7 +105,7 @@ function PipeFields({
           </div>
         )}
       />
-    </fieldset>
+    </Card>
   );
 }
 

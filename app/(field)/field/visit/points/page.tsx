@@ -3,6 +3,8 @@
 import { useLiveQuery } from 'dexie-react-hooks';
 import Link from 'next/link';
 import { Suspense } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
 import { fieldDb } from '@/lib/client/db';
 import { formatCount } from '@/lib/shared/display/numbers';
 import { POINT_ROLE_WORDS } from '@/lib/shared/reading-words';
@@ -12,7 +14,6 @@ import { OfflineMapNote } from '../../_components/offline-map-note';
 import { useUnits, useVisitId } from '../../_components/use-field-data';
 import { useUndoableDelete } from '../../_components/undo-delete';
 import { PointForm } from './_components/point-form';
-import { Button } from '@/components/ui/button';
 
 function PointsPage() {
   const visitId = useVisitId();
@@ -45,7 +46,7 @@ function PointsPage() {
             .
           </p>
         )}
-        <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
+        <Card as="ul" padding="none" className="divide-y divide-rule">
           {points?.map((p) => (
             <li key={p.id} className="flex items-center justify-between px-3 py-2">
               <span>
@@ -63,7 +64,7 @@ function PointsPage() {
               </Button>
             </li>
           ))}
-        </ul>
+        </Card>
         {bar}
       </section>
     </div>

@@ -2,6 +2,8 @@
 
 import { useLiveQuery } from 'dexie-react-hooks';
 import { Suspense, useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
 import { VerdictMark } from '@/components/verdict-mark';
 import { bestPositions, EngineInputError, type BestPositionsResult, type ProfileTank } from '@/lib/engine';
 import { fieldDb } from '@/lib/client/db';
@@ -18,7 +20,6 @@ import { useUndoableDelete } from '../../_components/undo-delete';
 import { PositionsChart } from './_components/positions-chart';
 import { PositionsMapPanel } from './_components/positions-map-panel';
 import { StationForm } from './_components/station-form';
-import { Button } from '@/components/ui/button';
 
 function PositionsPage() {
   const visitId = useVisitId();
@@ -94,7 +95,7 @@ function PositionsPage() {
     <div className="space-y-5">
       <SectionHeader visitId={visitId} title="Creek profile and best positions" />
       <StationForm visitId={visitId} units={units} />
-      <fieldset className="space-y-3 rounded-md border-2 border-rule bg-white p-3">
+      <Card as="fieldset" tone="field" padding="md" className="space-y-3">
         <legend className="px-1 text-xl font-bold">Tank</legend>
         <div className="grid gap-3 sm:grid-cols-3">
           <NumberField label="Tank water level" quantity="length" units={units} signed value={levelM} onChange={setTankLevel} />
@@ -104,7 +105,7 @@ function PositionsPage() {
         <Button variant="secondary" size="wide" onClick={saveTank}>
           Save tank
         </Button>
-      </fieldset>
+      </Card>
       <PositionsChart stations={profile.stations} tank={tank} pairs={result?.ranked ?? []} units={units} />
       <PositionsMapPanel stations={profile.stations} tankPoint={tp} pairs={result?.ranked ?? []} />
       <p className="text-stone">
@@ -134,7 +135,7 @@ function PositionsPage() {
           {result.ranked.length === 0 && <p className="font-bold">No pair fits the rules on this reach.</p>}
           <ol className="space-y-3">
             {result.ranked.map((p) => (
-              <li key={`${p.intake.id}-${p.pump.id}`} className="rounded-md border-2 border-rule bg-white p-3" data-testid={`pair-${p.rank}`}>
+              <Card as="li" tone="field" padding="md" key={`${p.intake.id}-${p.pump.id}`} data-testid={`pair-${p.rank}`}>
                 <p className="text-lg font-bold">
                   {p.rank}. Intake at <span className="figure">{showQuantity(p.intake.chainageM, 'length', units)}</span>, ram at{' '}
                   <span className="figure">{showQuantity(p.pump.chainageM, 'length', units)}</span>
@@ -160,7 +161,7 @@ function PositionsPage() {
                 <Button variant="secondary" size="wide" className="mt-2" onClick={() => adopt(p.rank)}>
                   Adopt pair {p.rank}
                 </Button>
-              </li>
+              </Card>
             ))}
           </ol>
           {result.rejected.length > 0 && (
@@ -198,7 +199,7 @@ function StationList({ visitId, units }: { visitId: string; units: ReturnType<ty
   return (
     <details>
       <summary className="min-h-12 cursor-pointer font-bold">Saved stations ({rows.length})</summary>
-      <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
+      <Card as="ul" padding="none" className="divide-y divide-rule">
         {rows.map((p) => (
           <li key={p.id} className="flex items-center justify-between px-3 py-2">
             <span className="figure">
@@ -211,7 +212,7 @@ function StationList({ visitId, units }: { visitId: string; units: ReturnType<ty
             </Button>
           </li>
         ))}
-      </ul>
+      </Card>
       {bar}
     </details>
   );

@@ -2,6 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { StatusChip } from '@/components/status-chip';
+import { ButtonLink } from '@/components/ui/button';
 import { VerdictMark } from '@/components/verdict-mark';
 import { requirePageUser } from '@/lib/server/auth/page-guard';
 import { getFarmForEdit } from '@/lib/server/data/farm-editing';
@@ -14,7 +15,6 @@ import { showQuantity } from '@/lib/shared/display/quantities';
 import { idParam } from '@/lib/shared/schemas/list-query';
 import { ACTIVE_STATUSES } from '@/lib/shared/visit-states';
 import { FarmForm } from './_components/farm-form';
-import { ButtonLink } from '@/components/ui/button';
 
 export const metadata: Metadata = { title: 'Farm' };
 

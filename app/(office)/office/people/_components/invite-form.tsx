@@ -4,10 +4,12 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { Input, Select } from '@/components/ui/control';
+import { Field } from '@/components/ui/field';
 import { apiJson, applyFieldErrors } from '@/lib/client/api';
 import { invitationSchema, type InvitationInput } from '@/lib/shared/schemas/office';
-import { Input, Select } from '@/components/ui/control';
-import { Button } from '@/components/ui/button';
 
 /** Invites a coordinator, advisor or farmer: they get a one-time link by e-mail to set a password. */
 export function InviteForm() {
@@ -33,54 +35,24 @@ export function InviteForm() {
       if (!applyFieldErrors(error, setError, ['name', 'email', 'role'])) setResult({ ok: false, text: error instanceof Error ? error.message : 'Not sent.' });
     }
   }
-  const err = (name: 'name' | 'email' | 'role') =>
-    errors[name] && (
-      <p id={`${name}-error`} className="mt-1 font-bold text-clay">
-        {errors[name]?.message}
-      </p>
-    );
   return (
-    <form aria-label="Invite someone" noValidate onSubmit={handleSubmit(onSubmit)} className="space-y-4 rounded-md border border-rule bg-white p-4">
+    <Card as="form" aria-label="Invite someone" noValidate onSubmit={handleSubmit(onSubmit)} className="space-y-4">
       <div className="grid gap-4 sm:grid-cols-3">
-        <div>
-          <label htmlFor="invite-name" className="block font-bold">
-            Name
-          </label>
-          <Input
-            id="invite-name"
-
-            aria-invalid={!!errors.name}
-            aria-describedby={errors.name ? 'name-error' : undefined}
-            {...register('name')}
-          />
-          {err('name')}
-        </div>
-        <div>
-          <label htmlFor="invite-email" className="block font-bold">
-            E-mail
-          </label>
-          <Input
-            id="invite-email"
-            type="email"
-            inputMode="email"
-
-            aria-invalid={!!errors.email}
-            aria-describedby={errors.email ? 'email-error' : undefined}
-            {...register('email')}
-          />
-          {err('email')}
-        </div>
-        <div>
-          <label htmlFor="invite-role" className="block font-bold">
-            Role
-          </label>
-          <Select id="invite-role" {...register('role')}>
-            <option value="advisor">Field advisor</option>
-            <option value="farmer">Farmer</option>
-            <option value="coordinator">Coordinator</option>
-          </Select>
-          {err('role')}
-        </div>
+        <Field id="invite-name" label="Name" message={errors.name?.message}>
+          {(control) => <Input {...control} {...register('name')} />}
+        </Field>
+        <Field id="invite-email" label="E-mail" message={errors.email?.message}>
+          {(control) => <Input {...control} type="email" inputMode="email" {...register('email')} />}
+        </Field>
+        <Field id="invite-role" label="Role" message={errors.role?.message}>
+          {(control) => (
+            <Select {...control} {...register('role')}>
+              <option value="advisor">Field advisor</option>
+              <option value="farmer">Farmer</option>
+              <option value="coordinator">Coordinator</option>
+            </Select>
+          )}
+        </Field>
       </div>
       <Button size="lg" type="submit" disabled={isSubmitting}>
         {isSubmitting ? 'Sending…' : 'Send invitation'}
@@ -90,6 +62,6 @@ export function InviteForm() {
           {result.text}
         </p>
       )}
-    </form>
+    </Card>
   );
 }

@@ -3,11 +3,11 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useFieldArray, useForm } from 'react-hook-form';
+import { Button } from '@/components/ui/button';
+import { Input, Select } from '@/components/ui/control';
 import { apiJson, applyFieldErrors } from '@/lib/client/api';
 import type { PriceList } from '@/lib/shared/costs/price-list';
 import { settingsSchema, type SettingsInput } from '@/lib/shared/schemas/office';
-import { Input, Select } from '@/components/ui/control';
-import { Button } from '@/components/ui/button';
 
 // The price list's boxes, grouped as a coordinator thinks of them; every default is invented (common practice, no source).
 const PRICE_GROUPS: { title: string; fields: { key: keyof PriceList; label: string }[] }[] = [
@@ -177,11 +177,7 @@ export function SettingsForm({ initial, kinds }: { initial: SettingsInput; kinds
             )}
           </div>
         ))}
-        <Button
-          variant="secondary"
-
-          onClick={() => prices.append({ material: '', diameterMm: '', pricePerM: '', currency: 'GBP' } as never)}
-        >
+        <Button variant="secondary" onClick={() => prices.append({ material: '', diameterMm: '', pricePerM: '', currency: 'GBP' } as never)}>
           Add a pipe price
         </Button>
       </fieldset>

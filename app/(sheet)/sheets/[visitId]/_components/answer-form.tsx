@@ -2,8 +2,8 @@
 
 import { useRouter } from 'next/navigation';
 import { useId, useState } from 'react';
-import { answerProblem } from '@/lib/shared/sheet/question-rules';
 import { Button } from '@/components/ui/button';
+import { answerProblem } from '@/lib/shared/sheet/question-rules';
 
 /** For the assigned advisor and the office: answer one open question; the farmer is e-mailed it. */
 export function AnswerForm({ visitId, questionId }: { visitId: string; questionId: string }) {

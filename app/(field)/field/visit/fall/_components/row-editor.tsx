@@ -1,10 +1,11 @@
 'use client';
 
 import type { ReactNode } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
 import type { UnitSystem } from '@/lib/shared/domain';
 import type { QuantityKind } from '@/lib/shared/display/quantities';
 import { NumberField } from '../../../_components/number-field';
-import { Button } from '@/components/ui/button';
 
 export type Row = Record<string, number | undefined>;
 
@@ -37,7 +38,7 @@ export function RowEditor({
   return (
     <div className="space-y-3">
       {rows.map((row, i) => (
-        <fieldset key={i} className="rounded-md border border-rule bg-white p-3">
+        <Card as="fieldset" padding="md" key={i}>
           <legend className="px-1 font-bold">{title(i, rows.length)}</legend>
           <div className="grid gap-3 sm:grid-cols-2">
             {columns(i, rows.length).map((c) => (
@@ -55,17 +56,11 @@ export function RowEditor({
             ))}
           </div>
           {rows.length > 1 && (
-            <Button
-              variant="quiet"
-              size="sm"
-              className="mt-2"
-
-              onClick={() => onChange(rows.filter((_, j) => j !== i))}
-            >
+            <Button variant="quiet" size="sm" className="mt-2" onClick={() => onChange(rows.filter((_, j) => j !== i))}>
               Remove
             </Button>
           )}
-        </fieldset>
+        </Card>
       ))}
       <Button variant="secondary" size="wide" onClick={() => onChange([...rows, {}])}>
         {addLabel}

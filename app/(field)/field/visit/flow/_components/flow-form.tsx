@@ -1,6 +1,8 @@
 'use client';
 
 import { useEffect, useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
 import { floatFlowLps, summarise, vNotchFlowLps, volumetricFlowLps } from '@/lib/engine/flow';
 import { newId } from '@/lib/client/ids';
 import { setDirty } from '@/lib/client/dirty';
@@ -14,7 +16,6 @@ import { NumberField } from '../../../_components/number-field';
 import { FieldIssue, useRecordCheck } from '../../../_components/record-check';
 import { Stopwatch } from './stopwatch';
 import { TrialList } from './trial-list';
-import { Button } from '@/components/ui/button';
 
 type Method = 'volumetric' | 'v-notch' | 'float';
 type Season = 'dry' | 'wet' | 'unknown';
@@ -169,7 +170,6 @@ export function FlowForm({ visitId, sourceId, units }: { visitId: string; source
           </NumberField>
           <Button
             variant="secondary"
-
             onClick={() => {
               addSeconds(typedSeconds);
               setTypedSeconds(undefined);
@@ -223,14 +223,14 @@ export function FlowForm({ visitId, sourceId, units }: { visitId: string; source
           <TrialList items={seconds.map((s) => `${s.toFixed(1)} s`)} onRemove={(i) => setSeconds((l) => l.filter((_, j) => j !== i))} issueAt={trialIssue} />
         </>
       )}
-      <div className="rounded-md border-2 border-creek bg-white p-3" aria-live="polite" data-testid="flow-live">
+      <Card tone="creek" padding="md" aria-live="polite" data-testid="flow-live">
         <p className="font-bold">
           Mean flow: <span className="figure">{stats ? showQuantity(stats.mean, 'flowLps', units) : '—'}</span>
         </p>
         <p className="text-stone">
           Spread (sd): <span className="figure">{stats ? showQuantity(stats.sd, 'flowLps', units) : '—'}</span> · {count} trial{count === 1 ? '' : 's'}
         </p>
-      </div>
+      </Card>
       <FieldIssue check={check} path="measurement.trials" />
       {message && (
         <p role="status" className="font-bold">

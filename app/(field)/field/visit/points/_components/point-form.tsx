@@ -2,6 +2,8 @@
 
 import dynamic from 'next/dynamic';
 import { useEffect, useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
 import { setDirty } from '@/lib/client/dirty';
 import { GOOD_FIX_M, watchFix, type Fix } from '@/lib/client/geolocation';
 import { newId } from '@/lib/client/ids';
@@ -12,7 +14,6 @@ import { Choice, PrimaryButton } from '../../../_components/choice';
 import { NumberField } from '../../../_components/number-field';
 import { FieldIssue, useRecordCheck } from '../../../_components/record-check';
 import type { MapPoint } from './point-map';
-import { Button } from '@/components/ui/button';
 
 const PointMap = dynamic(() => import('./point-map'), { ssr: false, loading: () => <p className="text-stone">Loading the map…</p> });
 
@@ -104,13 +105,12 @@ export function PointForm({ visitId, units, points }: { visitId: string; units: 
           className="mt-1 min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-xl"
         />
       </div>
-      <div className="rounded-md border-2 border-rule bg-white p-3" aria-live="polite">
+      <Card tone="field" padding="md" aria-live="polite">
         {!watching && (
           <Button
             variant="secondary"
             size="wide"
             className="min-h-14 text-xl"
-
             onClick={() => {
               setFix(null);
               setWatching(true);
@@ -138,7 +138,7 @@ export function PointForm({ visitId, units, points }: { visitId: string; units: 
             </Button>
           </div>
         )}
-      </div>
+      </Card>
       <PointMap
         points={points}
         draft={lat !== undefined && lon !== undefined ? { lat, lon } : null}

@@ -4,11 +4,11 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { apiJson, applyFieldErrors } from '@/lib/client/api';
-import { farmSchema, type FarmInput } from '@/lib/shared/schemas/office';
 import { Button } from '@/components/ui/button';
 import { Input, Select, TextArea } from '@/components/ui/control';
 import { Field } from '@/components/ui/field';
+import { apiJson, applyFieldErrors } from '@/lib/client/api';
+import { farmSchema, type FarmInput } from '@/lib/shared/schemas/office';
 
 type Name = 'name' | 'area' | 'ownerId' | 'lat' | 'lon' | 'notes';
 

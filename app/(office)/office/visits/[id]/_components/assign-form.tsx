@@ -4,11 +4,13 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { Input, Select } from '@/components/ui/control';
+import { Field } from '@/components/ui/field';
 import { ApiError, apiJson, applyFieldErrors } from '@/lib/client/api';
 import { PastDayConfirm } from '@/components/past-day-confirm';
 import { visitAssignSchema, type VisitAssignInput } from '@/lib/shared/schemas/office';
-import { Input, Select } from '@/components/ui/control';
-import { Button } from '@/components/ui/button';
 
 /** Assign or reassign the visit; the server's "may hold unsynced data" answer becomes a warning to confirm. */
 export function AssignForm({
@@ -51,61 +53,33 @@ export function AssignForm({
   }
 
   return (
-    <form
-      aria-label="Assign the visit"
-      noValidate
-      onSubmit={handleSubmit((v) => send(v, false))}
-      className="space-y-4 rounded-md border border-rule bg-white p-4"
-    >
+    <Card as="form" aria-label="Assign the visit" noValidate onSubmit={handleSubmit((v) => send(v, false))} className="space-y-4">
       {mayBeUnsynced && (
         <p className="rounded-md border-2 border-ochre p-3 font-bold text-ochre">
           ⚠ Nothing has synced from this visit since its planned day: the advisor’s phone may hold readings the office has not seen.
         </p>
       )}
       <div className="grid gap-4 sm:grid-cols-2">
-        <div>
-          <label htmlFor="advisorId" className="block font-bold">
-            Advisor
-          </label>
-          <Select
-            id="advisorId"
-
-            aria-invalid={!!errors.advisorId}
-            aria-describedby={errors.advisorId ? 'advisorId-error' : undefined}
-            {...register('advisorId')}
-          >
-            <option value="">Choose an advisor…</option>
-            {advisors.map((a) => (
-              <option key={a.id} value={a.id}>
-                {a.name}
-              </option>
-            ))}
-          </Select>
-          {errors.advisorId && (
-            <p id="advisorId-error" className="mt-1 font-bold text-clay">
-              {errors.advisorId.message}
-            </p>
+        <Field id="advisorId" label="Advisor" message={errors.advisorId?.message}>
+          {(control) => (
+            <Select {...control} {...register('advisorId')}>
+              <option value="">Choose an advisor…</option>
+              {advisors.map((a) => (
+                <option key={a.id} value={a.id}>
+                  {a.name}
+                </option>
+              ))}
+            </Select>
           )}
-        </div>
-        <div>
-          <label htmlFor="plannedOn" className="block font-bold">
-            Planned date
-          </label>
-          <Input
-            id="plannedOn"
-            type="date"
-
-            aria-invalid={!!errors.plannedOn}
-            aria-describedby={errors.plannedOn ? 'plannedOn-error' : undefined}
-            {...register('plannedOn')}
-          />
-          {errors.plannedOn && (
-            <p id="plannedOn-error" className="mt-1 font-bold text-clay">
-              {errors.plannedOn.message}
-            </p>
-          )}
-          <PastDayConfirm day={plannedOn} field={register('confirmPast')} />
-        </div>
+        </Field>
+        <Field
+          id="plannedOn"
+          label="Planned date"
+          message={errors.plannedOn?.message}
+          issue={<PastDayConfirm day={plannedOn} field={register('confirmPast')} />}
+        >
+          {(control) => <Input {...control} type="date" {...register('plannedOn')} />}
+        </Field>
       </div>
       <Button size="lg" type="submit" disabled={isSubmitting}>
         {isSubmitting ? 'Saving…' : current.advisorId ? 'Save assignment' : 'Assign'}
@@ -128,6 +102,6 @@ export function AssignForm({
           {done}
         </p>
       )}
-    </form>
+    </Card>
   );
 }

@@ -2,11 +2,12 @@
 
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { Select } from '@/components/ui/control';
 import { apiJson } from '@/lib/client/api';
 import { VISIT_STATUS_LABELS, VISIT_STATUSES, type VisitStatus } from '@/lib/shared/domain';
 import { JUMP_REASON_MIN, nextStates } from '@/lib/shared/visit-states';
-import { Select } from '@/components/ui/control';
-import { Button } from '@/components/ui/button';
 
 /**
  * Moves the visit along its life: the choices are the moves the table of visit states allows the
@@ -73,7 +74,7 @@ export function StatusForm({ visitId, status }: { visitId: string; status: Visit
         </p>
       )}
       {others.length > 0 && (
-        <details className="rounded-md border border-rule bg-white p-3">
+        <Card as="details" padding="md">
           <summary className="cursor-pointer font-bold">Move outside the usual order…</summary>
           <form aria-label="Move outside the usual order" onSubmit={jump} className="mt-3 space-y-3">
             <p className="text-stone">
@@ -103,7 +104,7 @@ export function StatusForm({ visitId, status }: { visitId: string; status: Visit
               Move with this reason
             </Button>
           </form>
-        </details>
+        </Card>
       )}
       {message && (
         <p role={message.ok ? 'status' : 'alert'} className={`w-full font-bold ${message.ok ? 'text-moss' : 'text-clay'}`}>

@@ -5,10 +5,11 @@ import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { PastDayConfirm } from '@/components/past-day-confirm';
+import { Button } from '@/components/ui/button';
+import { Input, Select, TextArea } from '@/components/ui/control';
+import { Field } from '@/components/ui/field';
 import { ApiError, apiJson, applyFieldErrors } from '@/lib/client/api';
 import { visitCreateSchema, type VisitCreateInput } from '@/lib/shared/schemas/office';
-import { Input, Select, TextArea } from '@/components/ui/control';
-import { Button } from '@/components/ui/button';
 
 type Opt = { id: string; name: string };
 
@@ -35,52 +36,43 @@ export function NewVisitForm({ farms, advisors, farmId }: { farms: Opt[]; adviso
         setServerError(error instanceof Error ? error.message : 'Not saved.');
     }
   }
-  const err = (n: 'farmId' | 'advisorId' | 'plannedOn' | 'notes') => errors[n] && <p className="mt-1 font-bold text-clay">{errors[n]?.message}</p>;
   return (
     <form aria-label="Plan a visit" noValidate onSubmit={handleSubmit((v) => onSubmit(v))} className="max-w-xl space-y-4">
-      <div>
-        <label htmlFor="farmId" className="block font-bold">
-          Farm
-        </label>
-        <Select id="farmId" aria-invalid={!!errors.farmId} {...register('farmId')}>
-          <option value="">Choose a farm…</option>
-          {farms.map((f) => (
-            <option key={f.id} value={f.id}>
-              {f.name}
-            </option>
-          ))}
-        </Select>
-        {err('farmId')}
-      </div>
-      <div>
-        <label htmlFor="advisorId" className="block font-bold">
-          Advisor (optional)
-        </label>
-        <Select id="advisorId" {...register('advisorId')}>
-          <option value="">Not yet</option>
-          {advisors.map((a) => (
-            <option key={a.id} value={a.id}>
-              {a.name}
-            </option>
-          ))}
-        </Select>
-        {err('advisorId')}
-      </div>
-      <div>
-        <label htmlFor="plannedOn" className="block font-bold">
-          Planned date (optional)
-        </label>
-        <Input id="plannedOn" type="date" {...register('plannedOn')} />
-        {err('plannedOn')}
-        <PastDayConfirm day={plannedOn} field={register('confirmPast')} />
-      </div>
-      <div>
-        <label htmlFor="notes" className="block font-bold">
-          Notes for the advisor
-        </label>
-        <TextArea id="notes" rows={3} {...register('notes')} />
-        {err('notes')}
-      </div>
+      <Field id="farmId" label="Farm" message={errors.farmId?.message}>
+        {(control) => (
+          <Select {...control} {...register('farmId')}>
+            <option value="">Choose a farm…</option>
+            {farms.map((f) => (
+              <option key={f.id} value={f.id}>
+                {f.name}
+              </option>
+            ))}
+          </Select>
+        )}
+      </Field>
+      <Field id="advisorId" label="Advisor (optional)" message={errors.advisorId?.message}>
+        {(control) => (
+          <Select {...control} {...register('advisorId')}>
+            <option value="">Not yet</option>
+            {advisors.map((a) => (
+              <option key={a.id} value={a.id}>
+                {a.name}
+              </option>
+            ))}
+          </Select>
+        )}
+      </Field>
+      <Field
+        id="plannedOn"
+        label="Planned date (optional)"
+        message={errors.plannedOn?.message}
+        issue={<PastDayConfirm day={plannedOn} field={register('confirmPast')} />}
+      >
+        {(control) => <Input {...control} type="date" {...register('plannedOn')} />}
+      </Field>
+      <Field id="notes" label="Notes for the advisor" message={errors.notes?.message}>
+        {(control) => <TextArea {...control} rows={3} {...register('notes')} />}
+      </Field>
       {serverError && (
         <p role="alert" className="font-bold text-clay">
           {serverError}
@@ -89,12 +81,7 @@ export function NewVisitForm({ farms, advisors, farmId }: { farms: Opt[]; adviso
       {duplicate && (
         <div role="alert" className="rounded-md border-2 border-ochre p-3">
           <p className="font-bold text-ochre">⚠ {duplicate}</p>
-          <Button
-            variant="caution"
-            className="mt-2"
-
-            onClick={() => onSubmit(visitCreateSchema.parse(getValues()), true)}
-          >
+          <Button variant="caution" className="mt-2" onClick={() => onSubmit(visitCreateSchema.parse(getValues()), true)}>
             Plan another visit anyway
           </Button>
         </div>

@@ -4,9 +4,9 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useFieldArray, useForm } from 'react-hook-form';
 import type { z } from 'zod';
+import { Button } from '@/components/ui/button';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { farmNeedsBody } from '@/lib/shared/schemas/sheet';
-import { Button } from '@/components/ui/button';
 
 interface FormValues {
   people: string;
