@@ -170,6 +170,13 @@ describe('controls, cards and tap links', () => {
     expect(classesOf(render(<TextArea />)).has('py-2')).toBe(true);
   });
 
+  it("the field book's controls are taller and larger, with no form spacing", () => {
+    const phone = classesOf(render(<Input look="phone" className="figure text-2xl" />));
+    expect([...phone]).toEqual(expect.arrayContaining(['min-h-14', 'w-full', 'border-2', 'border-stone', 'px-3', 'text-2xl', 'figure']));
+    for (const c of ['min-h-12', 'mt-1', 'block', 'px-2', 'text-xl', 'text-lg']) expect(phone.has(c)).toBe(false);
+    expect(render(<Select look="phone" />).tagName).toBe('SELECT');
+  });
+
   it('a card is a white rounded panel whose border follows its tone, drawn as the element asked for', () => {
     const plain = render(<Card>Text</Card>);
     expect(plain.tagName).toBe('DIV');

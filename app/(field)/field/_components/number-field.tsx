@@ -1,6 +1,7 @@
 'use client';
 
 import { useId, useState, type ReactNode } from 'react';
+import { Input } from '@/components/ui/control';
 import { Field } from '@/components/ui/field';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { QUANTITIES, typedQuantity, type QuantityKind } from '@/lib/shared/display/quantities';
@@ -72,15 +73,16 @@ export function NumberField({ label, quantity, units, value, onChange, hint, sig
               ±
             </button>
           )}
-          <input
+          <Input
             {...control}
+            look="phone"
+            className="figure min-w-0 text-2xl"
             name={name}
             type="text"
             inputMode="decimal"
             autoComplete="off"
             value={text}
             onChange={(e) => update(e.target.value)}
-            className="figure min-h-14 w-full min-w-0 rounded-md border-2 border-stone bg-white px-3 text-2xl"
           />
           {display.unit && <span className="figure flex min-w-14 shrink-0 items-center text-xl text-stone">{display.unit}</span>}
         </div>

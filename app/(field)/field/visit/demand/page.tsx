@@ -4,6 +4,7 @@ import { useLiveQuery } from 'dexie-react-hooks';
 import { Suspense, useEffect, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
+import { Select } from '@/components/ui/control';
 import { DEMAND_CATALOGUE, type DemandKind } from '@/lib/engine/demand';
 import { SOURCES } from '@/lib/engine/sources';
 import { fieldDb } from '@/lib/client/db';
@@ -124,7 +125,7 @@ function DemandPage() {
         <label htmlFor="kind" className="block font-bold">
           Who or what drinks
         </label>
-        <select
+        <Select
           id="kind"
           value={kind}
           onChange={(e) => {
@@ -132,14 +133,15 @@ function DemandPage() {
             setPerHead(undefined);
             check.clear();
           }}
-          className="min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-lg"
+          look="phone"
+          className="text-lg"
         >
           {KINDS.map((k) => (
             <option key={k.kind} value={k.kind}>
               {k.kind === GARDEN ? 'Garden' : k.label}
             </option>
           ))}
-        </select>
+        </Select>
         {kind === GARDEN ? (
           <NumberField label="Garden area" quantity="area" units={units} value={typedCount} onChange={setCount}>
             <FieldIssue check={check} path="count" />

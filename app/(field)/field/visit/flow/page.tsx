@@ -4,6 +4,7 @@ import { useLiveQuery } from 'dexie-react-hooks';
 import { Suspense, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
+import { Input } from '@/components/ui/control';
 import { fieldDb } from '@/lib/client/db';
 import { newId } from '@/lib/client/ids';
 import { saveRecord } from '@/lib/client/outbox';
@@ -64,12 +65,7 @@ function SourceName({ visitId, units }: { visitId: string; units: UnitSystem }) 
       <label htmlFor="source-name" className="block font-bold">
         Name of the source (spring, creek…)
       </label>
-      <input
-        id="source-name"
-        value={name}
-        onChange={(e) => setName(e.target.value)}
-        className="min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-xl"
-      />
+      <Input look="phone" id="source-name" value={name} onChange={(e) => setName(e.target.value)} />
       <Button size="wide" className="min-h-14 text-xl" type="submit">
         Start measuring this source
       </Button>

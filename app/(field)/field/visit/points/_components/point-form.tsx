@@ -4,6 +4,8 @@ import dynamic from 'next/dynamic';
 import { useEffect, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
+import { Input } from '@/components/ui/control';
+import { Field } from '@/components/ui/field';
 import { setDirty } from '@/lib/client/dirty';
 import { GOOD_FIX_M, watchFix, type Fix } from '@/lib/client/geolocation';
 import { newId } from '@/lib/client/ids';
@@ -94,17 +96,9 @@ export function PointForm({ visitId, units, points }: { visitId: string; units: 
   return (
     <div className="space-y-4">
       <Choice label="This point is the" options={ROLES} value={role} onChange={setRole} />
-      <div>
-        <label htmlFor="point-label" className="block font-bold">
-          Name (optional)
-        </label>
-        <input
-          id="point-label"
-          value={label}
-          onChange={(e) => setLabel(e.target.value)}
-          className="mt-1 min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-xl"
-        />
-      </div>
+      <Field id="point-label" label="Name (optional)">
+        {(control) => <Input {...control} look="phone" className="mt-1" value={label} onChange={(e) => setLabel(e.target.value)} />}
+      </Field>
       <Card tone="field" padding="md" aria-live="polite">
         {!watching && (
           <Button
