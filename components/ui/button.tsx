@@ -40,12 +40,18 @@ export function Button({ variant, size, className, type = 'button', ...props }: 
   return <button type={type} className={buttonClasses({ variant, size, className })} {...props} />;
 }
 
-/** A link that looks like a button of the same variant and size (a Next <Link>, or a plain <a> with `plain`). */
-export function ButtonLink({ variant, size, className, plain, ...props }: ButtonLook & ComponentProps<typeof Link> & { plain?: boolean }) {
-  const classes = buttonClasses({ variant, size, className: cn('inline-flex items-center no-underline', className) });
-  if (plain) {
-    const { href, ...rest } = props;
-    return <a href={String(href)} className={classes} {...(rest as ComponentProps<'a'>)} />;
+type ButtonLinkProps =
+  | (ButtonLook & ComponentProps<typeof Link> & { plain?: false })
+  /** A plain <a>: a download or an address outside the app's routes. */
+  | (ButtonLook & ComponentProps<'a'> & { plain: true; href: string });
+
+/** A link that looks like a button of the same variant and size: a Next <Link>, or with `plain` an <a>. */
+export function ButtonLink(props: ButtonLinkProps) {
+  const classes = buttonClasses({ variant: props.variant, size: props.size, className: cn('inline-flex items-center no-underline', props.className) });
+  if (props.plain) {
+    const { variant: _v, size: _s, className: _c, plain: _p, ...rest } = props;
+    return <a {...rest} className={classes} />;
   }
-  return <Link className={classes} {...props} />;
+  const { variant: _v, size: _s, className: _c, plain: _p, ...rest } = props;
+  return <Link {...rest} className={classes} />;
 }
