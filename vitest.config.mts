@@ -10,7 +10,7 @@ export default defineConfig({
     projects: [
       {
         extends: true,
-        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], setupFiles: ['tests/unit/setup.ts'] },
+        test: { name: 'unit', include: ['tests/unit/**/*.test.{ts,tsx}'], setupFiles: ['tests/unit/setup.ts'] },
       },
       {
         extends: true,

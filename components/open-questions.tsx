@@ -1,4 +1,5 @@
-import Link from 'next/link';
+import { Card } from '@/components/ui/card';
+import { TapLink } from '@/components/ui/tap-link';
 import type { OpenQuestion } from '@/lib/shared/conversation';
 import { formatDateTime } from '@/lib/shared/display/dates';
 
@@ -14,15 +15,15 @@ export function OpenQuestions({ questions, empty }: { questions: OpenQuestion[];
       ) : (
         <ul className="space-y-2" aria-label="Questions waiting for an answer">
           {questions.map((q) => (
-            <li key={q.id} className="rounded-md border-2 border-ochre bg-white p-3">
+            <Card as="li" key={q.id} tone="caution" padding="md">
               <span className="block text-stone">
                 <span className="figure">{formatDateTime(q.at)}</span> · {q.farmerName} · {q.farmName}
               </span>
               <span className="block line-clamp-3 whitespace-pre-line">{q.text}</span>
-              <Link href={`/sheets/${q.visitId}#conversation`} className="mt-1 inline-flex min-h-12 items-center font-bold">
+              <TapLink href={`/sheets/${q.visitId}#conversation`} className="mt-1">
                 Answer on the sheet for {q.farmName}
-              </Link>
-            </li>
+              </TapLink>
+            </Card>
           ))}
         </ul>
       )}

@@ -2,6 +2,7 @@
 
 import { useEffect, useRef, useState } from 'react';
 import type { Workbox } from 'workbox-window';
+import { Button } from '@/components/ui/button';
 import { hasUnsavedInput } from '@/lib/client/dirty';
 
 /**
@@ -49,9 +50,7 @@ export function ServiceWorkerRegister() {
     <div role="status" className="fixed inset-x-0 bottom-0 z-[1000] border-t-2 border-slate bg-white p-3">
       <div className="mx-auto flex max-w-3xl flex-wrap items-center justify-between gap-2">
         <p className="font-bold">{blocked ? 'Save or finish the reading you are typing first, then update.' : 'A new version of Fallbook is ready.'}</p>
-        <button
-          type="button"
-          className="min-h-12 rounded-md bg-slate px-4 font-bold text-white"
+        <Button
           onClick={() => {
             if (hasUnsavedInput()) return setBlocked(true);
             updateAccepted.current = true;
@@ -59,7 +58,7 @@ export function ServiceWorkerRegister() {
           }}
         >
           Update now
-        </button>
+        </Button>
       </div>
     </div>
   );

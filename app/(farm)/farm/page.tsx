@@ -1,5 +1,6 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import { Card } from '@/components/ui/card';
+import { TapLink } from '@/components/ui/tap-link';
 import { VerdictMark } from '@/components/verdict-mark';
 import { VisitTable } from '@/components/visit-table';
 import { requirePageUser } from '@/lib/server/auth/page-guard';
@@ -22,16 +23,16 @@ export default async function FarmHome() {
         {farms.items.length === 0 && <p className="text-lg text-stone">No farm is registered to you yet.</p>}
         <ul className="space-y-2">
           {farms.items.map((farm) => (
-            <li key={farm.id} className="rounded-md border border-rule bg-white p-4">
+            <Card as="li" key={farm.id}>
               <span className="block text-lg font-bold">{farm.name}</span>
               <span className="block text-stone">{farm.area}</span>
               <span className="mt-1 block">
                 Daily need you told us: <strong className="figure">{showQuantity(farm.demandLpd, 'litresPerDay', user.units)}</strong>
               </span>
-              <Link href={`/farm/farms/${farm.id}/needs`} className="mt-2 inline-flex min-h-12 items-center font-bold">
+              <TapLink href={`/farm/farms/${farm.id}/needs`} className="mt-2">
                 Water needs for {farm.name}
-              </Link>
-            </li>
+              </TapLink>
+            </Card>
           ))}
         </ul>
       </section>
@@ -44,15 +45,13 @@ export default async function FarmHome() {
             {visits.items
               .filter((v) => v.verdict)
               .map((v) => (
-                <li key={v.id} className="flex flex-wrap items-center justify-between gap-3 rounded-md border border-rule bg-white p-4">
+                <Card as="li" key={v.id} className="flex flex-wrap items-center justify-between gap-3">
                   <span>
                     <span className="block text-lg font-bold">{v.farm.name}</span>
                     {v.verdict && <VerdictMark verdict={v.verdict} size={20} />}
                   </span>
-                  <Link href={`/sheets/${v.id}`} className="inline-flex min-h-12 items-center font-bold">
-                    Read the sheet for {v.farm.name}
-                  </Link>
-                </li>
+                  <TapLink href={`/sheets/${v.id}`}>Read the sheet for {v.farm.name}</TapLink>
+                </Card>
               ))}
           </ul>
         </section>

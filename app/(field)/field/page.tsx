@@ -1,6 +1,7 @@
 'use client';
 
 import Link from 'next/link';
+import { cardClasses } from '@/components/ui/card';
 import { VISIT_STATUS_LABELS, type VisitStatus } from '@/lib/shared/domain';
 import { formatDay } from '@/lib/shared/display/dates';
 import { isOverdue } from '@/lib/shared/visit-rules';
@@ -25,7 +26,7 @@ export default function FieldHome() {
         {visits?.rows.map((v) => (
           <li key={v.id}>
             {/* No prefetch: every visit opens the same static page, which the service worker already holds. */}
-            <Link href={`/field/visit?id=${v.id}`} prefetch={false} className="block rounded-md border-2 border-rule bg-white p-4 text-ink no-underline">
+            <Link href={`/field/visit?id=${v.id}`} prefetch={false} className={cardClasses({ tone: 'field', className: 'block text-ink no-underline' })}>
               <span className="block text-xl font-bold">{v.farm?.name ?? 'Farm'}</span>
               <span className="block text-stone">{v.farm?.area}</span>
               <span className="mt-1 block">

@@ -2,6 +2,10 @@
 
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { Input } from '@/components/ui/control';
+import { Field } from '@/components/ui/field';
 import { signInWithPassword } from '@/lib/client/sign-in';
 import { sameOriginPath } from '@/lib/shared/return-path';
 import { signInProblems } from '@/lib/shared/sign-in-rules';
@@ -44,53 +48,20 @@ export function SignInForm({ returnTo }: { returnTo?: string }) {
 
   return (
     <form onSubmit={onSubmit} noValidate className="mt-8 space-y-5" aria-label="Sign in">
-      <div>
-        <label htmlFor="email" className="block text-lg font-bold">
-          E-mail
-        </label>
-        <input
-          id="email"
-          type="email"
-          autoComplete="username"
-          inputMode="email"
-          aria-invalid={!!errors.email}
-          aria-describedby={errors.email ? 'email-error' : undefined}
-          className="mt-1 block min-h-12 w-full rounded-md border-2 border-stone bg-white px-3 text-lg"
-          name="email"
-        />
-        {errors.email && (
-          <p id="email-error" className="mt-1 font-bold text-clay">
-            {errors.email}
-          </p>
-        )}
-      </div>
-      <div>
-        <label htmlFor="password" className="block text-lg font-bold">
-          Password
-        </label>
-        <input
-          id="password"
-          type="password"
-          autoComplete="current-password"
-          aria-invalid={!!errors.password}
-          aria-describedby={errors.password ? 'password-error' : undefined}
-          className="mt-1 block min-h-12 w-full rounded-md border-2 border-stone bg-white px-3 text-lg"
-          name="password"
-        />
-        {errors.password && (
-          <p id="password-error" className="mt-1 font-bold text-clay">
-            {errors.password}
-          </p>
-        )}
-      </div>
+      <Field id="email" label="E-mail" labelClassName="text-lg" message={errors.email}>
+        {(control) => <Input {...control} className="px-3" type="email" autoComplete="username" inputMode="email" name="email" />}
+      </Field>
+      <Field id="password" label="Password" labelClassName="text-lg" message={errors.password}>
+        {(control) => <Input {...control} className="px-3" type="password" autoComplete="current-password" name="password" />}
+      </Field>
       {serverError && (
-        <p role="alert" className="rounded-md border-2 border-clay bg-white p-3 font-bold text-clay">
+        <Card as="p" tone="alarm" padding="md" className="font-bold text-clay" role="alert">
           {serverError}
-        </p>
+        </Card>
       )}
-      <button type="submit" disabled={isSubmitting} className="min-h-14 w-full rounded-md bg-slate px-4 text-xl font-bold text-white disabled:opacity-70">
+      <Button size="xl" className="w-full" type="submit" disabled={isSubmitting}>
         {isSubmitting ? 'Signing in…' : 'Sign in'}
-      </button>
+      </Button>
     </form>
   );
 }

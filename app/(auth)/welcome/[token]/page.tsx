@@ -1,5 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
+import { Card } from '@/components/ui/card';
 import { INVITATION_GONE, invitationState } from '@/lib/server/data/invitations';
 import { SetPasswordForm } from './_components/set-password-form';
 
@@ -21,9 +22,9 @@ export default async function WelcomePage({ params }: { params: Promise<{ token:
         </>
       ) : (
         <>
-          <p role="alert" className="mt-4 rounded-md border-2 border-clay bg-white p-3 text-lg font-bold text-clay">
+          <Card as="p" tone="alarm" padding="md" className="mt-4 text-lg font-bold text-clay" role="alert">
             {INVITATION_GONE[invitation.state]}
-          </p>
+          </Card>
           <p className="mt-4">
             <Link href="/login">Go to sign in</Link>
           </p>

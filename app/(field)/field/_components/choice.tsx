@@ -2,6 +2,7 @@
 
 import Link from 'next/link';
 import { useId } from 'react';
+import { Button } from '@/components/ui/button';
 
 /** A row of large toggle buttons for a small set of choices (methods, seasons, roles). */
 export function Choice<T extends string>({
@@ -54,15 +55,9 @@ export function PrimaryButton({
   const note = disabled && why ? why : null;
   return (
     <div>
-      <button
-        type={type}
-        onClick={onClick}
-        disabled={disabled}
-        aria-describedby={note ? id : undefined}
-        className="min-h-14 w-full rounded-md bg-slate px-4 text-xl font-bold text-white disabled:opacity-50"
-      >
+      <Button size="xl" className="w-full disabled:opacity-50" type={type} onClick={onClick} disabled={disabled} aria-describedby={note ? id : undefined}>
         {children}
-      </button>
+      </Button>
       {note && (
         <p id={id} className="mt-1 text-stone" data-testid="disabled-why">
           {note}

@@ -1,6 +1,8 @@
 'use client';
 
 import { useId, useState, type ReactNode } from 'react';
+import { Input } from '@/components/ui/control';
+import { Field } from '@/components/ui/field';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { QUANTITIES, typedQuantity, type QuantityKind } from '@/lib/shared/display/quantities';
 import { parseFieldNumber } from '@/lib/shared/units';
@@ -58,39 +60,33 @@ export function NumberField({ label, quantity, units, value, onChange, hint, sig
   }
 
   return (
-    <div>
-      <label htmlFor={id} className="block font-bold">
-        {label}
-      </label>
-      <div className="mt-1 flex items-stretch gap-2">
-        {signed && (
-          <button
-            type="button"
-            aria-label={`Change the sign of ${label}`}
-            onClick={() => update(text.startsWith('-') ? text.slice(1) : `-${text}`)}
-            className="min-h-14 min-w-14 rounded-md border-2 border-stone bg-white text-2xl font-bold"
-          >
-            ±
-          </button>
-        )}
-        <input
-          id={id}
-          name={name}
-          type="text"
-          inputMode="decimal"
-          autoComplete="off"
-          value={text}
-          onChange={(e) => update(e.target.value)}
-          aria-invalid={!!error}
-          aria-describedby={`${id}-note`}
-          className="figure min-h-14 w-full min-w-0 rounded-md border-2 border-stone bg-white px-3 text-2xl"
-        />
-        {display.unit && <span className="figure flex min-w-14 shrink-0 items-center text-xl text-stone">{display.unit}</span>}
-      </div>
-      <p id={`${id}-note`} className={error ? 'mt-1 font-bold text-clay' : 'mt-1 text-stone'}>
-        {error ?? hint ?? ''}
-      </p>
-      {children}
-    </div>
+    <Field id={id} label={label} hint={hint ?? ''} message={error} issue={children}>
+      {(control) => (
+        <div className="mt-1 flex items-stretch gap-2">
+          {signed && (
+            <button
+              type="button"
+              aria-label={`Change the sign of ${label}`}
+              onClick={() => update(text.startsWith('-') ? text.slice(1) : `-${text}`)}
+              className="min-h-14 min-w-14 rounded-md border-2 border-stone bg-white text-2xl font-bold"
+            >
+              ±
+            </button>
+          )}
+          <Input
+            {...control}
+            look="phone"
+            className="figure min-w-0 text-2xl"
+            name={name}
+            type="text"
+            inputMode="decimal"
+            autoComplete="off"
+            value={text}
+            onChange={(e) => update(e.target.value)}
+          />
+          {display.unit && <span className="figure flex min-w-14 shrink-0 items-center text-xl text-stone">{display.unit}</span>}
+        </div>
+      )}
+    </Field>
   );
 }

@@ -6,6 +6,8 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm, type FieldValues, type Resolver } from 'react-hook-form';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
 import { RecordRefused, saveRecord } from '@/lib/client/outbox';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { plainIssueMessage } from '@/lib/shared/field-messages';
@@ -112,12 +114,12 @@ export function FieldIssue({ check, path, under = false }: { check: RecordCheck;
         </p>
       )}
       {asks.map((u) => (
-        <div key={u.code} role="alert" className="rounded-md border-2 border-ochre bg-white p-3">
+        <Card tone="caution" padding="md" key={u.code} role="alert">
           <p className="font-bold">{u.message}</p>
-          <button type="button" onClick={() => check.confirm(u.code)} className="mt-2 min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate">
+          <Button variant="secondary" className="mt-2" onClick={() => check.confirm(u.code)}>
             Yes, this is right
-          </button>
-        </div>
+          </Button>
+        </Card>
       ))}
     </div>
   );

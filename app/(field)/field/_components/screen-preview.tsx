@@ -1,6 +1,7 @@
 'use client';
 
 import { useLiveQuery } from 'dexie-react-hooks';
+import { Card } from '@/components/ui/card';
 import { VerdictMark } from '@/components/verdict-mark';
 import { screenSite } from '@/lib/engine';
 import { NOMINAL_SIZES } from '@/lib/engine/materials';
@@ -27,7 +28,7 @@ export function ScreenPreview({ visitId }: { visitId: string }) {
   }, [visitId, units]);
   if (!preview) return null;
   return (
-    <section aria-labelledby="preview" className="rounded-md border-2 border-slate bg-white p-4">
+    <Card as="section" tone="strong" aria-labelledby="preview">
       <h2 id="preview" className="text-xl font-bold">
         Screen preview (on this phone)
       </h2>
@@ -62,7 +63,7 @@ export function ScreenPreview({ visitId }: { visitId: string }) {
           <p className="text-stone">A first check, not an engineering design. The server stores the official screening after sync.</p>
         </div>
       )}
-    </section>
+    </Card>
   );
 }
 

@@ -2,6 +2,7 @@
 
 import Link from 'next/link';
 import { useState } from 'react';
+import { Button } from '@/components/ui/button';
 import type { SyncRecord } from '@/lib/client/sync/meta';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { formatClock } from '@/lib/shared/display/dates';
@@ -49,14 +50,9 @@ export function SyncBar() {
           <span className="block text-stone">{ready && state ? `Last sync ${timeOf(state.lastSuccess, user?.units ?? 'metric')}` : 'Last sync …'}</span>
           {ready && state && <Notices state={state} />}
         </div>
-        <button
-          type="button"
-          onClick={syncNow}
-          disabled={busy || !ready}
-          className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate disabled:opacity-60"
-        >
+        <Button variant="secondary" className="disabled:opacity-60" onClick={syncNow} disabled={busy || !ready}>
           {busy ? 'Syncing…' : 'Sync now'}
-        </button>
+        </Button>
       </div>
       {progress && (
         <div className="mx-auto max-w-3xl px-4 pb-2">

@@ -3,6 +3,8 @@
 // Deletes on the phone take one tap and can be taken back for a while: the delete waits a few seconds
 // before it is offered to the server, and "Undo" brings the record back as long as it has not gone.
 import { useEffect, useRef, useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
 import { deleteRecord, undoDelete } from '@/lib/client/outbox';
 import { announceSave } from '@/lib/client/sync/triggers';
 import type { SyncEntity } from '@/lib/shared/schemas/sync';
@@ -58,14 +60,14 @@ export function useUndoableDelete() {
 
   const bar =
     pending || note ? (
-      <div role="status" className="flex items-center justify-between gap-3 rounded-md border-2 border-slate bg-white p-3" data-testid="undo-bar">
+      <Card tone="strong" padding="md" className="flex items-center justify-between gap-3" role="status" data-testid="undo-bar">
         <p className="font-bold">{pending ? `Deleted: ${pending.what}.` : note}</p>
         {pending && (
-          <button type="button" onClick={undo} className="min-h-12 min-w-24 rounded-md bg-slate px-4 font-bold text-white">
+          <Button className="min-w-24" onClick={undo}>
             Undo
-          </button>
+          </Button>
         )}
-      </div>
+      </Card>
     ) : null;
 
   return { remove, bar };

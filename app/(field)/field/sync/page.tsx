@@ -2,6 +2,8 @@
 
 import { useLiveQuery } from 'dexie-react-hooks';
 import Link from 'next/link';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
 import { fieldDb, type OutboxEntry } from '@/lib/client/db';
 import { waitingPhotos } from '@/lib/client/photo-queue';
 import { requestSync } from '@/lib/client/sync/triggers';
@@ -19,7 +21,7 @@ function Conflict({ entry, units }: { entry: OutboxEntry; units: UnitSystem }) {
   const server = (entry.result?.conflict?.server ?? {}) as Record<string, unknown>;
   const mine = (entry.op.changes ?? {}) as Record<string, unknown>;
   return (
-    <li className="space-y-2 rounded-md border-2 border-ochre bg-white p-3">
+    <Card as="li" tone="caution" padding="md" className="space-y-2">
       <p className="font-bold">Changed on the server while you were out: {describeRecord(entry.entity, { ...server, ...mine })}</p>
       <table className="w-full text-left">
         <thead>
@@ -40,14 +42,14 @@ function Conflict({ entry, units }: { entry: OutboxEntry; units: UnitSystem }) {
         </tbody>
       </table>
       <div className="grid grid-cols-2 gap-2">
-        <button type="button" className="min-h-12 rounded-md bg-slate font-bold text-white" onClick={() => resolveConflict(entry.seq!, 'mine')}>
+        <Button size="wide" onClick={() => resolveConflict(entry.seq!, 'mine')}>
           Keep mine
-        </button>
-        <button type="button" className="min-h-12 rounded-md border-2 border-slate font-bold text-slate" onClick={() => resolveConflict(entry.seq!, 'theirs')}>
+        </Button>
+        <Button variant="secondary" size="wide" onClick={() => resolveConflict(entry.seq!, 'theirs')}>
           Take the server&apos;s
-        </button>
+        </Button>
       </div>
-    </li>
+    </Card>
   );
 }
 
@@ -61,19 +63,19 @@ function refusalReason(entry: OutboxEntry): string {
 
 function Refused({ entry }: { entry: OutboxEntry }) {
   return (
-    <li className="space-y-2 rounded-md border-2 border-clay bg-white p-3">
+    <Card as="li" tone="alarm" padding="md" className="space-y-2">
       <p className="font-bold">The server refused a change to {describeRecord(entry.entity, (entry.op.changes ?? {}) as Record<string, unknown>)}</p>
       <p>{refusalReason(entry)}</p>
       <p className="text-stone">Give it up to put back what the server holds; send it again once the reason is fixed.</p>
       <div className="grid grid-cols-2 gap-2">
-        <button type="button" className="min-h-12 rounded-md bg-slate font-bold text-white" onClick={() => retryParked(entry.seq!)}>
+        <Button size="wide" onClick={() => retryParked(entry.seq!)}>
           Send again
-        </button>
-        <button type="button" className="min-h-12 rounded-md border-2 border-clay font-bold text-clay" onClick={() => discardParked(entry.seq!)}>
+        </Button>
+        <Button variant="danger" size="wide" onClick={() => discardParked(entry.seq!)}>
           Give it up
-        </button>
+        </Button>
       </div>
-    </li>
+    </Card>
   );
 }
 
@@ -95,13 +97,13 @@ function RefusedPhotos() {
       <p>They stay on this phone and are tried again at each sync.</p>
       <ul className="space-y-3">
         {refused.map((p) => (
-          <li key={p.id} className="space-y-2 rounded-md border-2 border-clay bg-white p-3">
+          <Card as="li" tone="alarm" padding="md" className="space-y-2" key={p.id}>
             <p className="font-bold">{p.caption ? `Photo “${p.caption}”` : 'A photo'}</p>
             <p>{p.error?.message}</p>
-            <button type="button" className="min-h-12 w-full rounded-md bg-slate font-bold text-white" onClick={() => tryAgain(p.id)}>
+            <Button size="wide" onClick={() => tryAgain(p.id)}>
               Try again now
-            </button>
-          </li>
+            </Button>
+          </Card>
         ))}
       </ul>
     </>

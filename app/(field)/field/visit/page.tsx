@@ -4,6 +4,7 @@ import { useLiveQuery } from 'dexie-react-hooks';
 import dynamic from 'next/dynamic';
 import Link from 'next/link';
 import { Suspense } from 'react';
+import { cardClasses } from '@/components/ui/card';
 import { fieldDb } from '@/lib/client/db';
 import { formatDay } from '@/lib/shared/display/dates';
 import { OfflineMapNote } from '../_components/offline-map-note';
@@ -71,7 +72,11 @@ function VisitOverview() {
           <li key={s.href}>
             <Link
               href={`/field/visit/${s.href}?id=${id}`}
-              className="flex min-h-16 items-center justify-between rounded-md border-2 border-rule bg-white px-4 text-lg font-bold text-ink no-underline"
+              className={cardClasses({
+                tone: 'field',
+                padding: 'none',
+                className: 'flex min-h-16 items-center justify-between px-4 text-lg font-bold text-ink no-underline',
+              })}
             >
               <span>{s.title}</span>
               <span className="figure text-stone" data-testid={`count-${s.href}`}>

@@ -3,10 +3,11 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { PastDayConfirm } from '@/components/past-day-confirm';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { Input, Select } from '@/components/ui/control';
 import { ApiError, apiJson } from '@/lib/client/api';
 import type { Option } from './visit-filters';
-
-const field = 'mt-1 block min-h-12 w-full rounded-md border-2 border-stone bg-white px-2';
 
 /** Assigns the ticked visits to one advisor and date; asks again when some may hold unsynced data. */
 export function BulkAssign({ visitIds, advisors, onDone }: { visitIds: string[]; advisors: Option[]; onDone: () => void }) {
@@ -42,38 +43,39 @@ export function BulkAssign({ visitIds, advisors, onDone }: { visitIds: string[];
     ) : null;
   }
   return (
-    <section aria-label="Assign ticked visits" className="rounded-md border-2 border-slate bg-white p-3">
+    <Card as="section" aria-label="Assign ticked visits" tone="strong" padding="md">
       <h3 className="font-bold">
         Assign {visitIds.length} ticked {visitIds.length === 1 ? 'visit' : 'visits'}
       </h3>
       <div className="mt-2 grid gap-3 sm:grid-cols-3">
         <label className="block font-bold">
           Advisor
-          <select className={field} value={advisorId} onChange={(e) => setAdvisorId(e.target.value)} aria-invalid={!!error?.fieldErrors.advisorId}>
+          <Select className="text-base" value={advisorId} onChange={(e) => setAdvisorId(e.target.value)} aria-invalid={!!error?.fieldErrors.advisorId}>
             <option value="">Choose…</option>
             {advisors.map((a) => (
               <option key={a.id} value={a.id}>
                 {a.name}
               </option>
             ))}
-          </select>
+          </Select>
           {error?.fieldErrors.advisorId && <span className="block text-clay">{error.fieldErrors.advisorId[0]}</span>}
         </label>
         <label className="block font-bold">
           Planned date
-          <input type="date" className={field} value={plannedOn} onChange={(e) => setPlannedOn(e.target.value)} aria-invalid={!!error?.fieldErrors.plannedOn} />
+          <Input
+            type="date"
+            className="text-base"
+            value={plannedOn}
+            onChange={(e) => setPlannedOn(e.target.value)}
+            aria-invalid={!!error?.fieldErrors.plannedOn}
+          />
           {error?.fieldErrors.plannedOn && <span className="block text-clay">{error.fieldErrors.plannedOn[0]}</span>}
           <PastDayConfirm day={plannedOn} checked={confirmPast} onChange={setConfirmPast} />
         </label>
         <div className="flex items-end">
-          <button
-            type="button"
-            disabled={mutation.isPending}
-            onClick={() => mutation.mutate(false)}
-            className="min-h-12 w-full rounded-md bg-slate px-4 font-bold text-white disabled:opacity-70"
-          >
+          <Button disabled={mutation.isPending} onClick={() => mutation.mutate(false)} className="w-full">
             {mutation.isPending ? 'Assigning…' : 'Assign'}
-          </button>
+          </Button>
         </div>
       </div>
       {error && !error.fieldErrors.advisorId && !error.fieldErrors.plannedOn && (
@@ -84,11 +86,11 @@ export function BulkAssign({ visitIds, advisors, onDone }: { visitIds: string[];
       {warning && (
         <div role="alert" className="mt-3 rounded-md border-2 border-ochre p-3">
           <p className="font-bold text-ochre">⚠ {warning}</p>
-          <button type="button" onClick={() => mutation.mutate(true)} className="mt-2 min-h-12 rounded-md border-2 border-ochre px-4 font-bold text-ochre">
+          <Button variant="caution" onClick={() => mutation.mutate(true)} className="mt-2">
             Reassign anyway
-          </button>
+          </Button>
         </div>
       )}
-    </section>
+    </Card>
   );
 }

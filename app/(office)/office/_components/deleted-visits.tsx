@@ -2,6 +2,8 @@
 
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
 import { apiJson } from '@/lib/client/api';
 import { formatDay } from '@/lib/shared/display/dates';
 
@@ -40,24 +42,19 @@ export function DeletedVisits({ visits }: { visits: DeletedVisit[] }) {
         Deleted visits
       </h2>
       {visits.length > 0 && (
-        <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
+        <Card as="ul" padding="none" className="divide-y divide-rule">
           {visits.map((v) => (
             <li key={v.id} className="flex flex-wrap items-center justify-between gap-3 p-3">
               <span>
                 <strong>{v.farmName}</strong>
                 {v.advisorName ? ` · ${v.advisorName}` : ''} · deleted {formatDay(v.deletedAt)}
               </span>
-              <button
-                type="button"
-                onClick={() => restore(v)}
-                disabled={busy !== null}
-                className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate disabled:opacity-50"
-              >
+              <Button variant="secondary" onClick={() => restore(v)} disabled={busy !== null}>
                 {busy === v.id ? 'Restoring…' : 'Restore'}
-              </button>
+              </Button>
             </li>
           ))}
-        </ul>
+        </Card>
       )}
       {message && (
         <p role={message.ok ? 'status' : 'alert'} className={`font-bold ${message.ok ? 'text-moss' : 'text-clay'}`}>

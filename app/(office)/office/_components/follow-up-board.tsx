@@ -1,4 +1,5 @@
 import Link from 'next/link';
+import { cardClasses } from '@/components/ui/card';
 import { VISIT_STATUS_LABELS, VISIT_STATUSES, type VisitStatus } from '@/lib/shared/domain';
 
 export interface AdvisorLoadView {
@@ -24,7 +25,7 @@ export function FollowUpBoard({ byStatus, overdue, loads }: { byStatus: Partial<
           <li key={status}>
             <Link
               href={tableLink({ status })}
-              className="block h-full rounded-md border border-rule bg-white p-3 text-ink no-underline hover:border-slate"
+              className={cardClasses({ padding: 'md', className: 'block h-full text-ink no-underline hover:border-slate' })}
               aria-label={`${byStatus[status] ?? 0} visits: ${VISIT_STATUS_LABELS[status]}`}
             >
               <span className="figure block text-sm text-stone">{i + 1}.</span>

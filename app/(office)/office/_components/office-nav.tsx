@@ -1,4 +1,4 @@
-import Link from 'next/link';
+import { TapLink } from '@/components/ui/tap-link';
 
 const LINKS = [
   { href: '/office', label: 'Visits' },
@@ -17,9 +17,9 @@ export function OfficeNav() {
       <ul className="mx-auto flex max-w-6xl flex-wrap gap-1 px-4">
         {LINKS.map((l) => (
           <li key={l.href}>
-            <Link href={l.href} className="inline-flex min-h-12 items-center px-3 font-bold text-slate no-underline hover:underline">
+            <TapLink href={l.href} className="px-3 text-slate no-underline hover:underline">
               {l.label}
-            </Link>
+            </TapLink>
           </li>
         ))}
       </ul>

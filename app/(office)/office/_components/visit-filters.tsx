@@ -1,14 +1,14 @@
 'use client';
 
 import { useEffect, useState } from 'react';
+import { Card } from '@/components/ui/card';
+import { Input, Select } from '@/components/ui/control';
 import { VERDICT_WORDS, VERDICTS, VISIT_STATUS_LABELS, VISIT_STATUSES } from '@/lib/shared/domain';
 
 export interface Option {
   id: string;
   name: string;
 }
-
-const field = 'mt-1 block min-h-12 w-full rounded-md border-2 border-stone bg-white px-2 text-base';
 
 /** The filters of the visits table; every change goes straight into the page's URL. */
 export function VisitFilters({
@@ -33,30 +33,32 @@ export function VisitFilters({
   const select = (name: string, label: string, options: { value: string; label: string }[]) => (
     <label className="block font-bold">
       {label}
-      <select className={field} value={values[name] ?? ''} onChange={(e) => onChange({ [name]: e.target.value })}>
+      <Select className="text-base" value={values[name] ?? ''} onChange={(e) => onChange({ [name]: e.target.value })}>
         <option value="">Any</option>
         {options.map((o) => (
           <option key={o.value} value={o.value}>
             {o.label}
           </option>
         ))}
-      </select>
+      </Select>
     </label>
   );
 
   return (
-    <form
+    <Card
+      as="form"
       role="search"
       aria-label="Filter visits"
-      onSubmit={(e) => {
+      onSubmit={(e: React.FormEvent) => {
         e.preventDefault();
         onChange({ q });
       }}
-      className="grid grid-cols-1 gap-3 rounded-md border border-rule bg-white p-3 sm:grid-cols-2 lg:grid-cols-4"
+      padding="md"
+      className="grid grid-cols-1 gap-3 sm:grid-cols-2 lg:grid-cols-4"
     >
       <label className="block font-bold sm:col-span-2">
         Farm or farmer
-        <input type="search" className={field} value={q} onChange={(e) => setQ(e.target.value)} placeholder="Part of a name" />
+        <Input type="search" className="text-base" value={q} onChange={(e) => setQ(e.target.value)} placeholder="Part of a name" />
       </label>
       {select(
         'status',
@@ -72,16 +74,16 @@ export function VisitFilters({
       )}
       <label className="block font-bold">
         Planned from
-        <input type="date" className={field} value={values.plannedFrom ?? ''} onChange={(e) => onChange({ plannedFrom: e.target.value })} />
+        <Input type="date" className="text-base" value={values.plannedFrom ?? ''} onChange={(e) => onChange({ plannedFrom: e.target.value })} />
       </label>
       <label className="block font-bold">
         Planned to
-        <input type="date" className={field} value={values.plannedTo ?? ''} onChange={(e) => onChange({ plannedTo: e.target.value })} />
+        <Input type="date" className="text-base" value={values.plannedTo ?? ''} onChange={(e) => onChange({ plannedTo: e.target.value })} />
       </label>
       <label className="flex min-h-12 items-center gap-2 font-bold">
         <input type="checkbox" className="h-6 w-6" checked={values.overdue === '1'} onChange={(e) => onChange({ overdue: e.target.checked ? '1' : '' })} />
         Only overdue
       </label>
-    </form>
+    </Card>
   );
 }

@@ -3,6 +3,7 @@
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
 import { usePathname, useRouter, useSearchParams } from 'next/navigation';
 import { useCallback, useMemo, useState } from 'react';
+import { Button, ButtonLink } from '@/components/ui/button';
 import { apiJson } from '@/lib/client/api';
 import { BulkAssign } from './bulk-assign';
 import { VisitFilters, type Option } from './visit-filters';
@@ -82,13 +83,9 @@ export function VisitsBrowser({ advisors, areas }: { advisors: Option[]; areas: 
         <p role="status" className="text-lg">
           {query.isPending ? 'Loading visits…' : query.isError ? '' : `${data?.total ?? 0} ${data?.total === 1 ? 'visit matches' : 'visits match'}`}
         </p>
-        <a
-          href={`/api/visits/export.csv?${filterString}`}
-          className="inline-flex min-h-12 items-center rounded-md border-2 border-slate px-4 font-bold text-slate no-underline"
-          download
-        >
+        <ButtonLink plain variant="secondary" href={`/api/visits/export.csv?${filterString}`} download>
           Download these as CSV
-        </a>
+        </ButtonLink>
       </div>
       {query.isError && (
         <p role="alert" className="font-bold text-clay">
@@ -109,25 +106,15 @@ export function VisitsBrowser({ advisors, areas }: { advisors: Option[]; areas: 
         />
       )}
       <nav aria-label="Pages" className="flex items-center gap-3">
-        <button
-          type="button"
-          disabled={page <= 1}
-          onClick={() => update({ page: String(page - 1) })}
-          className="min-h-12 rounded-md border-2 border-stone px-4 font-bold disabled:opacity-50"
-        >
+        <Button variant="quiet" disabled={page <= 1} onClick={() => update({ page: String(page - 1) })}>
           ← Previous
-        </button>
+        </Button>
         <span className="figure">
           Page {page} of {pages}
         </span>
-        <button
-          type="button"
-          disabled={page >= pages}
-          onClick={() => update({ page: String(page + 1) })}
-          className="min-h-12 rounded-md border-2 border-stone px-4 font-bold disabled:opacity-50"
-        >
+        <Button variant="quiet" disabled={page >= pages} onClick={() => update({ page: String(page + 1) })}>
           Next →
-        </button>
+        </Button>
       </nav>
     </div>
   );

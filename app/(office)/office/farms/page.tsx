@@ -1,6 +1,9 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { StatusChip } from '@/components/status-chip';
+import { Button, ButtonLink } from '@/components/ui/button';
+import { Input, Select } from '@/components/ui/control';
+import { TapLink } from '@/components/ui/tap-link';
 import { requirePageUser } from '@/lib/server/auth/page-guard';
 import { FARM_SORTS, listFarms } from '@/lib/server/data/farms';
 import { showQuantity } from '@/lib/shared/display/quantities';
@@ -8,7 +11,6 @@ import { showQuantity } from '@/lib/shared/display/quantities';
 export const metadata: Metadata = { title: 'Farms' };
 
 const SORT_WORDS: Record<(typeof FARM_SORTS)[number], string> = { name: 'Name', area: 'Area', added: 'Newest first' };
-const field = 'mt-1 block min-h-12 w-full rounded-md border-2 border-stone bg-white px-2 text-lg';
 
 export default async function FarmsPage({ searchParams }: { searchParams: Promise<{ page?: string; q?: string; sort?: string }> }) {
   const user = await requirePageUser(['coordinator'], '/office/farms');
@@ -23,28 +25,26 @@ export default async function FarmsPage({ searchParams }: { searchParams: Promis
     <div className="space-y-6">
       <div className="flex flex-wrap items-center justify-between gap-3">
         <h1 className="text-3xl font-bold text-slate">Farms</h1>
-        <Link href="/office/farms/new" className="inline-flex min-h-12 items-center rounded-md bg-slate px-4 font-bold text-white no-underline">
-          Add a farm
-        </Link>
+        <ButtonLink href="/office/farms/new">Add a farm</ButtonLink>
       </div>
       <form role="search" aria-label="Find farms" method="get" action="/office/farms" className="grid max-w-3xl gap-3 sm:grid-cols-[2fr_1fr_auto] sm:items-end">
         <label className="block font-bold">
           Farm, area or farmer
-          <input name="q" defaultValue={q} className={field} />
+          <Input name="q" defaultValue={q} />
         </label>
         <label className="block font-bold">
           Sort by
-          <select name="sort" defaultValue={sort} className={field}>
+          <Select name="sort" defaultValue={sort}>
             {FARM_SORTS.map((s) => (
               <option key={s} value={s}>
                 {SORT_WORDS[s]}
               </option>
             ))}
-          </select>
+          </Select>
         </label>
-        <button type="submit" className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate">
+        <Button type="submit" variant="secondary">
           Show
-        </button>
+        </Button>
       </form>
       <p className="figure">
         {farms.total} {farms.total === 1 ? 'farm' : 'farms'}
@@ -74,9 +74,7 @@ export default async function FarmsPage({ searchParams }: { searchParams: Promis
                 <td className="py-3 pr-3">{f.stage ? <StatusChip status={f.stage} /> : <span className="text-stone">No visit yet</span>}</td>
                 <td className="figure py-3 pr-3">{f.demandLpd > 0 ? showQuantity(f.demandLpd, 'litresPerDay', user.units) : '—'}</td>
                 <td className="py-3">
-                  <Link href={`/office/visits/new?farm=${f.id}`} className="inline-flex min-h-12 items-center font-bold">
-                    Plan a visit
-                  </Link>
+                  <TapLink href={`/office/visits/new?farm=${f.id}`}>Plan a visit</TapLink>
                 </td>
               </tr>
             ))}

@@ -1,13 +1,14 @@
 'use client';
 
 import { zodResolver } from '@hookform/resolvers/zod';
-import Link from 'next/link';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
+import { Button, ButtonLink } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { Input } from '@/components/ui/control';
+import { Field } from '@/components/ui/field';
 import { apiJson, applyFieldErrors } from '@/lib/client/api';
 import { acceptInvitationSchema, type AcceptInvitationInput } from '@/lib/shared/schemas/office';
-
-const field = 'mt-1 block min-h-12 w-full rounded-md border-2 border-stone bg-white px-3 text-lg';
 
 /** Sets the password of an invited account; the link is spent on success. */
 export function SetPasswordForm({ token, email }: { token: string; email: string }) {
@@ -28,9 +29,9 @@ export function SetPasswordForm({ token, email }: { token: string; email: string
     return (
       <div role="status" className="mt-6 space-y-3">
         <p className="text-lg font-bold text-moss">Your password is set.</p>
-        <Link href="/login" className="inline-flex min-h-12 items-center rounded-md bg-slate px-5 text-lg font-bold text-white no-underline">
+        <ButtonLink href="/login" size="lg">
           Sign in
-        </Link>
+        </ButtonLink>
       </div>
     );
   }
@@ -41,11 +42,11 @@ export function SetPasswordForm({ token, email }: { token: string; email: string
         <label htmlFor="password" className="block text-lg font-bold">
           New password
         </label>
-        <input
+        <Input
+          className="px-3"
           id="password"
           type="password"
           autoComplete="new-password"
-          className={field}
           aria-invalid={!!errors.password}
           aria-describedby="password-help"
           {...register('password')}
@@ -55,21 +56,17 @@ export function SetPasswordForm({ token, email }: { token: string; email: string
         </p>
         {errors.password && <p className="mt-1 font-bold text-clay">{errors.password.message}</p>}
       </div>
-      <div>
-        <label htmlFor="confirm" className="block text-lg font-bold">
-          The same password again
-        </label>
-        <input id="confirm" type="password" autoComplete="new-password" className={field} aria-invalid={!!errors.confirm} {...register('confirm')} />
-        {errors.confirm && <p className="mt-1 font-bold text-clay">{errors.confirm.message}</p>}
-      </div>
+      <Field id="confirm" label="The same password again" labelClassName="text-lg" message={errors.confirm?.message}>
+        {(control) => <Input {...control} className="px-3" type="password" autoComplete="new-password" {...register('confirm')} />}
+      </Field>
       {serverError && (
-        <p role="alert" className="rounded-md border-2 border-clay bg-white p-3 font-bold text-clay">
+        <Card as="p" tone="alarm" padding="md" className="font-bold text-clay" role="alert">
           {serverError}
-        </p>
+        </Card>
       )}
-      <button type="submit" disabled={isSubmitting} className="min-h-14 w-full rounded-md bg-slate px-4 text-xl font-bold text-white disabled:opacity-70">
+      <Button size="xl" className="w-full" type="submit" disabled={isSubmitting}>
         {isSubmitting ? 'Saving…' : 'Set my password'}
-      </button>
+      </Button>
     </form>
   );
 }

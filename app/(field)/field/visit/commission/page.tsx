@@ -2,6 +2,7 @@
 
 import { Suspense, useEffect, useState } from 'react';
 import { useLiveQuery } from 'dexie-react-hooks';
+import { Card } from '@/components/ui/card';
 import { commissioningCheck, designPointFromFigures, EngineInputError, screenSite, type CommissioningResult, type DesignPoint } from '@/lib/engine';
 import { localSiteReadings } from '@/lib/client/site-readings';
 import { siteReadingsSchema } from '@/lib/shared/schemas/site-readings';
@@ -110,12 +111,12 @@ function CommissionPage() {
         </p>
       )}
       {local && (
-        <section aria-labelledby="check" className="rounded-md border-2 border-slate bg-white p-4" data-testid="commission-check">
+        <Card as="section" tone="strong" aria-labelledby="check" data-testid="commission-check">
           <h2 id="check" className="text-xl font-bold">
             What the ram does
           </h2>
           <CheckSummary check={local} units={units} />
-        </section>
+        </Card>
       )}
       {message && (
         <p role="status" className="font-bold">

@@ -2,6 +2,9 @@
 
 import { useLiveQuery } from 'dexie-react-hooks';
 import { Suspense, useEffect, useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { Select } from '@/components/ui/control';
 import { DEMAND_CATALOGUE, type DemandKind } from '@/lib/engine/demand';
 import { SOURCES } from '@/lib/engine/sources';
 import { fieldDb } from '@/lib/client/db';
@@ -99,7 +102,7 @@ function DemandPage() {
           {showQuantity(total, 'litresPerDay', units)}
         </strong>
       </p>
-      <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
+      <Card as="ul" padding="none" className="divide-y divide-rule">
         {lines?.map((l) => (
           <li key={l.id} className="flex items-center justify-between px-3 py-2">
             <span>
@@ -108,21 +111,21 @@ function DemandPage() {
                 {perHeadText(l.kind, l.litresPerHeadPerDay, units)} · {sourceName(l.figureSource)}
               </span>
             </span>
-            <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold" onClick={() => remove('demandLine', l.id, 'the line')}>
+            <Button variant="quiet" size="sm" onClick={() => remove('demandLine', l.id, 'the line')}>
               Delete
-            </button>
+            </Button>
           </li>
         ))}
-      </ul>
+      </Card>
       {bar}
-      <section aria-labelledby="add-line" className="space-y-3 rounded-md border-2 border-rule bg-white p-3">
+      <Card as="section" tone="field" padding="md" className="space-y-3" aria-labelledby="add-line">
         <h2 id="add-line" className="text-xl font-bold">
           Add a line
         </h2>
         <label htmlFor="kind" className="block font-bold">
           Who or what drinks
         </label>
-        <select
+        <Select
           id="kind"
           value={kind}
           onChange={(e) => {
@@ -130,14 +133,15 @@ function DemandPage() {
             setPerHead(undefined);
             check.clear();
           }}
-          className="min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-lg"
+          look="phone"
+          className="text-lg"
         >
           {KINDS.map((k) => (
             <option key={k.kind} value={k.kind}>
               {k.kind === GARDEN ? 'Garden' : k.label}
             </option>
           ))}
-        </select>
+        </Select>
         {kind === GARDEN ? (
           <NumberField label="Garden area" quantity="area" units={units} value={typedCount} onChange={setCount}>
             <FieldIssue check={check} path="count" />
@@ -169,7 +173,7 @@ function DemandPage() {
           </p>
         )}
         <PrimaryButton onClick={add}>Add line</PrimaryButton>
-      </section>
+      </Card>
     </div>
   );
 }

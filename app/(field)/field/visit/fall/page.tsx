@@ -2,6 +2,8 @@
 
 import { useLiveQuery } from 'dexie-react-hooks';
 import { Suspense, useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
 import { fieldDb } from '@/lib/client/db';
 import { showQuantity } from '@/lib/shared/display/quantities';
 import { FALL_METHOD_WORDS, wordFor } from '@/lib/shared/reading-words';
@@ -40,7 +42,7 @@ function FallPage() {
           Saved runs
         </h2>
         {saved?.length === 0 && <p className="text-stone">None yet.</p>}
-        <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
+        <Card as="ul" padding="none" className="divide-y divide-rule">
           {saved?.map((r) => {
             const drop = r.run.method === 'direct' ? r.run.staticLiftM : liveResult(r.run).dropM;
             return (
@@ -52,17 +54,13 @@ function FallPage() {
                   </span>
                   <span className="figure block">{showQuantity(drop === null ? null : Math.abs(drop), 'length', units)}</span>
                 </span>
-                <button
-                  type="button"
-                  className="min-h-12 rounded-md border-2 border-stone px-3 font-bold"
-                  onClick={() => remove('fallReading', r.id, r.purpose === 'fall' ? 'the fall run' : 'the lift run')}
-                >
+                <Button variant="quiet" size="sm" onClick={() => remove('fallReading', r.id, r.purpose === 'fall' ? 'the fall run' : 'the lift run')}>
                   Delete
-                </button>
+                </Button>
               </li>
             );
           })}
-        </ul>
+        </Card>
         {bar}
       </section>
     </div>

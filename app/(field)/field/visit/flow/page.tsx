@@ -2,6 +2,9 @@
 
 import { useLiveQuery } from 'dexie-react-hooks';
 import { Suspense, useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { Input } from '@/components/ui/control';
 import { fieldDb } from '@/lib/client/db';
 import { newId } from '@/lib/client/ids';
 import { saveRecord } from '@/lib/client/outbox';
@@ -62,15 +65,10 @@ function SourceName({ visitId, units }: { visitId: string; units: UnitSystem }) 
       <label htmlFor="source-name" className="block font-bold">
         Name of the source (spring, creek…)
       </label>
-      <input
-        id="source-name"
-        value={name}
-        onChange={(e) => setName(e.target.value)}
-        className="min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-xl"
-      />
-      <button type="submit" className="min-h-14 w-full rounded-md bg-slate text-xl font-bold text-white">
+      <Input look="phone" id="source-name" value={name} onChange={(e) => setName(e.target.value)} />
+      <Button size="wide" className="min-h-14 text-xl" type="submit">
         Start measuring this source
-      </button>
+      </Button>
     </form>
   );
 }
@@ -89,7 +87,7 @@ function FlowPage() {
           Saved measurements
         </h2>
         {saved?.length === 0 && <p className="text-stone">None yet.</p>}
-        <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
+        <Card as="ul" padding="none" className="divide-y divide-rule">
           {saved?.map((m) => (
             <li key={m.id} className="flex items-center justify-between px-3 py-2">
               <span>
@@ -100,16 +98,12 @@ function FlowPage() {
                   {showQuantity(meanLps(m.measurement), 'flowLps', units)} mean of {formatCount(m.measurement.trials.length, 'trial')}
                 </span>
               </span>
-              <button
-                type="button"
-                className="min-h-12 rounded-md border-2 border-stone px-3 font-bold"
-                onClick={() => remove('flowMeasurement', m.id, 'the flow measurement')}
-              >
+              <Button variant="quiet" size="sm" onClick={() => remove('flowMeasurement', m.id, 'the flow measurement')}>
                 Delete
-              </button>
+              </Button>
             </li>
           ))}
-        </ul>
+        </Card>
         {bar}
       </section>
     </div>

@@ -2,6 +2,8 @@
 
 import { useLiveQuery } from 'dexie-react-hooks';
 import { Suspense, useEffect, useMemo, useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
 import { fieldDb } from '@/lib/client/db';
 import { newId } from '@/lib/client/ids';
 import { savePhoto } from '@/lib/client/outbox';
@@ -89,18 +91,14 @@ function PhotosPage() {
       )}
       <ul className="grid grid-cols-2 gap-3 sm:grid-cols-3">
         {photos?.map((p) => (
-          <li key={p.id} className="rounded-md border border-rule bg-white p-2">
+          <Card as="li" padding="sm" key={p.id}>
             <Thumb id={p.id} alt={p.caption || 'Site photo'} />
             <span className="mt-1 block text-sm">{p.lat !== null ? `${p.lat.toFixed(5)}, ${p.lon?.toFixed(5)}` : 'No position'}</span>
             <span className="block text-sm font-bold">{p.uploaded ? 'On the server' : 'Waiting to upload'}</span>
-            <button
-              type="button"
-              className="mt-1 min-h-12 w-full rounded-md border-2 border-stone font-bold"
-              onClick={() => remove('photo', p.id, 'the photo')}
-            >
+            <Button variant="quiet" size="wide" className="mt-1" onClick={() => remove('photo', p.id, 'the photo')}>
               Delete
-            </button>
-          </li>
+            </Button>
+          </Card>
         ))}
       </ul>
       {bar}

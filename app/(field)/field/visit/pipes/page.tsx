@@ -4,6 +4,8 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useLiveQuery } from 'dexie-react-hooks';
 import { Suspense, useEffect, useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
+import { Card } from '@/components/ui/card';
+import { Select } from '@/components/ui/control';
 import { z } from '@/lib/shared/zod';
 import { PIPE_MATERIALS, type PipeMaterialId } from '@/lib/engine/materials';
 import { fieldDb, type LocalRecord } from '@/lib/client/db';
@@ -44,7 +46,7 @@ function PipeFields({
   hint: string;
 }) {
   return (
-    <fieldset className="space-y-3 rounded-md border-2 border-rule bg-white p-3">
+    <Card as="fieldset" tone="field" padding="md" className="space-y-3">
       <legend className="px-1 text-xl font-bold">{title}</legend>
       <p className="text-stone">{hint}</p>
       <Controller
@@ -89,22 +91,23 @@ function PipeFields({
             <label htmlFor={`${name}-material`} className="block font-bold">
               Material
             </label>
-            <select
+            <Select
+              look="phone"
+              className="mt-1 text-lg"
               id={`${name}-material`}
               value={field.value}
               onChange={(e) => field.onChange(e.target.value as PipeMaterialId)}
-              className="mt-1 min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-lg"
             >
               {MATERIALS.map((m) => (
                 <option key={m.id} value={m.id}>
                   {m.label}
                 </option>
               ))}
-            </select>
+            </Select>
           </div>
         )}
       />
-    </fieldset>
+    </Card>
   );
 }
 

@@ -3,6 +3,8 @@
 import { useLiveQuery } from 'dexie-react-hooks';
 import Link from 'next/link';
 import { Suspense } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
 import { fieldDb } from '@/lib/client/db';
 import { formatCount } from '@/lib/shared/display/numbers';
 import { POINT_ROLE_WORDS } from '@/lib/shared/reading-words';
@@ -44,7 +46,7 @@ function PointsPage() {
             .
           </p>
         )}
-        <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
+        <Card as="ul" padding="none" className="divide-y divide-rule">
           {points?.map((p) => (
             <li key={p.id} className="flex items-center justify-between px-3 py-2">
               <span>
@@ -57,12 +59,12 @@ function PointsPage() {
                   {p.accuracyM !== null ? ` ± ${showQuantity(p.accuracyM, 'accuracy', units)}` : ''}
                 </span>
               </span>
-              <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold" onClick={() => remove('point', p.id, 'the point')}>
+              <Button variant="quiet" size="sm" onClick={() => remove('point', p.id, 'the point')}>
                 Delete
-              </button>
+              </Button>
             </li>
           ))}
-        </ul>
+        </Card>
         {bar}
       </section>
     </div>

@@ -2,6 +2,8 @@
 
 import { useLiveQuery } from 'dexie-react-hooks';
 import { Suspense, useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
 import { VerdictMark } from '@/components/verdict-mark';
 import { bestPositions, EngineInputError, type BestPositionsResult, type ProfileTank } from '@/lib/engine';
 import { fieldDb } from '@/lib/client/db';
@@ -93,17 +95,17 @@ function PositionsPage() {
     <div className="space-y-5">
       <SectionHeader visitId={visitId} title="Creek profile and best positions" />
       <StationForm visitId={visitId} units={units} />
-      <fieldset className="space-y-3 rounded-md border-2 border-rule bg-white p-3">
+      <Card as="fieldset" tone="field" padding="md" className="space-y-3">
         <legend className="px-1 text-xl font-bold">Tank</legend>
         <div className="grid gap-3 sm:grid-cols-3">
           <NumberField label="Tank water level" quantity="length" units={units} signed value={levelM} onChange={setTankLevel} />
           <NumberField label="Along the bank at" quantity="length" units={units} value={chainM} onChange={setTankChainage} />
           <NumberField label="Distance away from the creek" quantity="length" units={units} value={offsetM} onChange={setOffsetM} />
         </div>
-        <button type="button" onClick={saveTank} className="min-h-12 w-full rounded-md border-2 border-slate font-bold text-slate">
+        <Button variant="secondary" size="wide" onClick={saveTank}>
           Save tank
-        </button>
-      </fieldset>
+        </Button>
+      </Card>
       <PositionsChart stations={profile.stations} tank={tank} pairs={result?.ranked ?? []} units={units} />
       <PositionsMapPanel stations={profile.stations} tankPoint={tp} pairs={result?.ranked ?? []} />
       <p className="text-stone">
@@ -133,7 +135,7 @@ function PositionsPage() {
           {result.ranked.length === 0 && <p className="font-bold">No pair fits the rules on this reach.</p>}
           <ol className="space-y-3">
             {result.ranked.map((p) => (
-              <li key={`${p.intake.id}-${p.pump.id}`} className="rounded-md border-2 border-rule bg-white p-3" data-testid={`pair-${p.rank}`}>
+              <Card as="li" tone="field" padding="md" key={`${p.intake.id}-${p.pump.id}`} data-testid={`pair-${p.rank}`}>
                 <p className="text-lg font-bold">
                   {p.rank}. Intake at <span className="figure">{showQuantity(p.intake.chainageM, 'length', units)}</span>, ram at{' '}
                   <span className="figure">{showQuantity(p.pump.chainageM, 'length', units)}</span>
@@ -156,10 +158,10 @@ function PositionsPage() {
                 <p>
                   Screen: <VerdictMark verdict={p.screening.verdict} />
                 </p>
-                <button type="button" onClick={() => adopt(p.rank)} className="mt-2 min-h-12 w-full rounded-md border-2 border-slate font-bold text-slate">
+                <Button variant="secondary" size="wide" className="mt-2" onClick={() => adopt(p.rank)}>
                   Adopt pair {p.rank}
-                </button>
-              </li>
+                </Button>
+              </Card>
             ))}
           </ol>
           {result.rejected.length > 0 && (
@@ -197,7 +199,7 @@ function StationList({ visitId, units }: { visitId: string; units: ReturnType<ty
   return (
     <details>
       <summary className="min-h-12 cursor-pointer font-bold">Saved stations ({rows.length})</summary>
-      <ul className="divide-y divide-rule rounded-md border border-rule bg-white">
+      <Card as="ul" padding="none" className="divide-y divide-rule">
         {rows.map((p) => (
           <li key={p.id} className="flex items-center justify-between px-3 py-2">
             <span className="figure">
@@ -205,12 +207,12 @@ function StationList({ visitId, units }: { visitId: string; units: ReturnType<ty
               {p.flags?.includes('no-pump-site') ? ' · floods' : ''}
               {p.flags?.includes('no-intake') ? ' · no intake' : ''}
             </span>
-            <button type="button" className="min-h-12 rounded-md border-2 border-stone px-3 font-bold" onClick={() => remove('point', p.id, 'the station')}>
+            <Button variant="quiet" size="sm" onClick={() => remove('point', p.id, 'the station')}>
               Delete
-            </button>
+            </Button>
           </li>
         ))}
-      </ul>
+      </Card>
       {bar}
     </details>
   );

@@ -2,6 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { StatusChip } from '@/components/status-chip';
+import { ButtonLink } from '@/components/ui/button';
 import { VerdictMark } from '@/components/verdict-mark';
 import { requirePageUser } from '@/lib/server/auth/page-guard';
 import { getFarmForEdit } from '@/lib/server/data/farm-editing';
@@ -42,9 +43,7 @@ export default async function FarmPage({ params }: { params: Promise<{ id: strin
             {needs.tankSite ? ` · tank: ${needs.tankSite}` : ''}
           </p>
         </div>
-        <Link href={`/office/visits/new?farm=${id}`} className="inline-flex min-h-12 items-center rounded-md bg-slate px-4 font-bold text-white no-underline">
-          Plan a visit
-        </Link>
+        <ButtonLink href={`/office/visits/new?farm=${id}`}>Plan a visit</ButtonLink>
       </div>
       {active.length > 0 && (
         <p className="font-bold text-ochre">{active.length === 1 ? 'One visit is' : `${active.length} visits are`} under way for this farm.</p>

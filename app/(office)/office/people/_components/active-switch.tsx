@@ -2,6 +2,7 @@
 
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
+import { Button } from '@/components/ui/button';
 import { apiJson } from '@/lib/client/api';
 
 /** Switches an account off (its sessions end at once) or back on, after a confirmation. */
@@ -24,14 +25,9 @@ export function ActiveSwitch({ id, name, active }: { id: string; name: string; a
   }
   return (
     <div>
-      <button
-        type="button"
-        onClick={toggle}
-        disabled={busy}
-        className={`min-h-12 rounded-md border-2 px-3 font-bold ${active ? 'border-clay text-clay' : 'border-slate text-slate'}`}
-      >
+      <Button variant={active ? 'danger' : 'secondary'} size="sm" onClick={toggle} disabled={busy}>
         {active ? `Switch off ${name}` : `Switch on ${name}`}
-      </button>
+      </Button>
       {error && (
         <p role="alert" className="mt-1 font-bold text-clay">
           {error}

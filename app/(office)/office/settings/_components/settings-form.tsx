@@ -3,11 +3,11 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useFieldArray, useForm } from 'react-hook-form';
+import { Button } from '@/components/ui/button';
+import { Input, Select } from '@/components/ui/control';
 import { apiJson, applyFieldErrors } from '@/lib/client/api';
 import type { PriceList } from '@/lib/shared/costs/price-list';
 import { settingsSchema, type SettingsInput } from '@/lib/shared/schemas/office';
-
-const field = 'mt-1 block min-h-12 w-full rounded-md border-2 border-stone bg-white px-2 text-lg';
 
 // The price list's boxes, grouped as a coordinator thinks of them; every default is invented (common practice, no source).
 const PRICE_GROUPS: { title: string; fields: { key: keyof PriceList; label: string }[] }[] = [
@@ -87,20 +87,20 @@ export function SettingsForm({ initial, kinds }: { initial: SettingsInput; kinds
           <label htmlFor="unitsDefault" className="block font-bold">
             Units for new accounts
           </label>
-          <select id="unitsDefault" className={field} {...register('unitsDefault')}>
+          <Select id="unitsDefault" {...register('unitsDefault')}>
             <option value="metric">Metric (m, L)</option>
             <option value="us">US customary (ft, gal)</option>
-          </select>
+          </Select>
         </div>
         <div>
           <label htmlFor="designFractionOfLowest" className="block font-bold">
             Design share of the lowest flow
           </label>
-          <input
+          <Input
             id="designFractionOfLowest"
             type="text"
             inputMode="decimal"
-            className={`${field} figure`}
+            className="figure"
             aria-describedby="fraction-help"
             {...register('designFractionOfLowest')}
           />
@@ -113,11 +113,11 @@ export function SettingsForm({ initial, kinds }: { initial: SettingsInput; kinds
           <label htmlFor="minProbabilityForGo" className="block font-bold">
             Least chance of meeting the need for a plain go
           </label>
-          <input
+          <Input
             id="minProbabilityForGo"
             type="text"
             inputMode="decimal"
-            className={`${field} figure`}
+            className="figure"
             aria-describedby="chance-help"
             {...register('minProbabilityForGo')}
           />
@@ -138,7 +138,7 @@ export function SettingsForm({ initial, kinds }: { initial: SettingsInput; kinds
                   (catalogue {k.catalogue} L/{k.unit}/day)
                 </span>
               </span>
-              <input type="text" inputMode="decimal" className={`${field} figure`} {...register(`demandFigures.${k.kind}` as const)} />
+              <Input type="text" inputMode="decimal" className="figure" {...register(`demandFigures.${k.kind}` as const)} />
               {errors.demandFigures?.[k.kind] && <span className="font-bold text-clay">{errors.demandFigures[k.kind]?.message}</span>}
             </label>
           ))}
@@ -150,23 +150,23 @@ export function SettingsForm({ initial, kinds }: { initial: SettingsInput; kinds
           <div key={f.id} className="grid grid-cols-2 items-end gap-2 sm:grid-cols-5">
             <label className="block">
               Material
-              <input className={field} {...register(`pipePrices.${i}.material`)} />
+              <Input {...register(`pipePrices.${i}.material`)} />
             </label>
             <label className="block">
               Diameter (mm)
-              <input inputMode="decimal" className={`${field} figure`} {...register(`pipePrices.${i}.diameterMm`)} />
+              <Input inputMode="decimal" className="figure" {...register(`pipePrices.${i}.diameterMm`)} />
             </label>
             <label className="block">
               Price per metre
-              <input inputMode="decimal" className={`${field} figure`} {...register(`pipePrices.${i}.pricePerM`)} />
+              <Input inputMode="decimal" className="figure" {...register(`pipePrices.${i}.pricePerM`)} />
             </label>
             <label className="block">
               Currency
-              <input className={field} {...register(`pipePrices.${i}.currency`)} />
+              <Input {...register(`pipePrices.${i}.currency`)} />
             </label>
-            <button type="button" onClick={() => prices.remove(i)} className="min-h-12 rounded-md border-2 border-clay px-3 font-bold text-clay">
+            <Button variant="danger" size="sm" onClick={() => prices.remove(i)}>
               Remove
-            </button>
+            </Button>
             {errors.pipePrices?.[i] && (
               <p className="col-span-full font-bold text-clay">
                 {Object.values(errors.pipePrices[i] ?? {})
@@ -177,13 +177,9 @@ export function SettingsForm({ initial, kinds }: { initial: SettingsInput; kinds
             )}
           </div>
         ))}
-        <button
-          type="button"
-          onClick={() => prices.append({ material: '', diameterMm: '', pricePerM: '', currency: 'GBP' } as never)}
-          className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate"
-        >
+        <Button variant="secondary" onClick={() => prices.append({ material: '', diameterMm: '', pricePerM: '', currency: 'GBP' } as never)}>
           Add a pipe price
-        </button>
+        </Button>
       </fieldset>
       <fieldset className="space-y-3" aria-describedby="prices-help">
         <legend className="text-lg font-bold">Prices for the sheet&rsquo;s costs</legend>
@@ -193,7 +189,7 @@ export function SettingsForm({ initial, kinds }: { initial: SettingsInput; kinds
         </p>
         <label className="block max-w-xs">
           Currency (three letters, such as GBP, EUR, USD, KES)
-          <input className={`${field} uppercase`} {...register('priceList.currency')} />
+          <Input className="uppercase" {...register('priceList.currency')} />
           {errors.priceList?.currency && <span className="font-bold text-clay">{errors.priceList.currency.message}</span>}
         </label>
         {PRICE_GROUPS.map((g) => (
@@ -203,7 +199,7 @@ export function SettingsForm({ initial, kinds }: { initial: SettingsInput; kinds
               {g.fields.map((f) => (
                 <label key={f.key} className="block">
                   {f.label}
-                  <input type="text" inputMode="decimal" className={`${field} figure`} {...register(`priceList.${f.key}` as const)} />
+                  <Input type="text" inputMode="decimal" className="figure" {...register(`priceList.${f.key}` as const)} />
                   {errors.priceList?.[f.key] && <span className="font-bold text-clay">{errors.priceList[f.key]?.message}</span>}
                 </label>
               ))}
@@ -216,9 +212,9 @@ export function SettingsForm({ initial, kinds }: { initial: SettingsInput; kinds
           {message.text}
         </p>
       )}
-      <button type="submit" disabled={isSubmitting} className="min-h-12 rounded-md bg-slate px-5 text-lg font-bold text-white disabled:opacity-70">
+      <Button size="lg" type="submit" disabled={isSubmitting}>
         {isSubmitting ? 'Saving…' : 'Save settings'}
-      </button>
+      </Button>
     </form>
   );
 }

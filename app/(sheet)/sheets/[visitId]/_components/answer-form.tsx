@@ -2,6 +2,7 @@
 
 import { useRouter } from 'next/navigation';
 import { useId, useState } from 'react';
+import { Button } from '@/components/ui/button';
 import { answerProblem } from '@/lib/shared/sheet/question-rules';
 
 /** For the assigned advisor and the office: answer one open question; the farmer is e-mailed it. */
@@ -54,9 +55,9 @@ export function AnswerForm({ visitId, questionId }: { visitId: string; questionI
           {problem}
         </p>
       )}
-      <button type="submit" disabled={busy} className="min-h-12 rounded-md bg-slate px-4 font-bold text-white disabled:opacity-60">
+      <Button type="submit" disabled={busy} className="disabled:opacity-60">
         {busy ? 'Sending…' : 'Send answer to the farmer'}
-      </button>
+      </Button>
     </form>
   );
 }

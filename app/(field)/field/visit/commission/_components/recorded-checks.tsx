@@ -1,6 +1,7 @@
 'use client';
 
 import { useLiveQuery } from 'dexie-react-hooks';
+import { Card } from '@/components/ui/card';
 import { commissioningCheck, type CommissioningResult } from '@/lib/engine';
 import { fieldDb, type LocalRecord, type OutboxEntry } from '@/lib/client/db';
 import type { UnitSystem } from '@/lib/shared/domain';
@@ -47,7 +48,7 @@ export function RecordedChecks({ visitId, units }: { visitId: string; units: Uni
         {rows.map(({ r, sending }) => {
           const check = localCheck(r);
           return (
-            <li key={r.id} className="rounded-md border-2 border-slate bg-white p-4" data-testid="recorded-check">
+            <Card as="li" tone="strong" key={r.id} data-testid="recorded-check">
               <p className="flex flex-wrap items-center gap-2">
                 <span
                   data-testid="send-state"
@@ -71,7 +72,7 @@ export function RecordedChecks({ visitId, units }: { visitId: string; units: Uni
                   ? 'On the server: compared there with the screening\u2019s prediction; the visit is commissioned.'
                   : 'Worked out on this phone; compared with the screening\u2019s prediction once it reaches the server.'}
               </p>
-            </li>
+            </Card>
           );
         })}
       </ol>

@@ -1,6 +1,7 @@
 'use client';
 
 import { useEffect, useState } from 'react';
+import { Card } from '@/components/ui/card';
 import { fieldDb } from '@/lib/client/db';
 import { setDirty } from '@/lib/client/dirty';
 import { newId } from '@/lib/client/ids';
@@ -179,7 +180,7 @@ export function FallForm({ visitId, purpose, units }: { visitId: string; purpose
         </NumberField>
       )}
       {method !== 'direct' && (
-        <div className="rounded-md border-2 border-creek bg-white p-3" aria-live="polite" data-testid="fall-live">
+        <Card tone="creek" padding="md" aria-live="polite" data-testid="fall-live">
           <p className="text-lg font-bold">
             {purpose === 'fall' ? 'Fall' : 'Height change'} so far: <span className="figure">{showQuantity(live.dropM, 'length', units)}</span>
           </p>
@@ -189,7 +190,7 @@ export function FallForm({ visitId, purpose, units }: { visitId: string; purpose
             </p>
           )}
           {live.message && <p className="text-stone">{live.message}</p>}
-        </div>
+        </Card>
       )}
       <FieldIssue check={check} path="run.result" />
       <FieldIssue check={check} path="run" />

@@ -1,5 +1,6 @@
 'use client';
 
+import { Card } from '@/components/ui/card';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { showQuantity } from '@/lib/shared/display/quantities';
 
@@ -16,7 +17,7 @@ export function ProfileChart({ levelsM, units }: { levelsM: number[]; units: Uni
   const y = (rl: number) => pad + ((max - rl) * (h - 2 * pad)) / span;
   const path = levelsM.map((rl, i) => `${i === 0 ? 'M' : 'L'}${x(i).toFixed(1)},${y(rl).toFixed(1)}`).join(' ');
   return (
-    <figure className="rounded-md border border-rule bg-white p-2">
+    <Card as="figure" padding="sm">
       <svg
         viewBox={`0 0 ${w} ${h}`}
         className="w-full"
@@ -40,6 +41,6 @@ export function ProfileChart({ levelsM, units }: { levelsM: number[]; units: Uni
         Stations as booked (first station at 0). Drop so far:{' '}
         <span className="figure">{showQuantity(levelsM[0]! - levelsM[levelsM.length - 1]!, 'length', units)}</span>
       </figcaption>
-    </figure>
+    </Card>
   );
 }

@@ -1,6 +1,8 @@
 'use client';
 
 import type { ReactNode } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
 import type { UnitSystem } from '@/lib/shared/domain';
 import type { QuantityKind } from '@/lib/shared/display/quantities';
 import { NumberField } from '../../../_components/number-field';
@@ -36,7 +38,7 @@ export function RowEditor({
   return (
     <div className="space-y-3">
       {rows.map((row, i) => (
-        <fieldset key={i} className="rounded-md border border-rule bg-white p-3">
+        <Card as="fieldset" padding="md" key={i}>
           <legend className="px-1 font-bold">{title(i, rows.length)}</legend>
           <div className="grid gap-3 sm:grid-cols-2">
             {columns(i, rows.length).map((c) => (
@@ -54,19 +56,15 @@ export function RowEditor({
             ))}
           </div>
           {rows.length > 1 && (
-            <button
-              type="button"
-              className="mt-2 min-h-12 rounded-md border-2 border-stone px-3 font-bold"
-              onClick={() => onChange(rows.filter((_, j) => j !== i))}
-            >
+            <Button variant="quiet" size="sm" className="mt-2" onClick={() => onChange(rows.filter((_, j) => j !== i))}>
               Remove
-            </button>
+            </Button>
           )}
-        </fieldset>
+        </Card>
       ))}
-      <button type="button" onClick={() => onChange([...rows, {}])} className="min-h-12 w-full rounded-md border-2 border-slate font-bold text-slate">
+      <Button variant="secondary" size="wide" onClick={() => onChange([...rows, {}])}>
         {addLabel}
-      </button>
+      </Button>
     </div>
   );
 }

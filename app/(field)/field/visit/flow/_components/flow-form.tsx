@@ -1,6 +1,8 @@
 'use client';
 
 import { useEffect, useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
 import { floatFlowLps, summarise, vNotchFlowLps, volumetricFlowLps } from '@/lib/engine/flow';
 import { newId } from '@/lib/client/ids';
 import { setDirty } from '@/lib/client/dirty';
@@ -166,16 +168,15 @@ export function FlowForm({ visitId, sourceId, units }: { visitId: string; source
               </p>
             )}
           </NumberField>
-          <button
-            type="button"
+          <Button
+            variant="secondary"
             onClick={() => {
               addSeconds(typedSeconds);
               setTypedSeconds(undefined);
             }}
-            className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate"
           >
             Add typed trial
-          </button>
+          </Button>
           <TrialList items={seconds.map((s) => `${s.toFixed(1)} s`)} onRemove={(i) => setSeconds((l) => l.filter((_, j) => j !== i))} issueAt={trialIssue} />
         </>
       )}
@@ -195,9 +196,9 @@ export function FlowForm({ visitId, sourceId, units }: { visitId: string; source
               </p>
             )}
           </NumberField>
-          <button type="button" onClick={() => addHead(typedHead)} className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate">
+          <Button variant="secondary" onClick={() => addHead(typedHead)}>
             Add head reading
-          </button>
+          </Button>
           <TrialList
             items={heads.map((h) => showQuantity(h, 'length', units))}
             onRemove={(i) => setHeads((l) => l.filter((_, j) => j !== i))}
@@ -222,14 +223,14 @@ export function FlowForm({ visitId, sourceId, units }: { visitId: string; source
           <TrialList items={seconds.map((s) => `${s.toFixed(1)} s`)} onRemove={(i) => setSeconds((l) => l.filter((_, j) => j !== i))} issueAt={trialIssue} />
         </>
       )}
-      <div className="rounded-md border-2 border-creek bg-white p-3" aria-live="polite" data-testid="flow-live">
+      <Card tone="creek" padding="md" aria-live="polite" data-testid="flow-live">
         <p className="font-bold">
           Mean flow: <span className="figure">{stats ? showQuantity(stats.mean, 'flowLps', units) : '—'}</span>
         </p>
         <p className="text-stone">
           Spread (sd): <span className="figure">{stats ? showQuantity(stats.sd, 'flowLps', units) : '—'}</span> · {count} trial{count === 1 ? '' : 's'}
         </p>
-      </div>
+      </Card>
       <FieldIssue check={check} path="measurement.trials" />
       {message && (
         <p role="status" className="font-bold">

@@ -1,6 +1,7 @@
 'use client';
 
 import { useEffect, useRef, useState } from 'react';
+import { Card } from '@/components/ui/card';
 
 /** Tap when the bucket goes under, tap again when it is full; hands back the seconds. */
 export function Stopwatch({ onLap }: { onLap: (seconds: number) => void }) {
@@ -34,13 +35,13 @@ export function Stopwatch({ onLap }: { onLap: (seconds: number) => void }) {
     if (seconds > 0) onLap(seconds);
   }
   return (
-    <div className="rounded-md border-2 border-rule bg-white p-3 text-center">
+    <Card tone="field" padding="md" className="text-center">
       <p className="figure text-5xl" aria-live="off">
         {elapsed.toFixed(1)} s
       </p>
       <button type="button" onClick={press} className={`mt-3 min-h-20 w-full rounded-md text-2xl font-bold text-white ${running ? 'bg-clay' : 'bg-moss'}`}>
         {running ? 'Stop — bucket full' : 'Start — bucket under'}
       </button>
-    </div>
+    </Card>
   );
 }

@@ -1,12 +1,13 @@
 'use client';
 
 import type { ReactNode } from 'react';
+import { Card } from '@/components/ui/card';
 
 /** Trials entered so far, each removable, each with the record check's note under it; big targets for wet fingers. */
 export function TrialList({ items, onRemove, issueAt }: { items: string[]; onRemove: (index: number) => void; issueAt?: (index: number) => ReactNode }) {
   if (items.length === 0) return <p className="text-stone">No trials yet.</p>;
   return (
-    <ol className="divide-y divide-rule rounded-md border border-rule bg-white">
+    <Card as="ol" padding="none" className="divide-y divide-rule">
       {items.map((text, i) => (
         <li key={`${i}-${text}`} className="px-3 py-2">
           <div className="flex items-center justify-between">
@@ -25,6 +26,6 @@ export function TrialList({ items, onRemove, issueAt }: { items: string[]; onRem
           {issueAt?.(i)}
         </li>
       ))}
-    </ol>
+    </Card>
   );
 }

@@ -2,6 +2,10 @@
 
 import dynamic from 'next/dynamic';
 import { useEffect, useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { Input } from '@/components/ui/control';
+import { Field } from '@/components/ui/field';
 import { setDirty } from '@/lib/client/dirty';
 import { GOOD_FIX_M, watchFix, type Fix } from '@/lib/client/geolocation';
 import { newId } from '@/lib/client/ids';
@@ -92,30 +96,23 @@ export function PointForm({ visitId, units, points }: { visitId: string; units: 
   return (
     <div className="space-y-4">
       <Choice label="This point is the" options={ROLES} value={role} onChange={setRole} />
-      <div>
-        <label htmlFor="point-label" className="block font-bold">
-          Name (optional)
-        </label>
-        <input
-          id="point-label"
-          value={label}
-          onChange={(e) => setLabel(e.target.value)}
-          className="mt-1 min-h-14 w-full rounded-md border-2 border-stone bg-white px-3 text-xl"
-        />
-      </div>
-      <div className="rounded-md border-2 border-rule bg-white p-3" aria-live="polite">
+      <Field id="point-label" label="Name (optional)">
+        {(control) => <Input {...control} look="phone" className="mt-1" value={label} onChange={(e) => setLabel(e.target.value)} />}
+      </Field>
+      <Card tone="field" padding="md" aria-live="polite">
         {!watching && (
-          <button
-            type="button"
+          <Button
+            variant="secondary"
+            size="wide"
+            className="min-h-14 text-xl"
             onClick={() => {
               setFix(null);
               setWatching(true);
               setMessage(null);
             }}
-            className="min-h-14 w-full rounded-md border-2 border-slate text-xl font-bold text-slate"
           >
             Use my location
-          </button>
+          </Button>
         )}
         {watching && (
           <div className="space-y-2">
@@ -130,12 +127,12 @@ export function PointForm({ visitId, units, points }: { visitId: string; units: 
               )}
             </p>
             {fix && <PrimaryButton onClick={() => takeFix(fix)}>Use this fix</PrimaryButton>}
-            <button type="button" onClick={() => setWatching(false)} className="min-h-12 w-full rounded-md border-2 border-stone font-bold">
+            <Button variant="quiet" size="wide" onClick={() => setWatching(false)}>
               Stop
-            </button>
+            </Button>
           </div>
         )}
-      </div>
+      </Card>
       <PointMap
         points={points}
         draft={lat !== undefined && lon !== undefined ? { lat, lon } : null}

@@ -1,5 +1,6 @@
 'use client';
 
+import { Card } from '@/components/ui/card';
 import type { PositionPair, ProfileStation, ProfileTank } from '@/lib/engine';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { showQuantity } from '@/lib/shared/display/quantities';
@@ -31,7 +32,7 @@ export function PositionsChart({
   const y = (l: number) => pad + ((hi - l) * (h - 2 * pad)) / (hi - lo || 1);
   const path = stations.map((s, i) => `${i === 0 ? 'M' : 'L'}${x(s.chainageM).toFixed(1)},${y(s.levelM).toFixed(1)}`).join(' ');
   return (
-    <figure className="rounded-md border border-rule bg-white p-2">
+    <Card as="figure" padding="sm">
       <svg
         viewBox={`0 0 ${w} ${h}`}
         className="w-full"
@@ -115,6 +116,6 @@ export function PositionsChart({
         starts); crosses flood (no ram); the square is the tank. Span <span className="figure">{showQuantity(hi - lo, 'length', units)}</span> high,{' '}
         <span className="figure">{showQuantity(c1 - c0, 'length', units)}</span> long.
       </figcaption>
-    </figure>
+    </Card>
   );
 }

@@ -1,6 +1,7 @@
 'use client';
 
 import dynamic from 'next/dynamic';
+import { Card } from '@/components/ui/card';
 import type { PositionPair } from '@/lib/engine';
 import type { LocalRecord } from '@/lib/client/db';
 import type { LocalProfile } from '@/lib/client/profile-positions';
@@ -24,9 +25,9 @@ export function PositionsMapPanel({
   const { placed, unplaced } = placeStations(stations.map((s) => ({ id: s.id, chainageM: s.chainageM, lat: s.point.lat, lon: s.point.lon })));
   if (placed.length < 2) {
     return (
-      <p className="rounded-md border-2 border-rule bg-white p-3 text-stone" data-testid="map-note">
+      <Card as="p" tone="field" padding="md" className="text-stone" data-testid="map-note">
         No map yet: fewer than two stations have a position. Stations booked with the phone&rsquo;s location on appear here.
-      </p>
+      </Card>
     );
   }
   const byChainage = placed.filter((s) => s.placed === 'chainage').length;

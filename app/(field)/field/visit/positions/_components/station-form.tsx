@@ -1,6 +1,7 @@
 'use client';
 
 import { useEffect, useState } from 'react';
+import { Card } from '@/components/ui/card';
 import { fixFields, watchFix, type Fix } from '@/lib/client/geolocation';
 import { newId } from '@/lib/client/ids';
 import { announceSave } from '@/lib/client/sync/triggers';
@@ -79,7 +80,7 @@ export function StationForm({ visitId, units }: { visitId: string; units: UnitSy
   );
 
   return (
-    <fieldset className="space-y-3 rounded-md border-2 border-rule bg-white p-3">
+    <Card as="fieldset" tone="field" padding="md" className="space-y-3">
       <legend className="px-1 text-xl font-bold">Add a station</legend>
       <div className="grid gap-3 sm:grid-cols-2">
         <NumberField label="Distance along the bank from the top" quantity="length" units={units} value={chainageM} onChange={setChainageM}>
@@ -108,6 +109,6 @@ export function StationForm({ visitId, units }: { visitId: string; units: UnitSy
         </p>
       )}
       <PrimaryButton onClick={save}>Save station</PrimaryButton>
-    </fieldset>
+    </Card>
   );
 }

@@ -4,11 +4,13 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { Input, Select } from '@/components/ui/control';
+import { Field } from '@/components/ui/field';
 import { ApiError, apiJson, applyFieldErrors } from '@/lib/client/api';
 import { PastDayConfirm } from '@/components/past-day-confirm';
 import { visitAssignSchema, type VisitAssignInput } from '@/lib/shared/schemas/office';
-
-const field = 'mt-1 block min-h-12 w-full rounded-md border-2 border-stone bg-white px-2 text-lg';
 
 /** Assign or reassign the visit; the server's "may hold unsynced data" answer becomes a warning to confirm. */
 export function AssignForm({
@@ -51,71 +53,43 @@ export function AssignForm({
   }
 
   return (
-    <form
-      aria-label="Assign the visit"
-      noValidate
-      onSubmit={handleSubmit((v) => send(v, false))}
-      className="space-y-4 rounded-md border border-rule bg-white p-4"
-    >
+    <Card as="form" aria-label="Assign the visit" noValidate onSubmit={handleSubmit((v) => send(v, false))} className="space-y-4">
       {mayBeUnsynced && (
         <p className="rounded-md border-2 border-ochre p-3 font-bold text-ochre">
           ⚠ Nothing has synced from this visit since its planned day: the advisor’s phone may hold readings the office has not seen.
         </p>
       )}
       <div className="grid gap-4 sm:grid-cols-2">
-        <div>
-          <label htmlFor="advisorId" className="block font-bold">
-            Advisor
-          </label>
-          <select
-            id="advisorId"
-            className={field}
-            aria-invalid={!!errors.advisorId}
-            aria-describedby={errors.advisorId ? 'advisorId-error' : undefined}
-            {...register('advisorId')}
-          >
-            <option value="">Choose an advisor…</option>
-            {advisors.map((a) => (
-              <option key={a.id} value={a.id}>
-                {a.name}
-              </option>
-            ))}
-          </select>
-          {errors.advisorId && (
-            <p id="advisorId-error" className="mt-1 font-bold text-clay">
-              {errors.advisorId.message}
-            </p>
+        <Field id="advisorId" label="Advisor" message={errors.advisorId?.message}>
+          {(control) => (
+            <Select {...control} {...register('advisorId')}>
+              <option value="">Choose an advisor…</option>
+              {advisors.map((a) => (
+                <option key={a.id} value={a.id}>
+                  {a.name}
+                </option>
+              ))}
+            </Select>
           )}
-        </div>
-        <div>
-          <label htmlFor="plannedOn" className="block font-bold">
-            Planned date
-          </label>
-          <input
-            id="plannedOn"
-            type="date"
-            className={field}
-            aria-invalid={!!errors.plannedOn}
-            aria-describedby={errors.plannedOn ? 'plannedOn-error' : undefined}
-            {...register('plannedOn')}
-          />
-          {errors.plannedOn && (
-            <p id="plannedOn-error" className="mt-1 font-bold text-clay">
-              {errors.plannedOn.message}
-            </p>
-          )}
-          <PastDayConfirm day={plannedOn} field={register('confirmPast')} />
-        </div>
+        </Field>
+        <Field
+          id="plannedOn"
+          label="Planned date"
+          message={errors.plannedOn?.message}
+          issue={<PastDayConfirm day={plannedOn} field={register('confirmPast')} />}
+        >
+          {(control) => <Input {...control} type="date" {...register('plannedOn')} />}
+        </Field>
       </div>
-      <button type="submit" disabled={isSubmitting} className="min-h-12 rounded-md bg-slate px-5 text-lg font-bold text-white disabled:opacity-70">
+      <Button size="lg" type="submit" disabled={isSubmitting}>
         {isSubmitting ? 'Saving…' : current.advisorId ? 'Save assignment' : 'Assign'}
-      </button>
+      </Button>
       {warning && (
         <div role="alert" className="rounded-md border-2 border-ochre p-3">
           <p className="font-bold text-ochre">⚠ {warning}</p>
-          <button type="button" onClick={() => send(getValues(), true)} className="mt-2 min-h-12 rounded-md border-2 border-ochre px-4 font-bold text-ochre">
+          <Button variant="caution" className="mt-2" onClick={() => send(getValues(), true)}>
             Reassign anyway
-          </button>
+          </Button>
         </div>
       )}
       {serverError && (
@@ -128,6 +102,6 @@ export function AssignForm({
           {done}
         </p>
       )}
-    </form>
+    </Card>
   );
 }

@@ -2,11 +2,12 @@
 
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { Select } from '@/components/ui/control';
 import { apiJson } from '@/lib/client/api';
 import { VISIT_STATUS_LABELS, VISIT_STATUSES, type VisitStatus } from '@/lib/shared/domain';
 import { JUMP_REASON_MIN, nextStates } from '@/lib/shared/visit-states';
-
-const select = 'mt-1 block min-h-12 rounded-md border-2 border-stone bg-white px-2 text-lg';
 
 /**
  * Moves the visit along its life: the choices are the moves the table of visit states allows the
@@ -54,17 +55,17 @@ export function StatusForm({ visitId, status }: { visitId: string; status: Visit
         >
           <label className="block font-bold">
             Next state
-            <select value={value} onChange={(e) => setValue(e.target.value as VisitStatus)} className={select}>
+            <Select className="w-auto" value={value} onChange={(e) => setValue(e.target.value as VisitStatus)}>
               {allowed.map((s) => (
                 <option key={s} value={s}>
                   {VISIT_STATUS_LABELS[s]}
                 </option>
               ))}
-            </select>
+            </Select>
           </label>
-          <button type="submit" disabled={busy || !value} className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate disabled:opacity-50">
+          <Button variant="secondary" type="submit" disabled={busy || !value}>
             Change state
-          </button>
+          </Button>
         </form>
       ) : (
         <p className="text-stone">
@@ -73,7 +74,7 @@ export function StatusForm({ visitId, status }: { visitId: string; status: Visit
         </p>
       )}
       {others.length > 0 && (
-        <details className="rounded-md border border-rule bg-white p-3">
+        <Card as="details" padding="md">
           <summary className="cursor-pointer font-bold">Move outside the usual order…</summary>
           <form aria-label="Move outside the usual order" onSubmit={jump} className="mt-3 space-y-3">
             <p className="text-stone">
@@ -81,14 +82,14 @@ export function StatusForm({ visitId, status }: { visitId: string; status: Visit
             </p>
             <label className="block font-bold">
               Move to
-              <select value={jumpTo} onChange={(e) => setJumpTo(e.target.value as VisitStatus)} className={select}>
+              <Select className="w-auto" value={jumpTo} onChange={(e) => setJumpTo(e.target.value as VisitStatus)}>
                 <option value="">Choose…</option>
                 {others.map((s) => (
                   <option key={s} value={s}>
                     {VISIT_STATUS_LABELS[s]}
                   </option>
                 ))}
-              </select>
+              </Select>
             </label>
             <label className="block font-bold">
               Why
@@ -99,11 +100,11 @@ export function StatusForm({ visitId, status }: { visitId: string; status: Visit
                 className="mt-1 block w-full rounded-md border-2 border-stone bg-paper p-2 text-lg"
               />
             </label>
-            <button type="submit" disabled={busy} className="min-h-12 rounded-md border-2 border-clay px-4 font-bold text-clay disabled:opacity-50">
+            <Button variant="danger" type="submit" disabled={busy}>
               Move with this reason
-            </button>
+            </Button>
           </form>
-        </details>
+        </Card>
       )}
       {message && (
         <p role={message.ok ? 'status' : 'alert'} className={`w-full font-bold ${message.ok ? 'text-moss' : 'text-clay'}`}>

@@ -4,6 +4,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useFieldArray, useForm } from 'react-hook-form';
 import type { z } from 'zod';
+import { Button } from '@/components/ui/button';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { farmNeedsBody } from '@/lib/shared/schemas/sheet';
 
@@ -73,20 +74,16 @@ export function NeedsForm({
               <span className="block">How many</span>
               <input inputMode="decimal" {...form.register(`animals.${i}.count`)} className={`${input} figure`} aria-invalid={!!errors.animals?.[i]?.count} />
             </label>
-            <button type="button" onClick={() => animals.remove(i)} className="min-h-12 rounded-md border-2 border-stone px-3">
+            <Button variant="quiet" size="sm" onClick={() => animals.remove(i)} className="font-normal">
               Remove
-            </button>
+            </Button>
             {errors.animals?.[i]?.count && <p className="w-full text-clay">{errors.animals[i]?.count?.message}</p>}
           </div>
         ))}
         {errors.animals?.message && <p className="text-clay">{errors.animals.message}</p>}
-        <button
-          type="button"
-          onClick={() => animals.append({ kind: animalKinds[0]?.kind ?? 'goat', count: '' })}
-          className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate"
-        >
+        <Button variant="secondary" onClick={() => animals.append({ kind: animalKinds[0]?.kind ?? 'goat', count: '' })}>
           Add animals
-        </button>
+        </Button>
       </fieldset>
       <div className="space-y-1">
         <label htmlFor="garden" className="block font-bold">
@@ -105,9 +102,9 @@ export function NeedsForm({
         <input id="tank" {...form.register('tankSite')} className={input} placeholder="e.g. on the bank above the house" />
         {errors.tankSite && <p className="text-clay">{errors.tankSite.message}</p>}
       </div>
-      <button type="submit" disabled={form.formState.isSubmitting} className="min-h-12 w-full rounded-md bg-slate px-4 text-lg font-bold text-white">
+      <Button type="submit" disabled={form.formState.isSubmitting} className="w-full text-lg">
         {form.formState.isSubmitting ? 'Saving…' : 'Save my needs'}
-      </button>
+      </Button>
       {saved && (
         <p role="status" className="font-bold text-moss">
           {saved}
