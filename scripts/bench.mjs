@@ -1,8 +1,10 @@
 // npm run bench – sets up like npm test (test profile database, demo data, fake mail, the production build),
 // builds the empty App Router floor app, serves both, then runs every tests/bench/*.bench.ts with tsx
-// (react-server conditions, so server code loads) in turn. Each bench prints "BENCH {json}" lines with rows
-// and budgets; they are merged into bench/results.json and printed as tables. Exit 1 on a failed bench or a
-// missed budget (never part of npm test). Pass names to run only some benches: npm run bench -- sync office
+// (react-server conditions, so server code loads) in turn. Each bench prints "BENCH {json}" lines with rows,
+// recorded figures and budgets; the run is appended to the dated history in bench/results.json and printed
+// as tables. Exit 1 on a failed bench or a missed budget, by the verdict of tests/bench/support/budgets.ts
+// (unit-tested on recorded figures); never part of npm test. Pass names to run only some benches:
+// npm run bench -- sync office
 import { spawn } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
@@ -78,17 +80,32 @@ try {
   if (startedDb || process.env.CI) await stopDatabase(db);
 }
 
-// A partial run (names given) replaces those benches in the last results and keeps the others.
+// The dated history: every run is kept (its figures, budgets and machine), newest last. A partial run
+// (names given) also carries the other benches' latest results, so the last entry is always whole.
 const resultsFile = path.join(root, 'bench', 'results.json');
-if (wanted.length > 0 && existsSync(resultsFile)) {
+const history = existsSync(resultsFile) ? JSON.parse(readFileSync(resultsFile, 'utf8')) : { runs: [] };
+const runs = Array.isArray(history.runs) ? history.runs : [];
+if (wanted.length > 0 && runs.length > 0) {
   const ran = new Set(results.map((r) => r.bench));
-  results.unshift(...JSON.parse(readFileSync(resultsFile, 'utf8')).results.filter((r) => !ran.has(r.bench)));
+  results.unshift(...runs[runs.length - 1].results.filter((r) => !ran.has(r.bench)));
 }
 const budgets = results.flatMap((r) => (r.budgets ?? []).map((b) => ({ bench: r.bench, ...b })));
 const missed = budgets.filter((b) => !b.met);
+const { tsImport } = await import('tsx/esm/api');
+const { verdict } = await tsImport('../tests/bench/support/budgets.ts', import.meta.url);
+const exitCode = verdict(budgets, failed);
 mkdirSync(path.join(root, 'bench'), { recursive: true });
-const out = { at: new Date().toISOString(), cpu: os.cpus()[0]?.model ?? 'unknown', cpus: os.cpus().length, node: process.version, results, budgets };
-writeFileSync(resultsFile, `${JSON.stringify(out, null, 2)}\n`);
+const run = {
+  at: new Date().toISOString(),
+  benches: wanted.length > 0 ? wanted : 'all',
+  verdict: exitCode === 0 ? 'green' : 'red',
+  cpu: os.cpus()[0]?.model ?? 'unknown',
+  cpus: os.cpus().length,
+  node: process.version,
+  results,
+  budgets,
+};
+writeFileSync(resultsFile, `${JSON.stringify({ runs: [...runs, run] }, null, 1)}\n`);
 
 console.log('\nfigures');
 console.table(results.flatMap((r) => (r.rows ?? []).map((row) => ({ bench: r.bench, ...row }))));
@@ -97,6 +114,6 @@ console.table(
   budgets.map((b) => ({ bench: b.bench, budget: b.name, value: b.value, limit: `${b.op} ${b.limit}`, unit: b.unit ?? '', met: b.met ? 'yes' : 'MISSED' })),
 );
 log(
-  `wrote bench/results.json (${results.length} bench result(s), ${failed} failed, ${budgets.length - missed.length}/${budgets.length} budgets met) in ${((Date.now() - started) / 1000).toFixed(0)} s`,
+  `added this run to bench/results.json (${results.length} bench result(s), ${failed} failed, ${budgets.length - missed.length}/${budgets.length} budgets met) in ${((Date.now() - started) / 1000).toFixed(0)} s`,
 );
-process.exit(failed > 0 || missed.length > 0 ? 1 : 0);
+process.exit(exitCode);

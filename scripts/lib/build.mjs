@@ -43,6 +43,8 @@ export function sourceHash() {
     hash.update(`${key}=${value}`);
   // The security headers are fixed at build time, and HSTS is sent only when NEXTAUTH_URL is https.
   hash.update(`https=${(process.env.NEXTAUTH_URL ?? '').startsWith('https://')}`);
+  // A profiled bench builds with the server's names kept (see below).
+  hash.update(`profiled=${Boolean(process.env.BENCH_CPU_PROF)}`);
   for (const input of INPUTS) {
     const full = path.join(root, input);
     if (!existsSync(full)) continue;
@@ -62,7 +64,8 @@ export function ensureBuild({ force = false } = {}) {
   }
   log('building the app (next build + serwist build)…');
   const env = { ...process.env, NODE_ENV: 'production', NEXT_TELEMETRY_DISABLED: '1' };
-  run(process.execPath, [nodeBin('next/dist/bin/next'), 'build'], { env });
+  // CPU profiles of the served app (BENCH_CPU_PROF) name its functions: the server bundle keeps them.
+  run(process.execPath, [nodeBin('next/dist/bin/next'), 'build', ...(process.env.BENCH_CPU_PROF ? ['--no-mangling'] : [])], { env });
   run(process.execPath, [nodeBin('@serwist/cli/cli.js'), 'build', 'worker/serwist.config.mjs'], { env });
   writeFileSync(STAMP, hash);
   return true;

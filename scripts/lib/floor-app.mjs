@@ -11,7 +11,13 @@ export const floorDir = path.join(root, '.data', 'bench-floor');
 const FILES = {
   'package.json': '{ "name": "fallbook-bench-floor", "private": true }\n',
   // Same bundler root as the app, so the symlinked node_modules stays inside it.
-  'next.config.mjs': `export default { poweredByHeader: false, turbopack: { root: ${JSON.stringify(root)} } };\n`,
+  // The app's own response headers (CSP, COOP and the rest), built the same way: COOP alone makes the
+  // browser start a fresh page process for each navigation, which is the deployment's cost, not the
+  // app's code, so the floor pays it too.
+  'next.config.mjs':
+    `import { securityHeaders } from ${JSON.stringify(path.join(root, 'lib', 'config', 'security-headers.mjs'))};\n` +
+    'const headers = securityHeaders({ nodeEnv: process.env.NODE_ENV, nextAuthUrl: process.env.NEXTAUTH_URL ?? "", tileUrl: process.env.NEXT_PUBLIC_TILE_URL ?? "" });\n' +
+    `export default { poweredByHeader: false, turbopack: { root: ${JSON.stringify(root)} }, async headers() { return [{ source: '/:path*', headers }]; } };\n`,
   'app/layout.jsx':
     'export const metadata = { title: "Empty" };\n' +
     'export default function RootLayout({ children }) {\n  return <html lang="en"><body>{children}</body></html>;\n}\n',
@@ -32,7 +38,7 @@ function nextVersion() {
 /** Builds the empty app unless a build with this Next.js version is already there. */
 export function ensureFloorBuild() {
   const stamp = path.join(floorDir, '.next', 'floor-stamp');
-  const want = `${nextVersion()}\n${JSON.stringify(FILES)}`;
+  const want = `${nextVersion()}\n${JSON.stringify(FILES)}\n${readFileSync(path.join(root, 'lib', 'config', 'security-headers.mjs'), 'utf8')}`;
   if (existsSync(stamp) && readFileSync(stamp, 'utf8') === want) {
     log('empty floor app is up to date');
     return;

@@ -12,7 +12,8 @@ import { makeOrganisation, sessionCookie } from '../integration/support/fixtures
 import { putOp } from '../integration/support/sync';
 import { clientFor } from './support/http';
 import { processTree } from './support/proc';
-import { budget, median, report, round } from './support/report';
+import { budget, median, round } from './support/budgets';
+import { report } from './support/report';
 import { closeSequelize } from '@/lib/server/db';
 
 const RUNS = 3;

@@ -5,7 +5,8 @@
 import { gzipSync } from 'node:zlib';
 import { chromium, devices, type Browser } from '@playwright/test';
 import { pageBenchContext } from './support/demo';
-import { budget, median, report, round } from './support/report';
+import { budget, median, round } from './support/budgets';
+import { report } from './support/report';
 
 const RUNS = 3;
 const FIELD_BUDGET_KB = 120;

@@ -1,26 +1,5 @@
-// Shared helpers of the benches: medians and percentiles, budgets, and the BENCH line the harness reads.
-
-export interface Budget { name: string; value: number; op: '<=' | '>=' | '=='; limit: number; unit?: string; met: boolean }
-
-/** The q-quantile (0..1) of the numbers, nearest-rank. */
-export function quantile(values: number[], q: number): number {
-  if (values.length === 0) return NaN;
-  const sorted = [...values].sort((a, b) => a - b);
-  const rank = Math.min(sorted.length - 1, Math.max(0, Math.ceil(q * sorted.length) - 1));
-  return sorted[rank] ?? NaN;
-}
-
-/** The median of the numbers. */
-export const median = (values: number[]) => quantile(values, 0.5);
-
-/** Rounds to the given number of decimals. */
-export const round = (x: number, decimals = 1) => Math.round(x * 10 ** decimals) / 10 ** decimals;
-
-/** A budget line: the value, the comparison and whether it holds. */
-export function budget(name: string, value: number, op: Budget['op'], limit: number, unit?: string): Budget {
-  const met = op === '<=' ? value <= limit : op === '>=' ? value >= limit : value === limit;
-  return { name, value, op, limit, unit, met: Number.isFinite(value) && met };
-}
+// Shared helpers of the benches: the BENCH line the harness reads, and the served app and floor.
+import type { Budget } from './budgets';
 
 /** Prints the rows and the machine-readable line that scripts/bench.mjs merges. */
 export function report(bench: string, rows: Record<string, unknown>[], budgets: Budget[], extra: Record<string, unknown> = {}) {

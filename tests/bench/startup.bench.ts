@@ -1,0 +1,106 @@
+// Bench: the start-up work a phone's CPU does for each page. Debian's Chromium loads the page with
+// its CPU slowed 4× (as Lighthouse's mobile audit assumes of a mid-range phone) in a fresh context
+// (no cache, no service worker, no offline store), records a performance trace until the network
+// has been idle for half a second, and sums the page's main-thread tasks of 50 ms or more (the long
+// tasks: what keeps a phone from answering a tap). The empty App Router page (the floor) is loaded
+// the same way in alternation with each page (floor, page, floor, page…), and each page's budget
+// is the median over the pairs of its long-task time minus the floor's. Run with npm run bench.
+import { writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { chromium, type Browser } from '@playwright/test';
+import { median, pairedExtra, round, startupBudgets, type Paired } from './support/budgets';
+import { pageBenchContext } from './support/demo';
+import { waitForQuietMachine } from './support/proc';
+import { report } from './support/report';
+import { mainThreadWork, type MainThreadWork } from './support/trace';
+
+const LOADS = Number(process.env.BENCH_STARTUP_LOADS) || 7;
+const CPU_SLOWDOWN = 4;
+
+interface Target {
+  name: string;
+  url: string;
+  cookie?: { name: string; value: string };
+}
+
+/** One load in a fresh context: the trace's main-thread work from navigation to network idle. */
+async function load(browser: Browser, target: Target): Promise<MainThreadWork> {
+  const context = await browser.newContext({ viewport: { width: 412, height: 915 }, deviceScaleFactor: 2.625, isMobile: true, hasTouch: true });
+  try {
+    if (target.cookie) await context.addCookies([{ ...target.cookie, url: new URL(target.url).origin, httpOnly: true, sameSite: 'Lax' }]);
+    const page = await context.newPage();
+    const cdp = await context.newCDPSession(page);
+    await cdp.send('Emulation.setCPUThrottlingRate', { rate: CPU_SLOWDOWN });
+    await browser.startTracing(page, { categories: ['devtools.timeline', 'disabled-by-default-devtools.timeline', 'toplevel', 'blink.user_timing'] });
+    const res = await page.goto(target.url, { waitUntil: 'networkidle', timeout: 120_000 });
+    if (res?.status() !== 200) throw new Error(`${target.url} answered ${res?.status()}`);
+    const raw = await browser.stopTracing();
+    // BENCH_TRACE_DIR keeps each load's trace (open it in Chromium's performance panel).
+    if (process.env.BENCH_TRACE_DIR) writeFileSync(path.join(process.env.BENCH_TRACE_DIR, `${target.name.replace(/\W+/g, '-')}-${Date.now()}.json`), raw);
+    return mainThreadWork(JSON.parse(raw.toString('utf8')));
+  } finally {
+    await context.close();
+  }
+}
+
+async function main() {
+  const { app, floorUrl, advisor, visitId, farmer } = await pageBenchContext();
+  const floor: Target = { name: 'floor', url: `${floorUrl}/` };
+  let pages: Target[] = [
+    { name: 'sign-in', url: `${app}/login` },
+    { name: 'sheet', url: `${app}/sheets/${visitId}`, cookie: farmer },
+    { name: 'field home', url: `${app}/field`, cookie: advisor },
+    { name: 'capture', url: `${app}/field/visit/flow?id=${visitId}`, cookie: advisor },
+  ];
+  // BENCH_STARTUP_PAGES=sheet,capture measures only those pages (each still beside the floor).
+  const only = process.env.BENCH_STARTUP_PAGES?.split(',').map((n) => n.trim());
+  if (only) pages = pages.filter((p) => only.includes(p.name));
+  const browser = await chromium.launch({ executablePath: process.env.CHROME_PATH || '/usr/bin/chromium', args: ['--no-sandbox', '--disable-dev-shm-usage'] });
+  const samples = new Map<string, { app: MainThreadWork[]; floor: MainThreadWork[] }>(pages.map((p) => [p.name, { app: [], floor: [] }]));
+  try {
+    // One load of each first: the server's first answer of a route loads its code, and the
+    // browser's first launch warms its own caches; neither says anything about the page.
+    for (const target of [floor, ...pages]) await load(browser, target);
+    for (let run = 0; run < LOADS; run++) {
+      for (const target of pages) {
+        // Alternating which of the pair goes first, so whatever one load leaves behind weighs on both alike.
+        const order = run % 2 === 0 ? [floor, target] : [target, floor];
+        for (const t of order) {
+          await waitForQuietMachine({ maxMs: 3000 });
+          const work = await load(browser, t);
+          samples.get(target.name)![t === floor ? 'floor' : 'app'].push(work);
+          console.log(`${t === floor ? `floor (beside ${target.name})` : target.name}: long tasks ${Math.round(work.longTaskMs)} ms, all tasks ${Math.round(work.taskMs)} ms`);
+        }
+      }
+    }
+  } finally {
+    await browser.close();
+  }
+  const paired = (name: string, key: keyof MainThreadWork): Paired => {
+    const s = samples.get(name)!;
+    return { app: s.app.map((w) => w[key]), floor: s.floor.map((w) => w[key]) };
+  };
+  const figures = { pages: pages.map((p) => ({ name: p.name, longTaskMs: paired(p.name, 'longTaskMs') })) };
+  const rows = pages.map((p) => {
+    const long = paired(p.name, 'longTaskMs');
+    const all = paired(p.name, 'taskMs');
+    const longest = paired(p.name, 'longestMs');
+    return {
+      name: `${p.name} (floor beside it)`,
+      longTaskMs: `${round(median(long.app))} (${round(median(long.floor))})`,
+      overFloorMs: round(pairedExtra(long)),
+      allTaskMs: `${round(median(all.app))} (${round(median(all.floor))})`,
+      longestMs: `${round(median(longest.app))} (${round(median(longest.floor))})`,
+      runs: long.app.map((a, i) => `${round(a, 0)}/${round(long.floor[i] ?? NaN, 0)}`).join(' '),
+    };
+  });
+  // All main-thread work over the floor's is reported beside the budgets, not budgeted: it counts
+  // the short tasks a phone fits between taps too.
+  for (const p of pages) rows.push({ name: `${p.name}: all main-thread work over the floor`, longTaskMs: '', overFloorMs: round(pairedExtra(paired(p.name, 'taskMs'))), allTaskMs: '', longestMs: '', runs: '' });
+  report('startup', rows, startupBudgets(figures), { figures, cpuSlowdown: CPU_SLOWDOWN });
+}
+
+main().catch((error) => {
+  console.error(error);
+  process.exit(1);
+});
