@@ -31,10 +31,20 @@ async function load(browser: Browser, target: Target): Promise<MainThreadWork> {
     const page = await context.newPage();
     const cdp = await context.newCDPSession(page);
     await cdp.send('Emulation.setCPUThrottlingRate', { rate: CPU_SLOWDOWN });
+    // BENCH_JS_PROF keeps a JavaScript CPU profile of each load beside the trace (which functions ran).
+    if (process.env.BENCH_JS_PROF) {
+      await cdp.send('Profiler.enable');
+      await cdp.send('Profiler.setSamplingInterval', { interval: 200 });
+      await cdp.send('Profiler.start');
+    }
     await browser.startTracing(page, { categories: ['devtools.timeline', 'disabled-by-default-devtools.timeline', 'toplevel', 'blink.user_timing'] });
     const res = await page.goto(target.url, { waitUntil: 'networkidle', timeout: 120_000 });
     if (res?.status() !== 200) throw new Error(`${target.url} answered ${res?.status()}`);
     const raw = await browser.stopTracing();
+    if (process.env.BENCH_JS_PROF) {
+      const { profile } = await cdp.send('Profiler.stop');
+      writeFileSync(path.join(process.env.BENCH_JS_PROF, `${target.name.replace(/\W+/g, '-')}-${Date.now()}.cpuprofile`), JSON.stringify(profile));
+    }
     // BENCH_TRACE_DIR keeps each load's trace (open it in Chromium's performance panel).
     if (process.env.BENCH_TRACE_DIR) writeFileSync(path.join(process.env.BENCH_TRACE_DIR, `${target.name.replace(/\W+/g, '-')}-${Date.now()}.json`), raw);
     return mainThreadWork(JSON.parse(raw.toString('utf8')));

@@ -103,6 +103,8 @@ function cutPage(all: Change[], limit: number): Change[] {
 export async function pullChanges(user: SessionUser, { cursor, limit }: { cursor: number; limit: number }): Promise<PullResponse> {
   // One connection for the whole page (its reads pipelined on it), not one pool connection per table.
   const { visible, all, owners, organisation } = await getSequelize().transaction(async (transaction) => {
+    // The organisation's settings go out with the first read, as a plain row on the same connection.
+    const settingsRow = selectRows(getSequelize(), Organisation, { where: 'id = ?', replacements: [user.organisationId], transaction });
     const visible = await visibleVisits(user, transaction);
     const all = await candidates(cursor, limit, visible, transaction);
     const ownerIds = [
@@ -113,13 +115,14 @@ export async function pullChanges(user: SessionUser, { cursor, limit }: { cursor
           .filter((id): id is string => typeof id === 'string'),
       ),
     ];
-    const [people, organisation] = await Promise.all([
+    const [people, [organisation]] = await Promise.all([
       ownerIds.length > 0
         ? txConnection(transaction).query<{ id: string; name: string }[]>('SELECT id, name FROM users WHERE id IN (?)', [ownerIds])
         : Promise.resolve([]),
-      Organisation.findByPk(user.organisationId, { rejectOnEmpty: true, transaction }),
+      settingsRow,
     ]);
-    return { visible, all, owners: new Map(people.map((u) => [u.id, u.name])), organisation };
+    if (!organisation) throw new Error(`organisation ${user.organisationId} not found`);
+    return { visible, all, owners: new Map(people.map((u) => [u.id, u.name])), organisation: organisation.values as unknown as Organisation };
   });
   const visitIds = visible.map((v) => v.id);
   const unique = cutPage(all, limit);
