@@ -14,6 +14,7 @@ import * as m0014 from './0014-sheet-conversations';
 import * as m0015 from './0015-invitation-withdrawal';
 import * as m0016 from './0016-ended-sessions';
 import * as m0017 from './0017-demand-confirmations';
+import * as m0018 from './0018-waste-valve-stroke';
 
 export interface MigrationModule {
   up(params: { context: QueryInterface }): Promise<void>;
@@ -37,4 +38,5 @@ export const MIGRATIONS: { name: string; module: MigrationModule }[] = [
   { name: '0015-invitation-withdrawal.ts', module: m0015 },
   { name: '0016-ended-sessions.ts', module: m0016 },
   { name: '0017-demand-confirmations.ts', module: m0017 },
+  { name: '0018-waste-valve-stroke.ts', module: m0018 },
 ];

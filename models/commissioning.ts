@@ -13,6 +13,7 @@ export class Commissioning extends Model<InferAttributes<Commissioning>, InferCr
   declare liftM: number;
   declare fallM: number;
   declare drivePipeMaterial: string | null;
+  declare wasteValveStrokeMm: number | null;
   declare notes: string;
   declare measuredLpd: number;
   declare predictedLpd: number | null;
@@ -35,6 +36,7 @@ export class Commissioning extends Model<InferAttributes<Commissioning>, InferCr
         liftM: { type: DataTypes.DOUBLE, allowNull: false },
         fallM: { type: DataTypes.DOUBLE, allowNull: false },
         drivePipeMaterial: { type: DataTypes.STRING(40), allowNull: true },
+        wasteValveStrokeMm: { type: DataTypes.DOUBLE, allowNull: true },
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         measuredLpd: { type: DataTypes.DOUBLE, allowNull: false },
         predictedLpd: { type: DataTypes.DOUBLE, allowNull: true },

@@ -2,7 +2,7 @@
 import { EngineInputError } from './errors';
 import { daubuissonEfficiency, rankineEfficiency } from './ram';
 import { finite, positive } from './validate';
-import { wasteValveAdvice, type DesignPoint, type WasteValveAdvice } from './waste-valve-advice';
+import { ASSUMED_STROKE_MM, wasteValveAdvice, type DesignPoint, type WasteValveAdvice } from './waste-valve-advice';
 
 import { BEATS_PER_MINUTE_BAND } from './ram-cycle';
 
@@ -26,6 +26,8 @@ export interface CommissioningReadings {
   fallM: number;
   /** Drive pipe material as installed (plastic pipes lower the surge). */
   drivePipeMaterial?: string;
+  /** The waste valve's stroke as set, mm; without it the advice assumes the middle of the usual range. */
+  wasteValveStrokeMm?: number;
 }
 
 /** What the screening predicted (from its traced figures). */
@@ -158,7 +160,7 @@ export function commissioningCheck(
     beatsInBand: r.beatsPerMinute >= BEATS_PER_MINUTE_BAND.min && r.beatsPerMinute <= BEATS_PER_MINUTE_BAND.max,
     causes: causesFor(r, prediction, etaD, short),
     // Readings that make energy have no valve setting worth suggesting.
-    valve: design && etaD <= 1 ? wasteValveAdvice(r, design) : null,
+    valve: design && etaD <= 1 ? wasteValveAdvice(r, design, r.wasteValveStrokeMm ?? ASSUMED_STROKE_MM) : null,
   };
 }
 

@@ -104,4 +104,4 @@ export {
   type RamCycle,
   type RamCycleInput,
 } from './ram-cycle';
-export { wasteValveAdvice, designPointFromFigures, type DesignPoint, type WasteValveAdvice, type ValveMove } from './waste-valve-advice';
+export { ASSUMED_STROKE_MM, wasteValveAdvice, designPointFromFigures, type DesignPoint, type WasteValveAdvice, type ValveMove } from './waste-valve-advice';

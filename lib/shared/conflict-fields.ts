@@ -54,6 +54,7 @@ const FIELDS: Record<string, { label: string; quantity?: QuantityKind }> = {
   liftM: { label: 'Measured lift', quantity: 'length' },
   fallM: { label: 'Fall', quantity: 'length' },
   drivePipeMaterial: { label: 'Drive pipe material' },
+  wasteValveStrokeMm: { label: 'Waste valve stroke', quantity: 'stroke' },
   material: { label: 'Material' },
   pressureClass: { label: 'Pressure class' },
   deletedAt: { label: 'Deleted on the server' },

@@ -56,6 +56,8 @@ export const MAX_DEMAND_COUNT = 100_000;
 export const MAX_LITRES_PER_HEAD = 2000;
 /** Bore of a drive, feed or delivery pipe: 600 mm (24″) is twice the largest ram drive (12″). */
 export const MAX_PIPE_BORE_MM = 600;
+/** A waste valve's stroke: usually 10–25 mm (common practice, no source); 100 mm refuses a slip. */
+export const MAX_WASTE_VALVE_STROKE_MM = 100;
 /** Length of one pipe run (20 km; common practice, no source). */
 export const MAX_PIPE_LENGTH_M = 20_000;
 

@@ -31,6 +31,12 @@ test('commissioning on a phone: the waste-valve suggestion follows the counted b
   await page.getByLabel('Beats per minute', { exact: true }).fill('15');
   await expect(advice).toContainText('beats slower (15 a minute)');
   await expect(advice).toContainText('Shorten its stroke or take weight off');
+  // The stroke as measured replaces the assumed 15 mm: a longer travel, a slower design beat.
+  await expect(page.getByText('Without it the advice assumes 15 mm')).toBeVisible();
+  const assumedAdvice = await advice.innerText();
+  await page.getByLabel('Waste valve stroke (empty: not measured)', { exact: true }).fill('25');
+  await expect.poll(async () => advice.innerText()).not.toBe(assumedAdvice);
+  await expect(advice).toContainText('Shorten its stroke or take weight off');
   // No developer text on the phone.
   await expect(page.locator('body')).not.toContainText(/closureVelocity|NaN|undefined/);
   await page.screenshot({ path: test.info().outputPath('valve-advice-slow.png'), fullPage: true });

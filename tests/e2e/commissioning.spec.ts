@@ -34,6 +34,8 @@ test('an advisor records a commissioning check offline; after the sync the coord
   await expect(recorded.getByTestId('send-state')).toContainText('Not yet sent');
   await expect(recorded).toContainText('42 %');
   await expect(recorded).toContainText('waste valve stroke');
+  // The recorded check says which way to set the waste valve, as the preview did.
+  await expect(recorded.getByTestId('valve-advice')).toContainText('Waste valve');
   // The page reloads from the phone with no signal and the check is still there, still waiting.
   await page.reload();
   await expect(page.getByTestId('recorded-check').first().getByTestId('send-state')).toContainText('Not yet sent');

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { daubuissonEfficiency } from '@/lib/engine';
+import { daubuissonEfficiency, designPointFromFigures, wasteValveAdvice } from '@/lib/engine';
 import { AuditEntry, Commissioning, Screening, SyncOp, Visit } from '@/lib/server/db';
 import { makeOrganisation } from './support/fixtures';
 import { screenFixtureVisit } from './support/screened';
@@ -121,5 +121,31 @@ describe('push: commissioning', () => {
     const row = await Commissioning.findByPk(id, { rejectOnEmpty: true });
     const screening = await Screening.findOne({ where: { visitId: o.visit.id }, order: [['createdAt', 'DESC']], rejectOnEmpty: true });
     expect(row.fallM).toBe((screening.result as { figures: { fallM: { value: number } } }).figures.fallM.value);
+  });
+
+  it('keeps the waste valve stroke the advisor measured and models it; a phone that sends none stores none; a 500 mm stroke is refused', async () => {
+    const o = await makeOrganisation('push-commission-stroke');
+    await screenFixtureVisit(o.visit.id, o.farm.id, o.advisor.id);
+    const withStroke = randomUUID();
+    const a = await push(o.advisor, { ops: [putOp('commissioning', withStroke, fields(o.visit.id, { wasteValveStrokeMm: 22 }))] });
+    expect(a.results[0]?.status).toBe('applied');
+    const row = await Commissioning.findByPk(withStroke, { rejectOnEmpty: true });
+    expect(row.wasteValveStrokeMm).toBe(22);
+    const screening = await Screening.findOne({ where: { visitId: o.visit.id }, order: [['createdAt', 'DESC']], rejectOnEmpty: true });
+    const design = designPointFromFigures((screening.result as { figures: Record<string, { value: number | null }> }).figures);
+    const stored = (row.result as { valve: unknown }).valve;
+    expect(stored).toEqual(design ? wasteValveAdvice({ driveLpm: 55, deliveredLpm: 4, beatsPerMinute: 70, liftM: 20, fallM: 3 }, design, 22) : null);
+
+    // A phone from before the field (the key absent) still commissions; nothing is stored for it.
+    const { wasteValveStrokeMm: _none, ...older } = fields(o.visit.id) as Record<string, unknown>;
+    const withoutId = randomUUID();
+    expect((await push(o.advisor, { ops: [putOp('commissioning', withoutId, older)] })).results[0]?.status).toBe('applied');
+    expect((await Commissioning.findByPk(withoutId, { rejectOnEmpty: true })).wasteValveStrokeMm).toBeNull();
+
+    const before = await Commissioning.count({ where: { visitId: o.visit.id } });
+    const refused = await push(o.advisor, { ops: [putOp('commissioning', randomUUID(), fields(o.visit.id, { wasteValveStrokeMm: 500 }))] });
+    expect(refused.results[0]?.status).toBe('rejected');
+    expect(refused.results[0]?.error?.message).toMatch(/stroke/i);
+    expect(await Commissioning.count({ where: { visitId: o.visit.id } })).toBe(before);
   });
 });

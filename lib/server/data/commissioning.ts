@@ -69,6 +69,7 @@ export async function commissionVisit(user: SessionUser, visitId: string, input:
       liftM: input.liftM,
       fallM,
       drivePipeMaterial: input.drivePipeMaterial ?? null,
+      wasteValveStrokeMm: input.wasteValveStrokeMm ?? null,
       notes: input.notes,
       measuredLpd: check.measuredLpd,
       predictedLpd: check.prediction?.deliveryLpd ?? null,

@@ -34,7 +34,7 @@ export async function applyCommissioningOp(op: CommissioningOp, access: SyncAcce
   if (!fields.success) {
     return { ...none, result: rejected(op, 422, 'A commissioning check must carry every reading.', prefixed(zodFieldErrors(fields.error))) };
   }
-  const { visitId, fallM, drivePipeMaterial, ...readings } = fields.data;
+  const { visitId, fallM, drivePipeMaterial, wasteValveStrokeMm, ...readings } = fields.data;
   // Who may commission the visit is checked first: a stored record id says nothing about the sender.
   try {
     await access.assertOnVisit(visitId, 'visit:commission');
@@ -53,6 +53,7 @@ export async function applyCommissioningOp(op: CommissioningOp, access: SyncAcce
     ...readings,
     ...(fallM === null ? {} : { fallM }),
     ...(drivePipeMaterial === null ? {} : { drivePipeMaterial }),
+    ...(wasteValveStrokeMm === null ? {} : { wasteValveStrokeMm }),
   });
   if (!input.success) {
     const errors = zodFieldErrors(input.error);

@@ -121,7 +121,17 @@ export const ENTITY_SPECS: Record<SyncEntity, EntitySpec> = {
   demandLine: plain(DemandLine, 'farmId', ['farmId', 'kind', 'count', 'litresPerHeadPerDay', 'figureSource', 'note', 'confirmed']),
   pipeRun: plain(PipeRun, 'visitId', ['visitId', 'purpose', 'lengthM', 'diameterMm', 'material', 'pressureClass']),
   // Push-only and create-only: applied by applyCommissioningOp, never pulled.
-  commissioning: plain(Commissioning, 'visitId', ['visitId', 'driveLpm', 'deliveredLpm', 'beatsPerMinute', 'liftM', 'fallM', 'drivePipeMaterial', 'notes']),
+  commissioning: plain(Commissioning, 'visitId', [
+    'visitId',
+    'driveLpm',
+    'deliveredLpm',
+    'beatsPerMinute',
+    'liftM',
+    'fallM',
+    'drivePipeMaterial',
+    'wasteValveStrokeMm',
+    'notes',
+  ]),
 };
 
 /** A row as the phone receives it: protocol fields plus id, rev and the soft-delete time. */

@@ -23,6 +23,7 @@ export type QuantityKind =
   | 'pressureHPa'
   | 'speed'
   | 'misclosure'
+  | 'stroke'
   | 'level'
   | 'chainage';
 
@@ -61,6 +62,8 @@ export const QUANTITIES: Record<QuantityKind, Record<UnitSystem, UnitDisplay>> =
   // A level run's misclosure, stored in mm.
   misclosure: { metric: d('mm', same, same, 0, 0), us: d('in', mmToIn, inToMm, 2, 2) },
   diameter: { metric: d('mm', same, same, 1, 0), us: d('in', mmToIn, inToMm, 2, 2) },
+  // A waste valve's travel, stored in mm: set by eye to the millimetre or the sixteenth of an inch.
+  stroke: { metric: d('mm', same, same, 0, 0), us: d('in', mmToIn, inToMm, 2, 2) },
   volume: { metric: d('L', same, same, 1, 'figure'), us: d('gal', lToUsGal, usGalToL, 2, 'figure') },
   time: { metric: d('s', same, same, 1, 1), us: d('s', same, same, 1, 1) },
   flowLps: { metric: d('L/s', same, same, 2, 'figure'), us: d('gal/min', lpsToGpm, (gpm) => lpmToLps(gpmToLpm(gpm)), 1, 'figure') },

@@ -1,6 +1,7 @@
 // What the advisor measures at an installed ram: one shape for the form and the route.
-import { z } from '@/lib/shared/zod';
+import * as z from '@/lib/shared/zod';
 import { PIPE_MATERIALS, type PipeMaterialId } from '@/lib/engine/materials';
+import { MAX_WASTE_VALVE_STROKE_MM } from '../reading-limits';
 
 const measured = (label: string, max: number) =>
   z
@@ -16,6 +17,8 @@ export const commissioningInputSchema = z
     liftM: measured('Lift', 2_000),
     /** Fall measured at installation; without it the screening's fall is used. */
     fallM: measured('Fall', 500).optional(),
+    /** The waste valve's stroke as set (the usual range is 10–25 mm); without it the advice assumes 15 mm. */
+    wasteValveStrokeMm: measured('Waste valve stroke (mm)', MAX_WASTE_VALVE_STROKE_MM).optional(),
     drivePipeMaterial: z
       .enum(Object.keys(PIPE_MATERIALS) as [PipeMaterialId, ...PipeMaterialId[]], { error: 'Choose a drive pipe material from the list' })
       .optional(),

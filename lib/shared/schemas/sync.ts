@@ -1,6 +1,6 @@
 // The sync protocol between the phone's outbox and the server (push, pull, photo upload).
 // One shape for the client that builds ops, the route that applies them and the tests.
-import { z } from '@/lib/shared/zod';
+import * as z from '@/lib/shared/zod';
 import { DEMAND_CATALOGUE, type DemandKind } from '@/lib/engine/demand';
 import { PIPE_MATERIALS, type PipeMaterialId } from '@/lib/engine/materials';
 import { POINT_ROLES, type VisitStatus } from '../domain';
@@ -130,6 +130,8 @@ export const entityFields = {
     /** Fall measured at installation; null: the screening's. */
     fallM: finite.nullable(),
     drivePipeMaterial: z.enum(keys<PipeMaterialId>(PIPE_MATERIALS)).nullable(),
+    /** The waste valve's stroke as set, mm; null (or absent, from a phone that does not ask): not recorded. */
+    wasteValveStrokeMm: finite.nullable().default(null),
     notes: text(5000),
   }),
 } as const;

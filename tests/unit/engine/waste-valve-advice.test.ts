@@ -37,6 +37,18 @@ describe('wasteValveAdvice', () => {
     expect(commissioningCheck(r, null, design).valve?.move).toBe('slow-down');
     expect(commissioningCheck({ ...r, deliveredLpm: 20 }, null, design).valve).toBeNull();
   });
+  it('commissioningCheck models the stroke the advisor recorded, and the assumed 15 mm without one', () => {
+    const r = { driveLpm: 60, deliveredLpm: 3, beatsPerMinute: atDesign.beatsPerMinute, liftM: 30, fallM: 3 };
+    const assumed = commissioningCheck(r, null, design).valve;
+    expect(commissioningCheck({ ...r, wasteValveStrokeMm: 15 }, null, design).valve).toEqual(assumed);
+    const long = commissioningCheck({ ...r, wasteValveStrokeMm: 25 }, null, design).valve;
+    const short = commissioningCheck({ ...r, wasteValveStrokeMm: 10 }, null, design).valve;
+    expect(long).toEqual(wasteValveAdvice(r, design, 25));
+    // A longer stroke is a longer valve travel in each beat of the model's cycle: at the same drive
+    // flow it beats fewer times a minute.
+    expect(long?.atDesign.beatsPerMinute).toBeLessThan(assumed?.atDesign.beatsPerMinute ?? 0);
+    expect(short?.atDesign.beatsPerMinute).toBeGreaterThan(assumed?.atDesign.beatsPerMinute ?? Infinity);
+  });
   it('designPointFromFigures reads the drive pipe and the per-ram drive flow, or null when one is missing', () => {
     const f = { driveLengthM: { value: 15 }, driveBoreMm: { value: 52.5 }, driveFlowLpm: { value: 80 }, waveSpeedMps: { value: 1290 } };
     expect(designPointFromFigures(f)).toEqual({ driveLengthM: 15, driveBoreMm: 52.5, driveLpm: 80, waveSpeedMps: 1290 });

@@ -3,7 +3,15 @@
 import { Suspense, useEffect, useState } from 'react';
 import { useLiveQuery } from 'dexie-react-hooks';
 import { Card } from '@/components/ui/card';
-import { commissioningCheck, designPointFromFigures, EngineInputError, screenSite, type CommissioningResult, type DesignPoint } from '@/lib/engine';
+import {
+  ASSUMED_STROKE_MM,
+  commissioningCheck,
+  designPointFromFigures,
+  EngineInputError,
+  screenSite,
+  type CommissioningResult,
+  type DesignPoint,
+} from '@/lib/engine';
 import { localSiteReadings } from '@/lib/client/site-readings';
 import { siteReadingsSchema } from '@/lib/shared/schemas/site-readings';
 import { setDirty } from '@/lib/client/dirty';
@@ -11,6 +19,7 @@ import { newId } from '@/lib/client/ids';
 import { QuotaError, saveRecord } from '@/lib/client/outbox';
 import { announceSave } from '@/lib/client/sync/triggers';
 import { commissioningInputSchema } from '@/lib/shared/schemas/commissioning';
+import { showQuantity } from '@/lib/shared/display/quantities';
 import { PrimaryButton, SectionHeader } from '../../_components/choice';
 import { NumberField } from '../../_components/number-field';
 import { useUnits, useVisitId } from '../../_components/use-field-data';
@@ -29,6 +38,7 @@ function CommissionPage() {
   const [beats, setBeats] = useState<number | undefined>();
   const [liftM, setLiftM] = useState<number | undefined>();
   const [fallM, setFallM] = useState<number | undefined>();
+  const [strokeMm, setStrokeMm] = useState<number | undefined>();
   const [message, setMessage] = useState<string | null>(null);
   // The drive pipe and design drive flow from the phone's own screen of the visit, so the valve advice needs no signal.
   const design = useLiveQuery(async (): Promise<DesignPoint | null> => {
@@ -42,7 +52,7 @@ function CommissionPage() {
     }
   }, [visitId]);
 
-  const typed = [driveLps, deliveredLps, beats, liftM, fallM].some((v) => v !== undefined);
+  const typed = [driveLps, deliveredLps, beats, liftM, fallM, strokeMm].some((v) => v !== undefined);
   useEffect(() => {
     setDirty('commission', typed);
     return () => setDirty('commission', false);
@@ -52,7 +62,18 @@ function CommissionPage() {
   let problem: string | null = null;
   if (driveLps && deliveredLps && beats && liftM && fallM) {
     try {
-      local = commissioningCheck({ driveLpm: driveLps * 60, deliveredLpm: deliveredLps * 60, beatsPerMinute: beats, liftM, fallM }, null, design ?? null);
+      local = commissioningCheck(
+        {
+          driveLpm: driveLps * 60,
+          deliveredLpm: deliveredLps * 60,
+          beatsPerMinute: beats,
+          liftM,
+          fallM,
+          ...(strokeMm ? { wasteValveStrokeMm: strokeMm } : {}),
+        },
+        null,
+        design ?? null,
+      );
     } catch (error) {
       problem = error instanceof EngineInputError ? error.message : 'These readings cannot be checked.';
     }
@@ -65,6 +86,7 @@ function CommissionPage() {
       beatsPerMinute: beats,
       liftM,
       ...(fallM === undefined ? {} : { fallM }),
+      ...(strokeMm === undefined ? {} : { wasteValveStrokeMm: strokeMm }),
     });
     if (!parsed.success) return setMessage(parsed.error.issues.map((i) => i.message).join('; ') + '.');
     const input = parsed.data;
@@ -77,6 +99,7 @@ function CommissionPage() {
         liftM: input.liftM,
         fallM: input.fallM ?? null,
         drivePipeMaterial: input.drivePipeMaterial ?? null,
+        wasteValveStrokeMm: input.wasteValveStrokeMm ?? null,
         notes: input.notes,
       });
     } catch (error) {
@@ -104,6 +127,14 @@ function CommissionPage() {
         <NumberField label="Beats per minute" quantity="count" units={units} value={beats} onChange={setBeats} />
         <NumberField label="Lift from the ram to the outlet" quantity="length" units={units} value={liftM} onChange={setLiftM} />
         <NumberField label="Fall to the ram (empty: the screening's)" quantity="length" units={units} value={fallM} onChange={setFallM} />
+        <NumberField
+          label="Waste valve stroke (empty: not measured)"
+          quantity="stroke"
+          units={units}
+          value={strokeMm}
+          onChange={setStrokeMm}
+          hint={`How far the valve travels from open to shut. Without it the advice assumes ${showQuantity(ASSUMED_STROKE_MM, 'stroke', units)}, the middle of the usual ${showQuantity(10, 'stroke', units, false)}–${showQuantity(25, 'stroke', units)}.`}
+        />
       </div>
       {problem && (
         <p role="alert" className="font-bold text-clay">
@@ -128,7 +159,7 @@ function CommissionPage() {
         Works with no signal: the check is kept on this phone until the server has it. Keep clear of the waste valve while the ram runs; surge pressure can
         burst fittings. Repairs follow local codes and licensed practice.
       </p>
-      <RecordedChecks visitId={visitId} units={units} />
+      <RecordedChecks visitId={visitId} units={units} design={design ?? null} />
     </div>
   );
 }

@@ -2,7 +2,7 @@
 
 import { useLiveQuery } from 'dexie-react-hooks';
 import { Card } from '@/components/ui/card';
-import { commissioningCheck, type CommissioningResult } from '@/lib/engine';
+import { commissioningCheck, type CommissioningResult, type DesignPoint } from '@/lib/engine';
 import { fieldDb, type LocalRecord, type OutboxEntry } from '@/lib/client/db';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { formatDateTime } from '@/lib/shared/display/dates';
@@ -10,11 +10,25 @@ import { CheckSummary } from './check-summary';
 
 type Sending = { state: 'waiting' } | { state: 'sent' } | { state: 'refused'; message: string };
 
-/** The phone's own check of a stored record (the fall may be the screening's, which only the server knows). */
-function localCheck(r: LocalRecord<'commissioning'>): CommissioningResult | null {
+/**
+ * The phone's own check of a stored record (the fall may be the screening's, which only the server
+ * knows), with the waste-valve advice for the visit's design point where the phone's screen gives one.
+ */
+function localCheck(r: LocalRecord<'commissioning'>, design: DesignPoint | null): CommissioningResult | null {
   if (r.fallM === null || !(r.liftM > r.fallM)) return null;
   try {
-    return commissioningCheck({ driveLpm: r.driveLpm, deliveredLpm: r.deliveredLpm, beatsPerMinute: r.beatsPerMinute, liftM: r.liftM, fallM: r.fallM });
+    return commissioningCheck(
+      {
+        driveLpm: r.driveLpm,
+        deliveredLpm: r.deliveredLpm,
+        beatsPerMinute: r.beatsPerMinute,
+        liftM: r.liftM,
+        fallM: r.fallM,
+        ...(r.wasteValveStrokeMm ? { wasteValveStrokeMm: r.wasteValveStrokeMm } : {}),
+      },
+      null,
+      design,
+    );
   } catch {
     return null;
   }
@@ -32,7 +46,7 @@ const LABEL: Record<Sending['state'], string> = { waiting: 'Not yet sent', sent:
  * The checks recorded on this phone for the visit, newest first, each with the phone's result and
  * whether it has reached the server (it waits in the outbox until the server acknowledged it).
  */
-export function RecordedChecks({ visitId, units }: { visitId: string; units: UnitSystem }) {
+export function RecordedChecks({ visitId, units, design }: { visitId: string; units: UnitSystem; design: DesignPoint | null }) {
   const rows = useLiveQuery(async () => {
     const db = fieldDb();
     const records = (await db.commissionings.where('visitId').equals(visitId).toArray()).sort((a, b) => b.updatedAt.localeCompare(a.updatedAt));
@@ -46,7 +60,7 @@ export function RecordedChecks({ visitId, units }: { visitId: string; units: Uni
       </h2>
       <ol className="space-y-3">
         {rows.map(({ r, sending }) => {
-          const check = localCheck(r);
+          const check = localCheck(r, design);
           return (
             <Card as="li" tone="strong" key={r.id} data-testid="recorded-check">
               <p className="flex flex-wrap items-center gap-2">
