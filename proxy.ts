@@ -3,6 +3,9 @@
 //   bare 500 when it decodes a dynamic segment, gets a plain 400 instead.
 // - Signed-out visitors of the office and farm pages go to /login. A convenience only: every page,
 //   route handler and action checks the session, role and ownership itself.
+// A photo upload (PUT /api/photos/<uuid>, up to 15 MB) is left out too: a request that passes through
+// here has its body copied in memory and cut at 10 MB, and the upload route streams it to disk. Its
+// path is a well-formed id, so the encoding check has nothing to do; any other photo path still comes here.
 // The field pages are left out on purpose: they are static shells the service worker precaches
 // (a redirect here would be cached in their place) and they send a signed-out visitor to /login
 // themselves; their data comes only through the sync routes, which check the session.
@@ -24,4 +27,6 @@ export default function proxy(req: NextRequest, event: NextFetchEvent) {
   return NextResponse.next();
 }
 
-export const config = { matcher: ['/office/:path*', '/farm/:path*', '/api/:path*', '/sheets/:path*', '/welcome/:path*'] };
+export const config = {
+  matcher: ['/office/:path*', '/farm/:path*', '/api/:path((?!photos/[0-9a-fA-F-]{36}$).*)', '/sheets/:path*', '/welcome/:path*'],
+};

@@ -1,4 +1,5 @@
 import type { Metadata } from 'next';
+import { ButtonLink } from '@/components/ui/button';
 import { forbidden, notFound } from 'next/navigation';
 import { requirePageUser } from '@/lib/server/auth/page-guard';
 import { can } from '@/lib/server/auth/permissions';
@@ -43,24 +44,16 @@ export default async function SheetPage({ params }: { params: Promise<{ visitId:
   return (
     <div className="space-y-8">
       <nav aria-label="Sheet as PDF" className="flex flex-wrap gap-3 print:hidden">
-        <a
-          href={`/api/visits/${visitId}/sheet/pdf?paper=${paper}`}
-          download
-          className="inline-flex min-h-12 items-center rounded-md bg-slate px-4 text-lg font-bold text-white no-underline"
-        >
+        <ButtonLink plain href={`/api/visits/${visitId}/sheet/pdf?paper=${paper}`} download className="text-lg">
           Download PDF ({paper === 'a4' ? 'A4' : 'US Letter'})
-        </a>
-        <a
-          href={`/api/visits/${visitId}/sheet/pdf?paper=${paper === 'a4' ? 'letter' : 'a4'}`}
-          download
-          className="inline-flex min-h-12 items-center rounded-md border-2 border-slate px-4 font-bold text-slate no-underline"
-        >
+        </ButtonLink>
+        <ButtonLink plain variant="secondary" href={`/api/visits/${visitId}/sheet/pdf?paper=${paper === 'a4' ? 'letter' : 'a4'}`} download>
           {paper === 'a4' ? 'US Letter' : 'A4'} PDF
-        </a>
+        </ButtonLink>
         {canSend && (
-          <a href="#send-sheet" className="inline-flex min-h-12 items-center rounded-md border-2 border-slate px-4 font-bold text-slate no-underline">
+          <ButtonLink plain variant="secondary" href="#send-sheet">
             Send this sheet
-          </a>
+          </ButtonLink>
         )}
       </nav>
       <SheetBody v={view} />

@@ -2,6 +2,8 @@
 
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
 import { decisionProblem, questionProblem } from '@/lib/shared/sheet/question-rules';
 
 async function post(url: string, body?: unknown): Promise<void> {
@@ -74,7 +76,7 @@ export function FarmerReply({
   };
 
   return (
-    <section aria-labelledby="reply-heading" className="space-y-5 rounded-md border border-rule bg-white p-4 print:hidden">
+    <Card as="section" aria-labelledby="reply-heading" className="space-y-5 print:hidden">
       <h2 id="reply-heading" className="text-xl font-bold text-slate">
         Your answer
       </h2>
@@ -83,14 +85,15 @@ export function FarmerReply({
         {acknowledged ? (
           <p className="font-bold text-moss">You have told us you read this sheet. That is not a yes: say below whether to go ahead.</p>
         ) : (
-          <button
-            type="button"
+          <Button
+            variant="secondary"
+            size="wide"
             disabled={busy}
             onClick={() => run(() => post(`/api/visits/${visitId}/sheet/acknowledge`))}
-            className="min-h-12 w-full rounded-md border-2 border-slate px-4 text-lg font-bold text-slate disabled:opacity-60"
+            className="px-4 text-lg disabled:opacity-60"
           >
             I have read this sheet
-          </button>
+          </Button>
         )}
       </div>
       <div className="space-y-2">
@@ -138,9 +141,9 @@ export function FarmerReply({
                     {reasonProblem}
                   </p>
                 )}
-                <button type="submit" disabled={busy} className="min-h-12 w-full rounded-md bg-slate px-4 text-lg font-bold text-white disabled:opacity-60">
+                <Button type="submit" size="wide" disabled={busy} className="px-4 text-lg disabled:opacity-60">
                   Send my decision
-                </button>
+                </Button>
               </>
             )}
           </form>
@@ -170,15 +173,15 @@ export function FarmerReply({
             {problem}
           </p>
         )}
-        <button type="submit" disabled={busy} className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate">
+        <Button type="submit" variant="secondary" disabled={busy}>
           Send question
-        </button>
+        </Button>
       </form>
       {error && (
         <p role="alert" className="font-bold text-clay">
           {error}
         </p>
       )}
-    </section>
+    </Card>
   );
 }

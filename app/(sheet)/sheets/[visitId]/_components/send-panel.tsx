@@ -1,5 +1,7 @@
 'use client';
 
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
@@ -64,7 +66,7 @@ export function SendPanel({ visitId, farmerName, farmerEmail }: { visitId: strin
     },
   });
   return (
-    <section id="send-sheet" aria-labelledby="send-heading" className="scroll-mt-4 space-y-3 rounded-md border border-rule bg-white p-4 print:hidden">
+    <Card as="section" id="send-sheet" aria-labelledby="send-heading" className="scroll-mt-4 space-y-3 print:hidden">
       <h2 id="send-heading" className="text-xl font-bold text-slate">
         Send this sheet
       </h2>
@@ -89,22 +91,12 @@ export function SendPanel({ visitId, farmerName, farmerEmail }: { visitId: strin
             Goes at the top of the e-mail, after the greeting.
           </p>
           <div className="flex flex-wrap gap-3">
-            <button
-              type="button"
-              disabled={preview.isPending}
-              onClick={() => preview.mutate()}
-              className="min-h-12 w-full rounded-md border-2 border-slate px-4 font-bold text-slate disabled:opacity-60 sm:w-auto"
-            >
+            <Button variant="secondary" disabled={preview.isPending} onClick={() => preview.mutate()} className="w-full disabled:opacity-60 sm:w-auto">
               {preview.isPending ? 'Making the preview…' : 'Preview the e-mail'}
-            </button>
-            <button
-              type="button"
-              disabled={send.isPending}
-              onClick={() => send.mutate(undefined)}
-              className="min-h-12 w-full rounded-md bg-slate px-4 text-lg font-bold text-white disabled:opacity-60 sm:w-auto"
-            >
+            </Button>
+            <Button disabled={send.isPending} onClick={() => send.mutate(undefined)} className="w-full text-lg disabled:opacity-60 sm:w-auto">
               {send.isPending ? 'Sending…' : `Send to ${farmerName ?? 'the farmer'} (${farmerEmail})`}
-            </button>
+            </Button>
           </div>
           {preview.isError && (
             <p role="alert" className="font-bold text-clay">
@@ -144,19 +136,14 @@ export function SendPanel({ visitId, farmerName, farmerEmail }: { visitId: strin
               {s.error && <span className="block text-clay">{s.error}</span>}
             </span>
             {s.status === 'failed' && (
-              <button
-                type="button"
-                onClick={() => send.mutate(s.to)}
-                disabled={send.isPending}
-                className="min-h-12 rounded-md border-2 border-slate px-4 font-bold text-slate"
-              >
+              <Button variant="secondary" onClick={() => send.mutate(s.to)} disabled={send.isPending}>
                 Retry
-              </button>
+              </Button>
             )}
           </li>
         ))}
       </ul>
-    </section>
+    </Card>
   );
 }
 

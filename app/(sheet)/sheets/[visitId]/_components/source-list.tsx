@@ -7,8 +7,9 @@ export function SourceList({ sources }: { sources: SheetSourceLine[] }) {
       {sources.map((s) => (
         <li key={s.id}>
           {s.url ? (
-            // Underlined as well as coloured, so a link does not rest on colour alone; on paper the name reads as plain text.
-            <a href={s.url} target="_blank" rel="noopener noreferrer" className="underline print:text-inherit print:no-underline">
+            // Underlined as well as coloured, so a link does not rest on colour alone; a block of its own line height
+            // and more, so a thumb finds it (targets of 24 px at least); on paper the name reads as plain text.
+            <a href={s.url} target="_blank" rel="noopener noreferrer" className="inline-block py-1 underline print:py-0 print:text-inherit print:no-underline">
               {s.citation}
               <span className="sr-only"> (opens in a new tab)</span>
             </a>
