@@ -12,7 +12,7 @@ import { median, pairedExtra, round, startupBudgets, type Paired } from './suppo
 import { pageBenchContext } from './support/demo';
 import { waitForQuietMachine } from './support/proc';
 import { report } from './support/report';
-import { mainThreadWork, type MainThreadWork } from './support/trace';
+import { mainThreadWork, TraceWithoutPage, type MainThreadWork } from './support/trace';
 
 const LOADS = Number(process.env.BENCH_STARTUP_LOADS) || 7;
 const CPU_SLOWDOWN = 4;
@@ -23,8 +23,23 @@ interface Target {
   cookie?: { name: string; value: string };
 }
 
-/** One load in a fresh context: the trace's main-thread work from navigation to network idle. */
+/**
+ * One load, measured again (twice at most) when Chromium's trace lost the page's HTML parsing: now
+ * and then a trace comes back without it, which says nothing about the page.
+ */
 async function load(browser: Browser, target: Target): Promise<MainThreadWork> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await loadOnce(browser, target);
+    } catch (error) {
+      if (attempt >= 3 || !(error instanceof TraceWithoutPage)) throw error;
+      console.log(`${target.name}: the trace lost the page load, loading it again`);
+    }
+  }
+}
+
+/** One load in a fresh context: the trace's main-thread work from navigation to network idle. */
+async function loadOnce(browser: Browser, target: Target): Promise<MainThreadWork> {
   const context = await browser.newContext({ viewport: { width: 412, height: 915 }, deviceScaleFactor: 2.625, isMobile: true, hasTouch: true });
   try {
     if (target.cookie) await context.addCookies([{ ...target.cookie, url: new URL(target.url).origin, httpOnly: true, sameSite: 'Lax' }]);

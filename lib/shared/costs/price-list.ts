@@ -1,6 +1,6 @@
 // The organisation's price list for costing a sheet: one currency, prices of the parts, labour, and the figures for
 // the ten-year comparison with a solar and a petrol pump. Every default is invented (common practice, no source).
-import { z } from '@/lib/shared/zod';
+import * as z from '@/lib/shared/zod';
 
 const number = (what: string, min: number, max: number) =>
   z.preprocess(

@@ -1,6 +1,6 @@
 // Limits every boundary shares: what the database columns can hold and what a field book can mean.
 // Dates outside these years and integers past a 32-bit column look valid but cannot be stored.
-import { z } from '@/lib/shared/zod';
+import * as z from '@/lib/shared/zod';
 
 export const MIN_YEAR = 1900;
 export const MAX_YEAR = 2100;

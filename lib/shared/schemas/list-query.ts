@@ -1,4 +1,4 @@
-import { z } from '@/lib/shared/zod';
+import * as z from '@/lib/shared/zod';
 import { VERDICTS, VISIT_STATUSES } from '../domain';
 import { isoDay as boundedDay } from './bounds';
 

@@ -1,6 +1,6 @@
 import { DEMAND_CATALOGUE } from '@/lib/engine/demand';
 import { priceListSchema } from '@/lib/shared/costs/price-list';
-import { z } from '@/lib/shared/zod';
+import * as z from '@/lib/shared/zod';
 import { ROLES, UNIT_SYSTEMS, VISIT_STATUSES } from '../domain';
 import { JUMP_REASON_MIN } from '../visit-states';
 import { isPastDay, PAST_DAY_UNCONFIRMED, plannedDayProblem } from '../visit-rules';

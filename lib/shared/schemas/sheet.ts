@@ -1,4 +1,4 @@
-import { z } from '@/lib/shared/zod';
+import * as z from '@/lib/shared/zod';
 import { formatWhole } from '../display/numbers';
 import { DEMAND_CATALOGUE, type DemandKind } from '@/lib/engine/demand';
 import { NOTE_MAX } from '../sheet/email';

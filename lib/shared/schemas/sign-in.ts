@@ -1,4 +1,4 @@
-import { z } from '@/lib/shared/zod';
+import * as z from '@/lib/shared/zod';
 import { EMAIL_MAX, EMAIL_MESSAGE, PASSWORD_MAX, PASSWORD_MISSING, PASSWORD_TOO_LONG } from '../sign-in-rules';
 
 // The credentials check on the server; the sign-in form checks the same limits (sign-in-rules.ts).

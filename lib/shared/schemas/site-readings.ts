@@ -1,5 +1,5 @@
 // Raw readings of one site visit: the one shape the phone form, the sync route, the engine and the tests validate.
-import { z } from '@/lib/shared/zod';
+import * as z from '@/lib/shared/zod';
 import { DEMAND_CATALOGUE, type DemandKind } from '@/lib/engine/demand';
 import { DRIVE_LENGTH_RULES, RAM_SIZE_TABLE, type DriveLengthRuleId } from '@/lib/engine/drive-pipe';
 import { MAX_RAMS } from '@/lib/engine/ram-plan';

@@ -11,6 +11,9 @@ interface TraceEvent {
   args?: { name?: string; beginData?: { url?: string } };
 }
 
+/** The trace holds no page load: Chromium lost its events (the load is worth measuring again). */
+export class TraceWithoutPage extends Error {}
+
 /** Chromium counts a task of 50 ms or more as a long task (the Long Tasks API's threshold). */
 export const LONG_TASK_MS = 50;
 
@@ -32,7 +35,7 @@ export interface MainThreadWork {
 export function mainThreadWork(trace: { traceEvents?: TraceEvent[] } | TraceEvent[]): MainThreadWork {
   const events = Array.isArray(trace) ? trace : (trace.traceEvents ?? []);
   const parse = events.find((e) => e.name === 'ParseHTML' && e.args?.beginData?.url?.startsWith('http'));
-  if (!parse) throw new Error('the trace holds no page load (no HTML parsed from http)');
+  if (!parse) throw new TraceWithoutPage('the trace holds no page load (no HTML parsed from http)');
   const main = events.find((e) => e.ph === 'M' && e.name === 'thread_name' && e.pid === parse.pid && e.args?.name === 'CrRendererMain');
   if (!main) throw new Error('the trace names no renderer main thread for the page');
   const durations = events.filter((e) => e.ph === 'X' && e.name === 'RunTask' && e.pid === parse.pid && e.tid === main.tid).map((e) => (e.dur ?? 0) / 1000);

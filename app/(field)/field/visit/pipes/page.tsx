@@ -6,7 +6,7 @@ import { Suspense, useEffect, useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import { Card } from '@/components/ui/card';
 import { Select } from '@/components/ui/control';
-import { z } from '@/lib/shared/zod';
+import * as z from '@/lib/shared/zod';
 import { PIPE_MATERIALS, type PipeMaterialId } from '@/lib/engine/materials';
 import { fieldDb, type LocalRecord } from '@/lib/client/db';
 import { setDirty } from '@/lib/client/dirty';
