@@ -1,5 +1,6 @@
 import { profileSvg } from '@/lib/shared/sheet/drawing-svg';
 import type { ProfileGeometry } from '@/lib/shared/sheet/profile';
+import { Deferred } from './deferred-drawing';
 
 /**
  * The elevation profile: the same SVG markup the PDF draws (every label escaped in drawing-svg.ts).
@@ -12,11 +13,11 @@ export function ProfileDrawing({ g, narrow }: { g: ProfileGeometry; narrow: Prof
     <figure className="space-y-2">
       {narrow ? (
         <>
-          <div className="sm:hidden print:hidden" dangerouslySetInnerHTML={{ __html: profileSvg(narrow, { testId: 'profile-drawing' }) }} />
-          <div className="hidden sm:block print:block" dangerouslySetInnerHTML={{ __html: wide }} />
+          <Deferred width={narrow.width} height={narrow.height} className="sm:hidden print:hidden" html={profileSvg(narrow, { testId: 'profile-drawing' })} />
+          <Deferred width={g.width} height={g.height} className="hidden sm:block print:block" html={wide} />
         </>
       ) : (
-        <div dangerouslySetInnerHTML={{ __html: wide }} />
+        <Deferred width={g.width} height={g.height} html={wide} />
       )}
       <figcaption className="text-stone">{[g.exaggeration, g.legend].filter(Boolean).join('. ')}</figcaption>
     </figure>

@@ -4,12 +4,9 @@ import { ProfileDrawing } from './profile-drawing';
 import { SiteMapDrawing } from './site-map-drawing';
 import { SourceList } from './source-list';
 
-// A section off the screen is not laid out until the reader scrolls near it (content-visibility):
-// the sheet is a long document, and its first layout was the largest task a phone ran to show it.
-// Paper gets every section laid out.
 function Section({ title, children }: { title: string; children: React.ReactNode }) {
   return (
-    <section className="space-y-3 break-inside-avoid-page [contain-intrinsic-size:auto_32rem] [content-visibility:auto] print:[content-visibility:visible]">
+    <section className="space-y-3 break-inside-avoid-page">
       <h2 className="border-b border-rule pb-1 text-xl font-bold text-slate">{title}</h2>
       {children}
     </section>

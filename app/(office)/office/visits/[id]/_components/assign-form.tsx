@@ -6,10 +6,8 @@ import { useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
-import { Input, Select } from '@/components/ui/control';
-import { Field } from '@/components/ui/field';
 import { ApiError, apiJson, applyFieldErrors } from '@/lib/client/api';
-import { PastDayConfirm } from '@/components/past-day-confirm';
+import { AdvisorAndDayFields } from '../../../_components/advisor-and-day-fields';
 import { visitAssignSchema, type VisitAssignInput } from '@/lib/shared/schemas/office';
 
 /** Assign or reassign the visit; the server's "may hold unsynced data" answer becomes a warning to confirm. */
@@ -60,26 +58,17 @@ export function AssignForm({
         </p>
       )}
       <div className="grid gap-4 sm:grid-cols-2">
-        <Field id="advisorId" label="Advisor" message={errors.advisorId?.message}>
-          {(control) => (
-            <Select {...control} {...register('advisorId')}>
-              <option value="">Choose an advisor…</option>
-              {advisors.map((a) => (
-                <option key={a.id} value={a.id}>
-                  {a.name}
-                </option>
-              ))}
-            </Select>
-          )}
-        </Field>
-        <Field
-          id="plannedOn"
-          label="Planned date"
-          message={errors.plannedOn?.message}
-          issue={<PastDayConfirm day={plannedOn} field={register('confirmPast')} />}
-        >
-          {(control) => <Input {...control} type="date" {...register('plannedOn')} />}
-        </Field>
+        <AdvisorAndDayFields
+          advisors={advisors}
+          advisor={{ field: register('advisorId'), label: 'Advisor', none: 'Choose an advisor…', message: errors.advisorId?.message }}
+          day={{
+            field: register('plannedOn'),
+            label: 'Planned date',
+            message: errors.plannedOn?.message,
+            confirmPast: register('confirmPast'),
+            value: plannedOn,
+          }}
+        />
       </div>
       <Button size="lg" type="submit" disabled={isSubmitting}>
         {isSubmitting ? 'Saving…' : current.advisorId ? 'Save assignment' : 'Assign'}

@@ -4,9 +4,9 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
-import { PastDayConfirm } from '@/components/past-day-confirm';
+import { AdvisorAndDayFields } from '../../../_components/advisor-and-day-fields';
 import { Button } from '@/components/ui/button';
-import { Input, Select, TextArea } from '@/components/ui/control';
+import { Select, TextArea } from '@/components/ui/control';
 import { Field } from '@/components/ui/field';
 import { ApiError, apiJson, applyFieldErrors } from '@/lib/client/api';
 import { visitCreateSchema, type VisitCreateInput } from '@/lib/shared/schemas/office';
@@ -50,26 +50,17 @@ export function NewVisitForm({ farms, advisors, farmId }: { farms: Opt[]; adviso
           </Select>
         )}
       </Field>
-      <Field id="advisorId" label="Advisor (optional)" message={errors.advisorId?.message}>
-        {(control) => (
-          <Select {...control} {...register('advisorId')}>
-            <option value="">Not yet</option>
-            {advisors.map((a) => (
-              <option key={a.id} value={a.id}>
-                {a.name}
-              </option>
-            ))}
-          </Select>
-        )}
-      </Field>
-      <Field
-        id="plannedOn"
-        label="Planned date (optional)"
-        message={errors.plannedOn?.message}
-        issue={<PastDayConfirm day={plannedOn} field={register('confirmPast')} />}
-      >
-        {(control) => <Input {...control} type="date" {...register('plannedOn')} />}
-      </Field>
+      <AdvisorAndDayFields
+        advisors={advisors}
+        advisor={{ field: register('advisorId'), label: 'Advisor (optional)', none: 'Not yet', message: errors.advisorId?.message }}
+        day={{
+          field: register('plannedOn'),
+          label: 'Planned date (optional)',
+          message: errors.plannedOn?.message,
+          confirmPast: register('confirmPast'),
+          value: plannedOn,
+        }}
+      />
       <Field id="notes" label="Notes for the advisor" message={errors.notes?.message}>
         {(control) => <TextArea {...control} rows={3} {...register('notes')} />}
       </Field>
