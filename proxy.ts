@@ -28,5 +28,5 @@ export default function proxy(req: NextRequest, event: NextFetchEvent) {
 }
 
 export const config = {
-  matcher: ['/office/:path*', '/farm/:path*', '/api/:path((?!photos/[0-9a-fA-F-]{36}$).*)', '/sheets/:path*', '/welcome/:path*'],
+  matcher: ['/office/:path*', '/farm/:path*', '/api/:path((?!photos/[0-9a-fA-F-]{36}$|sync/(?:push|pull)$).*)', '/sheets/:path*', '/welcome/:path*'],
 };

@@ -1,4 +1,4 @@
-import type { Model, ModelStatic, Transaction } from 'sequelize';
+import type { Model, ModelStatic, Sequelize, Transaction } from 'sequelize';
 
 // The push writes hundreds of rows per batch: building them through Sequelize (instances, escaping
 // every value into one SQL string) cost more than the database's own work. These go through the
@@ -31,16 +31,18 @@ export function columnsOf(model: ModelStatic<Model>): Column[] {
 }
 
 // The app's connections run in UTC (timezone '+00:00'): write DATETIMEs the way Sequelize does.
-// A batch's rows share their timestamps: the last instant's text is kept for the next cell.
-let lastTime = NaN;
-let lastText = '';
+// A batch's rows share a few instants (its own time, the phone's capture times): their text is
+// kept for the next cells.
+const dateTexts = new Map<number, string>();
 function sqlDate(d: Date): string {
   const time = d.getTime();
-  if (time !== lastTime) {
-    lastTime = time;
-    lastText = d.toISOString().replace('T', ' ').replace('Z', '');
+  let text = dateTexts.get(time);
+  if (text === undefined) {
+    if (dateTexts.size >= 256) dateTexts.clear();
+    text = d.toISOString().replace('T', ' ').replace('Z', '');
+    dateTexts.set(time, text);
   }
-  return lastText;
+  return text;
 }
 
 function cell(column: Column, value: unknown): unknown {
@@ -75,22 +77,58 @@ export function observeStatements(fn: StatementObserver): () => void {
   };
 }
 
-/** The connection a transaction runs on; only mariadb connections carry `batch`. */
-export function txConnection(transaction: Transaction): TxConnection {
-  const connection = (transaction as unknown as { connection?: TxConnection }).connection;
-  if (!connection || typeof connection.batch !== 'function') throw new Error('this needs a transaction on a mariadb connection');
-  if (!observer) return connection;
+interface MariadbConnection {
+  query<T>(options: { sql: string; typeCast?: undefined; dateStrings?: boolean }, values?: unknown[]): Promise<T>;
+  batch(sql: string, values: unknown[][]): Promise<unknown>;
+}
+
+// Sequelize gives its connections a type-casting callback (for its own DATE and DATEONLY parsing),
+// and the connector then sends every column of every row through it, dates through a time-zone
+// library. Statements sent straight on the connection turn it off and take date-times as text:
+// read them with `utcDate` (the connections run in UTC).
+const FAST_READ = { typeCast: undefined, dateStrings: true } as const;
+
+/** A DATETIME's text as the app's UTC connections return it ("2026-08-01 10:00:00.000"), as a Date. */
+export function utcDate(text: string): Date {
+  return new Date(`${text.replace(' ', 'T')}Z`);
+}
+
+/** A mariadb connection as the app sends statements on it: reads fast (FAST_READ), seen by a test's observer. */
+function wrap(connection: MariadbConnection): TxConnection {
   const seen = observer;
   return {
     query: (sql, values) => {
-      seen(sql, values);
-      return connection.query(sql, values);
+      seen?.(sql, values);
+      return connection.query({ sql, ...FAST_READ }, values);
     },
     batch: (sql, values) => {
-      seen(sql, values[0]);
+      seen?.(sql, values[0]);
       return connection.batch(sql, values);
     },
   };
+}
+
+/**
+ * The connection a transaction runs on (only mariadb connections carry `batch`). Its reads return
+ * date-times as text (see FAST_READ): a caller that reads one converts it with `utcDate`.
+ */
+export function txConnection(transaction: Transaction): TxConnection {
+  const connection = (transaction as unknown as { connection?: MariadbConnection }).connection;
+  if (!connection || typeof connection.batch !== 'function') throw new Error('this needs a transaction on a mariadb connection');
+  return wrap(connection);
+}
+
+/**
+ * Runs `fn` with one pool connection of the writer held for it, outside any transaction: reads
+ * that go out together on it (pipelined), without the two statements a transaction adds.
+ */
+export async function withConnection<T>(sequelize: Sequelize, fn: (connection: TxConnection) => Promise<T>): Promise<T> {
+  const connection = (await sequelize.connectionManager.getConnection({ type: 'read', useMaster: true })) as unknown as MariadbConnection;
+  try {
+    return await fn(wrap(connection));
+  } finally {
+    sequelize.connectionManager.releaseConnection(connection as never);
+  }
 }
 
 export const quote = (name: string) => `\`${name.replace(/`/g, '``')}\``;

@@ -1,5 +1,5 @@
-import { QueryTypes, type Model, type ModelStatic, type Sequelize, type Transaction } from 'sequelize';
-import { columnsOf, quote, txConnection } from './batch-insert';
+import type { Model, ModelStatic } from 'sequelize';
+import { columnsOf, quote, utcDate, type TxConnection } from './batch-insert';
 
 // The sync routes read and build hundreds of rows per request only to copy values in and out:
 // Sequelize instances (setters, change tracking, date parsing per value) cost more than the
@@ -61,16 +61,17 @@ export function buildRow(model: ModelStatic<Model>, values: Values): PlainRow {
   return new PlainRow(row);
 }
 
-const selects = new WeakMap<ModelStatic<Model>, { list: string; json: string[] }>();
+const selects = new WeakMap<ModelStatic<Model>, { list: string; json: string[]; dates: string[] }>();
 
-/** The model's select list (column AS attribute) and its JSON attributes, built once per model. */
-function selectOf(model: ModelStatic<Model>): { list: string; json: string[] } {
+/** The model's select list (column AS attribute), its JSON and its date-time attributes, built once per model. */
+function selectOf(model: ModelStatic<Model>): { list: string; json: string[]; dates: string[] } {
   let select = selects.get(model);
   if (!select) {
     const columns = columnsOf(model);
     select = {
       list: columns.map((c) => (c.field === c.attribute ? quote(c.field) : `${quote(c.field)} AS ${quote(c.attribute)}`)).join(', '),
       json: columns.filter((c) => c.json).map((c) => c.attribute),
+      dates: columns.filter((c) => c.date).map((c) => c.attribute),
     };
     selects.set(model, select);
   }
@@ -81,30 +82,32 @@ export interface SelectRowsOptions {
   /** SQL after WHERE (with ? placeholders), e.g. "visit_id IN (?) AND rev > ? ORDER BY rev LIMIT ?". */
   where: string;
   replacements: unknown[];
-  /** Inside a transaction the statement goes out on its connection at once (in call order). */
-  transaction?: Transaction;
-  /** SELECT … FOR UPDATE (inside the transaction). */
+  /** SELECT … FOR UPDATE (on a transaction's connection). */
   lock?: boolean;
 }
 
 /**
  * The model's rows matching `where`, as plain rows: every stored column under its attribute name,
- * JSON columns parsed, date-times as Dates (the connection's own type casting), numbers as numbers.
- * Outside a transaction it goes through sequelize.query, so read routing (primary or replica) is
- * the same as for findAll; inside one, straight on the transaction's connection, so statements
- * started together go out in the order they were started.
+ * JSON columns parsed, date-times as Dates, numbers as numbers. Sent straight on the given
+ * connection (a transaction's, or one held with withConnection), so statements started together go
+ * out in the order they were started.
  */
-export async function selectRows(sequelize: Sequelize, model: ModelStatic<Model>, options: SelectRowsOptions): Promise<PlainRow[]> {
-  const { list, json } = selectOf(model);
+export async function selectRows(on: TxConnection, model: ModelStatic<Model>, options: SelectRowsOptions): Promise<PlainRow[]> {
+  const { list, json, dates } = selectOf(model);
   const sql = `SELECT ${list} FROM ${quote(model.getTableName() as string)} WHERE ${options.where}${options.lock ? ' FOR UPDATE' : ''}`;
-  const rows = options.transaction
-    ? [...(await txConnection(options.transaction).query<Values[]>(sql, options.replacements))]
-    : await sequelize.query<Values>(sql, { type: QueryTypes.SELECT, raw: true, replacements: options.replacements });
-  return rows.map((row) => {
+  const rows = await on.query<Values[]>(sql, options.replacements);
+  const plain: PlainRow[] = [];
+  for (const row of rows) {
     for (const key of json) {
       const value = row[key];
       if (typeof value === 'string') row[key] = JSON.parse(value);
     }
-    return new PlainRow(row);
-  });
+    // The connection gives date-times as text (see txConnection).
+    for (const key of dates) {
+      const value = row[key];
+      if (typeof value === 'string') row[key] = utcDate(value);
+    }
+    plain.push(new PlainRow(row));
+  }
+  return plain;
 }

@@ -3,7 +3,7 @@ import { DataTypes, Model, type CreationOptional, type InferAttributes, type Inf
 // Columns every record that syncs with the phone carries: its revision for the pull cursor, who made it, and
 // soft deletion, so a delete reaches every phone like any other change.
 export const syncedColumns = {
-  // Server revision from the `change_rev` sequence: the pull cursor and the conflict check.
+  // Server revision from the rev_counter row (models/index.ts): the pull cursor and the conflict check.
   rev: { type: DataTypes.BIGINT, allowNull: false, defaultValue: 0 },
   createdById: { type: DataTypes.UUID, allowNull: true },
   deletedAt: { type: DataTypes.DATE, allowNull: true },

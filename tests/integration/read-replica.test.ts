@@ -10,7 +10,7 @@ type Fixtures = typeof import('./support/fixtures');
 type Sync = typeof import('./support/sync');
 type VisitsRoute = typeof import('@/app/api/visits/route');
 
-const saved = { DB_PORT: process.env.DB_PORT, DB_READ_HOSTS: process.env.DB_READ_HOSTS };
+const saved = { DB_PORT: process.env.DB_PORT, DB_READ_HOSTS: process.env.DB_READ_HOSTS, DB_SOCKET: process.env.DB_SOCKET };
 let pair: ReplicaPair;
 let fixtures: Fixtures;
 let sync: Sync;
@@ -42,6 +42,8 @@ beforeAll(async () => {
   await createAppDatabase(pair, { name: 'fallbook_test', user: process.env.DB_USER as string, password: process.env.DB_PASSWORD as string });
   // Point the app at the pair before anything opens a connection (modules load below).
   process.env.DB_PORT = String(pair.primary.port);
+  // The test database's socket belongs to the other server: the pair is reached over TCP.
+  process.env.DB_SOCKET = '';
   process.env.DB_READ_HOSTS = `127.0.0.1:${pair.replica.port}`;
   const connection = await import('@/lib/server/db/connection');
   const { createMigrator } = await import('@/lib/server/db/migrator');

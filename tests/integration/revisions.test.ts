@@ -35,13 +35,17 @@ describe('server revisions of synced records', () => {
     const farm = (name: string) => ({ id: randomUUID(), organisationId: org.organisationId, ownerId: null, name, area: '', lat: null, lon: null, notes: '' });
     let firstCommittedAt = 0;
     let secondTookRevAt = 0;
+    let firstTookRev: () => void = () => undefined;
+    const firstHasRev = new Promise<void>((resolve) => (firstTookRev = resolve));
     const first = sequelize.transaction(async (transaction) => {
       const row = await Farm.create(farm('first'), { transaction });
+      firstTookRev();
       await new Promise((r) => setTimeout(r, 300));
       firstCommittedAt = Date.now();
       return row.rev;
     });
-    await new Promise((r) => setTimeout(r, 50));
+    // The second starts once the first holds its revision (on a busy machine a fixed delay may not be enough).
+    await firstHasRev;
     const second = sequelize.transaction(async (transaction) => {
       const row = await Farm.create(farm('second'), { transaction });
       secondTookRevAt = Date.now();

@@ -1,7 +1,6 @@
 import 'server-only';
 import { knownDemandFigures } from '@/lib/shared/demand-kinds';
-import type { Transaction } from 'sequelize';
-import { DemandLine, Farm, getSequelize, Organisation, selectRows, txConnection, Visit, type PlainRow } from '@/lib/server/db';
+import { DemandLine, Farm, getSequelize, Organisation, selectRows, Visit, withConnection, type PlainRow, type TxConnection } from '@/lib/server/db';
 import type { PulledEntity, PullResponse } from '@/lib/shared/schemas/sync';
 import type { SessionUser } from '../auth/permissions';
 import { ENTITY_SPECS, pulledRecord, type SyncedRow } from '../sync/entities';
@@ -20,15 +19,10 @@ const VISIT_CHILDREN = ['waterSource', 'flowMeasurement', 'fallReading', 'point'
  * The visits a phone holds. Advisors: every visit assigned to them. Coordinators: their
  * organisation's visits that are in the field (booked or walked), not the whole archive.
  */
-function visibleVisits(user: SessionUser, transaction: Transaction): Promise<PlainRow[]> {
+function visibleVisits(user: SessionUser, on: TxConnection): Promise<PlainRow[]> {
   const base = 'organisation_id = ? AND deleted_at IS NULL';
-  if (user.role === 'advisor')
-    return selectRows(getSequelize(), Visit, { where: `${base} AND advisor_id = ? ORDER BY rev`, replacements: [user.organisationId, user.id], transaction });
-  return selectRows(getSequelize(), Visit, {
-    where: `${base} AND status IN ('scheduled', 'surveyed') ORDER BY rev`,
-    replacements: [user.organisationId],
-    transaction,
-  });
+  if (user.role === 'advisor') return selectRows(on, Visit, { where: `${base} AND advisor_id = ? ORDER BY rev`, replacements: [user.organisationId, user.id] });
+  return selectRows(on, Visit, { where: `${base} AND status IN ('scheduled', 'surveyed') ORDER BY rev`, replacements: [user.organisationId] });
 }
 
 const byRev = (a: Change, b: Change) => a.rev - b.rev;
@@ -42,7 +36,7 @@ const asChanges = (kind: Kind, rows: unknown[], exposedAt: (row: SyncedRow) => n
  * Records of visits that appeared after the cursor count at the revision the visit appeared at,
  * all of them whatever their own revision, so the phone gets the visit whole, once.
  */
-async function candidates(cursor: number, limit: number, visible: PlainRow[], transaction: Transaction): Promise<Change[]> {
+async function candidates(cursor: number, limit: number, visible: PlainRow[], on: TxConnection): Promise<Change[]> {
   const exposedAt = (v: PlainRow) => Number(v.get('exposedRev'));
   const exposedVisit = new Map(visible.filter((v) => exposedAt(v) > cursor).map((v) => [v.id, exposedAt(v)]));
   const farmExposure = new Map<string, number>();
@@ -57,14 +51,11 @@ async function candidates(cursor: number, limit: number, visible: PlainRow[], tr
 
   // Plain rows (no model instances): a page holds hundreds of records copied straight to JSON. The
   // statements go out together on the one connection (no pool connection per table).
-  const sequelize = getSequelize();
   const none = Promise.resolve([] as PlainRow[]);
   const newer = (model: Parameters<typeof selectRows>[1], key: string, ids: string[]) =>
-    ids.length
-      ? selectRows(sequelize, model, { where: `${key} IN (?) AND rev > ? ORDER BY rev LIMIT ?`, replacements: [ids, cursor, limit + 1], transaction })
-      : none;
+    ids.length ? selectRows(on, model, { where: `${key} IN (?) AND rev > ? ORDER BY rev LIMIT ?`, replacements: [ids, cursor, limit + 1] }) : none;
   const every = (model: Parameters<typeof selectRows>[1], key: string, ids: string[]) =>
-    ids.length ? selectRows(sequelize, model, { where: `${key} IN (?)`, replacements: [ids], transaction }) : none;
+    ids.length ? selectRows(on, model, { where: `${key} IN (?)`, replacements: [ids] }) : none;
   const visitExposure = (row: SyncedRow) => exposedVisit.get(String(row.get('visitId'))) ?? 0;
   const farmExposed = (key: string) => (row: SyncedRow) => farmExposure.get(String(row.get(key))) ?? 0;
   const [farmsNew, farmsAll, demandNew, demandAll, childrenNew, childrenAll] = await Promise.all([
@@ -102,11 +93,13 @@ function cutPage(all: Change[], limit: number): Change[] {
  */
 export async function pullChanges(user: SessionUser, { cursor, limit }: { cursor: number; limit: number }): Promise<PullResponse> {
   // One connection for the whole page (its reads pipelined on it), not one pool connection per table.
-  const { visible, all, owners, organisation } = await getSequelize().transaction(async (transaction) => {
+  // No transaction: revisions commit in order (DEVELOPERS.md, "Server revisions"), so each read
+  // seeing what was committed when it ran never skips a change below the page's cursor.
+  const { visible, all, owners, organisation } = await withConnection(getSequelize(), async (on) => {
     // The organisation's settings go out with the first read, as a plain row on the same connection.
-    const settingsRow = selectRows(getSequelize(), Organisation, { where: 'id = ?', replacements: [user.organisationId], transaction });
-    const visible = await visibleVisits(user, transaction);
-    const all = await candidates(cursor, limit, visible, transaction);
+    const settingsRow = selectRows(on, Organisation, { where: 'id = ?', replacements: [user.organisationId] });
+    const visible = await visibleVisits(user, on);
+    const all = await candidates(cursor, limit, visible, on);
     const ownerIds = [
       ...new Set(
         all
@@ -116,9 +109,7 @@ export async function pullChanges(user: SessionUser, { cursor, limit }: { cursor
       ),
     ];
     const [people, [organisation]] = await Promise.all([
-      ownerIds.length > 0
-        ? txConnection(transaction).query<{ id: string; name: string }[]>('SELECT id, name FROM users WHERE id IN (?)', [ownerIds])
-        : Promise.resolve([]),
+      ownerIds.length > 0 ? on.query<{ id: string; name: string }[]>('SELECT id, name FROM users WHERE id IN (?)', [ownerIds]) : Promise.resolve([]),
       settingsRow,
     ]);
     if (!organisation) throw new Error(`organisation ${user.organisationId} not found`);

@@ -1,4 +1,5 @@
 import 'server-only';
+import { existsSync } from 'node:fs';
 import * as mariadb from 'mariadb';
 import { Sequelize, type Options } from 'sequelize';
 import { initModels } from '@/models';
@@ -31,6 +32,14 @@ function replication(env: DbEnv): Pick<Options, 'replication'> {
   return { replication: { write: { host: env.DB_HOST, port: env.DB_PORT, ...account }, read: reads.map((r) => ({ ...r, ...account })) } };
 }
 
+const LOOPBACK = new Set(['127.0.0.1', 'localhost', '::1']);
+
+/** The writer's Unix socket when the server runs on this machine and has one (DB_SOCKET). */
+export function localSocket(env: Pick<DbEnv, 'DB_SOCKET' | 'DB_HOST' | 'DB_READ_HOSTS'>): { socketPath?: string } {
+  if (!env.DB_SOCKET || !LOOPBACK.has(env.DB_HOST) || env.DB_READ_HOSTS.trim() || !existsSync(env.DB_SOCKET)) return {};
+  return { socketPath: env.DB_SOCKET };
+}
+
 /** A Sequelize instance for DB_* (with overrides); with read hosts, SELECTs go to the replicas. */
 export function createSequelize(overrides: Partial<DbEnv> = {}) {
   const env = { ...dbEnv(), ...overrides };
@@ -45,6 +54,7 @@ export function createSequelize(overrides: Partial<DbEnv> = {}) {
     // Keep instants in UTC regardless of the server's zone.
     timezone: '+00:00',
     dialectOptions: {
+      ...localSocket(env),
       bigIntAsNumber: true,
       decimalAsNumber: true,
       insertIdAsNumber: true,

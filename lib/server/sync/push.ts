@@ -61,11 +61,12 @@ async function loadRows(ops: SyncOp[], transaction: Transaction): Promise<Map<st
   const byEntity = new Map<SyncEntity, Set<string>>();
   // Commissioning checks are create-only records applied on their own (runCommissioning), not planned rows.
   for (const op of ops) if (op.entity !== 'commissioning') byEntity.set(op.entity, (byEntity.get(op.entity) ?? new Set()).add(op.entityId));
+  const connection = txConnection(transaction);
   const tables = [...byEntity]
     .sort(([a], [b]) => (a < b ? -1 : 1))
     .map(([entity, ids]) => {
       const spec = ENTITY_SPECS[entity];
-      const found = selectRows(getSequelize(), spec.model, { where: 'id IN (?)', replacements: [[...ids].sort()], transaction, lock: true });
+      const found = selectRows(connection, spec.model, { where: 'id IN (?)', replacements: [[...ids].sort()], lock: true });
       return { entity, spec, found };
     });
   const rows = new Map<string, RowState>();
