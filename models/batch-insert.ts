@@ -119,11 +119,13 @@ export function txConnection(transaction: Transaction): TxConnection {
 }
 
 /**
- * Runs `fn` with one pool connection of the writer held for it, outside any transaction: reads
- * that go out together on it (pipelined), without the two statements a transaction adds.
+ * Runs `fn` with one pool connection held for it, outside any transaction: reads that go out
+ * together on it (pipelined), without the two statements a transaction adds. The writer's by
+ * default; `writer: false` lets the read routing choose (a replica, unless the person just wrote).
  */
-export async function withConnection<T>(sequelize: Sequelize, fn: (connection: TxConnection) => Promise<T>): Promise<T> {
-  const connection = (await sequelize.connectionManager.getConnection({ type: 'read', useMaster: true })) as unknown as MariadbConnection;
+export async function withConnection<T>(sequelize: Sequelize, fn: (connection: TxConnection) => Promise<T>, { writer = true } = {}): Promise<T> {
+  // The pool routes by the query type Sequelize itself passes ('SELECT'), whatever its typings say.
+  const connection = (await sequelize.connectionManager.getConnection({ type: 'SELECT' as never, useMaster: writer })) as unknown as MariadbConnection;
   try {
     return await fn(wrap(connection));
   } finally {

@@ -2,8 +2,7 @@ import 'server-only';
 import { getServerSession } from 'next-auth';
 import { getToken, type JWT } from 'next-auth/jwt';
 import type { NextRequest } from 'next/server';
-import { QueryTypes } from 'sequelize';
-import { getSequelize } from '@/lib/server/db';
+import { getSequelize, withConnection } from '@/lib/server/db';
 import type { Role } from '@/lib/shared/domain';
 import { unauthorized } from '../errors';
 import { servedOverHttps, sessionCookieName } from './cookies';
@@ -31,12 +30,12 @@ async function loadUser(claims: Pick<JWT, 'uid' | 'sessionVersion' | 'sid'> | nu
   if (!claims?.uid) return null;
   // Only what a request needs (never the password hash), and whether this session was ended, in one
   // plain statement: this runs on every request.
-  const [user] = await getSequelize().query<AccountRow>(
-    `SELECT u.id, u.organisation_id AS organisationId, u.role, u.name, u.email, u.units, u.active, u.session_version AS sessionVersion,
+  const sql = `SELECT u.id, u.organisation_id AS organisationId, u.role, u.name, u.email, u.units, u.active, u.session_version AS sessionVersion,
             EXISTS (SELECT 1 FROM ended_sessions e WHERE e.sid = ?) AS ended
-     FROM users u WHERE u.id = ?`,
-    { type: QueryTypes.SELECT, raw: true, replacements: [claims.sid ?? '', claims.uid] },
-  );
+     FROM users u WHERE u.id = ?`;
+  // Straight on a pool connection (routed like any read): Sequelize's query pipeline cost about a
+  // fifth of this check.
+  const [user] = await withConnection(getSequelize(), (on) => on.query<AccountRow[]>(sql, [claims.sid ?? '', claims.uid]), { writer: false });
   if (!user || !user.active || Number(user.sessionVersion) !== claims.sessionVersion || Number(user.ended) === 1) return null;
   return {
     id: user.id,
