@@ -7,8 +7,10 @@ import type { FieldValues, Resolver } from 'react-hook-form';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { messagesByPath, plainIssueMessage } from '@/lib/shared/field-messages';
 import { unusualIn, withConfirmations } from '@/lib/shared/plausibility';
+import { MAX_PIPE_BORE_MM, MAX_PIPE_LENGTH_M } from '@/lib/shared/reading-limits';
 import { flowMeasurementSchema } from '@/lib/shared/schemas/site-readings';
-import { recordSchemas, type EntityFields, type SyncEntity } from '@/lib/shared/schemas/sync';
+import { entityFields, recordSchemas, type EntityFields, type SyncEntity } from '@/lib/shared/schemas/sync';
+import * as z from '@/lib/shared/zod';
 import { RecordRefused } from './record-refused';
 
 export { messagesByPath, unusualIn, withConfirmations, flowMeasurementSchema };
@@ -31,4 +33,20 @@ export function checkRecord<E extends SyncEntity>(entity: E, record: Record<stri
 /** react-hook-form's resolver over the entity's shared schema, its messages in the advisor's units. */
 export function recordResolver(entity: SyncEntity, units: UnitSystem): Resolver<FieldValues> {
   return zodResolver(recordSchemas[entity] as never, { error: (issue) => plainIssueMessage(issue, units) }) as unknown as Resolver<FieldValues>;
+}
+
+// The pipes screen edits its three runs as one form: each run's fields from the shared pipe-run schema.
+const pipe = entityFields.pipeRun.pick({ material: true }).extend({
+  lengthM: z
+    .number({ error: (issue) => (issue.code === 'invalid_type' ? 'Measure the length along the route.' : undefined) })
+    .positive('Length must be more than 0.')
+    .max(MAX_PIPE_LENGTH_M),
+  diameterMm: z.number().positive('Diameter must be more than 0.').max(MAX_PIPE_BORE_MM).optional(),
+});
+const pipeRunsSchema = z.object({ drive: pipe.partial({ lengthM: true }), delivery: pipe, feed: pipe.partial({ lengthM: true }) });
+export type PipeRunsValues = z.infer<typeof pipeRunsSchema>;
+
+/** react-hook-form's resolver for the pipes screen's drive, delivery and feed runs, in the advisor's units. */
+export function pipeRunsResolver(units: UnitSystem): Resolver<PipeRunsValues> {
+  return zodResolver(pipeRunsSchema, { error: (issue) => plainIssueMessage(issue, units) });
 }
