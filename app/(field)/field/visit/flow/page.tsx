@@ -72,10 +72,14 @@ function FlowPage() {
   const visitId = useVisitId();
   const units = useUnits();
   const { remove, bar } = useUndoableDelete();
-  const source = useLiveQuery(
-    async () => (await fieldDb().waterSources.where('visitId').equals(visitId).toArray()).find((s) => !s.deletedAt) ?? null,
-    [visitId],
-  );
+  // Before the phone's first sync run, no source means "not fetched yet" (as on the home): the page
+  // waits for it rather than offer to name a source that is on its way.
+  const source = useLiveQuery(async () => {
+    const db = fieldDb();
+    const found = (await db.waterSources.where('visitId').equals(visitId).toArray()).find((s) => !s.deletedAt);
+    if (found) return found;
+    return (await db.meta.get('lastRun')) === undefined ? undefined : null;
+  }, [visitId]);
   const saved = useLiveQuery(async () => (await fieldDb().flowMeasurements.where('visitId').equals(visitId).toArray()).filter((m) => !m.deletedAt), [visitId]);
   // The form and the saved list are drawn together once both are read, so neither pushes the other down.
   if (source === undefined || saved === undefined) {
