@@ -40,7 +40,7 @@ function collect(errors: unknown, prefix = ''): Record<string, string> {
 }
 
 // The checks' code did not arrive (first use with no signal before the app was stored on the phone).
-const CHECKS_MISSING = 'This screen could not load its checks, so nothing was saved. Keep what you typed, get a signal or reload the page, then save again.';
+const CHECKS_MISSING = 'Nothing was saved: this screen could not load its checks. What you typed is still here; save again once the phone has a signal.';
 
 const isUnder = (path: string, prefix: string) => path === prefix || path.startsWith(`${prefix}.`);
 
