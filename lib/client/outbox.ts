@@ -2,46 +2,16 @@
 // change is never on the phone without being queued for the server, nor queued without being kept.
 import type { Table } from 'dexie';
 import type { UnitSystem } from '@/lib/shared/domain';
-import { messagesByPath, plainIssueMessage } from '@/lib/shared/field-messages';
-import { unusualIn, type Unusual } from '@/lib/shared/plausibility';
-import { recordSchemas, type EntityFields, type SyncEntity, type SyncOp } from '@/lib/shared/schemas/sync';
+import type { EntityFields, SyncEntity, SyncOp } from '@/lib/shared/schemas/sync';
 import { fieldDb, TABLE_OF, type LocalRecord, type OutboxEntry, type PhotoBlob } from './db';
 import { newId } from './ids';
+import { loadedRecordChecks, loadRecordChecks } from './load-record-checks';
 
 export class QuotaError extends Error {
   constructor() {
     super('The phone is out of storage space for Fallbook. Free some space (old photos, other apps), then save again — nothing you saved before is lost.');
     this.name = 'QuotaError';
   }
-}
-
-/**
- * A save the phone refuses, as the server would: `messages` by field path (plain words, the advisor's
- * units), and unusual values still to be confirmed. Nothing was written.
- */
-export class RecordRefused extends Error {
-  constructor(
-    readonly messages: Record<string, string>,
-    readonly unusual: Unusual[],
-  ) {
-    super(Object.values(messages)[0] ?? unusual[0]?.message ?? 'This record cannot be saved.');
-    this.name = 'RecordRefused';
-  }
-}
-
-const LOCAL_ONLY = new Set(['id', 'rev', 'deletedAt', 'updatedAt']);
-const VISIT_WRITABLE = ['notes', 'status', 'visitedAt'];
-const changesOnly = (fields: Record<string, unknown>) => Object.fromEntries(Object.entries(fields).filter(([k]) => VISIT_WRITABLE.includes(k)));
-
-/** Checks the whole record the save would leave (the phone's copy with these fields over it). */
-export function checkRecord<E extends SyncEntity>(entity: E, record: Record<string, unknown>, units: UnitSystem = 'metric'): RecordRefused | null {
-  const fields = Object.fromEntries(Object.entries(record).filter(([k]) => !LOCAL_ONLY.has(k)));
-  // A visit's life is the office's (its pulled state may be any); the phone writes only notes, walked-on and surveyed.
-  const schema = entity === 'visit' ? recordSchemas.visit.partial() : recordSchemas[entity];
-  const parsed = schema.safeParse(entity === 'visit' ? changesOnly(fields) : fields, { error: (issue) => plainIssueMessage(issue, units) });
-  if (!parsed.success) return new RecordRefused(messagesByPath(parsed.error.issues, units), []);
-  const open = unusualIn(entity, parsed.data as EntityFields<E>, units).filter((u) => !u.confirmed);
-  return open.length ? new RecordRefused({}, open) : null;
 }
 
 function isQuotaError(error: unknown): boolean {
@@ -69,6 +39,8 @@ export async function saveRecord<E extends SyncEntity>(
   fields: Partial<EntityFields<E>>,
   units: UnitSystem = 'metric',
 ): Promise<SyncOp | null> {
+  // Loaded before the transaction (or already, inside a caller's transaction): it must not wait on a fetch.
+  const { checkRecord } = loadedRecordChecks() ?? (await loadRecordChecks());
   const db = fieldDb();
   const table = db.table(TABLE_OF[entity]) as Table<AnyRecord, string>;
   try {
@@ -144,6 +116,7 @@ export async function undoDelete(entity: SyncEntity, id: string): Promise<boolea
 
 /** Saves a photo's metadata (queued like any record) and its bytes (uploaded after the metadata). */
 export async function savePhoto(id: string, fields: EntityFields<'photo'>, data: ArrayBuffer): Promise<void> {
+  await loadRecordChecks();
   const db = fieldDb();
   try {
     await db.transaction('rw', db.photos, db.photoBlobs, db.outbox, async () => {

@@ -50,7 +50,8 @@ export default function FieldHome() {
           </li>
         ))}
       </ul>
-      <FieldQuestions enabled={user !== null} />
+      {/* Shown below the list once the list has its rows (or the phone knows it has none), so the list never pushes it down. */}
+      <FieldQuestions enabled={user !== null} shown={visits !== undefined && (visits.rows.length > 0 || visits.synced)} />
     </div>
   );
 }

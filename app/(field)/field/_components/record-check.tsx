@@ -3,16 +3,17 @@
 // Every capture form checks the record it is about to save with the shared schema the server uses
 // (react-hook-form with zodResolver), in the advisor's units, and asks "is this right?" about unusual
 // values before it saves. Messages sit at the field they are about; nothing is saved while any stands.
-import { zodResolver } from '@hookform/resolvers/zod';
+// The schemas load on the form's first use (lib/client/load-record-checks.ts), after the screen painted.
 import { useState } from 'react';
-import { useForm, type FieldValues, type Resolver } from 'react-hook-form';
+import { useForm, type FieldValues } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
-import { RecordRefused, saveRecord } from '@/lib/client/outbox';
+import { loadRecordChecks, useRecordChecksOnFirstUse } from '@/lib/client/load-record-checks';
+import { saveRecord } from '@/lib/client/outbox';
+import { RecordRefused } from '@/lib/client/record-refused';
 import type { UnitSystem } from '@/lib/shared/domain';
-import { plainIssueMessage } from '@/lib/shared/field-messages';
-import { unusualIn, withConfirmations, type Unusual } from '@/lib/shared/plausibility';
-import { recordSchemas, type EntityFields, type SyncEntity } from '@/lib/shared/schemas/sync';
+import type { Unusual } from '@/lib/shared/plausibility';
+import type { EntityFields, SyncEntity } from '@/lib/shared/schemas/sync';
 
 export interface RecordCheck {
   /** The message for a path ("measurement.trials.2.seconds"), or for any path under it. */
@@ -38,6 +39,9 @@ function collect(errors: unknown, prefix = ''): Record<string, string> {
   return out;
 }
 
+// The checks' code did not arrive (first use with no signal before the app was stored on the phone).
+const CHECKS_MISSING = 'Nothing was saved: this screen could not load its checks. What you typed is still here; save again once the phone has a signal.';
+
 const isUnder = (path: string, prefix: string) => path === prefix || path.startsWith(`${prefix}.`);
 
 /**
@@ -45,8 +49,9 @@ const isUnder = (path: string, prefix: string) => path === prefix || path.starts
  * and questions for the form's fields to show.
  */
 export function useRecordCheck<E extends SyncEntity>(entity: E, units: UnitSystem) {
+  useRecordChecksOnFirstUse();
   const form = useForm<FieldValues>({
-    resolver: zodResolver(recordSchemas[entity] as never, { error: (issue) => plainIssueMessage(issue, units) }) as unknown as Resolver<FieldValues>,
+    resolver: async (values, context, options) => (await loadRecordChecks()).recordResolver(entity, units)(values, context, options),
   });
   const errors = form.formState.errors;
   const [asks, setAsks] = useState<Unusual[]>([]);
@@ -76,6 +81,14 @@ export function useRecordCheck<E extends SyncEntity>(entity: E, units: UnitSyste
   };
 
   async function save(id: string, fields: EntityFields<E>): Promise<boolean> {
+    let checks;
+    try {
+      checks = await loadRecordChecks();
+    } catch {
+      form.setError('root', { type: 'load', message: CHECKS_MISSING });
+      return false;
+    }
+    const { unusualIn, withConfirmations } = checks;
     form.reset(fields as FieldValues);
     if (!(await form.trigger())) {
       setAsks([]);

@@ -5,7 +5,7 @@ import { Suspense, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Input } from '@/components/ui/control';
-import { fieldDb } from '@/lib/client/db';
+import { fieldDb, type LocalRecord } from '@/lib/client/db';
 import { newId } from '@/lib/client/ids';
 import { saveRecord } from '@/lib/client/outbox';
 import { announceSave } from '@/lib/client/sync/triggers';
@@ -36,13 +36,8 @@ function meanLps(m: FlowMeasurement): number | null {
   }
 }
 
-function SourceName({ visitId, units }: { visitId: string; units: UnitSystem }) {
-  const source = useLiveQuery(
-    async () => (await fieldDb().waterSources.where('visitId').equals(visitId).toArray()).find((s) => !s.deletedAt) ?? null,
-    [visitId],
-  );
+function SourceName({ visitId, source, units }: { visitId: string; source: LocalRecord<'waterSource'> | null; units: UnitSystem }) {
   const [name, setName] = useState('');
-  if (source === undefined) return null;
   if (source) {
     return (
       <>
@@ -77,18 +72,35 @@ function FlowPage() {
   const visitId = useVisitId();
   const units = useUnits();
   const { remove, bar } = useUndoableDelete();
+  // Before the phone's first sync run, no source means "not fetched yet" (as on the home): the page
+  // waits for it rather than offer to name a source that is on its way.
+  const source = useLiveQuery(async () => {
+    const db = fieldDb();
+    const found = (await db.waterSources.where('visitId').equals(visitId).toArray()).find((s) => !s.deletedAt);
+    if (found) return found;
+    return (await db.meta.get('lastRun')) === undefined ? undefined : null;
+  }, [visitId]);
   const saved = useLiveQuery(async () => (await fieldDb().flowMeasurements.where('visitId').equals(visitId).toArray()).filter((m) => !m.deletedAt), [visitId]);
+  // The form and the saved list are drawn together once both are read, so neither pushes the other down.
+  if (source === undefined || saved === undefined) {
+    return (
+      <div className="space-y-5">
+        <SectionHeader visitId={visitId} title="Source and flow" />
+        <p className="text-lg">Reading the phone…</p>
+      </div>
+    );
+  }
   return (
     <div className="space-y-5">
       <SectionHeader visitId={visitId} title="Source and flow" />
-      <SourceName visitId={visitId} units={units} />
+      <SourceName visitId={visitId} source={source} units={units} />
       <section aria-labelledby="saved-flows" className="space-y-2">
         <h2 id="saved-flows" className="text-xl font-bold">
           Saved measurements
         </h2>
-        {saved?.length === 0 && <p className="text-stone">None yet.</p>}
+        {saved.length === 0 && <p className="text-stone">None yet.</p>}
         <Card as="ul" padding="none" className="divide-y divide-rule">
-          {saved?.map((m) => (
+          {saved.map((m) => (
             <li key={m.id} className="flex items-center justify-between px-3 py-2">
               <span>
                 <span className="block font-bold">

@@ -1,36 +1,24 @@
 'use client';
 
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useLiveQuery } from 'dexie-react-hooks';
 import { Suspense, useEffect, useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import { Card } from '@/components/ui/card';
 import { Select } from '@/components/ui/control';
-import * as z from '@/lib/shared/zod';
 import { PIPE_MATERIALS, type PipeMaterialId } from '@/lib/engine/materials';
 import { fieldDb, type LocalRecord } from '@/lib/client/db';
 import { setDirty } from '@/lib/client/dirty';
+import { loadRecordChecks, useRecordChecksOnFirstUse } from '@/lib/client/load-record-checks';
+import type { PipeRunsValues as Values } from '@/lib/client/record-checks';
 import { newId } from '@/lib/client/ids';
 import { deleteRecord, saveRecord } from '@/lib/client/outbox';
 import { announceSave } from '@/lib/client/sync/triggers';
 import type { UnitSystem } from '@/lib/shared/domain';
-import { plainIssueMessage } from '@/lib/shared/field-messages';
-import { MAX_PIPE_BORE_MM, MAX_PIPE_LENGTH_M } from '@/lib/shared/reading-limits';
-import { entityFields } from '@/lib/shared/schemas/sync';
 import { PrimaryButton, SectionHeader } from '../../_components/choice';
 import { NumberField } from '../../_components/number-field';
 import { useUnits, useVisitId } from '../../_components/use-field-data';
 
 const MATERIALS = Object.values(PIPE_MATERIALS);
-const pipe = entityFields.pipeRun.pick({ material: true }).extend({
-  lengthM: z
-    .number({ error: (issue) => (issue.code === 'invalid_type' ? 'Measure the length along the route.' : undefined) })
-    .positive('Length must be more than 0.')
-    .max(MAX_PIPE_LENGTH_M),
-  diameterMm: z.number().positive('Diameter must be more than 0.').max(MAX_PIPE_BORE_MM).optional(),
-});
-const schema = z.object({ drive: pipe.partial({ lengthM: true }), delivery: pipe, feed: pipe.partial({ lengthM: true }) });
-type Values = z.infer<typeof schema>;
 
 function PipeFields({
   name,
@@ -114,8 +102,9 @@ function PipeFields({
 function PipesForm({ visitId, existing, units }: { visitId: string; existing: LocalRecord<'pipeRun'>[]; units: UnitSystem }) {
   const find = (purpose: 'drive' | 'delivery' | 'feed') => existing.find((p) => p.purpose === purpose);
   const [message, setMessage] = useState<string | null>(null);
+  useRecordChecksOnFirstUse();
   const { control, handleSubmit, formState, reset } = useForm<Values>({
-    resolver: zodResolver(schema, { error: (issue) => plainIssueMessage(issue, units) }),
+    resolver: async (values, context, options) => (await loadRecordChecks()).pipeRunsResolver(units)(values, context, options),
     defaultValues: {
       drive: {
         lengthM: find('drive')?.lengthM ?? undefined,

@@ -9,8 +9,8 @@ import { setDirty } from '@/lib/client/dirty';
 import { announceSave } from '@/lib/client/sync/triggers';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { showQuantity } from '@/lib/shared/display/quantities';
-import { messagesByPath } from '@/lib/shared/field-messages';
-import { flowMeasurementSchema, type FlowMeasurement } from '@/lib/shared/schemas/site-readings';
+import { loadRecordChecks } from '@/lib/client/load-record-checks';
+import type { FlowMeasurement } from '@/lib/shared/schemas/site-readings';
 import { Choice, PrimaryButton } from '../../../_components/choice';
 import { NumberField } from '../../../_components/number-field';
 import { FieldIssue, useRecordCheck } from '../../../_components/record-check';
@@ -32,7 +32,8 @@ const SEASONS = [
 ] as const;
 
 /** What the shared schema says of one trial before it is added (in the advisor's units), or null. */
-function trialProblem(candidate: FlowMeasurement, key: string, units: UnitSystem): string | null {
+async function trialProblem(candidate: FlowMeasurement, key: string, units: UnitSystem): Promise<string | null> {
+  const { flowMeasurementSchema, messagesByPath } = await loadRecordChecks();
   const parsed = flowMeasurementSchema.safeParse(candidate);
   if (parsed.success) return null;
   const messages = messagesByPath(
@@ -112,7 +113,7 @@ export function FlowForm({ visitId, sourceId, units }: { visitId: string; source
   }
 
   // Each trial is checked against the shared schema as it is added; a refused one stays out of the list.
-  const addSeconds = (s: number | undefined) => {
+  const addSeconds = async (s: number | undefined) => {
     if (s === undefined) {
       setAddProblem('Type the seconds first.');
       return;
@@ -121,16 +122,16 @@ export function FlowForm({ visitId, sourceId, units }: { visitId: string; source
     const candidate = (
       method === 'float' ? { method, season, areaM2: 1, coefficient: 0.85, trials: [trial] } : { method: 'volumetric', season, trials: [trial] }
     ) as FlowMeasurement;
-    const problem = trialProblem(candidate, 'seconds', units);
+    const problem = await trialProblem(candidate, 'seconds', units);
     setAddProblem(problem);
     if (!problem) setSeconds((list) => [...list, s]);
   };
-  const addHead = (h: number | undefined) => {
+  const addHead = async (h: number | undefined) => {
     if (h === undefined) {
       setAddProblem('Type the head first.');
       return;
     }
-    const problem = trialProblem({ method: 'v-notch', season, notchAngleDeg: 90, trials: [{ headM: h }] }, 'headM', units);
+    const problem = await trialProblem({ method: 'v-notch', season, notchAngleDeg: 90, trials: [{ headM: h }] }, 'headM', units);
     setAddProblem(problem);
     if (!problem) {
       setHeads((l) => [...l, h]);
@@ -160,7 +161,7 @@ export function FlowForm({ visitId, sourceId, units }: { visitId: string; source
           <NumberField label="Bucket volume" quantity="volume" units={units} value={bucketL} onChange={setBucketL}>
             <FieldIssue check={check} path="measurement.trials.0.volumeL" />
           </NumberField>
-          <Stopwatch onLap={(s) => addSeconds(s)} />
+          <Stopwatch onLap={(s) => void addSeconds(s)} />
           <NumberField label="Or type the seconds" quantity="time" units={units} value={typedSeconds} onChange={setTypedSeconds}>
             {addProblem && (
               <p role="alert" className="mt-1 font-bold text-clay">
@@ -171,7 +172,7 @@ export function FlowForm({ visitId, sourceId, units }: { visitId: string; source
           <Button
             variant="secondary"
             onClick={() => {
-              addSeconds(typedSeconds);
+              void addSeconds(typedSeconds);
               setTypedSeconds(undefined);
             }}
           >
@@ -196,7 +197,7 @@ export function FlowForm({ visitId, sourceId, units }: { visitId: string; source
               </p>
             )}
           </NumberField>
-          <Button variant="secondary" onClick={() => addHead(typedHead)}>
+          <Button variant="secondary" onClick={() => void addHead(typedHead)}>
             Add head reading
           </Button>
           <TrialList
@@ -214,7 +215,7 @@ export function FlowForm({ visitId, sourceId, units }: { visitId: string; source
           <NumberField label="Cross-section area (width × mean depth)" quantity="area" units={units} value={areaM2} onChange={setAreaM2}>
             <FieldIssue check={check} path="measurement.areaM2" />
           </NumberField>
-          <Stopwatch onLap={(s) => addSeconds(s)} />
+          <Stopwatch onLap={(s) => void addSeconds(s)} />
           {addProblem && (
             <p role="alert" className="font-bold text-clay">
               {addProblem}
