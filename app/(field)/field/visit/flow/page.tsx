@@ -1,6 +1,6 @@
 'use client';
 
-import { useLiveQuery } from 'dexie-react-hooks';
+import { useFieldQuery } from '../../_components/use-field-query';
 import { Suspense, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -37,7 +37,7 @@ function meanLps(m: FlowMeasurement): number | null {
 }
 
 function SourceName({ visitId, units }: { visitId: string; units: UnitSystem }) {
-  const source = useLiveQuery(
+  const source = useFieldQuery(
     async () => (await fieldDb().waterSources.where('visitId').equals(visitId).toArray()).find((s) => !s.deletedAt) ?? null,
     [visitId],
   );
@@ -77,7 +77,7 @@ function FlowPage() {
   const visitId = useVisitId();
   const units = useUnits();
   const { remove, bar } = useUndoableDelete();
-  const saved = useLiveQuery(async () => (await fieldDb().flowMeasurements.where('visitId').equals(visitId).toArray()).filter((m) => !m.deletedAt), [visitId]);
+  const saved = useFieldQuery(async () => (await fieldDb().flowMeasurements.where('visitId').equals(visitId).toArray()).filter((m) => !m.deletedAt), [visitId]);
   return (
     <div className="space-y-5">
       <SectionHeader visitId={visitId} title="Source and flow" />

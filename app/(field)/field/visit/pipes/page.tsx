@@ -1,7 +1,7 @@
 'use client';
 
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useLiveQuery } from 'dexie-react-hooks';
+import { useFieldQuery } from '../../_components/use-field-query';
 import { Suspense, useEffect, useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import { Card } from '@/components/ui/card';
@@ -193,7 +193,7 @@ function PipesForm({ visitId, existing, units }: { visitId: string; existing: Lo
 function PipesPage() {
   const visitId = useVisitId();
   const units = useUnits();
-  const existing = useLiveQuery(async () => (await fieldDb().pipeRuns.where('visitId').equals(visitId).toArray()).filter((p) => !p.deletedAt), [visitId]);
+  const existing = useFieldQuery(async () => (await fieldDb().pipeRuns.where('visitId').equals(visitId).toArray()).filter((p) => !p.deletedAt), [visitId]);
   return (
     <div className="space-y-5">
       <SectionHeader visitId={visitId} title="Pipe runs" />
