@@ -1,6 +1,7 @@
-// The field frame's and home's reads of the phone's database, by name. The page's sync worker runs
-// them and posts the answers, so those pages evaluate no Dexie at all; a page without the worker
-// runs them itself. Small summaries only: counts from indexes, never ops or photo bytes.
+// The shared field queries: the frame's and home's reads of the phone's database, by name. Pages ask
+// for them through useFieldQuery; the field worker runs them (field-host.ts), so those pages
+// evaluate no Dexie at all, and a page without the worker runs them itself. Small summaries only:
+// counts from indexes, never ops or photo bytes.
 import type { FieldDatabase, LocalFarm, LocalVisit } from './db';
 import { photoQueueCounts } from './photo-queue';
 import type { SyncRecord } from './sync/meta';

@@ -8,12 +8,12 @@ import { isOverdue } from '@/lib/shared/visit-rules';
 import { decisionWords, waitingWords } from './_components/sync-words';
 import { FieldQuestions } from './_components/field-questions';
 import { useFieldUser } from './_components/field-session';
-import { useFrameQuery } from './_components/use-frame-query';
+import { useFieldQuery } from './_components/use-field-query';
 
 export default function FieldHome() {
   const user = useFieldUser();
   // Nothing of anyone's is read until the frame knows whose field book this is.
-  const visits = useFrameQuery('homeVisits', user !== null);
+  const visits = useFieldQuery(user !== null ? 'homeVisits' : null);
   return (
     <div className="space-y-5">
       <h1 className="text-3xl font-bold text-slate">My site visits</h1>

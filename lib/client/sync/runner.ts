@@ -1,9 +1,9 @@
 // One sync run: push the outbox, upload photos, pull changes. The same module runs in the service
-// worker (Background Sync) and in the page's sync worker; a Web Lock makes sure only one runs at a
+// worker (Background Sync) and in the page's field worker (or the page itself); a Web Lock makes sure only one runs at a
 // time, whichever context it is in.
 import { fieldDb, type MetaEntry } from '../db';
 import { keepTilesForVisits } from '../offline-tiles';
-import { getMeta, type SyncRecord } from './meta';
+import type { SyncRecord } from './meta';
 import { uploadPhotos, type UploadProgress } from './photos';
 import { pullAll } from './pull';
 import { pushAll } from './push';
@@ -11,7 +11,6 @@ import { OfflineError, SyncHttpError } from './transport';
 
 /** The one name of the sync: the Web Lock a run holds and the Background Sync tag that wakes one. */
 export const SYNC_NAME = 'fallbook-sync';
-export const SYNC_LOCK = SYNC_NAME;
 
 export type SyncOutcome = SyncRecord | { skipped: 'busy' };
 
@@ -55,11 +54,9 @@ export async function runSync(onProgress?: UploadProgress, force = false): Promi
     return record;
   }
   // A pressed button waits for a running sync to finish, then runs; automatic triggers skip.
-  const outcome = await locks.request(SYNC_LOCK, force ? {} : { ifAvailable: true }, async (lock) => (lock ? runOnce(onProgress, force) : null));
+  const outcome = await locks.request(SYNC_NAME, force ? {} : { ifAvailable: true }, async (lock) => (lock ? runOnce(onProgress, force) : null));
   // With a signal, the map around the phone's visits is kept for offline use; after the run, so the
   // outcome never waits on tiles.
   if (outcome?.ok) void keepTilesForVisits();
   return outcome ?? { skipped: 'busy' };
 }
-
-export { getMeta };

@@ -1,12 +1,11 @@
 // When the page asks for a sync: at start, after each save, on `online`, when the app comes back
-// to the foreground, on a timer while open, and on the button. The page's own sync worker runs it
-// (off the main thread); where a service worker controls the page, Background Sync also wakes the
-// service worker later, even with the page closed. A Web Lock keeps one run at a time.
-import { runSyncInWorker } from './in-worker';
+// to the foreground, on a timer while open, and on the button. The page's field worker runs it
+// (off the main thread, see field-host.ts); where a service worker controls the page, Background
+// Sync also wakes the service worker later, even with the page closed. A Web Lock keeps one run at a time.
+import { runFieldSync } from '../field-host';
 import type { UploadProgress } from './photos';
 import { SYNC_NAME, type SyncOutcome } from './runner';
 
-export const SYNC_TAG = SYNC_NAME;
 const TIMER_MS = 60_000;
 
 type SyncRegistration = ServiceWorkerRegistration & { sync?: { register(tag: string): Promise<void> } };
@@ -16,10 +15,10 @@ export async function requestSync(onProgress?: UploadProgress, force = false): P
   if ('serviceWorker' in navigator && navigator.serviceWorker.controller) {
     const registration = (await navigator.serviceWorker.ready) as SyncRegistration;
     // Background Sync (Chromium) retries even after the page is closed.
-    await registration.sync?.register(SYNC_TAG).catch(() => undefined);
+    await registration.sync?.register(SYNC_NAME).catch(() => undefined);
   }
-  // The page's worker runs the loop too: it reports upload progress, and the Web Lock keeps it single.
-  return runSyncInWorker(onProgress, force);
+  // The page's field worker runs the loop too: it reports upload progress, and the Web Lock keeps it single.
+  return runFieldSync(onProgress, force);
 }
 
 /** Wires the automatic triggers; returns a function that unwires them. */

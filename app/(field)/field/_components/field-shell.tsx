@@ -32,15 +32,16 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
     let cancelled = false;
     // Open at once as the advisor remembered on this phone: a weak signal must not hold the field
     // book shut. Sync starts only once the server (or no network) confirms who is signed in, so a
-    // remembered person's changes are never sent under someone else's session. The field worker
-    // reads the phone's database and runs the sync: the frame evaluates no Dexie of its own.
-    // The triggers' code is asked for with the worker's, in the same task: one round of script loading.
+    // remembered person's changes are never sent under someone else's session. The field host
+    // (lib/client/field-host.ts) reads the phone's database and runs the sync off the main thread:
+    // the frame evaluates no Dexie of its own. The triggers' code is asked for with the host's, in
+    // the same task: one round of script loading.
     const triggers = import('@/lib/client/sync/triggers');
-    void import('@/lib/client/sync/in-worker').then(async ({ sessionFromWorker, rememberedFromWorker }) => {
-      void rememberedFromWorker().then((user) => {
+    void import('@/lib/client/field-host').then(async ({ fieldSession, rememberedOnPhone }) => {
+      void rememberedOnPhone().then((user) => {
         if (!cancelled && user) startTransition(() => setSession((s) => s ?? { state: 'ready', user, online: navigator.onLine }));
       });
-      const s = await sessionFromWorker();
+      const s = await fieldSession();
       if (cancelled) return;
       // Drawn as a transition: React may pause the redraw of the frame for the person's input. The
       // server confirming the person the phone remembered draws nothing: a new but equal session

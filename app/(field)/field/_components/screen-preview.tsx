@@ -1,6 +1,6 @@
 'use client';
 
-import { useLiveQuery } from 'dexie-react-hooks';
+import { useFieldQuery } from './use-field-query';
 import { Card } from '@/components/ui/card';
 import { VerdictMark } from '@/components/verdict-mark';
 import { screenSite } from '@/lib/engine';
@@ -19,7 +19,7 @@ import { useUnits } from './use-field-data';
 /** The feasibility screen computed on the phone from what is captured so far. */
 export function ScreenPreview({ visitId }: { visitId: string }) {
   const units = useUnits();
-  const preview = useLiveQuery(async () => {
+  const preview = useFieldQuery(async () => {
     const input = await localSiteReadings(visitId);
     if (!input) return null;
     const parsed = siteReadingsSchema.safeParse(input, { error: (issue) => plainIssueMessage(issue, units) });

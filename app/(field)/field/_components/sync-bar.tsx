@@ -9,7 +9,7 @@ import { formatClock } from '@/lib/shared/display/dates';
 import { formatCount } from '@/lib/shared/display/numbers';
 import { useFieldUser } from './field-session';
 import { decisionWords, waitingWords } from './sync-words';
-import { useFrameQuery } from './use-frame-query';
+import { useFieldQuery } from './use-field-query';
 
 function timeOf(iso: string | undefined, units: UnitSystem): string {
   return iso ? formatClock(new Date(iso), units) : 'never';
@@ -25,7 +25,7 @@ export function SyncBar() {
   const ready = user !== null;
   const [progress, setProgress] = useState<{ sent: number; total: number } | null>(null);
   const [busy, setBusy] = useState(false);
-  const state = useFrameQuery('syncSummary', ready);
+  const state = useFieldQuery(ready ? 'syncSummary' : null);
 
   async function syncNow() {
     setBusy(true);

@@ -1,6 +1,6 @@
 'use client';
 
-import { useLiveQuery } from 'dexie-react-hooks';
+import { useFieldQuery } from './use-field-query';
 import { useSearchParams } from 'next/navigation';
 import { fieldDb } from '@/lib/client/db';
 import { getMeta } from '@/lib/client/sync/meta';
@@ -13,7 +13,7 @@ export function useVisitId(): string {
 
 /** The visit and its farm from the phone's database (undefined while loading, null if absent). */
 export function useVisit(id: string) {
-  return useLiveQuery(async () => {
+  return useFieldQuery(async () => {
     const visit = await fieldDb().visits.get(id);
     if (!visit) return null;
     const farm = await fieldDb().farms.get(visit.farmId);
@@ -23,5 +23,5 @@ export function useVisit(id: string) {
 
 /** The reader's unit system (remembered user's preference). */
 export function useUnits(): UnitSystem {
-  return useLiveQuery(async () => (await getMeta<SessionUser>('user'))?.units ?? 'metric', [], 'metric');
+  return useFieldQuery(async () => (await getMeta<SessionUser>('user'))?.units ?? 'metric', [], 'metric');
 }

@@ -1,6 +1,6 @@
 'use client';
 
-import { useLiveQuery } from 'dexie-react-hooks';
+import { useFieldQuery } from '../_components/use-field-query';
 import Link from 'next/link';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -13,7 +13,6 @@ import { describeRecord, fieldLabel, showFieldValue } from '@/lib/shared/conflic
 import { isSchemaText } from '@/lib/shared/field-messages';
 import { useFieldUser } from '../_components/field-session';
 import { decisionWords, waitingWords } from '../_components/sync-words';
-import { useFrameQuery } from '../_components/use-frame-query';
 import { useUnits } from '../_components/use-field-data';
 
 function Conflict({ entry, units }: { entry: OutboxEntry; units: UnitSystem }) {
@@ -81,7 +80,7 @@ function Refused({ entry }: { entry: OutboxEntry }) {
 
 /** Photos the server refused (a 4xx): the reason, and a way to try again; the bytes stay on the phone. */
 function RefusedPhotos() {
-  const refused = useLiveQuery(async () => {
+  const refused = useFieldQuery(async () => {
     const db = fieldDb();
     const blobs = await waitingPhotos(db, (b) => !!b.lastError);
     return Promise.all(blobs.map(async (b) => ({ id: b.id, error: b.lastError, caption: (await db.photos.get(b.id))?.caption ?? '' })));
@@ -111,11 +110,11 @@ function RefusedPhotos() {
 }
 
 export default function SyncPage() {
-  const entries = useLiveQuery(() => fieldDb().outbox.orderBy('seq').toArray());
+  const entries = useFieldQuery(() => fieldDb().outbox.orderBy('seq').toArray());
   const units = useUnits();
   const parked = entries?.filter((e) => e.status !== 'pending') ?? [];
   // The same counts as the sync bar and the home (changes and photos), from the same query.
-  const counts = useFrameQuery('syncSummary', useFieldUser() !== null);
+  const counts = useFieldQuery(useFieldUser() !== null ? 'syncSummary' : null);
   return (
     <div className="space-y-5">
       <Link href="/field">← My visits</Link>

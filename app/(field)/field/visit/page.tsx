@@ -1,6 +1,6 @@
 'use client';
 
-import { useLiveQuery } from 'dexie-react-hooks';
+import { useFieldQuery } from '../_components/use-field-query';
 import dynamic from 'next/dynamic';
 import Link from 'next/link';
 import { Suspense } from 'react';
@@ -27,7 +27,7 @@ const SECTIONS = [
 function VisitOverview() {
   const id = useVisitId();
   const data = useVisit(id);
-  const counts = useLiveQuery(async () => {
+  const counts = useFieldQuery(async () => {
     const db = fieldDb();
     const entries = await Promise.all(
       SECTIONS.map(async (s) => {

@@ -1,7 +1,7 @@
 'use client';
 
 import { Suspense, useEffect, useState } from 'react';
-import { useLiveQuery } from 'dexie-react-hooks';
+import { useFieldQuery } from '../../_components/use-field-query';
 import { Card } from '@/components/ui/card';
 import {
   ASSUMED_STROKE_MM,
@@ -41,7 +41,7 @@ function CommissionPage() {
   const [strokeMm, setStrokeMm] = useState<number | undefined>();
   const [message, setMessage] = useState<string | null>(null);
   // The drive pipe and design drive flow from the phone's own screen of the visit, so the valve advice needs no signal.
-  const design = useLiveQuery(async (): Promise<DesignPoint | null> => {
+  const design = useFieldQuery(async (): Promise<DesignPoint | null> => {
     const input = await localSiteReadings(visitId);
     const parsed = input ? siteReadingsSchema.safeParse(input) : null;
     if (!parsed?.success) return null;

@@ -1,6 +1,6 @@
 'use client';
 
-import { useLiveQuery } from 'dexie-react-hooks';
+import { useFieldQuery } from '../../_components/use-field-query';
 import { Suspense, useEffect, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -49,11 +49,11 @@ function DemandPage() {
   const { remove, bar } = useUndoableDelete();
   const data = useVisit(visitId);
   const farmId = data?.visit.farmId ?? '';
-  const lines = useLiveQuery(
+  const lines = useFieldQuery(
     async () => (farmId ? (await fieldDb().demandLines.where('farmId').equals(farmId).toArray()).filter((l) => !l.deletedAt) : []),
     [farmId],
   );
-  const overrides = useLiveQuery(async () => (await getMeta<PullResponse['settings']>('settings'))?.demandFigures ?? {}, [], {} as Record<string, number>);
+  const overrides = useFieldQuery(async () => (await getMeta<PullResponse['settings']>('settings'))?.demandFigures ?? {}, [], {} as Record<string, number>);
   const [kind, setKind] = useState<DemandKind>('person-tap-on-plot');
   const [typedCount, setCount] = useState<number | undefined>();
   // A garden's area is kept in whole square metres, whatever unit it was typed in.

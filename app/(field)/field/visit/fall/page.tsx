@@ -1,6 +1,6 @@
 'use client';
 
-import { useLiveQuery } from 'dexie-react-hooks';
+import { useFieldQuery } from '../../_components/use-field-query';
 import { Suspense, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -18,7 +18,7 @@ function FallPage() {
   const units = useUnits();
   const { remove, bar } = useUndoableDelete();
   const [purpose, setPurpose] = useState<'fall' | 'lift'>('fall');
-  const saved = useLiveQuery(
+  const saved = useFieldQuery(
     async () => (await fieldDb().fallReadings.where('visitId').equals(visitId).toArray()).filter((r) => !r.deletedAt).sort((a, b) => a.seq - b.seq),
     [visitId],
   );

@@ -1,6 +1,6 @@
 'use client';
 
-import { useLiveQuery } from 'dexie-react-hooks';
+import { useFieldQuery } from '../../_components/use-field-query';
 import { Suspense, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -74,13 +74,13 @@ function FlowPage() {
   const { remove, bar } = useUndoableDelete();
   // Before the phone's first sync run, no source means "not fetched yet" (as on the home): the page
   // waits for it rather than offer to name a source that is on its way.
-  const source = useLiveQuery(async () => {
+  const source = useFieldQuery(async () => {
     const db = fieldDb();
     const found = (await db.waterSources.where('visitId').equals(visitId).toArray()).find((s) => !s.deletedAt);
     if (found) return found;
     return (await db.meta.get('lastRun')) === undefined ? undefined : null;
   }, [visitId]);
-  const saved = useLiveQuery(async () => (await fieldDb().flowMeasurements.where('visitId').equals(visitId).toArray()).filter((m) => !m.deletedAt), [visitId]);
+  const saved = useFieldQuery(async () => (await fieldDb().flowMeasurements.where('visitId').equals(visitId).toArray()).filter((m) => !m.deletedAt), [visitId]);
   // The form and the saved list are drawn together once both are read, so neither pushes the other down.
   if (source === undefined || saved === undefined) {
     return (

@@ -1,6 +1,6 @@
 'use client';
 
-import { useLiveQuery } from 'dexie-react-hooks';
+import { useFieldQuery } from '../../_components/use-field-query';
 import { Suspense, useEffect, useMemo, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -16,7 +16,7 @@ import { useUndoableDelete } from '../../_components/undo-delete';
 
 /** A photo shown from the phone's own bytes, or the server's thumbnail when it came from elsewhere. */
 function Thumb({ id, alt }: { id: string; alt: string }) {
-  const blob = useLiveQuery(() => fieldDb().photoBlobs.get(id), [id]);
+  const blob = useFieldQuery(() => fieldDb().photoBlobs.get(id), [id]);
   const url = useMemo(() => (blob ? URL.createObjectURL(new Blob([blob.data], { type: blob.mime })) : null), [blob]);
   useEffect(
     () => () => {
@@ -38,7 +38,7 @@ function PhotosPage() {
   const { remove, bar } = useUndoableDelete();
   const [busy, setBusy] = useState(false);
   const [message, setMessage] = useState<string | null>(null);
-  const photos = useLiveQuery(async () => {
+  const photos = useFieldQuery(async () => {
     const db = fieldDb();
     const rows = (await db.photos.where('visitId').equals(visitId).toArray()).filter((p) => !p.deletedAt);
     // Waiting means the bytes have not gone up, whether or not the metadata has (a refused photo's

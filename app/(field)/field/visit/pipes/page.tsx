@@ -1,6 +1,6 @@
 'use client';
 
-import { useLiveQuery } from 'dexie-react-hooks';
+import { useFieldQuery } from '../../_components/use-field-query';
 import { Suspense, useEffect, useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import { Card } from '@/components/ui/card';
@@ -182,7 +182,7 @@ function PipesForm({ visitId, existing, units }: { visitId: string; existing: Lo
 function PipesPage() {
   const visitId = useVisitId();
   const units = useUnits();
-  const existing = useLiveQuery(async () => (await fieldDb().pipeRuns.where('visitId').equals(visitId).toArray()).filter((p) => !p.deletedAt), [visitId]);
+  const existing = useFieldQuery(async () => (await fieldDb().pipeRuns.where('visitId').equals(visitId).toArray()).filter((p) => !p.deletedAt), [visitId]);
   return (
     <div className="space-y-5">
       <SectionHeader visitId={visitId} title="Pipe runs" />

@@ -1,6 +1,6 @@
 'use client';
 
-import { useLiveQuery } from 'dexie-react-hooks';
+import { useFieldQuery } from '../../_components/use-field-query';
 import Link from 'next/link';
 import { Suspense } from 'react';
 import { Button } from '@/components/ui/button';
@@ -19,7 +19,7 @@ function PointsPage() {
   const visitId = useVisitId();
   const units = useUnits();
   const { remove, bar } = useUndoableDelete();
-  const all = useLiveQuery(async () => (await fieldDb().points.where('visitId').equals(visitId).toArray()).filter((p) => !p.deletedAt), [visitId]);
+  const all = useFieldQuery(async () => (await fieldDb().points.where('visitId').equals(visitId).toArray()).filter((p) => !p.deletedAt), [visitId]);
   // Creek-profile stations (booked along the bank) live on the profile page: dozens of them would bury the site points here.
   const isProfileStation = (p: NonNullable<typeof all>[number]) => p.role === 'station' && p.chainageM !== null;
   const points = all?.filter((p) => !isProfileStation(p));

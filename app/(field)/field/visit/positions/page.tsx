@@ -1,6 +1,6 @@
 'use client';
 
-import { useLiveQuery } from 'dexie-react-hooks';
+import { useFieldQuery } from '../../_components/use-field-query';
 import { Suspense, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -24,7 +24,7 @@ import { StationForm } from './_components/station-form';
 function PositionsPage() {
   const visitId = useVisitId();
   const units = useUnits();
-  const profile = useLiveQuery(() => localProfile(visitId), [visitId]);
+  const profile = useFieldQuery(() => localProfile(visitId), [visitId]);
   const [offsetM, setOffsetM] = useState<number | undefined>(0);
   const [tankLevel, setTankLevel] = useState<number | undefined>();
   const [tankChainage, setTankChainage] = useState<number | undefined>();
@@ -187,7 +187,7 @@ function PositionsPage() {
 }
 
 function StationList({ visitId, units }: { visitId: string; units: ReturnType<typeof useUnits> }) {
-  const rows = useLiveQuery(
+  const rows = useFieldQuery(
     async () =>
       (await fieldDb().points.where('visitId').equals(visitId).toArray())
         .filter((p) => !p.deletedAt && p.role === 'station')

@@ -1,6 +1,6 @@
 'use client';
 
-import { useLiveQuery } from 'dexie-react-hooks';
+import { useFieldQuery } from '../../../_components/use-field-query';
 import { Card } from '@/components/ui/card';
 import { commissioningCheck, type CommissioningResult, type DesignPoint } from '@/lib/engine';
 import { fieldDb, type LocalRecord, type OutboxEntry } from '@/lib/client/db';
@@ -47,7 +47,7 @@ const LABEL: Record<Sending['state'], string> = { waiting: 'Not yet sent', sent:
  * whether it has reached the server (it waits in the outbox until the server acknowledged it).
  */
 export function RecordedChecks({ visitId, units, design }: { visitId: string; units: UnitSystem; design: DesignPoint | null }) {
-  const rows = useLiveQuery(async () => {
+  const rows = useFieldQuery(async () => {
     const db = fieldDb();
     const records = (await db.commissionings.where('visitId').equals(visitId).toArray()).sort((a, b) => b.updatedAt.localeCompare(a.updatedAt));
     return Promise.all(records.map(async (r) => ({ r, sending: sendingOf(await db.outbox.where('entityId').equals(r.id).toArray()) })));

@@ -1,0 +1,59 @@
+'use client';
+
+import { startTransition, useEffect, useRef, useState } from 'react';
+import type { FrameAnswer, FrameQuery } from '@/lib/client/frame-queries';
+
+/** What a field page reads: a shared field query by name (frame-queries.ts), or its own read of the phone's database. */
+export type FieldQuery<T> = FrameQuery | (() => T | Promise<T>);
+type Answer<Q, T> = Q extends FrameQuery ? FrameAnswer<Q> : T;
+
+/**
+ * The one way a field page reads the phone's database, live: the answer now and again after every
+ * change it read. The hook decides where the read runs. A shared field query (named) runs where the
+ * sync does (lib/client/field-host.ts: the field worker, else the page), so the frame and the home
+ * evaluate no Dexie of their own; an answer equal to the one on screen draws nothing (a sync
+ * rewrites the tables these summaries read without changing them), and a new one is drawn as a
+ * transition (React may pause it for input). A page's own read (a function) runs in the page.
+ * `initial` until the first answer, and while the query is null (nothing to read yet); an answer is
+ * kept on screen until the next one when `deps` change; a failed read is thrown to the error boundary.
+ */
+export function useFieldQuery<Q extends FrameQuery>(query: Q | null): FrameAnswer<Q> | undefined;
+export function useFieldQuery<T>(query: (() => T | Promise<T>) | null, deps?: readonly unknown[]): T | undefined;
+export function useFieldQuery<T, I>(query: (() => T | Promise<T>) | null, deps: readonly unknown[], initial: I): T | I;
+export function useFieldQuery<T, Q extends FieldQuery<T>, I>(query: Q | null, deps: readonly unknown[] = [], initial?: I): Answer<Q, T> | I | undefined {
+  const [state, setState] = useState<{ value?: Answer<Q, T>; has?: boolean; error?: unknown }>({});
+  // The JSON of the shared answer on screen: nothing at first.
+  const shown = useRef<string | undefined>(undefined);
+  const name = typeof query === 'string' ? (query as FrameQuery) : null;
+  const active = query !== null;
+  useEffect(() => {
+    if (!active) return;
+    let stop: (() => void) | undefined;
+    let cancelled = false;
+    const fail = (error: unknown) => setState({ error });
+    if (name !== null) {
+      const show = (value: unknown) => {
+        const json = JSON.stringify(value) ?? 'undefined';
+        if (json === shown.current) return;
+        shown.current = json;
+        startTransition(() => setState({ value: value as Answer<Q, T>, has: true }));
+      };
+      void import('@/lib/client/field-host').then(({ watchFieldQuery }) => {
+        if (!cancelled) stop = watchFieldQuery(name, show, fail);
+      });
+    } else {
+      const read = query as () => T | Promise<T>;
+      void import('@/lib/client/live-query').then(({ watchLocal }) => {
+        if (!cancelled) stop = watchLocal(read, (value) => setState({ value: value as Answer<Q, T>, has: true }), fail);
+      });
+    }
+    return () => {
+      cancelled = true;
+      stop?.();
+    };
+    // The read is named by `name`, or by the caller's `deps` for a function (as React's own hooks take them).
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [name, active, ...deps]);
+  if (state.error !== undefined) throw state.error;
+  return active && state.has ? state.value : initial;
+}

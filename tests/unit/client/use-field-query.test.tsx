@@ -1,0 +1,100 @@
+// useFieldQuery as the field frame uses it: shared queries answered by the field worker through
+// Comlink, drawn once for the first burst of answers; a page's own read runs in the page, live.
+// @vitest-environment happy-dom
+import * as Comlink from 'comlink';
+import { Profiler, type ReactNode } from 'react';
+import { createRoot } from 'react-dom/client';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+
+afterEach(() => {
+  vi.unstubAllGlobals();
+});
+
+/** A stand-in for `new Worker(...)` speaking Comlink over a real MessageChannel, exposing `api`. */
+function stubWorker(api: object) {
+  class FakeWorker extends EventTarget {
+    private port: MessagePort;
+    constructor() {
+      super();
+      const { port1, port2 } = new MessageChannel();
+      Comlink.expose(api, port1);
+      this.port = port2;
+      this.port.start();
+    }
+    postMessage(message: unknown, transfer: Transferable[] = []) {
+      this.port.postMessage(message, transfer);
+    }
+    override addEventListener(type: string, listener: EventListenerOrEventListenerObject, options?: AddEventListenerOptions | boolean) {
+      if (type === 'message') this.port.addEventListener(type, listener as EventListener);
+      else super.addEventListener(type, listener, options);
+    }
+    terminate() {
+      this.port.close();
+    }
+  }
+  vi.stubGlobal('Worker', FakeWorker);
+}
+
+/** Mounts `node` under a profiler; returns the page's text and how many commits React made. */
+function mount(node: ReactNode) {
+  const host = document.createElement('div');
+  document.body.append(host);
+  const root = createRoot(host);
+  let commits = 0;
+  root.render(
+    <Profiler id="frame" onRender={() => commits++}>
+      {node}
+    </Profiler>,
+  );
+  return { text: () => host.textContent ?? '', commits: () => commits, unmount: () => root.unmount() };
+}
+
+describe('useFieldQuery', () => {
+  it('draws the sync bar and the list in one commit when their answers arrive 20 ms apart', async () => {
+    vi.resetModules();
+    stubWorker({
+      watch(query: string, onValue: (value: unknown) => void) {
+        if (query === 'syncSummary') void onValue({ waiting: 2, parked: 0, photos: 0, refusedPhotos: 0, paused: false });
+        else setTimeout(() => void onValue({ synced: true, rows: [{ id: 'v1' }] }), 20);
+        return 1;
+      },
+      unwatch() {},
+    });
+    const { useFieldQuery } = await import('@/app/(field)/field/_components/use-field-query');
+    function Frame() {
+      const summary = useFieldQuery('syncSummary');
+      const list = useFieldQuery('homeVisits');
+      return (
+        <p>
+          {summary ? `${summary.waiting} waiting` : 'counting'} / {list ? `${list.rows.length} visits` : 'loading'}
+        </p>
+      );
+    }
+    const page = mount(<Frame />);
+    await vi.waitFor(() => expect(page.text()).toBe('2 waiting / 1 visits'));
+    await new Promise((resolve) => setTimeout(resolve, 100));
+    // The first draw (nothing yet), then one draw for both answers.
+    expect(page.commits()).toBe(2);
+    page.unmount();
+  });
+
+  it("runs a page's own read in the page, again after each change it read, and reads nothing while null", async () => {
+    vi.resetModules();
+    const { freshDb } = await import('./helpers');
+    const db = freshDb();
+    const { fieldDb } = await import('@/lib/client/db');
+    const { useFieldQuery } = await import('@/app/(field)/field/_components/use-field-query');
+    function Count({ on }: { on: boolean }) {
+      const n = useFieldQuery(on ? () => fieldDb().meta.count() : null, [], -1);
+      return <p>{n}</p>;
+    }
+    const off = mount(<Count on={false} />);
+    const on = mount(<Count on />);
+    await vi.waitFor(() => expect(on.text()).toBe('0'));
+    await db.meta.put({ key: 'lastSuccess', value: 'now' });
+    await vi.waitFor(() => expect(on.text()).toBe('1'));
+    expect(off.text()).toBe('-1');
+    on.unmount();
+    off.unmount();
+  });
+});
