@@ -1,7 +1,7 @@
 // A photo taken on site: its bytes, their sha-256, and where and when it was taken (EXIF GPS
 // read on the phone with exifr, falling back to the current fix).
 import type { EntityFields } from '@/lib/shared/schemas/sync';
-import { MAX_PHOTO_BYTES, PHOTO_MIME_TYPES } from '@/lib/shared/schemas/sync';
+import { MAX_PHOTO_BYTES, PHOTO_MIME_TYPES } from '@/lib/shared/reading-limits';
 
 export type PhotoIntake = { data: ArrayBuffer; fields: Omit<EntityFields<'photo'>, 'visitId' | 'pointId' | 'caption'> };
 

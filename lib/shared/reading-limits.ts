@@ -78,3 +78,7 @@ export const UNUSUAL_HEAD = 2000;
 export const NOTCH_HEAD_RANGE_M = [0.06, 0.38] as const;
 /** Trials of one measurement that differ tenfold are a slip or a changed creek (common practice, no source). */
 export const UNUSUAL_TRIAL_RATIO = 10;
+
+/** The largest photo a phone may send (bytes), and the formats it may be in. */
+export const MAX_PHOTO_BYTES = 15 * 1024 * 1024;
+export const PHOTO_MIME_TYPES = ['image/jpeg', 'image/png', 'image/webp'] as const;

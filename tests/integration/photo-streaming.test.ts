@@ -16,7 +16,7 @@ import { Photo } from '@/lib/server/db';
 import { getPhotoStorage, s3SettingsFromEnv, setPhotoStorage, uploadStagingDir, type BlobStorage } from '@/lib/server/storage';
 import { localFolderStorage } from '@/lib/server/storage/local-folder';
 import { s3Storage } from '@/lib/server/storage/s3';
-import { MAX_PHOTO_BYTES } from '@/lib/shared/schemas/sync';
+import { MAX_PHOTO_BYTES } from '@/lib/shared/reading-limits';
 import { makeOrganisation, params, request, sessionCookie, type TestUser } from './support/fixtures';
 import { presignedUrlIsValid } from './support/sigv4';
 import { expectNoPhotoStored } from './support/photos';

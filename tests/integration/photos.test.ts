@@ -6,7 +6,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { GET as getOriginal, PUT as putPhoto } from '@/app/api/photos/[id]/route';
 import { GET as getThumbnail } from '@/app/api/photos/[id]/thumbnail/route';
 import { AuditEntry, Photo } from '@/lib/server/db';
-import { MAX_PHOTO_BYTES } from '@/lib/shared/schemas/sync';
+import { MAX_PHOTO_BYTES } from '@/lib/shared/reading-limits';
 import { makeOrganisation, params, request, sessionCookie, type TestUser } from './support/fixtures';
 import { expectNoPhotoStored } from './support/photos';
 import { push, putOp } from './support/sync';

@@ -1,6 +1,6 @@
 import 'server-only';
 import { Farm, Photo, Visit, getSequelize } from '@/lib/server/db';
-import { MAX_PHOTO_BYTES } from '@/lib/shared/schemas/sync';
+import { MAX_PHOTO_BYTES } from '@/lib/shared/reading-limits';
 import { recordAudit } from '../audit';
 import { authorize, type Permission, type SessionUser } from '../auth/permissions';
 import { invalid, notFound } from '../errors';

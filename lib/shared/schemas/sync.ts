@@ -7,7 +7,17 @@ import { POINT_ROLES, type VisitStatus } from '../domain';
 import { STATION_FLAGS } from '@/lib/engine/profile-pairs';
 import { checkRunHeight, confirmedSchema, fallRunSchema, flowMeasurementSchema, LIFT_DIRECT_METHODS } from './site-readings';
 import { isoDateTime, MAX_PHOTO_SIDE_PX } from './bounds';
-import { isClassOf, MAX_DEMAND_COUNT, MAX_LIFT_M, MAX_LITRES_PER_HEAD, MAX_PIPE_BORE_MM, MAX_PIPE_LENGTH_M, PRESSURE_CLASS_IDS } from '../reading-limits';
+import {
+  isClassOf,
+  MAX_DEMAND_COUNT,
+  MAX_LIFT_M,
+  MAX_LITRES_PER_HEAD,
+  MAX_PIPE_BORE_MM,
+  MAX_PIPE_LENGTH_M,
+  PRESSURE_CLASS_IDS,
+  MAX_PHOTO_BYTES,
+  PHOTO_MIME_TYPES,
+} from '../reading-limits';
 
 // A UUID names the same thing in either case: kept in lower case, so an upper-cased copy of an op
 // id is a replay and an upper-cased record id the same record.
@@ -23,8 +33,6 @@ const keys = <K extends string>(record: Readonly<Record<K, unknown>>) => Object.
 export const MAX_OPS_PER_PUSH = 200;
 /** A push body larger than this is refused (413) before it is parsed: 200 full ops fit well inside. */
 export const MAX_PUSH_BYTES = 8 * 1024 * 1024;
-export const MAX_PHOTO_BYTES = 15 * 1024 * 1024;
-export const PHOTO_MIME_TYPES = ['image/jpeg', 'image/png', 'image/webp'] as const;
 
 /** A lift entered as one figure (e.g. read off a level run done another day). */
 const directLiftRun = z.object({
