@@ -45,6 +45,17 @@ function sqlDate(d: Date): string {
   return text;
 }
 
+/**
+ * A cell the database computes: `sql` stands in for the column's placeholder and takes `values`.
+ * Every row of one statement must give the column the same `sql` (one prepared statement).
+ */
+export class Computed {
+  constructor(
+    readonly sql: string,
+    readonly values: unknown[],
+  ) {}
+}
+
 function cell(column: Column, value: unknown): unknown {
   if (value === undefined || value === null) return null;
   if (column.json) return JSON.stringify(value);
@@ -149,11 +160,20 @@ export async function batchInsert(
   if (rows.length === 0) return;
   const columns = columnsOf(model).filter((c) => rows.some((r) => r[c.attribute] !== undefined));
   const updates = columns.filter((c) => updateOnDuplicate.includes(c.attribute));
+  // A computed column's SQL, from the first row (checked against every row below).
+  const computed = columns.map((c) => (rows[0]?.[c.attribute] instanceof Computed ? (rows[0][c.attribute] as Computed).sql : null));
   const sql =
-    `INSERT INTO ${quote(model.getTableName() as string)} (${columns.map((c) => quote(c.field)).join(', ')}) VALUES (${columns.map(() => '?').join(', ')})` +
+    `INSERT INTO ${quote(model.getTableName() as string)} (${columns.map((c) => quote(c.field)).join(', ')}) VALUES (${computed.map((c) => c ?? '?').join(', ')})` +
     (updates.length ? ` ON DUPLICATE KEY UPDATE ${updates.map((c) => `${quote(c.field)} = VALUES(${quote(c.field)})`).join(', ')}` : '');
   await txConnection(transaction).batch(
     sql,
-    rows.map((r) => columns.map((c) => cell(c, r[c.attribute]))),
+    rows.map((r) =>
+      columns.flatMap((c, i) => {
+        const value = r[c.attribute];
+        if (computed[i] === null) return [cell(c, value)];
+        if (!(value instanceof Computed) || value.sql !== computed[i]) throw new Error(`${c.attribute}: every row must compute it alike`);
+        return value.values;
+      }),
+    ),
   );
 }

@@ -1,7 +1,7 @@
 import { FIELD_VISIT_STATUSES } from '@/lib/shared/domain';
 import { type Model, type ModelStatic, type Sequelize, type Transaction } from 'sequelize';
 import { AuditEntry } from './audit-entry';
-import { batchInsert, observeStatements, txConnection, withConnection } from './batch-insert';
+import { batchInsert, Computed, observeStatements, txConnection, withConnection } from './batch-insert';
 import { buildRow, PlainRow, selectRows } from './plain-rows';
 import { Commissioning } from './commissioning';
 import { DemandLine } from './demand-line';
@@ -43,7 +43,7 @@ export {
   WaterSource,
 };
 export { Commissioning, EndedSession, FarmNeed, SheetResponse, SheetSend };
-export { batchInsert, buildRow, observeStatements, PlainRow, selectRows, txConnection, withConnection };
+export { batchInsert, buildRow, Computed, observeStatements, PlainRow, selectRows, txConnection, withConnection };
 export type { TxConnection } from './batch-insert';
 export type { OrganisationSettings } from './organisation';
 
@@ -105,6 +105,64 @@ async function takeRevs(transaction: Transaction, count: number): Promise<number
   return top;
 }
 
+/**
+ * A block of revisions whose numbers the database fills in: its statement goes out at once and is
+ * not awaited, and the rows written after it on the same connection compute their revision from it
+ * (`take()` gives a computed cell). The transaction then holds the counter's lock only while the
+ * database runs the statements sent together, not across round trips to the app. `revOf` gives a
+ * taken cell's number once `top` has settled.
+ */
+export interface PendingRevBlock {
+  count: number;
+  top: Promise<number>;
+  take(): Computed;
+  revOf(cell: Computed): number;
+}
+
+const pendingMarks = new WeakMap<Transaction, WeakMap<Computed, number>>();
+// Session variable the counter's statement sets and later statements on the connection read.
+const REV_FROM_TOP = '@fallbook_rev_top - ?';
+
+/** Reserves `count` revisions like reserveRevs, without waiting for their numbers (PendingRevBlock). */
+export function reservePendingRevs(transaction: Transaction, count: number): PendingRevBlock {
+  if (!Number.isInteger(count) || count < 1) throw new Error(`reservePendingRevs needs a positive count, not ${count}`);
+  const top = txConnection(transaction)
+    .query<{ insertId?: number | bigint }>('UPDATE rev_counter SET value = LAST_INSERT_ID(@fallbook_rev_top := value + ?) WHERE id = 1', [count])
+    .then((ok) => {
+      const last = Number(ok.insertId);
+      if (!Number.isSafeInteger(last) || last < count) throw new Error(`rev_counter answered ${String(ok.insertId)}`);
+      const blocks = reserved.get(transaction) ?? [];
+      blocks.push([last - count + 1, last]);
+      reserved.set(transaction, blocks);
+      return last;
+    });
+  top.catch(() => undefined); // awaited by the caller with its writes
+  const marks = pendingMarks.get(transaction) ?? new WeakMap<Computed, number>();
+  pendingMarks.set(transaction, marks);
+  let taken = 0;
+  let settled: number | null = null;
+  void top.then(
+    (last) => (settled = last),
+    () => undefined,
+  );
+  return {
+    count,
+    top,
+    take() {
+      if (taken >= count) throw new Error('revision block used up');
+      taken++;
+      const cell = new Computed(REV_FROM_TOP, [count - taken]);
+      marks.set(cell, count - taken);
+      return cell;
+    },
+    revOf(cell) {
+      const back = marks.get(cell);
+      if (back === undefined || settled === null) throw new Error('not a settled revision of this block');
+      return settled - back;
+    },
+  };
+}
+
 /** A model instance or a plain row: what the bulk writer reads values from. */
 type RowValues = { get(key: string): unknown; get(options: { plain: true }): unknown };
 
@@ -122,8 +180,12 @@ export async function writeSyncedRows(
 ): Promise<void> {
   if (!syncedModels.includes(model as never)) throw new Error(`${model.name} is not a synced model`);
   const blocks = reserved.get(transaction) ?? [];
+  const marks = pendingMarks.get(transaction);
   for (const row of [...rows.created, ...rows.updated]) {
-    const rev = Number(row.get('rev'));
+    const given = row.get('rev');
+    // A revision the database computes from a block this transaction reserved (reservePendingRevs).
+    if (given instanceof Computed && marks?.has(given)) continue;
+    const rev = Number(given);
     if (!blocks.some(([first, last]) => rev >= first && rev <= last)) {
       throw new Error(`${model.name} ${String(row.get('id'))}: rev ${rev} was not reserved by this transaction`);
     }

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
-import { Farm, nextRev, reserveRevs, txConnection, writeSyncedRows, getSequelize } from '@/lib/server/db';
+import { Computed, Farm, nextRev, PlainRow, reservePendingRevs, reserveRevs, txConnection, writeSyncedRows, getSequelize } from '@/lib/server/db';
 import { makeOrganisation } from './support/fixtures';
 
 describe('server revisions of synced records', () => {
@@ -103,5 +103,32 @@ describe('server revisions of synced records', () => {
       return row;
     });
     expect((await Farm.findByPk(written.id, { rejectOnEmpty: true })).rev).toBe(written.rev);
+  });
+
+  it('a pending block numbers its rows in the database, in order, and refuses a computed revision it did not give', async () => {
+    const org = await makeOrganisation('rev-pending');
+    const sequelize = getSequelize();
+    const plain = (rev: unknown) =>
+      new PlainRow({ id: randomUUID(), organisationId: org.organisationId, ownerId: null, name: 'pending', area: '', lat: null, lon: null, notes: '', rev });
+    const { rows, numbers, top, after } = await sequelize.transaction(async (transaction) => {
+      const block = reservePendingRevs(transaction, 3);
+      const cells = [block.take(), block.take(), block.take()];
+      const rows = cells.map((cell) => plain(cell));
+      // Written without waiting for the block's number: the database computes each revision.
+      await Promise.all([writeSyncedRows(Farm, { created: rows, updated: [] }, [], transaction), block.top]);
+      const numbers = cells.map((cell) => block.revOf(cell));
+      const after = await nextRev(transaction);
+      return { rows, numbers, top: await block.top, after };
+    });
+    expect(numbers).toEqual([top - 2, top - 1, top]);
+    const stored = await Promise.all(rows.map(async (row) => (await Farm.findByPk(row.id, { rejectOnEmpty: true })).rev));
+    expect(stored).toEqual(numbers);
+    expect(after).toBe(top + 1);
+    await expect(
+      sequelize.transaction(async (transaction) => {
+        reservePendingRevs(transaction, 1);
+        await writeSyncedRows(Farm, { created: [plain(new Computed('@fallbook_rev_top - ?', [0]))], updated: [] }, [], transaction);
+      }),
+    ).rejects.toThrow(/not reserved/);
   });
 });

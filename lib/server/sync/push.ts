@@ -1,6 +1,18 @@
 import 'server-only';
 import { Op, Transaction, UniqueConstraintError } from 'sequelize';
-import { SyncOp as SyncOpRow, Visit, batchInsert, getSequelize, reserveRevs, selectRows, txConnection, writeSyncedRows, type PlainRow } from '@/lib/server/db';
+import {
+  Computed,
+  SyncOp as SyncOpRow,
+  Visit,
+  batchInsert,
+  getSequelize,
+  reservePendingRevs,
+  selectRows,
+  txConnection,
+  writeSyncedRows,
+  type PendingRevBlock,
+  type PlainRow,
+} from '@/lib/server/db';
 import type { OpResult, SyncEntity, SyncOp } from '@/lib/shared/schemas/sync';
 import { recordAudit, recordAudits } from '../audit';
 import { SCREENING_INPUTS } from '../data/site-readings';
@@ -82,19 +94,22 @@ async function loadRows(ops: SyncOp[], transaction: Transaction): Promise<Map<st
 /**
  * Writes what the plans applied: a block of revisions (one per writing op, in op order, so each
  * result carries its own), visits saved through the model (their hooks), every other table in bulk,
- * then the applied ops' outcomes.
+ * then the applied ops' outcomes. The block's numbers are computed by the database (a pending
+ * block): its statement, the rows and the outcomes go out together, so the counter's lock is held
+ * while the database runs them, not across a round trip to this process (pushes queue on that lock).
  */
 async function writePlans(plans: OpPlan[], ops: SyncOp[], fresh: Set<string>, userId: string, transaction: Transaction) {
   const writing = plans.filter((p) => p.writes && p.state && p.state.spec !== ENTITY_SPECS.visit).length;
-  const block = writing > 0 ? await reserveRevs(transaction, writing) : null;
+  const block = writing > 0 ? reservePendingRevs(transaction, writing) : null;
+  // A revision as the loop knows it: a number, or a cell of the pending block (numbered at the end).
+  type Rev = number | Computed;
+  const revOf = (rev: unknown): Rev => (rev instanceof Computed ? rev : Number(rev));
+  const resultRevs = new Map<OpPlan, Rev>();
   const states = new Set<RowState>();
   for (const plan of plans) {
     const { conflict } = plan.result;
-    if (plan.conflictOn && conflict) {
-      // The revision the row had when this op met it (given out earlier in this loop).
-      const rev = Number(plan.conflictOn.row.rev);
-      plan.result = { ...plan.result, rev, conflict: { ...conflict, server: conflict.server ? { ...conflict.server, rev } : null } };
-    }
+    // The revision the row had when this op met it (given out earlier in this loop).
+    if (plan.conflictOn && conflict) resultRevs.set(plan, revOf(plan.conflictOn.row.get('rev')));
     if (plan.result.status !== 'applied' || !plan.state) continue;
     const { state } = plan;
     if (plan.writes && state.spec === ENTITY_SPECS.visit) await (state.row as unknown as Visit).save({ transaction });
@@ -102,7 +117,7 @@ async function writePlans(plans: OpPlan[], ops: SyncOp[], fresh: Set<string>, us
       state.row.set('rev', block.take());
       states.add(state);
     }
-    plan.result = { ...plan.result, rev: Number(state.row.rev) };
+    resultRevs.set(plan, revOf(state.row.get('rev')));
   }
   const bySpec = new Map<EntitySpec, RowState[]>();
   for (const state of states) bySpec.set(state.spec, [...(bySpec.get(state.spec) ?? []), state]);
@@ -112,23 +127,51 @@ async function writePlans(plans: OpPlan[], ops: SyncOp[], fresh: Set<string>, us
     return writeSyncedRows(spec.model, { created: rowsOf(true), updated: rowsOf(false) }, fields, transaction);
   });
 
-  // The first applied op of an id stores the outcome; ops that did not apply leave no row.
-  const outcomes = new Map<string, [SyncOp, OpResult]>();
+  // The first applied op of an id stores the outcome; ops that did not apply leave no row. Its
+  // revision goes into the stored JSON as the database computes it.
+  const outcomes = new Map<string, { op: SyncOp; plan: OpPlan }>();
   plans.forEach((plan, i) => {
     const op = ops[i];
-    if (op && fresh.has(op.opId) && plan.result.status === 'applied' && !outcomes.has(op.opId)) outcomes.set(op.opId, [op, plan.result]);
+    if (op && fresh.has(op.opId) && plan.result.status === 'applied' && !outcomes.has(op.opId)) outcomes.set(op.opId, { op, plan });
   });
+  const storedOutcome = (plan: OpPlan) => {
+    const rev = resultRevs.get(plan) ?? plan.result.rev;
+    const back = rev instanceof Computed ? rev.values[0] : null;
+    return new Computed(STORED_OUTCOME, [JSON.stringify({ ...plan.result, rev: null }), back, rev instanceof Computed ? null : rev]);
+  };
   const createdAt = new Date();
   // Sent together on the transaction's connection: the database works through them back to back.
   await Promise.all([
     ...writes,
     batchInsert(
       SyncOpRow,
-      [...outcomes.values()].map(([op, outcome]) => ({ opId: op.opId, userId, entity: op.entity, entityId: op.entityId, outcome, createdAt })),
+      [...outcomes.values()].map(({ op, plan }) => ({
+        opId: op.opId,
+        userId,
+        entity: op.entity,
+        entityId: op.entityId,
+        outcome: storedOutcome(plan),
+        createdAt,
+      })),
       transaction,
     ),
+    block?.top,
   ]);
+  // Every revision is known now: rows and results take their numbers.
+  const numbered = (rev: Rev) => (rev instanceof Computed ? (block as PendingRevBlock).revOf(rev) : rev);
+  for (const state of states) state.row.set('rev', numbered(revOf(state.row.get('rev'))));
+  for (const [plan, rev] of resultRevs) {
+    const n = numbered(rev);
+    const { conflict } = plan.result;
+    plan.result =
+      plan.conflictOn && conflict
+        ? { ...plan.result, rev: n, conflict: { ...conflict, server: conflict.server ? { ...conflict.server, rev: n } : null } }
+        : { ...plan.result, rev: n };
+  }
 }
+
+// The stored outcome (JSON) with its revision: the pending block's, computed (see writePlans), or a known one.
+const STORED_OUTCOME = "JSON_SET(?, '$.rev', CAST(IFNULL(@fallbook_rev_top - ?, ?) AS SIGNED))";
 
 // Thrown inside a commissioning op's savepoint so a refusal changes nothing.
 class Undo extends Error {
