@@ -1,7 +1,7 @@
 // The field host: the worker's API runs the real loop and answers the shared field queries; the
 // page reaches it through Comlink, and does the same work itself when there is no worker or it dies.
-import * as Comlink from 'comlink';
 import { afterEach, describe, expect, it, vi } from 'vitest';
+import { stubWorker } from './fake-worker';
 
 afterEach(() => {
   vi.unstubAllGlobals();
@@ -32,42 +32,17 @@ async function load() {
   };
 }
 
-/**
- * A stand-in for `new Worker(...)`: a real Comlink endpoint (a MessageChannel) exposing `api`, made
- * for each worker started; `api` may make the worker fail (the error event of a crash).
- */
-function stubWorker(makeApi: (fail: () => void) => object) {
-  const started: string[] = [];
-  class FakeWorker extends EventTarget {
-    private port: MessagePort;
-    constructor(url: URL) {
-      super();
-      started.push(url.pathname);
-      const { port1, port2 } = new MessageChannel();
-      Comlink.expose(
-        makeApi(() => this.dispatchEvent(new Event('error'))),
-        port1,
-      );
-      this.port = port2;
-      this.port.start();
-    }
-    postMessage(message: unknown, transfer: Transferable[] = []) {
-      this.port.postMessage(message, transfer);
-    }
-    override addEventListener(type: string, listener: EventListenerOrEventListenerObject, options?: AddEventListenerOptions | boolean) {
-      if (type === 'message') this.port.addEventListener(type, listener as EventListener);
-      else super.addEventListener(type, listener, options);
-    }
-    override removeEventListener(type: string, listener: EventListenerOrEventListenerObject) {
-      if (type === 'message') this.port.removeEventListener(type, listener as EventListener);
-      else super.removeEventListener(type, listener);
-    }
-    terminate() {
-      this.port.close();
-    }
-  }
-  vi.stubGlobal('Worker', FakeWorker);
-  return started;
+/** Watches the sync bar's count of changes waiting; every answer is kept in `seen`. */
+function watchWaiting(watchFieldQuery: typeof import('@/lib/client/field-host').watchFieldQuery) {
+  const seen: number[] = [];
+  const stop = watchFieldQuery(
+    'syncSummary',
+    (value) => seen.push(value.waiting),
+    (error) => {
+      throw error;
+    },
+  );
+  return { seen, stop };
 }
 
 describe("the field worker's API", () => {
@@ -135,14 +110,7 @@ describe("the page's side (field-host)", () => {
     const api = await workerApi();
     stubWorker(() => api);
     const { watchFieldQuery } = await host();
-    const seen: number[] = [];
-    const stop = watchFieldQuery(
-      'syncSummary',
-      (value) => seen.push(value.waiting),
-      (error) => {
-        throw error;
-      },
-    );
+    const { seen, stop } = watchWaiting(watchFieldQuery);
     await vi.waitFor(() => expect(seen).toEqual([0]));
     await source(8);
     await vi.waitFor(() => expect(seen).toEqual([0, 1]));
@@ -186,14 +154,7 @@ describe("the page's side (field-host)", () => {
     vi.stubGlobal('Worker', undefined);
     await source(7);
     const { watchFieldQuery } = await host();
-    const seen: number[] = [];
-    const stop = watchFieldQuery(
-      'syncSummary',
-      (value) => seen.push(value.waiting),
-      (error) => {
-        throw error;
-      },
-    );
+    const { seen, stop } = watchWaiting(watchFieldQuery);
     await vi.waitFor(() => expect(seen).toEqual([1]));
     stop();
   });

@@ -1,39 +1,14 @@
 // useFieldQuery as the field frame uses it: shared queries answered by the field worker through
 // Comlink, drawn once for the first burst of answers; a page's own read runs in the page, live.
 // @vitest-environment happy-dom
-import * as Comlink from 'comlink';
 import { Profiler, type ReactNode } from 'react';
 import { createRoot } from 'react-dom/client';
 import { afterEach, describe, expect, it, vi } from 'vitest';
+import { stubWorker } from './fake-worker';
 
 afterEach(() => {
   vi.unstubAllGlobals();
 });
-
-/** A stand-in for `new Worker(...)` speaking Comlink over a real MessageChannel, exposing `api`. */
-function stubWorker(api: object) {
-  class FakeWorker extends EventTarget {
-    private port: MessagePort;
-    constructor() {
-      super();
-      const { port1, port2 } = new MessageChannel();
-      Comlink.expose(api, port1);
-      this.port = port2;
-      this.port.start();
-    }
-    postMessage(message: unknown, transfer: Transferable[] = []) {
-      this.port.postMessage(message, transfer);
-    }
-    override addEventListener(type: string, listener: EventListenerOrEventListenerObject, options?: AddEventListenerOptions | boolean) {
-      if (type === 'message') this.port.addEventListener(type, listener as EventListener);
-      else super.addEventListener(type, listener, options);
-    }
-    terminate() {
-      this.port.close();
-    }
-  }
-  vi.stubGlobal('Worker', FakeWorker);
-}
 
 /** Mounts `node` under a profiler; returns the page's text and how many commits React made. */
 function mount(node: ReactNode) {
@@ -52,14 +27,14 @@ function mount(node: ReactNode) {
 describe('useFieldQuery', () => {
   it('draws the sync bar and the list in one commit when their answers arrive 20 ms apart', async () => {
     vi.resetModules();
-    stubWorker({
+    stubWorker(() => ({
       watch(query: string, onValue: (value: unknown) => void) {
         if (query === 'syncSummary') void onValue({ waiting: 2, parked: 0, photos: 0, refusedPhotos: 0, paused: false });
         else setTimeout(() => void onValue({ synced: true, rows: [{ id: 'v1' }] }), 20);
         return 1;
       },
       unwatch() {},
-    });
+    }));
     const { useFieldQuery } = await import('@/app/(field)/field/_components/use-field-query');
     function Frame() {
       const summary = useFieldQuery('syncSummary');
