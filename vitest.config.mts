@@ -10,7 +10,8 @@ export default defineConfig({
     projects: [
       {
         extends: true,
-        test: { name: 'unit', include: ['tests/unit/**/*.test.{ts,tsx}'], setupFiles: ['tests/unit/setup.ts'] },
+        // React's development build (act, the Profiler): npm test runs with the production profile's NODE_ENV.
+        test: { name: 'unit', include: ['tests/unit/**/*.test.{ts,tsx}'], setupFiles: ['tests/unit/setup.ts'], env: { NODE_ENV: 'test' } },
       },
       {
         extends: true,
