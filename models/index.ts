@@ -78,9 +78,6 @@ export async function reserveRevs(transaction: Transaction | null | undefined, c
   // no ordering of their own (the connection runs them in the order sent).
   const last = await takeRevs(transaction, count);
   const first = last - count + 1;
-  const blocks = reserved.get(transaction) ?? [];
-  blocks.push([first, last]);
-  reserved.set(transaction, blocks);
   let cursor = first;
   return {
     first,
@@ -94,71 +91,75 @@ export async function reserveRevs(transaction: Transaction | null | undefined, c
 
 const reserved = new WeakMap<Transaction, [number, number][]>();
 
+/** The session variable the counter's statement leaves the block's last revision in (reservePendingRevs). */
+export const PENDING_TOP = '@fallbook_rev_top';
+
 // The statement's own answer carries the value LAST_INSERT_ID(expr) set (the OK packet's insert
-// id, as mysql_insert_id() reports it): one round trip under the lock instead of two.
+// id, as mysql_insert_id() reports it): one round trip under the lock instead of two. It also
+// leaves that value in PENDING_TOP for statements sent after it on the connection. The block is
+// recorded for writeSyncedRows's check.
 async function takeRevs(transaction: Transaction, count: number): Promise<number> {
-  const ok = await txConnection(transaction).query<{ insertId?: number | bigint }>('UPDATE rev_counter SET value = LAST_INSERT_ID(value + ?) WHERE id = 1', [
-    count,
-  ]);
-  const top = Number(ok.insertId);
-  if (!Number.isSafeInteger(top) || top < count) throw new Error(`rev_counter answered ${String(ok.insertId)}`);
-  return top;
+  const ok = await txConnection(transaction).query<{ insertId?: number | bigint }>(
+    `UPDATE rev_counter SET value = LAST_INSERT_ID(${PENDING_TOP} := value + ?) WHERE id = 1`,
+    [count],
+  );
+  const last = Number(ok.insertId);
+  if (!Number.isSafeInteger(last) || last < count) throw new Error(`rev_counter answered ${String(ok.insertId)}`);
+  const blocks = reserved.get(transaction) ?? [];
+  blocks.push([last - count + 1, last]);
+  reserved.set(transaction, blocks);
+  return last;
 }
 
 /**
  * A block of revisions whose numbers the database fills in: its statement goes out at once and is
  * not awaited, and the rows written after it on the same connection compute their revision from it
- * (`take()` gives a computed cell). The transaction then holds the counter's lock only while the
- * database runs the statements sent together, not across round trips to the app. `revOf` gives a
- * taken cell's number once `top` has settled.
+ * (`take()` gives a computed cell: PENDING_TOP minus the cell's offset). The transaction then holds
+ * the counter's lock only while the database runs the statements sent together, not across round
+ * trips to the app. `revOf` gives a taken cell's number once `top` has settled.
  */
 export interface PendingRevBlock {
   count: number;
   top: Promise<number>;
   take(): Computed;
+  /** How far below the block's last revision a taken cell's is. */
+  offsetOf(cell: Computed): number;
   revOf(cell: Computed): number;
 }
 
-const pendingMarks = new WeakMap<Transaction, WeakMap<Computed, number>>();
-// Session variable the counter's statement sets and later statements on the connection read.
-const REV_FROM_TOP = '@fallbook_rev_top - ?';
+const pendingCells = new WeakMap<Transaction, WeakSet<Computed>>();
 
 /** Reserves `count` revisions like reserveRevs, without waiting for their numbers (PendingRevBlock). */
 export function reservePendingRevs(transaction: Transaction, count: number): PendingRevBlock {
   if (!Number.isInteger(count) || count < 1) throw new Error(`reservePendingRevs needs a positive count, not ${count}`);
-  const top = txConnection(transaction)
-    .query<{ insertId?: number | bigint }>('UPDATE rev_counter SET value = LAST_INSERT_ID(@fallbook_rev_top := value + ?) WHERE id = 1', [count])
-    .then((ok) => {
-      const last = Number(ok.insertId);
-      if (!Number.isSafeInteger(last) || last < count) throw new Error(`rev_counter answered ${String(ok.insertId)}`);
-      const blocks = reserved.get(transaction) ?? [];
-      blocks.push([last - count + 1, last]);
-      reserved.set(transaction, blocks);
-      return last;
-    });
-  top.catch(() => undefined); // awaited by the caller with its writes
-  const marks = pendingMarks.get(transaction) ?? new WeakMap<Computed, number>();
-  pendingMarks.set(transaction, marks);
-  let taken = 0;
+  const top = takeRevs(transaction, count);
   let settled: number | null = null;
+  // Also marks a failure as handled: the caller awaits `top` with its writes.
   void top.then(
     (last) => (settled = last),
     () => undefined,
   );
+  const cells = pendingCells.get(transaction) ?? new WeakSet<Computed>();
+  pendingCells.set(transaction, cells);
+  let taken = 0;
+  const offsetOf = (cell: Computed) => {
+    if (!cells.has(cell)) throw new Error('not a revision of this transaction');
+    return cell.values[0] as number;
+  };
   return {
     count,
     top,
     take() {
       if (taken >= count) throw new Error('revision block used up');
       taken++;
-      const cell = new Computed(REV_FROM_TOP, [count - taken]);
-      marks.set(cell, count - taken);
+      const cell = new Computed(`${PENDING_TOP} - ?`, [count - taken]);
+      cells.add(cell);
       return cell;
     },
+    offsetOf,
     revOf(cell) {
-      const back = marks.get(cell);
-      if (back === undefined || settled === null) throw new Error('not a settled revision of this block');
-      return settled - back;
+      if (settled === null) throw new Error('the block has no numbers yet');
+      return settled - offsetOf(cell);
     },
   };
 }
@@ -180,11 +181,11 @@ export async function writeSyncedRows(
 ): Promise<void> {
   if (!syncedModels.includes(model as never)) throw new Error(`${model.name} is not a synced model`);
   const blocks = reserved.get(transaction) ?? [];
-  const marks = pendingMarks.get(transaction);
+  const cells = pendingCells.get(transaction);
   for (const row of [...rows.created, ...rows.updated]) {
     const given = row.get('rev');
     // A revision the database computes from a block this transaction reserved (reservePendingRevs).
-    if (given instanceof Computed && marks?.has(given)) continue;
+    if (given instanceof Computed && cells?.has(given)) continue;
     const rev = Number(given);
     if (!blocks.some(([first, last]) => rev >= first && rev <= last)) {
       throw new Error(`${model.name} ${String(row.get('id'))}: rev ${rev} was not reserved by this transaction`);

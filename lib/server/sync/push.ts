@@ -10,6 +10,7 @@ import {
   selectRows,
   txConnection,
   writeSyncedRows,
+  PENDING_TOP,
   type PendingRevBlock,
   type PlainRow,
 } from '@/lib/server/db';
@@ -136,8 +137,8 @@ async function writePlans(plans: OpPlan[], ops: SyncOp[], fresh: Set<string>, us
   });
   const storedOutcome = (plan: OpPlan) => {
     const rev = resultRevs.get(plan) ?? plan.result.rev;
-    const back = rev instanceof Computed ? rev.values[0] : null;
-    return new Computed(STORED_OUTCOME, [JSON.stringify({ ...plan.result, rev: null }), back, rev instanceof Computed ? null : rev]);
+    const offset = rev instanceof Computed ? (block as PendingRevBlock).offsetOf(rev) : null;
+    return new Computed(STORED_OUTCOME, [JSON.stringify({ ...plan.result, rev: null }), offset, rev instanceof Computed ? null : rev]);
   };
   const createdAt = new Date();
   // Sent together on the transaction's connection: the database works through them back to back.
@@ -171,7 +172,7 @@ async function writePlans(plans: OpPlan[], ops: SyncOp[], fresh: Set<string>, us
 }
 
 // The stored outcome (JSON) with its revision: the pending block's, computed (see writePlans), or a known one.
-const STORED_OUTCOME = "JSON_SET(?, '$.rev', CAST(IFNULL(@fallbook_rev_top - ?, ?) AS SIGNED))";
+const STORED_OUTCOME = `JSON_SET(?, '$.rev', CAST(IFNULL(${PENDING_TOP} - ?, ?) AS SIGNED))`;
 
 // Thrown inside a commissioning op's savepoint so a refusal changes nothing.
 class Undo extends Error {
