@@ -1,17 +1,23 @@
 // One date style for pages, e-mail and the phone: the day with its weekday and year ("Wed, 9 Sept 2026"),
 // a moment with its time zone ("Wed, 9 Sept 2026, 14:05 UTC"), a clock for "last synced". Each Intl
-// formatter is built once and kept: building one loads locale data.
+// formatter is built on its first use and kept: building one loads locale data, which costs a phone
+// tens of milliseconds, so a page that shows no date builds none.
 import type { UnitSystem } from '../domain';
+
+function once<T>(build: () => T): () => T {
+  let made: T | undefined;
+  return () => (made ??= build());
+}
 
 // Planned days are calendar days with no zone ("2026-09-09"): read and shown in UTC, so no reader's
 // zone moves them to the day before.
-const DAY = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
+const DAY = once(() => new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }));
 // Moments read in more than one place (the office, e-mail, the farmer) say their zone: UTC for everyone.
-const UTC_TIME = new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit', hourCycle: 'h23', timeZone: 'UTC' });
+const UTC_TIME = once(() => new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit', hourCycle: 'h23', timeZone: 'UTC' }));
 // A clock on the person's own phone, in the phone's zone.
-const CLOCK: Record<UnitSystem, Intl.DateTimeFormat> = {
-  metric: new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit', hourCycle: 'h23' }),
-  us: new Intl.DateTimeFormat('en-US', { hour: 'numeric', minute: '2-digit', hour12: true }),
+const CLOCK: Record<UnitSystem, () => Intl.DateTimeFormat> = {
+  metric: once(() => new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit', hourCycle: 'h23' })),
+  us: once(() => new Intl.DateTimeFormat('en-US', { hour: 'numeric', minute: '2-digit', hour12: true })),
 };
 
 function toDate(at: Date | string): Date | null {
@@ -23,20 +29,22 @@ function toDate(at: Date | string): Date | null {
 export function formatDay(isoDay: string | null | undefined): string {
   if (!isoDay) return '—';
   const date = toDate(`${isoDay.slice(0, 10)}T00:00:00Z`);
-  return date ? DAY.format(date) : '—';
+  return date ? DAY().format(date) : '—';
 }
 
 /** "Tue, 8 Dec 2026, 14:05 UTC": a moment, in one time zone for every reader. */
 export function formatDateTime(at: Date | string | null | undefined): string {
   if (!at) return '—';
   const date = toDate(at);
-  return date ? `${DAY.format(date)}, ${UTC_TIME.format(date)} UTC` : '—';
+  return date ? `${DAY().format(date)}, ${UTC_TIME().format(date)} UTC` : '—';
 }
 
 /** A time of day on this device's clock: "14:05" (metric users) or "2:05 PM" (US customary users). */
 export function formatClock(date: Date, units: UnitSystem): string {
   // ICU puts a narrow no-break space before AM/PM; a plain space reads the same and searches simply.
-  return CLOCK[units].format(date).replace(/\u202f/g, ' ');
+  return CLOCK[units]()
+    .format(date)
+    .replace(/\u202f/g, ' ');
 }
 
 /** A calendar day as stored and exported (ISO 8601, "2026-12-08"), for files and machines. */

@@ -72,4 +72,35 @@ describe('useFieldQuery', () => {
     on.unmount();
     off.unmount();
   });
+
+  it("draws a page's own read again only when its answer changed: a rewrite of the same rows draws nothing, a new photo always draws", async () => {
+    vi.resetModules();
+    const { freshDb } = await import('./helpers');
+    const db = freshDb();
+    const { fieldDb } = await import('@/lib/client/db');
+    const { useFieldQuery } = await import('@/app/(field)/field/_components/use-field-query');
+    await db.meta.put({ key: 'lastSuccess', value: 'then' });
+    function Meta() {
+      const rows = useFieldQuery(() => fieldDb().meta.toArray(), []);
+      return <p>{rows ? rows.map((r) => `${r.key}=${r.value instanceof Blob ? `blob ${r.value.size}` : String(r.value)}`).join(',') : 'reading'}</p>;
+    }
+    const page = mount(<Meta />);
+    await vi.waitFor(() => expect(page.text()).toBe('lastSuccess=then'));
+    const settled = page.commits();
+    // The sync writes the same row back, twice: the read runs again and finds nothing new.
+    await db.meta.put({ key: 'lastSuccess', value: 'then' });
+    await db.meta.put({ key: 'lastSuccess', value: 'then' });
+    await new Promise((resolve) => setTimeout(resolve, 100));
+    expect(page.commits()).toBe(settled);
+    await db.meta.put({ key: 'lastSuccess', value: 'now' });
+    await vi.waitFor(() => expect(page.text()).toBe('lastSuccess=now'));
+    expect(page.commits()).toBe(settled + 1);
+    // Bytes JSON cannot show are never taken for the same answer.
+    await db.meta.put({ key: 'photo', value: new Blob(['ab']) as never });
+    await vi.waitFor(() => expect(page.text()).toContain('photo=blob'));
+    const withPhoto = page.commits();
+    await db.meta.put({ key: 'photo', value: new Blob(['ab']) as never });
+    await vi.waitFor(() => expect(page.commits()).toBe(withPhoto + 1));
+    page.unmount();
+  });
 });

@@ -7,13 +7,34 @@ import type { FrameAnswer, FrameQuery } from '@/lib/client/frame-queries';
 export type FieldQuery<T> = FrameQuery | (() => T | Promise<T>);
 type Answer<Q, T> = Q extends FrameQuery ? FrameAnswer<Q> : T;
 
+// Objects whose contents JSON cannot show (a photo's bytes) get a token of their own, so that two
+// answers holding them are never taken for equal unless they hold the very same objects.
+const opaque = new WeakMap<object, number>();
+let lastToken = 0;
+
+function answerKey(value: unknown): string {
+  return (
+    JSON.stringify(value, (_key, v: unknown) => {
+      if (v instanceof Map) return { map: [...v] };
+      if (v instanceof Set) return { set: [...v] };
+      if (v instanceof Blob || v instanceof ArrayBuffer || ArrayBuffer.isView(v)) {
+        let token = opaque.get(v);
+        if (token === undefined) opaque.set(v, (token = ++lastToken));
+        return { opaque: token };
+      }
+      return v;
+    }) ?? 'undefined'
+  );
+}
+
 /**
  * The one way a field page reads the phone's database, live: the answer now and again after every
  * change it read. The hook decides where the read runs. A shared field query (named) runs where the
  * sync does (lib/client/field-host.ts: the field worker, else the page), so the frame and the home
- * evaluate no Dexie of their own; an answer equal to the one on screen draws nothing (a sync
- * rewrites the tables these summaries read without changing them), and a new one is drawn as a
- * transition (React may pause it for input). A page's own read (a function) runs in the page.
+ * evaluate no Dexie of their own; a page's own read (a function) runs in the page. Either way an
+ * answer equal to the one on screen draws nothing (a sync rewrites the tables pages read, mostly
+ * without changing them: on a phone's first sync every batch would redraw the page), and a new one
+ * is drawn as a transition (React may pause it for input, and draws it in slices between tasks).
  * `initial` until the first answer, and while the query is null (nothing to read yet); an answer is
  * kept on screen until the next one when `deps` change; a failed read is thrown to the error boundary.
  */
@@ -22,7 +43,7 @@ export function useFieldQuery<T>(query: (() => T | Promise<T>) | null, deps?: re
 export function useFieldQuery<T, I>(query: (() => T | Promise<T>) | null, deps: readonly unknown[], initial: I): T | I;
 export function useFieldQuery<T, Q extends FieldQuery<T>, I>(query: Q | null, deps: readonly unknown[] = [], initial?: I): Answer<Q, T> | I | undefined {
   const [state, setState] = useState<{ value?: Answer<Q, T>; has?: boolean; error?: unknown }>({});
-  // The JSON of the shared answer on screen: nothing at first.
+  // The key (answerKey) of the answer on screen: nothing at first.
   const shown = useRef<string | undefined>(undefined);
   const name = typeof query === 'string' ? (query as FrameQuery) : null;
   const active = query !== null;
@@ -31,20 +52,20 @@ export function useFieldQuery<T, Q extends FieldQuery<T>, I>(query: Q | null, de
     let stop: (() => void) | undefined;
     let cancelled = false;
     const fail = (error: unknown) => setState({ error });
+    const show = (value: unknown) => {
+      const key = answerKey(value);
+      if (key === shown.current) return;
+      shown.current = key;
+      startTransition(() => setState({ value: value as Answer<Q, T>, has: true }));
+    };
     if (name !== null) {
-      const show = (value: unknown) => {
-        const json = JSON.stringify(value) ?? 'undefined';
-        if (json === shown.current) return;
-        shown.current = json;
-        startTransition(() => setState({ value: value as Answer<Q, T>, has: true }));
-      };
       void import('@/lib/client/field-host').then(({ watchFieldQuery }) => {
         if (!cancelled) stop = watchFieldQuery(name, show, fail);
       });
     } else {
       const read = query as () => T | Promise<T>;
       void import('@/lib/client/live-query').then(({ watchLocal }) => {
-        if (!cancelled) stop = watchLocal(read, (value) => setState({ value: value as Answer<Q, T>, has: true }), fail);
+        if (!cancelled) stop = watchLocal(read, show, fail);
       });
     }
     return () => {
