@@ -1,7 +1,7 @@
 // One date style for pages, e-mail and the phone: the day with its weekday and year ("Wed, 9 Sept 2026"),
 // a moment with its time zone ("Wed, 9 Sept 2026, 14:05 UTC"), a clock for "last synced". Each Intl
 // formatter is built on its first use and kept: building one loads locale data, which costs a phone
-// tens of milliseconds, so a page that shows no date builds none.
+// tens of milliseconds, so a page that shows no date builds none (the clock needs none).
 import type { UnitSystem } from '../domain';
 
 function once<T>(build: () => T): () => T {
@@ -14,11 +14,6 @@ function once<T>(build: () => T): () => T {
 const DAY = once(() => new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }));
 // Moments read in more than one place (the office, e-mail, the farmer) say their zone: UTC for everyone.
 const UTC_TIME = once(() => new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit', hourCycle: 'h23', timeZone: 'UTC' }));
-// A clock on the person's own phone, in the phone's zone.
-const CLOCK: Record<UnitSystem, () => Intl.DateTimeFormat> = {
-  metric: once(() => new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit', hourCycle: 'h23' })),
-  us: once(() => new Intl.DateTimeFormat('en-US', { hour: 'numeric', minute: '2-digit', hour12: true })),
-};
 
 function toDate(at: Date | string): Date | null {
   const date = typeof at === 'string' ? new Date(at) : at;
@@ -39,12 +34,17 @@ export function formatDateTime(at: Date | string | null | undefined): string {
   return date ? `${DAY().format(date)}, ${UTC_TIME().format(date)} UTC` : '—';
 }
 
-/** A time of day on this device's clock: "14:05" (metric users) or "2:05 PM" (US customary users). */
+/**
+ * A time of day on this device's clock: "14:05" (metric users) or "2:05 PM" (US customary users),
+ * as Intl writes them for "en-GB" and "en-US" (the unit tests hold the two to the same output),
+ * written out by hand: the clock is on every field screen, and building an Intl formatter for it
+ * costs a phone's start-up tens of milliseconds.
+ */
 export function formatClock(date: Date, units: UnitSystem): string {
-  // ICU puts a narrow no-break space before AM/PM; a plain space reads the same and searches simply.
-  return CLOCK[units]()
-    .format(date)
-    .replace(/\u202f/g, ' ');
+  const hours = date.getHours();
+  const minutes = String(date.getMinutes()).padStart(2, '0');
+  if (units === 'metric') return `${String(hours).padStart(2, '0')}:${minutes}`;
+  return `${hours % 12 || 12}:${minutes} ${hours < 12 ? 'AM' : 'PM'}`;
 }
 
 /** A calendar day as stored and exported (ISO 8601, "2026-12-08"), for files and machines. */

@@ -30,6 +30,16 @@ describe('one date style', () => {
     expect(formatClock(at(23, 59), 'us')).toBe('11:59 PM');
   });
 
+  it('writes the clock exactly as Intl does for en-GB (24-hour) and en-US (AM/PM), every minute of a day', () => {
+    const metric = new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit', hourCycle: 'h23' });
+    const us = new Intl.DateTimeFormat('en-US', { hour: 'numeric', minute: '2-digit', hour12: true });
+    for (let minute = 0; minute < 24 * 60; minute++) {
+      const at = new Date(2026, 11, 2, Math.floor(minute / 60), minute % 60);
+      expect(formatClock(at, 'metric')).toBe(metric.format(at));
+      expect(formatClock(at, 'us')).toBe(us.format(at).replace(/\u202f/g, ' '));
+    }
+  });
+
   it('files and machines get the ISO day', () => {
     expect(isoDay(new Date('2026-12-04T23:59:59Z'))).toBe('2026-12-04');
   });

@@ -45,4 +45,47 @@ describe('numbers for people', () => {
     expect(formatBytes(850_000_000)).toBe('850 MB');
     expect(formatBytes(12_300)).toBe('12 kB');
   });
+
+  it('writes every number exactly as Intl.NumberFormat does for en-GB (the oracle), ties and negatives included', () => {
+    const grouped = (d: number) => new Intl.NumberFormat('en-GB', { minimumFractionDigits: d, maximumFractionDigits: d, signDisplay: 'negative' });
+    const typed = (d: number) => new Intl.NumberFormat('en-GB', { maximumFractionDigits: d, useGrouping: false, signDisplay: 'negative' });
+    // A seeded generator: the same values every run, across magnitudes from 1e-6 to 1e15.
+    let seed = 20261205;
+    const random = () => (seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31;
+    const values = [
+      0,
+      -0,
+      0.5,
+      1.5,
+      2.5,
+      -2.5,
+      0.125,
+      0.375,
+      1.005,
+      1.045,
+      8.345,
+      999.5,
+      999.4999,
+      1e-7,
+      -1e-7,
+      1234567.891,
+      9.995,
+      99.95,
+      1e15 + 0.5,
+      1e21,
+      -1.5e22,
+      5e-324,
+      0.000049999,
+      0.00005,
+    ];
+    for (let i = 0; i < 3000; i++) values.push((random() - 0.3) * 10 ** Math.floor(random() * 21 - 6));
+    // Halves at every scale: exactly representable ties.
+    for (let i = 0; i < 200; i++) values.push((Math.floor(random() * 2000) - 1000 + 0.5) / 10 ** Math.floor(random() * 4));
+    for (const value of values) {
+      for (const d of [0, 1, 2, 3, 4]) {
+        expect(formatNumber(value, d), `${value} to ${d}`).toBe(grouped(d).format(value));
+        expect(formatTyped(value, d), `${value} typed to ${d}`).toBe(typed(d).format(value));
+      }
+    }
+  });
 });
