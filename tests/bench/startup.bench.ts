@@ -1,10 +1,11 @@
 // Bench: the start-up work a phone's CPU does for each page. Debian's Chromium loads the page with
 // its CPU slowed 4× (as Lighthouse's mobile audit assumes of a mid-range phone) in a fresh context
-// (no cache, no service worker, no offline store), records a performance trace from the navigation until the load
-// event has fired and the network has then been quiet for half a second, and sums the page's main-thread tasks of 50 ms or more (the long
-// tasks: what keeps a phone from answering a tap). The empty App Router page (the floor) is loaded
-// the same way in alternation with each page (floor, page, floor, page…), and each page's budget
-// is the median over the pairs of its long-task time minus the floor's. Run with npm run bench.
+// (no cache, no service worker, no offline store), records a performance trace from the navigation
+// until the load event has fired and the network has then been quiet for half a second, and sums
+// the page's main-thread tasks of 50 ms or more (the long tasks: what keeps a phone from answering
+// a tap). The empty App Router page (the floor) is loaded the same way in alternation with each
+// page (floor, page, floor, page…), and each page's budget is the median over the pairs of its
+// long-task time minus the floor's. Run with npm run bench.
 import { writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { chromium, type Browser, type Page } from '@playwright/test';
