@@ -4,9 +4,20 @@ import { ProfileDrawing } from './profile-drawing';
 import { SiteMapDrawing } from './site-map-drawing';
 import { SourceList } from './source-list';
 
-function Section({ title, children }: { title: string; children: React.ReactNode }) {
+/**
+ * A section of the sheet. A `deferred` one is laid out only when the reader scrolls near it
+ * (content-visibility; paper lays out everything): the first layout of the whole sheet, tables and
+ * all, was most of the work a phone did to show its first screen. Until then it holds the place of
+ * a screenful (afterwards, the size it last had), and its words stay in the page for find-in-page
+ * and screen readers. Sections with links or buttons are never deferred: laid out by a checker
+ * while deferred, a section's content runs past its placeholder over what follows, and targets
+ * must not overlap.
+ */
+function Section({ title, children, deferred = false }: { title: string; children: React.ReactNode; deferred?: boolean }) {
   return (
-    <section className="space-y-3 break-inside-avoid-page">
+    <section
+      className={`space-y-3 break-inside-avoid-page ${deferred ? '[contain-intrinsic-size:auto_40rem] [content-visibility:auto] print:[content-visibility:visible]' : ''}`}
+    >
       <h2 className="border-b border-rule pb-1 text-xl font-bold text-slate">{title}</h2>
       {children}
     </section>
@@ -26,7 +37,7 @@ export function SheetBody({ v }: { v: SheetView }) {
         </p>
         <p className="text-xl leading-relaxed">{v.summary.join(' ')}</p>
       </header>
-      <Section title="Key figures">
+      <Section title="Key figures" deferred>
         <dl className="divide-y divide-rule">
           {v.figures.map((f) => (
             <div key={f.key} className="flex flex-wrap items-baseline justify-between gap-x-4 py-2">
@@ -40,16 +51,16 @@ export function SheetBody({ v }: { v: SheetView }) {
         </dl>
       </Section>
       {v.profile && (
-        <Section title="The water path, from intake to tank">
+        <Section title="The water path, from intake to tank" deferred>
           <ProfileDrawing g={v.profile} narrow={v.profileNarrow} />
         </Section>
       )}
       {v.map && (
-        <Section title="Where the points are">
+        <Section title="Where the points are" deferred>
           <SiteMapDrawing g={v.map} />
         </Section>
       )}
-      <Section title={v.verdict === 'no-go' ? 'Why not' : v.verdict === 'gravity' ? 'What to check' : 'Conditions for a go'}>
+      <Section deferred title={v.verdict === 'no-go' ? 'Why not' : v.verdict === 'gravity' ? 'What to check' : 'Conditions for a go'}>
         {v.conditions.length === 0 && v.verdict !== 'no-go' && <p>No extra conditions: follow the cautions below.</p>}
         <ul className="list-disc space-y-2 pl-6">
           {[...v.conditions, ...v.reasons].map((text) => (
@@ -57,7 +68,7 @@ export function SheetBody({ v }: { v: SheetView }) {
           ))}
         </ul>
       </Section>
-      <Section title="Bill of materials">
+      <Section title="Bill of materials" deferred>
         {/* Five columns that fit a 412 px phone: small type, words allowed to break, the note under the item. */}
         <table className="w-full table-fixed border-collapse text-left text-sm sm:text-base" data-testid="bill-table">
           <colgroup>
@@ -124,7 +135,7 @@ export function SheetBody({ v }: { v: SheetView }) {
         </table>
       </Section>
       {v.costs?.comparison && (
-        <Section title="Ten years: a ram, a solar pump or a petrol pump">
+        <Section title="Ten years: a ram, a solar pump or a petrol pump" deferred>
           <table className="w-full table-fixed border-collapse text-left text-sm sm:text-base" data-testid="ten-year-table">
             <colgroup>
               <col className="w-[28%]" />
@@ -175,7 +186,7 @@ export function SheetBody({ v }: { v: SheetView }) {
         </Section>
       )}
       {v.costs && !v.costs.comparison && <p className="text-base text-stone">{v.costs.assumptions[0]}</p>}
-      <Section title="Cautions">
+      <Section title="Cautions" deferred>
         {v.cautions.map((c) => (
           <div key={c.code}>
             <h3 className="font-bold">{c.title}</h3>
