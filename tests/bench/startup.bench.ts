@@ -1,7 +1,7 @@
 // Bench: the start-up work a phone's CPU does for each page. Debian's Chromium loads the page with
 // its CPU slowed 4× (as Lighthouse's mobile audit assumes of a mid-range phone) in a fresh context
 // (no cache, no service worker, no offline store), records a performance trace from the navigation
-// until the load event has fired and the network has then been quiet for half a second, and sums
+// until the load event has fired and the network has then been quiet for a second, and sums
 // the page's main-thread tasks of 50 ms or more (the long tasks: what keeps a phone from answering
 // a tap). The empty App Router page (the floor) is loaded the same way in alternation with each
 // page (floor, page, floor, page…), and each page's budget is the median over the pairs of its
@@ -24,12 +24,16 @@ interface Target {
   cookie?: { name: string; value: string };
 }
 
-/** How long the network must stay quiet after the load event for the page's start-up to count as over. */
-const QUIET_MS = 500;
+/**
+ * How long the network must stay quiet, from the load event on, for the page's start-up to count as
+ * over: at 4× slower CPU a page hydrating after its load event goes several hundred milliseconds
+ * before asking for its next chunk or starting its first sync.
+ */
+const QUIET_MS = 1000;
 
 /**
- * Watches the page's requests (its workers' included) from before the navigation; `after()` resolves
- * once the load event has fired and no request has been in flight for QUIET_MS. (Chromium's own
+ * Watches the page's requests (its workers' included) from before the navigation; `after()`, called
+ * at the load event, resolves once no request has been in flight for QUIET_MS since. (Chromium's own
  * network-idle signal can fire before the load event while a throttled CPU evaluates scripts and
  * nothing is on the wire: a window closed then misses most of the start-up, floor and page alike.)
  */
@@ -48,6 +52,8 @@ function networkQuiet(page: Page): { after: () => Promise<void> } {
   page.on('requestfailed', done);
   return {
     async after() {
+      // The quiet counts from the load event: requests that ended before it say nothing of what follows.
+      lastChange = Math.max(lastChange, Date.now());
       const deadline = Date.now() + 120_000;
       while (inFlight > 0 || Date.now() - lastChange < QUIET_MS) {
         if (Date.now() > deadline) throw new Error(`the network never went quiet (${inFlight} requests in flight)`);
@@ -91,6 +97,9 @@ async function loadOnce(browser: Browser, target: Target): Promise<MainThreadWor
     const res = await page.goto(target.url, { waitUntil: 'load', timeout: 120_000 });
     if (res?.status() !== 200) throw new Error(`${target.url} answered ${res?.status()}`);
     await quiet.after();
+    // A page that sent the reader elsewhere (a lost session to the sign-in page) is not the page measured.
+    const landed = new URL(page.url()).pathname;
+    if (landed !== new URL(target.url).pathname) throw new Error(`${target.name} ended on ${landed}, not the page asked for`);
     const raw = await browser.stopTracing();
     if (process.env.BENCH_JS_PROF) {
       const { profile } = await cdp.send('Profiler.stop');
