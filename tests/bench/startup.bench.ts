@@ -64,8 +64,8 @@ function networkQuiet(page: Page): { after: () => Promise<void> } {
 }
 
 /**
- * One load, measured again (twice at most) when Chromium's trace lost the page's HTML parsing: now
- * and then a trace comes back without it, which says nothing about the page.
+ * One load, measured again (twice at most) when Chromium's trace lost the page's HTML parsing or its
+ * load event: now and then a trace comes back without them, which says nothing about the page.
  */
 async function load(browser: Browser, target: Target): Promise<MainThreadWork> {
   for (let attempt = 1; ; attempt++) {

@@ -1,19 +1,17 @@
 // One date style for pages, e-mail and the phone: the day with its weekday and year ("Wed, 9 Sept 2026"),
-// a moment with its time zone ("Wed, 9 Sept 2026, 14:05 UTC"), a clock for "last synced". Each Intl
-// formatter is built on its first use and kept: building one loads locale data, which costs a phone
-// tens of milliseconds, so a page that shows no date builds none (the clock needs none).
+// a moment with its time zone ("Wed, 9 Sept 2026, 14:05 UTC"), a clock for "last synced". The day's
+// Intl formatter is built on its first use and kept: building one loads locale data, which costs a
+// phone tens of milliseconds, so a page that shows no day builds none. Times of day ("14:05") are
+// written out by hand, as Intl writes them (the unit tests hold the two to the same output).
 import type { UnitSystem } from '../domain';
-
-function once<T>(build: () => T): () => T {
-  let made: T | undefined;
-  return () => (made ??= build());
-}
 
 // Planned days are calendar days with no zone ("2026-09-09"): read and shown in UTC, so no reader's
 // zone moves them to the day before.
-const DAY = once(() => new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }));
-// Moments read in more than one place (the office, e-mail, the farmer) say their zone: UTC for everyone.
-const UTC_TIME = once(() => new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit', hourCycle: 'h23', timeZone: 'UTC' }));
+let dayFormat: Intl.DateTimeFormat | undefined;
+const DAY = () => (dayFormat ??= new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }));
+
+/** "14:05": a 24-hour time of day, both parts of two digits. */
+const hoursMinutes = (hours: number, minutes: number) => `${String(hours).padStart(2, '0')}:${String(minutes).padStart(2, '0')}`;
 
 function toDate(at: Date | string): Date | null {
   const date = typeof at === 'string' ? new Date(at) : at;
@@ -31,20 +29,15 @@ export function formatDay(isoDay: string | null | undefined): string {
 export function formatDateTime(at: Date | string | null | undefined): string {
   if (!at) return '—';
   const date = toDate(at);
-  return date ? `${DAY().format(date)}, ${UTC_TIME().format(date)} UTC` : '—';
+  // Moments read in more than one place (the office, e-mail, the farmer) say their zone: UTC for everyone.
+  return date ? `${DAY().format(date)}, ${hoursMinutes(date.getUTCHours(), date.getUTCMinutes())} UTC` : '—';
 }
 
-/**
- * A time of day on this device's clock: "14:05" (metric users) or "2:05 PM" (US customary users),
- * as Intl writes them for "en-GB" and "en-US" (the unit tests hold the two to the same output),
- * written out by hand: the clock is on every field screen, and building an Intl formatter for it
- * costs a phone's start-up tens of milliseconds.
- */
+/** A time of day on this device's clock: "14:05" (metric users) or "2:05 PM" (US customary users). */
 export function formatClock(date: Date, units: UnitSystem): string {
   const hours = date.getHours();
-  const minutes = String(date.getMinutes()).padStart(2, '0');
-  if (units === 'metric') return `${String(hours).padStart(2, '0')}:${minutes}`;
-  return `${hours % 12 || 12}:${minutes} ${hours < 12 ? 'AM' : 'PM'}`;
+  if (units === 'metric') return hoursMinutes(hours, date.getMinutes());
+  return `${hours % 12 || 12}:${String(date.getMinutes()).padStart(2, '0')} ${hours < 12 ? 'AM' : 'PM'}`;
 }
 
 /** A calendar day as stored and exported (ISO 8601, "2026-12-08"), for files and machines. */
