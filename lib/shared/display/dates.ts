@@ -1,14 +1,17 @@
 // One date style for pages, e-mail and the phone: the day with its weekday and year ("Wed, 9 Sept 2026"),
-// a moment with its time zone ("Wed, 9 Sept 2026, 14:05 UTC"), a clock for "last synced". The day's
-// Intl formatter is built on its first use and kept: building one loads locale data, which costs a
-// phone tens of milliseconds, so a page that shows no day builds none. Times of day ("14:05") are
-// written out by hand, as Intl writes them (the unit tests hold the two to the same output).
+// a moment with its time zone ("Wed, 9 Sept 2026, 14:05 UTC"), a clock for "last synced". All are
+// written out by hand, as Intl writes them for British English (the unit tests hold the two to the
+// same output): building a phone's first Intl date formatter loads locale data, a task of 50 to 180 ms
+// on a mid-range phone's first look at its visit list.
 import type { UnitSystem } from '../domain';
+
+const WEEKDAYS = ['Sun', 'Mon', 'Tue', 'Wed', 'Thu', 'Fri', 'Sat'];
+// British English abbreviates September to four letters.
+const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sept', 'Oct', 'Nov', 'Dec'];
 
 // Planned days are calendar days with no zone ("2026-09-09"): read and shown in UTC, so no reader's
 // zone moves them to the day before.
-let dayFormat: Intl.DateTimeFormat | undefined;
-const DAY = () => (dayFormat ??= new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }));
+const utcDay = (date: Date) => `${WEEKDAYS[date.getUTCDay()]}, ${date.getUTCDate()} ${MONTHS[date.getUTCMonth()]} ${date.getUTCFullYear()}`;
 
 /** "14:05": a 24-hour time of day, both parts of two digits. */
 const hoursMinutes = (hours: number, minutes: number) => `${String(hours).padStart(2, '0')}:${String(minutes).padStart(2, '0')}`;
@@ -22,7 +25,7 @@ function toDate(at: Date | string): Date | null {
 export function formatDay(isoDay: string | null | undefined): string {
   if (!isoDay) return '—';
   const date = toDate(`${isoDay.slice(0, 10)}T00:00:00Z`);
-  return date ? DAY().format(date) : '—';
+  return date ? utcDay(date) : '—';
 }
 
 /** "Tue, 8 Dec 2026, 14:05 UTC": a moment, in one time zone for every reader. */
@@ -30,7 +33,7 @@ export function formatDateTime(at: Date | string | null | undefined): string {
   if (!at) return '—';
   const date = toDate(at);
   // Moments read in more than one place (the office, e-mail, the farmer) say their zone: UTC for everyone.
-  return date ? `${DAY().format(date)}, ${hoursMinutes(date.getUTCHours(), date.getUTCMinutes())} UTC` : '—';
+  return date ? `${utcDay(date)}, ${hoursMinutes(date.getUTCHours(), date.getUTCMinutes())} UTC` : '—';
 }
 
 /** A time of day on this device's clock: "14:05" (metric users) or "2:05 PM" (US customary users). */

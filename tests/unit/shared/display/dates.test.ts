@@ -40,6 +40,21 @@ describe('one date style', () => {
     }
   });
 
+  it('writes the day exactly as Intl does for en-GB in UTC, every day of 1999 to 2031 and the first of each month back to 1600', () => {
+    const intl = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
+    const days: Date[] = [];
+    for (let t = Date.UTC(1999, 0, 1); t < Date.UTC(2032, 0, 1); t += 86_400_000) days.push(new Date(t));
+    for (let year = 1600; year < 1999; year++) for (let month = 0; month < 12; month++) days.push(new Date(Date.UTC(year, month, 1)));
+    expect(days.length).toBeGreaterThan(16_000);
+    for (const day of days) {
+      const iso = day.toISOString();
+      expect(formatDay(iso.slice(0, 10))).toBe(intl.format(day));
+      // A moment late in the day: still that day in UTC.
+      const late = new Date(day.getTime() + 23 * 3_600_000 + 59 * 60_000);
+      expect(formatDateTime(late)).toBe(`${intl.format(day)}, 23:59 UTC`);
+    }
+  });
+
   it('files and machines get the ISO day', () => {
     expect(isoDay(new Date('2026-12-04T23:59:59Z'))).toBe('2026-12-04');
   });
