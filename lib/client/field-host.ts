@@ -5,7 +5,7 @@
 // they read through useFieldQuery, and sync through sync/triggers.ts.
 import * as Comlink from 'comlink';
 import type { SessionUser } from '@/lib/shared/domain';
-import type { FrameAnswer, FrameQuery } from './frame-queries';
+import type { FrameAnswer, FrameArg, FrameQuery } from './frame-queries';
 import type { LocalSession } from './session';
 import type { UploadProgress } from './sync/photos';
 import type { SyncOutcome } from './sync/runner';
@@ -98,13 +98,18 @@ export function rememberedOnPhone(): Promise<SessionUser | null> {
   );
 }
 
-/** A live read of a shared field query (frame-queries.ts); returns the unsubscribe. */
-export function watchFieldQuery<Q extends FrameQuery>(query: Q, onValue: (value: FrameAnswer<Q>) => void, onError: (error: unknown) => void): () => void {
+/** A live read of a named field query (frame-queries.ts) with its argument, if it takes one; returns the unsubscribe. */
+export function watchFieldQuery<Q extends FrameQuery>(
+  query: Q,
+  onValue: (value: FrameAnswer<Q>) => void,
+  onError: (error: unknown) => void,
+  arg?: FrameArg<Q>,
+): () => void {
   let stop: (() => void) | undefined;
   let stopped = false;
   const inPage = () =>
-    void Promise.all([import('./live-query'), import('./frame-queries')]).then(([{ watchLocal }, { FRAME_QUERIES }]) => {
-      if (!stopped) stop = watchLocal((db) => FRAME_QUERIES[query](db) as Promise<FrameAnswer<Q>>, onValue, onError);
+    void Promise.all([import('./live-query'), import('./frame-queries')]).then(([{ watchLocal }, { runFrameQuery }]) => {
+      if (!stopped) stop = watchLocal((db) => runFrameQuery(db, query, arg as FrameArg<Q>), onValue, onError);
     });
   const h = currentHost();
   if (!h) {
@@ -114,6 +119,7 @@ export function watchFieldQuery<Q extends FrameQuery>(query: Q, onValue: (value:
       query,
       Comlink.proxy((value: unknown) => deliverSoon(() => !stopped && onValue(value as FrameAnswer<Q>))),
       Comlink.proxy((message: string) => deliverSoon(() => !stopped && onError(new Error(message)))),
+      arg,
     );
     void Promise.race([watching.catch(() => DIED), h.died.then(() => DIED)]).then((id) => {
       if (id === DIED) return inPage();

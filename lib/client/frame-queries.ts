@@ -1,7 +1,9 @@
-// The shared field queries: the frame's and home's reads of the phone's database, by name. Pages ask
-// for them through useFieldQuery; the field worker runs them (field-host.ts), so those pages
-// evaluate no Dexie at all, and a page without the worker runs them itself. Small summaries only:
-// counts from indexes, never ops or photo bytes.
+// The named field queries: the frame's and the home's reads of the phone's database, and a capture
+// screen's records (the flow screen's source and measurements). Pages ask for them through
+// useFieldQuery (with an argument where one is named); the field worker runs them (field-host.ts),
+// so they are not read again on the page's main thread as the worker's sync writes, and a page
+// without the worker runs them itself. Small records and counts from indexes only: never ops or
+// photo bytes.
 import type { FieldDatabase, LocalFarm, LocalVisit } from './db';
 import { photoQueueCounts } from './photo-queue';
 import type { SyncRecord } from './sync/meta';
@@ -53,6 +55,29 @@ export async function homeVisits(db: FieldDatabase) {
   };
 }
 
-export const FRAME_QUERIES = { syncSummary, homeVisits };
+/**
+ * The visit's water source (the first not deleted). Before the phone's first sync run, none means
+ * "not fetched yet" (as on the home): undefined, so the page waits rather than offer to name a source
+ * that is on its way; null once a run has finished without one.
+ */
+export async function flowSource(db: FieldDatabase, visitId: string) {
+  const found = (await db.waterSources.where('visitId').equals(visitId).toArray()).find((s) => !s.deletedAt);
+  if (found) return found;
+  return (await db.meta.get('lastRun')) === undefined ? undefined : null;
+}
+
+/** The visit's flow measurements, not deleted. */
+export async function flowMeasurements(db: FieldDatabase, visitId: string) {
+  return (await db.flowMeasurements.where('visitId').equals(visitId).toArray()).filter((m) => !m.deletedAt);
+}
+
+export const FRAME_QUERIES = { syncSummary, homeVisits, flowSource, flowMeasurements };
 export type FrameQuery = keyof typeof FRAME_QUERIES;
+/** What a query is asked about (a visit's id), or undefined for one that takes nothing. */
+export type FrameArg<Q extends FrameQuery> = Parameters<(typeof FRAME_QUERIES)[Q]>[1];
 export type FrameAnswer<Q extends FrameQuery> = Awaited<ReturnType<(typeof FRAME_QUERIES)[Q]>>;
+
+/** Runs a named query on a database with its argument (where the worker runs it, and the page without one). */
+export function runFrameQuery<Q extends FrameQuery>(db: FieldDatabase, query: Q, arg: FrameArg<Q>): Promise<FrameAnswer<Q>> {
+  return (FRAME_QUERIES[query] as (db: FieldDatabase, arg: unknown) => Promise<FrameAnswer<Q>>)(db, arg);
+}

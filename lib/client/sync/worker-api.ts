@@ -1,11 +1,11 @@
 // What the field worker does for the page: it runs the sync loop, so pushing, uploading and merging
 // a pull (a first pull is hundreds of rows) never hold the page's main thread, and it answers the
-// shared field queries (who is signed in, the sync bar's counts, the home list), so the frame and the
-// home evaluate no Dexie at all. The pages' other live queries still see every change: Dexie tells
-// the other contexts of the origin what was written. sync-worker.ts exposes this object through
+// named field queries (who is signed in, the sync bar's counts, the home list, a capture screen's
+// records), so the frame and the home evaluate no Dexie at all. The pages' own live queries still see every change: Dexie tells the
+// other contexts of the origin what was written. sync-worker.ts exposes this object through
 // Comlink; the page's side is lib/client/field-host.ts.
 import * as Comlink from 'comlink';
-import { FRAME_QUERIES, type FrameQuery } from '../frame-queries';
+import { runFrameQuery, type FrameQuery } from '../frame-queries';
 import { watchLocal } from '../live-query';
 import { loadLocalSession, rememberedUser } from '../session';
 import type { UploadProgress } from './photos';
@@ -26,11 +26,13 @@ export const fieldWorkerApi = {
   },
   session: loadLocalSession,
   remembered: rememberedUser,
-  /** Starts a live read of a shared field query; answers go to `onValue` until `unwatch(id)`. */
-  watch(query: FrameQuery, onValue: (value: unknown) => void, onError: (message: string) => void): number {
+  /** Starts a live read of a named field query (with its argument); answers go to `onValue` until `unwatch(id)`. */
+  watch(query: FrameQuery, onValue: (value: unknown) => void, onError: (message: string) => void, arg?: unknown): number {
     const id = nextWatch++;
-    const stop = watchLocal(FRAME_QUERIES[query] as Parameters<typeof watchLocal>[0], onValue, (error) =>
-      onError(error instanceof Error ? error.message : String(error)),
+    const stop = watchLocal(
+      (db) => runFrameQuery(db, query, arg as never),
+      onValue,
+      (error) => onError(error instanceof Error ? error.message : String(error)),
     );
     watches.set(id, () => {
       stop();

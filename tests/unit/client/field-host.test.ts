@@ -159,6 +159,49 @@ describe("the page's side (field-host)", () => {
     stop();
   });
 
+  it("reads a query about one visit with that visit's id, in the worker and in the page alike", async () => {
+    const { source, workerApi, host } = await load();
+    const { VISIT } = await import('./helpers');
+    const OTHER = '22222222-2222-4222-8222-222222222222';
+    await source(9);
+    const api = await workerApi();
+    stubWorker(() => api);
+    const { watchFieldQuery } = await host();
+    const names = (visitId: string, into: string[][]) =>
+      watchFieldQuery(
+        'flowSource',
+        (value) => into.push(value ? [value.name] : []),
+        (error) => {
+          throw error;
+        },
+        visitId,
+      );
+    const here: string[][] = [];
+    const there: string[][] = [];
+    const stops = [names(VISIT, here), names(OTHER, there)];
+    await vi.waitFor(() => expect(here).toEqual([['source 9']]));
+    // No source on the other visit, and no sync run yet: "not fetched yet".
+    await vi.waitFor(() => expect(there).toEqual([[]]));
+    for (const stop of stops) stop();
+  });
+
+  it("reads a query about one visit with that visit's id in the page where there is no Worker", async () => {
+    const { source, host } = await load();
+    const { VISIT } = await import('./helpers');
+    vi.stubGlobal('Worker', undefined);
+    await source(10);
+    const { watchFieldQuery } = await host();
+    const seen: string[][] = [];
+    const stop = watchFieldQuery(
+      'flowSource',
+      (value) => seen.push(value ? [value.name] : []),
+      () => undefined,
+      VISIT,
+    );
+    await vi.waitFor(() => expect(seen).toEqual([['source 10']]));
+    stop();
+  });
+
   it('runs the loop in the page where there is no Worker', async () => {
     const { source, fakeServer, host } = await load();
     vi.stubGlobal('Worker', undefined);

@@ -53,6 +53,37 @@ describe('useFieldQuery', () => {
     page.unmount();
   });
 
+  it('asks the worker a named query about the visit on screen, and asks again (stopping the old watch) when the visit changes', async () => {
+    vi.resetModules();
+    const asked: string[] = [];
+    const stopped: number[] = [];
+    stubWorker(() => ({
+      watch(query: string, onValue: (value: unknown) => void, _onError: unknown, arg?: string) {
+        asked.push(`${query} ${arg}`);
+        void onValue({ name: `source of ${arg}` });
+        return asked.length;
+      },
+      unwatch(id: number) {
+        stopped.push(id);
+      },
+    }));
+    const { useFieldQuery } = await import('@/app/(field)/field/_components/use-field-query');
+    function Source({ visitId }: { visitId: string }) {
+      const source = useFieldQuery('flowSource', visitId);
+      return <p>{source ? source.name : 'reading'}</p>;
+    }
+    const host = document.createElement('div');
+    document.body.append(host);
+    const root = createRoot(host);
+    root.render(<Source visitId="v1" />);
+    await vi.waitFor(() => expect(host.textContent).toBe('source of v1'));
+    root.render(<Source visitId="v2" />);
+    await vi.waitFor(() => expect(host.textContent).toBe('source of v2'));
+    expect(asked).toEqual(['flowSource v1', 'flowSource v2']);
+    await vi.waitFor(() => expect(stopped).toEqual([1]));
+    root.unmount();
+  });
+
   it("runs a page's own read in the page, again after each change it read, and reads nothing while null", async () => {
     vi.resetModules();
     const { freshDb } = await import('./helpers');

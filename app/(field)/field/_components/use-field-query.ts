@@ -1,7 +1,7 @@
 'use client';
 
 import { startTransition, useEffect, useRef, useState } from 'react';
-import type { FrameAnswer, FrameQuery } from '@/lib/client/frame-queries';
+import type { FrameAnswer, FrameArg, FrameQuery } from '@/lib/client/frame-queries';
 
 /** What a field page reads: a shared field query by name (frame-queries.ts), or its own read of the phone's database. */
 export type FieldQuery<T> = FrameQuery | (() => T | Promise<T>);
@@ -29,23 +29,29 @@ function answerKey(value: unknown): string {
 
 /**
  * The one way a field page reads the phone's database, live: the answer now and again after every
- * change it read. The hook decides where the read runs. A shared field query (named) runs where the
- * sync does (lib/client/field-host.ts: the field worker, else the page), so the frame and the home
- * evaluate no Dexie of their own; a page's own read (a function) runs in the page. Either way an
- * answer equal to the one on screen draws nothing (a sync rewrites the tables pages read, mostly
- * without changing them: on a phone's first sync every batch would redraw the page), and a new one
- * is drawn as a transition (React may pause it for input, and draws it in slices between tasks).
+ * change it read. The hook decides where the read runs. A named field query (frame-queries.ts, with
+ * its argument) runs where the sync does (lib/client/field-host.ts: the field worker, else the
+ * page), so it is not read again on the page's main thread as the sync writes (on a phone's first
+ * sync such reads were tasks of 50 to 110 ms); a page's own read (a function) runs in the page.
+ * Either way an answer equal to the one on screen draws nothing (a sync rewrites the tables pages
+ * read, mostly without changing them: on a phone's first sync every batch would redraw the page),
+ * and a new one is drawn as a transition (React may pause it for input, and draws it in slices
+ * between tasks).
  * `initial` until the first answer, and while the query is null (nothing to read yet); an answer is
  * kept on screen until the next one when `deps` change; a failed read is thrown to the error boundary.
  */
-export function useFieldQuery<Q extends FrameQuery>(query: Q | null): FrameAnswer<Q> | undefined;
+export function useFieldQuery<Q extends FrameQuery>(query: Q | null, arg?: FrameArg<Q>): FrameAnswer<Q> | undefined;
 export function useFieldQuery<T>(query: (() => T | Promise<T>) | null, deps?: readonly unknown[]): T | undefined;
 export function useFieldQuery<T, I>(query: (() => T | Promise<T>) | null, deps: readonly unknown[], initial: I): T | I;
-export function useFieldQuery<T, Q extends FieldQuery<T>, I>(query: Q | null, deps: readonly unknown[] = [], initial?: I): Answer<Q, T> | I | undefined {
+export function useFieldQuery<T, Q extends FieldQuery<T>, I>(query: Q | null, second?: unknown, initial?: I): Answer<Q, T> | I | undefined {
   const [state, setState] = useState<{ value?: Answer<Q, T>; has?: boolean; error?: unknown }>({});
   // The key (answerKey) of the answer on screen: nothing at first.
   const shown = useRef<string | undefined>(undefined);
   const name = typeof query === 'string' ? (query as FrameQuery) : null;
+  // A named query's second argument is what it is asked about; a function's, its deps.
+  const arg = name !== null ? second : undefined;
+  const argKey = name !== null ? JSON.stringify(second ?? null) : '';
+  const deps = name === null ? ((second as readonly unknown[] | undefined) ?? []) : [];
   const active = query !== null;
   useEffect(() => {
     if (!active) return;
@@ -60,7 +66,7 @@ export function useFieldQuery<T, Q extends FieldQuery<T>, I>(query: Q | null, de
     };
     if (name !== null) {
       void import('@/lib/client/field-host').then(({ watchFieldQuery }) => {
-        if (!cancelled) stop = watchFieldQuery(name, show, fail);
+        if (!cancelled) stop = watchFieldQuery(name, show, fail, arg as FrameArg<typeof name>);
       });
     } else {
       const read = query as () => T | Promise<T>;
@@ -72,9 +78,9 @@ export function useFieldQuery<T, Q extends FieldQuery<T>, I>(query: Q | null, de
       cancelled = true;
       stop?.();
     };
-    // The read is named by `name`, or by the caller's `deps` for a function (as React's own hooks take them).
+    // The read is named by `name` and its argument, or by the caller's `deps` for a function (as React's own hooks take them).
     // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [name, active, ...deps]);
+  }, [name, argKey, active, ...deps]);
   if (state.error !== undefined) throw state.error;
   return active && state.has ? state.value : initial;
 }

@@ -5,7 +5,7 @@ import { Suspense, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Input } from '@/components/ui/control';
-import { fieldDb, type LocalRecord } from '@/lib/client/db';
+import type { LocalRecord } from '@/lib/client/db';
 import { newId } from '@/lib/client/ids';
 import { saveRecord } from '@/lib/client/outbox';
 import { announceSave } from '@/lib/client/sync/triggers';
@@ -72,15 +72,9 @@ function FlowPage() {
   const visitId = useVisitId();
   const units = useUnits();
   const { remove, bar } = useUndoableDelete();
-  // Before the phone's first sync run, no source means "not fetched yet" (as on the home): the page
-  // waits for it rather than offer to name a source that is on its way.
-  const source = useFieldQuery(async () => {
-    const db = fieldDb();
-    const found = (await db.waterSources.where('visitId').equals(visitId).toArray()).find((s) => !s.deletedAt);
-    if (found) return found;
-    return (await db.meta.get('lastRun')) === undefined ? undefined : null;
-  }, [visitId]);
-  const saved = useFieldQuery(async () => (await fieldDb().flowMeasurements.where('visitId').equals(visitId).toArray()).filter((m) => !m.deletedAt), [visitId]);
+  // Undefined before the phone's first sync run (the source may be on its way), null once none came.
+  const source = useFieldQuery('flowSource', visitId);
+  const saved = useFieldQuery('flowMeasurements', visitId);
   // The form and the saved list are drawn together once both are read, so neither pushes the other down.
   if (source === undefined || saved === undefined) {
     return (
