@@ -1,9 +1,9 @@
 // What the field worker does for the page: it runs the sync loop, so pushing, uploading and merging
 // a pull (a first pull is hundreds of rows) never hold the page's main thread, and it answers the
 // named field queries (who is signed in, the sync bar's counts, the home list, a capture screen's
-// records), so the frame and the home evaluate no Dexie at all. The pages' own live queries still see every change: Dexie tells the
-// other contexts of the origin what was written. sync-worker.ts exposes this object through
-// Comlink; the page's side is lib/client/field-host.ts.
+// records), so the frame and the home evaluate no Dexie at all. The pages' own live queries still
+// see every change: Dexie tells the other contexts of the origin what was written. sync-worker.ts
+// exposes this object through Comlink; the page's side is lib/client/field-host.ts.
 import * as Comlink from 'comlink';
 import { runFrameQuery, type FrameQuery } from '../frame-queries';
 import { watchLocal } from '../live-query';

@@ -13,8 +13,10 @@ const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sept', 
 // zone moves them to the day before.
 const utcDay = (date: Date) => `${WEEKDAYS[date.getUTCDay()]}, ${date.getUTCDate()} ${MONTHS[date.getUTCMonth()]} ${date.getUTCFullYear()}`;
 
+const twoDigits = (n: number) => String(n).padStart(2, '0');
+
 /** "14:05": a 24-hour time of day, both parts of two digits. */
-const hoursMinutes = (hours: number, minutes: number) => `${String(hours).padStart(2, '0')}:${String(minutes).padStart(2, '0')}`;
+const hoursMinutes = (hours: number, minutes: number) => `${twoDigits(hours)}:${twoDigits(minutes)}`;
 
 function toDate(at: Date | string): Date | null {
   const date = typeof at === 'string' ? new Date(at) : at;
@@ -40,7 +42,7 @@ export function formatDateTime(at: Date | string | null | undefined): string {
 export function formatClock(date: Date, units: UnitSystem): string {
   const hours = date.getHours();
   if (units === 'metric') return hoursMinutes(hours, date.getMinutes());
-  return `${hours % 12 || 12}:${String(date.getMinutes()).padStart(2, '0')} ${hours < 12 ? 'AM' : 'PM'}`;
+  return `${hours % 12 || 12}:${twoDigits(date.getMinutes())} ${hours < 12 ? 'AM' : 'PM'}`;
 }
 
 /** A calendar day as stored and exported (ISO 8601, "2026-12-08"), for files and machines. */

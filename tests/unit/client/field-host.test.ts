@@ -159,7 +159,7 @@ describe("the page's side (field-host)", () => {
     stop();
   });
 
-  it("reads a query about one visit with that visit's id, in the worker and in the page alike", async () => {
+  it("reads a query about one visit with that visit's id in the worker, behind Comlink", async () => {
     const { source, workerApi, host } = await load();
     const { VISIT } = await import('./helpers');
     const OTHER = '22222222-2222-4222-8222-222222222222';
