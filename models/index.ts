@@ -1,7 +1,7 @@
 import { FIELD_VISIT_STATUSES } from '@/lib/shared/domain';
 import { type Model, type ModelStatic, type Sequelize, type Transaction } from 'sequelize';
 import { AuditEntry } from './audit-entry';
-import { batchInsert, Computed, observeStatements, txConnection, withConnection } from './batch-insert';
+import { batchInsert, Computed, observeStatements, quote, txConnection, withConnection } from './batch-insert';
 import { buildRow, PlainRow, selectRows } from './plain-rows';
 import { Commissioning } from './commissioning';
 import { DemandLine } from './demand-line';
@@ -43,7 +43,7 @@ export {
   WaterSource,
 };
 export { Commissioning, EndedSession, FarmNeed, SheetResponse, SheetSend };
-export { batchInsert, buildRow, Computed, observeStatements, PlainRow, selectRows, txConnection, withConnection };
+export { batchInsert, buildRow, Computed, observeStatements, PlainRow, quote, selectRows, txConnection, withConnection };
 export type { TxConnection } from './batch-insert';
 export type { OrganisationSettings } from './organisation';
 

@@ -88,6 +88,30 @@ describe('pull', () => {
     expect(pages.at(-1)?.hasMore).toBe(false);
   });
 
+  it('a row committed after the pull read the revision counter waits for the next pull, so the cursor never passes it', async () => {
+    const o = await makeOrganisation('pull-top');
+    await push(o.advisor, { ops: readingOps(o.visit.id, o.farm.id).ops });
+    const before = await pull(o.advisor, 0);
+    const sequelize = getSequelize();
+    const [[counter]] = (await sequelize.query('SELECT value FROM rev_counter WHERE id = 1')) as [{ value: number }[], unknown];
+    // A point whose transaction holds revisions above the counter's committed value: as the pull
+    // sees a push that commits between two of its reads.
+    const late = randomUUID();
+    const rev = Number(counter?.value) + 1_000_000;
+    await sequelize.query(
+      `INSERT INTO points (id, visit_id, role, label, rev, created_by_id, created_at, updated_at) VALUES (?, ?, 'station', 'Late', ?, ?, NOW(3), NOW(3))`,
+      { replacements: [late, o.visit.id, rev, o.advisor.id] },
+    );
+    const during = await pull(o.advisor, before.cursor);
+    expect(during.records.point.map((p) => p.id)).not.toContain(late);
+    expect(during.cursor).toBeLessThan(rev);
+    // Its transaction commits (the counter reaches its revision): the next pull brings it.
+    await sequelize.query('UPDATE rev_counter SET value = ? WHERE id = 1 AND value < ?', { replacements: [rev, rev] });
+    const after = await pull(o.advisor, during.cursor);
+    expect(after.records.point.map((p) => p.id)).toContain(late);
+    expect(after.cursor).toBe(rev);
+  });
+
   it("a coordinator pulls the organisation's booked and walked visits", async () => {
     const o = await makeOrganisation('pull-office');
     const page = await pull(o.coordinator);

@@ -1,6 +1,17 @@
 import 'server-only';
 import { knownDemandFigures } from '@/lib/shared/demand-kinds';
-import { DemandLine, Farm, getSequelize, Organisation, selectRows, Visit, withConnection, type PlainRow, type TxConnection } from '@/lib/server/db';
+import {
+  DemandLine,
+  Farm,
+  getSequelize,
+  quote,
+  selectRows,
+  Visit,
+  withConnection,
+  type OrganisationSettings,
+  type PlainRow,
+  type TxConnection,
+} from '@/lib/server/db';
 import type { PulledEntity, PullResponse } from '@/lib/shared/schemas/sync';
 import type { SessionUser } from '../auth/permissions';
 import { ENTITY_SPECS, pulledRecord, type SyncedRow } from '../sync/entities';
@@ -30,13 +41,26 @@ const byRev = (a: Change, b: Change) => a.rev - b.rev;
 const asChanges = (kind: Kind, rows: unknown[], exposedAt: (row: SyncedRow) => number = () => 0): Change[] =>
   (rows as SyncedRow[]).map((row) => ({ kind, rev: Math.max(Number(row.rev), exposedAt(row)), row }));
 
+/** The tables that hold a row past the cursor among the given keys: one statement, one row of flags. */
+async function tablesWithNews(cursor: number, probes: { name: string; table: string; key: string; ids: string[] }[], on: TxConnection): Promise<Set<string>> {
+  const asked = probes.filter((p) => p.ids.length > 0);
+  if (asked.length === 0) return new Set();
+  const sql = `SELECT ${asked.map((p, i) => `EXISTS (SELECT 1 FROM ${quote(p.table)} WHERE ${p.key} IN (?) AND rev > ?) AS f${i}`).join(', ')}`;
+  const [flags] = await on.query<Record<string, unknown>[]>(
+    sql,
+    asked.flatMap((p) => [p.ids, cursor]),
+  );
+  return new Set(asked.filter((_, i) => Number(flags?.[`f${i}`]) === 1).map((p) => p.name));
+}
+
 /**
- * Candidate changes past the cursor. Records of visits (and farms) that a phone may already hold
- * count at their own revision (at most limit + 1 per table: enough for one page in rev order).
- * Records of visits that appeared after the cursor count at the revision the visit appeared at,
- * all of them whatever their own revision, so the phone gets the visit whole, once.
+ * Candidate changes past the cursor, up to the page's top revision. Records of visits (and farms)
+ * that a phone may already hold count at their own revision (at most limit + 1 per table: enough
+ * for one page in rev order); a first statement asks which tables have any, so a pull reads only
+ * those. Records of visits that appeared after the cursor count at the revision the visit appeared
+ * at, all of them whatever their own revision, so the phone gets the visit whole, once.
  */
-async function candidates(cursor: number, limit: number, visible: PlainRow[], on: TxConnection): Promise<Change[]> {
+async function candidates(cursor: number, top: number, limit: number, visible: PlainRow[], on: TxConnection): Promise<Change[]> {
   const exposedAt = (v: PlainRow) => Number(v.get('exposedRev'));
   const exposedVisit = new Map(visible.filter((v) => exposedAt(v) > cursor).map((v) => [v.id, exposedAt(v)]));
   const farmExposure = new Map<string, number>();
@@ -52,19 +76,27 @@ async function candidates(cursor: number, limit: number, visible: PlainRow[], on
   // Plain rows (no model instances): a page holds hundreds of records copied straight to JSON. The
   // statements go out together on the one connection (no pool connection per table).
   const none = Promise.resolve([] as PlainRow[]);
-  const newer = (model: Parameters<typeof selectRows>[1], key: string, ids: string[]) =>
-    ids.length ? selectRows(on, model, { where: `${key} IN (?) AND rev > ? ORDER BY rev LIMIT ?`, replacements: [ids, cursor, limit + 1] }) : none;
+  const tableOf = (model: Parameters<typeof selectRows>[1]) => model.getTableName() as string;
+  const settled = [
+    { name: 'farm', table: tableOf(Farm), key: 'id', ids: settledFarms },
+    { name: 'demandLine', table: tableOf(DemandLine), key: 'farm_id', ids: settledFarms },
+    ...VISIT_CHILDREN.map((entity) => ({ name: entity, table: tableOf(ENTITY_SPECS[entity].model), key: 'visit_id', ids: settledVisits })),
+  ];
   const every = (model: Parameters<typeof selectRows>[1], key: string, ids: string[]) =>
     ids.length ? selectRows(on, model, { where: `${key} IN (?)`, replacements: [ids] }) : none;
+  // Sent before the probe's answer is back: a newly visible visit comes whole whatever the probe says.
+  const farmsAll = every(Farm, 'id', exposedFarms);
+  const demandAll = every(DemandLine, 'farm_id', exposedFarms);
+  const childrenAll = Promise.all(VISIT_CHILDREN.map((entity) => every(ENTITY_SPECS[entity].model, 'visit_id', exposedVisits)));
+  const news = await tablesWithNews(cursor, settled, on);
+  const newer = (model: Parameters<typeof selectRows>[1], name: string, key: string, ids: string[]) =>
+    news.has(name) ? selectRows(on, model, { where: `${key} IN (?) AND rev > ? ORDER BY rev LIMIT ?`, replacements: [ids, cursor, limit + 1] }) : none;
   const visitExposure = (row: SyncedRow) => exposedVisit.get(String(row.get('visitId'))) ?? 0;
   const farmExposed = (key: string) => (row: SyncedRow) => farmExposure.get(String(row.get(key))) ?? 0;
-  const [farmsNew, farmsAll, demandNew, demandAll, childrenNew, childrenAll] = await Promise.all([
-    newer(Farm, 'id', settledFarms),
-    every(Farm, 'id', exposedFarms),
-    newer(DemandLine, 'farm_id', settledFarms),
-    every(DemandLine, 'farm_id', exposedFarms),
-    Promise.all(VISIT_CHILDREN.map((entity) => newer(ENTITY_SPECS[entity].model, 'visit_id', settledVisits))),
-    Promise.all(VISIT_CHILDREN.map((entity) => every(ENTITY_SPECS[entity].model, 'visit_id', exposedVisits))),
+  const [farmsNew, demandNew, childrenNew] = await Promise.all([
+    newer(Farm, 'farm', 'id', settledFarms),
+    newer(DemandLine, 'demandLine', 'farm_id', settledFarms),
+    Promise.all(VISIT_CHILDREN.map((entity) => newer(ENTITY_SPECS[entity].model, entity, 'visit_id', settledVisits))),
   ]);
   return [
     ...asChanges(
@@ -72,12 +104,14 @@ async function candidates(cursor: number, limit: number, visible: PlainRow[], on
       visible.filter((v) => v.rev > cursor),
     ),
     ...asChanges('farm', farmsNew),
-    ...asChanges('farm', farmsAll, farmExposed('id')),
+    ...asChanges('farm', await farmsAll, farmExposed('id')),
     ...asChanges('demandLine', demandNew),
-    ...asChanges('demandLine', demandAll, farmExposed('farmId')),
+    ...asChanges('demandLine', await demandAll, farmExposed('farmId')),
     ...childrenNew.flatMap((rows, i) => asChanges(VISIT_CHILDREN[i] as ChildEntity, rows)),
-    ...childrenAll.flatMap((rows, i) => asChanges(VISIT_CHILDREN[i] as ChildEntity, rows, visitExposure)),
-  ].sort(byRev);
+    ...(await childrenAll).flatMap((rows, i) => asChanges(VISIT_CHILDREN[i] as ChildEntity, rows, visitExposure)),
+  ]
+    .filter((change) => change.rev <= top)
+    .sort(byRev);
 }
 
 /** The first `limit` changes, never splitting changes that share one revision (a visit appearing whole). */
@@ -95,11 +129,20 @@ export async function pullChanges(user: SessionUser, { cursor, limit }: { cursor
   // One connection for the whole page (its reads pipelined on it), not one pool connection per table.
   // No transaction: revisions commit in order (DEVELOPERS.md, "Server revisions"), so each read
   // seeing what was committed when it ran never skips a change below the page's cursor.
-  const { visible, all, owners, organisation } = await withConnection(getSequelize(), async (on) => {
-    // The organisation's settings go out with the first read, as a plain row on the same connection.
-    const settingsRow = selectRows(on, Organisation, { where: 'id = ?', replacements: [user.organisationId] });
+  const { visible, all, owners, settings } = await withConnection(getSequelize(), async (on) => {
+    // The first statement reads the organisation's settings and the counter's committed value: the
+    // page's top. Reads without a transaction each see a later moment, and a push may commit
+    // between them, but every revision up to the top was committed before the first one ran
+    // (revisions commit in order). So the page keeps only changes up to it: a cursor past the top
+    // could skip a row committed between two of the reads. Later ones come with the next pull.
+    const first = on.query<{ settings: unknown; top: number | string }[]>(
+      'SELECT settings, (SELECT value FROM rev_counter WHERE id = 1) AS top FROM organisations WHERE id = ?',
+      [user.organisationId],
+    );
     const visible = await visibleVisits(user, on);
-    const all = await candidates(cursor, limit, visible, on);
+    const [head] = await first;
+    if (!head) throw new Error(`organisation ${user.organisationId} not found`);
+    const all = await candidates(cursor, Number(head.top), limit, visible, on);
     const ownerIds = [
       ...new Set(
         all
@@ -108,12 +151,9 @@ export async function pullChanges(user: SessionUser, { cursor, limit }: { cursor
           .filter((id): id is string => typeof id === 'string'),
       ),
     ];
-    const [people, [organisation]] = await Promise.all([
-      ownerIds.length > 0 ? on.query<{ id: string; name: string }[]>('SELECT id, name FROM users WHERE id IN (?)', [ownerIds]) : Promise.resolve([]),
-      settingsRow,
-    ]);
-    if (!organisation) throw new Error(`organisation ${user.organisationId} not found`);
-    return { visible, all, owners: new Map(people.map((u) => [u.id, u.name])), organisation: organisation.values as unknown as Organisation };
+    const people = ownerIds.length > 0 ? await on.query<{ id: string; name: string }[]>('SELECT id, name FROM users WHERE id IN (?)', [ownerIds]) : [];
+    const settings = (typeof head.settings === 'string' ? JSON.parse(head.settings) : head.settings) as OrganisationSettings;
+    return { visible, all, owners: new Map(people.map((u) => [u.id, u.name])), settings };
   });
   const visitIds = visible.map((v) => v.id);
   const unique = cutPage(all, limit);
@@ -129,10 +169,10 @@ export async function pullChanges(user: SessionUser, { cursor, limit }: { cursor
     visits: [],
     records: records as PullResponse['records'],
     settings: {
-      unitsDefault: organisation.settings.unitsDefault,
-      designFractionOfLowest: organisation.settings.designFractionOfLowest,
-      ...(organisation.settings.minProbabilityForGo !== undefined ? { minProbabilityForGo: organisation.settings.minProbabilityForGo } : {}),
-      demandFigures: knownDemandFigures(organisation.settings.demandFigures),
+      unitsDefault: settings.unitsDefault,
+      designFractionOfLowest: settings.designFractionOfLowest,
+      ...(settings.minProbabilityForGo !== undefined ? { minProbabilityForGo: settings.minProbabilityForGo } : {}),
+      demandFigures: knownDemandFigures(settings.demandFigures),
     },
   };
   for (const { kind, row } of unique) {
