@@ -150,3 +150,46 @@ test('the coordinator previews the e-mail with a personal note before sending, f
   await expect(preview).toContainText("Subject: Your water sheet: Pryce's Upper Field");
   await expect(preview).toContainText('I will call round on Tuesday.');
 });
+
+test("a deferred part with links or buttons is no taller than its stand-in, on the narrowest screens (a farmer's sheet with a conversation)", async ({
+  page,
+}) => {
+  // Laid out by a checker before the reader scrolls near, the part's content stays inside the
+  // stand-in's height; taller, it would run over the targets that follow.
+  await signIn(page, 'hallie@wenlow-water.test');
+  await page.getByRole('link', { name: 'Read the sheet for Brandt Hollow' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: 'Brandt Hollow' })).toBeVisible();
+  await page.getByLabel('Ask your advisor a question').fill('Could the ram sit lower down, by the ford, so the drive pipe is shorter?');
+  await page.getByRole('button', { name: 'Send question' }).click();
+  await expect(page.getByRole('list', { name: 'Conversation about this sheet' })).toContainText('by the ford');
+  const url = page.url();
+  for (const width of [320, 640]) {
+    await page.setViewportSize({ width, height: 800 });
+    await page.goto(url);
+    await expect(page.getByRole('heading', { level: 1, name: 'Brandt Hollow' })).toBeVisible();
+    const parts = await page.evaluate((wide) => {
+      const rem = parseFloat(getComputedStyle(document.documentElement).fontSize);
+      return [...document.querySelectorAll<HTMLElement>('main section, main div')]
+        .filter((el) => getComputedStyle(el).contentVisibility === 'auto')
+        .map((el) => ({
+          name: el.querySelector('h2')?.textContent ?? '?',
+          targets: el.querySelectorAll('a, button, input, textarea, select').length,
+          standIn: parseFloat(el.style.getPropertyValue(wide ? '--wide' : '--narrow')) * rem,
+          id: el.querySelector('h2')?.textContent ?? '',
+        }));
+    }, width >= 640);
+    const withTargets = parts.filter((p) => p.targets > 0);
+    expect(withTargets.map((p) => p.name)).toEqual(expect.arrayContaining(['How we worked this out', 'Your answer']));
+    for (const part of withTargets) {
+      const section = page
+        .locator('main section, main div')
+        .filter({ has: page.getByRole('heading', { level: 2, name: part.name, exact: true }) })
+        .last();
+      await section.scrollIntoViewIfNeeded();
+      // Laid out now: its height is its content's.
+      await expect.poll(async () => section.evaluate((el) => el.getBoundingClientRect().height)).toBeGreaterThan(0);
+      const height = await section.evaluate((el) => (el.closest('[style*="--narrow"]') as HTMLElement).getBoundingClientRect().height);
+      expect(height, `${part.name} at ${width} px`).toBeLessThanOrEqual(part.standIn);
+    }
+  }
+});

@@ -4,24 +4,65 @@ import { ProfileDrawing } from './profile-drawing';
 import { SiteMapDrawing } from './site-map-drawing';
 import { SourceList } from './source-list';
 
+/** A deferred part's stand-in height before it is first laid out: on a phone, and from 640 px up. */
+export interface Placeholder {
+  narrowRem: number;
+  wideRem: number;
+}
+
+const SCREENFUL: Placeholder = { narrowRem: 40, wideRem: 40 };
+
+// The stand-in height comes from two custom properties (set per part), picked by the breakpoint.
+const DEFERRED =
+  '[content-visibility:auto] [contain-intrinsic-size:auto_var(--narrow)] sm:[contain-intrinsic-size:auto_var(--wide)] print:[content-visibility:visible]';
+const placeholderStyle = (p: Placeholder) => ({ '--narrow': `${p.narrowRem}rem`, '--wide': `${p.wideRem}rem` }) as React.CSSProperties;
+
 /**
  * A section of the sheet. A `deferred` one is laid out only when the reader scrolls near it
  * (content-visibility; paper lays out everything): the first layout of the whole sheet, tables and
  * all, was most of the work a phone did to show its first screen. Until then it holds the place of
- * a screenful (afterwards, the size it last had), and its words stay in the page for find-in-page
- * and screen readers. Sections with links or buttons are never deferred: laid out by a checker
- * while deferred, a section's content runs past its placeholder over what follows, and targets
- * must not overlap.
+ * its placeholder (afterwards, the size it last had), and its words stay in the page for
+ * find-in-page and screen readers. A section with links or buttons needs a placeholder at least as
+ * tall as its content on the narrowest screen of each width: a checker that measures a link while
+ * the section is deferred lays the content out inside the placeholder, and content running past it
+ * would sit over what follows (targets must not overlap).
  */
-function Section({ title, children, deferred = false }: { title: string; children: React.ReactNode; deferred?: boolean }) {
+export function Section({
+  title,
+  children,
+  deferred = false,
+  placeholder = SCREENFUL,
+}: {
+  title: string;
+  children: React.ReactNode;
+  deferred?: boolean;
+  placeholder?: Placeholder;
+}) {
   return (
-    <section
-      className={`space-y-3 break-inside-avoid-page ${deferred ? '[contain-intrinsic-size:auto_40rem] [content-visibility:auto] print:[content-visibility:visible]' : ''}`}
-    >
+    <section className={`space-y-3 break-inside-avoid-page ${deferred ? DEFERRED : ''}`} style={deferred ? placeholderStyle(placeholder) : undefined}>
       <h2 className="border-b border-rule pb-1 text-xl font-bold text-slate">{title}</h2>
       {children}
     </section>
   );
+}
+
+/** A part of the page after the sheet (the conversation, the farmer's answer), deferred like a `Section`. */
+export function Deferred({ placeholder, children }: { placeholder: Placeholder; children: React.ReactNode }) {
+  return (
+    <div className={DEFERRED} style={placeholderStyle(placeholder)}>
+      {children}
+    </div>
+  );
+}
+
+/**
+ * The height lines of text need, rounded up, with `extraRem` for headings and gaps: each line of the
+ * sheet's type 1.75 rem with its spacing; about 26 characters to a line on a 320 px phone, and
+ * about 48 from 640 px up (the sheet is at most 70 characters wide).
+ */
+export function textPlaceholder(lines: string[], extraRem: number): Placeholder {
+  const height = (perLine: number) => extraRem + lines.reduce((sum, line) => sum + Math.max(1, Math.ceil(line.length / perLine)) * 1.75 + 0.75, 0);
+  return { narrowRem: Math.ceil(height(26)), wideRem: Math.ceil(height(48)) };
 }
 
 /** The farmer's sheet: the same words and numbers as the PDF, laid out for a phone and for paper. */
@@ -195,7 +236,11 @@ export function SheetBody({ v }: { v: SheetView }) {
         ))}
         <p className="font-bold">Local codes and licensed practice come first: have a qualified person check the design before you buy or build.</p>
       </Section>
-      <Section title="How we worked this out">
+      <Section
+        title="How we worked this out"
+        deferred
+        placeholder={textPlaceholder([v.surveyed, ...v.method, ...v.sources.map((src) => src.citation), v.engineVersion], 12)}
+      >
         <p>{v.surveyed}</p>
         <ul className="space-y-1 text-base">
           {v.method.map((m) => (
