@@ -135,13 +135,15 @@ export async function pullChanges(user: SessionUser, { cursor, limit }: { cursor
     // between them, but every revision up to the top was committed before the first one ran
     // (revisions commit in order). So the page keeps only changes up to it: a cursor past the top
     // could skip a row committed between two of the reads. Later ones come with the next pull.
-    const first = on.query<{ settings: unknown; top: number | string }[]>(
+    const first = on.query<{ settings: unknown; top: number | string | null }[]>(
       'SELECT settings, (SELECT value FROM rev_counter WHERE id = 1) AS top FROM organisations WHERE id = ?',
       [user.organisationId],
     );
     const visible = await visibleVisits(user, on);
     const [head] = await first;
     if (!head) throw new Error(`organisation ${user.organisationId} not found`);
+    // No counter row would make every page empty and hold every phone at its cursor: fail loudly.
+    if (head.top === null || !Number.isSafeInteger(Number(head.top))) throw new Error(`rev_counter answered ${String(head.top)}`);
     const all = await candidates(cursor, Number(head.top), limit, visible, on);
     const ownerIds = [
       ...new Set(
