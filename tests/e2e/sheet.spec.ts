@@ -174,8 +174,7 @@ test("a deferred part with links or buttons is no taller than its stand-in, on t
         .map((el) => ({
           name: el.querySelector('h2')?.textContent ?? '?',
           targets: el.querySelectorAll('a, button, input, textarea, select').length,
-          standIn: parseFloat(el.style.getPropertyValue(wide ? '--wide' : '--narrow')) * rem,
-          id: el.querySelector('h2')?.textContent ?? '',
+          standIn: parseFloat(el.style.getPropertyValue(wide ? '--stand-in-wide' : '--stand-in-narrow')) * rem,
         }));
     }, width >= 640);
     const withTargets = parts.filter((p) => p.targets > 0);
@@ -188,7 +187,7 @@ test("a deferred part with links or buttons is no taller than its stand-in, on t
       await section.scrollIntoViewIfNeeded();
       // Laid out now: its height is its content's.
       await expect.poll(async () => section.evaluate((el) => el.getBoundingClientRect().height)).toBeGreaterThan(0);
-      const height = await section.evaluate((el) => (el.closest('[style*="--narrow"]') as HTMLElement).getBoundingClientRect().height);
+      const height = await section.evaluate((el) => (el.closest('[style*="--stand-in-narrow"]') as HTMLElement).getBoundingClientRect().height);
       expect(height, `${part.name} at ${width} px`).toBeLessThanOrEqual(part.standIn);
     }
   }

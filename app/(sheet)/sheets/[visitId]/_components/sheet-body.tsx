@@ -14,8 +14,8 @@ const SCREENFUL: Placeholder = { narrowRem: 40, wideRem: 40 };
 
 // The stand-in height comes from two custom properties (set per part), picked by the breakpoint.
 const DEFERRED =
-  '[content-visibility:auto] [contain-intrinsic-size:auto_var(--narrow)] sm:[contain-intrinsic-size:auto_var(--wide)] print:[content-visibility:visible]';
-const placeholderStyle = (p: Placeholder) => ({ '--narrow': `${p.narrowRem}rem`, '--wide': `${p.wideRem}rem` }) as React.CSSProperties;
+  '[content-visibility:auto] [contain-intrinsic-size:auto_var(--stand-in-narrow)] sm:[contain-intrinsic-size:auto_var(--stand-in-wide)] print:[content-visibility:visible]';
+const placeholderStyle = (p: Placeholder) => ({ '--stand-in-narrow': `${p.narrowRem}rem`, '--stand-in-wide': `${p.wideRem}rem` }) as React.CSSProperties;
 
 /**
  * A section of the sheet. A `deferred` one is laid out only when the reader scrolls near it
