@@ -41,16 +41,24 @@ const byRev = (a: Change, b: Change) => a.rev - b.rev;
 const asChanges = (kind: Kind, rows: unknown[], exposedAt: (row: SyncedRow) => number = () => 0): Change[] =>
   (rows as SyncedRow[]).map((row) => ({ kind, rev: Math.max(Number(row.rev), exposedAt(row)), row }));
 
-/** The tables that hold a row past the cursor among the given keys: one statement, one row of flags. */
-async function tablesWithNews(cursor: number, probes: { name: string; table: string; key: string; ids: string[] }[], on: TxConnection): Promise<Set<string>> {
-  const asked = probes.filter((p) => p.ids.length > 0);
+/** A table whose rows a phone may already hold: its rows are read by `key` among `ids`. */
+interface SettledTable {
+  kind: Kind;
+  model: Parameters<typeof selectRows>[1];
+  key: string;
+  ids: string[];
+}
+
+/** The tables that hold a row past the cursor among their keys: one statement, one row of flags. */
+async function tablesWithNews(cursor: number, tables: SettledTable[], on: TxConnection): Promise<Set<SettledTable>> {
+  const asked = tables.filter((t) => t.ids.length > 0);
   if (asked.length === 0) return new Set();
-  const sql = `SELECT ${asked.map((p, i) => `EXISTS (SELECT 1 FROM ${quote(p.table)} WHERE ${p.key} IN (?) AND rev > ?) AS f${i}`).join(', ')}`;
+  const sql = `SELECT ${asked.map((t, i) => `EXISTS (SELECT 1 FROM ${quote(t.model.getTableName() as string)} WHERE ${t.key} IN (?) AND rev > ?) AS f${i}`).join(', ')}`;
   const [flags] = await on.query<Record<string, unknown>[]>(
     sql,
-    asked.flatMap((p) => [p.ids, cursor]),
+    asked.flatMap((t) => [t.ids, cursor]),
   );
-  return new Set(asked.filter((_, i) => Number(flags?.[`f${i}`]) === 1).map((p) => p.name));
+  return new Set(asked.filter((_, i) => Number(flags?.[`f${i}`]) === 1));
 }
 
 /**
@@ -76,11 +84,10 @@ async function candidates(cursor: number, top: number, limit: number, visible: P
   // Plain rows (no model instances): a page holds hundreds of records copied straight to JSON. The
   // statements go out together on the one connection (no pool connection per table).
   const none = Promise.resolve([] as PlainRow[]);
-  const tableOf = (model: Parameters<typeof selectRows>[1]) => model.getTableName() as string;
-  const settled = [
-    { name: 'farm', table: tableOf(Farm), key: 'id', ids: settledFarms },
-    { name: 'demandLine', table: tableOf(DemandLine), key: 'farm_id', ids: settledFarms },
-    ...VISIT_CHILDREN.map((entity) => ({ name: entity, table: tableOf(ENTITY_SPECS[entity].model), key: 'visit_id', ids: settledVisits })),
+  const settled: SettledTable[] = [
+    { kind: 'farm', model: Farm, key: 'id', ids: settledFarms },
+    { kind: 'demandLine', model: DemandLine, key: 'farm_id', ids: settledFarms },
+    ...VISIT_CHILDREN.map((entity) => ({ kind: entity, model: ENTITY_SPECS[entity].model, key: 'visit_id', ids: settledVisits })),
   ];
   const every = (model: Parameters<typeof selectRows>[1], key: string, ids: string[]) =>
     ids.length ? selectRows(on, model, { where: `${key} IN (?)`, replacements: [ids] }) : none;
@@ -89,25 +96,21 @@ async function candidates(cursor: number, top: number, limit: number, visible: P
   const demandAll = every(DemandLine, 'farm_id', exposedFarms);
   const childrenAll = Promise.all(VISIT_CHILDREN.map((entity) => every(ENTITY_SPECS[entity].model, 'visit_id', exposedVisits)));
   const news = await tablesWithNews(cursor, settled, on);
-  const newer = (model: Parameters<typeof selectRows>[1], name: string, key: string, ids: string[]) =>
-    news.has(name) ? selectRows(on, model, { where: `${key} IN (?) AND rev > ? ORDER BY rev LIMIT ?`, replacements: [ids, cursor, limit + 1] }) : none;
+  const newer = await Promise.all(
+    settled.map((t) =>
+      news.has(t) ? selectRows(on, t.model, { where: `${t.key} IN (?) AND rev > ? ORDER BY rev LIMIT ?`, replacements: [t.ids, cursor, limit + 1] }) : none,
+    ),
+  );
   const visitExposure = (row: SyncedRow) => exposedVisit.get(String(row.get('visitId'))) ?? 0;
   const farmExposed = (key: string) => (row: SyncedRow) => farmExposure.get(String(row.get(key))) ?? 0;
-  const [farmsNew, demandNew, childrenNew] = await Promise.all([
-    newer(Farm, 'farm', 'id', settledFarms),
-    newer(DemandLine, 'demandLine', 'farm_id', settledFarms),
-    Promise.all(VISIT_CHILDREN.map((entity) => newer(ENTITY_SPECS[entity].model, entity, 'visit_id', settledVisits))),
-  ]);
   return [
     ...asChanges(
       'visit',
       visible.filter((v) => v.rev > cursor),
     ),
-    ...asChanges('farm', farmsNew),
+    ...settled.flatMap((t, i) => asChanges(t.kind, newer[i] ?? [])),
     ...asChanges('farm', await farmsAll, farmExposed('id')),
-    ...asChanges('demandLine', demandNew),
     ...asChanges('demandLine', await demandAll, farmExposed('farmId')),
-    ...childrenNew.flatMap((rows, i) => asChanges(VISIT_CHILDREN[i] as ChildEntity, rows)),
     ...(await childrenAll).flatMap((rows, i) => asChanges(VISIT_CHILDREN[i] as ChildEntity, rows, visitExposure)),
   ]
     .filter((change) => change.rev <= top)
@@ -127,8 +130,7 @@ function cutPage(all: Change[], limit: number): Change[] {
  */
 export async function pullChanges(user: SessionUser, { cursor, limit }: { cursor: number; limit: number }): Promise<PullResponse> {
   // One connection for the whole page (its reads pipelined on it), not one pool connection per table.
-  // No transaction: revisions commit in order (DEVELOPERS.md, "Server revisions"), so each read
-  // seeing what was committed when it ran never skips a change below the page's cursor.
+  // No transaction: the page stops at the counter's committed value (below).
   const { visible, all, owners, settings } = await withConnection(getSequelize(), async (on) => {
     // The first statement reads the organisation's settings and the counter's committed value: the
     // page's top. Reads without a transaction each see a later moment, and a push may commit

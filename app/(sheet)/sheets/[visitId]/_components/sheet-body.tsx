@@ -5,7 +5,7 @@ import { SiteMapDrawing } from './site-map-drawing';
 import { SourceList } from './source-list';
 
 /** A deferred part's stand-in height before it is first laid out: on a phone, and from 640 px up. */
-export interface Placeholder {
+interface Placeholder {
   narrowRem: number;
   wideRem: number;
 }
@@ -27,7 +27,7 @@ const placeholderStyle = (p: Placeholder) => ({ '--stand-in-narrow': `${p.narrow
  * the section is deferred lays the content out inside the placeholder, and content running past it
  * would sit over what follows (targets must not overlap).
  */
-export function Section({
+function Section({
   title,
   children,
   deferred = false,
