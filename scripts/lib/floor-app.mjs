@@ -29,6 +29,13 @@ const FILES = {
     'export async function POST(request) {\n  const { ops } = await request.json();\n' +
     '  return Response.json({ results: ops.map((op) => ({ opId: op.opId, status: "applied" })) });\n}\n' +
     'export function GET() {\n  return Response.json({ changes: [], cursor: 0 });\n}\n',
+  // The same answers from the framework's other kind of endpoint (a Pages Router API route): the sync
+  // bench reports what each kind costs a request, beside Node's own http server.
+  'pages/api/echo-pages.js':
+    'export const config = { api: { bodyParser: { sizeLimit: "4mb" } } };\n' +
+    'export default function handler(req, res) {\n' +
+    '  if (req.method === "POST") return res.json({ results: req.body.ops.map((op) => ({ opId: op.opId, status: "applied" })) });\n' +
+    '  return res.json({ changes: [], cursor: 0 });\n}\n',
 };
 
 function nextVersion() {

@@ -3,16 +3,19 @@
 // connector in batches of 200: ops/s of both and the ratio, median of 11 runs (each run measures both).
 // (2) 50 devices at once, each pushing 50 ops and pulling, for a bounded number of rounds: p50/p99;
 // beside it the bare framework under the same load (the empty floor app's sync-shaped route handler),
-// the app's lightest route (the same 50 devices each asking GET /api/me at once), and the CPU the
-// app, MariaDB and this script use during the load (which of them is the bottleneck).
+// the app's lightest route (the same 50 devices each asking GET /api/me at once), the CPU the app,
+// MariaDB and this script use during the load (which of them is the bottleneck), and what the
+// framework alone costs a request by kind of endpoint (how much of the floor is the framework).
 // Run with npm run bench (it serves the app and sets BENCH_APP_URL).
+import { spawn } from 'node:child_process';
 import { randomUUID } from 'node:crypto';
+import { fileURLToPath } from 'node:url';
 import * as mariadb from 'mariadb';
 import { makeOrganisation, type TestUser } from '../integration/support/fixtures';
 import { putOp } from '../integration/support/sync';
 import { clientAt, clientFor, pool } from './support/http';
 import { cpuSeconds, processesNamed, processTree } from './support/proc';
-import { median, quantile, round, syncBudgets, type SyncFigures } from './support/budgets';
+import { median, pairedExtra, quantile, round, syncBudgets, type SyncFigures } from './support/budgets';
 import { floorApp, report } from './support/report';
 import { closeSequelize } from '@/lib/server/db';
 
@@ -28,6 +31,8 @@ const LOAD_DEADLINE_MS = 120_000;
 const SETTLE_MS = 1500;
 // The route/raw pairs are short (about a tenth of a second each): more of them give a steadier median.
 const RATIO_RUNS = 11;
+// Runs of each kind of endpoint in the framework's share (alternating order).
+const FRAMEWORK_RUNS = 3;
 
 const pointOps = (visitId: string, n: number) => Array.from({ length: n }, (_, i) => putOp('point', randomUUID(), {
   visitId, role: 'station', label: `Station ${i}`, lat: 52.4 + i / 1e5, lon: -3.6, accuracyM: 4,
@@ -132,28 +137,73 @@ async function lightestRun(devices: { user: TestUser }[]) {
   return { times, errors };
 }
 
+/** An endpoint of the floor's echo (one outcome per pushed op, an empty page of changes) and the processes serving it. */
+interface Echo {
+  url: string;
+  pids: number[];
+}
+
 /**
  * The bare framework under the load's own shape: the empty floor app (same Next.js, same `next
  * start`) has a route handler that reads the pushed JSON and answers an outcome per op, with no
  * session, database or validation. 50 devices each post the same 50 ops to it and then ask it for
- * changes, ROUNDS times, all at once; with the CPU per request of the floor's process.
+ * changes, ROUNDS times, all at once; with the CPU per request of the serving process.
  */
-async function bareRun(count: number) {
-  const { url, pid } = floorApp();
-  const floor = clientAt(url);
+async function bareRun(count: number, echo: Echo) {
+  const floor = clientAt(echo.url);
   const pushes: number[] = [];
   let errors = 0;
-  const tree = processTree(pid);
-  const cpu0 = cpuSeconds(tree);
+  const cpu0 = cpuSeconds(echo.pids);
   await pool(count, count, LOAD_DEADLINE_MS, async () => {
     for (let round = 0; round < ROUNDS; round++) {
-      const pushed = await floor.post('/api/echo', { ops: pointOps(randomUUID(), DEVICE_OPS) });
+      const pushed = await floor.post('', { ops: pointOps(randomUUID(), DEVICE_OPS) });
       if (pushed.status === 200 && (JSON.parse(pushed.body).results as unknown[]).length === DEVICE_OPS) pushes.push(pushed.ms); else errors++;
-      if ((await floor.get('/api/echo')).status !== 200) errors++;
+      if ((await floor.get('')).status !== 200) errors++;
     }
   });
-  const cpuMsPerRequest = ((cpuSeconds(tree) - cpu0) * 1000) / (count * ROUNDS * 2);
+  const cpuMsPerRequest = ((cpuSeconds(echo.pids) - cpu0) * 1000) / (count * ROUNDS * 2);
   return { pushes, errors, cpuMsPerRequest };
+}
+
+/** Node's own http server answering as the floor's echo (support/plain-echo.mjs), on a free port. */
+async function plainEcho(): Promise<Echo & { stop: () => void }> {
+  const child = spawn(process.execPath, [fileURLToPath(new URL('./support/plain-echo.mjs', import.meta.url))], { stdio: ['ignore', 'pipe', 'inherit'] });
+  const port = await new Promise<string>((resolve, reject) => {
+    child.stdout.once('data', (chunk: Buffer) => resolve(chunk.toString().trim()));
+    child.once('exit', (code) => reject(new Error(`the plain echo server exited (${code})`)));
+  });
+  return { url: `http://127.0.0.1:${port}`, pids: [child.pid as number], stop: () => child.kill() };
+}
+
+/**
+ * What the framework itself costs a request under the same load, by kind of endpoint: the floor's
+ * App Router route handler, a Pages Router API route of the same floor app, and Node's http server
+ * with no framework. Reported, not budgeted: it shows how much of the floor is the framework.
+ */
+async function frameworkShare(count: number) {
+  const { url, pid } = floorApp();
+  const plain = await plainEcho();
+  const kinds: { name: string; echo: Echo }[] = [
+    { name: 'App Router route handler (the floor)', echo: { url: `${url}/api/echo`, pids: processTree(pid) } },
+    { name: 'Pages Router API route', echo: { url: `${url}/api/echo-pages`, pids: processTree(pid) } },
+    { name: "Node's http server, no framework", echo: plain },
+  ];
+  try {
+    const runs = new Map(kinds.map((k) => [k.name, [] as Awaited<ReturnType<typeof bareRun>>[]]));
+    for (const kind of kinds) await bareRun(count, kind.echo); // warm-up
+    for (let run = 0; run < FRAMEWORK_RUNS; run++) for (const kind of run % 2 === 0 ? kinds : [...kinds].reverse()) runs.get(kind.name)?.push(await bareRun(count, kind.echo));
+    return kinds.map(({ name }) => {
+      const list = runs.get(name) ?? [];
+      return {
+        name: `framework alone, ${count} devices: ${name}`,
+        p99Ms: round(median(list.map((b) => quantile(b.pushes, 0.99)))),
+        errors: list.reduce((a, b) => a + b.errors, 0),
+        appCpuMsPerRequest: round(median(list.map((b) => b.cpuMsPerRequest))),
+      };
+    });
+  } finally {
+    plain.stop();
+  }
 }
 
 async function main() {
@@ -206,14 +256,16 @@ async function main() {
     const loads: Awaited<ReturnType<typeof loadRun>>[] = [];
     const lightest: Awaited<ReturnType<typeof lightestRun>>[] = [];
     const bare: Awaited<ReturnType<typeof bareRun>>[] = [];
-    await bareRun(devices.length); // warms the floor's route as routeRun warmed the app's
+    const { url: floorUrl, pid: floorPid } = floorApp();
+    const floorEcho: Echo = { url: `${floorUrl}/api/echo`, pids: processTree(floorPid) };
+    await bareRun(devices.length, floorEcho); // warms the floor's route as routeRun warmed the app's
     for (let run = 0; run < RUNS; run++) {
       if (run % 2 === 0) {
-        bare.push(await bareRun(devices.length));
+        bare.push(await bareRun(devices.length, floorEcho));
         loads.push(await loadRun(devices));
       } else {
         loads.push(await loadRun(devices));
-        bare.push(await bareRun(devices.length));
+        bare.push(await bareRun(devices.length, floorEcho));
       }
       lightest.push(await lightestRun(devices));
     }
@@ -238,6 +290,10 @@ async function main() {
         p50Ms: round(median(bare.map((b) => quantile(b.pushes, 0.5)))), p99Ms: round(median(bare.map((b) => quantile(b.pushes, 0.99)))),
         runs: bare.map((b) => round(quantile(b.pushes, 0.99))).join(' / '),
         errors: bare.reduce((a, b) => a + b.errors, 0), appCpuMsPerRequest: round(median(bare.map((b) => b.cpuMsPerRequest))) },
+      // The pairs' median of the app's CPU per request less the floor's: what the app's own work costs.
+      { name: `${DEVICES} devices: the app's own CPU per request (app − floor, median of the pairs)`,
+        appCpuMsPerRequest: round(pairedExtra({ app: loads.map((l) => (l.cpu.app * 1000) / (l.pushes.length + l.pulls.length)), floor: bare.map((b) => b.cpuMsPerRequest) })) },
+      ...(await frameworkShare(devices.length)),
       { name: `app's lightest route: ${DEVICES} devices GET /api/me at once`, samples: lightest.map((f) => f.times.length).join(' / '),
         p50Ms: round(median(lightest.map((f) => quantile(f.times, 0.5)))), p99Ms: round(median(lightest.map((f) => quantile(f.times, 0.99)))),
         errors: lightest.reduce((a, f) => a + f.errors, 0) },
