@@ -6,7 +6,7 @@
 // a tap). The empty App Router page (the floor) is loaded the same way in alternation with each
 // page (floor, page, floor, page…), and each page's budget is the median over the pairs of its
 // long-task time minus the floor's. Run with npm run bench.
-import { writeFileSync } from 'node:fs';
+import { mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { chromium, type Browser, type Page } from '@playwright/test';
 import { median, pairedExtra, round, startupBudgets, type Paired } from './support/budgets';
@@ -106,7 +106,10 @@ async function loadOnce(browser: Browser, target: Target): Promise<MainThreadWor
       writeFileSync(path.join(process.env.BENCH_JS_PROF, `${target.name.replace(/\W+/g, '-')}-${Date.now()}.cpuprofile`), JSON.stringify(profile));
     }
     // BENCH_TRACE_DIR keeps each load's trace (open it in Chromium's performance panel).
-    if (process.env.BENCH_TRACE_DIR) writeFileSync(path.join(process.env.BENCH_TRACE_DIR, `${target.name.replace(/\W+/g, '-')}-${Date.now()}.json`), raw);
+    if (process.env.BENCH_TRACE_DIR) {
+      mkdirSync(process.env.BENCH_TRACE_DIR, { recursive: true });
+      writeFileSync(path.join(process.env.BENCH_TRACE_DIR, `${target.name.replace(/\W+/g, '-')}-${Date.now()}.json`), raw);
+    }
     return mainThreadWork(JSON.parse(raw.toString('utf8')));
   } finally {
     await context.close();

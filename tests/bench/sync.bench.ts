@@ -1,6 +1,7 @@
 // Bench: sync throughput on loopback. (1) 1,000 new-point ops pushed over HTTP to the served app in
 // batches of 200, against the same rows (points, sync_ops, audit_log) inserted straight with the mariadb
-// connector in batches of 200: ops/s of both and the ratio, median of 11 runs (each run measures both).
+// connector in batches of 200: ops/s of both and the ratio, median of 11 runs (each run measures both);
+// beside them the floor's echo of the same batches (what the framework alone takes to receive them).
 // (2) 50 devices at once, each pushing 50 ops and pulling, for a bounded number of rounds: p50/p99;
 // beside it the bare framework under the same load (the empty floor app's sync-shaped route handler),
 // the app's lightest route (the same 50 devices each asking GET /api/me at once), the CPU the app,
@@ -78,6 +79,21 @@ async function rawRun(conn: mariadb.Connection, user: TestUser, visitId: string)
     await conn.batch('INSERT INTO sync_ops (op_id, user_id, entity, entity_id, outcome, created_at) VALUES (?, ?, ?, ?, ?, ?)',
       slice.map((op) => [op.opId, user.id, 'point', op.entityId, JSON.stringify({ opId: op.opId, status: 'applied', rev: 1 }), now]));
     await conn.commit();
+  }
+  return (OPS / (performance.now() - t0)) * 1000;
+}
+
+/**
+ * The same 1,000 ops posted in batches of 200 to the floor's echo (the framework reading each batch
+ * and answering an outcome per op, no work of the app's); ops/s.
+ */
+async function echoRun(echo: Echo): Promise<number> {
+  const floor = clientAt(echo.url);
+  const ops = pointOps(randomUUID(), OPS);
+  const t0 = performance.now();
+  for (let i = 0; i < OPS; i += BATCH) {
+    const res = await floor.post('', { ops: ops.slice(i, i + BATCH) });
+    if (res.status !== 200) throw new Error(`the floor's echo answered ${res.status}`);
   }
   return (OPS / (performance.now() - t0)) * 1000;
 }
@@ -213,13 +229,18 @@ async function main() {
   });
   try {
     const org = await makeOrganisation('bench-sync');
+    const { url: floorUrl, pid: floorPid } = floorApp();
+    const floorEcho: Echo = { url: `${floorUrl}/api/echo`, pids: processTree(floorPid) };
     // Warm both sides before timing: one warm-up left the first three pairs' route runs about a
     // third slower than the rest (the server's optimizing compiler still at work).
     for (let i = 0; i < 3; i++) await routeRun(org.otherAdvisor, org.otherVisit.id);
     await rawRun(conn, org.otherAdvisor, org.otherVisit.id);
+    await echoRun(floorEcho);
     const route: number[] = [];
     const raw: number[] = [];
     const ratios: number[] = [];
+    const echoes: number[] = [];
+    const ceilings: number[] = [];
     // Each run measures both, back to back, in alternating order: whatever the first leaves behind
     // (the server's screening a moment after the last batch, the database's own background work
     // after a burst of inserts) weighs on each side equally often.
@@ -240,6 +261,11 @@ async function main() {
       route.push(r);
       raw.push(w);
       ratios.push(r / w);
+      const e = await echoRun(floorEcho);
+      echoes.push(e);
+      // The most the route could reach if it did the raw inserts' work and the framework's and
+      // nothing else, one after the other: the raw run's time over the sum of both times.
+      ceilings.push(1 / w / (1 / w + 1 / e));
     }
 
     const orgs = await Promise.all(Array.from({ length: DEVICES / 2 }, (_, i) => makeOrganisation(`bench-load-${i}`)));
@@ -256,8 +282,6 @@ async function main() {
     const loads: Awaited<ReturnType<typeof loadRun>>[] = [];
     const lightest: Awaited<ReturnType<typeof lightestRun>>[] = [];
     const bare: Awaited<ReturnType<typeof bareRun>>[] = [];
-    const { url: floorUrl, pid: floorPid } = floorApp();
-    const floorEcho: Echo = { url: `${floorUrl}/api/echo`, pids: processTree(floorPid) };
     await bareRun(devices.length, floorEcho); // warms the floor's route as routeRun warmed the app's
     for (let run = 0; run < RUNS; run++) {
       if (run % 2 === 0) {
@@ -277,6 +301,9 @@ async function main() {
       { name: `push route over HTTP, ${OPS} ops in batches of ${BATCH}`, opsPerSecond: Math.round(median(route)), runs: route.map(Math.round).join(' / ') },
       { name: `raw mariadb batch insert, same rows`, opsPerSecond: Math.round(median(raw)), runs: raw.map(Math.round).join(' / ') },
       { name: 'route / raw ratio (same run)', ratio: round(median(ratios), 3), runs: ratios.map((x) => round(x, 3)).join(' / ') },
+      { name: `framework alone: the floor's echo of the same ${OPS} ops in batches of ${BATCH}`, opsPerSecond: Math.round(median(echoes)), runs: echoes.map(Math.round).join(' / ') },
+      { name: 'route / raw if the route did only the raw inserts and the framework its part (raw time ÷ raw + echo time)', ratio: round(median(ceilings), 3),
+        runs: ceilings.map((x) => round(x, 3)).join(' / ') },
       { name: `${DEVICES} devices: push of ${DEVICE_OPS} ops`, samples: loads.map((l) => l.pushes.length).join(' / '), p50Ms: p('pushes', 0.5), p99Ms: p('pushes', 0.99),
         runs: loads.map((l) => round(quantile(l.pushes, 0.99))).join(' / ') },
       { name: `${DEVICES} devices: pull`, samples: loads.map((l) => l.pulls.length).join(' / '), p50Ms: p('pulls', 0.5), p99Ms: p('pulls', 0.99) },
