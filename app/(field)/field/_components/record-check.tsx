@@ -1,11 +1,15 @@
 'use client';
 
 // Every capture form checks the record it is about to save with the shared schema the server uses
-// (react-hook-form with zodResolver), in the advisor's units, and asks "is this right?" about unusual
-// values before it saves. Messages sit at the field they are about; nothing is saved while any stands.
-// The schemas load on the form's first use (lib/client/load-record-checks.ts), after the screen painted.
+// (zodResolver, the resolver react-hook-form forms use), in the advisor's units, and asks "is this
+// right?" about unusual values before it saves. Messages sit at the field they are about; nothing is
+// saved while any stands. The schemas load on the form's first use (lib/client/load-record-checks.ts),
+// after the screen painted.
+// The forms keep their own inputs, so the check holds only its messages: no react-hook-form form. A
+// form's mount costs a form control, and a state update in its layout effect redraws the whole
+// capture form once more inside the commit that first draws it (a task of 50–130 ms at 4× slower CPU).
 import { useState } from 'react';
-import { useForm, type FieldValues } from 'react-hook-form';
+import type { FieldValues } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { loadRecordChecks, useRecordChecksOnFirstUse } from '@/lib/client/load-record-checks';
@@ -50,14 +54,11 @@ const isUnder = (path: string, prefix: string) => path === prefix || path.starts
  */
 export function useRecordCheck<E extends SyncEntity>(entity: E, units: UnitSystem) {
   useRecordChecksOnFirstUse();
-  const form = useForm<FieldValues>({
-    resolver: async (values, context, options) => (await loadRecordChecks()).recordResolver(entity, units)(values, context, options),
-  });
-  const errors = form.formState.errors;
+  // The messages on screen by field path ("" for the record as a whole).
+  const [messages, setMessages] = useState<Record<string, string>>({});
   const [asks, setAsks] = useState<Unusual[]>([]);
   const [confirmed, setConfirmed] = useState<string[]>([]);
 
-  const messages = collect(errors);
   const check: RecordCheck = {
     errorAt: (path, under = false) => {
       const direct = messages[path];
@@ -74,7 +75,7 @@ export function useRecordCheck<E extends SyncEntity>(entity: E, units: UnitSyste
         .filter(([p]) => !shown.some((s) => isUnder(p, s)))
         .map(([, m]) => m),
     clear: () => {
-      form.clearErrors();
+      setMessages({});
       setAsks([]);
       setConfirmed([]);
     },
@@ -85,12 +86,15 @@ export function useRecordCheck<E extends SyncEntity>(entity: E, units: UnitSyste
     try {
       checks = await loadRecordChecks();
     } catch {
-      form.setError('root', { type: 'load', message: CHECKS_MISSING });
+      setMessages((shown) => ({ ...shown, '': CHECKS_MISSING }));
       return false;
     }
-    const { unusualIn, withConfirmations } = checks;
-    form.reset(fields as FieldValues);
-    if (!(await form.trigger())) {
+    const { recordResolver, unusualIn, withConfirmations } = checks;
+    // No form fields are registered, so the resolver is asked about the whole record.
+    const { errors } = await recordResolver(entity, units)(fields as FieldValues, undefined, { fields: {}, names: [], shouldUseNativeValidation: false });
+    const found = collect(errors);
+    setMessages(found);
+    if (Object.keys(found).length > 0) {
       setAsks([]);
       return false;
     }
@@ -102,11 +106,11 @@ export function useRecordCheck<E extends SyncEntity>(entity: E, units: UnitSyste
       await saveRecord(entity, id, record as Partial<EntityFields<E>>, units);
     } catch (error) {
       if (!(error instanceof RecordRefused)) throw error;
-      for (const [path, message] of Object.entries(error.messages)) form.setError(path || 'root', { type: 'refused', message });
+      setMessages({ ...error.messages });
       setAsks(error.unusual);
       return false;
     }
-    form.clearErrors();
+    setMessages({});
     setConfirmed([]);
     return true;
   }
