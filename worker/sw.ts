@@ -5,7 +5,8 @@ import { defaultCache } from '@serwist/next/worker';
 import type { PrecacheEntry, SerwistGlobalConfig } from 'serwist';
 import { tileRoute } from './tile-route';
 import { NetworkOnly, Serwist } from 'serwist';
-import { runSync, SYNC_NAME } from '../lib/client/sync/runner';
+import { runSync } from '../lib/client/sync/runner';
+import { SYNC_NAME } from '../lib/client/sync/sync-name';
 
 declare global {
   interface WorkerGlobalScope extends SerwistGlobalConfig {

@@ -1,5 +1,5 @@
-// The named field queries: the frame's and the home's reads of the phone's database, and a capture
-// screen's records (the flow screen's source and measurements). Pages ask for them through
+// The named field queries: the frame's and the home's reads of the phone's database, a visit with its
+// farm, and a capture screen's records (the flow screen's source and measurements). Pages ask for them through
 // useFieldQuery (with an argument where one is named); the field worker runs them (field-host.ts),
 // so they are not read again on the page's main thread as the worker's sync writes, and a page
 // without the worker runs them itself. Small records and counts from indexes only: never ops or
@@ -55,6 +55,13 @@ export async function homeVisits(db: FieldDatabase) {
   };
 }
 
+/** The visit and its farm (null when the phone does not hold the visit). */
+export async function visitWithFarm(db: FieldDatabase, visitId: string) {
+  const visit = await db.visits.get(visitId);
+  if (!visit) return null;
+  return { visit, farm: (await db.farms.get(visit.farmId)) ?? null };
+}
+
 /**
  * The visit's water source (the first not deleted). Before the phone's first sync run, none means
  * "not fetched yet" (as on the home): undefined, so the page waits rather than offer to name a source
@@ -71,7 +78,7 @@ export async function flowMeasurements(db: FieldDatabase, visitId: string) {
   return (await db.flowMeasurements.where('visitId').equals(visitId).toArray()).filter((m) => !m.deletedAt);
 }
 
-export const FRAME_QUERIES = { syncSummary, homeVisits, flowSource, flowMeasurements };
+export const FRAME_QUERIES = { syncSummary, homeVisits, visitWithFarm, flowSource, flowMeasurements };
 export type FrameQuery = keyof typeof FRAME_QUERIES;
 /** What a query is asked about (a visit's id), or undefined for one that takes nothing. */
 export type FrameArg<Q extends FrameQuery> = Parameters<(typeof FRAME_QUERIES)[Q]>[1];

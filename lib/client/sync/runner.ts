@@ -7,10 +7,8 @@ import type { SyncRecord } from './meta';
 import { uploadPhotos, type UploadProgress } from './photos';
 import { pullAll } from './pull';
 import { pushAll } from './push';
+import { SYNC_NAME } from './sync-name';
 import { OfflineError, SyncHttpError } from './transport';
-
-/** The one name of the sync: the Web Lock a run holds and the Background Sync tag that wakes one. */
-export const SYNC_NAME = 'fallbook-sync';
 
 export type SyncOutcome = SyncRecord | { skipped: 'busy' };
 

@@ -4,7 +4,8 @@
 // Sync also wakes the service worker later, even with the page closed. A Web Lock keeps one run at a time.
 import { runFieldSync } from '../field-host';
 import type { UploadProgress } from './photos';
-import { SYNC_NAME, type SyncOutcome } from './runner';
+import type { SyncOutcome } from './runner';
+import { SYNC_NAME } from './sync-name';
 
 const TIMER_MS = 60_000;
 

@@ -13,7 +13,6 @@ import type { FieldValues } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { loadRecordChecks, useRecordChecksOnFirstUse } from '@/lib/client/load-record-checks';
-import { saveRecord } from '@/lib/client/outbox';
 import { RecordRefused } from '@/lib/client/record-refused';
 import type { UnitSystem } from '@/lib/shared/domain';
 import type { Unusual } from '@/lib/shared/plausibility';
@@ -83,8 +82,10 @@ export function useRecordCheck<E extends SyncEntity>(entity: E, units: UnitSyste
 
   async function save(id: string, fields: EntityFields<E>): Promise<boolean> {
     let checks;
+    let saveRecord;
     try {
-      checks = await loadRecordChecks();
+      // The outbox (and Dexie with it) loads at the first save, not with the screen.
+      [checks, { saveRecord }] = await Promise.all([loadRecordChecks(), import('@/lib/client/outbox')]);
     } catch {
       setMessages((shown) => ({ ...shown, '': CHECKS_MISSING }));
       return false;

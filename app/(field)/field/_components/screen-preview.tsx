@@ -19,14 +19,20 @@ import { useUnits } from './use-field-data';
 /** The feasibility screen computed on the phone from what is captured so far. */
 export function ScreenPreview({ visitId }: { visitId: string }) {
   const units = useUnits();
-  const preview = useFieldQuery(async () => {
-    const input = await localSiteReadings(visitId);
-    if (!input) return null;
-    const parsed = siteReadingsSchema.safeParse(input, { error: (issue) => plainIssueMessage(issue, units) });
-    if (!parsed.success) return { kind: 'missing' as const, missing: readingIssues(parsed.error.issues) };
-    return { kind: 'screened' as const, screening: screenSite(parsed.data) };
-  }, [visitId, units]);
-  if (!preview) return null;
+  const preview = useFieldQuery(
+    units === undefined
+      ? null
+      : async () => {
+          const input = await localSiteReadings(visitId);
+          if (!input) return null;
+          const parsed = siteReadingsSchema.safeParse(input, { error: (issue) => plainIssueMessage(issue, units) });
+          if (!parsed.success) return { kind: 'missing' as const, missing: readingIssues(parsed.error.issues) };
+          return { kind: 'screened' as const, screening: screenSite(parsed.data) };
+        },
+    [visitId, units],
+  );
+  // Nothing until the reader's units are known: the figures are shown in them.
+  if (!preview || units === undefined) return null;
   return (
     <Card as="section" tone="strong" aria-labelledby="preview">
       <h2 id="preview" className="text-xl font-bold">

@@ -2,10 +2,10 @@
 
 // Deletes on the phone take one tap and can be taken back for a while: the delete waits a few seconds
 // before it is offered to the server, and "Undo" brings the record back as long as it has not gone.
+// The outbox (and Dexie with it) loads at the first delete, not with the screen.
 import { useEffect, useRef, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
-import { deleteRecord, undoDelete } from '@/lib/client/outbox';
 import { announceSave } from '@/lib/client/sync/triggers';
 import type { SyncEntity } from '@/lib/shared/schemas/sync';
 
@@ -40,6 +40,7 @@ export function useUndoableDelete() {
 
   async function remove(entity: SyncEntity, id: string, what: string) {
     settle();
+    const { deleteRecord } = await import('@/lib/client/outbox');
     await deleteRecord(entity, id, UNDO_WINDOW_MS);
     setNote(null);
     setPending({ entity, id, what });
@@ -53,8 +54,10 @@ export function useUndoableDelete() {
   async function undo() {
     if (!pending) return;
     settle();
+    const { undoDelete } = await import('@/lib/client/outbox');
     const back = await undoDelete(pending.entity, pending.id);
-    setNote(back ? `${pending.what} is back.` : `${pending.what} had already gone to the server; add it again if you need it.`);
+    const what = pending.what.charAt(0).toUpperCase() + pending.what.slice(1);
+    setNote(back ? `${what} is back.` : `${what} had already gone to the server; add it again if you need it.`);
     setPending(null);
   }
 

@@ -1,10 +1,9 @@
 'use client';
 
-import { useFieldQuery } from './use-field-query';
 import { useSearchParams } from 'next/navigation';
-import { fieldDb } from '@/lib/client/db';
-import { getMeta } from '@/lib/client/sync/meta';
-import type { SessionUser, UnitSystem } from '@/lib/shared/domain';
+import type { UnitSystem } from '@/lib/shared/domain';
+import { useFieldUser } from './field-session';
+import { useFieldQuery } from './use-field-query';
 
 /** The visit id from `?id=`: field routes carry ids in the query so they are static and open offline. */
 export function useVisitId(): string {
@@ -13,15 +12,14 @@ export function useVisitId(): string {
 
 /** The visit and its farm from the phone's database (undefined while loading, null if absent). */
 export function useVisit(id: string) {
-  return useFieldQuery(async () => {
-    const visit = await fieldDb().visits.get(id);
-    if (!visit) return null;
-    const farm = await fieldDb().farms.get(visit.farmId);
-    return { visit, farm: farm ?? null };
-  }, [id]);
+  return useFieldQuery('visitWithFarm', id);
 }
 
-/** The reader's unit system (remembered user's preference). */
-export function useUnits(): UnitSystem {
-  return useFieldQuery(async () => (await getMeta<SessionUser>('user'))?.units ?? 'metric', [], 'metric');
+/**
+ * The reader's unit system: the field frame's person's (remembered on the phone, then confirmed by
+ * the server), or undefined until the frame knows who it is. A screen holds its fields until then,
+ * so nothing is typed against labels in the wrong units.
+ */
+export function useUnits(): UnitSystem | undefined {
+  return useFieldUser()?.units;
 }

@@ -125,7 +125,10 @@ export default function SyncPage() {
       <h2 className="text-xl font-bold">{parked.length > 0 ? decisionWords(parked.length) : 'Needs your decision'}</h2>
       {parked.length === 0 && <p className="text-stone">Nothing to decide.</p>}
       <ul className="space-y-3">
-        {parked.map((e) => (e.status === 'conflict' ? <Conflict key={e.seq} entry={e} units={units} /> : <Refused key={e.seq} entry={e} />))}
+        {/* A conflict shows both values in the reader's units: it waits for them. */}
+        {parked.map((e) =>
+          e.status !== 'conflict' ? <Refused key={e.seq} entry={e} /> : units !== undefined ? <Conflict key={e.seq} entry={e} units={units} /> : null,
+        )}
       </ul>
       <RefusedPhotos />
     </div>

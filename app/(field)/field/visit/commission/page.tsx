@@ -22,7 +22,9 @@ import { commissioningInputSchema } from '@/lib/shared/schemas/commissioning';
 import { showQuantity } from '@/lib/shared/display/quantities';
 import { PrimaryButton, SectionHeader } from '../../_components/choice';
 import { NumberField } from '../../_components/number-field';
-import { useUnits, useVisitId } from '../../_components/use-field-data';
+import { useVisitId } from '../../_components/use-field-data';
+import { WithUnits } from '../../_components/with-units';
+import type { UnitSystem } from '@/lib/shared/domain';
 import { CheckSummary } from './_components/check-summary';
 import { RecordedChecks } from './_components/recorded-checks';
 
@@ -30,9 +32,8 @@ import { RecordedChecks } from './_components/recorded-checks';
  * Commissioning check: efficiencies at once on the phone; the record is kept on the phone and queued
  * in the outbox, so it survives no signal; the server stores it and compares it with the screening when it arrives.
  */
-function CommissionPage() {
+function CommissionPage({ units }: { units: UnitSystem }) {
   const visitId = useVisitId();
-  const units = useUnits();
   const [driveLps, setDriveLps] = useState<number | undefined>();
   const [deliveredLps, setDeliveredLps] = useState<number | undefined>();
   const [beats, setBeats] = useState<number | undefined>();
@@ -167,7 +168,7 @@ function CommissionPage() {
 export default function Page() {
   return (
     <Suspense>
-      <CommissionPage />
+      <WithUnits title="Commissioning check">{(units) => <CommissionPage units={units} />}</WithUnits>
     </Suspense>
   );
 }

@@ -19,7 +19,8 @@ import type { PullResponse } from '@/lib/shared/schemas/sync';
 import { PrimaryButton, SectionHeader } from '../../_components/choice';
 import { NumberField } from '../../_components/number-field';
 import { FieldIssue, useRecordCheck } from '../../_components/record-check';
-import { useUnits, useVisit, useVisitId } from '../../_components/use-field-data';
+import { useVisit, useVisitId } from '../../_components/use-field-data';
+import { WithUnits } from '../../_components/with-units';
 import { useUndoableDelete } from '../../_components/undo-delete';
 
 const KINDS = Object.values(DEMAND_CATALOGUE);
@@ -43,9 +44,8 @@ function perHeadText(kind: string, litres: number, units: UnitSystem): string {
   return kind === GARDEN ? showQuantity(litres, 'litresPerArea', units) : `${showQuantity(litres, 'litresPerHead', units)} each`;
 }
 
-function DemandPage() {
+function DemandPage({ units }: { units: UnitSystem }) {
   const visitId = useVisitId();
-  const units = useUnits();
   const { remove, bar } = useUndoableDelete();
   const data = useVisit(visitId);
   const farmId = data?.visit.farmId ?? '';
@@ -181,7 +181,7 @@ function DemandPage() {
 export default function Page() {
   return (
     <Suspense>
-      <DemandPage />
+      <WithUnits title="Water needed">{(units) => <DemandPage units={units} />}</WithUnits>
     </Suspense>
   );
 }

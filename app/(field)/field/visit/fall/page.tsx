@@ -8,14 +8,15 @@ import { fieldDb } from '@/lib/client/db';
 import { showQuantity } from '@/lib/shared/display/quantities';
 import { FALL_METHOD_WORDS, wordFor } from '@/lib/shared/reading-words';
 import { Choice, SectionHeader } from '../../_components/choice';
-import { useUnits, useVisitId } from '../../_components/use-field-data';
+import { useVisitId } from '../../_components/use-field-data';
+import { WithUnits } from '../../_components/with-units';
+import type { UnitSystem } from '@/lib/shared/domain';
 import { useUndoableDelete } from '../../_components/undo-delete';
 import { FallForm } from './_components/fall-form';
 import { liveResult } from './_components/run-builders';
 
-function FallPage() {
+function FallPage({ units }: { units: UnitSystem }) {
   const visitId = useVisitId();
-  const units = useUnits();
   const { remove, bar } = useUndoableDelete();
   const [purpose, setPurpose] = useState<'fall' | 'lift'>('fall');
   const saved = useFieldQuery(
@@ -70,7 +71,7 @@ function FallPage() {
 export default function Page() {
   return (
     <Suspense>
-      <FallPage />
+      <WithUnits title="Fall and lift">{(units) => <FallPage units={units} />}</WithUnits>
     </Suspense>
   );
 }

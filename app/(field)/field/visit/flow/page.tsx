@@ -7,7 +7,6 @@ import { Card } from '@/components/ui/card';
 import { Input } from '@/components/ui/control';
 import type { LocalRecord } from '@/lib/client/db';
 import { newId } from '@/lib/client/ids';
-import { saveRecord } from '@/lib/client/outbox';
 import { announceSave } from '@/lib/client/sync/triggers';
 import { floatFlowLps, summarise, vNotchFlowLps, volumetricFlowLps } from '@/lib/engine/flow';
 import type { UnitSystem } from '@/lib/shared/domain';
@@ -53,6 +52,8 @@ function SourceName({ visitId, source, units }: { visitId: string; source: Local
       className="space-y-3"
       onSubmit={async (e) => {
         e.preventDefault();
+        // The outbox (and Dexie with it) loads at the first save, not with the screen.
+        const { saveRecord } = await import('@/lib/client/outbox');
         await saveRecord('waterSource', newId(), { visitId, name: name.trim() || 'Main source', kind: 'creek', notes: '' });
         announceSave();
       }}
@@ -75,8 +76,9 @@ function FlowPage() {
   // Undefined before the phone's first sync run (the source may be on its way), null once none came.
   const source = useFieldQuery('flowSource', visitId);
   const saved = useFieldQuery('flowMeasurements', visitId);
-  // The form and the saved list are drawn together once both are read, so neither pushes the other down.
-  if (source === undefined || saved === undefined) {
+  // The form and the saved list are drawn together once both are read and the reader's units are
+  // known, so neither pushes the other down and nothing is typed against labels in the wrong units.
+  if (units === undefined || source === undefined || saved === undefined) {
     return (
       <div className="space-y-5">
         <SectionHeader visitId={visitId} title="Source and flow" />

@@ -16,7 +16,8 @@ import { announceSave } from '@/lib/client/sync/triggers';
 import type { UnitSystem } from '@/lib/shared/domain';
 import { PrimaryButton, SectionHeader } from '../../_components/choice';
 import { NumberField } from '../../_components/number-field';
-import { useUnits, useVisitId } from '../../_components/use-field-data';
+import { useVisitId } from '../../_components/use-field-data';
+import { WithUnits } from '../../_components/with-units';
 
 const MATERIALS = Object.values(PIPE_MATERIALS);
 
@@ -179,9 +180,8 @@ function PipesForm({ visitId, existing, units }: { visitId: string; existing: Lo
   );
 }
 
-function PipesPage() {
+function PipesPage({ units }: { units: UnitSystem }) {
   const visitId = useVisitId();
-  const units = useUnits();
   const existing = useFieldQuery(async () => (await fieldDb().pipeRuns.where('visitId').equals(visitId).toArray()).filter((p) => !p.deletedAt), [visitId]);
   return (
     <div className="space-y-5">
@@ -194,7 +194,7 @@ function PipesPage() {
 export default function Page() {
   return (
     <Suspense>
-      <PipesPage />
+      <WithUnits title="Pipe runs">{(units) => <PipesPage units={units} />}</WithUnits>
     </Suspense>
   );
 }

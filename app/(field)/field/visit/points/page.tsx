@@ -11,13 +11,14 @@ import { POINT_ROLE_WORDS } from '@/lib/shared/reading-words';
 import { showQuantity } from '@/lib/shared/display/quantities';
 import { SectionHeader } from '../../_components/choice';
 import { OfflineMapNote } from '../../_components/offline-map-note';
-import { useUnits, useVisitId } from '../../_components/use-field-data';
+import { useVisitId } from '../../_components/use-field-data';
+import { WithUnits } from '../../_components/with-units';
+import type { UnitSystem } from '@/lib/shared/domain';
 import { useUndoableDelete } from '../../_components/undo-delete';
 import { PointForm } from './_components/point-form';
 
-function PointsPage() {
+function PointsPage({ units }: { units: UnitSystem }) {
   const visitId = useVisitId();
-  const units = useUnits();
   const { remove, bar } = useUndoableDelete();
   const all = useFieldQuery(async () => (await fieldDb().points.where('visitId').equals(visitId).toArray()).filter((p) => !p.deletedAt), [visitId]);
   // Creek-profile stations (booked along the bank) live on the profile page: dozens of them would bury the site points here.
@@ -74,7 +75,7 @@ function PointsPage() {
 export default function Page() {
   return (
     <Suspense>
-      <PointsPage />
+      <WithUnits title="Points">{(units) => <PointsPage units={units} />}</WithUnits>
     </Suspense>
   );
 }

@@ -15,15 +15,16 @@ import { formatCount, formatPercent } from '@/lib/shared/display/numbers';
 import { showQuantity } from '@/lib/shared/display/quantities';
 import { PrimaryButton, SectionHeader } from '../../_components/choice';
 import { NumberField } from '../../_components/number-field';
-import { useUnits, useVisitId } from '../../_components/use-field-data';
+import { useVisitId } from '../../_components/use-field-data';
+import { WithUnits } from '../../_components/with-units';
+import type { UnitSystem } from '@/lib/shared/domain';
 import { useUndoableDelete } from '../../_components/undo-delete';
 import { PositionsChart } from './_components/positions-chart';
 import { PositionsMapPanel } from './_components/positions-map-panel';
 import { StationForm } from './_components/station-form';
 
-function PositionsPage() {
+function PositionsPage({ units }: { units: UnitSystem }) {
   const visitId = useVisitId();
-  const units = useUnits();
   const profile = useFieldQuery(() => localProfile(visitId), [visitId]);
   const [offsetM, setOffsetM] = useState<number | undefined>(0);
   const [tankLevel, setTankLevel] = useState<number | undefined>();
@@ -186,7 +187,7 @@ function PositionsPage() {
   );
 }
 
-function StationList({ visitId, units }: { visitId: string; units: ReturnType<typeof useUnits> }) {
+function StationList({ visitId, units }: { visitId: string; units: UnitSystem }) {
   const rows = useFieldQuery(
     async () =>
       (await fieldDb().points.where('visitId').equals(visitId).toArray())
@@ -221,7 +222,7 @@ function StationList({ visitId, units }: { visitId: string; units: ReturnType<ty
 export default function Page() {
   return (
     <Suspense>
-      <PositionsPage />
+      <WithUnits title="Creek profile and best positions">{(units) => <PositionsPage units={units} />}</WithUnits>
     </Suspense>
   );
 }
