@@ -1,5 +1,5 @@
 // The named field queries: the frame's and the home's reads of the phone's database, a visit with its
-// farm, and a capture screen's records (the flow screen's source and measurements). Pages ask for them through
+// farm, and capture screens' records (the flow screen's source and measurements, the fall runs). Pages ask for them through
 // useFieldQuery (with an argument where one is named); the field worker runs them (field-host.ts),
 // so they are not read again on the page's main thread as the worker's sync writes, and a page
 // without the worker runs them itself. Small records and counts from indexes only: never ops or
@@ -73,12 +73,17 @@ export async function flowSource(db: FieldDatabase, visitId: string) {
   return (await db.meta.get('lastRun')) === undefined ? undefined : null;
 }
 
+/** The visit's fall and lift runs, not deleted, in the order they were booked. */
+export async function fallReadings(db: FieldDatabase, visitId: string) {
+  return (await db.fallReadings.where('visitId').equals(visitId).toArray()).filter((r) => !r.deletedAt).sort((a, b) => a.seq - b.seq);
+}
+
 /** The visit's flow measurements, not deleted. */
 export async function flowMeasurements(db: FieldDatabase, visitId: string) {
   return (await db.flowMeasurements.where('visitId').equals(visitId).toArray()).filter((m) => !m.deletedAt);
 }
 
-export const FRAME_QUERIES = { syncSummary, homeVisits, visitWithFarm, flowSource, flowMeasurements };
+export const FRAME_QUERIES = { syncSummary, homeVisits, visitWithFarm, flowSource, flowMeasurements, fallReadings };
 export type FrameQuery = keyof typeof FRAME_QUERIES;
 /** What a query is asked about (a visit's id), or undefined for one that takes nothing. */
 export type FrameArg<Q extends FrameQuery> = Parameters<(typeof FRAME_QUERIES)[Q]>[1];

@@ -1,7 +1,8 @@
 // What a field page loads before it is drawn: the modules it imports statically (not `import type`,
-// not `import()`), followed through the project's files. The field home and the flow screen must
-// not load Dexie or zod with them: the phone's database is read by the field worker, the outbox
-// loads at the first save or delete, and the shared schemas at the first touch (DEVELOPERS.md).
+// not `import()`), followed through the project's files. The field home and the flow and fall
+// screens must not load Dexie or zod with them: the phone's database is read by the field worker,
+// the outbox loads at the first save or delete, and the shared schemas at the first touch
+// (DEVELOPERS.md).
 import { existsSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import ts from 'typescript';
@@ -69,7 +70,7 @@ const NOT_AT_START = (key: string) =>
   key === 'dexie' || key === 'zod' || key.startsWith('zod/') || key === 'lib/client/db.ts' || key === 'lib/client/outbox.ts';
 
 describe('what a field page loads before it is drawn', () => {
-  for (const page of ['app/(field)/field/page.tsx', 'app/(field)/field/visit/flow/page.tsx']) {
+  for (const page of ['app/(field)/field/page.tsx', 'app/(field)/field/visit/flow/page.tsx', 'app/(field)/field/visit/fall/page.tsx']) {
     it(`${page} reaches neither Dexie, the outbox nor zod through its static imports`, () => {
       const graph = startUpGraph([...FIELD_FRAME, page]);
       // The walk sees the page's own components, so it is not trivially empty.
@@ -80,7 +81,7 @@ describe('what a field page loads before it is drawn', () => {
   }
 
   it('notices a static import of the outbox (the check can fail)', () => {
-    const graph = startUpGraph(['app/(field)/field/visit/fall/page.tsx']);
+    const graph = startUpGraph(['app/(field)/field/visit/pipes/page.tsx']);
     expect([...graph.keys()].filter(NOT_AT_START)).toEqual(expect.arrayContaining(['lib/client/db.ts', 'dexie']));
   });
 });

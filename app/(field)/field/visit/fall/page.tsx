@@ -4,7 +4,6 @@ import { useFieldQuery } from '../../_components/use-field-query';
 import { Suspense, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
-import { fieldDb } from '@/lib/client/db';
 import { showQuantity } from '@/lib/shared/display/quantities';
 import { FALL_METHOD_WORDS, wordFor } from '@/lib/shared/reading-words';
 import { Choice, SectionHeader } from '../../_components/choice';
@@ -19,10 +18,7 @@ function FallPage({ units }: { units: UnitSystem }) {
   const visitId = useVisitId();
   const { remove, bar } = useUndoableDelete();
   const [purpose, setPurpose] = useState<'fall' | 'lift'>('fall');
-  const saved = useFieldQuery(
-    async () => (await fieldDb().fallReadings.where('visitId').equals(visitId).toArray()).filter((r) => !r.deletedAt).sort((a, b) => a.seq - b.seq),
-    [visitId],
-  );
+  const saved = useFieldQuery('fallReadings', visitId);
   return (
     <div className="space-y-5">
       <SectionHeader visitId={visitId} title="Fall and lift" />

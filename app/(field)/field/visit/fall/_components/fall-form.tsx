@@ -2,7 +2,6 @@
 
 import { useEffect, useState } from 'react';
 import { Card } from '@/components/ui/card';
-import { fieldDb } from '@/lib/client/db';
 import { setDirty } from '@/lib/client/dirty';
 import { newId } from '@/lib/client/ids';
 import { announceSave } from '@/lib/client/sync/triggers';
@@ -59,6 +58,8 @@ export function FallForm({ visitId, purpose, units }: { visitId: string; purpose
       setMessage('Fill in every reading of the run first.');
       return;
     }
+    // Dexie loads at the first save, not with the screen (the runs on screen come from the field worker).
+    const { fieldDb } = await import('@/lib/client/db');
     const seq = await fieldDb().fallReadings.where('visitId').equals(visitId).count();
     const saved = await saveChecked(newId(), {
       visitId,

@@ -1,6 +1,7 @@
 // Turns the rows typed on the fall page into a run of the shared schema, and computes the live
 // result with the engine (the same code the server runs).
-import { altitudeFallM, barometricFallM, clinometerFallM, hoseLevelFallM, levelRun } from '@/lib/engine';
+// The fall module itself, not the engine's index (which brings the shared schemas, and zod, with it).
+import { altitudeFallM, barometricFallM, clinometerFallM, hoseLevelFallM, levelRun } from '@/lib/engine/fall';
 import type { EntityFields } from '@/lib/shared/schemas/sync';
 import type { Row } from './row-editor';
 
