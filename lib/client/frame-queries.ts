@@ -1,8 +1,8 @@
 // The named field queries: the frame's and the home's reads of the phone's database, a visit with its
-// farm, and capture screens' records (the flow screen's source and measurements, the fall runs). Pages ask for them through
-// useFieldQuery (with an argument where one is named); the field worker runs them (field-host.ts),
-// so they are not read again on the page's main thread as the worker's sync writes, and a page
-// without the worker runs them itself. Small records and counts from indexes only: never ops or
+// farm, and capture screens' records (the flow screen's source and measurements, the fall runs).
+// Pages ask for them through useFieldQuery (with an argument where one is named); the field worker
+// runs them (field-host.ts), so they are not read again on the page's main thread as the worker's
+// sync writes, and a page without the worker runs them itself. Small records and counts from indexes only: never ops or
 // photo bytes.
 import type { FieldDatabase, LocalFarm, LocalVisit } from './db';
 import { photoQueueCounts } from './photo-queue';

@@ -196,12 +196,11 @@ async function plainEcho(): Promise<Echo & { stop: () => void }> {
  * App Router route handler, a Pages Router API route of the same floor app, and Node's http server
  * with no framework. Reported, not budgeted: it shows how much of the floor is the framework.
  */
-async function frameworkShare(count: number) {
-  const { url, pid } = floorApp();
+async function frameworkShare(count: number, floorAt: (path: string) => Echo) {
   const plain = await plainEcho();
   const kinds: { name: string; echo: Echo }[] = [
-    { name: 'App Router route handler (the floor)', echo: { url: `${url}/api/echo`, pids: processTree(pid) } },
-    { name: 'Pages Router API route', echo: { url: `${url}/api/echo-pages`, pids: processTree(pid) } },
+    { name: 'App Router route handler (the floor)', echo: floorAt('/api/echo') },
+    { name: 'Pages Router API route', echo: floorAt('/api/echo-pages') },
     { name: "Node's http server, no framework", echo: plain },
   ];
   try {
@@ -229,8 +228,10 @@ async function main() {
   });
   try {
     const org = await makeOrganisation('bench-sync');
-    const { url: floorUrl, pid: floorPid } = floorApp();
-    const floorEcho: Echo = { url: `${floorUrl}/api/echo`, pids: processTree(floorPid) };
+    const floor = floorApp();
+    const floorPids = processTree(floor.pid);
+    const floorAt = (path: string): Echo => ({ url: `${floor.url}${path}`, pids: floorPids });
+    const floorEcho = floorAt('/api/echo');
     // Warm both sides before timing: one warm-up left the first three pairs' route runs about a
     // third slower than the rest (the server's optimizing compiler still at work).
     for (let i = 0; i < 3; i++) await routeRun(org.otherAdvisor, org.otherVisit.id);
@@ -320,7 +321,7 @@ async function main() {
       // The pairs' median of the app's CPU per request less the floor's: what the app's own work costs.
       { name: `${DEVICES} devices: the app's own CPU per request (app − floor, median of the pairs)`,
         appCpuMsPerRequest: round(pairedExtra({ app: loads.map((l) => (l.cpu.app * 1000) / (l.pushes.length + l.pulls.length)), floor: bare.map((b) => b.cpuMsPerRequest) })) },
-      ...(await frameworkShare(devices.length)),
+      ...(await frameworkShare(devices.length, floorAt)),
       { name: `app's lightest route: ${DEVICES} devices GET /api/me at once`, samples: lightest.map((f) => f.times.length).join(' / '),
         p50Ms: round(median(lightest.map((f) => quantile(f.times, 0.5)))), p99Ms: round(median(lightest.map((f) => quantile(f.times, 0.99)))),
         errors: lightest.reduce((a, f) => a + f.errors, 0) },
